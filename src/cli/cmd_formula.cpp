@@ -1,0 +1,16 @@
+// Placeholder until this subcommand is written: it refuses plainly.
+#include "cli/command.hpp"
+
+#include <ostream>
+
+namespace apograph::cli {
+
+extern const char kFormulaUsage[] = "apograph formula (not yet available)";
+
+int RunFormula(const std::vector<std::string>& args, Io& io) {
+  (void)args;
+  io.err << "apograph formula: not yet available in this build\n";
+  return kInternal;
+}
+
+}  // namespace apograph::cli

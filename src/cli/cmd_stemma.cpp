@@ -1,0 +1,16 @@
+// Placeholder until this subcommand is written: it refuses plainly.
+#include "cli/command.hpp"
+
+#include <ostream>
+
+namespace apograph::cli {
+
+extern const char kStemmaUsage[] = "apograph stemma (not yet available)";
+
+int RunStemma(const std::vector<std::string>& args, Io& io) {
+  (void)args;
+  io.err << "apograph stemma: not yet available in this build\n";
+  return kInternal;
+}
+
+}  // namespace apograph::cli

@@ -1,0 +1,108 @@
+#include "cli/command.hpp"
+
+#include <iostream>
+
+#include "store/database.hpp"
+#include "support/input_error.hpp"
+
+namespace apograph::cli {
+namespace {
+
+void PrintOverview(std::ostream& out) {
+  out << "apograph: critical editions of astronomical tables\n\n"
+         "usage: apograph COMMAND [OPTIONS]    (apograph COMMAND --help for details)\n\n"
+         "commands:\n";
+  for (const auto& c : Commands()) {
+    std::string name = c.name;
+    name.resize(12, ' ');
+    out << "  " << name << c.summary << "\n";
+  }
+  out << "\nexit codes: 0 success, 1 success with findings to look at,\n"
+         "            2 bad input or usage (nothing written), 3 database or internal error\n";
+}
+
+}  // namespace
+
+const Command& FindCommand(const std::string& name) {
+  for (const auto& c : Commands()) {
+    if (name == c.name) return c;
+  }
+  throw InputError::ForOption("apograph", "unknown command '" + name + "' (see apograph --help)");
+}
+
+bool ParseOptions(const Command& command, const std::vector<std::string>& args,
+                  po::options_description& options, po::variables_map& vm, Io& io,
+                  const po::positional_options_description* positional) {
+  options.add_options()("help,h", "show this help");
+  try {
+    po::command_line_parser parser(args);
+    parser.options(options);
+    if (positional) parser.positional(*positional);
+    po::store(parser.run(), vm);
+    if (vm.count("help")) {
+      io.out << "apograph " << command.name << ": " << command.summary << "\n\n"
+             << command.usage << "\n\n" << options << "\n";
+      return true;
+    }
+    po::notify(vm);
+  } catch (const po::error& e) {
+    throw InputError::ForOption(std::string("apograph ") + command.name,
+                                std::string(e.what()) + " (see apograph " + command.name + " --help)");
+  }
+  return false;
+}
+
+void AddDbOption(po::options_description& options, std::string& db) {
+  options.add_options()("db", po::value(&db)->default_value("edition.sqlite"),
+                        "edition database (SQLite file)");
+}
+
+void AddFormatOption(po::options_description& options, std::string& format,
+                     const std::vector<std::string>& allowed) {
+  std::string list;
+  for (const auto& a : allowed) list += (list.empty() ? "" : "|") + a;
+  options.add_options()("format", po::value(&format)->default_value(allowed.front()),
+                        ("output format: " + list).c_str());
+}
+
+void CheckChoice(const std::string& option, const std::string& value,
+                 const std::vector<std::string>& allowed) {
+  for (const auto& a : allowed) {
+    if (a == value) return;
+  }
+  std::string list;
+  for (const auto& a : allowed) list += (list.empty() ? "" : ", ") + a;
+  throw InputError::ForOption(option, ExpectedFound("one of " + list, "'" + value + "'"));
+}
+
+Format ParseFormat(const std::string& value) {
+  if (value == "csv") return Format::kCsv;
+  if (value == "json") return Format::kJson;
+  return Format::kText;
+}
+
+int Dispatch(const std::vector<std::string>& args, Io& io) {
+  if (args.empty() || args[0] == "--help" || args[0] == "-h" || args[0] == "help") {
+    PrintOverview(args.empty() ? io.err : io.out);
+    return args.empty() ? kBadInput : kOk;
+  }
+  if (args[0] == "--version") {
+    io.out << "apograph 0.1.0\n";
+    return kOk;
+  }
+  try {
+    const Command& command = FindCommand(args[0]);
+    return command.run(std::vector<std::string>(args.begin() + 1, args.end()), io);
+  } catch (const InputError& e) {
+    io.err << e.Render() << "\n";
+    return kBadInput;
+  } catch (const store::StoreError& e) {
+    io.err << "apograph: database error: " << e.what() << "\n";
+    return kInternal;
+  } catch (const std::exception& e) {
+    io.err << "apograph: internal error: " << e.what() << "\n";
+    return kInternal;
+  }
+}
+
+}  // namespace apograph::cli

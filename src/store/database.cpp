@@ -1,0 +1,144 @@
+#include "store/database.hpp"
+
+#include <sqlite3.h>
+
+#include "store/schema.hpp"
+
+namespace apograph::store {
+namespace {
+
+[[noreturn]] void Fail(sqlite3* db, const std::string& what) {
+  throw StoreError(what + ": " + (db ? sqlite3_errmsg(db) : "out of memory"));
+}
+
+}  // namespace
+
+Statement::Statement(sqlite3* db, std::string_view sql) : db_(db) {
+  if (sqlite3_prepare_v2(db, sql.data(), static_cast<int>(sql.size()), &stmt_, nullptr) != SQLITE_OK) {
+    Fail(db, "preparing '" + std::string(sql.substr(0, 60)) + "'");
+  }
+}
+
+Statement::~Statement() { sqlite3_finalize(stmt_); }
+
+Statement::Statement(Statement&& other) noexcept : db_(other.db_), stmt_(other.stmt_) {
+  other.stmt_ = nullptr;
+}
+
+Statement& Statement::Bind(int index, std::int64_t value) {
+  sqlite3_bind_int64(stmt_, index, value);
+  return *this;
+}
+
+Statement& Statement::Bind(int index, double value) {
+  sqlite3_bind_double(stmt_, index, value);
+  return *this;
+}
+
+Statement& Statement::Bind(int index, std::string_view value) {
+  sqlite3_bind_text(stmt_, index, value.data(), static_cast<int>(value.size()), SQLITE_TRANSIENT);
+  return *this;
+}
+
+Statement& Statement::BindNull(int index) {
+  sqlite3_bind_null(stmt_, index);
+  return *this;
+}
+
+bool Statement::Step() {
+  const int rc = sqlite3_step(stmt_);
+  if (rc == SQLITE_ROW) return true;
+  if (rc == SQLITE_DONE) return false;
+  Fail(db_, "running statement");
+}
+
+void Statement::Run() {
+  Step();
+  Reset();
+}
+
+void Statement::Reset() {
+  sqlite3_reset(stmt_);
+  sqlite3_clear_bindings(stmt_);
+}
+
+bool Statement::IsNull(int column) const { return sqlite3_column_type(stmt_, column) == SQLITE_NULL; }
+std::int64_t Statement::Int(int column) const { return sqlite3_column_int64(stmt_, column); }
+double Statement::Real(int column) const { return sqlite3_column_double(stmt_, column); }
+
+std::string Statement::Text(int column) const {
+  const auto* p = sqlite3_column_text(stmt_, column);
+  return p ? std::string(reinterpret_cast<const char*>(p), static_cast<std::size_t>(sqlite3_column_bytes(stmt_, column)))
+           : std::string();
+}
+
+std::optional<std::string> Statement::OptionalText(int column) const {
+  if (IsNull(column)) return std::nullopt;
+  return Text(column);
+}
+
+Database::Database(const std::string& path) : path_(path) {
+  if (sqlite3_open_v2(path.c_str(), &db_, SQLITE_OPEN_READWRITE | SQLITE_OPEN_CREATE, nullptr) != SQLITE_OK) {
+    std::string msg = db_ ? sqlite3_errmsg(db_) : "out of memory";
+    sqlite3_close(db_);
+    throw StoreError("cannot open database " + path + ": " + msg);
+  }
+  sqlite3_busy_timeout(db_, 5000);
+  Execute("PRAGMA foreign_keys = ON");
+  Migrate();
+}
+
+Database::~Database() { sqlite3_close(db_); }
+
+Statement Database::Prepare(std::string_view sql) { return Statement(db_, sql); }
+
+void Database::Execute(std::string_view sql) {
+  char* err = nullptr;
+  if (sqlite3_exec(db_, std::string(sql).c_str(), nullptr, nullptr, &err) != SQLITE_OK) {
+    std::string msg = err ? err : "unknown error";
+    sqlite3_free(err);
+    throw StoreError("database " + path_ + ": " + msg);
+  }
+}
+
+std::int64_t Database::LastInsertId() const { return sqlite3_last_insert_rowid(db_); }
+
+int Database::SchemaVersion() {
+  auto s = Prepare("PRAGMA user_version");
+  s.Step();
+  return static_cast<int>(s.Int(0));
+}
+
+void Database::Migrate() {
+  const int current = SchemaVersion();
+  const auto& all = Migrations();
+  if (!all.empty() && current > all.back().version) {
+    throw StoreError("database " + path_ + " has schema version " + std::to_string(current) +
+                     ", newer than this apograph (" + std::to_string(all.back().version) + ")");
+  }
+  for (const auto& m : all) {
+    if (m.version <= current) continue;
+    Transaction t(*this);
+    Execute(m.sql);
+    Execute("PRAGMA user_version = " + std::to_string(m.version));
+    t.Commit();
+  }
+}
+
+Transaction::Transaction(Database& db) : db_(db) { db_.Execute("BEGIN IMMEDIATE"); }
+
+Transaction::~Transaction() {
+  if (!done_) {
+    try {
+      db_.Execute("ROLLBACK");
+    } catch (...) {
+    }
+  }
+}
+
+void Transaction::Commit() {
+  db_.Execute("COMMIT");
+  done_ = true;
+}
+
+}  // namespace apograph::store

@@ -1,0 +1,96 @@
+#pragma once
+/// A thin RAII layer over sqlite3: the only place that includes sqlite3.h.
+/// Stages never use it directly; the store's own files (edition_store.cpp,
+/// and one file per later stage) do.
+
+#include <cstdint>
+#include <optional>
+#include <stdexcept>
+#include <string>
+#include <string_view>
+
+struct sqlite3;
+struct sqlite3_stmt;
+
+namespace apograph::store {
+
+/// A database failure (locked file, corrupt database, constraint broken).
+class StoreError : public std::runtime_error {
+ public:
+  using std::runtime_error::runtime_error;
+};
+
+/// One prepared statement; bind by 1-based index, step, read columns.
+class Statement {
+ public:
+  Statement(sqlite3* db, std::string_view sql);
+  ~Statement();
+  Statement(const Statement&) = delete;
+  Statement& operator=(const Statement&) = delete;
+  Statement(Statement&& other) noexcept;
+
+  Statement& Bind(int index, std::int64_t value);
+  Statement& Bind(int index, int value) { return Bind(index, static_cast<std::int64_t>(value)); }
+  Statement& Bind(int index, double value);
+  Statement& Bind(int index, std::string_view value);
+  Statement& Bind(int index, const char* value) { return Bind(index, std::string_view(value)); }
+  Statement& Bind(int index, const std::string& value) { return Bind(index, std::string_view(value)); }
+  Statement& BindNull(int index);
+  template <typename T>
+  Statement& Bind(int index, const std::optional<T>& value) {
+    return value ? Bind(index, *value) : BindNull(index);
+  }
+
+  /// Advances; true while a row is available.
+  bool Step();
+  /// Runs a statement that returns no rows, then resets it for reuse.
+  void Run();
+  void Reset();
+
+  bool IsNull(int column) const;
+  std::int64_t Int(int column) const;
+  double Real(int column) const;
+  std::string Text(int column) const;
+  std::optional<std::string> OptionalText(int column) const;
+
+ private:
+  sqlite3* db_;
+  sqlite3_stmt* stmt_ = nullptr;
+};
+
+/// An open database with foreign keys on and the schema migrated.
+class Database {
+ public:
+  /// Opens (creating if needed) and applies pending migrations.
+  explicit Database(const std::string& path);
+  ~Database();
+  Database(const Database&) = delete;
+  Database& operator=(const Database&) = delete;
+
+  Statement Prepare(std::string_view sql);
+  void Execute(std::string_view sql);
+  std::int64_t LastInsertId() const;
+  int SchemaVersion();
+  const std::string& path() const { return path_; }
+
+ private:
+  void Migrate();
+  sqlite3* db_ = nullptr;
+  std::string path_;
+};
+
+/// BEGIN IMMEDIATE on construction; ROLLBACK unless Commit() was called.
+class Transaction {
+ public:
+  explicit Transaction(Database& db);
+  ~Transaction();
+  Transaction(const Transaction&) = delete;
+  Transaction& operator=(const Transaction&) = delete;
+  void Commit();
+
+ private:
+  Database& db_;
+  bool done_ = false;
+};
+
+}  // namespace apograph::store
