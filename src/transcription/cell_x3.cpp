@@ -127,7 +127,8 @@ NumberScan ScanNumber(std::string_view text, std::size_t base) {
     Fail(base + at, "expected " + failure.which() + ", found " + FoundInReading(text, at));
   }
   if (first != text.end()) {
-    const auto at = static_cast<std::size_t>(first - text.begin());
+    auto at = static_cast<std::size_t>(first - text.begin());
+    while (at < text.size() && IsBlank(text[at])) ++at;  // point at what stands there
     Fail(base + at, "expected " + ExpectedAfter(scan) + ", found " + FoundInReading(text, at));
   }
   if (scan.too_many) {

@@ -371,9 +371,11 @@ std::string Parser::ColumnList() const {
 
 void Parser::RowLine(std::string_view line, std::size_t at) {
   if (phase_ != Phase::kRows) {
-    Fail(line, at, std::string("expected a directive (") + kDirectives + ")" +
-                       (phase_ == Phase::kLayout ? " and @rows before the rows" : "") +
-                       ", found " + FoundToken(line, at));
+    if (phase_ == Phase::kLayout) {
+      Fail(line, at, "expected @rows before the first row, found " + FoundToken(line, at));
+    }
+    Fail(line, at, std::string("expected a directive (") + kDirectives + "), found " +
+                       FoundToken(line, at));
   }
   Row row;
   row.line = line_no_;
