@@ -13,16 +13,16 @@ namespace {
 namespace x3 = boost::spirit::x3;
 using x3g::Iterator;
 
-constexpr int kMaxTokens = 40;
+constexpr int kMaxTokens = 24;
 constexpr int kMaxIntegerDigits = 13;
 
 /// One place as written: digits or `?`, with its offset in the reading.
 struct PlaceToken {
-  std::uint64_t value = 0;
-  std::uint32_t offset = 0;
-  std::uint16_t digits = 0;
-  bool unknown = false;
-  bool fraction = false;
+  std::uint64_t value;
+  std::uint32_t offset;
+  std::uint16_t digits;
+  bool unknown;
+  bool fraction;
 };
 
 enum class Form { kTrade, kDegree, kColumns };
@@ -35,7 +35,7 @@ struct NumberScan {
   bool in_fraction = false;
   bool too_many = false;
   int count = 0;
-  PlaceToken places[kMaxTokens];
+  PlaceToken places[kMaxTokens];  // left uninitialised: only [0, count) is read
 
   void Add(PlaceToken token) {
     if (count == kMaxTokens) {
@@ -51,8 +51,7 @@ struct scan_tag;
 const auto on_digits = [](auto& ctx) {
   NumberScan& scan = x3::get<scan_tag>(ctx);
   const auto& range = x3::_attr(ctx);
-  PlaceToken token;
-  token.offset = static_cast<std::uint32_t>(range.begin() - scan.begin);
+  PlaceToken token{0, static_cast<std::uint32_t>(range.begin() - scan.begin), 0, false, false};
   for (char c : range) {
     if (token.digits < 18) token.value = token.value * 10 + static_cast<std::uint64_t>(c - '0');
     if (token.digits < UINT16_MAX) ++token.digits;
@@ -61,11 +60,8 @@ const auto on_digits = [](auto& ctx) {
 };
 const auto on_unknown = [](auto& ctx) {
   NumberScan& scan = x3::get<scan_tag>(ctx);
-  PlaceToken token;
-  token.offset = static_cast<std::uint32_t>(x3::_where(ctx).begin() - scan.begin);
-  token.unknown = true;
-  token.digits = 1;
-  scan.Add(token);
+  scan.Add(PlaceToken{0, static_cast<std::uint32_t>(x3::_where(ctx).begin() - scan.begin), 1, true,
+                      false});
 };
 const auto on_negative = [](auto& ctx) { x3::get<scan_tag>(ctx).negative = true; };
 const auto on_fraction = [](auto& ctx) { x3::get<scan_tag>(ctx).in_fraction = true; };
@@ -95,6 +91,12 @@ const auto kMarkHead = x3::lit('{') >> x3::omit[*x3::blank] >> x3::raw[*x3::alph
 const auto kMarkClose = x3::rule<class close_id>{"'}' closing the mark"} = x3::lit('}');
 
 bool IsBlank(char c) { return c == ' ' || c == '\t'; }
+
+/// First of '{', '|', '#' from `pos`, or the end of the line.
+std::size_t CellEnd(std::string_view line, std::size_t pos) {
+  while (pos < line.size() && line[pos] != '{' && line[pos] != '|' && line[pos] != '#') ++pos;
+  return pos;
+}
 
 [[noreturn]] void Fail(std::size_t offset, std::string message) {
   throw LineError{offset, std::move(message)};
@@ -301,8 +303,7 @@ ReadingInfo ParseCell(std::string_view line, std::size_t& pos, int places, Cell&
                       std::size_t& reading_offset) {
   SkipBlanks(line, pos);
   const std::size_t start = pos;
-  std::size_t end = line.find_first_of("{|#", pos);
-  if (end == std::string_view::npos) end = line.size();
+  const std::size_t end = CellEnd(line, pos);
   std::size_t last = end;
   while (last > start && IsBlank(line[last - 1])) --last;
   if (last == start) {
