@@ -111,7 +111,8 @@ std::string QuoteValue(const std::string& text) {
   std::string out = "\"";
   for (char c : text) {
     if (c == '"' || c == '\\') out += '\\';
-    out += static_cast<unsigned char>(c) < 0x20 || c == 0x7F ? ' ' : c;
+    const bool control = (static_cast<unsigned char>(c) < 0x20 && c != '\t') || c == 0x7F;
+    out += control ? ' ' : c;
   }
   return out + "\"";
 }

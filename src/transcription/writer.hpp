@@ -6,8 +6,8 @@
 /// with SameContent() as the input, provided the tables came from the
 /// parser or the CSV reader (ids are words without blanks, raw readings are
 /// readings). Cell readings are written as typed (Cell::raw), so nothing the
-/// editor wrote is normalised away. Control characters in free text (notes,
-/// titles) are written as blanks, since a line cannot hold them.
+/// editor wrote is normalised away. Control characters other than TAB in free
+/// text (notes, titles) are written as blanks, since a line cannot hold them.
 
 #include <string>
 #include <vector>

@@ -66,3 +66,12 @@ TEST_CASE("an id that is not a word cannot be written") {
   t.table_id = "two words";
   CHECK_THROWS_AS(apograph::WriteTranscription(t), apograph::InputError);
 }
+
+TEST_CASE("a TAB inside a quoted value survives the round trip") {
+  // Found by the fuzz target: TAB is text, not a control character to drop.
+  const auto file = apograph::ParseTranscription(
+      "@work w\n@witness K\n@table t kind=\"mean\tmotion\"\n@argument a\n@column c\n@rows\n"
+      "1 | 2 {note \"a\tb\"}\n",
+      "t.apo");
+  CheckRoundTrip(file.tables);
+}
