@@ -210,7 +210,13 @@ class Compiler {
       std::string want = f->max_args < 0 ? std::to_string(f->min_args) + " or more arguments"
                          : f->min_args == f->max_args ? std::to_string(f->min_args) + " argument" + (f->min_args > 1 ? "s" : "")
                          : std::to_string(f->min_args) + " or " + std::to_string(f->max_args) + " arguments";
-      Fail(source_, text_, e.offset, ExpectedFound(want + " to " + e.text, std::to_string(n)));
+      std::string hint;
+      for (const auto& a : e.args) {
+        if (a.kind == Expr::Kind::kNumber && a.text.find(',') != std::string::npos) {
+          hint = " (" + a.text + " is one number; put a blank after a comma that separates arguments)";
+        }
+      }
+      Fail(source_, text_, e.offset, ExpectedFound(want + " to " + e.text, std::to_string(n) + hint));
     }
     if (f->op == Op::kArgOf || f->op == Op::kSelf) return RowShift(*f, e);
     Node node{f->op, 0, 0, "", {}};

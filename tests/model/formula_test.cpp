@@ -183,6 +183,11 @@ TEST_CASE("mistyped formulas: positioned errors, word for word") {
         "formula:1:1: error: expected a declared parameter, arg, arg2 or a function, found 'x'\n"
         "x + 1\n^");
   CHECK(ErrorOf("atan2(1)") == "formula:1:1: error: expected 2 arguments to atan2, found 1\natan2(1)\n^");
+  CHECK(ErrorOf("atan2(1;30,45)") ==
+        "formula:1:1: error: expected 2 arguments to atan2, found 1 (1;30,45 is one number; put a "
+        "blank after a comma that separates arguments)\natan2(1;30,45)\n^");
+  CHECK(CompileFormula("atan2(1;30, 45)")->Evaluate({}, RowContext{}) ==
+        doctest::Approx(std::atan2(1.5, 45) * 180 / std::numbers::pi));
   CHECK(ErrorOf("2;60 * arg") ==
         "formula:1:3: error: expected a place from 0 to 59, found '60'\n2;60 * arg\n  ^");
   CHECK(ErrorOf("1 2") ==
