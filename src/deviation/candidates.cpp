@@ -3,6 +3,7 @@
 #include "deviation/explain_internal.hpp"
 
 #include <algorithm>
+#include <cmath>
 
 namespace apograph::deviation::internal {
 namespace {
@@ -199,7 +200,10 @@ std::vector<Explanation> RepetitionCandidates(const CellContext& c) {
       if (!reading || !c.Reaches(*reading)) continue;
       Explanation e;
       e.cls = SlipClass::kRepetition;
-      e.score = kPriorPlaceRepeated * c.Closeness(*reading);
+      // A place agreeing with a neighbour's by chance is likely when the
+      // departure is as small as an author's: weigh it down then.
+      const bool small = std::fabs(c.diff) <= c.options->computational_units + 1e-9;
+      e.score = kPriorPlaceRepeated * c.Closeness(*reading) * (small ? 0.5 : 1.0);
       e.emendation = reading;
       e.evidence = PlaceName(static_cast<int>(p), c.unit) + " " + std::to_string(copy.d[p]) + " repeated from " +
                    where + " (" + n->ToString() + "), the model's " + std::to_string(model.d[p]) +
