@@ -61,6 +61,7 @@ Finding RunFinding(const RunScan& s, const RunCandidate& run) {
   Finding f = NewFinding(s.table, s.values, s.places);
   bool small = true;
   int sign = 0, supplied = 0;
+  double low = 1e300, high = -1e300;
   for (std::size_t r = run.first; r <= run.last; ++r) {
     f.cells.push_back(MakeCell(s.table, s.values, r, s.places));
     const std::ptrdiff_t from = static_cast<std::ptrdiff_t>(r) - run.shift;
@@ -74,6 +75,8 @@ Finding RunFinding(const RunScan& s, const RunCandidate& run) {
     }
     if (s.Deviant(r)) {
       const double d = s.diffs.diff[r];
+      low = std::min(low, d);
+      high = std::max(high, d);
       small = small && std::fabs(d) <= s.options.computational_units + 1e-9;
       const int sg = d > 0 ? 1 : -1;
       if (sign == 0) sign = sg;
@@ -94,7 +97,10 @@ Finding RunFinding(const RunScan& s, const RunCandidate& run) {
                RowsWord(run.shift) + (run.shift > 0 ? " ahead" : " behind") +
                " (eye-skip); each entry is restored to its own row" +
                (supplied ? " (" + std::to_string(supplied) + " supplied from the model)" : "");
-  if (small) {
+  // A constant small offset is as well explained by the author's computation
+  // as by a slide; offsets that vary row by row but match the neighbouring
+  // rows exactly are the slide's signature.
+  if (small && high - low < 1 - 1e-9) {
     Explanation comp;
     comp.cls = SlipClass::kComputational;
     comp.score = 0.85;

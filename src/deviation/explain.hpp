@@ -17,7 +17,7 @@
 /// displaced run 0.8-0.97, blank/illegible 0.95, repetition of a neighbouring
 /// entry 0.85, confusion 0.9 x weights, transposition 0.75 (0.3 outside
 /// positional scripts), place omitted 0.7 / moved 0.65 / added 0.6,
-/// a neighbour's place repeated 0.55, computational 0.25-0.9 (higher when
+/// a neighbour's place repeated 0.55, computational 0.25-0.85 (higher when
 /// neighbours share the departure or the exact value lies near a rounding
 /// boundary), unexplained 0.
 

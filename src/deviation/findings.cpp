@@ -110,7 +110,7 @@ std::optional<Explanation> ComputationalCandidate(const CellContext& c, const Di
     e.evidence = what + ", shared by a neighbouring entry: the author's computation, not a copyist's slip; " +
                  model + "; keep the reading";
   } else if (boundary) {
-    e.score = 0.75;
+    e.score = 0.65;  // below kSharedComputational: does not weaken the slips
     e.evidence = what + "; " + model +
                  ", close to the rounding boundary, so a slightly different computation by the author "
                  "explains it; keep the reading";
