@@ -102,7 +102,14 @@ void FillParams(const model::Model& model, internal::FitProblem& problem,
 }  // namespace
 
 FitResult Fit(const model::Model& model, const Transcription& table,
-              const std::vector<Observation>& obs, const FitOptions& options) {
+              const std::vector<Observation>& obs, const FitOptions& given) {
+  FitOptions options = given;
+  // A model reduced modulo a circle is compared modulo 360.
+  if (const int m = model.ParamIndex("modulus"); m >= 0) {
+    auto f = options.fixed.find("modulus");
+    const double modulus = f != options.fixed.end() ? f->second : model.params()[static_cast<std::size_t>(m)].default_value;
+    options.modulo_360 = options.modulo_360 || modulus > 0;
+  }
   for (const auto& [name, v] : options.fixed) {
     bool known = false;
     for (const auto& p : model.params()) known = known || p.name == name;

@@ -8,6 +8,7 @@ namespace apograph::estimate::internal {
 FitProblem::FitProblem(const model::Model& model, const Transcription& table,
                        const std::vector<Observation>& obs, const FitOptions& options)
     : model_(model),
+      practice_(options.practice),
       full_(model.Defaults()),
       fit_displacement_(options.fit_displacement),
       modulo_(options.modulo_360),
@@ -19,6 +20,7 @@ FitProblem::FitProblem(const model::Model& model, const Transcription& table,
       full_[j] = f->second;
       continue;
     }
+    if (IsStructural(specs[j].name) && !options.start.count(specs[j].name)) continue;
     free_index_.push_back(static_cast<int>(j));
     double lo = specs[j].low, hi = specs[j].high;
     if (!(hi > lo)) {
@@ -29,23 +31,12 @@ FitProblem::FitProblem(const model::Model& model, const Transcription& table,
     lows_.push_back(lo);
     highs_.push_back(hi);
   }
-  const double g = options.practice.grid;
+  practice_.displacement = 0;
   for (const auto& o : obs) {
     Entry e;
     const auto& col = table.columns.at(static_cast<std::size_t>(o.column));
     e.ctx = {o.arg, col.arg2 ? std::optional<double>(col.arg2->ToDouble()) : std::nullopt, &table,
              o.row, o.column};
-    e.t = -1;
-    if (g > 0) {
-      const double lo = std::floor(o.arg / g + 1e-9) * g;
-      if (std::fabs(o.arg - lo) > 1e-9 * std::max(1.0, std::fabs(o.arg))) {
-        e.lo = e.ctx;
-        e.hi = e.ctx;
-        e.lo.arg = lo;
-        e.hi.arg = lo + g;
-        e.t = (o.arg - lo) / g;
-      }
-    }
     e.places = options.practice.places ? std::min(*options.practice.places, o.places) : o.places;
     e.scale = std::pow(60.0, e.places);
     e.tab = o.value.ToDouble();
@@ -82,10 +73,7 @@ int FitProblem::ModelIndex(int j) const {
 }
 
 double FitProblem::ModelValue(const Entry& e) {
-  if (e.t < 0) return model_.Evaluate(full_, e.ctx);
-  const double a = model_.Evaluate(full_, e.lo);
-  const double b = model_.Evaluate(full_, e.hi);
-  return a + (b - a) * e.t;
+  return model::PracticeValue(model_, full_, e.ctx, practice_, e.places);
 }
 
 double FitProblem::Value(std::size_t i, const double* x) {

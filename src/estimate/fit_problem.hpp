@@ -32,6 +32,9 @@ class FitProblem {
   double Value(std::size_t i, const double* x);
   /// The residual of entry i when the model's value (as from Value) is v.
   double ResidualOf(std::size_t i, double v) const;
+  /// Parameters never estimated unless the user frees them by --start:
+  /// "modulus" of the mean-motion models (a convention, not a quantity).
+  static bool IsStructural(const std::string& name) { return name == "modulus"; }
   /// Full model parameter vector for a free vector.
   const std::vector<double>& Expand(const double* x);
   double Displacement(const double* x) const;
@@ -42,8 +45,6 @@ class FitProblem {
  private:
   struct Entry {
     model::RowContext ctx;
-    model::RowContext lo, hi;  ///< grid nodes when interpolated
-    double t = 0;              ///< interpolation weight of hi; <0 when on a node
     double target = 0;         ///< tabulated units + truncation offset
     double tab = 0;            ///< tabulated value as a double
     double scale = 1;          ///< 60^places
@@ -52,6 +53,7 @@ class FitProblem {
   double ModelValue(const Entry& e);
 
   const model::Model& model_;
+  model::Practice practice_;  ///< without displacement (added here)
   std::vector<Entry> entries_;
   std::vector<int> free_index_;
   std::vector<double> full_;

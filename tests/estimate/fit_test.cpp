@@ -13,7 +13,8 @@ namespace {
 
 double SolarEquation(double e, double a) {
   const double r = a * std::numbers::pi / 180.0;
-  return std::atan2(e * std::sin(r), 60.0 + e * std::cos(r)) * 180.0 / std::numbers::pi;
+  // The model library's convention: the table gives the amount, q(360-a) = q(a).
+  return std::fabs(std::atan2(e * std::sin(r), 60.0 + e * std::cos(r)) * 180.0 / std::numbers::pi);
 }
 
 Transcription SolarTable(double e, std::map<int, int> errors = {}, Rounding rounding = Rounding::kNearest) {
