@@ -40,6 +40,11 @@ Statement& Statement::Bind(int index, std::string_view value) {
   return *this;
 }
 
+Statement& Statement::BindStatic(int index, std::string_view value) {
+  sqlite3_bind_text(stmt_, index, value.data(), static_cast<int>(value.size()), SQLITE_STATIC);
+  return *this;
+}
+
 Statement& Statement::BindNull(int index) {
   sqlite3_bind_null(stmt_, index);
   return *this;
@@ -55,6 +60,16 @@ bool Statement::Step() {
 void Statement::Run() {
   Step();
   Reset();
+}
+
+void Statement::RunKeepBindings() {
+  const int rc = sqlite3_step(stmt_);
+  if (rc != SQLITE_DONE && rc != SQLITE_ROW) {
+    std::string msg = sqlite3_errmsg(db_);
+    sqlite3_reset(stmt_);
+    throw StoreError("running statement: " + msg);
+  }
+  sqlite3_reset(stmt_);
 }
 
 void Statement::Reset() {
