@@ -83,8 +83,39 @@ struct Chosen {
   std::string how;  // "given" or "fitted"
 };
 
+int ExactEntries(const Chosen& c, const Transcription& t, const std::vector<int>& columns,
+                 const model::Practice& practice) {
+  int exact = 0;
+  for (int col : columns) {
+    const auto re = model::Recompute(*c.model, c.params, t, col, practice);
+    for (std::size_t r = 0; r < t.rows.size(); ++r) {
+      const auto& v = t.rows[r].cells[static_cast<std::size_t>(col)].value;
+      exact += v && re.computed[r] && *v == *re.computed[r];
+    }
+  }
+  return exact;
+}
+
+/// Authors chose round sexagesimal parameters: the fitted values brought to
+/// 1, 2 or 3 sexagesimal places, the coarsest that reproduces at least as
+/// many entries exactly as the fit itself.
+Chosen RoundParams(const Chosen& fitted, const Transcription& t, const std::vector<int>& columns,
+                   const model::Practice& practice) {
+  const int target = ExactEntries(fitted, t, columns, practice);
+  for (int places = 1; places <= 3; ++places) {
+    Chosen c = fitted;
+    for (double& v : c.params) v = Sexagesimal::FromDouble(v, places).ToDouble();
+    if (ExactEntries(c, t, columns, practice) >= target) {
+      c.how = "fitted, rounded to " + std::to_string(places) + (places == 1 ? " place" : " places");
+      return c;
+    }
+  }
+  return fitted;
+}
+
 /// --auto: the fitted parameters of one model, or of the built-in model that
-/// fits best (most entries within one unit, then the smallest scatter).
+/// fits best (most entries reproduced exactly, then fewer free parameters,
+/// then the smallest scatter).
 Chosen AutoModel(const ErrorsOptions& o, const Transcription& t, const std::vector<int>& columns,
                  const model::Practice& practice) {
   estimate::FitOptions fo;
@@ -103,7 +134,9 @@ Chosen AutoModel(const ErrorsOptions& o, const Transcription& t, const std::vect
       if (candidates.size() == 1) throw;
       continue;  // a model that cannot describe this table
     }
-    const int good = r.exact + r.within1;
+    // Most entries reproduced exactly; on a tie the fewer free parameters,
+    // then the smaller scatter (an equivalent richer model is no better).
+    const int good = r.exact * 100 - r.free_parameters;
     if (good > best_good || (good == best_good && r.robust_scale < best_scale)) {
       best = {m, r.Values(), "fitted"};
       best_good = good;
@@ -111,17 +144,25 @@ Chosen AutoModel(const ErrorsOptions& o, const Transcription& t, const std::vect
     }
   }
   if (!best.model) throw InputError::ForOption("--auto", "no built-in model could be fitted to this table");
-  return best;
+  return RoundParams(best, t, columns, practice);
 }
 
+/// "solar-eccentric e=2.5 (2;30)": the trade's notation beside a value that
+/// is a short sexagesimal fraction.
 std::string ModelText(const Chosen& c) {
   std::string out = c.model->name();
   for (std::size_t i = 0; i < c.params.size() && i < c.model->params().size(); ++i) {
     char buf[64];
     std::snprintf(buf, sizeof buf, " %s=%.6g", c.model->params()[i].name.c_str(), c.params[i]);
     out += buf;
+    for (int places = 1; places <= 3; ++places) {
+      const auto v = Sexagesimal::FromDouble(c.params[i], places);
+      if (std::fabs(v.ToDouble() - c.params[i]) > 1e-12) continue;
+      if (std::fabs(c.params[i] - std::round(c.params[i])) > 1e-12) out += " (" + v.ToString() + ")";
+      break;
+    }
   }
-  return out + (c.how == "fitted" ? " (fitted)" : "");
+  return out + (c.how == "given" ? "" : " (" + c.how + ")");
 }
 
 nlohmann::json Units(double d) {

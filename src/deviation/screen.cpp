@@ -183,6 +183,9 @@ std::vector<Suspect> ScreenColumn(const Transcription& table, int column, const 
     eo.tolerance = 1;  // the curve is only an estimate of the original
     eo.max_shift = 0;  // runs need a model; the curve follows a slid run
     for (const auto& f : ExplainColumn(table, against, *script, eo)) {
+      // Only slips that reach the curve are worth showing without a model.
+      const SlipClass best = f.best().cls;
+      if (best == SlipClass::kUnexplained || best == SlipClass::kComputational) continue;
       for (auto& s : out) {
         if (s.row == f.cells.front().row) s.explanations = f.explanations;
       }
