@@ -192,3 +192,27 @@ TEST_CASE("the same deviation is a slip in one script and not in another") {
   INFO(Explain(s, "hindu-arabic").front().Note("A"));
   CHECK(Explain(s, "hindu-arabic").front().best().cls == SlipClass::kComputational);
 }
+
+TEST_CASE("a published solar equation table: one departure, the author's, not a slip") {
+  // Source: Maimonides, *Mishneh Torah*, Laws of the Sanctification of the New
+  // Moon 13:4 (values as in published-checks.md section 2). With the
+  // eccentric model at e = 2;4,48 every entry is reproduced except the one at
+  // 20 (model 0;39,28, table 0;40).
+  const char* kTable[] = {"0;20", "0;40", "0;58", "1;15", "1;29", "1;41", "1;51", "1;57", "1;59",
+                          "1;58", "1;53", "1;45", "1;33", "1;19", "1;1",  "0;42", "0;21", "0;0"};
+  const double e = 2 + 4 / 60.0 + 48 / 3600.0;
+  auto q = [e](double a) {
+    const double r = a * std::numbers::pi / 180.0;
+    return std::atan2(e * std::sin(r), 60.0 + e * std::cos(r)) * 180.0 / std::numbers::pi;
+  };
+  Synthetic s = MakeTable(q, 10, 10, 18, 1, "hebrew-alphabetic");
+  for (std::size_t r = 0; r < 18; ++r) s.Set(r, kTable[r]);
+  const auto findings = Explain(s, "hebrew-alphabetic");
+  REQUIRE(findings.size() == 1);
+  const Finding& f = findings.front();
+  INFO(f.Note("M"));
+  CHECK(f.cells.front().arg == "20");
+  CHECK(f.cells.front().computed->ToString() == "0;39");
+  CHECK(f.best().cls == SlipClass::kComputational);
+  CHECK(f.best().evidence.find("the model gives 0;39,28") != std::string::npos);
+}
