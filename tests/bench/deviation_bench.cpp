@@ -3,7 +3,8 @@
 // the proposed emendation restores the original reading.
 //
 //   cmake -S . -B build -DAPOGRAPH_BENCH=ON && cmake --build build --target deviation_bench
-//   ./build/deviation_bench [tables-per-setting]
+//   ./build/deviation_bench [tables-per-setting]   (default 20; BENCH_DEBUG=1 prints
+//   every missed entry and every emendation that does not restore the original)
 #include <chrono>
 #include <cstdio>
 #include <cstdlib>
