@@ -1,0 +1,148 @@
+// Runs of consecutive entries of one column slid by one or more rows (the
+// copyist's eye skipped or repeated a line): found as runs where the copy's
+// entry of row i is the model's value of row i+k, and reported once.
+#include <algorithm>
+#include <cmath>
+
+#include "deviation/explain_internal.hpp"
+
+namespace apograph::deviation::internal {
+namespace {
+
+struct RunCandidate {
+  std::size_t first = 0, last = 0;
+  int shift = 0;
+  int deviant = 0;
+};
+
+struct RunScan {
+  const Transcription& table;
+  const ColumnValues& values;
+  const ExplainOptions& options;
+  const DiffColumn& diffs;
+  int places;
+
+  const std::optional<Sexagesimal>& Value(std::size_t r) const {
+    return table.rows[r].cells[static_cast<std::size_t>(values.column)].value;
+  }
+  bool Deviant(std::size_t r) const {
+    return std::isfinite(diffs.diff[r]) && std::fabs(diffs.diff[r]) > options.tolerance + 1e-9;
+  }
+  bool Match(std::size_t r, int k) const {
+    const std::ptrdiff_t j = static_cast<std::ptrdiff_t>(r) + k;
+    if (j < 0 || j >= static_cast<std::ptrdiff_t>(values.computed.size())) return false;
+    const auto& c = values.computed[static_cast<std::size_t>(j)];
+    if (!std::isfinite(diffs.diff[r]) || !c) return false;
+    return std::fabs(DiffUnits(*Value(r), *c, places)) <= options.tolerance + 1e-9;
+  }
+  void Collect(int k, std::vector<RunCandidate>& out) const {
+    const std::size_t n = table.rows.size();
+    for (std::size_t i = 0; i < n;) {
+      if (!Match(i, k)) {
+        ++i;
+        continue;
+      }
+      std::size_t j = i;
+      while (j + 1 < n && Match(j + 1, k)) ++j;
+      std::size_t a = i, b = j;
+      while (a < b && !Deviant(a)) ++a;
+      while (b > a && !Deviant(b)) --b;
+      int deviant = 0;
+      for (std::size_t r = a; r <= b; ++r) deviant += Deviant(r);
+      if (b > a && deviant >= 2) out.push_back({a, b, k, deviant});
+      i = j + 1;
+    }
+  }
+};
+
+std::string RowsWord(int k) { return std::abs(k) == 1 ? "one row" : std::to_string(std::abs(k)) + " rows"; }
+
+Finding RunFinding(const RunScan& s, const RunCandidate& run) {
+  Finding f = NewFinding(s.table, s.values, s.places);
+  bool small = true;
+  int sign = 0, supplied = 0;
+  double low = 1e300, high = -1e300;
+  for (std::size_t r = run.first; r <= run.last; ++r) {
+    f.cells.push_back(MakeCell(s.table, s.values, r, s.places));
+    const std::ptrdiff_t from = static_cast<std::ptrdiff_t>(r) - run.shift;
+    auto& cell = f.cells.back();
+    if (from >= static_cast<std::ptrdiff_t>(run.first) && from <= static_cast<std::ptrdiff_t>(run.last)) {
+      cell.emendation = s.Value(static_cast<std::size_t>(from))->Rounded(s.places);
+    } else if (s.values.computed[r]) {
+      const auto& c = *s.values.computed[r];
+      cell.emendation = c.places() <= s.places ? c.Extended(s.places) : c.Rounded(s.places);
+      ++supplied;
+    }
+    if (s.Deviant(r)) {
+      const double d = s.diffs.diff[r];
+      low = std::min(low, d);
+      high = std::max(high, d);
+      small = small && std::fabs(d) <= s.options.computational_units + 1e-9;
+      const int sg = d > 0 ? 1 : -1;
+      if (sign == 0) sign = sg;
+      small = small && sg == sign;
+    }
+  }
+  const auto& first = f.cells.front();
+  const auto& last = f.cells.back();
+  const std::size_t to_first = run.first + static_cast<std::size_t>(run.shift);
+  const std::size_t to_last = run.last + static_cast<std::size_t>(run.shift);
+  Explanation e;
+  e.cls = SlipClass::kDisplacedRun;
+  e.score = std::min(0.97, 0.8 + 0.05 * (run.deviant - 2));
+  e.emendation = first.emendation;
+  e.evidence = "the entries of " + first.arg + " to " + last.arg + " are the model's values of " +
+               MakeCell(s.table, s.values, to_first, s.places).arg + " to " +
+               MakeCell(s.table, s.values, to_last, s.places).arg + ": the copyist's eye slid " +
+               RowsWord(run.shift) + (run.shift > 0 ? " ahead" : " behind") +
+               " (eye-skip); each entry is restored to its own row" +
+               (supplied ? " (" + std::to_string(supplied) + " supplied from the model)" : "");
+  // A constant small offset is as well explained by the author's computation
+  // as by a slide; offsets that vary row by row but match the neighbouring
+  // rows exactly are the slide's signature.
+  if (small && high - low < 1 - 1e-9) {
+    Explanation comp;
+    comp.cls = SlipClass::kComputational;
+    comp.score = 0.85;
+    comp.evidence = "every entry of " + first.arg + " to " + last.arg +
+                    " departs from the model by at most " + std::to_string(static_cast<int>(s.options.computational_units)) +
+                    " units, all of one sign: in a slowly changing column the author's computation and a "
+                    "slide of " + RowsWord(run.shift) + " look alike; keep the readings unless other witnesses differ";
+    e.score *= 0.6;
+    f.explanations = {comp, e};
+    for (auto& c : f.cells) c.emendation.reset();
+  } else {
+    f.explanations = {e};
+  }
+  return f;
+}
+
+}  // namespace
+
+std::vector<Finding> DisplacedRuns(const Transcription& table, const ColumnValues& values,
+                                   const NumeralScript& script, const ExplainOptions& options,
+                                   const DiffColumn& diffs, std::vector<bool>& claimed) {
+  (void)script;
+  const int places = table.columns[static_cast<std::size_t>(values.column)].places;
+  RunScan scan{table, values, options, diffs, places};
+  std::vector<RunCandidate> candidates;
+  for (int k = 1; k <= options.max_shift; ++k) {
+    scan.Collect(k, candidates);
+    scan.Collect(-k, candidates);
+  }
+  std::stable_sort(candidates.begin(), candidates.end(), [](const RunCandidate& a, const RunCandidate& b) {
+    if (a.deviant != b.deviant) return a.deviant > b.deviant;
+    return std::abs(a.shift) < std::abs(b.shift);
+  });
+  std::vector<Finding> out;
+  for (const auto& run : candidates) {
+    bool free = true;
+    for (std::size_t r = run.first; r <= run.last; ++r) free = free && !claimed[r];
+    if (!free) continue;
+    for (std::size_t r = run.first; r <= run.last; ++r) claimed[r] = true;
+    out.push_back(RunFinding(scan, run));
+  }
+  return out;
+}
+
+}  // namespace apograph::deviation::internal

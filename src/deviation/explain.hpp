@@ -1,0 +1,116 @@
+#pragma once
+/// Explaining deviations: for each entry that differs from the model by more
+/// than the tolerance, the copying slips (or the author's inaccuracy) that
+/// account for it, ranked, each with a proposed original reading and a
+/// sentence of evidence an editor can paste into a note.
+///
+/// The stage is driven by plain values: a Transcription, and per column the
+/// model's value of every row (computed by the caller with the author's
+/// practice applied) and, optionally, the model's exact value for the
+/// evidence. It knows nothing of the database or of how the model was chosen.
+///
+/// Scores are in [0, 1]: prior(class) x strength, where the strength is the
+/// weight of the confusions used (from the script file), or how many rows a
+/// displaced run covers, or how small and how shared a departure is; a
+/// reading that lands on the model's reading exactly counts fully, one merely
+/// within the tolerance counts 0.8. The priors (see kPrior* in explain.cpp):
+/// displaced run 0.8-0.97, blank/illegible 0.95, repetition of a neighbouring
+/// entry 0.85, confusion 0.9 x weights, transposition 0.75 (0.3 outside
+/// positional scripts), place omitted 0.7 / moved 0.65 / added 0.6,
+/// a neighbour's place repeated 0.55, computational 0.25-0.85 (higher when
+/// neighbours share the departure or the exact value lies near a rounding
+/// boundary), unexplained 0.
+
+#include <cstddef>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "deviation/numeral_script.hpp"
+#include "edition/transcription.hpp"
+#include "number/sexagesimal.hpp"
+
+namespace apograph::deviation {
+
+/// What produced a deviation.
+enum class SlipClass {
+  kConfusion,      ///< one or two symbols confused in the witness's script
+  kTransposition,  ///< the two digits of a place transposed (43 for 34)
+  kPlace,          ///< a place omitted, added or moved (minutes written as seconds)
+  kDisplacedRun,   ///< a run of entries slid by one or more rows (eye-skip)
+  kRepetition,     ///< a neighbouring entry (or one of its places) repeated
+  kBlank,          ///< nothing written
+  kIllegible,      ///< written but not (fully) readable
+  kComputational,  ///< the author's own inaccuracy: belongs in the edition
+  kUnexplained,    ///< no explanation reaches the model's value
+};
+
+/// Stable names used in JSON, CSV and the database: "confusion",
+/// "transposition", "place", "displaced-run", "repetition", "blank",
+/// "illegible", "computational", "unexplained".
+const char* ToString(SlipClass cls);
+std::optional<SlipClass> SlipClassFromString(const std::string& text);
+/// True for every class that is a copyist's doing (all but computational):
+/// those call for an emendation.
+bool IsCopyingSlip(SlipClass cls);
+
+/// The model's values for one column, row by row (same length as the table).
+struct ColumnValues {
+  int column = 0;
+  /// The model's value with the author's practice applied (usually at the
+  /// column's places; more places are allowed and then the tolerance absorbs
+  /// rounding). nullopt: no value for this row.
+  std::vector<std::optional<Sexagesimal>> computed;
+  /// The model's exact values (NaN: none), quoted in the evidence; may be empty.
+  std::vector<double> exact;
+};
+
+struct ExplainOptions {
+  double tolerance = 0.5;          ///< units of the last place an entry may differ
+  int max_confusions = 2;          ///< symbol confusions combined in one explanation
+  int max_shift = 3;               ///< rows a displaced run may have slid
+  double computational_units = 2;  ///< departures up to this may be the author's
+};
+
+/// One candidate explanation.
+struct Explanation {
+  SlipClass cls = SlipClass::kUnexplained;
+  double score = 0;
+  std::optional<Sexagesimal> emendation;  ///< the proposed original reading
+  std::string evidence;                   ///< a sentence for a critical note
+};
+
+/// One cell a finding covers.
+struct FindingCell {
+  std::size_t row = 0;
+  std::string arg;                        ///< the argument as written (or expected)
+  std::string tabulated;                  ///< the reading as transcribed (`_`, `?` included)
+  std::optional<Sexagesimal> value;       ///< the tabulated value when read
+  std::optional<Sexagesimal> computed;    ///< the model's value
+  double diff_units = 0;                  ///< tabulated - computed, units of the last place
+  std::optional<Sexagesimal> emendation;  ///< proposed reading for this cell
+};
+
+/// A deviation (one cell, or one displaced run) with its ranked explanations.
+struct Finding {
+  int column = 0;
+  std::string column_name;
+  int places = 0;
+  std::vector<FindingCell> cells;         ///< in row order
+  std::vector<Explanation> explanations;  ///< best first; never empty
+
+  const Explanation& best() const { return explanations.front(); }
+  /// One line reading like a critical note, e.g.
+  /// "12 equation: 0;14 A] read 0;44 - tens of minutes: ... [confusion 0.54]".
+  std::string Note(const std::string& siglum) const;
+};
+
+/// Explains the deviations of one column, in row order.
+std::vector<Finding> ExplainColumn(const Transcription& table, const ColumnValues& values,
+                                   const NumeralScript& script, const ExplainOptions& options = {});
+
+/// Name of fractional place p of a column (0 -> "degrees" or "units" by the
+/// column's unit, 1 -> "minutes", 2 -> "seconds", 3 -> "thirds", ...).
+std::string PlaceName(int place, const std::string& unit);
+
+}  // namespace apograph::deviation

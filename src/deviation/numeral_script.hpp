@@ -1,0 +1,133 @@
+#pragma once
+/// Numeral scripts as data: how a witness writes a number, and which of its
+/// symbols a copyist easily confuses.
+///
+/// A script is read from a small line-based file under corpora/scripts/
+/// (format documented at the top of every shipped file and in
+/// ParseNumeralScript below). The deviation stage asks a script two things:
+/// how a place (0..59, or an integer part up to 999) is written, and which
+/// other readings a copyist reaches from a written place by one or two
+/// confusions, each with a weight in (0, 1].
+
+#include <map>
+#include <optional>
+#include <string>
+#include <string_view>
+#include <vector>
+
+namespace apograph::deviation {
+
+/// How the symbols of a place combine.
+enum class Writing {
+  kPositional,  ///< base-ten digits: 43 is "4" "3" (Hindu-Arabic)
+  kAdditive,    ///< a hundreds, a tens and a units symbol summed: 43 = 40 + 3
+  kRoman,       ///< Roman numerals with subtraction: 44 = XLIV
+};
+
+/// Where a confusion's weight comes from, stated in every explanation.
+enum class ConfusionSource { kCommonPractice, kFromMemory };
+
+const char* ToString(ConfusionSource source);  // "common practice" / "from memory"
+
+/// "`written` stands in the copy where `intended` was meant". An empty
+/// string is "nothing": a symbol dropped (written empty) or added (intended
+/// empty).
+struct Confusion {
+  std::string intended;
+  std::string written;
+  double weight = 0;
+  ConfusionSource source = ConfusionSource::kFromMemory;
+  int line = 0;  ///< line in the script file, for the editor who wants to change it
+};
+
+/// One symbol changed in a written place.
+struct ConfusionStep {
+  std::string intended;  ///< the symbol of the original ("" when the copy added one)
+  std::string written;   ///< the symbol in the copy ("" when the copy dropped one)
+  double weight = 0;
+  ConfusionSource source = ConfusionSource::kFromMemory;
+};
+
+/// A reading a copyist may have started from: the copy shows `copy`, the
+/// original may have been `original`, via `steps`.
+struct PlaceVariant {
+  int original = 0;
+  double weight = 0;  ///< product of the steps' weights
+  std::vector<ConfusionStep> steps;
+};
+
+class NumeralScript {
+ public:
+  const std::string& name() const { return name_; }
+  const std::string& title() const { return title_; }
+  Writing writing() const { return writing_; }
+  const std::vector<Confusion>& confusions() const { return confusions_; }
+  const std::string& file() const { return file_; }
+
+  /// The symbols that write `value` (0..999), most significant first; a zero
+  /// is the script's zero sign. Example (greek-alphabetic): 43 -> {"μ", "γ"}.
+  std::vector<std::string> Write(int value) const;
+  /// The symbols joined: 43 -> "μγ".
+  std::string WriteText(int value) const;
+  /// The value of a written place, when it is a regular writing of one.
+  std::optional<int> Read(const std::vector<std::string>& symbols) const;
+
+  /// The originals from which a copy reading `copy` is reached by one (or, with
+  /// max_steps = 2, two) confusions, with values in [0, limit). Each original
+  /// appears once, with its most likely path; sorted by weight, highest first.
+  /// Example (hindu-arabic): copy 41 -> original 44 via 4 read as 1 if the file
+  /// lists that confusion.
+  std::vector<PlaceVariant> OriginalsOf(int copy, int limit, int max_steps = 1) const;
+
+ private:
+  friend NumeralScript ParseNumeralScript(std::string_view, const std::string&);
+  void BuildReadings();
+  std::vector<std::vector<std::string>> Neighbours(const std::vector<std::string>& symbols,
+                                                   std::vector<ConfusionStep>& steps_out) const;
+
+  struct Symbol {
+    std::string glyph;
+    int value = 0;
+  };
+  std::string name_;
+  std::string title_;
+  std::string file_;
+  Writing writing_ = Writing::kPositional;
+  std::string zero_;
+  std::vector<Symbol> symbols_;
+  std::vector<std::pair<int, std::vector<std::string>>> specials_;
+  std::vector<Confusion> confusions_;
+  std::vector<std::vector<std::string>> writings_;  // index = value, 0..999
+  std::map<std::vector<std::string>, int> readings_;  // the inverse of writings_
+};
+
+/// Parses a script file's text; throws InputError positioned at the bad token
+/// (`FILE:LINE:COL: error: expected ..., found ...`).
+///
+/// Format, one statement per line, `#` starts a comment, tokens separated by
+/// blanks:
+///
+///     script NAME                       name witnesses use (= file name)
+///     title TEXT...                     readable name
+///     writing positional|additive|roman how symbols combine in a place
+///     symbol GLYPH VALUE [NAME...]      a symbol and its value
+///     zero GLYPH                        the sign written for an empty place
+///     special VALUE GLYPH...            an irregular writing (Hebrew 15 = ט ו)
+///     confuse A B WEIGHT SOURCE [one-way]
+///         A and B are easily confused (B written for A and, unless one-way,
+///         A for B); `-` as A or B is "no symbol" (dropped or added);
+///         WEIGHT in (0, 1]; SOURCE is common-practice or from-memory.
+NumeralScript ParseNumeralScript(std::string_view text, const std::string& file);
+
+/// Reads a script file (InputError when unreadable or malformed).
+NumeralScript LoadNumeralScript(const std::string& path);
+
+/// The folder searched for scripts: $APOGRAPH_SCRIPTS when set, else the
+/// corpora/scripts folder of the source tree this binary was built from.
+std::string DefaultScriptDir();
+
+/// Loads `<dir>/<name>.script`; an empty name means hindu-arabic. InputError
+/// names the option `--scripts`/the witness's script when the file is missing.
+NumeralScript FindNumeralScript(const std::string& name, const std::string& dir = DefaultScriptDir());
+
+}  // namespace apograph::deviation

@@ -1,0 +1,160 @@
+// How a script writes a place, and which originals a copy's reading may come
+// from. Part of NumeralScript (see numeral_script.hpp); the file parser is in
+// numeral_script.cpp.
+#include "deviation/numeral_script.hpp"
+
+#include <algorithm>
+#include <map>
+#include <stdexcept>
+
+namespace apograph::deviation {
+namespace {
+
+constexpr int kMaxWritten = 1000;  // integer parts up to 999
+
+struct RomanStep {
+  int value;
+  int subtract;  // the smaller symbol written before it (0: none)
+};
+
+}  // namespace
+
+std::vector<std::string> NumeralScript::Write(int value) const {
+  if (value < 0 || value >= kMaxWritten) throw std::out_of_range("place value outside 0..999");
+  if (writings_.size() == static_cast<std::size_t>(kMaxWritten)) return writings_[static_cast<std::size_t>(value)];
+  return {};
+}
+
+std::string NumeralScript::WriteText(int value) const {
+  std::string out;
+  for (const auto& s : Write(value)) out += s;
+  return out;
+}
+
+std::optional<int> NumeralScript::Read(const std::vector<std::string>& symbols) const {
+  auto it = readings_.find(symbols);
+  if (it == readings_.end()) return std::nullopt;
+  return it->second;
+}
+
+void NumeralScript::BuildReadings() {
+  std::map<int, std::string> by_value;  // first symbol declared for a value wins
+  for (const auto& s : symbols_) by_value.emplace(s.value, s.glyph);
+  const std::string zero = !zero_.empty() ? zero_ : (by_value.count(0) ? by_value[0] : "0");
+  auto glyph = [&](int v) -> std::string {
+    auto it = by_value.find(v);
+    return it == by_value.end() ? std::string() : it->second;
+  };
+  writings_.assign(kMaxWritten, {});
+  for (int n = 0; n < kMaxWritten; ++n) {
+    std::vector<std::string>& w = writings_[static_cast<std::size_t>(n)];
+    if (n == 0) {
+      w = {zero};
+      readings_.emplace(w, 0);
+      continue;
+    }
+    if (writing_ == Writing::kPositional) {
+      for (char c : std::to_string(n)) w.push_back(glyph(c - '0'));
+    } else if (writing_ == Writing::kAdditive) {
+      int rest = n;
+      // Hundreds by the largest symbols (Hebrew writes 500 as 400 + 100).
+      while (rest >= 100) {
+        int best = 0;
+        for (const auto& [v, g] : by_value) {
+          if (v >= 100 && v <= rest && v % 100 == 0) best = v;
+        }
+        if (best == 0) break;
+        w.push_back(glyph(best));
+        rest -= best;
+      }
+      auto special = std::find_if(specials_.begin(), specials_.end(),
+                                  [&](const auto& s) { return s.first == rest; });
+      if (special != specials_.end()) {
+        w.insert(w.end(), special->second.begin(), special->second.end());
+      } else {
+        if (rest >= 10) w.push_back(glyph(rest / 10 * 10));
+        if (rest % 10) w.push_back(glyph(rest % 10));
+      }
+    } else {
+      static const RomanStep kSteps[] = {{500, 100}, {100, 10}, {50, 10}, {10, 1}, {5, 1}, {1, 0}};
+      int rest = n;
+      for (const auto& step : kSteps) {
+        while (rest >= step.value) {
+          w.push_back(glyph(step.value));
+          rest -= step.value;
+        }
+        if (step.subtract && rest >= step.value - step.subtract) {
+          w.push_back(glyph(step.subtract));
+          w.push_back(glyph(step.value));
+          rest -= step.value - step.subtract;
+        }
+      }
+    }
+    // A value the script's symbols cannot write stays unwritable (empty glyphs).
+    if (std::any_of(w.begin(), w.end(), [](const std::string& g) { return g.empty(); })) w.clear();
+    if (!w.empty()) readings_.emplace(w, n);
+  }
+}
+
+std::vector<std::vector<std::string>> NumeralScript::Neighbours(
+    const std::vector<std::string>& symbols, std::vector<ConfusionStep>& steps_out) const {
+  std::vector<std::vector<std::string>> out;
+  for (const auto& c : confusions_) {
+    const ConfusionStep step{c.intended, c.written, c.weight, c.source};
+    if (c.written.empty()) {  // the copy dropped c.intended: put it back anywhere
+      for (std::size_t i = 0; i <= symbols.size(); ++i) {
+        auto v = symbols;
+        v.insert(v.begin() + static_cast<std::ptrdiff_t>(i), c.intended);
+        out.push_back(std::move(v));
+        steps_out.push_back(step);
+      }
+      continue;
+    }
+    for (std::size_t i = 0; i < symbols.size(); ++i) {
+      if (symbols[i] != c.written) continue;
+      auto v = symbols;
+      if (c.intended.empty()) {
+        v.erase(v.begin() + static_cast<std::ptrdiff_t>(i));
+      } else {
+        v[i] = c.intended;
+      }
+      out.push_back(std::move(v));
+      steps_out.push_back(step);
+    }
+  }
+  return out;
+}
+
+std::vector<PlaceVariant> NumeralScript::OriginalsOf(int copy, int limit, int max_steps) const {
+  std::map<int, PlaceVariant> best;
+  struct Node {
+    std::vector<std::string> symbols;
+    double weight;
+    std::vector<ConfusionStep> steps;
+  };
+  std::vector<Node> frontier = {{Write(copy), 1.0, {}}};
+  for (int depth = 0; depth < max_steps; ++depth) {
+    std::vector<Node> next;
+    for (const Node& node : frontier) {
+      std::vector<ConfusionStep> steps;
+      auto around = Neighbours(node.symbols, steps);
+      for (std::size_t i = 0; i < around.size(); ++i) {
+        Node n{around[i], node.weight * steps[i].weight, node.steps};
+        n.steps.push_back(steps[i]);
+        if (auto v = Read(n.symbols); v && *v != copy && *v < limit) {
+          auto it = best.find(*v);
+          if (it == best.end() || it->second.weight < n.weight) best[*v] = {*v, n.weight, n.steps};
+        }
+        next.push_back(std::move(n));
+      }
+    }
+    frontier = std::move(next);
+  }
+  std::vector<PlaceVariant> out;
+  for (auto& [v, variant] : best) out.push_back(std::move(variant));
+  std::stable_sort(out.begin(), out.end(),
+                   [](const PlaceVariant& a, const PlaceVariant& b) { return a.weight > b.weight; });
+  return out;
+}
+
+}  // namespace apograph::deviation

@@ -1,0 +1,159 @@
+#include "estimate/fit.hpp"
+
+#include <cmath>
+#include <limits>
+#include <stdexcept>
+
+#include "estimate/fit_solver.hpp"
+
+namespace apograph::estimate {
+
+double FitResult::Value(const std::string& name) const {
+  for (const auto& p : params) {
+    if (p.name == name) return p.value;
+  }
+  throw std::out_of_range("no parameter " + name);
+}
+
+std::vector<double> FitResult::Values() const {
+  std::vector<double> v;
+  for (const auto& p : params) v.push_back(p.value);
+  return v;
+}
+
+namespace {
+
+/// The computed (practice-applied) value, reduced modulo 360 when asked.
+std::optional<Sexagesimal> Computed(double exact, int places, int out_places, const FitOptions& o) {
+  if (!std::isfinite(exact) || std::fabs(exact) > 1e11) return std::nullopt;
+  Sexagesimal v = Sexagesimal::FromDouble(exact, places, o.practice.rounding).Extended(out_places);
+  if (o.modulo_360) v = v.Modulo(360);
+  return v;
+}
+
+void FillEntry(FitEntry& e, const Observation& o, double exact, const FitOptions& options) {
+  e.row = o.row;
+  e.column = o.column;
+  e.arg = o.arg;
+  e.tabulated = o.value;
+  e.exact = exact;
+  const int p = options.practice.places ? std::min(*options.practice.places, o.places) : o.places;
+  e.computed = Computed(exact, p, o.places, options);
+  if (!e.computed) {
+    e.diff_units = std::numeric_limits<double>::quiet_NaN();
+    e.flag = true;
+    return;
+  }
+  e.diff_units = DiffUnits(o.value, *e.computed, o.places);
+  if (options.modulo_360) {
+    const double full = 360.0 * std::pow(60.0, o.places);
+    e.diff_units -= full * std::round(e.diff_units / full);
+  }
+  e.flag = std::fabs(e.diff_units) > options.tolerance;
+}
+
+/// Entries, counts and robust scale at the free vector x.
+void Summarise(internal::FitProblem& problem, const std::vector<Observation>& obs,
+               const FitOptions& options, const double* x, FitResult& result) {
+  result.entries.assign(obs.size(), {});
+  result.n = static_cast<int>(obs.size());
+  result.exact = result.within1 = result.flagged = 0;
+  std::vector<double> residuals(obs.size());
+  for (std::size_t i = 0; i < obs.size(); ++i) {
+    FitEntry& e = result.entries[i];
+    const double v = problem.Value(i, x);
+    FillEntry(e, obs[i], v, options);
+    e.residual = residuals[i] = problem.ResidualOf(i, v);
+    if (!std::isfinite(e.diff_units)) {
+      ++result.flagged;
+      continue;
+    }
+    result.exact += e.diff_units == 0;
+    result.within1 += std::fabs(e.diff_units) <= 1;
+    result.flagged += e.flag;
+  }
+  result.robust_scale = internal::RobustScale(residuals);
+}
+
+void FillParams(const model::Model& model, internal::FitProblem& problem,
+                const internal::SolveOutcome& s, double scale, FitResult& result) {
+  const auto& specs = model.params();
+  const auto& full = problem.Expand(s.x.data());
+  result.params.clear();
+  for (std::size_t j = 0; j < specs.size(); ++j) {
+    result.params.push_back({specs[j].name, specs[j].unit, full[j], 0, true});
+  }
+  const int k = problem.num_free();
+  for (int j = 0; j < k; ++j) {
+    const double var = s.covariance.empty() ? std::numeric_limits<double>::quiet_NaN()
+                                            : s.covariance[static_cast<std::size_t>(j * k + j)];
+    const double se = std::sqrt(std::max(var, 0.0)) * scale;
+    const int m = problem.ModelIndex(j);
+    if (m >= 0) {
+      result.params[static_cast<std::size_t>(m)].fixed = false;
+      result.params[static_cast<std::size_t>(m)].stderr_ = se;
+    } else {
+      result.displacement_stderr = se;
+    }
+  }
+  result.free_parameters = k;
+}
+
+}  // namespace
+
+FitResult Fit(const model::Model& model, const Transcription& table,
+              const std::vector<Observation>& obs, const FitOptions& given) {
+  FitOptions options = given;
+  // A model reduced modulo a circle is compared modulo 360.
+  if (const int m = model.ParamIndex("modulus"); m >= 0) {
+    auto f = options.fixed.find("modulus");
+    const double modulus = f != options.fixed.end() ? f->second : model.params()[static_cast<std::size_t>(m)].default_value;
+    options.modulo_360 = options.modulo_360 || modulus > 0;
+  }
+  for (const auto& [name, v] : options.fixed) {
+    bool known = false;
+    for (const auto& p : model.params()) known = known || p.name == name;
+    if (!known) throw std::invalid_argument("model " + model.name() + " has no parameter " + name);
+  }
+  internal::FitProblem problem(model, table, obs, options);
+  FitResult result;
+  result.model = model.name();
+  result.practice = options.practice;
+  const std::vector<double> x0 = problem.Start(options);
+  std::vector<std::vector<double>> starts =
+      options.start.empty() ? internal::GridStarts(problem, x0, options.loss_scale, 2)
+                            : std::vector<std::vector<double>>{x0};
+  internal::SolveOutcome best;
+  best.cost = std::numeric_limits<double>::infinity();
+  for (const auto& start : starts) {
+    auto s = options.solver == Solver::kCeres
+                 ? internal::SolveCeres(problem, start, options.loss_scale, options.max_iterations)
+                 : internal::SolveFast(problem, start, options.loss_scale, options.max_iterations);
+    if (s.cost < best.cost) best = std::move(s);
+  }
+  if (best.x.empty()) best.x = x0;
+  result.cost = best.cost;
+  result.converged = best.converged;
+  result.iterations = best.iterations;
+  Summarise(problem, obs, options, best.x.data(), result);
+  FillParams(model, problem, best, result.robust_scale, result);
+  result.practice.displacement = problem.Displacement(best.x.data());
+  return result;
+}
+
+FitResult Fit(const model::Model& model, const Transcription& table, const std::vector<int>& columns,
+              const FitOptions& options) {
+  return Fit(model, table, CollectObservations(table, columns), options);
+}
+
+void Evaluate(const model::Model& model, const Transcription& table,
+              const std::vector<Observation>& obs, const FitOptions& options, FitResult& result) {
+  FitOptions o = options;
+  o.fit_displacement = false;
+  o.practice = result.practice;
+  for (const auto& p : result.params) o.fixed[p.name] = p.value;
+  internal::FitProblem problem(model, table, obs, o);
+  Summarise(problem, obs, o, nullptr, result);
+}
+
+}  // namespace apograph::estimate

@@ -1,0 +1,103 @@
+#pragma once
+/// Robust estimation of a model's parameters from a witness's entries.
+///
+/// Residuals are measured in units of each entry's last place between the
+/// model's value under the computing practice (interpolation grid,
+/// displacement; truncation counts half a unit low on average) and the
+/// tabulated value. A Cauchy loss of scale ~1 unit keeps a few miscopied
+/// entries from pulling the estimate. The global optimum is sought from a
+/// coarse grid over each free parameter's historical range (ParamSpec
+/// low..high) evaluated on a subsample, then refined by Levenberg-Marquardt
+/// on every entry. Standard errors come from the covariance at the optimum,
+/// scaled by the robust residual scale.
+///
+/// Two solvers give the same answer: a small dense Levenberg-Marquardt
+/// written for 1-8 parameters (the default; no allocation per iteration) and
+/// Ceres Solver with ceres::CauchyLoss and ceres::Covariance (kept as the
+/// reference and cross-checked by the tests). See DEVELOPERS notes for the
+/// measured speed of each.
+
+#include <map>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "edition/transcription.hpp"
+#include "estimate/observations.hpp"
+#include "model/model.hpp"
+
+namespace apograph::estimate {
+
+enum class Solver { kFast, kCeres };
+
+struct FitOptions {
+  model::Practice practice;
+  /// Parameters held at a value (`--fix NAME=VALUE`); the others are free.
+  std::map<std::string, double> fixed;
+  /// Estimate a displacement constant as an extra parameter (the practice's
+  /// displacement is then the starting value).
+  bool fit_displacement = false;
+  /// Compare model and table modulo 360 (mean motions reduced to a circle).
+  bool modulo_360 = false;
+  double loss_scale = 1.0;  ///< Cauchy scale, units of the last place
+  Solver solver = Solver::kFast;
+  int max_iterations = 60;
+  /// Starting values instead of the grid search (name -> value).
+  std::map<std::string, double> start;
+  /// Entries farther than this from the model (units) are flagged.
+  double tolerance = 1.0;
+};
+
+/// One estimated (or fixed) parameter.
+struct FittedParam {
+  std::string name;
+  std::string unit;
+  double value = 0;
+  double stderr_ = 0;  ///< 0 for fixed parameters
+  bool fixed = false;
+};
+
+/// One entry after the fit, as `check` lists it.
+struct FitEntry {
+  std::size_t row = 0;
+  int column = 0;
+  double arg = 0;
+  Sexagesimal tabulated;
+  std::optional<Sexagesimal> computed;  ///< after the practice; none where undefined
+  double exact = 0;                     ///< model value before rounding (with displacement)
+  double diff_units = 0;                ///< tabulated - computed, units of the last place
+  double residual = 0;                  ///< tabulated - exact (practice-centred), units
+  bool flag = false;                    ///< |diff_units| > tolerance
+};
+
+struct FitResult {
+  std::string model;
+  std::vector<FittedParam> params;        ///< model parameters in model order
+  model::Practice practice;               ///< displacement filled in when estimated
+  double displacement_stderr = 0;
+  int free_parameters = 0;                ///< counted for scoring
+  double robust_scale = 0;                ///< 1.4826 MAD of residuals, units
+  double cost = 0;                        ///< robust cost at the optimum
+  int n = 0, exact = 0, within1 = 0, flagged = 0;
+  std::vector<FitEntry> entries;
+  bool converged = false;
+  int iterations = 0;
+
+  /// Value of a parameter by name (fixed or free); throws if unknown.
+  double Value(const std::string& name) const;
+  std::vector<double> Values() const;
+};
+
+/// Fits `model` to the entries `obs` (all from `table`).
+FitResult Fit(const model::Model& model, const Transcription& table,
+              const std::vector<Observation>& obs, const FitOptions& options);
+
+/// Convenience: fits the named columns (all when empty).
+FitResult Fit(const model::Model& model, const Transcription& table,
+              const std::vector<int>& columns, const FitOptions& options);
+
+/// Re-evaluates entries, counts and scale for given parameter values (no fit).
+void Evaluate(const model::Model& model, const Transcription& table,
+              const std::vector<Observation>& obs, const FitOptions& options, FitResult& result);
+
+}  // namespace apograph::estimate

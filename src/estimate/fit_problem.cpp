@@ -1,0 +1,124 @@
+#include "estimate/fit_problem.hpp"
+
+#include <algorithm>
+#include <cmath>
+
+namespace apograph::estimate::internal {
+
+FitProblem::FitProblem(const model::Model& model, const Transcription& table,
+                       const std::vector<Observation>& obs, const FitOptions& options)
+    : model_(model),
+      practice_(options.practice),
+      full_(model.Defaults()),
+      fit_displacement_(options.fit_displacement),
+      modulo_(options.modulo_360),
+      displacement_(options.practice.displacement) {
+  const auto& specs = model.params();
+  for (std::size_t j = 0; j < specs.size(); ++j) {
+    auto f = options.fixed.find(specs[j].name);
+    if (f != options.fixed.end()) {
+      full_[j] = f->second;
+      continue;
+    }
+    if (IsStructural(specs[j].name) && !options.start.count(specs[j].name)) continue;
+    free_index_.push_back(static_cast<int>(j));
+    double lo = specs[j].low, hi = specs[j].high;
+    if (!(hi > lo)) {
+      const double d = std::max(std::fabs(specs[j].default_value) * 0.5, 1.0);
+      lo = specs[j].default_value - d;
+      hi = specs[j].default_value + d;
+    }
+    lows_.push_back(lo);
+    highs_.push_back(hi);
+  }
+  practice_.displacement = 0;
+  for (const auto& o : obs) {
+    Entry e;
+    const auto& col = table.columns.at(static_cast<std::size_t>(o.column));
+    e.ctx = {o.arg, col.arg2 ? std::optional<double>(col.arg2->ToDouble()) : std::nullopt, &table,
+             o.row, o.column};
+    e.places = options.practice.places ? std::min(*options.practice.places, o.places) : o.places;
+    e.scale = std::pow(60.0, e.places);
+    e.tab = o.value.ToDouble();
+    e.target = e.tab * e.scale;
+    if (options.practice.rounding == Rounding::kTruncate) {
+      e.target += e.tab > 0 ? 0.5 : (e.tab < 0 ? -0.5 : 0.0);
+    }
+    entries_.push_back(e);
+  }
+}
+
+std::vector<double> FitProblem::Start(const FitOptions& options) const {
+  std::vector<double> x;
+  const auto& specs = model_.params();
+  for (int j : free_index_) {
+    auto s = options.start.find(specs[static_cast<std::size_t>(j)].name);
+    x.push_back(s != options.start.end() ? s->second : full_[static_cast<std::size_t>(j)]);
+  }
+  if (fit_displacement_) x.push_back(displacement_);
+  return x;
+}
+
+const std::vector<double>& FitProblem::Expand(const double* x) {
+  for (std::size_t j = 0; j < free_index_.size(); ++j) full_[static_cast<std::size_t>(free_index_[j])] = x[j];
+  return full_;
+}
+
+double FitProblem::Displacement(const double* x) const {
+  return fit_displacement_ ? x[free_index_.size()] : displacement_;
+}
+
+int FitProblem::ModelIndex(int j) const {
+  return j < static_cast<int>(free_index_.size()) ? free_index_[static_cast<std::size_t>(j)] : -1;
+}
+
+double FitProblem::ModelValue(const Entry& e) {
+  return model::PracticeValue(model_, full_, e.ctx, practice_, e.places);
+}
+
+double FitProblem::Value(std::size_t i, const double* x) {
+  Expand(x);
+  return ModelValue(entries_[i]) + Displacement(x);
+}
+
+double FitProblem::Residual(std::size_t i, const double* x) {
+  Expand(x);
+  return ResidualOf(i, ModelValue(entries_[i]) + Displacement(x));
+}
+
+double FitProblem::ResidualOf(std::size_t i, double v) const {
+  const Entry& e = entries_[i];
+  if (!std::isfinite(v)) return 1e6;
+  if (modulo_) {
+    double d = e.tab - v;
+    d -= 360.0 * std::round(d / 360.0);
+    const double off = e.target - e.tab * e.scale;
+    return d * e.scale + off;
+  }
+  return e.target - v * e.scale;
+}
+
+void FitProblem::Residuals(const double* x, double* r, const std::vector<std::size_t>* subset) {
+  if (subset) {
+    for (std::size_t k = 0; k < subset->size(); ++k) r[k] = Residual((*subset)[k], x);
+  } else {
+    for (std::size_t i = 0; i < entries_.size(); ++i) r[i] = Residual(i, x);
+  }
+}
+
+double CauchyCost(const double* r, std::size_t n, double s) {
+  const double s2 = s * s;
+  double c = 0;
+  for (std::size_t i = 0; i < n; ++i) c += s2 * std::log1p(r[i] * r[i] / s2);
+  return 0.5 * c;
+}
+
+double RobustScale(std::vector<double> residuals) {
+  if (residuals.empty()) return 0;
+  for (double& r : residuals) r = std::fabs(r);
+  auto mid = residuals.begin() + static_cast<std::ptrdiff_t>(residuals.size() / 2);
+  std::nth_element(residuals.begin(), mid, residuals.end());
+  return std::max(1.4826 * *mid, 1.0 / std::sqrt(12.0));
+}
+
+}  // namespace apograph::estimate::internal
