@@ -233,3 +233,31 @@ TEST_CASE("e2e: every store command has --help with an example") {
     CHECK(r.out.find("--db") != std::string::npos);
   }
 }
+
+TEST_CASE("e2e: warnings are shown with positions, the import happens, exit code 1") {
+  Scratch s;
+  WriteFile(s / "w.apo",
+            "@work w\n@witness K\n@table t\n@argument a places=0 start=1 step=1\n"
+            "@column c places=1\n@rows\n1 | 0;1\n1 | 0;2\n");
+  auto r = s.Run("import w.apo");
+  CHECK(r.code == 1);
+  CHECK(r.err.find("w.apo:8:1: warning: expected each argument once, found '1' again") != std::string::npos);
+  CHECK(r.err.find("\n1 | 0;2\n^") != std::string::npos);
+  CHECK(r.out.find("new revision") != std::string::npos);
+  CHECK(s.Run("list transcriptions --format csv").out.find("t,K,1,1,2,2,") != std::string::npos);
+}
+
+TEST_CASE("e2e: binary junk and empty files are positioned errors, nothing is written") {
+  Scratch s;
+  WriteFile(s / "junk.apo", std::string("@work w\n\x01\x02\xff\xfe\x00junk", 17));
+  WriteFile(s / "empty.apo", "");
+  WriteFile(s / "k.apo", kGood);
+  for (const char* file : {"junk.apo", "empty.apo"}) {
+    CAPTURE(file);
+    auto r = s.Run(std::string("import k.apo ") + file);
+    CHECK(r.code == 2);
+    CHECK(r.err.find(std::string(file) + ":") == 0);
+    CHECK(r.err.find("error: expected") != std::string::npos);
+    CHECK_FALSE(fs::exists(s / "edition.sqlite"));
+  }
+}
