@@ -49,7 +49,10 @@ void AppendCell(std::string& out, unsigned seed, int places) {
   switch (seed % 97) {
     case 3: out += "?"; return;
     case 7: out += "_"; return;
-    case 11: out += "0;?,"; AppendPlace(out, static_cast<int>(seed % 60)); return;
+    case 11:  // partly legible: the last place unread
+      AppendValue(out, seed, places - 1);
+      out += places == 1 ? ";?" : ",?";
+      return;
     default: break;
   }
   AppendValue(out, seed, places);
