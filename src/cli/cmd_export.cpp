@@ -30,32 +30,32 @@ extern const char kExportUsage[] =
 
 namespace {
 
-nlohmann::json ValueJson(const std::optional<Sexagesimal>& v) {
-  return v ? nlohmann::json(v->ToString()) : nlohmann::json(nullptr);
+nlohmann::ordered_json ValueJson(const std::optional<Sexagesimal>& v) {
+  return v ? nlohmann::ordered_json(v->ToString()) : nlohmann::ordered_json(nullptr);
 }
 
-nlohmann::json CellJson(const Cell& c) {
+nlohmann::ordered_json CellJson(const Cell& c) {
   return {{"raw", c.raw},
           {"value", ValueJson(c.value)},
-          {"decimal", c.value ? nlohmann::json(c.value->ToDouble()) : nlohmann::json(nullptr)},
+          {"decimal", c.value ? nlohmann::ordered_json(c.value->ToDouble()) : nlohmann::ordered_json(nullptr)},
           {"places", c.places},
           {"state", ToString(c.state)},
           {"damaged", c.damaged},
           {"doubtful", c.doubtful},
           {"addition", ToString(c.addition)},
-          {"corrected_from", c.corrected_from ? nlohmann::json(*c.corrected_from) : nlohmann::json(nullptr)},
+          {"corrected_from", c.corrected_from ? nlohmann::ordered_json(*c.corrected_from) : nlohmann::ordered_json(nullptr)},
           {"note", c.note},
           {"line", c.line},
           {"column", c.column}};
 }
 
-nlohmann::json ArgumentJson(const ArgumentSpec& a) {
+nlohmann::ordered_json ArgumentJson(const ArgumentSpec& a) {
   return {{"name", a.name}, {"unit", a.unit}, {"places", a.places},
           {"start", ValueJson(a.start)}, {"step", ValueJson(a.step)}};
 }
 
-nlohmann::json TranscriptionJson(const Transcription& t, int revision) {
-  nlohmann::json j = {
+nlohmann::ordered_json TranscriptionJson(const Transcription& t, int revision) {
+  nlohmann::ordered_json j = {
       {"table", t.table_id}, {"title", t.table_title}, {"kind", t.kind},
       {"work", {{"id", t.work.id}, {"title", t.work.title}, {"author", t.work.author}}},
       {"witness", {{"siglum", t.witness.siglum}, {"library", t.witness.library},
@@ -63,15 +63,15 @@ nlohmann::json TranscriptionJson(const Transcription& t, int revision) {
                    {"script", t.witness.script}, {"note", t.witness.note}}},
       {"folios", t.folios}, {"hand", t.hand}, {"revision", revision},
       {"source_file", t.source_file}, {"argument", ArgumentJson(t.argument)},
-      {"argument2", t.argument2 ? ArgumentJson(*t.argument2) : nlohmann::json(nullptr)}};
-  j["columns"] = nlohmann::json::array();
+      {"argument2", t.argument2 ? ArgumentJson(*t.argument2) : nlohmann::ordered_json(nullptr)}};
+  j["columns"] = nlohmann::ordered_json::array();
   for (const auto& c : t.columns) {
     j["columns"].push_back({{"name", c.name}, {"unit", c.unit}, {"places", c.places},
                             {"title", c.title}, {"arg2", ValueJson(c.arg2)}});
   }
-  j["rows"] = nlohmann::json::array();
+  j["rows"] = nlohmann::ordered_json::array();
   for (const auto& r : t.rows) {
-    nlohmann::json cells = nlohmann::json::array();
+    nlohmann::ordered_json cells = nlohmann::ordered_json::array();
     for (const auto& c : r.cells) cells.push_back(CellJson(c));
     j["rows"].push_back({{"line", r.line}, {"argument", CellJson(r.argument)}, {"cells", cells}});
   }

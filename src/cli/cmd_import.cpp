@@ -106,15 +106,15 @@ TranscriptionFile ReadAll(const ImportOptions& o) {
 
 void PrintJson(const ImportOptions& o, const TranscriptionFile& input,
                const store::ImportResult& result, Io& io) {
-  nlohmann::json j;
+  nlohmann::ordered_json j;
   j["database"] = o.db;
-  j["tables"] = nlohmann::json::array();
+  j["tables"] = nlohmann::ordered_json::array();
   for (const auto& t : result.tables) {
     j["tables"].push_back({{"file", t.source_file}, {"table", t.table_id}, {"siglum", t.siglum},
                            {"status", t.changed ? "new revision" : "unchanged"},
                            {"revision", t.revision}, {"rows", t.rows}, {"cells", t.cells}});
   }
-  j["warnings"] = nlohmann::json::array();
+  j["warnings"] = nlohmann::ordered_json::array();
   for (const auto& w : input.warnings) {
     j["warnings"].push_back({{"file", w.where.file}, {"line", w.where.line},
                              {"column", w.where.column}, {"message", w.message}});

@@ -29,7 +29,7 @@ extern const char kListUsage[] =
 
 namespace {
 
-using nlohmann::json;
+using json = nlohmann::ordered_json;
 using Opt = std::optional<std::string>;
 
 struct Listing {
