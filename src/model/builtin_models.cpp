@@ -1,31 +1,32 @@
-// Provisional registry with one model; the model library replaces it.
-#include <cmath>
-#include <numbers>
-
-#include "model/model.hpp"
+// The registry of built-in models and the shared BuiltinModel code.
+#include "model/builtin.hpp"
 
 namespace apograph::model {
-namespace {
+namespace internal {
 
-class SolarEccentric final : public Model {
- public:
-  const std::string& name() const override { return name_; }
-  const std::string& description() const override { return description_; }
-  const std::vector<ParamSpec>& params() const override { return params_; }
-  double Evaluate(const std::vector<double>& p, const RowContext& row) const override {
-    const double a = row.arg * std::numbers::pi / 180.0;
-    return std::atan2(p[0] * std::sin(a), 60.0 + p[0] * std::cos(a)) * 180.0 / std::numbers::pi;
+double BuiltinModel::Evaluate(const std::vector<double>& p, const RowContext& row) const {
+  if (p.size() < params_.size()) {
+    throw std::invalid_argument("model " + name_ + ": expected " + std::to_string(params_.size()) +
+                                " parameters, got " + std::to_string(p.size()));
   }
+  return f_(p.data(), row.arg, row.arg2.value_or(0.0));
+}
 
- private:
-  std::string name_ = "solar-eccentric";
-  std::string description_ = "q(a) = atan2(e sin a, 60 + e cos a)";
-  std::vector<ParamSpec> params_ = {{"e", "parts of 60", "eccentricity", 2.5, 1.0, 4.0}};
-};
+long double BuiltinModel::EvaluateLong(const std::vector<long double>& p, long double arg,
+                                       long double arg2) const {
+  return fl_(p.data(), arg, arg2);
+}
 
-const SolarEccentric kSolarEccentric;
+std::vector<const BuiltinModel*> AllBuiltinModels() {
+  std::vector<const BuiltinModel*> out;
+  for (const auto* family : {&TrigModels(), &SolarModels(), &PlanetModels(),
+                             &SphericalModels(), &MeanMotionModels()}) {
+    out.insert(out.end(), family->begin(), family->end());
+  }
+  return out;
+}
 
-}  // namespace
+}  // namespace internal
 
 const Model* FindBuiltinModel(std::string_view name) {
   for (const Model* m : BuiltinModels()) {
@@ -34,6 +35,9 @@ const Model* FindBuiltinModel(std::string_view name) {
   return nullptr;
 }
 
-std::vector<const Model*> BuiltinModels() { return {&kSolarEccentric}; }
+std::vector<const Model*> BuiltinModels() {
+  auto all = internal::AllBuiltinModels();
+  return {all.begin(), all.end()};
+}
 
 }  // namespace apograph::model

@@ -47,17 +47,43 @@ class Model {
   virtual double Evaluate(const std::vector<double>& params, const RowContext& row) const = 0;
   /// Defaults of all parameters, in order.
   std::vector<double> Defaults() const;
+  /// The argument convention in words: what the argument is, how arguments
+  /// beyond 90/180/360 are treated (symmetry, sign) and whether a constant is
+  /// added. Empty when the model says nothing (user formulas).
+  virtual const std::string& convention() const;
+  /// Index of a parameter by name, or -1.
+  int ParamIndex(std::string_view param_name) const;
 };
 
 /// How the table's author brought exact values into the table.
+///
+/// The order of operations for one entry at argument x is:
+///  1. v = model(x), or, with a grid g > 0 and x not a node, the straight
+///     line between the nodes n0 = origin + g*floor((x-origin)/g) and n0 + g:
+///     v = f(n0) + (f(n0+g) - f(n0)) * (x - n0) / g, where f is the model
+///     value at a node, itself brought to `places` places first when
+///     `round_nodes` is set (the author tabulated the nodes, then filled in
+///     between from the rounded nodes); a node's own entry is f(node);
+///  2. v += displacement;
+///  3. the entry is v brought to `places` places by `rounding`.
 struct Practice {
   Rounding rounding = Rounding::kNearest;
   std::optional<int> places;  ///< default: the column's places
   /// Interpolation grid in argument units: exact values at arguments that are
-  /// multiples of `grid`, linear in between, then rounded. 0 = none.
+  /// multiples of `grid` (counted from `grid_origin`), linear in between,
+  /// then rounded. 0 = none.
   double grid = 0;
-  double displacement = 0;  ///< constant added to every entry
+  double displacement = 0;  ///< constant added to every entry (before rounding)
+  /// With a grid: bring the node values to `places` places (with `rounding`)
+  /// before interpolating between them. Default: exact nodes.
+  bool round_nodes = false;
+  double grid_origin = 0;  ///< nodes at grid_origin + k * grid
 };
+
+/// "nearest" or "truncate".
+const char* ToString(Rounding rounding);
+/// The inverse of ToString; nullopt for anything else.
+std::optional<Rounding> RoundingFromString(std::string_view text);
 
 /// The recomputation of one column of a table.
 struct ColumnRecomputation {
@@ -74,6 +100,11 @@ ColumnRecomputation Recompute(const Model& model, const std::vector<double>& par
 
 /// The argument a model should use for row `row` (see Recompute).
 std::optional<double> RowArgument(const Transcription& table, std::size_t row);
+
+/// The exact value for one row under `practice`, before the final rounding
+/// (steps 1 and 2 above); NaN where the model is undefined.
+double PracticeValue(const Model& model, const std::vector<double>& params,
+                     const RowContext& row, const Practice& practice, int places);
 
 /// Built-in models, by name; nullptr when unknown.
 const Model* FindBuiltinModel(std::string_view name);

@@ -1,14 +1,63 @@
+// Recomputation of a column under a computing practice (see Practice in
+// model.hpp for the exact order of operations).
 #include <cmath>
 #include <limits>
 
 #include "model/model.hpp"
 
 namespace apograph::model {
+namespace {
+
+constexpr double kNaN = std::numeric_limits<double>::quiet_NaN();
+
+/// Distance below which an argument counts as standing on a node (arguments
+/// are exact sexagesimal values with at most 12 places, far coarser).
+constexpr double kNodeSlack = 1e-9;
+
+/// The model's value at a node, brought to the places first if asked.
+double NodeValue(const Model& model, const std::vector<double>& params, RowContext ctx,
+                 double node, const Practice& practice, int places) {
+  ctx.arg = node;
+  const double v = model.Evaluate(params, ctx);
+  if (!practice.round_nodes || !std::isfinite(v)) return v;
+  return RoundUnits(v, places, practice.rounding) / std::pow(60.0, places);
+}
+
+std::optional<double> ColumnArgument(const Transcription& table, int column) {
+  const auto& spec = table.columns.at(static_cast<std::size_t>(column));
+  if (spec.arg2) return spec.arg2->ToDouble();
+  return std::nullopt;
+}
+
+}  // namespace
 
 std::vector<double> Model::Defaults() const {
   std::vector<double> out;
   for (const auto& p : params()) out.push_back(p.default_value);
   return out;
+}
+
+const std::string& Model::convention() const {
+  static const std::string kNone;
+  return kNone;
+}
+
+int Model::ParamIndex(std::string_view param_name) const {
+  const auto& ps = params();
+  for (std::size_t i = 0; i < ps.size(); ++i) {
+    if (ps[i].name == param_name) return static_cast<int>(i);
+  }
+  return -1;
+}
+
+const char* ToString(Rounding rounding) {
+  return rounding == Rounding::kTruncate ? "truncate" : "nearest";
+}
+
+std::optional<Rounding> RoundingFromString(std::string_view text) {
+  if (text == "nearest") return Rounding::kNearest;
+  if (text == "truncate") return Rounding::kTruncate;
+  return std::nullopt;
 }
 
 std::optional<double> RowArgument(const Transcription& table, std::size_t row) {
@@ -18,35 +67,43 @@ std::optional<double> RowArgument(const Transcription& table, std::size_t row) {
   return std::nullopt;
 }
 
+double PracticeValue(const Model& model, const std::vector<double>& params,
+                     const RowContext& row, const Practice& practice, int places) {
+  double v = 0;
+  const double g = practice.grid;
+  const double lo = g > 0 ? practice.grid_origin + std::floor((row.arg - practice.grid_origin) / g) * g
+                          : row.arg;
+  if (g > 0 && std::fabs(row.arg - lo) > kNodeSlack && std::fabs(row.arg - lo - g) > kNodeSlack) {
+    const double va = NodeValue(model, params, row, lo, practice, places);
+    const double vb = NodeValue(model, params, row, lo + g, practice, places);
+    v = va + (vb - va) * (row.arg - lo) / g;
+  } else if (g > 0) {
+    const double node = std::fabs(row.arg - lo) <= kNodeSlack ? lo : lo + g;
+    v = NodeValue(model, params, row, node, practice, places);
+  } else {
+    v = model.Evaluate(params, row);
+  }
+  return v + practice.displacement;
+}
+
 ColumnRecomputation Recompute(const Model& model, const std::vector<double>& params,
                               const Transcription& table, int column, const Practice& practice) {
   const std::size_t n = table.rows.size();
-  const int places = practice.places.value_or(table.columns.at(static_cast<std::size_t>(column)).places);
+  const int places =
+      practice.places.value_or(table.columns.at(static_cast<std::size_t>(column)).places);
+  const std::optional<double> arg2 = ColumnArgument(table, column);
   ColumnRecomputation out;
-  out.exact.assign(n, std::numeric_limits<double>::quiet_NaN());
+  out.exact.assign(n, kNaN);
   out.computed.assign(n, std::nullopt);
   for (std::size_t i = 0; i < n; ++i) {
     auto arg = RowArgument(table, i);
     if (!arg) continue;
-    RowContext ctx{*arg, table.columns[static_cast<std::size_t>(column)].arg2
-                             ? std::optional<double>(table.columns[static_cast<std::size_t>(column)].arg2->ToDouble())
-                             : std::nullopt,
-                   &table, i, column};
-    double v = model.Evaluate(params, ctx);
-    if (practice.grid > 0) {
-      const double lo = std::floor(*arg / practice.grid) * practice.grid;
-      const double hi = lo + practice.grid;
-      if (std::fabs(*arg - lo) > 1e-9) {
-        RowContext a = ctx, b = ctx;
-        a.arg = lo;
-        b.arg = hi;
-        const double va = model.Evaluate(params, a), vb = model.Evaluate(params, b);
-        v = va + (vb - va) * (*arg - lo) / practice.grid;
-      }
-    }
-    v += practice.displacement;
+    const RowContext ctx{*arg, arg2, &table, i, column};
+    const double v = PracticeValue(model, params, ctx, practice, places);
     out.exact[i] = v;
-    if (std::isfinite(v)) out.computed[i] = Sexagesimal::FromDouble(v, places, practice.rounding);
+    if (std::isfinite(v) && std::fabs(v) < 1e12) {
+      out.computed[i] = Sexagesimal::FromDouble(v, places, practice.rounding);
+    }
   }
   return out;
 }

@@ -1,0 +1,112 @@
+#pragma once
+/// Internal to the model library (and its tests): the shape every built-in
+/// model shares, and trigonometry in degrees for double and long double.
+///
+/// Each formula is written once as a template so that the tests can evaluate
+/// it in long double beside the double used everywhere else and bound the
+/// difference (see tests/model/precision_test.cpp).
+
+#include <cmath>
+#include <numbers>
+#include <string>
+#include <vector>
+
+#include "model/model.hpp"
+
+namespace apograph::model::internal {
+
+/// Radians per degree at precision T.
+template <typename T>
+constexpr T kRadian = std::numbers::pi_v<T> / T(180);
+
+/// x reduced exactly (fmod is exact) into (-180, 180], so that large
+/// arguments lose no accuracy before the conversion to radians.
+template <typename T>
+T Reduce180(T x) {
+  T r = std::fmod(x, T(360));
+  if (r > T(180)) r -= T(360);
+  if (r <= T(-180)) r += T(360);
+  return r;
+}
+
+/// sin of x degrees with full relative accuracy near every zero: the
+/// argument is folded into [0, 90] by exact subtractions in degrees (180 - r
+/// and 90 - r are exact there), then the radian function is taken on at
+/// most 45 degrees.
+template <typename T>
+T SinDeg(T x) {
+  T r = Reduce180(x);
+  const T sign = r < T(0) ? T(-1) : T(1);
+  r = std::fabs(r);
+  if (r > T(90)) r = T(180) - r;
+  if (r <= T(45)) return sign * std::sin(r * kRadian<T>);
+  return sign * std::cos((T(90) - r) * kRadian<T>);
+}
+/// cos of x degrees, folded the same way.
+template <typename T>
+T CosDeg(T x) {
+  const T r = std::fabs(Reduce180(x));
+  if (r <= T(45)) return std::cos(r * kRadian<T>);
+  if (r <= T(135)) return std::sin((T(90) - r) * kRadian<T>);
+  return -std::cos((T(180) - r) * kRadian<T>);
+}
+template <typename T>
+T TanDeg(T x) { return SinDeg(x) / CosDeg(x); }
+template <typename T>
+T AsinDeg(T x) { return std::asin(x) / kRadian<T>; }
+template <typename T>
+T AcosDeg(T x) { return std::acos(x) / kRadian<T>; }
+template <typename T>
+T AtanDeg(T x) { return std::atan(x) / kRadian<T>; }
+template <typename T>
+T Atan2Deg(T y, T x) { return std::atan2(y, x) / kRadian<T>; }
+
+/// x reduced into [0, m).
+template <typename T>
+T ReduceModulo(T x, T m) {
+  T r = std::fmod(x, m);
+  return r < T(0) ? r + m : r;
+}
+
+/// A formula: parameters in declaration order, the row argument and the
+/// column argument (0 when the table has none).
+template <typename T>
+using Formula = T (*)(const T* params, T arg, T arg2);
+
+/// A built-in model: metadata plus one formula at two precisions.
+class BuiltinModel final : public Model {
+ public:
+  BuiltinModel(std::string name, std::string description, std::string convention,
+               std::vector<ParamSpec> params, Formula<double> f, Formula<long double> fl)
+      : name_(std::move(name)), description_(std::move(description)),
+        convention_(std::move(convention)), params_(std::move(params)), f_(f), fl_(fl) {}
+
+  const std::string& name() const override { return name_; }
+  const std::string& description() const override { return description_; }
+  const std::string& convention() const override { return convention_; }
+  const std::vector<ParamSpec>& params() const override { return params_; }
+  double Evaluate(const std::vector<double>& p, const RowContext& row) const override;
+  /// The same formula in long double (for the precision tests).
+  long double EvaluateLong(const std::vector<long double>& p, long double arg,
+                           long double arg2 = 0) const;
+
+ private:
+  std::string name_, description_, convention_;
+  std::vector<ParamSpec> params_;
+  Formula<double> f_;
+  Formula<long double> fl_;
+};
+
+/// Both precisions of one formula template, for the constructor above.
+#define APOGRAPH_FORMULA(fn) &fn<double>, &fn<long double>
+
+// One list per family file; builtin_models.cpp concatenates them.
+const std::vector<const BuiltinModel*>& TrigModels();
+const std::vector<const BuiltinModel*>& SolarModels();
+const std::vector<const BuiltinModel*>& PlanetModels();
+const std::vector<const BuiltinModel*>& SphericalModels();
+const std::vector<const BuiltinModel*>& MeanMotionModels();
+/// Every built-in model with its long-double form.
+std::vector<const BuiltinModel*> AllBuiltinModels();
+
+}  // namespace apograph::model::internal

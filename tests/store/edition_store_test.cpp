@@ -1,0 +1,241 @@
+#include "store/edition_store.hpp"
+
+#include <doctest/doctest.h>
+
+#include "store/schema.hpp"
+#include "store/value_text.hpp"
+#include "store_test_util.hpp"
+
+using apograph::CellState;
+using apograph::InputError;
+using apograph::Sexagesimal;
+using apograph::Transcription;
+using apograph::store::Database;
+using apograph::store::StoreError;
+using apograph::testing::MakeTranscription;
+using apograph::testing::TempDb;
+namespace store = apograph::store;
+
+namespace {
+
+std::int64_t Count(Database& db, const std::string& table) {
+  auto s = db.Prepare("SELECT count(*) FROM " + table);
+  s.Step();
+  return s.Int(0);
+}
+
+}  // namespace
+
+TEST_CASE("migrations are applied once and recorded in user_version") {
+  TempDb file("migrate");
+  const int latest = store::Migrations().back().version;
+  CHECK(latest >= 1);
+  {
+    Database db(file.path());
+    CHECK(db.SchemaVersion() == latest);
+    CHECK(Count(db, "work") == 0);
+  }
+  Database again(file.path());  // re-opening must not re-run the DDL (it would fail)
+  CHECK(again.SchemaVersion() == latest);
+}
+
+TEST_CASE("a database newer than the program is refused") {
+  TempDb file("newer");
+  { Database db(file.path()); db.Execute("PRAGMA user_version = 999"); }
+  CHECK_THROWS_AS(Database(file.path()), StoreError);
+}
+
+TEST_CASE("values are written exactly as Sexagesimal::ToString writes them") {
+  char buffer[store::kValueTextSize];
+  for (const char* text : {"0", "2;23,10", "-0;5", "0;0,7", "90;0", "1,30;0,0", "59;59,59,59,59,59",
+                           "-123456789012;0,0,0,0,0,0,0,0,0,0,0,1", "999999999999;59,59,59,59,59,59,59,59,59,59,59,59"}) {
+    const auto v = Sexagesimal::ParseOrThrow(text);
+    CHECK(store::FormatValue(v, buffer) == v.ToString());
+  }
+}
+
+TEST_CASE("an imported transcription loads back with the same content and provenance") {
+  TempDb file("roundtrip");
+  Database db(file.path());
+  const Transcription t = MakeTranscription("sun-eq", "K");
+  auto result = store::Import(db, {t});
+  REQUIRE(result.tables.size() == 1);
+  CHECK(result.tables[0].changed);
+  CHECK(result.tables[0].revision == 1);
+  CHECK(result.tables[0].cells == 24);
+  CHECK(result.cells_written == 36);  // 12 argument cells + 24 value cells
+
+  const Transcription back = store::Load(db, "sun-eq", "K");
+  CHECK(back.SameContent(t));
+  CHECK(back.rows == t.rows);  // provenance (line, column) too
+  CHECK(back.source_file == t.source_file);
+  CHECK(back.source_text == t.source_text);
+  CHECK(back.rows[2].cells[0].state == CellState::kPartial);
+  CHECK(*back.rows[4].cells[0].corrected_from == "0;10,52");
+  CHECK(back.rows[5].cells[0].note == "ink faded");
+}
+
+TEST_CASE("a double-argument table keeps its column argument and arg2 values") {
+  TempDb file("grid");
+  Database db(file.path());
+  Transcription t = MakeTranscription("grid", "K", 3);
+  t.argument2 = apograph::ArgumentSpec{"latitude", "deg", 1, std::nullopt, std::nullopt};
+  t.columns[0].arg2 = Sexagesimal::ParseOrThrow("36;0");
+  t.columns[1].arg2 = Sexagesimal::ParseOrThrow("42;30");
+  store::Import(db, {t});
+  const Transcription back = store::Load(db, "grid", "K");
+  CHECK(back.SameContent(t));
+  REQUIRE(back.argument2.has_value());
+  CHECK(back.argument2->name == "latitude");
+  CHECK(back.columns[1].arg2->Identical(Sexagesimal::ParseOrThrow("42;30")));
+}
+
+TEST_CASE("re-importing the same content adds no revision") {
+  TempDb file("same");
+  Database db(file.path());
+  Transcription t = MakeTranscription("sun-eq", "K");
+  store::Import(db, {t});
+  t.source_file = "moved.apo";  // provenance alone is not a change
+  t.rows[0].line = 99;
+  t.rows[0].cells[0].line = 99;
+  auto again = store::Import(db, {t});
+  CHECK_FALSE(again.tables[0].changed);
+  CHECK(again.tables[0].revision == 1);
+  CHECK(again.cells_written == 0);
+  CHECK(store::ListRevisions(db).size() == 1);
+  CHECK(Count(db, "cell") == 36);
+}
+
+TEST_CASE("re-importing an edited transcription keeps both revisions") {
+  TempDb file("edit");
+  Database db(file.path());
+  const Transcription first = MakeTranscription("sun-eq", "K");
+  store::Import(db, {first});
+  Transcription second = first;
+  second.rows[7].cells[1] = apograph::testing::ReadCell("0;2,8", 2, 17, 18);
+  second.witness.shelfmark = "Cod. 112a";
+  auto result = store::Import(db, {second});
+  CHECK(result.tables[0].changed);
+  CHECK(result.tables[0].revision == 2);
+
+  CHECK(store::Load(db, "sun-eq", "K", 1).SameContent(first));
+  CHECK(store::Load(db, "sun-eq", "K", 2).SameContent(second));
+  CHECK(store::Load(db, "sun-eq", "K").SameContent(second));
+  CHECK_FALSE(store::Load(db, "sun-eq", "K", 1).SameContent(second));
+  auto revisions = store::ListRevisions(db, std::string("sun-eq"), std::string("K"));
+  REQUIRE(revisions.size() == 2);
+  CHECK(revisions[1].number == 2);
+  CHECK(revisions[1].revisions == 2);
+  CHECK_THROWS_AS(store::Load(db, "sun-eq", "K", 3), InputError);
+  CHECK_THROWS_AS(store::Load(db, "sun-eq", "Z"), InputError);
+}
+
+TEST_CASE("an error in the second table leaves the database byte for byte unchanged") {
+  TempDb file("fail");
+  { Database db(file.path()); store::Import(db, {MakeTranscription("sun-eq", "K")}); }
+  const std::string before = file.Bytes();
+  REQUIRE_FALSE(before.empty());
+
+  SUBCASE("a row with a missing cell") {
+    Transcription bad = MakeTranscription("decl", "K");
+    bad.rows[3].cells.pop_back();
+    Database db(file.path());
+    CHECK_THROWS_AS(store::Import(db, {MakeTranscription("moon", "K"), bad}), InputError);
+  }
+  SUBCASE("a table that moves to another work, found while writing") {
+    Transcription moved = MakeTranscription("sun-eq", "L");
+    moved.work.id = "other";
+    Database db(file.path());
+    CHECK_THROWS_AS(store::Import(db, {MakeTranscription("moon", "K"), moved}), InputError);
+    CHECK(Count(db, "edition_table") == 1);
+  }
+  SUBCASE("the same table of a witness twice in one import") {
+    Database db(file.path());
+    CHECK_THROWS_AS(store::Import(db, {MakeTranscription("moon", "K"), MakeTranscription("moon", "K")}),
+                    InputError);
+  }
+  CHECK(file.Bytes() == before);
+}
+
+TEST_CASE("CHECK and foreign key constraints reject bad rows") {
+  TempDb file("checks");
+  Database db(file.path());
+  store::Import(db, {MakeTranscription("sun-eq", "K", 2)});
+  const std::string cols =
+      "INSERT INTO cell(revision_id, row_index, col, raw, value, value_real, places, state, "
+      "source_line, source_col) VALUES ";
+  CHECK_NOTHROW(db.Execute(cols + "(1, 50, 0, '1', '1', 1.0, 0, 'read', 1, 1)"));
+  CHECK_THROWS_AS(db.Execute(cols + "(1, 51, 0, '1', '1', 1.0, 0, 'smudged', 1, 1)"), StoreError);
+  CHECK_THROWS_AS(db.Execute(cols + "(1, 52, 0, '1', NULL, NULL, 0, 'read', 1, 1)"), StoreError);
+  CHECK_THROWS_AS(db.Execute(cols + "(1, 53, 0, '?', '1', 1.0, 0, 'illegible', 1, 1)"), StoreError);
+  CHECK_THROWS_AS(db.Execute(cols + "(1, 54, 0, '1', '1', 1.0, 13, 'read', 1, 1)"), StoreError);
+  CHECK_THROWS_AS(db.Execute(cols + "(1, 55, -2, '1', '1', 1.0, 0, 'read', 1, 1)"), StoreError);
+  CHECK_THROWS_AS(db.Execute(cols + "(1, 56, 0, '1', '1', 1.0, 0, 'read', -1, 1)"), StoreError);
+  CHECK_THROWS_AS(db.Execute(cols + "(99, 0, 0, '1', '1', 1.0, 0, 'read', 1, 1)"), StoreError);
+  const std::string marks = "INSERT INTO cell_mark(revision_id, row_index, col, damaged, addition, note) VALUES ";
+  CHECK_NOTHROW(db.Execute(marks + "(1, 50, 0, 1, 'none', '')"));
+  CHECK_THROWS_AS(db.Execute(marks + "(1, 0, 0, 2, 'none', '')"), StoreError);
+  CHECK_THROWS_AS(db.Execute(marks + "(1, 0, 1, 0, 'footnote', '')"), StoreError);
+  CHECK_THROWS_AS(db.Execute(marks + "(1, 1, 0, 0, 'none', '')"), StoreError);     // no mark at all
+  CHECK_THROWS_AS(db.Execute(marks + "(1, 77, 0, 1, 'none', '')"), StoreError);    // no such cell
+  CHECK_THROWS_AS(db.Execute("INSERT INTO revision(transcription_id, number, work_id) VALUES(1, 0, 'w')"),
+                  StoreError);
+  CHECK_THROWS_AS(db.Execute("INSERT INTO edition_table(id, work_id) VALUES('t', 'no-such-work')"),
+                  StoreError);
+  CHECK_THROWS_AS(db.Execute("INSERT INTO witness(siglum) VALUES('')"), StoreError);
+}
+
+TEST_CASE("lists count tables, witnesses, cells and revisions") {
+  TempDb file("lists");
+  Database db(file.path());
+  Transcription moon = MakeTranscription("moon", "L", 4);
+  moon.work = {"other", "", ""};
+  store::Import(db, {MakeTranscription("sun-eq", "K"), MakeTranscription("sun-eq", "L", 6), moon});
+
+  auto works = store::ListWorks(db);
+  REQUIRE(works.size() == 2);
+  CHECK(works[0].work.id == "harbour");
+  CHECK(works[0].tables == 1);
+  CHECK(works[0].witnesses == 2);
+  CHECK(works[0].cells == 24 + 12);
+
+  auto tables = store::ListTables(db);
+  REQUIRE(tables.size() == 2);
+  CHECK(tables[0].id == "sun-eq");
+  CHECK(tables[0].witnesses == 2);
+  CHECK(tables[1].id == "moon");
+  CHECK(tables[1].cells == 8);
+  CHECK(store::ListTables(db, std::string("other")).size() == 1);
+
+  auto witnesses = store::ListWitnesses(db);
+  REQUIRE(witnesses.size() == 2);
+  CHECK(witnesses[1].witness.siglum == "L");
+  CHECK(witnesses[1].tables == 2);
+  CHECK(witnesses[1].cells == 12 + 8);
+  CHECK(store::ListWitnesses(db, std::string("moon")).size() == 1);
+
+  CHECK(store::Sigla(db, "sun-eq") == std::vector<std::string>{"K", "L"});
+  CHECK(store::TablesOfWork(db, "harbour") == std::vector<std::string>{"sun-eq"});
+  auto all = store::LoadTable(db, "sun-eq");
+  REQUIRE(all.size() == 2);
+  CHECK(all[1].rows.size() == 6);
+  CHECK(store::ListTranscriptions(db).size() == 3);
+  CHECK(store::HasTranscription(db, "moon", "L"));
+  CHECK_FALSE(store::HasTranscription(db, "moon", "K"));
+}
+
+TEST_CASE("descriptions keep the latest non-empty values; each revision keeps its own") {
+  TempDb file("describe");
+  Database db(file.path());
+  Transcription t = MakeTranscription("sun-eq", "K", 3);
+  store::Import(db, {t});
+  Transcription sparse = t;
+  sparse.witness = {"K", "", "", "", "", ""};  // as a CSV import would give it
+  sparse.rows[0].cells[0] = apograph::testing::ReadCell("0;1,1", 2, 1, 1);
+  store::Import(db, {sparse});
+  auto w = store::ListWitnesses(db);
+  REQUIRE(w.size() == 1);
+  CHECK(w[0].witness.library == "Nordhafen, Town Library");
+  CHECK(store::Load(db, "sun-eq", "K").witness.library.empty());
+  CHECK(store::Load(db, "sun-eq", "K", 1).witness.library == "Nordhafen, Town Library");
+}
