@@ -112,14 +112,18 @@ std::optional<Sexagesimal> CellValue(const Cell& c) {
 }
 
 // The most frequent value in a list (nullopt on a tie or when empty).
-std::optional<Sexagesimal> Majority(const std::vector<Sexagesimal>& vs) {
+std::optional<Sexagesimal> Majority(std::vector<Sexagesimal> vs) {
+  auto key = [](const Sexagesimal& v) { return std::pair(v.places(), v.units()); };
+  std::sort(vs.begin(), vs.end(), [&](const auto& a, const auto& b) { return key(a) < key(b); });
   std::optional<Sexagesimal> best;
-  int best_n = 0;
+  std::size_t best_n = 0;
   bool tie = false;
-  for (const auto& v : vs) {
-    const int n = static_cast<int>(std::count_if(vs.begin(), vs.end(), [&](auto& u) { return u.Identical(v); }));
-    if (n > best_n) best = v, best_n = n, tie = false;
-    else if (n == best_n && best && !best->Identical(v)) tie = true;
+  for (std::size_t i = 0; i < vs.size();) {
+    std::size_t j = i;
+    while (j < vs.size() && vs[j].Identical(vs[i])) ++j;
+    if (j - i > best_n) best = vs[i], best_n = j - i, tie = false;
+    else if (j - i == best_n) tie = true;
+    i = j;
   }
   return tie ? std::nullopt : best;
 }

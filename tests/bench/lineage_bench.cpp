@@ -18,8 +18,9 @@ double Seconds(std::chrono::steady_clock::time_point since) {
   return std::chrono::duration<double>(std::chrono::steady_clock::now() - since).count();
 }
 
-void Run(const char* name, int witnesses, int rows, int columns, double goal) {
+void Run(const char* name, int witnesses, int rows, int columns, double goal, int slips = 0) {
   lineage::SyntheticOptions o;
+  if (slips) o.slips_min = slips, o.slips_max = 2 * slips;
   o.witnesses = witnesses;
   o.lost = witnesses / 3;
   o.rows = rows;
@@ -52,6 +53,8 @@ void Run(const char* name, int witnesses, int rows, int columns, double goal) {
 
 int main() {
   Run("exact parsimony", 12, 1000, 2, 2);
+  Run("exact parsimony, many slips per copy", 12, 1000, 2, 2, 60);
   Run("heuristic parsimony", 100, 1000, 2, 30);
+  Run("heuristic parsimony, many slips per copy", 100, 1000, 2, 30, 30);
   return 0;
 }
