@@ -35,7 +35,10 @@ std::string CopyText(const CopyCandidate& c) {
     o << c.copy << " may be a copy of " << c.exemplar << ": " << c.copy << " has all " << c.exemplar_errors
       << " of " << c.exemplar << "'s errors and " << c.own_errors << " of its own";
   }
-  if (c.unreadable) o << " (" << c.unreadable << " more of " << c.exemplar << "'s cannot be read in " << c.copy << ")";
+  if (c.unreadable) {
+    o << " (at " << c.unreadable << " more of " << c.exemplar << "'s errors " << c.copy
+      << " cannot be compared: illegible there, or with an error of its own)";
+  }
   return o.str();
 }
 

@@ -16,7 +16,7 @@ struct CopyCandidate {
   std::string exemplar;  ///< A
   int exemplar_errors = 0;  ///< A's errors, all found in B
   int own_errors = 0;       ///< B's errors not in A
-  int unreadable = 0;       ///< A's errors at cells B cannot be read in
+  int unreadable = 0;       ///< A's errors where B cannot be compared (illegible or another error)
   /// Both carry exactly the same errors: either copied the other, or both a
   /// lost exemplar.
   bool twins = false;
