@@ -1,16 +1,118 @@
-// Placeholder until this subcommand is written: it refuses plainly.
+// apograph apparatus: the edited table with its apparatus of variants, and
+// the editor's overrides of adopted readings.
 #include "cli/command.hpp"
 
+#include <filesystem>
+#include <fstream>
 #include <ostream>
+
+#include "cli/collate_input.hpp"
+#include "lineage/lineage.hpp"
+#include "publish/apparatus.hpp"
+#include "store/apparatus_store.hpp"
+#include "support/input_error.hpp"
 
 namespace apograph::cli {
 
-extern const char kApparatusUsage[] = "apograph apparatus (not yet available)";
+extern const char kApparatusUsage[] =
+    "usage: apograph apparatus --table ID [--format tei|latex|csv|text] [--output FILE]\n"
+    "                          [--override ROW:COLUMN=READING]... [--withdraw ROW:COLUMN]... [--note TEXT]\n"
+    "                          [--witnesses A,B,...] [--model NAME [--param N=V]...] [--db FILE]\n\n"
+    "Writes the edited table: for every cell the adopted reading (the reading of most\n"
+    "independent branches of the parsimony stemma that is not an error; an editor's\n"
+    "override wins) and the variant readings with their sigla.\n"
+    "--override records the editor's reading for a cell (ROW is the row's argument,\n"
+    "COLUMN the column's name); --withdraw removes an override; --note gives the reason\n"
+    "(for every override of this call). Decisions are kept in the database with their\n"
+    "history (table apparatus_decision, view apparatus_override).\n\n"
+    "example: apograph apparatus --table solar-eq --override 20:equation=0;40 --note 'author's value'\n"
+    "         apograph apparatus --table solar-eq --format tei --output solar-eq.xml";
+
+namespace {
+
+// ROW:COLUMN[=READING]: the row is everything before the last ':' of the left side.
+store::ApparatusDecision ParseDecision(const std::string& option, const std::string& text, bool with_reading,
+                                       const std::string& table, const std::string& note) {
+  const auto eq = text.find('=');
+  const std::string cell = with_reading ? text.substr(0, eq) : text;
+  const auto colon = cell.rfind(':');
+  const bool ok = colon != std::string::npos && colon > 0 && colon + 1 < cell.size() &&
+                  (!with_reading || (eq != std::string::npos && eq + 1 < text.size()));
+  if (!ok) {
+    throw InputError::ForOption(option, ExpectedFound(with_reading ? "ROW:COLUMN=READING" : "ROW:COLUMN", "'" + text + "'"));
+  }
+  const std::string row = cell.substr(0, colon);
+  auto v = Sexagesimal::Parse(row);
+  if (!v) throw InputError::ForOption(option, ExpectedFound("a row argument in trade notation", "'" + row + "'"));
+  return {table, v->ToString(), cell.substr(colon + 1), with_reading ? text.substr(eq + 1) : "", note, ""};
+}
+
+std::vector<std::vector<std::string>> Branches(const collate::Collation& c) {
+  const auto result = lineage::Parsimony(lineage::BuildErrorCharacters(c));
+  std::vector<std::vector<std::string>> out;
+  const auto& s = result.stemma;
+  for (int child : s.nodes[s.root].children) out.push_back(s.Below(child));
+  return out;
+}
+
+std::vector<publish::Override> Overrides(const std::vector<store::ApparatusDecision>& ds) {
+  std::vector<publish::Override> out;
+  for (const auto& d : ds) {
+    if (!d.reading.empty()) out.push_back({d.row_argument, d.column, d.reading, d.note});
+  }
+  return out;
+}
+
+// Pending decisions applied over the stored ones (for validation before writing).
+std::vector<store::ApparatusDecision> Merged(std::vector<store::ApparatusDecision> stored,
+                                             const std::vector<store::ApparatusDecision>& pending) {
+  for (const auto& p : pending) {
+    std::erase_if(stored, [&](const auto& s) { return s.row_argument == p.row_argument && s.column == p.column; });
+    stored.push_back(p);
+  }
+  return stored;
+}
+
+}  // namespace
 
 int RunApparatus(const std::vector<std::string>& args, Io& io) {
-  (void)args;
-  io.err << "apograph apparatus: not yet available in this build\n";
-  return kInternal;
+  po::options_description options("options");
+  CollateRequest request;
+  std::string format, db_path, output, note;
+  std::vector<std::string> overrides, withdrawals;
+  options.add_options()("table", po::value(&request.table)->required(), "table id")(
+      "output", po::value(&output), "write to this file instead of standard output")(
+      "override", po::value(&overrides)->composing(), "ROW:COLUMN=READING: the editor's reading (repeatable)")(
+      "withdraw", po::value(&withdrawals)->composing(), "ROW:COLUMN: withdraw an override (repeatable)")(
+      "note", po::value(&note), "the editor's reason for the overrides of this call");
+  AddCollateOptions(options, request);
+  AddFormatOption(options, format, {"text", "tei", "latex", "csv"});
+  AddDbOption(options, db_path);
+  po::variables_map vm;
+  if (ParseOptions(FindCommand("apparatus"), args, options, vm, io)) return kOk;
+  CheckChoice("--format", format, {"text", "tei", "latex", "csv"});
+  if (!std::filesystem::exists(db_path)) throw InputError::ForOption("--db", ExpectedFound("an edition database", "'" + db_path + "'"));
+  store::Database db(db_path);
+  const auto collation = CollateFromDb(db, request);
+  std::vector<store::ApparatusDecision> pending;
+  for (const auto& o : overrides) pending.push_back(ParseDecision("--override", o, true, request.table, note));
+  for (const auto& w : withdrawals) pending.push_back(ParseDecision("--withdraw", w, false, request.table, note));
+  const auto decisions = Merged(store::LoadApparatusOverrides(db, request.table), pending);
+  // Built before anything is written: a bad row or column stops here.
+  const auto apparatus = publish::BuildApparatus(collation, Branches(collation), Overrides(decisions));
+  if (!pending.empty()) store::SaveApparatusDecisions(db, pending);
+  std::string text = format == "tei"     ? publish::ToTei(apparatus)
+                     : format == "latex" ? publish::ToLatex(apparatus)
+                     : format == "csv"   ? publish::ToCsv(apparatus)
+                                         : publish::ToText(apparatus);
+  if (output.empty()) {
+    io.out << text;
+  } else {
+    std::ofstream out(output, std::ios::binary);
+    if (!(out << text)) throw InputError::ForOption("--output", ExpectedFound("a writable file", "'" + output + "'"));
+    io.err << "wrote " << output << "\n";
+  }
+  return kOk;
 }
 
 }  // namespace apograph::cli

@@ -1,16 +1,153 @@
-// Placeholder until this subcommand is written: it refuses plainly.
+// apograph collate: the witnesses of one table aligned, every cell's
+// readings with their witnesses, errors marked with their basis.
 #include "cli/command.hpp"
 
+#include <filesystem>
 #include <ostream>
+#include <sstream>
+
+#include <nlohmann/json.hpp>
+
+#include "cli/collate_input.hpp"
+#include "support/input_error.hpp"
+#include "support/tabular.hpp"
 
 namespace apograph::cli {
 
-extern const char kCollateUsage[] = "apograph collate (not yet available)";
+extern const char kCollateUsage[] =
+    "usage: apograph collate --table ID [--witnesses A,B,...] [--model NAME [--param N=V]... [--column C]]\n"
+    "                        [--tolerance U] [--format text|csv|json] [--db FILE]\n\n"
+    "Aligns the current transcriptions of a table by argument (missing, extra and\n"
+    "miscopied rows and columns slid by a row are reported) and lists every cell's\n"
+    "readings with their sigla. Errors (marked *) are readings beyond the tolerance\n"
+    "from the model's value when --model is given, otherwise minority readings\n"
+    "against a clear majority; each cell says which basis was used.\n"
+    "Exit code 1 when errors or alignment notes were found.\n\n"
+    "example: apograph collate --table solar-eq --model solar_equation --param e=2.08";
+
+namespace {
+
+std::string Units(const std::optional<double>& u) {
+  if (!u) return "";
+  std::ostringstream o;
+  o << *u;
+  return o.str();
+}
+
+std::string Readings(const collate::CollatedCell& cell) {
+  std::string out;
+  for (const auto& r : cell.readings) {
+    std::string sigla;
+    for (const auto& s : r.sigla) sigla += (sigla.empty() ? "" : " ") + s;
+    out += (out.empty() ? "" : " | ") + r.text + (r.error ? "*" : "") + " " + sigla;
+  }
+  return out;
+}
+
+void PrintText(const collate::Collation& c, std::ostream& out) {
+  out << "table " << c.table_id << ": " << c.witnesses.size() << " witnesses, " << c.rows.size() << " rows\n";
+  out << "errors judged by "
+      << (c.reference_description.empty() ? std::string("majority (no model)")
+                                          : "recomputation: " + c.reference_description)
+      << "\n";
+  for (const auto& n : c.notes) out << "  " << n.siglum << ": " << n.kind << ": " << n.text << "\n";
+  for (const auto& s : c.slides) out << "  " << s.siglum << ": slid column: " << s.text << "\n";
+  Tabular t;
+  t.headers = {"argument", "column", "computed", "basis", "readings (* error)"};
+  for (const auto& row : c.rows) {
+    for (const auto& cell : row.cells) {
+      t.Add({row.argument.ToString(), c.columns[cell.column].name, cell.computed ? cell.computed->ToString() : "",
+             cell.Varies() ? collate::ToString(cell.basis) : "", Readings(cell)});
+    }
+  }
+  out << "\n" << t.RenderText();
+}
+
+void PrintCsv(const collate::Collation& c, std::ostream& out) {
+  Tabular t;
+  t.headers = {"argument", "column", "reading", "sigla", "kind", "error", "units_off", "basis", "why"};
+  for (const auto& row : c.rows) {
+    for (const auto& cell : row.cells) {
+      for (const auto& r : cell.readings) {
+        std::string sigla;
+        for (const auto& s : r.sigla) sigla += (sigla.empty() ? "" : " ") + s;
+        t.Add({row.argument.ToString(), c.columns[cell.column].name, r.text, sigla, collate::ToString(r.kind),
+               r.error ? "1" : "0", Units(r.units_off), collate::ToString(cell.basis), r.why});
+      }
+    }
+  }
+  out << t.RenderCsv();
+}
+
+nlohmann::json ToJson(const collate::Collation& c) {
+  using nlohmann::json;
+  json j = {{"table", c.table_id}, {"reference", c.reference_description}, {"tolerance", c.tolerance_units}};
+  j["witnesses"] = json::array();
+  for (const auto& w : c.witnesses) j["witnesses"].push_back(w.siglum);
+  j["notes"] = json::array();
+  for (const auto& n : c.notes) {
+    j["notes"].push_back({{"siglum", n.siglum}, {"kind", n.kind}, {"source_row", n.source_row}, {"line", n.line},
+                          {"argument", n.row >= 0 ? c.rows[n.row].argument.ToString() : ""}, {"text", n.text}});
+  }
+  j["slides"] = json::array();
+  for (const auto& s : c.slides) {
+    j["slides"].push_back({{"siglum", s.siglum}, {"column", c.columns[s.column].name},
+                           {"first", c.rows[s.first_row].argument.ToString()},
+                           {"last", c.rows[s.last_row].argument.ToString()}, {"offset", s.offset}, {"text", s.text}});
+  }
+  j["rows"] = json::array();
+  for (const auto& row : c.rows) {
+    json cells = json::array();
+    for (const auto& cell : row.cells) {
+      json readings = json::array();
+      for (const auto& r : cell.readings) {
+        readings.push_back({{"text", r.text}, {"kind", collate::ToString(r.kind)}, {"sigla", r.sigla},
+                            {"error", r.error}, {"units_off", r.units_off ? json(*r.units_off) : json(nullptr)},
+                            {"why", r.why}});
+      }
+      cells.push_back({{"column", c.columns[cell.column].name},
+                       {"computed", cell.computed ? json(cell.computed->ToString()) : json(nullptr)},
+                       {"basis", collate::ToString(cell.basis)}, {"readings", readings}});
+    }
+    j["rows"].push_back({{"argument", row.argument.ToString()}, {"cells", cells}});
+  }
+  return j;
+}
+
+bool HasFindings(const collate::Collation& c) {
+  if (!c.notes.empty() || !c.slides.empty()) return true;
+  for (const auto& row : c.rows) {
+    for (const auto& cell : row.cells) {
+      for (const auto& r : cell.readings) {
+        if (r.error) return true;
+      }
+    }
+  }
+  return false;
+}
+
+}  // namespace
 
 int RunCollate(const std::vector<std::string>& args, Io& io) {
-  (void)args;
-  io.err << "apograph collate: not yet available in this build\n";
-  return kInternal;
+  po::options_description options("options");
+  CollateRequest request;
+  std::string db_path, format;
+  options.add_options()("table", po::value(&request.table)->required(), "table id");
+  AddCollateOptions(options, request);
+  AddFormatOption(options, format, {"text", "csv", "json"});
+  AddDbOption(options, db_path);
+  po::variables_map vm;
+  if (ParseOptions(FindCommand("collate"), args, options, vm, io)) return kOk;
+  CheckChoice("--format", format, {"text", "csv", "json"});
+  if (!std::filesystem::exists(db_path)) {
+    throw InputError::ForOption("--db", ExpectedFound("an edition database", "'" + db_path + "'"));
+  }
+  store::Database db(db_path);
+  const auto c = CollateFromDb(db, request);
+  if (format == "json") io.out << ToJson(c).dump(2) << "\n";
+  else if (format == "csv") PrintCsv(c, io.out);
+  else PrintText(c, io.out);
+  return HasFindings(c) ? kFindings : kOk;
 }
 
 }  // namespace apograph::cli
