@@ -28,10 +28,6 @@ std::optional<SavedFormula> FindFormula(Database& db, const std::string& name);
 /// All saved formulas, by name.
 std::vector<SavedFormula> ListFormulas(Database& db);
 
-/// The current revision number of a witness's copy of a table, if any.
-std::optional<int> CurrentRevision(Database& db, const std::string& table_id,
-                                   const std::string& siglum);
-
 /// Stores one check run (its practice, parameters, summary and every entry)
 /// in one transaction and returns its id. `formula_text` is the text when the
 /// model was a formula.
