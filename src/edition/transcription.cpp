@@ -57,6 +57,39 @@ std::optional<Sexagesimal> Transcription::ExpectedArgument(std::size_t row) cons
   return *argument.start + *argument.step * static_cast<std::int64_t>(row);
 }
 
+std::optional<Sexagesimal> Transcription::ArgumentInUse(std::size_t row) const {
+  try {
+    return ResolveArgument(row);
+  } catch (const std::overflow_error&) {
+    return rows[row].argument.value;  // beyond exact range: take it as written
+  }
+}
+
+std::optional<Sexagesimal> Transcription::ResolveArgument(std::size_t row) const {
+  auto written = [&](std::size_t i) -> const std::optional<Sexagesimal>& { return rows[i].argument.value; };
+  const auto& w = written(row);
+  const bool has_prev = row > 0 && written(row - 1);
+  const bool has_next = row + 1 < rows.size() && written(row + 1);
+  if (w) {
+    bool on_grid = true;
+    if (argument.start && argument.step && !argument.step->is_zero()) {
+      const Sexagesimal offset = *w - *argument.start;
+      const Sexagesimal step = *argument.step;
+      const int p = std::max(offset.places(), step.places());
+      on_grid = offset.Extended(p).units() % step.Extended(p).units() == 0;
+    }
+    const bool after_prev = !has_prev || *w > *written(row - 1);
+    const bool before_next = !has_next || *w <= *written(row + 1);  // of two equal, keep the first
+    if (on_grid && after_prev && before_next) return w;
+  }
+  if (argument.step) {
+    if (has_prev) return *written(row - 1) + *argument.step;
+    if (has_next) return *written(row + 1) - *argument.step;
+  }
+  if (auto expected = ExpectedArgument(row)) return expected;
+  return w;
+}
+
 std::size_t Transcription::CellCount() const {
   std::size_t n = 0;
   for (const auto& r : rows) n += r.cells.size();

@@ -118,10 +118,21 @@ struct Transcription {
   int ColumnIndex(const std::string& name) const;
   /// The expected argument of row i from start and step, when declared.
   std::optional<Sexagesimal> ExpectedArgument(std::size_t row) const;
+  /// The argument row i stands for, which every stage computes with. The
+  /// written argument when it fits between its neighbours (so a missing or
+  /// an extra row does not shift the rest of the table); otherwise, since
+  /// arguments are miscopied too, the previous written argument plus the
+  /// step (or the next minus the step); otherwise the expected one by
+  /// position. Example: rows written 46, 41, 48 with step 1 stand for 46, 47,
+  /// 48; rows written 70, 72, 73 stand for 70, 72, 73 (71 is missing).
+  std::optional<Sexagesimal> ArgumentInUse(std::size_t row) const;
   /// Number of cells (argument cells not counted).
   std::size_t CellCount() const;
   /// Same layout, metadata and cell content, ignoring provenance and source.
   bool SameContent(const Transcription& other) const;
+
+ private:
+  std::optional<Sexagesimal> ResolveArgument(std::size_t row) const;
 };
 
 /// What reading a file produced: tables and warnings (never errors, which

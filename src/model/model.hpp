@@ -91,10 +91,10 @@ struct ColumnRecomputation {
   std::vector<std::optional<Sexagesimal>> computed;  ///< after the practice
 };
 
-/// Evaluates `model` on every row of column `column`. The argument used is the
-/// expected one (from the declared start and step) when the table declares
-/// them, otherwise the argument as written; rows whose argument is unreadable
-/// and undeclared get no value.
+/// Evaluates `model` on every row of column `column`. The argument used is
+/// Transcription::ArgumentInUse: the written one when it fits the sequence,
+/// repaired from its neighbours when it was miscopied; rows with no usable
+/// argument get no value.
 ColumnRecomputation Recompute(const Model& model, const std::vector<double>& params,
                               const Transcription& table, int column, const Practice& practice);
 

@@ -61,9 +61,7 @@ std::optional<Rounding> RoundingFromString(std::string_view text) {
 }
 
 std::optional<double> RowArgument(const Transcription& table, std::size_t row) {
-  if (auto expected = table.ExpectedArgument(row)) return expected->ToDouble();
-  const Cell& a = table.rows[row].argument;
-  if (a.value) return a.value->ToDouble();
+  if (auto a = table.ArgumentInUse(row)) return a->ToDouble();
   return std::nullopt;
 }
 

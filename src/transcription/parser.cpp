@@ -4,6 +4,7 @@
 // cannot (see "Validation" in grammar/transcription.ebnf).
 #include "transcription/parser.hpp"
 
+#include <algorithm>
 #include <cstdint>
 #include <filesystem>
 #include <fstream>
@@ -93,6 +94,12 @@ class Parser {
   int rows_line_ = 0;
   std::string rows_line_text_;
   std::unordered_map<Sexagesimal::Units, int, UnitsHash> seen_arguments_;
+  struct RowSource {
+    std::string_view line;
+    std::size_t argument_offset;
+  };
+  std::vector<RowSource> row_sources_;  ///< per row of the open table, for warnings
+  void CheckSequence();
 };
 
 Diagnostic Parser::Make(Severity severity, int line_no, std::string_view line, std::size_t offset,
@@ -122,6 +129,8 @@ TranscriptionFile Parser::Run() {
     pos = newline + 1;
   }
   CloseTable("end of file");
+  std::stable_sort(out_.warnings.begin(), out_.warnings.end(),
+                   [](const Diagnostic& a, const Diagnostic& b) { return a.where.line < b.where.line; });
   if (out_.tables.empty()) {
     throw InputError::ForFile(file_, "expected at least one @table section, found none");
   }
@@ -354,6 +363,7 @@ void Parser::CloseTable(const std::string& found) {
                           "expected at least one row after @rows, found " + found));
   }
   table_.source_text = std::string(text_.substr(table_start_, table_end_ - table_start_));
+  CheckSequence();
   out_.tables.push_back(std::move(table_));
   table_ = Transcription{};
   phase_ = Phase::kOutside;
@@ -388,6 +398,7 @@ void Parser::RowLine(std::string_view line, std::size_t at) {
   }
   CheckArgument(row, line, argument_offset);
   table_.rows.push_back(std::move(row));
+  row_sources_.push_back({line, argument_offset});
   table_end_ = line_start_ + line.size();
 }
 
@@ -432,18 +443,6 @@ void Parser::ParseRowCells(std::string_view line, std::size_t pos, Row& row,
 void Parser::CheckArgument(const Row& row, std::string_view line, std::size_t offset) {
   const Cell& a = row.argument;
   if (a.state != CellState::kRead) return;
-  std::optional<Sexagesimal> expected;
-  try {
-    expected = table_.ExpectedArgument(table_.rows.size());
-  } catch (const std::overflow_error&) {
-    // start + i * step left the range of exact values: nothing to compare.
-  }
-  if (expected && *expected != *a.value) {
-    out_.warnings.push_back(Make(Severity::kWarning, line_no_, line, offset,
-                                 "expected argument " + expected->ToString() + " from start " +
-                                     table_.argument.start->ToString() + " and step " +
-                                     table_.argument.step->ToString() + ", found " + Quote(a.raw)));
-  }
   // Every argument has the argument's places, so units compare exactly.
   auto [it, inserted] = seen_arguments_.emplace(a.value->units(), line_no_);
   if (!inserted) {
@@ -451,6 +450,46 @@ void Parser::CheckArgument(const Row& row, std::string_view line, std::size_t of
                                  "expected each argument once, found " + Quote(a.raw) +
                                      " again (first in line " + std::to_string(it->second) + ")"));
   }
+}
+
+// Arguments are evidence, so a break in their sequence is a warning, said
+// once where it happens: a miscopied argument (the row keeps its place), or a
+// gap or a step back in the sequence (rows missing or out of order).
+void Parser::CheckSequence() {
+  if (!table_.argument.step) {
+    row_sources_.clear();
+    return;
+  }
+  const Sexagesimal step = *table_.argument.step;
+  std::optional<Sexagesimal> previous;
+  for (std::size_t i = 0; i < table_.rows.size(); ++i) {
+    const Row& row = table_.rows[i];
+    const RowSource& src = row_sources_[i];
+    std::optional<Sexagesimal> in_use, expected;
+    try {
+      in_use = table_.ArgumentInUse(i);
+      expected = previous ? std::optional(*previous + step) : table_.argument.start;
+    } catch (const std::overflow_error&) {
+      // Beyond the range of exact values: nothing to compare.
+      in_use.reset();
+      expected.reset();
+    }
+    const auto& written = row.argument.value;
+    if (written && in_use && *written != *in_use) {
+      out_.warnings.push_back(Make(Severity::kWarning, row.line, src.line, src.argument_offset,
+                                   "expected argument " + in_use->ToString() +
+                                       " (it breaks the sequence of its neighbours), found " +
+                                       Quote(row.argument.raw) + "; the row is taken as argument " +
+                                       in_use->ToString()));
+    } else if (written && in_use && expected && *in_use != *expected) {
+      const std::string why = *in_use > *expected ? "a row seems to be missing" : "rows out of order";
+      out_.warnings.push_back(Make(Severity::kWarning, row.line, src.line, src.argument_offset,
+                                   "expected argument " + expected->ToString() + ", found " +
+                                       Quote(row.argument.raw) + " (" + why + ")"));
+    }
+    previous = in_use ? in_use : expected;
+  }
+  row_sources_.clear();
 }
 
 }  // namespace

@@ -189,13 +189,18 @@ TEST_CASE("arguments that repeat or break the declared step are warnings, rows k
                           "@table t\n@argument a start=1 step=1\n@column c\n@rows\n"
                           "1 | 5\n3 | 6\n3 | 7\n? | 8\n");
   CHECK(file.tables.at(0).rows.size() == 4);
-  REQUIRE(file.warnings.size() == 2);
+  REQUIRE(file.warnings.size() == 3);
   CHECK(file.warnings[0].Render() ==
-        "t.apo:8:1: warning: expected argument 2 from start 1 and step 1, found '3'\n"
+        "t.apo:8:1: warning: expected argument 2, found '3' (a row seems to be missing)\n"
         "3 | 6\n"
         "^");
   CHECK(file.warnings[1].Render() ==
         "t.apo:9:1: warning: expected each argument once, found '3' again (first in line 8)\n"
+        "3 | 7\n"
+        "^");
+  CHECK(file.warnings[2].Render() ==
+        "t.apo:9:1: warning: expected argument 4 (it breaks the sequence of its neighbours), "
+        "found '3'; the row is taken as argument 4\n"
         "3 | 7\n"
         "^");
 }
