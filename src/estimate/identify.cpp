@@ -1,0 +1,185 @@
+#include "estimate/identify.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <set>
+#include <sstream>
+
+#include "estimate/observations.hpp"
+
+namespace apograph::estimate {
+
+namespace {
+
+constexpr double kAuthor = 0.98;   // share of entries as the author computed them
+constexpr double kRatio = 0.1;     // P(|d| = j+1) / P(|d| = j) for the author's entries
+constexpr double kNearTie = 2.0;   // score difference below which candidates tie
+
+std::string Trimmed(double v) {
+  std::ostringstream o;
+  o << v;
+  return o.str();
+}
+
+bool IsMeanMotion(const model::Model& m) { return m.ParamIndex("modulus") >= 0 && m.ParamIndex("rate") >= 0; }
+
+/// The model gives a finite value for most rows at its defaults.
+bool Applicable(const model::Model& m, const Transcription& table, const std::vector<Observation>& obs) {
+  const std::vector<double> p = m.Defaults();
+  int bad = 0, tried = 0;
+  const std::size_t step = std::max<std::size_t>(1, obs.size() / 20);
+  for (std::size_t i = 0; i < obs.size(); i += step) {
+    const auto& col = table.columns[static_cast<std::size_t>(obs[i].column)];
+    model::RowContext ctx{obs[i].arg, col.arg2 ? std::optional<double>(col.arg2->ToDouble()) : std::nullopt,
+                          &table, obs[i].row, obs[i].column};
+    ++tried;
+    bad += !std::isfinite(m.Evaluate(p, ctx));
+  }
+  return tried > 0 && bad * 5 <= tried;
+}
+
+Candidate MakeCandidate(const model::Model& m, FitResult fit, bool grid) {
+  Candidate c;
+  c.model = &m;
+  c.penalised_parameters = fit.free_parameters + (grid ? 1 : 0);
+  c.score = Score(fit, c.penalised_parameters, &c.log_likelihood);
+  c.fit = std::move(fit);
+  return c;
+}
+
+/// A practice text for comparing two candidates.
+std::string Difference(const Candidate& a, const Candidate& b) {
+  std::vector<std::string> parts;
+  if (a.model != b.model) parts.push_back("the model (" + a.model->name() + " / " + b.model->name() + ")");
+  if (a.PracticeText() != b.PracticeText()) parts.push_back("the practice (" + a.PracticeText() + " / " + b.PracticeText() + ")");
+  std::vector<std::string> args;
+  for (std::size_t i = 0; i < a.fit.entries.size() && i < b.fit.entries.size(); ++i) {
+    const auto& x = a.fit.entries[i].computed;
+    const auto& y = b.fit.entries[i].computed;
+    if (x.has_value() != y.has_value() || (x && !(*x == *y))) args.push_back(Trimmed(a.fit.entries[i].arg));
+  }
+  std::string s;
+  for (std::size_t i = 0; i < parts.size(); ++i) s += (i ? " and " : "") + parts[i];
+  if (args.empty()) return s + "; they compute the same value at every entry, so the entries cannot tell them apart";
+  s += "; their computed values differ at " + std::to_string(args.size()) + " entries (argument";
+  s += args.size() > 1 ? "s " : " ";
+  for (std::size_t i = 0; i < args.size() && i < 8; ++i) s += (i ? ", " : "") + args[i];
+  if (args.size() > 8) s += ", ...";
+  return s + ")";
+}
+
+}  // namespace
+
+std::string Candidate::PracticeText() const {
+  const auto& p = fit.practice;
+  std::string s = p.rounding == Rounding::kTruncate ? "truncated" : "rounded";
+  if (p.places) s += ", " + std::to_string(*p.places) + " places";
+  if (p.grid > 0) s += ", grid " + Trimmed(p.grid) + (p.round_nodes ? " (rounded nodes)" : "");
+  if (p.displacement != 0) s += ", displacement " + Sexagesimal::FromDouble(p.displacement, 2).ToString();
+  return s;
+}
+
+double Score(const FitResult& fit, int penalised, double* log_likelihood) {
+  double lo = 0, hi = 0;
+  for (const auto& e : fit.entries) {
+    const double u = static_cast<double>(e.tabulated.units());
+    lo = std::min(lo, u);
+    hi = std::max(hi, u);
+  }
+  const double slip = (1 - kAuthor) / std::max(hi - lo + 1, 60.0);
+  const double norm = kAuthor * (1 - kRatio) / (1 + kRatio);
+  double ll = 0;
+  for (const auto& e : fit.entries) {
+    const double d = std::isfinite(e.diff_units) ? std::fabs(std::round(e.diff_units)) : 1e9;
+    ll += std::log(norm * std::pow(kRatio, std::min(d, 300.0)) + slip);
+  }
+  if (log_likelihood) *log_likelihood = ll;
+  const double n = std::max<double>(1, static_cast<double>(fit.entries.size()));
+  return ll - 0.5 * penalised * std::log(n);
+}
+
+std::vector<double> CandidateGrids(const Transcription& table) {
+  std::vector<double> args;
+  for (std::size_t r = 0; r < table.rows.size(); ++r) {
+    if (auto a = model::RowArgument(table, r)) args.push_back(*a);
+  }
+  if (args.size() < 6) return {};
+  double step = table.argument.step ? table.argument.step->ToDouble() : args[1] - args[0];
+  if (!(step > 0)) return {};
+  const double range = args.back() - args.front();
+  std::vector<double> out;
+  for (int m : {2, 3, 4, 5, 6, 10, 12, 15, 20, 30}) {
+    if (step * m * 3 <= range) out.push_back(step * m);
+  }
+  return out;
+}
+
+Identification Identify(const Transcription& table, int column, const IdentifyOptions& options) {
+  Identification out;
+  out.column = column;
+  const std::vector<Observation> obs = CollectObservations(table, {column});
+  if (obs.size() < 3) return out;
+  const bool mean_motion = LooksLikeMeanMotion(table, column);
+  if (mean_motion) out.mean_motion = AnalyseMeanMotion(table, column);
+  std::vector<const model::Model*> models = options.models.empty() ? model::BuiltinModels() : options.models;
+  models.insert(models.end(), options.extra_models.begin(), options.extra_models.end());
+  std::vector<Candidate> all;
+  auto attempt = [&](const model::Model& m, const FitOptions& fo) {
+    all.push_back(MakeCandidate(m, Fit(m, table, obs, fo), fo.practice.grid > 0));
+    ++out.candidates_tried;
+  };
+  // Round 1: every applicable family, rounding and truncation, with and
+  // without displacement (nearest only).
+  for (const model::Model* m : models) {
+    if (IsMeanMotion(*m) != mean_motion || !Applicable(*m, table, obs)) continue;
+    for (Rounding r : {Rounding::kNearest, Rounding::kTruncate}) {
+      FitOptions fo;
+      fo.practice.rounding = r;
+      attempt(*m, fo);
+      if (options.try_displacement && r == Rounding::kNearest && !mean_motion) {
+        fo.fit_displacement = true;
+        attempt(*m, fo);
+      }
+    }
+  }
+  std::stable_sort(all.begin(), all.end(), [](const Candidate& a, const Candidate& b) { return a.score > b.score; });
+  // Round 2: the best families with interpolation grids.
+  if (options.try_grids && !mean_motion) {
+    std::vector<Candidate> seeds;
+    std::set<const model::Model*> seen;
+    for (const auto& c : all) {
+      if (static_cast<int>(seeds.size()) >= options.refine) break;
+      if (seen.insert(c.model).second) seeds.push_back(c);
+    }
+    for (const auto& seed : seeds) {
+      for (double g : CandidateGrids(table)) {
+        for (Rounding r : {Rounding::kNearest, Rounding::kTruncate}) {
+          FitOptions fo;
+          fo.practice.rounding = r;
+          fo.practice.grid = g;
+          fo.fit_displacement = seed.fit.practice.displacement != 0;
+          for (const auto& p : seed.fit.params) {
+            if (!p.fixed) fo.start[p.name] = p.value;
+          }
+          attempt(*seed.model, fo);
+        }
+      }
+    }
+    std::stable_sort(all.begin(), all.end(), [](const Candidate& a, const Candidate& b) { return a.score > b.score; });
+  }
+  if (all.empty()) return out;
+  for (std::size_t i = 1; i < all.size() && i < static_cast<std::size_t>(options.top); ++i) {
+    if (all[0].score - all[i].score >= kNearTie) break;
+    std::ostringstream o;
+    o.precision(4);
+    o << all[0].model->name() << " (" << all[0].PracticeText() << ") and " << all[i].model->name() << " ("
+      << all[i].PracticeText() << ") explain the column about equally well (score " << all[0].score << " vs "
+      << all[i].score << "); they differ in " << Difference(all[0], all[i]) << ".";
+    out.notes.push_back(o.str());
+  }
+  if (static_cast<int>(all.size()) > options.top) all.resize(static_cast<std::size_t>(options.top));
+  out.ranked = std::move(all);
+  return out;
+}
+
+}  // namespace apograph::estimate
