@@ -1,0 +1,24 @@
+#pragma once
+// Options shared by `fit` and `identify` (internal to the CLI).
+
+#include <string>
+#include <vector>
+
+#include "cli/command.hpp"
+#include "edition/transcription.hpp"
+#include "estimate/catalog.hpp"
+#include "model/model.hpp"
+#include "store/database.hpp"
+
+namespace apograph::cli {
+
+/// A number in trade notation (2;4,48) or decimal (2.08); InputError naming `option`.
+double ParseNumber(const std::string& option, const std::string& text);
+
+/// The catalog: shipped file plus the database's rows.
+std::vector<estimate::CatalogEntry> LoadCatalog(store::Database& db);
+
+/// A built-in model by name; InputError listing the known ones.
+const model::Model& FindModelOrThrow(const std::string& name);
+
+}  // namespace apograph::cli
