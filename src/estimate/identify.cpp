@@ -123,27 +123,53 @@ Identification Identify(const Transcription& table, int column, const IdentifyOp
   if (mean_motion) out.mean_motion = AnalyseMeanMotion(table, column);
   std::vector<const model::Model*> models = options.models.empty() ? model::BuiltinModels() : options.models;
   models.insert(models.end(), options.extra_models.begin(), options.extra_models.end());
-  std::vector<Candidate> all;
-  auto attempt = [&](const model::Model& m, const FitOptions& fo) {
-    all.push_back(MakeCandidate(m, Fit(m, table, obs, fo), fo.practice.grid > 0));
-    ++out.candidates_tried;
-  };
-  // Round 1: every applicable family, rounding and truncation, with and
-  // without displacement (nearest only).
+  auto by_score = [](const Candidate& a, const Candidate& b) { return a.score > b.score; };
+  // Round 0, on a subsample of at most 60 entries: every applicable family,
+  // rounding and truncation, with and without displacement (nearest only).
+  std::vector<Observation> sub;
+  const std::size_t stride = std::max<std::size_t>(1, (obs.size() + 59) / 60);
+  for (std::size_t i = 0; i < obs.size(); i += stride) sub.push_back(obs[i]);
+  std::vector<Candidate> screen;
+  const double unit = std::pow(60.0, -obs.front().places);
   for (const model::Model* m : models) {
     if (IsMeanMotion(*m) != mean_motion || !Applicable(*m, table, obs)) continue;
     for (Rounding r : {Rounding::kNearest, Rounding::kTruncate}) {
-      FitOptions fo;
-      fo.practice.rounding = r;
-      attempt(*m, fo);
-      if (options.try_displacement && r == Rounding::kNearest && !mean_motion) {
-        fo.fit_displacement = true;
-        attempt(*m, fo);
+      for (bool disp : {false, true}) {
+        if (disp && (!options.try_displacement || r != Rounding::kNearest || mean_motion)) continue;
+        FitOptions fo;
+        fo.practice.rounding = r;
+        fo.fit_displacement = disp;
+        fo.max_iterations = 10;
+        Candidate c = MakeCandidate(*m, Fit(*m, table, sub, fo), false);
+        ++out.candidates_tried;
+        // A displacement under one unit of the last place is no displacement
+        // (and truncation plus half a unit is rounding): not a candidate.
+        if (disp && std::fabs(c.fit.practice.displacement) < unit) continue;
+        screen.push_back(std::move(c));
       }
     }
   }
-  std::stable_sort(all.begin(), all.end(), [](const Candidate& a, const Candidate& b) { return a.score > b.score; });
-  // Round 2: the best families with interpolation grids.
+  std::stable_sort(screen.begin(), screen.end(), by_score);
+  // Round 1: the best of the screen refitted on every entry from its estimate.
+  std::vector<Candidate> all;
+  auto refit = [&](const Candidate& from, Rounding r, double grid) {
+    FitOptions fo;
+    fo.practice.rounding = r;
+    fo.practice.grid = grid;
+    fo.practice.displacement = from.fit.practice.displacement;
+    fo.fit_displacement = from.fit.practice.displacement != 0;
+    for (const auto& p : from.fit.params) {
+      if (!p.fixed) fo.start[p.name] = p.value;
+    }
+    Candidate c = MakeCandidate(*from.model, Fit(*from.model, table, obs, fo), grid > 0);
+    if (fo.fit_displacement && std::fabs(c.fit.practice.displacement) < unit) return;  // see the screen
+    all.push_back(std::move(c));
+  };
+  for (std::size_t i = 0; i < screen.size() && i < static_cast<std::size_t>(options.refine + 3); ++i) {
+    refit(screen[i], screen[i].fit.practice.rounding, 0);
+  }
+  std::stable_sort(all.begin(), all.end(), by_score);
+  // Round 2: the best families with interpolation grids, both roundings.
   if (options.try_grids && !mean_motion) {
     std::vector<Candidate> seeds;
     std::set<const model::Model*> seen;
@@ -151,21 +177,22 @@ Identification Identify(const Transcription& table, int column, const IdentifyOp
       if (static_cast<int>(seeds.size()) >= options.refine) break;
       if (seen.insert(c.model).second) seeds.push_back(c);
     }
-    for (const auto& seed : seeds) {
+    // A grid cannot improve on a column reproduced exactly without one.
+    const bool perfect = !all.empty() && all[0].fit.exact == all[0].fit.n;
+    for (const auto& seed : perfect ? std::vector<Candidate>{} : seeds) {
       for (double g : CandidateGrids(table)) {
-        for (Rounding r : {Rounding::kNearest, Rounding::kTruncate}) {
-          FitOptions fo;
-          fo.practice.rounding = r;
-          fo.practice.grid = g;
-          fo.fit_displacement = seed.fit.practice.displacement != 0;
-          for (const auto& p : seed.fit.params) {
-            if (!p.fixed) fo.start[p.name] = p.value;
-          }
-          attempt(*seed.model, fo);
-        }
+        refit(seed, seed.fit.practice.rounding, g);
+        ++out.candidates_tried;
       }
     }
-    std::stable_sort(all.begin(), all.end(), [](const Candidate& a, const Candidate& b) { return a.score > b.score; });
+    std::stable_sort(all.begin(), all.end(), by_score);
+    if (!perfect && all[0].fit.practice.grid > 0) {  // the best grid under the other rounding
+      const Candidate best = all[0];
+      refit(best, best.fit.practice.rounding == Rounding::kNearest ? Rounding::kTruncate : Rounding::kNearest,
+            best.fit.practice.grid);
+      ++out.candidates_tried;
+      std::stable_sort(all.begin(), all.end(), by_score);
+    }
   }
   if (all.empty()) return out;
   for (std::size_t i = 1; i < all.size() && i < static_cast<std::size_t>(options.top); ++i) {

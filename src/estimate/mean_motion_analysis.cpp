@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 #include <sstream>
+#include <unordered_map>
 
 #include "estimate/observations.hpp"
 #include "support/input_error.hpp"
@@ -276,6 +277,10 @@ bool TrySum(MeanMotionAnalysis& out, const Item& i, const Item& j, const Item& l
 
 void Derivations(MeanMotionAnalysis& out, const std::vector<Item>& items) {
   const Sexagesimal radix = out.radix_present ? out.radix : Sexagesimal::FromUnits(0, out.places);
+  std::unordered_map<std::int64_t, const Item*> by_arg;
+  for (const auto& it : items) {
+    if (it.integer) by_arg.emplace(it.ia, &it);
+  }
   for (const auto& i : items) {
     auto& e = out.entries[i.entry];
     if (e.origin == EntryOrigin::kDirect || !i.integer) continue;
@@ -283,10 +288,10 @@ void Derivations(MeanMotionAnalysis& out, const std::vector<Item>& items) {
     for (auto j = items.rbegin(); j != items.rend() && !found; ++j) {
       if (&*j != &i) found = TryMultiple(out, i, *j, radix);
     }
-    for (std::size_t j = 0; j < items.size() && !found; ++j) {
-      for (std::size_t l = j; l < items.size() && !found; ++l) {
-        if (&items[j] != &i && &items[l] != &i) found = TrySum(out, i, items[j], items[l], radix);
-      }
+    for (std::size_t j = 0; j < items.size() && !found && i.integer; ++j) {
+      if (&items[j] == &i || !items[j].integer || 2 * items[j].ia > i.ia) continue;
+      auto l = by_arg.find(i.ia - items[j].ia);
+      if (l != by_arg.end() && l->second != &i) found = TrySum(out, i, items[j], *l->second, radix);
     }
     if (found) continue;
     const Real lo = (i.t - (out.rounding == Rounding::kNearest ? i.u / 2 : 0)) / i.a;
@@ -461,11 +466,15 @@ bool LooksLikeMeanMotion(const Transcription& table, int column) {
   for (const auto& o : obs) {
     if (o.value.negative() || o.value.ToDouble() >= 360) return false;
   }
+  // Cheap test (no search for entries made from others): most entries
+  // share one rate after unwrapping.
   try {
-    const MeanMotionAnalysis a = AnalyseMeanMotion(table, column);
-    int direct = 0;
-    for (const auto& e : a.entries) direct += e.origin != EntryOrigin::kUnexplained;
-    return a.rate > 0 && direct * 10 >= static_cast<int>(a.entries.size()) * 8;
+    MeanMotionAnalysis a;
+    std::vector<Item> items;
+    Setup(table, column, a, items);
+    RadixAndTurns(a, items);
+    const int shared = std::max(MaxStab(items, Rounding::kNearest).count, MaxStab(items, Rounding::kTruncate).count);
+    return shared * 10 >= static_cast<int>(items.size()) * 6 && shared >= 3;
   } catch (const std::exception&) {
     return false;
   }
