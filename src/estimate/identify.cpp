@@ -162,7 +162,11 @@ Identification Identify(const Transcription& table, int column, const IdentifyOp
       if (!p.fixed) fo.start[p.name] = p.value;
     }
     Candidate c = MakeCandidate(*from.model, Fit(*from.model, table, obs, fo), grid > 0);
-    if (fo.fit_displacement && std::fabs(c.fit.practice.displacement) < unit) return;  // see the screen
+    if (fo.fit_displacement && std::fabs(c.fit.practice.displacement) < unit) {  // see the screen
+      fo.fit_displacement = false;
+      fo.practice.displacement = 0;
+      c = MakeCandidate(*from.model, Fit(*from.model, table, obs, fo), grid > 0);
+    }
     all.push_back(std::move(c));
   };
   for (std::size_t i = 0; i < screen.size() && i < static_cast<std::size_t>(options.refine + 3); ++i) {
