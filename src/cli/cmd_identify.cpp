@@ -9,6 +9,7 @@
 #include <thread>
 
 #include "cli/estimate_options.hpp"
+#include "estimate/derived_columns.hpp"
 #include "estimate/identify.hpp"
 #include "estimate/observations.hpp"
 #include "estimate/report.hpp"
@@ -28,7 +29,9 @@ extern const char kIdentifyUsage[] =
     "  score = sum of log P(difference in units) - (free parameters / 2) ln(entries)\n"
     "(P: 98% author's values, 0.1^|d| per unit off; 2% copyist's slips spread over the\n"
     "column's range), and says when two explanations tie and what tells them apart.\n"
-    "Mean-motion columns also get the analysis of how the table was built. Results are\n"
+    "Mean-motion columns also get the analysis of how the table was built, and columns\n"
+    "computed from another column (differences, sums, 1/k of the difference) are named.\n"
+    "Results are\n"
     "stored in the database (view latest_identification). --all shows a progress bar on a\n"
     "terminal and uses every core.\n\n"
     "example:\n"
@@ -158,12 +161,25 @@ int RunIdentify(const std::vector<std::string>& args, Io& io) {
   store::SaveIdentifications(database, Records(jobs));
   if (all) return PrintAll(jobs, catalog, ParseFormat(format), io);
   bool findings = false;
+  // Columns made from other columns of the same table.
+  const auto derived = jobs.empty() ? std::vector<estimate::DerivedColumn>{} : estimate::DetectDerivedColumns(jobs[0].table);
   if (format == "json") {
     nlohmann::json j = nlohmann::json::array();
-    for (const auto& job : jobs) j.push_back(estimate::IdentificationJson(job.result, job.table, catalog));
+    for (const auto& job : jobs) {
+      auto one = estimate::IdentificationJson(job.result, job.table, catalog);
+      one["derived"] = nullptr;
+      for (const auto& d : derived) {
+        if (d.column != job.column) continue;
+        one["derived"] = {{"source", job.table.columns[static_cast<std::size_t>(d.source)].name},
+                          {"relation", d.relation}, {"rows", d.rows}, {"matched_tabulated", d.matched_tabulated},
+                          {"matched_precise", d.matched_precise}, {"basis", d.basis}, {"evidence", d.evidence}};
+      }
+      j.push_back(one);
+    }
     io.out << (j.size() == 1 ? j[0] : j).dump(2) << "\n";
   } else {
     for (const auto& job : jobs) io.out << estimate::IdentificationText(job.result, job.table, catalog) << "\n";
+    for (const auto& d : derived) io.out << "derived column: " << d.evidence << "\n";
   }
   for (const auto& job : jobs) {
     findings = findings || job.result.ranked.empty() || job.result.ranked[0].fit.flagged > 0 ||
