@@ -111,14 +111,15 @@ CREATE TABLE layout_column (
 --   places          the places of the column the cell stands in
 --   state           read | partial (some places unread) | illegible | blank
 --                   (nothing written in the manuscript)
---   damaged         1 when the support is damaged there (a reading is given anyway)
---   doubtful        1 when the editor doubts the reading
---   addition        none | margin | interlinear: where the text stands
---   corrected_from  a scribal correction: the reading before it (the cell
---                   holds the reading after it)
---   note            the editor's note on this cell
 --   source_line, source_col: where the cell was typed in the revision's file
 --                   (1-based; 0 when unknown)
+-- The editor's marks on a cell are in cell_mark (most cells have none); the
+-- view current_cell shows both together.
+-- (The CHECKs spell out `a = .. OR a = ..` rather than `a IN (..)`: SQLite
+-- builds a temporary index for an IN list on every insert, which made a large
+-- import several times slower. For the same reason of speed the rare marks
+-- live in their own table: every column of this one costs on each of a
+-- million inserts.)
 CREATE TABLE cell (
   revision_id     INTEGER NOT NULL REFERENCES revision(id),
   row_index       INTEGER NOT NULL CHECK (row_index >= 0),
@@ -127,17 +128,36 @@ CREATE TABLE cell (
   value           TEXT,
   value_real      REAL,
   places          INTEGER NOT NULL CHECK (places BETWEEN 0 AND 12),
-  state           TEXT NOT NULL CHECK (state IN ('read', 'partial', 'illegible', 'blank')),
-  damaged         INTEGER NOT NULL DEFAULT 0 CHECK (damaged IN (0, 1)),
-  doubtful        INTEGER NOT NULL DEFAULT 0 CHECK (doubtful IN (0, 1)),
-  addition        TEXT NOT NULL DEFAULT 'none' CHECK (addition IN ('none', 'margin', 'interlinear')),
-  corrected_from  TEXT,
-  note            TEXT NOT NULL DEFAULT '',
-  source_line     INTEGER NOT NULL DEFAULT 0 CHECK (source_line >= 0),
-  source_col      INTEGER NOT NULL DEFAULT 0 CHECK (source_col >= 0),
+  state           TEXT NOT NULL CHECK (state = 'read' OR state = 'partial' OR
+                                       state = 'illegible' OR state = 'blank'),
+  source_line     INTEGER NOT NULL CHECK (source_line >= 0),
+  source_col      INTEGER NOT NULL CHECK (source_col >= 0),
   CHECK ((state = 'read') = (value IS NOT NULL)),
   CHECK ((value IS NULL) = (value_real IS NULL)),
   PRIMARY KEY (revision_id, row_index, col)
+) WITHOUT ROWID;
+
+-- The editor's marks on a cell, one row only for a cell that has any.
+--   damaged         1 when the support is damaged there (a reading is given anyway)
+--   doubtful        1 when the editor doubts the reading
+--   addition        none | margin | interlinear: where the text stands
+--   corrected_from  a scribal correction: the reading before it (the cell
+--                   holds the reading after it)
+--   note            the editor's note on this cell
+CREATE TABLE cell_mark (
+  revision_id     INTEGER NOT NULL,
+  row_index       INTEGER NOT NULL,
+  col             INTEGER NOT NULL,
+  damaged         INTEGER NOT NULL DEFAULT 0 CHECK (damaged = 0 OR damaged = 1),
+  doubtful        INTEGER NOT NULL DEFAULT 0 CHECK (doubtful = 0 OR doubtful = 1),
+  addition        TEXT NOT NULL DEFAULT 'none' CHECK (addition = 'none' OR addition = 'margin' OR
+                                                    addition = 'interlinear'),
+  corrected_from  TEXT,
+  note            TEXT NOT NULL DEFAULT '',
+  CHECK (damaged = 1 OR doubtful = 1 OR addition <> 'none' OR corrected_from IS NOT NULL OR
+         note <> ''),
+  PRIMARY KEY (revision_id, row_index, col),
+  FOREIGN KEY (revision_id, row_index, col) REFERENCES cell(revision_id, row_index, col)
 ) WITHOUT ROWID;
 
 -- The current (highest-numbered) revision of every transcription, with its
@@ -154,12 +174,15 @@ CREATE VIEW current_revision AS
 CREATE VIEW current_cell AS
   SELECT r.table_id, r.siglum, r.number AS revision, c.row_index,
          lc.name AS column_name,
-         c.col, c.raw, c.value, c.value_real, c.places, c.state, c.damaged,
-         c.doubtful, c.addition, c.corrected_from, c.note, r.source_file,
-         c.source_line, c.source_col
+         c.col, c.raw, c.value, c.value_real, c.places, c.state,
+         coalesce(m.damaged, 0) AS damaged, coalesce(m.doubtful, 0) AS doubtful,
+         coalesce(m.addition, 'none') AS addition, m.corrected_from,
+         coalesce(m.note, '') AS note, r.source_file, c.source_line, c.source_col
   FROM current_revision r
   JOIN cell c ON c.revision_id = r.id
-  JOIN layout_column lc ON lc.revision_id = c.revision_id AND lc.position = c.col;
+  JOIN layout_column lc ON lc.revision_id = c.revision_id AND lc.position = c.col
+  LEFT JOIN cell_mark m ON m.revision_id = c.revision_id AND m.row_index = c.row_index
+                       AND m.col = c.col;
 
 -- One line per transcription: its current revision, how many revisions it
 -- has, and the size of the current one.

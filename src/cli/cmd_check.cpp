@@ -1,16 +1,291 @@
-// Placeholder until this subcommand is written: it refuses plainly.
+// apograph check: recompute every entry of a witness's column from a model
+// (built-in or formula) under a computing practice, list the differences in
+// units of the last place, flag those beyond tolerance and store the run.
 #include "cli/command.hpp"
 
+#include <cmath>
+#include <filesystem>
+#include <iomanip>
+#include <memory>
 #include <ostream>
+#include <sstream>
+
+#include <nlohmann/json.hpp>
+
+#include "model/check.hpp"
+#include "model/formula.hpp"
+#include "store/edition_store.hpp"
+#include "store/model_store.hpp"
+#include "support/input_error.hpp"
+#include "support/tabular.hpp"
 
 namespace apograph::cli {
 
-extern const char kCheckUsage[] = "apograph check (not yet available)";
+extern const char kCheckUsage[] =
+    "usage: apograph check --table ID --witness SIGLUM (--model NAME | --formula TEXT)\n"
+    "                      [--param NAME=VALUE]... [--column NAME] [--rounding nearest|truncate]\n"
+    "                      [--places N] [--grid G [--grid-origin O] [--round-nodes]]\n"
+    "                      [--displacement D] [--tolerance U] [--revision N] [--flagged-only]\n"
+    "                      [--format text|csv|json] [--db FILE]\n\n"
+    "Recomputes every entry of the column and lists: the argument and reading as written,\n"
+    "the value after the practice, the exact value, the difference in units of the last\n"
+    "place, and a flag where |difference| > tolerance (default 1 unit). --model takes a\n"
+    "built-in model (see apograph formula list --builtin) or a saved formula. Numbers may\n"
+    "be written in the trade's notation (2;4,48) or as decimals (2.08). The run is stored\n"
+    "in the database. Exit code 1 when anything is flagged.\n\n"
+    "example: apograph check --table sun-eq --witness A --model solar-eccentric \\\n"
+    "           --param e=2;16 --grid 6";
+
+namespace {
+
+struct CheckOptions {
+  std::string table, witness, model, formula, column, rounding = "nearest", format, db;
+  std::vector<std::string> params;
+  int places = -1;
+  int revision = 0;
+  std::string grid = "0", grid_origin = "0", displacement = "0", tolerance = "1";
+  bool round_nodes = false, flagged_only = false;
+};
+
+/// A number in the trade's notation or decimal, for an option's value.
+double ParseNumber(const std::string& option, const std::string& text) {
+  if (text.find('.') != std::string::npos) {
+    std::size_t used = 0;
+    try {
+      const double v = std::stod(text, &used);
+      if (used == text.size() && std::isfinite(v)) return v;
+    } catch (const std::exception&) {
+    }
+  } else if (auto v = Sexagesimal::Parse(text)) {
+    return v->ToDouble();
+  }
+  throw InputError::ForOption(option, ExpectedFound("a number such as 2;4,48 or 2.08", "'" + text + "'"));
+}
+
+std::vector<std::pair<std::string, double>> ParseParams(const std::vector<std::string>& items) {
+  std::vector<std::pair<std::string, double>> out;
+  for (const auto& item : items) {
+    const auto eq = item.find('=');
+    if (eq == std::string::npos || eq == 0) {
+      throw InputError::ForOption("--param", ExpectedFound("NAME=VALUE", "'" + item + "'"));
+    }
+    out.emplace_back(item.substr(0, eq), ParseNumber("--param " + item.substr(0, eq), item.substr(eq + 1)));
+  }
+  return out;
+}
+
+model::Practice ParsePractice(const CheckOptions& o) {
+  model::Practice p;
+  auto rounding = model::RoundingFromString(o.rounding);
+  if (!rounding) throw InputError::ForOption("--rounding", ExpectedFound("nearest or truncate", "'" + o.rounding + "'"));
+  p.rounding = *rounding;
+  if (o.places >= 0) {
+    if (o.places > Sexagesimal::kMaxPlaces) {
+      throw InputError::ForOption("--places", ExpectedFound("0 to 12", std::to_string(o.places)));
+    }
+    p.places = o.places;
+  }
+  p.grid = ParseNumber("--grid", o.grid);
+  if (p.grid < 0) throw InputError::ForOption("--grid", ExpectedFound("a grid of 0 or more", "'" + o.grid + "'"));
+  p.grid_origin = ParseNumber("--grid-origin", o.grid_origin);
+  p.round_nodes = o.round_nodes;
+  p.displacement = ParseNumber("--displacement", o.displacement);
+  return p;
+}
+
+/// The built-in model of that name, else the saved formula.
+const model::Model& ResolveModel(store::Database& db, const CheckOptions& o,
+                                 std::unique_ptr<model::FormulaModel>& holder,
+                                 std::optional<std::string>& formula_text) {
+  if (!o.formula.empty()) {
+    if (!o.model.empty()) throw InputError::ForOption("--formula", "expected either --model or --formula, found both");
+    holder = model::CompileFormula(o.formula);
+    formula_text = o.formula;
+    return *holder;
+  }
+  if (o.model.empty()) throw InputError::ForOption("apograph check", "expected --model NAME or --formula TEXT, found neither");
+  if (const model::Model* m = model::FindBuiltinModel(o.model)) return *m;
+  if (auto saved = store::FindFormula(db, o.model)) {
+    holder = model::CompileFormula(saved->text, saved->name, "formula " + saved->name);
+    formula_text = saved->text;
+    return *holder;
+  }
+  throw InputError::ForOption("--model", ExpectedFound("a built-in model or a saved formula (apograph formula list --builtin)",
+                                                       "'" + o.model + "'"));
+}
+
+std::string ColumnList(const Transcription& t) {
+  std::string s;
+  for (const auto& c : t.columns) s += (s.empty() ? "" : ", ") + c.name;
+  return s;
+}
+
+int ResolveColumn(const Transcription& t, const CheckOptions& o, const model::FormulaModel* formula) {
+  if (formula) {
+    for (const auto& name : formula->columns()) {
+      if (t.ColumnIndex(name) < 0) {
+        throw InputError::ForOption("--formula", ExpectedFound("a column of table " + t.table_id + " (" + ColumnList(t) + ")",
+                                                               "col(" + name + ")"));
+      }
+    }
+  }
+  if (o.column.empty()) return 0;
+  const int c = t.ColumnIndex(o.column);
+  if (c < 0) {
+    throw InputError::ForOption("--column", ExpectedFound("a column of table " + t.table_id + " (" + ColumnList(t) + ")",
+                                                          "'" + o.column + "'"));
+  }
+  return c;
+}
+
+std::string FormatDiff(const std::optional<double>& d) {
+  if (!d) return "";
+  std::ostringstream s;
+  if (*d == std::round(*d)) {
+    s << (*d > 0 ? "+" : "") << static_cast<long long>(*d);
+  } else {
+    s << std::showpos << std::fixed << std::setprecision(2) << *d;
+  }
+  return s.str();
+}
+
+/// The exact value with one place more than the column, as an editor reads it.
+std::string FormatExact(double v, int places) {
+  if (!std::isfinite(v) || std::fabs(v) >= 1e12) return "";
+  return Sexagesimal::FromDouble(v, std::min(places + 1, Sexagesimal::kMaxPlaces)).ToString();
+}
+
+std::string FormatParam(double v) {
+  std::ostringstream s;
+  s << std::setprecision(12) << v;
+  if (std::fabs(v) < 1e9 && v != std::round(v)) {
+    Sexagesimal x = Sexagesimal::FromDouble(v, 4);
+    while (x.places() > 1 && x.units() % 60 == 0) x = x.Rounded(x.places() - 1);
+    s << " (" << x.ToString() << ")";
+  }
+  return s.str();
+}
+
+Tabular EntryTable(const model::CheckReport& r, bool flagged_only) {
+  Tabular t;
+  t.headers = {"row", "arg", "tabulated", "computed", "exact", "diff", "flag"};
+  t.right_aligned = {true, true, true, true, true, true, false};
+  for (const auto& e : r.entries) {
+    if (flagged_only && !e.flag) continue;
+    std::string flag = e.flag ? "FLAG" : (e.skipped.empty() ? "" : "(" + e.skipped + ")");
+    t.Add({std::to_string(e.row + 1), e.arg, e.tabulated ? e.tabulated->ToString() : e.tabulated_raw,
+           e.computed ? e.computed->ToString() : "", FormatExact(e.exact, r.places), FormatDiff(e.diff_units), flag});
+  }
+  return t;
+}
+
+std::string SummaryLine(const model::CheckReport& r) {
+  const auto& s = r.summary;
+  std::ostringstream out;
+  out << s.entries << " entries: " << s.exact << " exact, " << s.within_one << " within one unit, "
+      << s.flagged << " flagged (|diff| > " << r.tolerance << "), " << s.blank << " blank, " << s.illegible
+      << " illegible or partial, " << s.undefined << " without a model value";
+  if (s.worst_row) out << "; worst " << FormatDiff(r.entries[*s.worst_row].diff_units) << " at argument " << r.entries[*s.worst_row].arg;
+  return out.str();
+}
+
+void PrintText(const model::CheckReport& r, const CheckOptions& o, Io& io) {
+  io.out << "table " << r.table << ", witness " << r.witness << ", column "
+         << (r.entries.empty() ? o.column : r.entries.front().column) << ": model " << r.model;
+  if (!r.params.empty()) {
+    io.out << " with";
+    for (const auto& [name, value] : r.params) io.out << " " << name << " = " << FormatParam(value);
+  }
+  const auto& p = r.practice;
+  io.out << "\npractice: " << model::ToString(p.rounding) << " to " << r.places << " places";
+  if (p.grid > 0) io.out << ", exact every " << p.grid << " (from " << p.grid_origin << ")" << (p.round_nodes ? ", nodes rounded" : "") << ", linear between";
+  if (p.displacement != 0) io.out << ", displaced by " << p.displacement;
+  io.out << "\n\n" << EntryTable(r, o.flagged_only).RenderText() << "\n" << SummaryLine(r) << "\n";
+}
+
+nlohmann::json ToJson(const model::CheckReport& r, std::optional<int> revision,
+                      const std::optional<std::string>& formula, std::int64_t run) {
+  using nlohmann::json;
+  json params = json::object();
+  for (const auto& [name, value] : r.params) params[name] = value;
+  json entries = json::array();
+  for (const auto& e : r.entries) {
+    entries.push_back({{"row", e.row + 1}, {"arg", e.arg}, {"column", e.column},
+                       {"tabulated", e.tabulated ? e.tabulated->ToString() : e.tabulated_raw},
+                       {"computed", e.computed ? json(e.computed->ToString()) : json(nullptr)},
+                       {"exact", std::isfinite(e.exact) ? json(e.exact) : json(nullptr)},
+                       {"diff_units", e.diff_units ? json(*e.diff_units) : json(nullptr)},
+                       {"exact_diff_units", e.exact_diff_units ? json(*e.exact_diff_units) : json(nullptr)},
+                       {"flag", e.flag}, {"skipped", e.skipped}});
+  }
+  const auto& s = r.summary;
+  json summary = {{"entries", s.entries}, {"compared", s.compared}, {"exact", s.exact},
+                  {"within_one", s.within_one}, {"flagged", s.flagged}, {"blank", s.blank},
+                  {"illegible", s.illegible}, {"undefined", s.undefined}, {"worst", s.worst},
+                  {"worst_arg", s.worst_row ? json(r.entries[*s.worst_row].arg) : json(nullptr)}};
+  const auto& p = r.practice;
+  return {{"table", r.table}, {"witness", r.witness}, {"revision", revision ? json(*revision) : json(nullptr)},
+          {"column", r.entries.empty() ? "" : r.entries.front().column}, {"model", r.model},
+          {"formula", formula ? json(*formula) : json(nullptr)}, {"params", params},
+          {"practice", {{"rounding", model::ToString(p.rounding)}, {"places", r.places}, {"grid", p.grid},
+                        {"grid_origin", p.grid_origin}, {"round_nodes", p.round_nodes}, {"displacement", p.displacement}}},
+          {"tolerance", r.tolerance}, {"entries", entries}, {"summary", summary}, {"run_id", run}};
+}
+
+void AddOptions(po::options_description& d, CheckOptions& o) {
+  d.add_options()
+      ("table", po::value(&o.table)->required(), "table id")
+      ("witness", po::value(&o.witness)->required(), "siglum of the witness")
+      ("model", po::value(&o.model), "built-in model or saved formula")
+      ("formula", po::value(&o.formula), "an ad-hoc formula (grammar/formula.ebnf)")
+      ("param", po::value(&o.params)->composing(), "NAME=VALUE, repeatable")
+      ("column", po::value(&o.column), "column to check (default: the first)")
+      ("rounding", po::value(&o.rounding)->default_value("nearest"), "nearest|truncate")
+      ("places", po::value(&o.places), "places (default: the column's)")
+      ("grid", po::value(&o.grid)->default_value("0"), "interpolation grid in argument units (0: none)")
+      ("grid-origin", po::value(&o.grid_origin)->default_value("0"), "argument of the first node")
+      ("round-nodes", po::bool_switch(&o.round_nodes), "round the node values before interpolating")
+      ("displacement", po::value(&o.displacement)->default_value("0"), "constant added before rounding")
+      ("tolerance", po::value(&o.tolerance)->default_value("1"), "flag when |diff| > this many units")
+      ("revision", po::value(&o.revision), "revision to check (default: the current)")
+      ("flagged-only", po::bool_switch(&o.flagged_only), "text and CSV: list only the flagged entries");
+}
+
+}  // namespace
 
 int RunCheck(const std::vector<std::string>& args, Io& io) {
-  (void)args;
-  io.err << "apograph check: not yet available in this build\n";
-  return kInternal;
+  CheckOptions o;
+  po::options_description d("options");
+  AddOptions(d, o);
+  AddFormatOption(d, o.format, {"text", "csv", "json"});
+  AddDbOption(d, o.db);
+  po::variables_map vm;
+  if (ParseOptions(FindCommand("check"), args, d, vm, io)) return kOk;
+  CheckChoice("--format", o.format, {"text", "csv", "json"});
+  const model::Practice practice = ParsePractice(o);
+  const double tolerance = ParseNumber("--tolerance", o.tolerance);
+  if (tolerance < 0) throw InputError::ForOption("--tolerance", ExpectedFound("0 or more", "'" + o.tolerance + "'"));
+  const auto overrides = ParseParams(o.params);
+  if (!std::filesystem::exists(o.db)) {
+    throw InputError::ForFile(o.db, "no such edition database (create it with apograph init and import)");
+  }
+  store::Database db(o.db);
+  std::unique_ptr<model::FormulaModel> formula;
+  std::optional<std::string> formula_text;
+  const model::Model& m = ResolveModel(db, o, formula, formula_text);
+  const std::optional<int> revision = vm.count("revision") ? std::optional<int>(o.revision) : std::nullopt;
+  const Transcription t = store::Load(db, o.table, o.witness, revision);
+  const int column = ResolveColumn(t, o, formula.get());
+  const auto params = model::ParamsWithOverrides(m, overrides);
+  const model::CheckReport r = model::Check(t, m, params, practice, tolerance, column);
+  const auto stored_revision = revision ? revision : store::CurrentRevision(db, o.table, o.witness);
+  const std::int64_t run = store::SaveCheckRun(db, r, stored_revision, formula_text);
+  switch (ParseFormat(o.format)) {
+    case Format::kJson: io.out << ToJson(r, stored_revision, formula_text, run).dump(2) << "\n"; break;
+    case Format::kCsv: io.out << EntryTable(r, o.flagged_only).RenderCsv(); break;
+    case Format::kText: PrintText(r, o, io); break;
+  }
+  return r.summary.flagged > 0 ? kFindings : kOk;
 }
 
 }  // namespace apograph::cli

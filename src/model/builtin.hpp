@@ -29,17 +29,26 @@ T Reduce180(T x) {
   return r;
 }
 
+/// sin of x degrees with full relative accuracy near every zero: the
+/// argument is folded into [0, 90] by exact subtractions in degrees (180 - r
+/// and 90 - r are exact there), then the radian function is taken on at
+/// most 45 degrees.
 template <typename T>
 T SinDeg(T x) {
-  const T r = Reduce180(x);
-  if (r == T(180) || r == T(0)) return T(0);
-  return std::sin(r * kRadian<T>);
+  T r = Reduce180(x);
+  const T sign = r < T(0) ? T(-1) : T(1);
+  r = std::fabs(r);
+  if (r > T(90)) r = T(180) - r;
+  if (r <= T(45)) return sign * std::sin(r * kRadian<T>);
+  return sign * std::cos((T(90) - r) * kRadian<T>);
 }
+/// cos of x degrees, folded the same way.
 template <typename T>
 T CosDeg(T x) {
-  const T r = Reduce180(x);
-  if (r == T(90) || r == T(-90)) return T(0);
-  return std::cos(r * kRadian<T>);
+  const T r = std::fabs(Reduce180(x));
+  if (r <= T(45)) return std::cos(r * kRadian<T>);
+  if (r <= T(135)) return std::sin((T(90) - r) * kRadian<T>);
+  return -std::cos((T(180) - r) * kRadian<T>);
 }
 template <typename T>
 T TanDeg(T x) { return SinDeg(x) / CosDeg(x); }

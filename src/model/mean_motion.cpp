@@ -8,11 +8,15 @@
 namespace apograph::model::internal {
 namespace {
 
-/// m(t) = radix + rate * t, reduced into [0, modulus) when modulus > 0.
+/// m(t) = radix + rate * t, reduced into [0, modulus) when modulus > 0. The
+/// product and the reduction are done in long double whatever T is: rate * t
+/// reaches 10^6 degrees in year tables, where a double's last bit is already
+/// 10^-10 degrees.
 template <typename T>
 T MeanMotion(const T* p, T t, T) {
-  const T v = p[0] + p[1] * t;
-  return p[2] > T(0) ? ReduceModulo(v, p[2]) : v;
+  using W = long double;
+  const W v = W(p[0]) + W(p[1]) * W(t);
+  return static_cast<T>(p[2] > T(0) ? ReduceModulo(v, W(p[2])) : v);
 }
 
 ParamSpec Radix() { return {"radix", "deg", "value at argument 0 (the epoch)", 0.0, 0.0, 360.0}; }

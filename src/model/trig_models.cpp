@@ -19,9 +19,13 @@ T Sine(const T* p, T a, T) { return p[0] * SinDeg(a); }
 /// Cos(a) = R cos a.
 template <typename T>
 T Cosine(const T* p, T a, T) { return p[0] * CosDeg(a); }
-/// vers(a) = R (1 - cos a).
+/// vers(a) = R (1 - cos a), computed as 2R sin^2(a/2) to avoid cancellation
+/// near 0.
 template <typename T>
-T VersedSine(const T* p, T a, T) { return p[0] * (T(1) - CosDeg(a)); }
+T VersedSine(const T* p, T a, T) {
+  const T s = SinDeg(a / T(2));
+  return T(2) * p[0] * s * s;
+}
 /// Shadow (cotangent) of a gnomon g at altitude h: g cos h / sin h.
 template <typename T>
 T Shadow(const T* p, T h, T) {

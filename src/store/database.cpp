@@ -93,13 +93,19 @@ std::optional<std::string> Statement::OptionalText(int column) const {
 }
 
 Database::Database(const std::string& path) : path_(path) {
-  if (sqlite3_open_v2(path.c_str(), &db_, SQLITE_OPEN_READWRITE | SQLITE_OPEN_CREATE, nullptr) != SQLITE_OK) {
+  if (sqlite3_open_v2(path.c_str(), &db_, SQLITE_OPEN_READWRITE | SQLITE_OPEN_CREATE | SQLITE_OPEN_NOMUTEX, nullptr) != SQLITE_OK) {
     std::string msg = db_ ? sqlite3_errmsg(db_) : "out of memory";
     sqlite3_close(db_);
     throw StoreError("cannot open database " + path + ": " + msg);
   }
   sqlite3_busy_timeout(db_, 5000);
   Execute("PRAGMA foreign_keys = ON");
+  // Up to 32 MiB of page cache (memory only, safe): a large import then
+  // keeps its working pages instead of spilling them mid-transaction. The
+  // journal stays the default rollback journal with synchronous=FULL: a
+  // commit is durable, and new pages appended by an import are not copied
+  // into the journal (WAL would write each page twice, measured slower).
+  Execute("PRAGMA cache_size = -32768");
   Migrate();
 }
 

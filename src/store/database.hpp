@@ -64,7 +64,8 @@ class Statement {
   sqlite3_stmt* stmt_ = nullptr;
 };
 
-/// An open database with foreign keys on and the schema migrated.
+/// An open database with foreign keys on and the schema migrated. One
+/// connection serves one thread at a time (opened without SQLite's mutex).
 class Database {
  public:
   /// Opens (creating if needed) and applies pending migrations.

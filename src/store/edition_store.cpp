@@ -3,7 +3,7 @@
 #include <map>
 #include <utility>
 
-#include "store/value_text.hpp"
+#include "store/cell_writer.hpp"
 
 namespace apograph::store {
 namespace {
@@ -77,12 +77,11 @@ class Writer {
   std::int64_t InsertRevision(const Transcription& t, std::int64_t transcription, int number);
   void InsertLayout(const Transcription& t, std::int64_t revision);
   void InsertArgument(std::int64_t revision, int position, const ArgumentSpec& a);
-  void InsertCell(std::int64_t revision, std::int64_t row, int col, const Cell& c);
 
   Database& db_;
   Statement work_, table_work_, table_, witness_, transcription_, transcription_id_;
-  Statement current_, revision_, layout_, cell_;
-  std::int64_t cells_written_ = 0;
+  Statement current_, revision_, layout_;
+  CellWriter cells_;
 };
 
 Writer::Writer(Database& db)
@@ -117,10 +116,7 @@ Writer::Writer(Database& db)
       layout_(db.Prepare(
           "INSERT INTO layout_column(revision_id, position, name, unit, places, title, arg2, "
           "start, step) VALUES(?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9)")),
-      cell_(db.Prepare(
-          "INSERT INTO cell(revision_id, row_index, col, raw, value, value_real, places, state, "
-          "damaged, doubtful, addition, corrected_from, note, source_line, source_col) "
-          "VALUES(?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9, ?10, ?11, ?12, ?13, ?14, ?15)")) {}
+      cells_(db) {}
 
 void Writer::EnsureDescriptions(const Transcription& t) {
   work_.Bind(1, t.work.id).Bind(2, t.work.title).Bind(3, t.work.author).Run();
@@ -179,24 +175,6 @@ void Writer::InsertLayout(const Transcription& t, std::int64_t revision) {
   }
 }
 
-/// The hot loop: no allocation, text bound without copying.
-void Writer::InsertCell(std::int64_t revision, std::int64_t row, int col, const Cell& c) {
-  char value_text[kValueTextSize];
-  auto& s = cell_;
-  s.Bind(1, revision).Bind(2, row).Bind(3, col).BindStatic(4, c.raw);
-  if (c.value) {
-    s.BindStatic(5, FormatValue(*c.value, value_text)).Bind(6, c.value->ToDouble());
-  } else {
-    s.BindNull(5).BindNull(6);
-  }
-  s.Bind(7, c.places).BindStatic(8, ToString(c.state));
-  s.Bind(9, c.damaged ? 1 : 0).Bind(10, c.doubtful ? 1 : 0).BindStatic(11, ToString(c.addition));
-  if (c.corrected_from) s.BindStatic(12, *c.corrected_from); else s.BindNull(12);
-  s.BindStatic(13, c.note).Bind(14, c.line).Bind(15, c.column);
-  s.RunKeepBindings();
-  ++cells_written_;
-}
-
 TableImport Writer::Write(const Transcription& t, ImportResult& result) {
   EnsureDescriptions(t);
   const std::int64_t transcription = EnsureTranscription(t);
@@ -211,14 +189,15 @@ TableImport Writer::Write(const Transcription& t, ImportResult& result) {
 
   const std::int64_t revision = InsertRevision(t, transcription, current + 1);
   InsertLayout(t, revision);
-  cells_written_ = 0;
+  const std::int64_t before = cells_.written();
   for (std::size_t r = 0; r < t.rows.size(); ++r) {
     const auto row = static_cast<std::int64_t>(r);
-    InsertCell(revision, row, -1, t.rows[r].argument);
+    cells_.Add(revision, row, -1, t.rows[r].argument);
     const auto& cells = t.rows[r].cells;
-    for (std::size_t c = 0; c < cells.size(); ++c) InsertCell(revision, row, static_cast<int>(c), cells[c]);
+    for (std::size_t c = 0; c < cells.size(); ++c) cells_.Add(revision, row, static_cast<int>(c), cells[c]);
   }
-  result.cells_written += static_cast<std::size_t>(cells_written_);
+  cells_.Flush();
+  result.cells_written += static_cast<std::size_t>(cells_.written() - before);
   out.revision = current + 1;
   out.changed = true;
   return out;

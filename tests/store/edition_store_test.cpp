@@ -162,16 +162,22 @@ TEST_CASE("CHECK and foreign key constraints reject bad rows") {
   Database db(file.path());
   store::Import(db, {MakeTranscription("sun-eq", "K", 2)});
   const std::string cols =
-      "INSERT INTO cell(revision_id, row_index, col, raw, value, value_real, places, state) VALUES ";
-  CHECK_NOTHROW(db.Execute(cols + "(1, 50, 0, '1', '1', 1.0, 0, 'read')"));
-  CHECK_THROWS_AS(db.Execute(cols + "(1, 51, 0, '1', '1', 1.0, 0, 'smudged')"), StoreError);
-  CHECK_THROWS_AS(db.Execute(cols + "(1, 52, 0, '1', NULL, NULL, 0, 'read')"), StoreError);
-  CHECK_THROWS_AS(db.Execute(cols + "(1, 53, 0, '?', '1', 1.0, 0, 'illegible')"), StoreError);
-  CHECK_THROWS_AS(db.Execute(cols + "(1, 54, 0, '1', '1', 1.0, 13, 'read')"), StoreError);
-  CHECK_THROWS_AS(db.Execute(cols + "(1, 55, -2, '1', '1', 1.0, 0, 'read')"), StoreError);
-  CHECK_THROWS_AS(db.Execute(cols + "(99, 0, 0, '1', '1', 1.0, 0, 'read')"), StoreError);
-  CHECK_THROWS_AS(db.Execute("UPDATE cell SET damaged = 2 WHERE row_index = 0 AND col = 0"), StoreError);
-  CHECK_THROWS_AS(db.Execute("UPDATE cell SET addition = 'footnote' WHERE row_index = 0"), StoreError);
+      "INSERT INTO cell(revision_id, row_index, col, raw, value, value_real, places, state, "
+      "source_line, source_col) VALUES ";
+  CHECK_NOTHROW(db.Execute(cols + "(1, 50, 0, '1', '1', 1.0, 0, 'read', 1, 1)"));
+  CHECK_THROWS_AS(db.Execute(cols + "(1, 51, 0, '1', '1', 1.0, 0, 'smudged', 1, 1)"), StoreError);
+  CHECK_THROWS_AS(db.Execute(cols + "(1, 52, 0, '1', NULL, NULL, 0, 'read', 1, 1)"), StoreError);
+  CHECK_THROWS_AS(db.Execute(cols + "(1, 53, 0, '?', '1', 1.0, 0, 'illegible', 1, 1)"), StoreError);
+  CHECK_THROWS_AS(db.Execute(cols + "(1, 54, 0, '1', '1', 1.0, 13, 'read', 1, 1)"), StoreError);
+  CHECK_THROWS_AS(db.Execute(cols + "(1, 55, -2, '1', '1', 1.0, 0, 'read', 1, 1)"), StoreError);
+  CHECK_THROWS_AS(db.Execute(cols + "(1, 56, 0, '1', '1', 1.0, 0, 'read', -1, 1)"), StoreError);
+  CHECK_THROWS_AS(db.Execute(cols + "(99, 0, 0, '1', '1', 1.0, 0, 'read', 1, 1)"), StoreError);
+  const std::string marks = "INSERT INTO cell_mark(revision_id, row_index, col, damaged, addition, note) VALUES ";
+  CHECK_NOTHROW(db.Execute(marks + "(1, 50, 0, 1, 'none', '')"));
+  CHECK_THROWS_AS(db.Execute(marks + "(1, 0, 0, 2, 'none', '')"), StoreError);
+  CHECK_THROWS_AS(db.Execute(marks + "(1, 0, 1, 0, 'footnote', '')"), StoreError);
+  CHECK_THROWS_AS(db.Execute(marks + "(1, 1, 0, 0, 'none', '')"), StoreError);     // no mark at all
+  CHECK_THROWS_AS(db.Execute(marks + "(1, 77, 0, 1, 'none', '')"), StoreError);    // no such cell
   CHECK_THROWS_AS(db.Execute("INSERT INTO revision(transcription_id, number, work_id) VALUES(1, 0, 'w')"),
                   StoreError);
   CHECK_THROWS_AS(db.Execute("INSERT INTO edition_table(id, work_id) VALUES('t', 'no-such-work')"),

@@ -1,0 +1,481 @@
+// The transcription driver: splits the text into lines, hands directive and
+// row lines to the X3 parsers (parser_x3.cpp, cell_x3.cpp), keeps track of
+// the current work, witness and table, and validates what the grammar alone
+// cannot (see "Validation" in grammar/transcription.ebnf).
+#include "transcription/parser.hpp"
+
+#include <cstdint>
+#include <filesystem>
+#include <fstream>
+#include <initializer_list>
+#include <iterator>
+#include <unordered_map>
+
+#include "transcription/syntax.hpp"
+
+namespace apograph {
+namespace transcription {
+namespace {
+
+constexpr const char* kDirectives = "@work, @witness, @table, @argument, @argument2, @column, @rows";
+constexpr std::string_view kByteOrderMark = "\xEF\xBB\xBF";
+
+bool IsBlank(char c) { return c == ' ' || c == '\t'; }
+
+std::string Quote(std::string_view s) { return "'" + std::string(s) + "'"; }
+
+std::string PlacesWords(int n) {
+  return std::to_string(n) + (n == 1 ? " fractional place" : " fractional places");
+}
+
+/// Hash key of an exact value at a fixed number of places.
+struct UnitsHash {
+  std::size_t operator()(Sexagesimal::Units u) const {
+    const auto low = static_cast<std::uint64_t>(u);
+    const auto high = static_cast<std::uint64_t>(static_cast<unsigned __int128>(u) >> 64);
+    return std::hash<std::uint64_t>()(low ^ (high * 0x9E3779B97F4A7C15ull));
+  }
+};
+
+class Parser {
+ public:
+  Parser(std::string_view text, const std::string& file) : text_(text), file_(file) {}
+  TranscriptionFile Run();
+
+ private:
+  void Line(std::string_view line);
+  void Directive(std::string_view line, std::size_t at);
+  void RowLine(std::string_view line, std::size_t at);
+  void ParseRowCells(std::string_view line, std::size_t pos, Row& row, std::size_t& argument_offset);
+  void CheckArgument(const Row& row, std::string_view line, std::size_t offset);
+  void OpenTable(const DirectiveAst& d, std::string_view line);
+  void CloseTable(const std::string& found);
+  void SetWork(const DirectiveAst& d, std::string_view line);
+  void SetWitness(const DirectiveAst& d, std::string_view line);
+  void SetArgument(const DirectiveAst& d, std::string_view line, bool second);
+  void AddColumn(const DirectiveAst& d, std::string_view line);
+  void StartRows(const DirectiveAst& d, std::string_view line);
+  void RequireLayout(const DirectiveAst& d, std::string_view line);
+
+  void RequireId(const DirectiveAst& d, std::string_view line, const char* what);
+  void CheckAttributes(const DirectiveAst& d, std::string_view line,
+                       std::initializer_list<std::string_view> allowed);
+  int Places(const AttributeAst& a, std::string_view line);
+  Sexagesimal Number(const AttributeAst& a, std::string_view line);
+  std::string ColumnList() const;
+
+  Diagnostic Make(Severity severity, int line_no, std::string_view line, std::size_t offset,
+                  std::string message) const;
+  [[noreturn]] void Fail(std::string_view line, std::size_t offset, std::string message) const {
+    throw InputError(Make(Severity::kError, line_no_, line, offset, std::move(message)));
+  }
+
+  enum class Phase { kOutside, kLayout, kRows };
+
+  std::string_view text_;
+  const std::string& file_;
+  int line_no_ = 0;
+  std::size_t line_start_ = 0;
+  TranscriptionFile out_;
+
+  WorkInfo work_;
+  bool have_work_ = false;
+  WitnessInfo witness_;
+  bool have_witness_ = false;
+
+  Phase phase_ = Phase::kOutside;
+  Transcription table_;
+  bool have_argument_ = false;
+  int table_line_ = 0;
+  std::string table_line_text_;
+  std::size_t table_start_ = 0;
+  std::size_t table_end_ = 0;
+  int rows_line_ = 0;
+  std::string rows_line_text_;
+  std::unordered_map<Sexagesimal::Units, int, UnitsHash> seen_arguments_;
+};
+
+Diagnostic Parser::Make(Severity severity, int line_no, std::string_view line, std::size_t offset,
+                        std::string message) const {
+  Diagnostic d;
+  d.severity = severity;
+  d.where.file = file_;
+  d.where.line = line_no;
+  d.where.line_text = std::string(line);
+  d.where.column = ColumnCounter(line).At(offset);
+  d.message = std::move(message);
+  return d;
+}
+
+TranscriptionFile Parser::Run() {
+  CheckText(text_, file_);
+  std::size_t pos = text_.substr(0, 3) == kByteOrderMark ? 3 : 0;
+  for (;;) {
+    const std::size_t newline = text_.find('\n', pos);
+    const std::size_t end = newline == std::string_view::npos ? text_.size() : newline;
+    std::string_view line = text_.substr(pos, end - pos);
+    if (!line.empty() && line.back() == '\r') line.remove_suffix(1);
+    ++line_no_;
+    line_start_ = pos;
+    Line(line);
+    if (newline == std::string_view::npos) break;
+    pos = newline + 1;
+  }
+  CloseTable("end of file");
+  if (out_.tables.empty()) {
+    throw InputError::ForFile(file_, "expected at least one @table section, found none");
+  }
+  return std::move(out_);
+}
+
+void Parser::Line(std::string_view line) {
+  std::size_t at = 0;
+  while (at < line.size() && IsBlank(line[at])) ++at;
+  if (at == line.size() || line[at] == '#') return;
+  if (line[at] == '@') {
+    Directive(line, at);
+  } else {
+    RowLine(line, at);
+  }
+}
+
+void Parser::Directive(std::string_view line, std::size_t at) {
+  DirectiveAst d;
+  try {
+    d = ParseDirective(line, at);
+  } catch (const LineError& e) {
+    Fail(line, e.offset, e.message);
+  }
+  const std::string& k = d.keyword;
+  if (k == "work" || k == "witness" || k == "table") {
+    CloseTable(FoundToken(line, at));
+    if (k == "work") SetWork(d, line);
+    if (k == "witness") SetWitness(d, line);
+    if (k == "table") OpenTable(d, line);
+  } else if (k == "argument" || k == "argument2" || k == "column" || k == "rows") {
+    RequireLayout(d, line);
+    if (k == "argument" || k == "argument2") SetArgument(d, line, k == "argument2");
+    if (k == "column") AddColumn(d, line);
+    if (k == "rows") StartRows(d, line);
+  } else {
+    Fail(line, at, std::string("expected a directive (") + kDirectives + "), found " +
+                       FoundToken(line, at));
+  }
+}
+
+void Parser::RequireId(const DirectiveAst& d, std::string_view line, const char* what) {
+  if (!d.id.empty()) return;
+  const std::size_t at = d.attributes.empty() ? d.end_offset : d.attributes[0].name_offset;
+  Fail(line, at, std::string("expected ") + what + " after @" + d.keyword + ", found " +
+                     (d.attributes.empty() ? FoundChar(line, at) : FoundToken(line, at)));
+}
+
+void Parser::CheckAttributes(const DirectiveAst& d, std::string_view line,
+                             std::initializer_list<std::string_view> allowed) {
+  for (std::size_t i = 0; i < d.attributes.size(); ++i) {
+    const AttributeAst& a = d.attributes[i];
+    bool known = false;
+    std::string list;
+    for (std::string_view name : allowed) {
+      known = known || a.name == name;
+      list += (list.empty() ? "" : ", ") + std::string(name);
+    }
+    if (!known) {
+      Fail(line, a.name_offset, "expected an attribute of @" + d.keyword + " (" + list +
+                                    "), found " + Quote(a.name));
+    }
+    for (std::size_t j = 0; j < i; ++j) {
+      if (d.attributes[j].name == a.name) {
+        Fail(line, a.name_offset, "expected each attribute once, found a second " + Quote(a.name));
+      }
+    }
+  }
+}
+
+int Parser::Places(const AttributeAst& a, std::string_view line) {
+  const std::string& v = a.value;
+  const bool digits = !v.empty() && v.size() <= 2 && v.find_first_not_of("0123456789") == std::string::npos;
+  const int n = digits ? std::stoi(v) : -1;
+  if (n < 0 || n > Sexagesimal::kMaxPlaces) {
+    Fail(line, a.value_offset, "expected places from 0 to " + std::to_string(Sexagesimal::kMaxPlaces) +
+                                   ", found " + Quote(v));
+  }
+  return n;
+}
+
+Sexagesimal Parser::Number(const AttributeAst& a, std::string_view line) {
+  NumberSyntaxError error;
+  auto value = Sexagesimal::Parse(a.value, &error);
+  if (!value) {
+    Fail(line, a.value_offset, "expected a number such as 0;30 for " + a.name + "=, found " +
+                                   Quote(a.value));
+  }
+  return *value;
+}
+
+void Parser::SetWork(const DirectiveAst& d, std::string_view line) {
+  RequireId(d, line, "a work id");
+  CheckAttributes(d, line, {"title", "author"});
+  work_ = WorkInfo{};
+  work_.id = d.id;
+  for (const auto& a : d.attributes) (a.name == "title" ? work_.title : work_.author) = a.value;
+  have_work_ = true;
+}
+
+void Parser::SetWitness(const DirectiveAst& d, std::string_view line) {
+  RequireId(d, line, "a siglum");
+  CheckAttributes(d, line, {"library", "shelfmark", "date", "script", "note"});
+  witness_ = WitnessInfo{};
+  witness_.siglum = d.id;
+  for (const auto& a : d.attributes) {
+    if (a.name == "library") witness_.library = a.value;
+    if (a.name == "shelfmark") witness_.shelfmark = a.value;
+    if (a.name == "date") witness_.date = a.value;
+    if (a.name == "script") witness_.script = a.value;
+    if (a.name == "note") witness_.note = a.value;
+  }
+  have_witness_ = true;
+}
+
+void Parser::OpenTable(const DirectiveAst& d, std::string_view line) {
+  if (!have_work_ || !have_witness_) {
+    Fail(line, d.keyword_offset, std::string("expected ") + (have_work_ ? "@witness" : "@work") +
+                                     " before @table, found '@table'");
+  }
+  RequireId(d, line, "a table id");
+  CheckAttributes(d, line, {"title", "kind", "folios", "hand"});
+  table_ = Transcription{};
+  table_.work = work_;
+  table_.witness = witness_;
+  table_.table_id = d.id;
+  for (const auto& a : d.attributes) {
+    if (a.name == "title") table_.table_title = a.value;
+    if (a.name == "kind") table_.kind = a.value;
+    if (a.name == "folios") table_.folios = a.value;
+    if (a.name == "hand") table_.hand = a.value;
+  }
+  table_.source_file = file_;
+  phase_ = Phase::kLayout;
+  have_argument_ = false;
+  table_line_ = line_no_;
+  table_line_text_ = std::string(line);
+  table_start_ = line_start_;
+  seen_arguments_.clear();
+}
+
+void Parser::RequireLayout(const DirectiveAst& d, std::string_view line) {
+  const std::string found = "'@" + d.keyword + "'";
+  if (phase_ == Phase::kOutside) {
+    Fail(line, d.keyword_offset, "expected @table before @" + d.keyword + ", found " + found);
+  }
+  if (phase_ == Phase::kRows) {
+    Fail(line, d.keyword_offset, "expected a row, @table, @work or @witness after the rows of table '" +
+                                     table_.table_id + "', found " + found);
+  }
+}
+
+void Parser::SetArgument(const DirectiveAst& d, std::string_view line, bool second) {
+  const bool again = second ? table_.argument2.has_value() : have_argument_;
+  if (again) Fail(line, d.keyword_offset, "expected one @" + d.keyword + " per table, found a second one");
+  if (second && !table_.columns.empty()) {
+    Fail(line, d.keyword_offset, "expected @argument2 before the @column lines, found '@argument2'");
+  }
+  RequireId(d, line, "an argument name");
+  if (second) {
+    CheckAttributes(d, line, {"unit", "places"});
+  } else {
+    CheckAttributes(d, line, {"unit", "places", "start", "step"});
+  }
+  ArgumentSpec spec;
+  spec.name = d.id;
+  for (const auto& a : d.attributes) {
+    if (a.name == "unit") spec.unit = a.value;
+    if (a.name == "places") spec.places = Places(a, line);
+    if (a.name == "start") spec.start = Number(a, line);
+    if (a.name == "step") spec.step = Number(a, line);
+  }
+  if (second) {
+    table_.argument2 = spec;
+  } else {
+    table_.argument = spec;
+    have_argument_ = true;
+  }
+}
+
+void Parser::AddColumn(const DirectiveAst& d, std::string_view line) {
+  RequireId(d, line, "a column name");
+  CheckAttributes(d, line, {"unit", "places", "title", "arg2"});
+  if (table_.ColumnIndex(d.id) >= 0 || (have_argument_ && table_.argument.name == d.id)) {
+    Fail(line, d.id_offset, "expected a new column name, found " + Quote(d.id) + " again");
+  }
+  ColumnSpec column;
+  column.name = d.id;
+  for (const auto& a : d.attributes) {
+    if (a.name == "unit") column.unit = a.value;
+    if (a.name == "places") column.places = Places(a, line);
+    if (a.name == "title") column.title = a.value;
+    if (a.name == "arg2") {
+      if (!table_.argument2) {
+        Fail(line, a.name_offset, "expected @argument2 before a column with arg2=, found 'arg2'");
+      }
+      column.arg2 = Number(a, line);
+    }
+  }
+  if (table_.argument2 && !column.arg2) {
+    Fail(line, d.end_offset, "expected arg2=VALUE on each column of a table with @argument2, found " +
+                                 FoundChar(line, d.end_offset));
+  }
+  table_.columns.push_back(std::move(column));
+}
+
+void Parser::StartRows(const DirectiveAst& d, std::string_view line) {
+  if (!d.id.empty() || !d.attributes.empty()) {
+    const std::size_t at = d.id.empty() ? d.attributes[0].name_offset : d.id_offset;
+    Fail(line, at, "expected nothing after @rows, found " + FoundToken(line, at));
+  }
+  if (!have_argument_) Fail(line, d.keyword_offset, "expected @argument before @rows, found '@rows'");
+  if (table_.columns.empty()) {
+    Fail(line, d.keyword_offset, "expected at least one @column before @rows, found '@rows'");
+  }
+  phase_ = Phase::kRows;
+  rows_line_ = line_no_;
+  rows_line_text_ = std::string(line);
+  table_end_ = line_start_ + line.size();
+}
+
+void Parser::CloseTable(const std::string& found) {
+  if (phase_ == Phase::kOutside) return;
+  if (phase_ == Phase::kLayout) {
+    throw InputError(Make(Severity::kError, table_line_, table_line_text_, 0,
+                          "expected a @rows line in table '" + table_.table_id + "', found " + found));
+  }
+  if (table_.rows.empty()) {
+    throw InputError(Make(Severity::kError, rows_line_, rows_line_text_, 0,
+                          "expected at least one row after @rows, found " + found));
+  }
+  table_.source_text = std::string(text_.substr(table_start_, table_end_ - table_start_));
+  out_.tables.push_back(std::move(table_));
+  table_ = Transcription{};
+  phase_ = Phase::kOutside;
+}
+
+std::string Parser::ColumnList() const {
+  std::string list;
+  constexpr std::size_t kShown = 6;
+  for (std::size_t i = 0; i < table_.columns.size() && i < kShown; ++i) {
+    list += (i ? ", " : "") + table_.columns[i].name;
+  }
+  if (table_.columns.size() > kShown) list += ", ...";
+  return list;
+}
+
+void Parser::RowLine(std::string_view line, std::size_t at) {
+  if (phase_ != Phase::kRows) {
+    if (phase_ == Phase::kLayout) {
+      Fail(line, at, "expected @rows before the first row, found " + FoundToken(line, at));
+    }
+    Fail(line, at, std::string("expected a directive (") + kDirectives + "), found " +
+                       FoundToken(line, at));
+  }
+  Row row;
+  row.line = line_no_;
+  row.cells.reserve(table_.columns.size());
+  std::size_t argument_offset = 0;
+  try {
+    ParseRowCells(line, at, row, argument_offset);
+  } catch (const LineError& e) {
+    Fail(line, e.offset, e.message);
+  }
+  CheckArgument(row, line, argument_offset);
+  table_.rows.push_back(std::move(row));
+  table_end_ = line_start_ + line.size();
+}
+
+void Parser::ParseRowCells(std::string_view line, std::size_t pos, Row& row,
+                           std::size_t& argument_offset) {
+  ColumnCounter columns(line);
+  const std::size_t wanted = table_.columns.size();
+  for (std::size_t n = 0;; ++n) {
+    if (n > wanted) {
+      while (pos < line.size() && IsBlank(line[pos])) ++pos;
+      throw LineError{pos, "expected " + std::to_string(wanted) + " value cells (" + ColumnList() +
+                               "), found an extra cell"};
+    }
+    const bool is_argument = n == 0;
+    const int places = is_argument ? table_.argument.places : table_.columns[n - 1].places;
+    Cell& cell = is_argument ? row.argument : row.cells.emplace_back();
+    std::size_t offset = 0;
+    const ReadingInfo info = ParseCell(line, pos, places, cell, offset);
+    cell.places = places;
+    cell.line = line_no_;
+    cell.column = columns.At(offset);
+    if (is_argument) argument_offset = offset;
+    const bool has_places = info.state == CellState::kRead || info.state == CellState::kPartial;
+    if (has_places && info.fraction_places != places) {
+      const std::string where = is_argument ? "the argument '" + table_.argument.name + "'"
+                                            : "column '" + table_.columns[n - 1].name + "'";
+      throw LineError{offset, "expected a reading with " + PlacesWords(places) + " in " + where +
+                                  ", found " + Quote(cell.raw) + " (" +
+                                  PlacesWords(info.fraction_places) + ")"};
+    }
+    if (pos >= line.size() || line[pos] == '#') break;
+    ++pos;  // the '|'
+  }
+  if (row.cells.size() < wanted) {
+    std::size_t end = pos;
+    while (end > 0 && IsBlank(line[end - 1])) --end;
+    throw LineError{end, "expected " + std::to_string(wanted) + " value cells (" + ColumnList() +
+                             "), found " + std::to_string(row.cells.size())};
+  }
+}
+
+void Parser::CheckArgument(const Row& row, std::string_view line, std::size_t offset) {
+  const Cell& a = row.argument;
+  if (a.state != CellState::kRead) return;
+  const auto expected = table_.ExpectedArgument(table_.rows.size());
+  if (expected && *expected != *a.value) {
+    out_.warnings.push_back(Make(Severity::kWarning, line_no_, line, offset,
+                                 "expected argument " + expected->ToString() + " from start " +
+                                     table_.argument.start->ToString() + " and step " +
+                                     table_.argument.step->ToString() + ", found " + Quote(a.raw)));
+  }
+  // Every argument has the argument's places, so units compare exactly.
+  auto [it, inserted] = seen_arguments_.emplace(a.value->units(), line_no_);
+  if (!inserted) {
+    out_.warnings.push_back(Make(Severity::kWarning, line_no_, line, offset,
+                                 "expected each argument once, found " + Quote(a.raw) +
+                                     " again (first in line " + std::to_string(it->second) + ")"));
+  }
+}
+
+}  // namespace
+}  // namespace transcription
+
+TranscriptionFile ParseTranscription(std::string_view text, const std::string& file_name) {
+  if (text.empty()) throw InputError::ForFile(file_name, "expected a transcription, found an empty file");
+  return transcription::Parser(text, file_name).Run();
+}
+
+TranscriptionFile ReadTranscriptionFile(const std::string& path) {
+  std::error_code ec;
+  if (std::filesystem::is_directory(path, ec)) {
+    throw InputError::ForFile(path, "expected a transcription file, found a directory");
+  }
+  std::ifstream in(path, std::ios::binary);
+  if (!in) throw InputError::ForFile(path, "expected a readable file, found none (missing or not permitted)");
+  std::string text;
+  in.seekg(0, std::ios::end);
+  const std::streamoff size = in.tellg();
+  in.seekg(0, std::ios::beg);
+  if (size > 0) {
+    text.resize(static_cast<std::size_t>(size));
+    in.read(text.data(), size);
+    text.resize(static_cast<std::size_t>(in.gcount()));
+  } else {
+    text.assign(std::istreambuf_iterator<char>(in), std::istreambuf_iterator<char>());
+  }
+  if (in.bad()) throw InputError::ForFile(path, "expected a readable file, found a read error");
+  return ParseTranscription(text, path);
+}
+
+}  // namespace apograph

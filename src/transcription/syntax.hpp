@@ -1,0 +1,96 @@
+#pragma once
+// Internal to src/transcription: the line-level pieces that the Spirit X3
+// translation units (parser_x3.cpp, cell_x3.cpp) recognise and the driver
+// (parser.cpp, csv.cpp) assembles. No Spirit types appear here.
+
+#include <cstddef>
+#include <optional>
+#include <stdexcept>
+#include <string>
+#include <string_view>
+#include <vector>
+
+#include "edition/transcription.hpp"
+
+namespace apograph::transcription {
+
+/// A syntax error inside one line: byte offset in the line and the message
+/// ("expected ..., found ..."). The driver turns it into a Diagnostic.
+struct LineError {
+  std::size_t offset = 0;
+  std::string message;
+};
+
+/// `'x'` for the character at `offset` (a whole UTF-8 sequence), or
+/// "end of line" past the end.
+std::string FoundChar(std::string_view line, std::size_t offset);
+/// The token starting at `offset` up to a blank or one of `|{}#=`, quoted;
+/// "end of line" past the end.
+std::string FoundToken(std::string_view line, std::size_t offset);
+
+/// Checks that `text` is UTF-8 without NUL or control characters other than
+/// TAB, LF and the CR of CR LF. Throws InputError at the first bad byte
+/// (line and column in code points).
+void CheckText(std::string_view text, const std::string& file);
+
+/// Converts byte offsets of one line into 1-based columns in code points,
+/// cheaply when asked in increasing order.
+class ColumnCounter {
+ public:
+  explicit ColumnCounter(std::string_view line) : line_(line) {}
+  int At(std::size_t offset);
+
+ private:
+  std::string_view line_;
+  std::size_t offset_ = 0;
+  int column_ = 1;
+};
+
+/// One NAME=VALUE of a directive; value unescaped.
+struct AttributeAst {
+  std::string name;
+  std::string value;
+  std::size_t name_offset = 0;
+  std::size_t value_offset = 0;
+};
+
+/// A directive line: `@keyword [id] {name=value}`.
+struct DirectiveAst {
+  std::string keyword;  ///< without '@'
+  std::size_t keyword_offset = 0;  ///< where '@' stands
+  std::string id;  ///< empty when none was written
+  std::size_t id_offset = 0;
+  std::size_t end_offset = 0;  ///< where the directive ends (comment or end of line)
+  std::vector<AttributeAst> attributes;
+};
+
+/// Parses the directive starting at `offset` ('@'). Throws LineError.
+DirectiveAst ParseDirective(std::string_view line, std::size_t offset);
+
+/// What a reading (the text of a cell without its marks) says.
+struct ReadingInfo {
+  CellState state = CellState::kRead;
+  std::optional<Sexagesimal> value;  ///< when state == kRead
+  int fraction_places = 0;  ///< places written after the integer part
+};
+
+/// Parses a trimmed, non-empty reading: `_`, `?`, or a number (trade,
+/// degree or blank-separated form; places may be `?`). `places` is the
+/// column's places, needed to split the blank-separated form; -1 when not
+/// known (then that form is refused). `base` is the reading's offset in its
+/// line, for error positions. Throws LineError.
+ReadingInfo ParseReading(std::string_view text, int places, std::size_t base);
+
+/// Parses one cell of a row starting at `pos` (blanks allowed): its reading
+/// and marks, up to '|', '#' or the end of the line, where `pos` is left.
+/// Fills raw, state, value and marks of `cell`; returns the reading's
+/// fraction places. `reading_offset` receives where the reading starts.
+/// Throws LineError.
+ReadingInfo ParseCell(std::string_view line, std::size_t& pos, int places, Cell& cell,
+                      std::size_t& reading_offset);
+
+/// Parses a quoted string at `pos` ('"'), unescaping \" and \\; `pos` is
+/// left after the closing quote. Throws LineError.
+std::string ParseQuoted(std::string_view line, std::size_t& pos);
+
+}  // namespace apograph::transcription
