@@ -1,16 +1,144 @@
-// Placeholder until this subcommand is written: it refuses plainly.
+// apograph export: one witness's table (any revision) back as a
+// transcription, a CSV sheet or JSON.
 #include "cli/command.hpp"
 
+#include <cstdio>
+#include <filesystem>
+#include <fstream>
 #include <ostream>
+
+#include <nlohmann/json.hpp>
+
+#include "store/edition_store.hpp"
+#include "transcription/csv.hpp"
+#include "transcription/writer.hpp"
 
 namespace apograph::cli {
 
-extern const char kExportUsage[] = "apograph export (not yet available)";
+extern const char kExportUsage[] =
+    "usage: apograph export --table ID --witness SIGLUM [--revision N]\n"
+    "                       [--format transcription|csv|json] [--output FILE] [--db FILE]\n"
+    "\n"
+    "Writes one witness's copy of a table as stored: the current revision, or\n"
+    "revision N. The transcription format re-imports to identical content\n"
+    "(cells, readings, marks, metadata); CSV holds the readings only; JSON\n"
+    "holds everything, with each cell's exact value and provenance.\n"
+    "\n"
+    "examples:\n"
+    "  apograph export --table sun-eq --witness K > sun-eq-K.apo\n"
+    "  apograph export --table sun-eq --witness K --revision 1 --format json --output k1.json";
+
+namespace {
+
+nlohmann::ordered_json ValueJson(const std::optional<Sexagesimal>& v) {
+  return v ? nlohmann::ordered_json(v->ToString()) : nlohmann::ordered_json(nullptr);
+}
+
+nlohmann::ordered_json CellJson(const Cell& c) {
+  return {{"raw", c.raw},
+          {"value", ValueJson(c.value)},
+          {"decimal", c.value ? nlohmann::ordered_json(c.value->ToDouble()) : nlohmann::ordered_json(nullptr)},
+          {"places", c.places},
+          {"state", ToString(c.state)},
+          {"damaged", c.damaged},
+          {"doubtful", c.doubtful},
+          {"addition", ToString(c.addition)},
+          {"corrected_from", c.corrected_from ? nlohmann::ordered_json(*c.corrected_from) : nlohmann::ordered_json(nullptr)},
+          {"note", c.note},
+          {"line", c.line},
+          {"column", c.column}};
+}
+
+nlohmann::ordered_json ArgumentJson(const ArgumentSpec& a) {
+  return {{"name", a.name}, {"unit", a.unit}, {"places", a.places},
+          {"start", ValueJson(a.start)}, {"step", ValueJson(a.step)}};
+}
+
+nlohmann::ordered_json TranscriptionJson(const Transcription& t, int revision) {
+  nlohmann::ordered_json j = {
+      {"table", t.table_id}, {"title", t.table_title}, {"kind", t.kind},
+      {"work", {{"id", t.work.id}, {"title", t.work.title}, {"author", t.work.author}}},
+      {"witness", {{"siglum", t.witness.siglum}, {"library", t.witness.library},
+                   {"shelfmark", t.witness.shelfmark}, {"date", t.witness.date},
+                   {"script", t.witness.script}, {"note", t.witness.note}}},
+      {"folios", t.folios}, {"hand", t.hand}, {"revision", revision},
+      {"source_file", t.source_file}, {"argument", ArgumentJson(t.argument)},
+      {"argument2", t.argument2 ? ArgumentJson(*t.argument2) : nlohmann::ordered_json(nullptr)}};
+  j["columns"] = nlohmann::ordered_json::array();
+  for (const auto& c : t.columns) {
+    j["columns"].push_back({{"name", c.name}, {"unit", c.unit}, {"places", c.places},
+                            {"title", c.title}, {"arg2", ValueJson(c.arg2)}});
+  }
+  j["rows"] = nlohmann::ordered_json::array();
+  for (const auto& r : t.rows) {
+    nlohmann::ordered_json cells = nlohmann::ordered_json::array();
+    for (const auto& c : r.cells) cells.push_back(CellJson(c));
+    j["rows"].push_back({{"line", r.line}, {"argument", CellJson(r.argument)}, {"cells", cells}});
+  }
+  return j;
+}
+
+/// Writes beside the target, then renames: a failed export never leaves a
+/// half-written file in place of a good one.
+void WriteFile(const std::string& path, const std::string& text) {
+  const std::string tmp = path + ".tmp";
+  {
+    std::ofstream out(tmp, std::ios::binary);
+    out << text;
+    out.flush();
+    if (!out) {
+      std::remove(tmp.c_str());
+      throw InputError::ForOption("--output", ExpectedFound("a writable file", "'" + path + "'"));
+    }
+  }
+  std::error_code ec;
+  std::filesystem::rename(tmp, path, ec);
+  if (ec) {
+    std::remove(tmp.c_str());
+    throw InputError::ForOption("--output", ExpectedFound("a writable file", "'" + path + "' (" + ec.message() + ")"));
+  }
+}
+
+}  // namespace
 
 int RunExport(const std::vector<std::string>& args, Io& io) {
-  (void)args;
-  io.err << "apograph export: not yet available in this build\n";
-  return kInternal;
+  std::string db_path, format, table, witness, output;
+  int revision = 0;
+  po::options_description options("options");
+  AddDbOption(options, db_path);
+  options.add_options()
+      ("table", po::value(&table)->required(), "the table id")
+      ("witness", po::value(&witness)->required(), "the witness's siglum")
+      ("revision", po::value(&revision), "revision number (default: the current one)")
+      ("output", po::value(&output), "write to FILE instead of standard output");
+  AddFormatOption(options, format, {"transcription", "csv", "json"});
+  po::variables_map vm;
+  if (ParseOptions(FindCommand("export"), args, options, vm, io)) return kOk;
+  CheckChoice("--format", format, {"transcription", "csv", "json"});
+  if (vm.count("revision") && revision < 1) {
+    throw InputError::ForOption("--revision", ExpectedFound("a revision number from 1", std::to_string(revision)));
+  }
+  if (!std::filesystem::exists(db_path)) {
+    throw InputError::ForFile(db_path, "expected an edition database, found no such file (see apograph init)");
+  }
+  store::Database db(db_path);
+  const std::optional<int> wanted = vm.count("revision") ? std::optional<int>(revision) : std::nullopt;
+  const Transcription t = store::Load(db, table, witness, wanted);
+  std::string text;
+  if (format == "csv") {
+    text = WriteCsv(t);
+  } else if (format == "json") {
+    const int number = wanted ? *wanted : store::CurrentRevision(db, table, witness);
+    text = TranscriptionJson(t, number).dump(2) + "\n";
+  } else {
+    text = WriteTranscription(t);
+  }
+  if (output.empty()) {
+    io.out << text;
+  } else {
+    WriteFile(output, text);
+  }
+  return kOk;
 }
 
 }  // namespace apograph::cli

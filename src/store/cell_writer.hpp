@@ -16,8 +16,8 @@ namespace apograph::store {
 class CellWriter {
  public:
   /// Cells per multi-row INSERT: fewer statement executions (each opens and
-  /// closes cursors); 32 * 10 parameters stay far below SQLite's limit.
-  static constexpr int kBatch = 32;
+  /// closes cursors); 64 * 10 parameters stay far below SQLite's limit.
+  static constexpr int kBatch = 64;
 
   explicit CellWriter(Database& db);
 

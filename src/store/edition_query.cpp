@@ -174,6 +174,14 @@ bool HasTranscription(Database& db, const std::string& table_id, const std::stri
   return s.Step();
 }
 
+int CurrentRevision(Database& db, const std::string& table_id, const std::string& siglum) {
+  auto s = db.Prepare(
+      "SELECT max(r.number) FROM transcription t JOIN revision r ON r.transcription_id = t.id "
+      "WHERE t.table_id = ?1 AND t.siglum = ?2");
+  s.Bind(1, table_id).Bind(2, siglum);
+  return s.Step() && !s.IsNull(0) ? static_cast<int>(s.Int(0)) : 0;
+}
+
 std::vector<WorkSummary> ListWorks(Database& db) {
   auto s = db.Prepare(
       "SELECT work_id, title, author, tables, witnesses, cells FROM work_summary ORDER BY work_id");

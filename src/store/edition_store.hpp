@@ -62,6 +62,9 @@ std::vector<std::string> Sigla(Database& db, const std::string& table_id);
 /// The ids of the tables of a work, sorted.
 std::vector<std::string> TablesOfWork(Database& db, const std::string& work_id);
 
+/// The number of the current revision of a transcription, 0 when there is none.
+int CurrentRevision(Database& db, const std::string& table_id, const std::string& siglum);
+
 /// True when the database holds a transcription of this table by this witness.
 bool HasTranscription(Database& db, const std::string& table_id, const std::string& siglum);
 

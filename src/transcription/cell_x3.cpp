@@ -267,7 +267,7 @@ void ParseMark(std::string_view line, std::size_t& pos, int places, Cell& cell) 
   boost::iterator_range<Iterator> word;
   x3g::Run(line, pos, kMarkHead, word);
   const auto word_offset = static_cast<std::size_t>(word.begin() - line.begin());
-  const std::string_view kind(&*word.begin(), static_cast<std::size_t>(word.size()));
+  const std::string_view kind = line.substr(word_offset, static_cast<std::size_t>(word.size()));
   auto once = [&](bool already) {
     if (already) {
       Fail(word_offset, "expected each mark once per cell, found a second {" + std::string(kind) + "}");

@@ -432,7 +432,12 @@ void Parser::ParseRowCells(std::string_view line, std::size_t pos, Row& row,
 void Parser::CheckArgument(const Row& row, std::string_view line, std::size_t offset) {
   const Cell& a = row.argument;
   if (a.state != CellState::kRead) return;
-  const auto expected = table_.ExpectedArgument(table_.rows.size());
+  std::optional<Sexagesimal> expected;
+  try {
+    expected = table_.ExpectedArgument(table_.rows.size());
+  } catch (const std::overflow_error&) {
+    // start + i * step left the range of exact values: nothing to compare.
+  }
   if (expected && *expected != *a.value) {
     out_.warnings.push_back(Make(Severity::kWarning, line_no_, line, offset,
                                  "expected argument " + expected->ToString() + " from start " +

@@ -199,3 +199,16 @@ TEST_CASE("arguments that repeat or break the declared step are warnings, rows k
         "3 | 7\n"
         "^");
 }
+
+TEST_CASE("values at the limits of exact numbers are errors or skipped checks, never crashes") {
+  const std::string layout = std::string(kHeader) + "@table t\n@argument a start=999999999999 step=999999999999\n"
+                                                    "@column c\n@rows\n";
+  const auto file = Parse(layout + "1 | 2\n2 | 3\n3 | 4\n");  // start + 2 * step overflows
+  CHECK(file.tables.at(0).rows.size() == 3);
+  try {
+    ParseTranscription(layout + "1 | 1000000000000\n", "t.apo");
+    FAIL("no error");
+  } catch (const apograph::InputError& e) {
+    CHECK(e.diagnostics().front().message == "expected an integer part below 10^12, found '1000000000000'");
+  }
+}
