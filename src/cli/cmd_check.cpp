@@ -278,7 +278,8 @@ int RunCheck(const std::vector<std::string>& args, Io& io) {
   const int column = ResolveColumn(t, o, formula.get());
   const auto params = model::ParamsWithOverrides(m, overrides);
   const model::CheckReport r = model::Check(t, m, params, practice, tolerance, column);
-  const auto stored_revision = revision ? revision : store::CurrentRevision(db, o.table, o.witness);
+  const int current = store::CurrentRevision(db, o.table, o.witness);
+  const std::optional<int> stored_revision = revision ? revision : (current > 0 ? std::optional<int>(current) : std::nullopt);
   const std::int64_t run = store::SaveCheckRun(db, r, stored_revision, formula_text);
   switch (ParseFormat(o.format)) {
     case Format::kJson: io.out << ToJson(r, stored_revision, formula_text, run).dump(2) << "\n"; break;

@@ -78,16 +78,6 @@ std::vector<SavedFormula> ListFormulas(Database& db) {
   return out;
 }
 
-std::optional<int> CurrentRevision(Database& db, const std::string& table_id,
-                                   const std::string& siglum) {
-  auto s = db.Prepare(
-      "SELECT max(r.number) FROM revision r JOIN transcription t ON t.id = r.transcription_id "
-      "WHERE t.table_id = ?1 AND t.siglum = ?2");
-  s.Bind(1, table_id).Bind(2, siglum);
-  if (!s.Step() || s.IsNull(0)) return std::nullopt;
-  return static_cast<int>(s.Int(0));
-}
-
 std::int64_t SaveCheckRun(Database& db, const model::CheckReport& report,
                           std::optional<int> revision,
                           const std::optional<std::string>& formula_text) {

@@ -28,9 +28,7 @@ std::optional<SavedFormula> FindFormula(Database& db, const std::string& name);
 /// All saved formulas, by name.
 std::vector<SavedFormula> ListFormulas(Database& db);
 
-/// The current revision number of a witness's copy of a table, if any.
-std::optional<int> CurrentRevision(Database& db, const std::string& table_id,
-                                   const std::string& siglum);
+// CurrentRevision: see store/edition_store.hpp (0 when there is none).
 
 /// Stores one check run (its practice, parameters, summary and every entry)
 /// in one transaction and returns its id. `formula_text` is the text when the
