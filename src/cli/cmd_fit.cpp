@@ -69,7 +69,7 @@ int RunFit(const std::vector<std::string>& args, Io& io) {
   po::options_description opts("options");
   opts.add_options()("table", po::value(&a.table)->required(), "table id")
       ("witness", po::value(&a.witness)->required(), "siglum of the witness")
-      ("model", po::value(&a.model)->required(), "model name (see apograph check --help)")
+      ("model", po::value(&a.model)->required(), "built-in model or saved formula (see apograph check --help)")
       ("column", po::value(&a.columns), "value column (repeat to fit jointly; default: every column)")
       ("fix", po::value(&a.fixes), "hold a parameter: NAME=VALUE (repeatable)")
       ("rounding", po::value(&a.rounding)->default_value("nearest"), "nearest or truncate")
@@ -87,9 +87,10 @@ int RunFit(const std::vector<std::string>& args, Io& io) {
   if (ParseOptions(cmd, args, opts, vm, io)) return kOk;
   CheckChoice("--format", a.format, {"text", "json"});
   CheckChoice("--solver", a.solver, {"fast", "ceres"});
-  const model::Model& m = FindModelOrThrow(a.model);
-  const estimate::FitOptions options = Options(a, m);
   store::Database db(a.db);
+  std::unique_ptr<model::Model> holder;
+  const model::Model& m = FindModelOrThrow(a.model, db, holder);
+  const estimate::FitOptions options = Options(a, m);
   const Transcription t = store::Load(db, a.table, a.witness);
   const std::vector<int> columns = estimate::ResolveColumns(t, a.columns);
   const auto catalog = LoadCatalog(db);

@@ -24,8 +24,9 @@ extern const char kIdentifyUsage[] =
     "usage: apograph identify --table ID --witness SIGLUM [--column NAME] [--top N]\n"
     "                         [--format text|json] [--db FILE]\n"
     "       apograph identify --all [--top N] [--threads N] [--format text|csv|json] [--db FILE]\n\n"
-    "Tries every applicable built-in model with rounding and truncation, a displacement\n"
-    "constant, and interpolation grids that fit the argument range; ranks them by\n"
+    "Tries every applicable built-in model and saved formula with rounding and truncation,\n"
+    "a displacement constant, and interpolation grids that fit the argument range; ranks\n"
+    "them by\n"
     "  score = sum of log P(difference in units) - (free parameters / 2) ln(entries)\n"
     "(P: 98% author's values, 0.1^|d| per unit off; 2% copyist's slips spread over the\n"
     "column's range), and says when two explanations tie and what tells them apart.\n"
@@ -147,6 +148,8 @@ int RunIdentify(const std::vector<std::string>& args, Io& io) {
   options.top = top;
   store::Database database(db);
   const auto catalog = LoadCatalog(database);
+  const auto formulas = SavedFormulaModels(database);
+  for (const auto& f : formulas) options.extra_models.push_back(f.get());
   std::vector<Job> jobs;
   std::vector<store::RevisionSummary> which;
   if (all) which = store::ListTranscriptions(database);

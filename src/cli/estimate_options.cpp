@@ -2,7 +2,9 @@
 
 #include <cstdlib>
 
+#include "model/formula.hpp"
 #include "store/estimate_store.hpp"
+#include "store/model_store.hpp"
 #include "support/input_error.hpp"
 
 namespace apograph::cli {
@@ -22,11 +24,29 @@ std::vector<estimate::CatalogEntry> LoadCatalog(store::Database& db) {
   return all;
 }
 
-const model::Model& FindModelOrThrow(const std::string& name) {
+const model::Model& FindModelOrThrow(const std::string& name, store::Database& db,
+                                     std::unique_ptr<model::Model>& holder) {
   if (const model::Model* m = model::FindBuiltinModel(name)) return *m;
+  if (auto saved = store::FindFormula(db, name)) {
+    holder = model::CompileFormula(saved->text, saved->name, "formula " + saved->name);
+    return *holder;
+  }
   std::string known;
   for (const auto* m : model::BuiltinModels()) known += (known.empty() ? "" : ", ") + m->name();
-  throw InputError::ForOption("--model", ExpectedFound("a model (" + known + ")", name));
+  for (const auto& f : store::ListFormulas(db)) known += ", " + f.name;
+  throw InputError::ForOption("--model", ExpectedFound("a model or saved formula (" + known + ")", name));
+}
+
+std::vector<std::unique_ptr<model::Model>> SavedFormulaModels(store::Database& db) {
+  std::vector<std::unique_ptr<model::Model>> out;
+  for (const auto& f : store::ListFormulas(db)) {
+    try {
+      out.push_back(model::CompileFormula(f.text, f.name, "formula " + f.name));
+    } catch (const InputError&) {
+      // A saved formula that no longer compiles is skipped (formula show says why).
+    }
+  }
+  return out;
 }
 
 }  // namespace apograph::cli

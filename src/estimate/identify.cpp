@@ -33,7 +33,11 @@ bool Applicable(const model::Model& m, const Transcription& table, const std::ve
     model::RowContext ctx{obs[i].arg, col.arg2 ? std::optional<double>(col.arg2->ToDouble()) : std::nullopt,
                           &table, obs[i].row, obs[i].column};
     ++tried;
-    bad += !std::isfinite(m.Evaluate(p, ctx));
+    try {
+      bad += !std::isfinite(m.Evaluate(p, ctx));
+    } catch (const std::exception&) {  // e.g. a formula reading a column this table lacks
+      return false;
+    }
   }
   return tried > 0 && bad * 5 <= tried;
 }
@@ -133,9 +137,11 @@ Identification Identify(const Transcription& table, int column, const IdentifyOp
   const double unit = std::pow(60.0, -obs.front().places);
   for (const model::Model* m : models) {
     if (IsMeanMotion(*m) != mean_motion || !Applicable(*m, table, obs)) continue;
-    for (Rounding r : {Rounding::kNearest, Rounding::kTruncate}) {
+    // Rounding and truncation shift an estimate by half a unit at most, so
+    // the screen ranks families under rounding; both are refitted below.
+    for (Rounding r : {Rounding::kNearest}) {
       for (bool disp : {false, true}) {
-        if (disp && (!options.try_displacement || r != Rounding::kNearest || mean_motion)) continue;
+        if (disp && (!options.try_displacement || mean_motion)) continue;
         FitOptions fo;
         fo.practice.rounding = r;
         fo.fit_displacement = disp;
@@ -170,7 +176,10 @@ Identification Identify(const Transcription& table, int column, const IdentifyOp
     all.push_back(std::move(c));
   };
   for (std::size_t i = 0; i < screen.size() && i < static_cast<std::size_t>(options.refine + 3); ++i) {
-    refit(screen[i], screen[i].fit.practice.rounding, 0);
+    for (Rounding r : {Rounding::kNearest, Rounding::kTruncate}) {
+      refit(screen[i], r, 0);
+      ++out.candidates_tried;
+    }
   }
   std::stable_sort(all.begin(), all.end(), by_score);
   // Round 2: the best families with interpolation grids, both roundings.

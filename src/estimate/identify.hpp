@@ -1,10 +1,11 @@
 #pragma once
 /// Which model, parameters and computing practice explain a column.
 ///
-/// Every applicable model is fitted (fit.hpp) under rounding and truncation,
-/// with and without a displacement constant; the best few families are then
-/// tried with interpolation grids that fit the argument range (and the
-/// other rounding). Candidates are ranked by a score (higher is better):
+/// Every applicable model is fitted (fit.hpp) on a subsample of at most 60
+/// entries, with and without a displacement constant; the best six are
+/// refitted on every entry under rounding and under truncation; the best
+/// three families are then tried with the interpolation grids that fit the
+/// argument range (unless a candidate already reproduces every entry). Candidates are ranked by a score (higher is better):
 ///
 ///   score = sum over entries of log P(d) - (k / 2) ln n
 ///
