@@ -107,7 +107,7 @@ double Minimise(FitProblem& p, std::vector<double>& x, double s, int max_iterati
   for (int it = 0; it < max_iterations; ++it) {
     ++out.iterations;
     bool improved = false, small = false;
-    for (int tries = 0; tries < 12 && !improved; ++tries) {
+    for (int tries = 0; tries < 8 && !improved; ++tries) {
       A = newton ? b.H : b.A;
       for (int a = 0; a < k; ++a) A[a * k + a] += lambda * std::max(b.A[a * k + a], 1e-12);
       for (int a = 0; a < k; ++a) A[a * k + a] = std::max(A[a * k + a], 1e-3 * b.A[a * k + a]);

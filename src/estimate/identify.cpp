@@ -1,0 +1,225 @@
+#include "estimate/identify.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <set>
+#include <sstream>
+
+#include "estimate/observations.hpp"
+
+namespace apograph::estimate {
+
+namespace {
+
+constexpr double kAuthor = 0.98;   // share of entries as the author computed them
+constexpr double kRatio = 0.1;     // P(|d| = j+1) / P(|d| = j) for the author's entries
+constexpr double kNearTie = 2.0;   // score difference below which candidates tie
+
+std::string Trimmed(double v) {
+  std::ostringstream o;
+  o << v;
+  return o.str();
+}
+
+bool IsMeanMotion(const model::Model& m) { return m.ParamIndex("modulus") >= 0 && m.ParamIndex("rate") >= 0; }
+
+/// The model gives a finite value for most rows at its defaults.
+bool Applicable(const model::Model& m, const Transcription& table, const std::vector<Observation>& obs) {
+  const std::vector<double> p = m.Defaults();
+  int bad = 0, tried = 0;
+  const std::size_t step = std::max<std::size_t>(1, obs.size() / 20);
+  for (std::size_t i = 0; i < obs.size(); i += step) {
+    const auto& col = table.columns[static_cast<std::size_t>(obs[i].column)];
+    model::RowContext ctx{obs[i].arg, col.arg2 ? std::optional<double>(col.arg2->ToDouble()) : std::nullopt,
+                          &table, obs[i].row, obs[i].column};
+    ++tried;
+    try {
+      bad += !std::isfinite(m.Evaluate(p, ctx));
+    } catch (const std::exception&) {  // e.g. a formula reading a column this table lacks
+      return false;
+    }
+  }
+  return tried > 0 && bad * 5 <= tried;
+}
+
+Candidate MakeCandidate(const model::Model& m, FitResult fit, bool grid) {
+  Candidate c;
+  c.model = &m;
+  c.penalised_parameters = fit.free_parameters + (grid ? 1 : 0);
+  c.score = Score(fit, c.penalised_parameters, &c.log_likelihood);
+  c.fit = std::move(fit);
+  return c;
+}
+
+/// A practice text for comparing two candidates.
+std::string Difference(const Candidate& a, const Candidate& b) {
+  std::vector<std::string> parts;
+  if (a.model != b.model) parts.push_back("the model (" + a.model->name() + " / " + b.model->name() + ")");
+  if (a.PracticeText() != b.PracticeText()) parts.push_back("the practice (" + a.PracticeText() + " / " + b.PracticeText() + ")");
+  std::vector<std::string> args;
+  for (std::size_t i = 0; i < a.fit.entries.size() && i < b.fit.entries.size(); ++i) {
+    const auto& x = a.fit.entries[i].computed;
+    const auto& y = b.fit.entries[i].computed;
+    if (x.has_value() != y.has_value() || (x && !(*x == *y))) args.push_back(Trimmed(a.fit.entries[i].arg));
+  }
+  std::string s;
+  for (std::size_t i = 0; i < parts.size(); ++i) s += (i ? " and " : "") + parts[i];
+  if (args.empty()) return s + "; they compute the same value at every entry, so the entries cannot tell them apart";
+  s += "; their computed values differ at " + std::to_string(args.size()) + " entries (argument";
+  s += args.size() > 1 ? "s " : " ";
+  for (std::size_t i = 0; i < args.size() && i < 8; ++i) s += (i ? ", " : "") + args[i];
+  if (args.size() > 8) s += ", ...";
+  return s + ")";
+}
+
+}  // namespace
+
+std::string Candidate::PracticeText() const {
+  const auto& p = fit.practice;
+  std::string s = p.rounding == Rounding::kTruncate ? "truncated" : "rounded";
+  if (p.places) s += ", " + std::to_string(*p.places) + " places";
+  if (p.grid > 0) s += ", grid " + Trimmed(p.grid) + (p.round_nodes ? " (rounded nodes)" : "");
+  if (p.displacement != 0) s += ", displacement " + Sexagesimal::FromDouble(p.displacement, 2).ToString();
+  return s;
+}
+
+double Score(const FitResult& fit, int penalised, double* log_likelihood) {
+  double lo = 0, hi = 0;
+  for (const auto& e : fit.entries) {
+    const double u = static_cast<double>(e.tabulated.units());
+    lo = std::min(lo, u);
+    hi = std::max(hi, u);
+  }
+  const double slip = (1 - kAuthor) / std::max(hi - lo + 1, 60.0);
+  const double norm = kAuthor * (1 - kRatio) / (1 + kRatio);
+  double ll = 0;
+  for (const auto& e : fit.entries) {
+    const double d = std::isfinite(e.diff_units) ? std::fabs(std::round(e.diff_units)) : 1e9;
+    ll += std::log(norm * std::pow(kRatio, std::min(d, 300.0)) + slip);
+  }
+  if (log_likelihood) *log_likelihood = ll;
+  const double n = std::max<double>(1, static_cast<double>(fit.entries.size()));
+  return ll - 0.5 * penalised * std::log(n);
+}
+
+std::vector<double> CandidateGrids(const Transcription& table) {
+  std::vector<double> args;
+  for (std::size_t r = 0; r < table.rows.size(); ++r) {
+    if (auto a = model::RowArgument(table, r)) args.push_back(*a);
+  }
+  if (args.size() < 6) return {};
+  double step = table.argument.step ? table.argument.step->ToDouble() : args[1] - args[0];
+  if (!(step > 0)) return {};
+  const double range = args.back() - args.front();
+  std::vector<double> out;
+  for (int m : {2, 3, 4, 5, 6, 10, 12, 15, 20, 30}) {
+    if (step * m * 3 <= range) out.push_back(step * m);
+  }
+  return out;
+}
+
+Identification Identify(const Transcription& table, int column, const IdentifyOptions& options) {
+  Identification out;
+  out.column = column;
+  const std::vector<Observation> obs = CollectObservations(table, {column});
+  if (obs.size() < 3) return out;
+  const bool mean_motion = LooksLikeMeanMotion(table, column);
+  if (mean_motion) out.mean_motion = AnalyseMeanMotion(table, column);
+  std::vector<const model::Model*> models = options.models.empty() ? model::BuiltinModels() : options.models;
+  models.insert(models.end(), options.extra_models.begin(), options.extra_models.end());
+  auto by_score = [](const Candidate& a, const Candidate& b) { return a.score > b.score; };
+  // Round 0, on a subsample of at most 60 entries: every applicable family,
+  // rounding and truncation, with and without displacement (nearest only).
+  std::vector<Observation> sub;
+  const std::size_t stride = std::max<std::size_t>(1, (obs.size() + 59) / 60);
+  for (std::size_t i = 0; i < obs.size(); i += stride) sub.push_back(obs[i]);
+  std::vector<Candidate> screen;
+  const double unit = std::pow(60.0, -obs.front().places);
+  for (const model::Model* m : models) {
+    if (IsMeanMotion(*m) != mean_motion || !Applicable(*m, table, obs)) continue;
+    // Rounding and truncation shift an estimate by half a unit at most, so
+    // the screen ranks families under rounding; both are refitted below.
+    for (Rounding r : {Rounding::kNearest}) {
+      for (bool disp : {false, true}) {
+        if (disp && (!options.try_displacement || mean_motion)) continue;
+        FitOptions fo;
+        fo.practice.rounding = r;
+        fo.fit_displacement = disp;
+        fo.max_iterations = 10;
+        Candidate c = MakeCandidate(*m, Fit(*m, table, sub, fo), false);
+        ++out.candidates_tried;
+        // A displacement under one unit of the last place is no displacement
+        // (and truncation plus half a unit is rounding): not a candidate.
+        if (disp && std::fabs(c.fit.practice.displacement) < unit) continue;
+        screen.push_back(std::move(c));
+      }
+    }
+  }
+  std::stable_sort(screen.begin(), screen.end(), by_score);
+  // Round 1: the best of the screen refitted on every entry from its estimate.
+  std::vector<Candidate> all;
+  auto refit = [&](const Candidate& from, Rounding r, double grid) {
+    FitOptions fo;
+    fo.practice.rounding = r;
+    fo.practice.grid = grid;
+    fo.practice.displacement = from.fit.practice.displacement;
+    fo.fit_displacement = from.fit.practice.displacement != 0;
+    for (const auto& p : from.fit.params) {
+      if (!p.fixed) fo.start[p.name] = p.value;
+    }
+    Candidate c = MakeCandidate(*from.model, Fit(*from.model, table, obs, fo), grid > 0);
+    if (fo.fit_displacement && std::fabs(c.fit.practice.displacement) < unit) {  // see the screen
+      fo.fit_displacement = false;
+      fo.practice.displacement = 0;
+      c = MakeCandidate(*from.model, Fit(*from.model, table, obs, fo), grid > 0);
+    }
+    all.push_back(std::move(c));
+  };
+  for (std::size_t i = 0; i < screen.size() && i < static_cast<std::size_t>(options.refine + 3); ++i) {
+    for (Rounding r : {Rounding::kNearest, Rounding::kTruncate}) {
+      refit(screen[i], r, 0);
+      ++out.candidates_tried;
+    }
+  }
+  std::stable_sort(all.begin(), all.end(), by_score);
+  // Round 2: the best families with interpolation grids, both roundings.
+  if (options.try_grids && !mean_motion) {
+    std::vector<Candidate> seeds;
+    std::set<const model::Model*> seen;
+    for (const auto& c : all) {
+      if (static_cast<int>(seeds.size()) >= options.refine) break;
+      if (seen.insert(c.model).second) seeds.push_back(c);
+    }
+    // A grid cannot improve on a column reproduced exactly without one.
+    const bool perfect = !all.empty() && all[0].fit.exact == all[0].fit.n;
+    for (const auto& seed : perfect ? std::vector<Candidate>{} : seeds) {
+      for (double g : CandidateGrids(table)) {
+        refit(seed, seed.fit.practice.rounding, g);
+        ++out.candidates_tried;
+      }
+    }
+    std::stable_sort(all.begin(), all.end(), by_score);
+    if (!perfect && all[0].fit.practice.grid > 0) {  // the best grid under the other rounding
+      const Candidate best = all[0];
+      refit(best, best.fit.practice.rounding == Rounding::kNearest ? Rounding::kTruncate : Rounding::kNearest,
+            best.fit.practice.grid);
+      ++out.candidates_tried;
+      std::stable_sort(all.begin(), all.end(), by_score);
+    }
+  }
+  if (all.empty()) return out;
+  for (std::size_t i = 1; i < all.size() && i < static_cast<std::size_t>(options.top); ++i) {
+    if (all[0].score - all[i].score >= kNearTie) break;
+    std::ostringstream o;
+    o.precision(4);
+    o << all[0].model->name() << " (" << all[0].PracticeText() << ") and " << all[i].model->name() << " ("
+      << all[i].PracticeText() << ") explain the column about equally well (score " << all[0].score << " vs "
+      << all[i].score << "); they differ in " << Difference(all[0], all[i]) << ".";
+    out.notes.push_back(o.str());
+  }
+  if (static_cast<int>(all.size()) > options.top) all.resize(static_cast<std::size_t>(options.top));
+  out.ranked = std::move(all);
+  return out;
+}
+
+}  // namespace apograph::estimate

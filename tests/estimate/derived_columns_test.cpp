@@ -1,0 +1,103 @@
+#include "estimate/derived_columns.hpp"
+
+#include <doctest/doctest.h>
+
+#include <cmath>
+#include <numbers>
+
+namespace apograph::estimate {
+namespace {
+
+double Chord(double a) { return 120.0 * std::sin(a / 2 * std::numbers::pi / 180.0); }
+
+/// Chords at step 0;30 (2 places) with a sixtieths column at 3 places,
+/// made from the tabulated chords or from exact ones.
+Transcription ChordTable(bool from_tabulated) {
+  Transcription t;
+  t.table_id = "chords";
+  t.argument = {"arc", "deg", 1, Sexagesimal::ParseOrThrow("0;30"), Sexagesimal::ParseOrThrow("0;30")};
+  t.columns = {{"chord", "", 2, "", std::nullopt}, {"sixtieths", "", 3, "", std::nullopt}};
+  const int n = 300;
+  for (int i = 0; i < n; ++i) {
+    const double a = 0.5 * (i + 1);
+    const Sexagesimal c0 = Sexagesimal::FromDouble(Chord(a), 2), c1 = Sexagesimal::FromDouble(Chord(a + 0.5), 2);
+    const Sexagesimal six = from_tabulated ? (c1 - c0).Divided(30, 3)
+                                           : Sexagesimal::FromDouble((Chord(a + 0.5) - Chord(a)) / 30, 3);
+    Row row;
+    for (const auto& v : {c0, six}) {
+      Cell cell;
+      cell.value = v;
+      cell.raw = v.ToString();
+      row.cells.push_back(cell);
+    }
+    t.rows.push_back(row);
+  }
+  return t;
+}
+
+std::vector<std::vector<double>> ExactChords(const Transcription& t) {
+  std::vector<std::vector<double>> p(2);
+  for (std::size_t i = 0; i < t.rows.size(); ++i) p[0].push_back(Chord(0.5 * static_cast<double>(i + 1)));
+  return p;
+}
+
+}  // namespace
+
+TEST_CASE("an interpolation column made from the tabulated chords is found, with its basis") {
+  const Transcription t = ChordTable(true);
+  const auto precise = ExactChords(t);
+  const auto found = DetectDerivedColumns(t, &precise);
+  REQUIRE(found.size() == 1);
+  CHECK(found[0].column == 1);
+  CHECK(found[0].source == 0);
+  CHECK(found[0].divisor == 30);
+  CHECK(found[0].relation == "1/30 of the difference to the next row");
+  CHECK(found[0].matched_tabulated == found[0].rows);
+  CHECK(found[0].basis == "tabulated entries");
+}
+
+TEST_CASE("an interpolation column made from exact chords is told apart") {
+  const Transcription t = ChordTable(false);
+  const auto precise = ExactChords(t);
+  const auto found = DetectDerivedColumns(t, &precise);
+  REQUIRE(found.size() == 1);
+  CHECK(found[0].divisor == 30);
+  CHECK(found[0].basis == "precise values");
+  CHECK(found[0].matched_precise > found[0].matched_tabulated);
+}
+
+TEST_CASE("without precise values the smoothed source still recognises the relation") {
+  const auto found = DetectDerivedColumns(ChordTable(true));
+  REQUIRE(found.size() == 1);
+  CHECK(found[0].basis == "tabulated entries");
+}
+
+// Published check. Source: T. L. Heath, *A History of Greek Mathematics*,
+// vol. 2 (Oxford, 1921), chapter on trigonometry, worked values of the
+// ancient chord table: the tabulated difference 0;31,24 gives 0;1,2,48.
+TEST_CASE("published sixtieths: one thirtieth of 0;31,24 is 0;1,2,48") {
+  CHECK(Sexagesimal::ParseOrThrow("0;31,24").Divided(30, 3).Identical(Sexagesimal::ParseOrThrow("0;1,2,48")));
+}
+
+TEST_CASE("a column that is the sum of two others is found") {
+  Transcription t;
+  t.table_id = "sums";
+  t.argument = {"arg", "", 0, Sexagesimal::ParseOrThrow("1"), Sexagesimal::ParseOrThrow("1")};
+  t.columns = {{"a", "", 1, "", std::nullopt}, {"b", "", 1, "", std::nullopt}, {"total", "", 1, "", std::nullopt}};
+  for (int i = 1; i <= 30; ++i) {
+    const Sexagesimal a = Sexagesimal::FromDouble(std::sqrt(i * 7.3), 1), b = Sexagesimal::FromDouble(std::log(i + 2.0) * 11, 1);
+    Row row;
+    for (const auto& v : {a, b, a + b}) {
+      Cell cell;
+      cell.value = v;
+      row.cells.push_back(cell);
+    }
+    t.rows.push_back(row);
+  }
+  const auto found = DetectDerivedColumns(t);
+  bool sum = false;
+  for (const auto& d : found) sum = sum || (d.column == 2 && d.relation == "sum");
+  CHECK(sum);
+}
+
+}  // namespace apograph::estimate

@@ -1,0 +1,102 @@
+#include "estimate/identify.hpp"
+
+#include <doctest/doctest.h>
+
+#include <cmath>
+
+#include "synthetic.hpp"
+
+namespace apograph::estimate {
+namespace {
+
+/// A column made by a built-in model with given parameters.
+testing::SyntheticColumn FromModel(const std::string& name, std::vector<double> params, int places) {
+  const model::Model* m = model::FindBuiltinModel(name);
+  REQUIRE(m != nullptr);
+  testing::SyntheticColumn c;
+  c.places = places;
+  c.f = [m, params](double a) {
+    model::RowContext ctx;
+    ctx.arg = a;
+    return m->Evaluate(params, ctx);
+  };
+  return c;
+}
+
+bool Mentions(const Identification& id, const std::string& text) {
+  for (const auto& n : id.notes) {
+    if (n.find(text) != std::string::npos) return true;
+  }
+  return false;
+}
+
+}  // namespace
+
+TEST_CASE("identify puts the true family first and reports the equivalent one as a tie") {
+  auto c = FromModel("solar-eccentric", {2.0 + 10.0 / 60}, 2);
+  c.errors = {{17, 300}, {200, -45}};
+  const Transcription t = testing::MakeTable("sun", 1, 1, 360, {c});
+  const Identification id = Identify(t, 0);
+  REQUIRE(!id.ranked.empty());
+  const std::string top = id.ranked[0].model->name();
+  CHECK((top == "solar-eccentric" || top == "solar-epicycle"));
+  CHECK(id.ranked[0].fit.practice.rounding == Rounding::kNearest);
+  CHECK(id.ranked[0].fit.practice.grid == 0);
+  CHECK(std::fabs(id.ranked[0].fit.params[0].value - (2.0 + 10.0 / 60)) < 3 * id.ranked[0].fit.params[0].stderr_);
+  // The eccentric and the epicycle model are equivalent here: said, not hidden.
+  CHECK(Mentions(id, "compute the same value at every entry"));
+}
+
+TEST_CASE("identify tells truncation from rounding") {
+  auto c = FromModel("declination", {23.0 + 51.0 / 60 + 20.0 / 3600}, 2);
+  c.rounding = Rounding::kTruncate;
+  const Transcription t = testing::MakeTable("decl", 1, 1, 90, {c});
+  const Identification id = Identify(t, 0);
+  REQUIRE(!id.ranked.empty());
+  CHECK(id.ranked[0].model->name() == "declination");
+  CHECK(id.ranked[0].fit.practice.rounding == Rounding::kTruncate);
+  CHECK(id.ranked[0].fit.exact >= 85);
+  // And the same table rounded is identified as rounded.
+  c.rounding = Rounding::kNearest;
+  const Identification id2 = Identify(testing::MakeTable("decl", 1, 1, 90, {c}), 0);
+  CHECK(id2.ranked[0].fit.practice.rounding == Rounding::kNearest);
+}
+
+TEST_CASE("identify finds an interpolation grid") {
+  auto c = FromModel("sine", {60.0}, 2);
+  c.grid = 6;
+  const Transcription t = testing::MakeTable("sines", 1, 1, 90, {c});
+  const Identification id = Identify(t, 0);
+  REQUIRE(!id.ranked.empty());
+  CHECK(id.ranked[0].model->name() == "sine");
+  CHECK(id.ranked[0].fit.practice.grid == 6);
+  CHECK(id.ranked[0].fit.exact >= 88);
+}
+
+TEST_CASE("identify recognises a displaced table and estimates the constant") {
+  auto c = FromModel("declination", {23.5}, 2);
+  c.displacement = 30.0;
+  const Transcription t = testing::MakeTable("displaced", 1, 1, 90, {c});
+  const Identification id = Identify(t, 0);
+  REQUIRE(!id.ranked.empty());
+  const auto& best = id.ranked[0];
+  CHECK(best.model->name() == "declination");
+  CHECK(std::fabs(best.fit.practice.displacement - 30.0) < 3 * best.fit.displacement_stderr + 1e-6);
+  CHECK(best.PracticeText().find("displacement 30;0") != std::string::npos);
+}
+
+TEST_CASE("the score rewards exact entries and penalises extra parameters") {
+  FitResult a;
+  for (int i = 0; i < 10; ++i) {
+    FitEntry e;
+    e.tabulated = Sexagesimal::FromUnits(i * 100, 1);
+    e.diff_units = 0;
+    a.entries.push_back(e);
+  }
+  FitResult b = a;
+  b.entries[3].diff_units = 1;
+  CHECK(Score(a, 1) > Score(b, 1));
+  CHECK(Score(a, 1) > Score(a, 2));
+}
+
+}  // namespace apograph::estimate
