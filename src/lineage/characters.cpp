@@ -157,6 +157,7 @@ CharacterMatrix MergeMatrices(const std::vector<CharacterMatrix>& parts) {
     for (const auto& ch : p.characters) {
       Character out = ch;
       out.position = offset + ch.position;
+      if (parts.size() > 1) out.row_label = ch.block;  // "decl 25": rows of several tables
       last = std::max(last, ch.position + 1);
       out.states.assign(m.taxa.size(), -1);
       for (std::size_t k = 0; k < p.taxa.size(); ++k) {

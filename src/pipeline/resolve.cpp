@@ -113,6 +113,18 @@ std::optional<WitnessBest> BestOf(const Transcription& t, int column, const std:
   return WitnessBest{&t, m, best.fit, best.score, id.notes};
 }
 
+/// A mean motion's radix is fitted modulo the modulus: 360 is written 0.
+void ReduceRadix(const model::Model& m, std::vector<double>& params) {
+  const int radix = m.ParamIndex("radix"), modulus = m.ParamIndex("modulus");
+  if (radix < 0 || modulus < 0) return;
+  const double mod = params[static_cast<std::size_t>(modulus)];
+  double& r = params[static_cast<std::size_t>(radix)];
+  if (!(mod > 0)) return;
+  r = std::fmod(r, mod);
+  if (r < 0) r += mod;
+  if (std::fabs(r - mod) < 1e-9 || std::fabs(r) < 1e-9) r = 0;
+}
+
 std::string HowText(const ColumnReference& r, bool fitted_only) {
   char buf[160];
   std::snprintf(buf, sizeof buf, "%s witness %s (%d of %d entries exact, score %.1f)",
@@ -152,6 +164,7 @@ ColumnReference Identified(const std::vector<const Transcription*>& from, int co
   auto [params, places] = RoundParams(*r.model, chosen->fit.Values(), *chosen->witness, {column}, r.practice);
   r.params = std::move(params);
   r.rounded_places = places;
+  ReduceRadix(*r.model, r.params);
   r.exact = ExactEntries(*r.model, r.params, *chosen->witness, {column}, r.practice);
   r.how = HowText(r, requested && request.practice_given);
   Finish(r, layout);

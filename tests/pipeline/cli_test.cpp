@@ -117,10 +117,16 @@ TEST_CASE("stemma --auto over one table names B as a copy of A") {
   CHECK(work.code == 2);
 }
 
-TEST_CASE("apparatus --auto adopts the archetype's reading where all witnesses share the author's departure") {
-  Run r = Apograph(Demo().Args({"apparatus", "--table", "sun-eq", "--auto", "--format", "csv"}));
-  CHECK(r.code == 0);
-  CHECK(r.out.find("97,") != std::string::npos);
+TEST_CASE("apparatus --auto adopts the model's reading where the majority carries alpha's slip") {
+  // TRUTH.md: alpha (lost) read 0;27,43 for 0;21,43 at 10, inherited by C, D
+  // and E; A and B keep the author's reading. By majority the slip wins.
+  Run judged = Apograph(Demo().Args({"apparatus", "--table", "sun-eq", "--auto", "--format", "csv"}));
+  CHECK(judged.code == 0);
+  CHECK(judged.out.find("\n10,equation,\"0;21,43\",A B,,\"0;27,43 C D E\"") != std::string::npos);
+  Run majority = Apograph(Demo().Args({"apparatus", "--table", "sun-eq", "--format", "csv"}));
+  CHECK(majority.out.find("\n10,equation,\"0;27,43\",C D E,") != std::string::npos);
+  // The author's own departure at 97 (shared by all) is the lemma, with no variant.
+  CHECK(judged.out.find("\n97,equation,\"2;9,21\",A B C D E,,,") != std::string::npos);
 }
 
 }  // namespace
