@@ -22,10 +22,9 @@
 namespace apograph::cli {
 
 extern const char kErrorsUsage[] =
-    "usage: apograph errors --table ID --witness SIGLUM (--model NAME | --formula TEXT) [--param N=V]...\n"
-    "                       [--rounding nearest|truncate] [--places N] [--grid G [--grid-origin O]\n"
-    "                       [--round-nodes]] [--displacement D]\n"
-    "       apograph errors --table ID --witness SIGLUM --auto [--model NAME | --formula TEXT]\n"
+    "usage: apograph errors --table ID --witness SIGLUM\n"
+    "                       ((--model NAME | --formula TEXT) [--param N=V]... [practice options]\n"
+    "                        | --auto [--model NAME | --formula TEXT] [practice options])\n"
     "                       [--column NAME] [--tolerance U]\n"
     "                       [--revision N] [--scripts DIR] [--no-record] [--format text|csv|json] [--db FILE]\n"
     "\n"
@@ -43,9 +42,11 @@ extern const char kErrorsUsage[] =
     "explanation reproduces most entries exactly, and brings the parameters to the\n"
     "coarsest sexagesimal values that reproduce as many; with --model (or --formula)\n"
     "only that model is tried, and with practice options too only its parameters are\n"
-    "fitted. Exit 1 when there are findings.\n"
+    "fitted. Practice options: --rounding nearest|truncate, --places N, --grid G\n"
+    "[--grid-origin O] [--round-nodes], --displacement D. Exit 1 when there are findings.\n"
     "\n"
-    "example: apograph errors --table sun --witness A --model solar-eccentric --param e=2.5";
+    "example: apograph errors --table sun-eq --witness D --model solar-eccentric --param e=2;16 --grid 6\n"
+    "         apograph errors --table sun-eq --witness D --auto";
 
 namespace {
 
