@@ -34,12 +34,53 @@ bool CommonSlip(const deviation::Finding& f, const deviation::FindingCell& cell)
   return cell.value && cell.emendation && PlacesDiffering(*cell.value, *cell.emendation) <= 1;
 }
 
-/// "column|argument|reading" of a witness's cell, for matching across witnesses.
-std::optional<std::string> CellKey(const Transcription& w, std::size_t row, std::size_t column) {
+/// "column|argument" of a witness's cell, for matching across witnesses.
+std::optional<std::string> PlaceKey(const Transcription& w, std::size_t row, std::size_t column) {
   const auto arg = w.ArgumentInUse(row);
+  if (!arg) return std::nullopt;
+  return w.columns[column].name + "|" + arg->ToString();
+}
+
+/// "column|argument|reading".
+std::optional<std::string> CellKey(const Transcription& w, std::size_t row, std::size_t column) {
+  const auto place = PlaceKey(w, row, column);
   const Cell& cell = w.rows[row].cells[column];
-  if (!arg || !cell.value) return std::nullopt;
-  return w.columns[column].name + "|" + arg->ToString() + "|" + cell.value->ToString();
+  if (!place || !cell.value) return std::nullopt;
+  return *place + "|" + cell.value->ToString();
+}
+
+bool AuthorsDeparture(const collate::CellJudgement& j) { return !j.error && !j.slip.empty(); }
+
+/// Calls `f(witness, row, column, judgement)` for every judged cell.
+template <typename F>
+void ForEachJudged(const std::vector<Transcription>& ws, std::map<std::string, collate::JudgementGrid>& grids, F f) {
+  for (const auto& w : ws) {
+    auto& grid = grids[w.witness.siglum];
+    for (std::size_t r = 0; r < grid.size(); ++r) {
+      for (std::size_t c = 0; c < grid[r].size(); ++c) {
+        if (grid[r][c]) f(w, r, c, *grid[r][c]);
+      }
+    }
+  }
+}
+
+/// The author's departures were in the archetype: one read by a single
+/// witness while two or more others read the model's value there is a
+/// copyist's slip of a unit or so (weak evidence of descent).
+void LoneDepartures(const std::vector<Transcription>& ws, std::map<std::string, collate::JudgementGrid>& grids) {
+  std::map<std::string, int> readers, right;  // cell key -> witnesses; place key -> model's readings
+  ForEachJudged(ws, grids, [&](const Transcription& w, std::size_t r, std::size_t c, collate::CellJudgement& j) {
+    if (auto key = CellKey(w, r, c)) ++readers[*key];
+    if (auto place = PlaceKey(w, r, c); place && !j.error && j.slip.empty()) ++right[*place];
+  });
+  ForEachJudged(ws, grids, [&](const Transcription& w, std::size_t r, std::size_t c, collate::CellJudgement& j) {
+    const auto key = CellKey(w, r, c);
+    if (!AuthorsDeparture(j) || !key || readers[*key] > 1 || right[*PlaceKey(w, r, c)] < 2) return;
+    j.error = true;
+    j.common_slip = true;
+    j.slip = "a small departure in this witness only, where the others read the model's value: a copyist's slip (" +
+             j.slip + ")";
+  });
 }
 
 /// A reading explained as the author's departure in one witness is his in
@@ -48,28 +89,16 @@ std::optional<std::string> CellKey(const Transcription& w, std::size_t row, std:
 /// on it, such as a repeated neighbour, is the less likely story).
 void UnifyAuthorsReadings(const std::vector<Transcription>& ws, std::map<std::string, collate::JudgementGrid>& grids) {
   std::map<std::string, collate::CellJudgement> authors;
-  for (const auto& w : ws) {
-    const auto& grid = grids[w.witness.siglum];
-    for (std::size_t r = 0; r < grid.size(); ++r) {
-      for (std::size_t c = 0; c < grid[r].size(); ++c) {
-        const auto& j = grid[r][c];
-        if (!j || j->error || j->slip.empty()) continue;
-        if (auto key = CellKey(w, r, c)) authors.emplace(*key, *j);
-      }
-    }
-  }
-  for (const auto& w : ws) {
-    auto& grid = grids[w.witness.siglum];
-    for (std::size_t r = 0; r < grid.size(); ++r) {
-      for (std::size_t c = 0; c < grid[r].size(); ++c) {
-        auto& j = grid[r][c];
-        if (!j || !j->error) continue;
-        const auto key = CellKey(w, r, c);
-        auto it = key ? authors.find(*key) : authors.end();
-        if (it != authors.end()) j = it->second;
-      }
-    }
-  }
+  ForEachJudged(ws, grids, [&](const Transcription& w, std::size_t r, std::size_t c, collate::CellJudgement& j) {
+    if (!AuthorsDeparture(j)) return;
+    if (auto key = CellKey(w, r, c)) authors.emplace(*key, j);
+  });
+  ForEachJudged(ws, grids, [&](const Transcription& w, std::size_t r, std::size_t c, collate::CellJudgement& j) {
+    if (!j.error) return;
+    const auto key = CellKey(w, r, c);
+    auto it = key ? authors.find(*key) : authors.end();
+    if (it != authors.end()) j = it->second;
+  });
 }
 
 }  // namespace
@@ -142,6 +171,7 @@ collate::CollateOptions JudgedCollateOptions(const std::vector<Transcription>& w
   for (std::size_t i = 0; i < witnesses.size() && i < findings.size(); ++i) {
     o.judgements[witnesses[i].witness.siglum] = JudgementsFromFindings(witnesses[i], references, findings[i].findings);
   }
+  LoneDepartures(witnesses, o.judgements);
   UnifyAuthorsReadings(witnesses, o.judgements);
   if (witnesses.empty() || references.empty()) return o;
   // The collation's columns: every witness's columns by name, in order of first appearance.

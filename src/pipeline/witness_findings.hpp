@@ -61,7 +61,9 @@ collate::JudgementGrid JudgementsFromFindings(const Transcription& witness,
 /// (shown beside the readings, and used where no judgement is given). A
 /// reading explained as the author's departure in one witness is judged so
 /// in every witness that has it at the same cell (the same value cannot be
-/// the author's in one copy and a copyist's slip in another).
+/// the author's in one copy and a copyist's slip in another); but one that
+/// a single witness reads while two or more others read the model's value
+/// was not in the archetype: it is judged a copyist's (common) slip.
 collate::CollateOptions JudgedCollateOptions(const std::vector<Transcription>& witnesses,
                                              const std::vector<ColumnReference>& references,
                                              const std::vector<WitnessFindings>& findings,

@@ -201,8 +201,18 @@ TEST_CASE("witness D of sun-eq: every copying slip of D, beta and alpha is found
 
 TEST_CASE("the author's departures are right readings in the collation, slips are errors") {
   const auto& a = Demo().Table("sun-eq");
-  bool seen97 = false;
+  bool seen97 = false, seen63 = false;
   for (const auto& row : a.collation.rows) {
+    if (row.argument.ToString() == "63") {
+      // TRUTH.md: C alone reads 1;53,34 for 1;53,35, one unit: a copyist's
+      // slip, though the author's practice could explain it in C alone.
+      seen63 = true;
+      const auto* c = row.cells.at(0).ReadingOf("C");
+      REQUIRE(c != nullptr);
+      CHECK(c->text == "1;53,34");
+      CHECK(c->error);
+      CHECK(c->common_slip);
+    }
     if (row.argument.ToString() != "97") continue;
     seen97 = true;
     const auto& cell = row.cells.at(0);
@@ -212,6 +222,7 @@ TEST_CASE("the author's departures are right readings in the collation, slips ar
     }
   }
   CHECK(seen97);
+  CHECK(seen63);
 }
 
 TEST_CASE("the demo stemma: {A,B} and {C,D,E}; B may be a copy of A; E is contaminated") {
