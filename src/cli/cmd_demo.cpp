@@ -1,16 +1,135 @@
-// Placeholder until this subcommand is written: it refuses plainly.
+// apograph demo: the whole pipeline on the bundled (invented) demo tradition.
 #include "cli/command.hpp"
 
+#include <algorithm>
+#include <cstdlib>
+#include <filesystem>
+#include <fstream>
 #include <ostream>
+
+#include "cli/report_output.hpp"
+#include "pipeline/analysis.hpp"
+#include "publish/report.hpp"
+#include "store/database.hpp"
+#include "store/edition_store.hpp"
+#include "support/input_error.hpp"
+#include "transcription/parser.hpp"
 
 namespace apograph::cli {
 
-extern const char kDemoUsage[] = "apograph demo (not yet available)";
+extern const char kDemoUsage[] =
+    "usage: apograph demo [--corpus DIR] [--output DIR] [--findings N]\n"
+    "\n"
+    "Runs the whole pipeline on the demo tradition that ships in corpora/demo (an\n"
+    "INVENTED work in five invented witnesses; corpora/demo/TRUTH.md is its answer\n"
+    "key): imports every transcription into a fresh edition database, identifies\n"
+    "how each table was computed, checks every witness, explains the deviations,\n"
+    "collates the witnesses, works out the stemma of each table and of the whole\n"
+    "work, and writes the apparatus. The summary goes to the terminal; the full\n"
+    "reports, the apparatus (TEI, LaTeX, CSV) and the stemmata (Newick, DOT, and\n"
+    "SVG when Graphviz is installed) go to the output folder, with the database,\n"
+    "so that every other command can be tried on it:\n"
+    "  apograph errors --db apograph-demo/edition.sqlite --table sun-eq --witness D --auto\n"
+    "\n"
+    "example: apograph demo --output /tmp/lantern";
+
+namespace {
+
+namespace fs = std::filesystem;
+constexpr const char* kMarker = ".apograph-demo";
+
+/// A fresh output folder: created, or emptied when an earlier demo made it.
+/// Anything else is left alone.
+void PrepareOutput(const fs::path& dir) {
+  if (fs::exists(dir)) {
+    if (!fs::is_directory(dir)) {
+      throw InputError::ForOption("--output", ExpectedFound("a folder", "the file '" + dir.string() + "'"));
+    }
+    if (!fs::is_empty(dir) && !fs::exists(dir / kMarker)) {
+      throw InputError::ForOption("--output", ExpectedFound("an empty folder or one an earlier demo wrote",
+                                                            "'" + dir.string() + "' holding other files"));
+    }
+    fs::remove_all(dir);
+  }
+  fs::create_directories(dir);
+  std::ofstream(dir / kMarker) << "written by apograph demo; the next demo may replace this folder\n";
+}
+
+std::vector<Transcription> ReadCorpus(const fs::path& corpus, std::vector<Diagnostic>& warnings) {
+  if (!fs::is_directory(corpus)) {
+    throw InputError::ForOption("--corpus", ExpectedFound("the demo corpus folder", "'" + corpus.string() + "'"));
+  }
+  std::vector<fs::path> files;
+  for (const auto& e : fs::directory_iterator(corpus)) {
+    if (e.path().extension() == ".apo") files.push_back(e.path());
+  }
+  std::sort(files.begin(), files.end());
+  std::vector<Transcription> tables;
+  for (const auto& f : files) {
+    auto file = ReadTranscriptionFile(f.string());
+    for (auto& t : file.tables) tables.push_back(std::move(t));
+    for (auto& w : file.warnings) warnings.push_back(std::move(w));
+  }
+  if (tables.empty()) throw InputError::ForOption("--corpus", "expected .apo files, found none in " + corpus.string());
+  return tables;
+}
+
+void PrintImport(const std::vector<Transcription>& tables, const std::vector<Diagnostic>& warnings,
+                 const fs::path& db, Io& io) {
+  std::vector<std::string> sigla, ids;
+  std::size_t cells = 0;
+  for (const auto& t : tables) {
+    sigla.push_back(t.witness.siglum);
+    ids.push_back(t.table_id);
+    cells += t.CellCount();
+  }
+  for (auto* v : {&sigla, &ids}) {
+    std::sort(v->begin(), v->end());
+    v->erase(std::unique(v->begin(), v->end()), v->end());
+  }
+  io.out << "# apograph demo: " << tables.front().work.title << " (an invented tradition)\n\n"
+         << "Imported " << tables.size() << " transcriptions (" << ids.size() << " tables in "
+         << sigla.size() << " witnesses, " << cells << " cells) into " << db.string() << ".\n";
+  if (!warnings.empty()) {
+    io.out << "The transcriptions raise " << warnings.size()
+           << " warnings about arguments (evidence, kept as written):\n";
+    for (const auto& w : warnings) io.out << "  " << w.where.file.substr(w.where.file.find_last_of('/') + 1)
+                                           << ":" << w.where.line << ": " << w.message << "\n";
+  }
+  io.out << "\nEverything below is a suggestion with its evidence: the editor decides.\n\n";
+}
+
+}  // namespace
 
 int RunDemo(const std::vector<std::string>& args, Io& io) {
-  (void)args;
-  io.err << "apograph demo: not yet available in this build\n";
-  return kInternal;
+  std::string corpus, output;
+  std::size_t findings = 6;
+  po::options_description options("options");
+  options.add_options()
+      ("corpus", po::value(&corpus)->default_value(std::string(APOGRAPH_DATA_DIR) + "/demo"),
+       "folder of the demo transcriptions")
+      ("output", po::value(&output)->default_value("apograph-demo"), "folder for the database and files")
+      ("findings", po::value(&findings)->default_value(6), "deviations shown per witness (0: all)");
+  po::variables_map vm;
+  if (ParseOptions(FindCommand("demo"), args, options, vm, io)) return kOk;
+
+  std::vector<Diagnostic> warnings;
+  const auto tables = ReadCorpus(corpus, warnings);  // all input read before anything is written
+  const fs::path dir(output);
+  PrepareOutput(dir);
+  const fs::path db_path = dir / "edition.sqlite";
+  store::Database db(db_path.string());
+  store::Import(db, tables);
+  PrintImport(tables, warnings, db_path, io);
+
+  ReportRequest request;
+  request.output_dir = dir.string();
+  request.report.max_findings = findings;
+  WriteWorkReports(db, tables.front().work.id, request, io);
+  io.out << "Files in " << dir.string() << "/: the edition database, one report per table (*.md, every\n"
+         << "deviation listed), the apparatus (*.tei.xml, *.tex, *.csv) and the stemmata (*.nwk, *.dot,\n"
+         << "*.svg). Try: apograph errors --db " << db_path.string() << " --table sun-eq --witness D --auto\n";
+  return kOk;
 }
 
 }  // namespace apograph::cli

@@ -85,5 +85,6 @@ int RunEmendation(const std::vector<std::string>& args, Io& io);
 int RunCollate(const std::vector<std::string>& args, Io& io);
 int RunStemma(const std::vector<std::string>& args, Io& io);
 int RunApparatus(const std::vector<std::string>& args, Io& io);
+int RunReport(const std::vector<std::string>& args, Io& io);
 
 }  // namespace apograph::cli

@@ -19,6 +19,7 @@ extern const char kEmendationUsage[];
 extern const char kCollateUsage[];
 extern const char kStemmaUsage[];
 extern const char kApparatusUsage[];
+extern const char kReportUsage[];
 
 const std::vector<Command>& Commands() {
   static const std::vector<Command> kCommands = {
@@ -38,6 +39,7 @@ const std::vector<Command>& Commands() {
       {"collate", "Align the witnesses of a table and list their readings", kCollateUsage, RunCollate},
       {"stemma", "Work out which witness copied which", kStemmaUsage, RunStemma},
       {"apparatus", "Write the edited table with its apparatus of variants", kApparatusUsage, RunApparatus},
+      {"report", "Report on a table or a work: everything found, with its evidence", kReportUsage, RunReport},
   };
   return kCommands;
 }

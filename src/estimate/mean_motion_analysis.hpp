@@ -59,10 +59,13 @@ struct MeanMotionAnalysis {
   Sexagesimal rate_sexagesimal;        ///< mid-interval, to the places the entries allow
   /// Coarsest rounded rate reproducing every direct entry (exact check).
   std::optional<Sexagesimal> rounded_rate;
-  /// Every entry (arguments in a regular step) is the previous one plus
-  /// the same tabulated unit value.
+  /// Arguments in a regular step and (at least three quarters of) the
+  /// entries the first plus k times the same unit value.
   bool successive_addition = false;
   std::optional<Sexagesimal> unit_value;
+  /// Arguments of the entries off the successive-addition pattern (slips,
+  /// or the author's), when the pattern holds for most entries.
+  std::vector<std::string> successive_exceptions;
   double error_first = 0, error_last = 0;  ///< successive addition: error vs rate, units
   std::vector<MeanMotionEntry> entries;    ///< in table order
   std::string verdict;                     ///< one paragraph an editor can read

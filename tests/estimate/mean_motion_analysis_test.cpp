@@ -95,6 +95,24 @@ TEST_CASE("successive addition of a rounded unit value: error grows along the ta
   CHECK(a.verdict.find("successive addition") != std::string::npos);
 }
 
+TEST_CASE("successive addition is found through a few copying slips, which are named") {
+  // Entries = d x 0;59,8,20 (the rounded daily motion, 3 places); a copyist
+  // transposed the minutes at 19 (18;34 for 18;43) and repeated 23 at 24.
+  std::vector<std::string> vals;
+  const Sexagesimal daily = Sexagesimal::ParseOrThrow("0;59,8,20");
+  for (int d = 1; d <= 40; ++d) vals.push_back((daily * d).Modulo(360).ToString());
+  vals[18] = "18;34,38,20";
+  vals[23] = vals[22];
+  std::vector<std::pair<int, const char*>> view;
+  for (int d = 1; d <= 40; ++d) view.push_back({d, vals[static_cast<std::size_t>(d - 1)].c_str()});
+  const MeanMotionAnalysis a = AnalyseMeanMotion(Table(view, 3), 0);
+  CHECK(a.successive_addition);
+  REQUIRE(a.unit_value);
+  CHECK(a.unit_value->ToString() == "0;59,8,20");
+  CHECK(a.successive_exceptions == std::vector<std::string>{"19", "24"});
+  CHECK(a.verdict.rfind("Built from the rounded unit value 0;59,8,20: 38 of 40 entries", 0) == 0);
+}
+
 TEST_CASE("a mean motion with a radix at argument 0 wraps past 360 and keeps its radix") {
   const Sexagesimal radix = Sexagesimal::ParseOrThrow("280;10,5");
   const Sexagesimal rate = Sexagesimal::ParseOrThrow("13;10,35,1,48");

@@ -1,0 +1,66 @@
+// apograph report: the editor's report on a table or a whole work.
+#include "cli/command.hpp"
+
+#include <filesystem>
+#include <ostream>
+
+#include "cli/report_output.hpp"
+#include "store/edition_store.hpp"
+#include "support/input_error.hpp"
+
+namespace apograph::cli {
+
+extern const char kReportUsage[] =
+    "usage: apograph report (--table ID | --work ID) [--findings N] [--output DIR] [--db FILE]\n"
+    "\n"
+    "Runs the pipeline on the table (or on every table of the work) and prints\n"
+    "the editor's report, in Markdown: the witnesses; how the table was computed\n"
+    "(model, parameters and practice identified from the least corrupted witness,\n"
+    "with near-ties); each witness against the model; every deviation explained as\n"
+    "a copyist's slip or the author's own computation, with the proposed reading;\n"
+    "the stemma with candidate copies and contamination; the cells where every\n"
+    "witness deviates. For a work, the stemma argued from all its tables follows.\n"
+    "--output also writes, per table, the full report, the apparatus (TEI, LaTeX,\n"
+    "CSV) and the stemma (Newick, DOT, SVG when Graphviz is installed).\n"
+    "All findings are suggestions with their evidence: the editor decides.\n"
+    "\n"
+    "examples:\n"
+    "  apograph report --table sun-eq\n"
+    "  apograph report --work lantern --findings 10 --output lantern-edition";
+
+int RunReport(const std::vector<std::string>& args, Io& io) {
+  std::string table, work, output, db_path;
+  std::size_t findings = 0;
+  po::options_description options("options");
+  options.add_options()
+      ("table", po::value(&table), "the table to report on")
+      ("work", po::value(&work), "report on every table of this work")
+      ("findings", po::value(&findings)->default_value(0), "deviations shown per witness (0: all)")
+      ("output", po::value(&output), "folder for the files (created if missing)");
+  AddDbOption(options, db_path);
+  po::variables_map vm;
+  if (ParseOptions(FindCommand("report"), args, options, vm, io)) return kOk;
+  if (table.empty() == work.empty()) {
+    throw InputError::ForOption("apograph report", "expected one of --table or --work, found " +
+                                                       std::string(table.empty() ? "neither" : "both"));
+  }
+  if (!std::filesystem::exists(db_path)) {
+    throw InputError::ForOption("--db", ExpectedFound("an edition database", "no file '" + db_path + "'"));
+  }
+  store::Database db(db_path);
+  ReportRequest request;
+  request.output_dir = output;
+  request.report.max_findings = findings;
+  if (!output.empty()) std::filesystem::create_directories(output);
+  if (!table.empty()) {
+    ReportTable(db, table, request, io);
+  } else {
+    if (store::TablesOfWork(db, work).empty()) {
+      throw InputError::ForOption("--work", ExpectedFound("a work in the database", "'" + work + "'"));
+    }
+    WriteWorkReports(db, work, request, io);
+  }
+  return kOk;
+}
+
+}  // namespace apograph::cli
