@@ -10,28 +10,15 @@
 #include "store/database.hpp"
 #include "store/edition_store.hpp"
 #include "synthetic.hpp"
+#include "cli_runner.hpp"
 
 using namespace apograph;
 
 namespace {
 
-struct Run {
-  int code = -1;
-  std::string out;
-};
+using Run = apograph::testing::CliResult;
 
-Run Apograph(const std::string& args) {
-  Run r;
-  const std::string cmd = std::string(APOGRAPH_BINARY) + " " + args + " 2>/dev/null";
-  FILE* p = popen(cmd.c_str(), "r");
-  REQUIRE(p != nullptr);
-  std::array<char, 4096> buf;
-  std::size_t n;
-  while ((n = fread(buf.data(), 1, buf.size(), p)) > 0) r.out.append(buf.data(), n);
-  const int status = pclose(p);
-  r.code = WIFEXITED(status) ? WEXITSTATUS(status) : -1;
-  return r;
-}
+Run Apograph(const std::string& args) { return apograph::testing::RunBinary(args); }
 
 std::size_t g_slip_row = 0;
 

@@ -12,45 +12,22 @@
 
 #include <nlohmann/json.hpp>
 
+#include "cli_runner.hpp"
+
 namespace fs = std::filesystem;
 
 namespace {
 
-std::string ReadFile(const fs::path& p) {
-  std::ifstream in(p, std::ios::binary);
-  return std::string(std::istreambuf_iterator<char>(in), std::istreambuf_iterator<char>());
-}
+std::string ReadFile(const fs::path& p) { return apograph::testing::ReadWholeFile(p); }
 
 void WriteFile(const fs::path& p, const std::string& text) { std::ofstream(p, std::ios::binary) << text; }
 
-struct Result {
-  int code = -1;
-  std::string out;
-  std::string err;
-};
+using Result = apograph::testing::CliResult;
 
 /// A scratch folder; commands run inside it.
-class Scratch {
+class Scratch : public apograph::testing::ScratchDir {
  public:
-  Scratch() {
-    static int counter = 0;
-    dir_ = fs::temp_directory_path() /
-           ("apograph-e2e-" + std::to_string(::getpid()) + "-" + std::to_string(++counter));
-    fs::remove_all(dir_);
-    fs::create_directories(dir_);
-  }
-  ~Scratch() { fs::remove_all(dir_); }
-  fs::path operator/(const std::string& name) const { return dir_ / name; }
-
-  Result Run(const std::string& args) const {
-    const std::string cmd = "cd '" + dir_.string() + "' && '" + APOGRAPH_BINARY + "' " + args +
-                            " > out.txt 2> err.txt";
-    const int status = std::system(cmd.c_str());
-    return {WIFEXITED(status) ? WEXITSTATUS(status) : -1, ReadFile(dir_ / "out.txt"), ReadFile(dir_ / "err.txt")};
-  }
-
- private:
-  fs::path dir_;
+  Result Run(const std::string& args) const { return apograph::testing::RunBinary(args, path()); }
 };
 
 const std::string kSource = APOGRAPH_SOURCE_DIR;

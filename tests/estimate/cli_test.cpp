@@ -12,30 +12,14 @@
 #include "store/edition_store.hpp"
 #include "store/estimate_store.hpp"
 #include "synthetic.hpp"
+#include "cli_runner.hpp"
 
 namespace apograph::estimate {
 namespace {
 
-struct Run {
-  int code = 0;
-  std::string out, err;
-};
+using Run = apograph::testing::CliResult;
 
-Run Apograph(const std::string& args) {
-  const auto dir = std::filesystem::temp_directory_path();
-  const std::string out = (dir / "apograph_est_out.txt").string(), err = (dir / "apograph_est_err.txt").string();
-  const std::string cmd = std::string(APOGRAPH_BINARY) + " " + args + " > " + out + " 2> " + err;
-  const int status = std::system(cmd.c_str());
-  Run r;
-  r.code = WEXITSTATUS(status);
-  std::ifstream o(out), e(err);
-  std::stringstream so, se;
-  so << o.rdbuf();
-  se << e.rdbuf();
-  r.out = so.str();
-  r.err = se.str();
-  return r;
-}
+Run Apograph(const std::string& args) { return apograph::testing::RunBinary(args); }
 
 Transcription WithMeta(Transcription t, const std::string& siglum) {
   t.work.id = "qarmel";

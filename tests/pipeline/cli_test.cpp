@@ -6,6 +6,7 @@
 #include <nlohmann/json.hpp>
 
 #include "../store/store_test_util.hpp"
+#include "cli_runner.hpp"
 #include "cli/command.hpp"
 #include "store/edition_store.hpp"
 #include "transcription/parser.hpp"
@@ -13,20 +14,9 @@
 namespace apograph {
 namespace {
 
-struct Run {
-  int code = 0;
-  std::string out, err;
-};
+using Run = testing::CliResult;
 
-Run Apograph(std::vector<std::string> args) {
-  std::ostringstream out, err;
-  cli::Io io{out, err};
-  Run r;
-  r.code = cli::Dispatch(args, io);
-  r.out = out.str();
-  r.err = err.str();
-  return r;
-}
+Run Apograph(const std::vector<std::string>& args) { return testing::RunInProcess(args); }
 
 struct DemoDb {
   testing::TempDb file{"pipeline-cli"};

@@ -8,22 +8,18 @@
 #include "lineage/synthetic.hpp"
 #include "store/edition_store.hpp"
 #include "../store/store_test_util.hpp"
+#include "cli_runner.hpp"
 
 namespace {
 
 struct Run {
   int code;
-  std::string out;
+  std::string out;  ///< standard output and error together
 };
 
 Run Apograph(const std::string& args) {
-  const std::string cmd = std::string(APOGRAPH_BINARY) + " " + args + " 2>&1";
-  FILE* p = popen(cmd.c_str(), "r");
-  std::string out;
-  char buf[4096];
-  while (std::size_t n = fread(buf, 1, sizeof buf, p)) out.append(buf, n);
-  const int status = pclose(p);
-  return {WEXITSTATUS(status), out};
+  const auto r = apograph::testing::RunBinary(args);
+  return {r.code, r.out + r.err};
 }
 
 }  // namespace
