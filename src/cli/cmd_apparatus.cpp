@@ -29,8 +29,8 @@ extern const char kApparatusUsage[] =
     "history (table apparatus_decision, view apparatus_override).\n"
     "Which readings are errors: see apograph collate --help (--auto or a model judges\n"
     "them by the explained deviations).\n\n"
-    "example: apograph apparatus --table solar-eq --override 20:equation=0;40 --note 'author's value'\n"
-    "         apograph apparatus --table solar-eq --format tei --output solar-eq.xml";
+    "example: apograph apparatus --table decl --override '46:declination=16;41,57' --note \"all witnesses err\"\n"
+    "         apograph apparatus --table sun-eq --auto --format tei --output sun-eq.xml";
 
 namespace {
 

@@ -23,7 +23,7 @@ extern const char kCatalogUsage[] =
     "fit and identify name the nearest attested values and their distance in standard errors.\n\n"
     "example:\n"
     "  apograph catalog add --kind obliquity --applies-to declination:obliquity \\\n"
-    "      --value 23;33,30 --tradition \"Tables of Qarmel\" --source \"MS Q, fol. 3r\"\n"
+    "      --value '23;33,30' --tradition \"Tables of Qarmel\" --source \"MS Q, fol. 3r\"\n"
     "  apograph catalog list --kind obliquity";
 
 namespace {

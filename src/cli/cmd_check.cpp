@@ -38,7 +38,7 @@ extern const char kCheckUsage[] =
     "own entries first (apograph identify; parameters brought to round sexagesimal values).\n"
     "Exit code 1 when anything is flagged.\n\n"
     "example: apograph check --table sun-eq --witness A --model solar-eccentric \\\n"
-    "           --param e=2;16 --grid 6";
+    "           --param 'e=2;16' --grid 6";
 
 namespace {
 

@@ -28,7 +28,7 @@ extern const char kCollateUsage[] =
     "not. Without a model, errors are minority readings against a clear majority;\n"
     "each cell says which basis was used (judgement, recomputation, majority).\n"
     "Exit code 1 when errors or alignment notes were found.\n\n"
-    "example: apograph collate --table sun-eq --model solar-eccentric --param e=2;16 --grid 6\n"
+    "example: apograph collate --table sun-eq --model solar-eccentric --param 'e=2;16' --grid 6\n"
     "         apograph collate --table sun-eq --auto";
 
 namespace {

@@ -45,7 +45,7 @@ extern const char kErrorsUsage[] =
     "fitted. Practice options: --rounding nearest|truncate, --places N, --grid G\n"
     "[--grid-origin O] [--round-nodes], --displacement D. Exit 1 when there are findings.\n"
     "\n"
-    "example: apograph errors --table sun-eq --witness D --model solar-eccentric --param e=2;16 --grid 6\n"
+    "example: apograph errors --table sun-eq --witness D --model solar-eccentric --param 'e=2;16' --grid 6\n"
     "         apograph errors --table sun-eq --witness D --auto";
 
 namespace {

@@ -25,8 +25,8 @@ extern const char kExportUsage[] =
     "holds everything, with each cell's exact value and provenance.\n"
     "\n"
     "examples:\n"
-    "  apograph export --table sun-eq --witness K > sun-eq-K.apo\n"
-    "  apograph export --table sun-eq --witness K --revision 1 --format json --output k1.json";
+    "  apograph export --table sun-eq --witness D > sun-eq-D.apo\n"
+    "  apograph export --table sun-eq --witness D --revision 1 --format json --output d1.json";
 
 namespace {
 

@@ -24,7 +24,7 @@ extern const char kFitUsage[] =
     "columns jointly with the same parameters. A mean-motion model also gets the analysis\n"
     "of how the table was built. Exit code 1 when entries are flagged.\n\n"
     "example:\n"
-    "  apograph fit --table sun-equation --witness A --model solar-eccentric\n"
+    "  apograph fit --table sun-eq --witness A --model solar-eccentric\n"
     "  apograph fit --table decl --witness B --model declination --rounding truncate --format json";
 
 namespace {

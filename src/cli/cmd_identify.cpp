@@ -36,7 +36,7 @@ extern const char kIdentifyUsage[] =
     "stored in the database (view latest_identification). --all shows a progress bar on a\n"
     "terminal and uses every core.\n\n"
     "example:\n"
-    "  apograph identify --table sun-equation --witness A --top 3\n"
+    "  apograph identify --table sun-eq --witness A --top 3\n"
     "  apograph identify --all --format csv > identifications.csv";
 
 namespace {

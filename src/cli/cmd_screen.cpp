@@ -29,7 +29,7 @@ extern const char kScreenUsage[] =
     "Where a slip in the witness's numeral script explains the departure from the\n"
     "curve, the likely reading is shown. Exit 1 when there are suspects.\n"
     "\n"
-    "example: apograph screen --table sun --witness A --column equation";
+    "example: apograph screen --table sun-eq --witness A --column equation";
 
 namespace {
 
