@@ -86,25 +86,23 @@ Cell ReadCell(const Statement& s) {
   c.value = ValueFromText(s.OptionalText(3));
   c.places = static_cast<int>(s.Int(4));
   c.state = CellStateFromString(s.Text(5)).value_or(CellState::kRead);
-  if (!s.IsNull(6)) {  // the cell has marks
-    c.damaged = s.Int(6) != 0;
-    c.doubtful = s.Int(7) != 0;
-    c.addition = AdditionFromString(s.Text(8)).value_or(Addition::kNone);
-    c.corrected_from = s.OptionalText(9);
-    c.note = s.Text(10);
-  }
+  c.damaged = s.Int(6) != 0;
+  c.doubtful = s.Int(7) != 0;
+  c.addition = AdditionFromString(s.Text(8)).value_or(Addition::kNone);
+  c.corrected_from = s.OptionalText(9);
+  c.note = s.Text(10);
   c.line = static_cast<int>(s.Int(11));
   c.column = static_cast<int>(s.Int(12));
   return c;
 }
 
-/// Cells come in key order: per row the argument (col -1), then the columns.
+/// Cells through the view `cell` (the one documented decoding of
+/// cell_row), per row the argument (col -1), then the columns.
 void LoadCells(Database& db, std::int64_t revision, Transcription& t) {
   auto s = db.Prepare(
-      "SELECT c.row_index, c.col, c.raw, c.value, c.places, c.state, m.damaged, m.doubtful, "
-      "m.addition, m.corrected_from, m.note, c.source_line, c.source_col FROM cell c "
-      "LEFT JOIN cell_mark m ON m.revision_id = c.revision_id AND m.row_index = c.row_index "
-      "AND m.col = c.col WHERE c.revision_id = ?1 ORDER BY c.row_index, c.col");
+      "SELECT row_index, col, raw, value, places, state, damaged, doubtful, addition, "
+      "corrected_from, note, source_line, source_col FROM cell WHERE revision_id = ?1 "
+      "ORDER BY row_index, col");
   s.Bind(1, revision);
   while (s.Step()) {
     const auto row = static_cast<std::size_t>(s.Int(0));
