@@ -194,7 +194,9 @@ CREATE VIEW cell AS
            j.value ->> 1 AS source_col
     FROM cell_row r
     JOIN json_each(r.cells) j
-    JOIN layout_column lc ON lc.revision_id = r.revision_id AND lc.position = j.key - 1
+    -- CROSS JOIN keeps this order: each cell looks up its column (otherwise
+    -- SQLite may unpack the row once per column)
+    CROSS JOIN layout_column lc ON lc.revision_id = r.revision_id AND lc.position = j.key - 1
   ) u;
 
 -- The editor's marks, one line per cell that has any (a subset of `cell`).

@@ -5,6 +5,7 @@
 /// the import encodes a million cells a second.
 
 #include <string>
+#include <string_view>
 
 #include "edition/transcription.hpp"
 
@@ -22,5 +23,11 @@ void AppendCellJson(std::string& out, const Cell& cell, int column_places, int r
 /// Replaces `out` with the JSON array of a row of `t`: its argument, then its
 /// cells in column order. The row's line is its argument's line.
 void EncodeRowCells(std::string& out, const Transcription& t, const Row& row);
+
+/// The reverse of EncodeRowCells (in cell_decode.cpp): fills `row` from the
+/// JSON of one cell_row, with the places of the columns of `t` and the row's
+/// line as defaults. Also reads what the view `cell` accepts (any JSON
+/// spacing and escapes). Throws StoreError on anything else.
+void DecodeRowCells(std::string_view json, const Transcription& t, int row_line, Row& row);
 
 }  // namespace apograph::store

@@ -87,6 +87,13 @@ std::string Statement::Text(int column) const {
            : std::string();
 }
 
+std::string_view Statement::TextView(int column) const {
+  const auto* p = sqlite3_column_text(stmt_, column);
+  return p ? std::string_view(reinterpret_cast<const char*>(p),
+                              static_cast<std::size_t>(sqlite3_column_bytes(stmt_, column)))
+           : std::string_view();
+}
+
 std::optional<std::string> Statement::OptionalText(int column) const {
   if (IsNull(column)) return std::nullopt;
   return Text(column);
