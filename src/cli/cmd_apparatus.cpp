@@ -8,6 +8,7 @@
 
 #include "cli/collate_input.hpp"
 #include "lineage/lineage.hpp"
+#include "pipeline/analysis.hpp"
 #include "publish/apparatus.hpp"
 #include "store/apparatus_store.hpp"
 #include "support/input_error.hpp"
@@ -17,14 +18,17 @@ namespace apograph::cli {
 extern const char kApparatusUsage[] =
     "usage: apograph apparatus --table ID [--format tei|latex|csv|text] [--output FILE]\n"
     "                          [--override ROW:COLUMN=READING]... [--withdraw ROW:COLUMN]... [--note TEXT]\n"
-    "                          [--witnesses A,B,...] [--model NAME [--param N=V]...] [--db FILE]\n\n"
+    "                          [--witnesses A,B,...] [--db FILE]\n"
+    "                          [(--model NAME | --formula TEXT) [--param N=V]... [practice options] | --auto]\n\n"
     "Writes the edited table: for every cell the adopted reading (the reading of most\n"
     "independent branches of the parsimony stemma that is not an error; an editor's\n"
     "override wins) and the variant readings with their sigla.\n"
     "--override records the editor's reading for a cell (ROW is the row's argument,\n"
     "COLUMN the column's name); --withdraw removes an override; --note gives the reason\n"
     "(for every override of this call). Decisions are kept in the database with their\n"
-    "history (table apparatus_decision, view apparatus_override).\n\n"
+    "history (table apparatus_decision, view apparatus_override).\n"
+    "Which readings are errors: see apograph collate --help (--auto or a model judges\n"
+    "them by the explained deviations).\n\n"
     "example: apograph apparatus --table solar-eq --override 20:equation=0;40 --note 'author's value'\n"
     "         apograph apparatus --table solar-eq --format tei --output solar-eq.xml";
 
@@ -48,11 +52,7 @@ store::ApparatusDecision ParseDecision(const std::string& option, const std::str
 }
 
 std::vector<std::vector<std::string>> Branches(const collate::Collation& c) {
-  const auto result = lineage::Parsimony(lineage::BuildErrorCharacters(c));
-  std::vector<std::vector<std::string>> out;
-  const auto& s = result.stemma;
-  for (int child : s.nodes[s.root].children) out.push_back(s.Below(child));
-  return out;
+  return pipeline::Branches(lineage::Parsimony(lineage::BuildErrorCharacters(c)).stemma);
 }
 
 std::vector<publish::Override> Overrides(const std::vector<store::ApparatusDecision>& ds) {
@@ -90,6 +90,7 @@ int RunApparatus(const std::vector<std::string>& args, Io& io) {
   AddDbOption(options, db_path);
   po::variables_map vm;
   if (ParseOptions(FindCommand("apparatus"), args, options, vm, io)) return kOk;
+  FinishCollateRequest(request, vm);
   CheckChoice("--format", format, {"text", "tei", "latex", "csv"});
   if (!std::filesystem::exists(db_path)) throw InputError::ForOption("--db", ExpectedFound("an edition database", "'" + db_path + "'"));
   store::Database db(db_path);

@@ -12,8 +12,10 @@
 
 #include <nlohmann/json.hpp>
 
+#include "cli/estimate_options.hpp"
+#include "cli/reference_options.hpp"
 #include "model/check.hpp"
-#include "model/formula.hpp"
+#include "pipeline/reference.hpp"
 #include "store/edition_store.hpp"
 #include "store/model_store.hpp"
 #include "support/input_error.hpp"
@@ -22,7 +24,7 @@
 namespace apograph::cli {
 
 extern const char kCheckUsage[] =
-    "usage: apograph check --table ID --witness SIGLUM (--model NAME | --formula TEXT)\n"
+    "usage: apograph check --table ID --witness SIGLUM (--model NAME | --formula TEXT | --auto)\n"
     "                      [--param NAME=VALUE]... [--column NAME] [--rounding nearest|truncate]\n"
     "                      [--places N] [--grid G [--grid-origin O] [--round-nodes]]\n"
     "                      [--displacement D] [--tolerance U] [--revision N] [--flagged-only]\n"
@@ -32,111 +34,21 @@ extern const char kCheckUsage[] =
     "place, and a flag where |difference| > tolerance (default 1 unit). --model takes a\n"
     "built-in model (see apograph formula list --builtin) or a saved formula. Numbers may\n"
     "be written in the trade's notation (2;4,48) or as decimals (2.08). The run is stored\n"
-    "in the database. Exit code 1 when anything is flagged.\n\n"
+    "in the database. --auto identifies the model, parameters and practice from the witness's\n"
+    "own entries first (apograph identify; parameters brought to round sexagesimal values).\n"
+    "Exit code 1 when anything is flagged.\n\n"
     "example: apograph check --table sun-eq --witness A --model solar-eccentric \\\n"
     "           --param e=2;16 --grid 6";
 
 namespace {
 
 struct CheckOptions {
-  std::string table, witness, model, formula, column, rounding = "nearest", format, db;
-  std::vector<std::string> params;
-  int places = -1;
+  std::string table, witness, column, format, db;
+  ReferenceArgs reference;
   int revision = 0;
-  std::string grid = "0", grid_origin = "0", displacement = "0", tolerance = "1";
-  bool round_nodes = false, flagged_only = false;
+  std::string tolerance = "1";
+  bool flagged_only = false;
 };
-
-/// A number in the trade's notation or decimal, for an option's value.
-double ParseNumber(const std::string& option, const std::string& text) {
-  if (text.find('.') != std::string::npos) {
-    std::size_t used = 0;
-    try {
-      const double v = std::stod(text, &used);
-      if (used == text.size() && std::isfinite(v)) return v;
-    } catch (const std::exception&) {
-    }
-  } else if (auto v = Sexagesimal::Parse(text)) {
-    return v->ToDouble();
-  }
-  throw InputError::ForOption(option, ExpectedFound("a number such as 2;4,48 or 2.08", "'" + text + "'"));
-}
-
-std::vector<std::pair<std::string, double>> ParseParams(const std::vector<std::string>& items) {
-  std::vector<std::pair<std::string, double>> out;
-  for (const auto& item : items) {
-    const auto eq = item.find('=');
-    if (eq == std::string::npos || eq == 0) {
-      throw InputError::ForOption("--param", ExpectedFound("NAME=VALUE", "'" + item + "'"));
-    }
-    out.emplace_back(item.substr(0, eq), ParseNumber("--param " + item.substr(0, eq), item.substr(eq + 1)));
-  }
-  return out;
-}
-
-model::Practice ParsePractice(const CheckOptions& o) {
-  model::Practice p;
-  auto rounding = model::RoundingFromString(o.rounding);
-  if (!rounding) throw InputError::ForOption("--rounding", ExpectedFound("nearest or truncate", "'" + o.rounding + "'"));
-  p.rounding = *rounding;
-  if (o.places >= 0) {
-    if (o.places > Sexagesimal::kMaxPlaces) {
-      throw InputError::ForOption("--places", ExpectedFound("0 to 12", std::to_string(o.places)));
-    }
-    p.places = o.places;
-  }
-  p.grid = ParseNumber("--grid", o.grid);
-  if (p.grid < 0) throw InputError::ForOption("--grid", ExpectedFound("a grid of 0 or more", "'" + o.grid + "'"));
-  p.grid_origin = ParseNumber("--grid-origin", o.grid_origin);
-  p.round_nodes = o.round_nodes;
-  p.displacement = ParseNumber("--displacement", o.displacement);
-  return p;
-}
-
-/// The built-in model of that name, else the saved formula.
-const model::Model& ResolveModel(store::Database& db, const CheckOptions& o,
-                                 std::unique_ptr<model::FormulaModel>& holder,
-                                 std::optional<std::string>& formula_text) {
-  if (!o.formula.empty()) {
-    if (!o.model.empty()) throw InputError::ForOption("--formula", "expected either --model or --formula, found both");
-    holder = model::CompileFormula(o.formula);
-    formula_text = o.formula;
-    return *holder;
-  }
-  if (o.model.empty()) throw InputError::ForOption("apograph check", "expected --model NAME or --formula TEXT, found neither");
-  if (const model::Model* m = model::FindBuiltinModel(o.model)) return *m;
-  if (auto saved = store::FindFormula(db, o.model)) {
-    holder = model::CompileFormula(saved->text, saved->name, "formula " + saved->name);
-    formula_text = saved->text;
-    return *holder;
-  }
-  throw InputError::ForOption("--model", ExpectedFound("a built-in model or a saved formula (apograph formula list --builtin)",
-                                                       "'" + o.model + "'"));
-}
-
-std::string ColumnList(const Transcription& t) {
-  std::string s;
-  for (const auto& c : t.columns) s += (s.empty() ? "" : ", ") + c.name;
-  return s;
-}
-
-int ResolveColumn(const Transcription& t, const CheckOptions& o, const model::FormulaModel* formula) {
-  if (formula) {
-    for (const auto& name : formula->columns()) {
-      if (t.ColumnIndex(name) < 0) {
-        throw InputError::ForOption("--formula", ExpectedFound("a column of table " + t.table_id + " (" + ColumnList(t) + ")",
-                                                               "col(" + name + ")"));
-      }
-    }
-  }
-  if (o.column.empty()) return 0;
-  const int c = t.ColumnIndex(o.column);
-  if (c < 0) {
-    throw InputError::ForOption("--column", ExpectedFound("a column of table " + t.table_id + " (" + ColumnList(t) + ")",
-                                                          "'" + o.column + "'"));
-  }
-  return c;
-}
 
 std::string FormatDiff(const std::optional<double>& d) {
   if (!d) return "";
@@ -236,19 +148,11 @@ void AddOptions(po::options_description& d, CheckOptions& o) {
   d.add_options()
       ("table", po::value(&o.table)->required(), "table id")
       ("witness", po::value(&o.witness)->required(), "siglum of the witness")
-      ("model", po::value(&o.model), "built-in model or saved formula")
-      ("formula", po::value(&o.formula), "an ad-hoc formula (grammar/formula.ebnf)")
-      ("param", po::value(&o.params)->composing(), "NAME=VALUE, repeatable")
       ("column", po::value(&o.column), "column to check (default: the first)")
-      ("rounding", po::value(&o.rounding)->default_value("nearest"), "nearest|truncate")
-      ("places", po::value(&o.places), "places (default: the column's)")
-      ("grid", po::value(&o.grid)->default_value("0"), "interpolation grid in argument units (0: none)")
-      ("grid-origin", po::value(&o.grid_origin)->default_value("0"), "argument of the first node")
-      ("round-nodes", po::bool_switch(&o.round_nodes), "round the node values before interpolating")
-      ("displacement", po::value(&o.displacement)->default_value("0"), "constant added before rounding")
       ("tolerance", po::value(&o.tolerance)->default_value("1"), "flag when |diff| > this many units")
       ("revision", po::value(&o.revision), "revision to check (default: the current)")
       ("flagged-only", po::bool_switch(&o.flagged_only), "text and CSV: list only the flagged entries");
+  AddReferenceOptions(d, o.reference, "identify the model, parameters and practice from this witness's entries");
 }
 
 }  // namespace
@@ -262,29 +166,30 @@ int RunCheck(const std::vector<std::string>& args, Io& io) {
   po::variables_map vm;
   if (ParseOptions(FindCommand("check"), args, d, vm, io)) return kOk;
   CheckChoice("--format", o.format, {"text", "csv", "json"});
-  const model::Practice practice = ParsePractice(o);
+  pipeline::ReferenceRequest request = ToReferenceRequest(o.reference, vm);
   const double tolerance = ParseNumber("--tolerance", o.tolerance);
   if (tolerance < 0) throw InputError::ForOption("--tolerance", ExpectedFound("0 or more", "'" + o.tolerance + "'"));
-  const auto overrides = ParseParams(o.params);
   if (!std::filesystem::exists(o.db)) {
     throw InputError::ForFile(o.db, "no such edition database (create it with apograph init and import)");
   }
   store::Database db(o.db);
-  std::unique_ptr<model::FormulaModel> formula;
-  std::optional<std::string> formula_text;
-  const model::Model& m = ResolveModel(db, o, formula, formula_text);
   const std::optional<int> revision = vm.count("revision") ? std::optional<int>(o.revision) : std::nullopt;
   const Transcription t = store::Load(db, o.table, o.witness, revision);
-  const int column = ResolveColumn(t, o, formula.get());
-  const auto params = model::ParamsWithOverrides(m, overrides);
-  const model::CheckReport r = model::Check(t, m, params, practice, tolerance, column);
+  if (t.columns.empty()) throw InputError::ForOption("--table", ExpectedFound("a table with value columns", "none"));
+  request.columns = {o.column.empty() ? t.columns.front().name : o.column};
+  const auto ref = pipeline::ResolveReferences({t}, request, pipeline::LoadModelLibrary(db)).front();
+  const model::CheckReport r = model::Check(t, *ref.model, ref.params, ref.practice, tolerance, ref.column);
+  const std::optional<std::string> formula_text = ref.formula.empty() ? std::nullopt : std::optional(ref.formula);
   const std::optional<int> stored_revision =
       revision ? revision : std::optional<int>(store::CurrentRevision(db, o.table, o.witness));
   const std::int64_t run = store::SaveCheckRun(db, r, stored_revision, formula_text);
   switch (ParseFormat(o.format)) {
     case Format::kJson: io.out << ToJson(r, stored_revision, formula_text, run).dump(2) << "\n"; break;
     case Format::kCsv: io.out << EntryTable(r, o.flagged_only).RenderCsv(); break;
-    case Format::kText: PrintText(r, o, io); break;
+    case Format::kText:
+      if (ref.source == pipeline::ReferenceSource::kIdentified) io.out << "reference: " << ref.how << "\n";
+      PrintText(r, o, io);
+      break;
   }
   return r.summary.flagged > 0 ? kFindings : kOk;
 }

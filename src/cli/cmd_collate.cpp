@@ -15,15 +15,21 @@
 namespace apograph::cli {
 
 extern const char kCollateUsage[] =
-    "usage: apograph collate --table ID [--witnesses A,B,...] [--model NAME [--param N=V]... [--column C]]\n"
-    "                        [--tolerance U] [--format text|csv|json] [--db FILE]\n\n"
+    "usage: apograph collate --table ID [--witnesses A,B,...] [--format text|csv|json] [--db FILE]\n"
+    "                        [(--model NAME | --formula TEXT) [--param N=V]... [practice options] | --auto]\n"
+    "                        [--column C] [--tolerance U] [--scripts DIR]\n\n"
     "Aligns the current transcriptions of a table by argument (missing, extra and\n"
     "miscopied rows and columns slid by a row are reported) and lists every cell's\n"
-    "readings with their sigla. Errors (marked *) are readings beyond the tolerance\n"
-    "from the model's value when --model is given, otherwise minority readings\n"
-    "against a clear majority; each cell says which basis was used.\n"
+    "readings with their sigla. With a model (--model or --formula, the practice\n"
+    "options as in apograph check; or --auto, which identifies them as apograph\n"
+    "errors --auto does) every witness's deviations are explained and the\n"
+    "explanations judge the readings: copyists' slips are errors (look-alike\n"
+    "confusions and one-unit slips marked common), the author's own departures are\n"
+    "not. Without a model, errors are minority readings against a clear majority;\n"
+    "each cell says which basis was used (judgement, recomputation, majority).\n"
     "Exit code 1 when errors or alignment notes were found.\n\n"
-    "example: apograph collate --table solar-eq --model solar_equation --param e=2.08";
+    "example: apograph collate --table sun-eq --model solar-eccentric --param e=2;16 --grid 6\n"
+    "         apograph collate --table sun-eq --auto";
 
 namespace {
 
@@ -46,9 +52,11 @@ std::string Readings(const collate::CollatedCell& cell) {
 
 void PrintText(const collate::Collation& c, std::ostream& out) {
   out << "table " << c.table_id << ": " << c.witnesses.size() << " witnesses, " << c.rows.size() << " rows\n";
+  const bool judged = c.BasisCounts().count(collate::Basis::kCaller) > 0;
   out << "errors judged by "
       << (c.reference_description.empty() ? std::string("majority (no model)")
-                                          : "recomputation: " + c.reference_description)
+          : judged ? "the explained deviations from " + c.reference_description
+                   : "recomputation: " + c.reference_description)
       << "\n";
   for (const auto& n : c.notes) out << "  " << n.siglum << ": " << n.kind << ": " << n.text << "\n";
   for (const auto& s : c.slides) out << "  " << s.siglum << ": slid column: " << s.text << "\n";
@@ -138,6 +146,7 @@ int RunCollate(const std::vector<std::string>& args, Io& io) {
   AddDbOption(options, db_path);
   po::variables_map vm;
   if (ParseOptions(FindCommand("collate"), args, options, vm, io)) return kOk;
+  FinishCollateRequest(request, vm);
   CheckChoice("--format", format, {"text", "csv", "json"});
   if (!std::filesystem::exists(db_path)) {
     throw InputError::ForOption("--db", ExpectedFound("an edition database", "'" + db_path + "'"));

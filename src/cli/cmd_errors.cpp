@@ -8,12 +8,12 @@
 #include <nlohmann/json.hpp>
 
 #include "cli/command.hpp"
+#include "cli/reference_options.hpp"
 #include "deviation/explain.hpp"
 #include "deviation/numeral_script.hpp"
-#include "estimate/fit.hpp"
-#include "estimate/observations.hpp"
-#include "model/check.hpp"
 #include "model/model.hpp"
+#include "pipeline/reference.hpp"
+#include "pipeline/witness_findings.hpp"
 #include "store/deviation_store.hpp"
 #include "store/edition_store.hpp"
 #include "support/input_error.hpp"
@@ -22,8 +22,10 @@
 namespace apograph::cli {
 
 extern const char kErrorsUsage[] =
-    "usage: apograph errors --table ID --witness SIGLUM (--model NAME [--param N=V]... | --auto)\n"
-    "                       [--column NAME] [--tolerance U] [--rounding nearest|truncate]\n"
+    "usage: apograph errors --table ID --witness SIGLUM\n"
+    "                       ((--model NAME | --formula TEXT) [--param N=V]... [practice options]\n"
+    "                        | --auto [--model NAME | --formula TEXT] [practice options])\n"
+    "                       [--column NAME] [--tolerance U]\n"
     "                       [--revision N] [--scripts DIR] [--no-record] [--format text|csv|json] [--db FILE]\n"
     "\n"
     "Recomputes the witness's entries from the model and, for every entry further\n"
@@ -34,135 +36,64 @@ extern const char kErrorsUsage[] =
     "author's own computation, or 'unexplained'. Each finding is one line that\n"
     "reads like a critical note; the proposed readings are recorded in the\n"
     "database as emendations for the editor to accept or reject (apograph\n"
-    "emendation). --auto fits the parameters of --model (or of every built-in\n"
-    "model, keeping the best) to the witness first. Exit 1 when there are findings.\n"
+    "emendation). --auto first identifies each column's model, parameters and\n"
+    "computing practice (interpolation grid, truncation, displacement) as apograph\n"
+    "identify does, from every witness of the table, keeping the witness whose best\n"
+    "explanation reproduces most entries exactly, and brings the parameters to the\n"
+    "coarsest sexagesimal values that reproduce as many; with --model (or --formula)\n"
+    "only that model is tried, and with practice options too only its parameters are\n"
+    "fitted. Practice options: --rounding nearest|truncate, --places N, --grid G\n"
+    "[--grid-origin O] [--round-nodes], --displacement D. Exit 1 when there are findings.\n"
     "\n"
-    "example: apograph errors --table sun --witness A --model solar-eccentric --param e=2.5";
+    "example: apograph errors --table sun-eq --witness D --model solar-eccentric --param e=2;16 --grid 6\n"
+    "         apograph errors --table sun-eq --witness D --auto";
 
 namespace {
 
 struct ErrorsOptions {
-  std::string db, table, witness, model, column, format, rounding, scripts;
-  std::vector<std::string> params;
+  std::string db, table, witness, column, format, scripts;
+  ReferenceArgs reference;
   double tolerance = 0.5;
   int revision = 0;
-  bool automatic = false, no_record = false;
+  bool no_record = false;
 };
 
-std::vector<std::pair<std::string, double>> ParseParams(const std::vector<std::string>& texts) {
-  std::vector<std::pair<std::string, double>> out;
-  for (const auto& t : texts) {
-    const auto eq = t.find('=');
-    std::optional<double> value;
-    if (eq != std::string::npos && eq > 0) {
-      const std::string v = t.substr(eq + 1);
-      if (auto s = Sexagesimal::Parse(v)) {
-        value = s->ToDouble();
-      } else {
-        char* end = nullptr;
-        const double d = std::strtod(v.c_str(), &end);
-        if (!v.empty() && *end == '\0') value = d;
-      }
-    }
-    if (!value) throw InputError::ForOption("--param", ExpectedFound("NAME=VALUE (e.g. e=2;30 or e=2.5)", "'" + t + "'"));
-    out.emplace_back(t.substr(0, eq), *value);
+/// The practice differs from plain rounding to the column's places.
+bool SpecialPractice(const pipeline::ColumnReference& r, const Transcription& t) {
+  const auto& p = r.practice;
+  return p.rounding != Rounding::kNearest || p.grid > 0 || p.displacement != 0 ||
+         p.places.value_or(0) != t.columns.at(static_cast<std::size_t>(r.column)).places;
+}
+
+/// "solar-eccentric e=2.5 (2;30)", with "(fitted, rounded to 1 place)" when
+/// identified and the practice when it is not plain rounding.
+std::string ModelText(const pipeline::ColumnReference& r, const Transcription& t) {
+  std::string out = r.ModelText();
+  const std::string practice = SpecialPractice(r, t) ? pipeline::DescribePractice(r.practice, *r.practice.places) : "";
+  if (r.source == pipeline::ReferenceSource::kGiven) return practice.empty() ? out : out + " (" + practice + ")";
+  std::string how = "fitted";
+  if (r.rounded_places > 0) {
+    how += ", rounded to " + std::to_string(r.rounded_places) + (r.rounded_places == 1 ? " place" : " places");
   }
+  if (!practice.empty()) how += "; entries " + practice;
+  return out + " (" + how + ")";
+}
+
+std::string ModelText(const std::vector<pipeline::ColumnReference>& refs, const Transcription& t) {
+  std::string out;
+  for (const auto& r : refs) out += (out.empty() ? "" : "; ") + (refs.size() > 1 ? r.column_name + ": " : "") + ModelText(r, t);
   return out;
 }
 
-const model::Model& FindModel(const std::string& name) {
-  if (const model::Model* m = model::FindBuiltinModel(name)) return *m;
-  std::string known;
-  for (const auto* m : model::BuiltinModels()) known += (known.empty() ? "" : ", ") + m->name();
-  throw InputError::ForOption("--model", ExpectedFound("a built-in model (" + known + ")", "'" + name + "'"));
-}
-
-struct Chosen {
-  const model::Model* model = nullptr;
-  std::vector<double> params;
-  std::string how;  // "given" or "fitted"
-};
-
-int ExactEntries(const Chosen& c, const Transcription& t, const std::vector<int>& columns,
-                 const model::Practice& practice) {
-  int exact = 0;
-  for (int col : columns) {
-    const auto re = model::Recompute(*c.model, c.params, t, col, practice);
-    for (std::size_t r = 0; r < t.rows.size(); ++r) {
-      const auto& v = t.rows[r].cells[static_cast<std::size_t>(col)].value;
-      exact += v && re.computed[r] && *v == *re.computed[r];
-    }
-  }
-  return exact;
-}
-
-/// Authors chose round sexagesimal parameters: the fitted values brought to
-/// 1, 2 or 3 sexagesimal places, the coarsest that reproduces at least as
-/// many entries exactly as the fit itself.
-Chosen RoundParams(const Chosen& fitted, const Transcription& t, const std::vector<int>& columns,
-                   const model::Practice& practice) {
-  const int target = ExactEntries(fitted, t, columns, practice);
-  for (int places = 1; places <= 3; ++places) {
-    Chosen c = fitted;
-    for (double& v : c.params) v = Sexagesimal::FromDouble(v, places).ToDouble();
-    if (ExactEntries(c, t, columns, practice) >= target) {
-      c.how = "fitted, rounded to " + std::to_string(places) + (places == 1 ? " place" : " places");
-      return c;
-    }
-  }
-  return fitted;
-}
-
-/// --auto: the fitted parameters of one model, or of the built-in model that
-/// fits best (most entries reproduced exactly, then fewer free parameters,
-/// then the smallest scatter).
-Chosen AutoModel(const ErrorsOptions& o, const Transcription& t, const std::vector<int>& columns,
-                 const model::Practice& practice) {
-  estimate::FitOptions fo;
-  fo.practice = practice;
-  std::vector<const model::Model*> candidates;
-  if (!o.model.empty()) candidates.push_back(&FindModel(o.model));
-  else candidates = model::BuiltinModels();
-  Chosen best;
-  int best_good = -1;
-  double best_scale = INFINITY;
-  for (const auto* m : candidates) {
-    estimate::FitResult r;
-    try {
-      r = estimate::Fit(*m, t, columns, fo);
-    } catch (const std::exception&) {
-      if (candidates.size() == 1) throw;
-      continue;  // a model that cannot describe this table
-    }
-    // Most entries reproduced exactly; on a tie the fewer free parameters,
-    // then the smaller scatter (an equivalent richer model is no better).
-    const int good = r.exact * 100 - r.free_parameters;
-    if (good > best_good || (good == best_good && r.robust_scale < best_scale)) {
-      best = {m, r.Values(), "fitted"};
-      best_good = good;
-      best_scale = r.robust_scale;
-    }
-  }
-  if (!best.model) throw InputError::ForOption("--auto", "no built-in model could be fitted to this table");
-  return RoundParams(best, t, columns, practice);
-}
-
-/// "solar-eccentric e=2.5 (2;30)": the trade's notation beside a value that
-/// is a short sexagesimal fraction.
-std::string ModelText(const Chosen& c) {
-  std::string out = c.model->name();
-  for (std::size_t i = 0; i < c.params.size() && i < c.model->params().size(); ++i) {
-    char buf[64];
-    std::snprintf(buf, sizeof buf, " %s=%.6g", c.model->params()[i].name.c_str(), c.params[i]);
-    out += buf;
-    for (int places = 1; places <= 3; ++places) {
-      const auto v = Sexagesimal::FromDouble(c.params[i], places);
-      if (std::fabs(v.ToDouble() - c.params[i]) > 1e-12) continue;
-      if (std::fabs(c.params[i] - std::round(c.params[i])) > 1e-12) out += " (" + v.ToString() + ")";
-      break;
-    }
-  }
-  return out + (c.how == "given" ? "" : " (" + c.how + ")");
+nlohmann::json ReferenceJson(const pipeline::ColumnReference& r) {
+  nlohmann::json params = nlohmann::json::object();
+  for (std::size_t i = 0; i < r.params.size() && i < r.model->params().size(); ++i) params[r.model->params()[i].name] = r.params[i];
+  const auto& p = r.practice;
+  return {{"column", r.column_name}, {"model", r.model->name()}, {"params", params},
+          {"practice", {{"rounding", model::ToString(p.rounding)}, {"places", p.places.value_or(0)}, {"grid", p.grid},
+                        {"grid_origin", p.grid_origin}, {"round_nodes", p.round_nodes}, {"displacement", p.displacement}}},
+          {"description", r.description}, {"source", pipeline::ToString(r.source)},
+          {"witness", r.witness.empty() ? nlohmann::json(nullptr) : nlohmann::json(r.witness)}, {"how", r.how}};
 }
 
 nlohmann::json Units(double d) {
@@ -202,12 +133,15 @@ nlohmann::json FindingJson(const deviation::Finding& f) {
   return j;
 }
 
-void Print(const ErrorsOptions& o, const Transcription& t, const std::string& model,
+void Print(const ErrorsOptions& o, const Transcription& t, const std::vector<pipeline::ColumnReference>& refs,
            const std::vector<deviation::Finding>& findings, Io& io) {
   const Format format = ParseFormat(o.format);
+  const std::string model = ModelText(refs, t);
   if (format == Format::kJson) {
     nlohmann::json j = {{"table", t.table_id}, {"witness", t.witness.siglum}, {"script", t.witness.script},
                         {"model", model}, {"tolerance", o.tolerance}};
+    j["references"] = nlohmann::json::array();
+    for (const auto& r : refs) j["references"].push_back(ReferenceJson(r));
     j["findings"] = nlohmann::json::array();
     for (const auto& f : findings) j["findings"].push_back(FindingJson(f));
     io.out << j.dump(2) << "\n";
@@ -230,6 +164,9 @@ void Print(const ErrorsOptions& o, const Transcription& t, const std::string& mo
     }
     io.out << tab.RenderCsv();
     return;
+  }
+  for (const auto& r : refs) {
+    if (r.source == pipeline::ReferenceSource::kIdentified) io.out << r.column_name << ": " << r.description << "; " << r.how << "\n";
   }
   io.out << "table " << t.table_id << ", witness " << t.witness.siglum << " ("
          << (t.witness.script.empty() ? "hindu-arabic" : t.witness.script) << "), compared with " << model << ": "
@@ -280,52 +217,39 @@ int RunErrors(const std::vector<std::string>& args, Io& io) {
   options.add_options()
       ("table", po::value(&o.table)->required(), "table id")
       ("witness", po::value(&o.witness)->required(), "siglum of the witness")
-      ("model", po::value(&o.model), "built-in model to compare with")
-      ("param", po::value(&o.params)->composing(), "parameter value NAME=VALUE (repeatable)")
-      ("auto", po::bool_switch(&o.automatic), "fit the parameters (of --model, or of every built-in model) first")
       ("column", po::value(&o.column), "only this column")
       ("tolerance", po::value(&o.tolerance)->default_value(0.5), "units of the last place an entry may differ")
-      ("rounding", po::value(&o.rounding)->default_value("nearest"), "the author's rounding: nearest|truncate")
       ("revision", po::value(&o.revision), "an earlier revision of the transcription (default: current)")
       ("scripts", po::value(&o.scripts)->default_value(deviation::DefaultScriptDir()), "folder of numeral scripts")
       ("no-record", po::bool_switch(&o.no_record), "do not record the proposals in the database");
+  AddReferenceOptions(options, o.reference,
+                      "identify the model, parameters and practice from the table's witnesses first");
   AddFormatOption(options, o.format, {"text", "csv", "json"});
   AddDbOption(options, o.db);
   po::variables_map vm;
   if (ParseOptions(FindCommand("errors"), args, options, vm, io)) return kOk;
   CheckChoice("--format", o.format, {"text", "csv", "json"});
-  CheckChoice("--rounding", o.rounding, {"nearest", "truncate"});
-  if (o.model.empty() && !o.automatic) throw InputError::ForOption("--model", "expected --model NAME or --auto, found neither");
-  if (o.automatic && !o.params.empty()) throw InputError::ForOption("--param", "expected no --param with --auto (the parameters are fitted)");
+  CheckChoice("--rounding", o.reference.rounding, {"nearest", "truncate"});
+  pipeline::ReferenceRequest request = ToReferenceRequest(o.reference, vm);
+  if (request.Empty()) throw InputError::ForOption("--model", "expected --model NAME, --formula TEXT or --auto, found none of them");
   if (!(o.tolerance >= 0)) throw InputError::ForOption("--tolerance", ExpectedFound("a number of units >= 0", std::to_string(o.tolerance)));
   if (!std::filesystem::exists(o.db)) throw InputError::ForOption("--db", ExpectedFound("an edition database", "no file '" + o.db + "'"));
 
   store::Database db(o.db);
   const Transcription t = store::Load(db, o.table, o.witness, o.revision > 0 ? std::optional<int>(o.revision) : std::nullopt);
-  const auto columns = estimate::ResolveColumns(t, o.column.empty() ? std::vector<std::string>{} : std::vector<std::string>{o.column});
+  if (!o.column.empty()) request.columns = {o.column};
+  // --auto identifies from every witness of the table (this revision of this one).
+  std::vector<Transcription> witnesses = request.automatic ? store::LoadTable(db, o.table) : std::vector<Transcription>{};
+  std::erase_if(witnesses, [&](const Transcription& w) { return w.witness.siglum == t.witness.siglum; });
+  witnesses.insert(witnesses.begin(), t);
+  const auto refs = pipeline::ResolveReferences(witnesses, request, pipeline::LoadModelLibrary(db));
   const deviation::NumeralScript script = deviation::FindNumeralScript(t.witness.script, o.scripts);
-  model::Practice practice;
-  practice.rounding = *model::RoundingFromString(o.rounding);
-  Chosen chosen;
-  if (o.automatic) {
-    chosen = AutoModel(o, t, columns, practice);
-  } else {
-    const model::Model& m = FindModel(o.model);
-    chosen = {&m, model::ParamsWithOverrides(m, ParseParams(o.params)), "given"};
-  }
   deviation::ExplainOptions eo;
   eo.tolerance = o.tolerance;
-  std::vector<deviation::Finding> findings;
-  for (int col : columns) {
-    const auto re = model::Recompute(*chosen.model, chosen.params, t, col, practice);
-    deviation::ColumnValues values{col, re.computed, re.exact};
-    auto found = deviation::ExplainColumn(t, values, script, eo);
-    findings.insert(findings.end(), found.begin(), found.end());
-  }
-  const std::string model_text = ModelText(chosen);
-  Print(o, t, model_text, findings, io);
+  const auto findings = pipeline::ExplainWitness(t, refs, script, eo).findings;
+  Print(o, t, refs, findings, io);
   if (!o.no_record) {
-    auto proposals = Proposals(t, CurrentRevision(db, o), model_text, findings);
+    auto proposals = Proposals(t, CurrentRevision(db, o), ModelText(refs, t), findings);
     if (!proposals.empty()) {
       const auto r = store::RecordEmendations(db, proposals);
       io.err << "recorded " << r.added << " new proposed emendation" << (r.added == 1 ? "" : "s") << " in " << o.db

@@ -18,15 +18,19 @@ namespace apograph::cli {
 extern const char kStemmaUsage[] =
     "usage: apograph stemma (--table ID | --work ID) [--method nj|parsimony|both] [--bootstrap N]\n"
     "                       [--seed N] [--format text|newick|dot|json] [--svg FILE]\n"
-    "                       [--witnesses A,B,...] [--model NAME [--param N=V]...] [--db FILE]\n\n"
+    "                       [--witnesses A,B,...] [--db FILE]\n"
+    "                       [(--model NAME | --formula TEXT) [--param N=V]... [practice options] | --auto]\n\n"
     "Works out the stemma from the errors the witnesses share (shared right readings\n"
     "do not count; distinctive errors weigh more than common slips), rooted at the\n"
     "archetype. Parsimony is exact (branch-and-bound) up to 12 witnesses and a\n"
     "heuristic (stepwise addition + SPR) beyond. Also names candidate direct copies\n"
     "and contaminated witnesses with the rows where they change exemplar.\n"
     "--svg renders the DOT drawing with Graphviz (dot) into FILE.\n"
+    "Which readings are errors: see apograph collate --help. With --auto (or a model)\n"
+    "the author's own departures from the model do not count as errors of descent\n"
+    "and common slips weigh less; --work with --auto identifies each table's model.\n"
     "Exit code 1 when copies or contamination were found.\n\n"
-    "example: apograph stemma --table solar-eq --method both --bootstrap 100";
+    "example: apograph stemma --table sun-eq --auto --method both --bootstrap 100";
 
 namespace {
 
@@ -36,8 +40,9 @@ lineage::CharacterMatrix Characters(store::Database& db, const std::string& tabl
     request.table = table;
     return lineage::BuildErrorCharacters(CollateFromDb(db, request));
   }
-  if (!request.model.empty()) {
-    throw InputError::ForOption("--model", "expected --table with a model (a work's tables differ), found --work");
+  if (!request.reference.Empty() && !request.reference.automatic) {
+    throw InputError::ForOption("--model", "expected --table with a model (a work's tables differ; --auto identifies "
+                                           "each table's own), found --work");
   }
   std::vector<lineage::CharacterMatrix> parts;
   for (const auto& t : store::TablesOfWork(db, work)) {
@@ -105,6 +110,7 @@ int RunStemma(const std::vector<std::string>& args, Io& io) {
   AddDbOption(options, db_path);
   po::variables_map vm;
   if (ParseOptions(FindCommand("stemma"), args, options, vm, io)) return kOk;
+  FinishCollateRequest(request, vm);
   CheckChoice("--format", format, {"text", "newick", "dot", "json"});
   CheckChoice("--method", method, {"nj", "parsimony", "both"});
   if (table.empty() == work.empty()) throw InputError::ForOption("stemma", "expected one of --table or --work, found " +

@@ -1,11 +1,10 @@
 #include "cli/collate_input.hpp"
 
 #include <algorithm>
-#include <cmath>
 #include <sstream>
 
-#include "model/check.hpp"
-#include "model/model.hpp"
+#include "deviation/numeral_script.hpp"
+#include "pipeline/witness_findings.hpp"
 #include "store/edition_store.hpp"
 #include "support/input_error.hpp"
 
@@ -21,61 +20,37 @@ std::vector<std::string> Split(const std::string& text, char sep) {
   return out;
 }
 
-std::vector<std::pair<std::string, double>> ParseParams(const std::vector<std::string>& params) {
-  std::vector<std::pair<std::string, double>> out;
-  for (const auto& p : params) {
-    const auto eq = p.find('=');
-    std::size_t used = 0;
-    double v = 0;
-    try {
-      if (eq != std::string::npos) v = std::stod(p.substr(eq + 1), &used);
-    } catch (const std::exception&) {
-      used = 0;
-    }
-    if (eq == std::string::npos || eq == 0 || used == 0 || eq + 1 + used != p.size()) {
-      throw InputError::ForOption("--param", ExpectedFound("NAME=NUMBER", "'" + p + "'"));
-    }
-    out.emplace_back(p.substr(0, eq), v);
+/// Each witness's findings against the references become the judgements.
+collate::CollateOptions JudgedOptions(store::Database& db, const std::vector<Transcription>& witnesses,
+                                      const CollateRequest& r) {
+  pipeline::ReferenceRequest request = r.reference;
+  if (!r.column.empty()) request.columns = {r.column};
+  const auto refs = pipeline::ResolveReferences(witnesses, request, pipeline::LoadModelLibrary(db));
+  std::vector<pipeline::WitnessFindings> findings;
+  for (const auto& w : witnesses) {
+    const auto script = deviation::FindNumeralScript(w.witness.script, r.scripts);
+    findings.push_back(pipeline::ExplainWitness(w, refs, script));
   }
-  return out;
-}
-
-collate::Reference ModelReference(const CollateRequest& r, const std::vector<ColumnSpec>& columns) {
-  const model::Model* m = model::FindBuiltinModel(r.model);
-  if (!m) throw InputError::ForOption("--model", ExpectedFound("the name of a built-in model", "'" + r.model + "'"));
-  const auto params = model::ParamsWithOverrides(*m, ParseParams(r.params));
-  int only = -1;
-  if (!r.column.empty()) {
-    for (std::size_t c = 0; c < columns.size(); ++c) {
-      if (columns[c].name == r.column) only = static_cast<int>(c);
-    }
-    if (only < 0) throw InputError::ForOption("--column", ExpectedFound("a column of the table", "'" + r.column + "'"));
-  }
-  std::ostringstream d;
-  d << r.model;
-  for (std::size_t k = 0; k < params.size(); ++k) d << " " << m->params()[k].name << "=" << params[k];
-  d << ", rounded to the column's places";
-  return {d.str(), [m, params, columns, only](const Sexagesimal& arg, int col) -> std::optional<Sexagesimal> {
-            if (only >= 0 && col != only) return std::nullopt;
-            model::RowContext ctx;
-            ctx.arg = arg.ToDouble();
-            ctx.column = col;
-            if (columns[col].arg2) ctx.arg2 = columns[col].arg2->ToDouble();
-            const double v = m->Evaluate(params, ctx);
-            if (!std::isfinite(v)) return std::nullopt;
-            return Sexagesimal::FromDouble(v, columns[col].places);
-          }};
+  return pipeline::JudgedCollateOptions(witnesses, refs, findings, r.tolerance);
 }
 
 }  // namespace
 
 void AddCollateOptions(po::options_description& o, CollateRequest& r) {
   o.add_options()("witnesses", po::value(&r.witnesses), "only these witnesses (comma-separated sigla)")(
-      "model", po::value(&r.model), "judge readings against this built-in model (default: by majority)")(
-      "param", po::value(&r.params)->composing(), "model parameter NAME=VALUE (repeatable)")(
       "column", po::value(&r.column), "the column the model computes (default: every column)")(
       "tolerance", po::value(&r.tolerance)->default_value(1),
-      "units of the last place a reading may lie from the recomputed value");
+      "units of the last place a reading may lie from the recomputed value (cells without a judgement)")(
+      "scripts", po::value(&r.scripts)->default_value(deviation::DefaultScriptDir()), "folder of numeral scripts");
+  AddReferenceOptions(o, r.reference_args,
+                      "identify each column's model, parameters and practice from the witnesses, and judge by it");
+}
+
+void FinishCollateRequest(CollateRequest& r, const po::variables_map& vm) {
+  r.reference = ToReferenceRequest(r.reference_args, vm);
+  if (r.reference.Empty() && !r.reference_args.params.empty()) {
+    throw InputError::ForOption("--param", "expected --model or --formula with --param, found neither");
+  }
 }
 
 collate::Collation CollateFromDb(store::Database& db, const CollateRequest& r) {
@@ -97,7 +72,7 @@ collate::Collation CollateFromDb(store::Database& db, const CollateRequest& r) {
   }
   collate::CollateOptions options;
   options.tolerance_units = r.tolerance;
-  if (!r.model.empty()) options.reference = ModelReference(r, chosen.front().columns);
+  if (!r.reference.Empty()) options = JudgedOptions(db, chosen, r);
   return collate::Collate(chosen, options);
 }
 

@@ -1,13 +1,16 @@
 #pragma once
 /// What `collate`, `stemma` and `apparatus` share: loading the witnesses of
-/// a table from the database and collating them, optionally against a
-/// built-in model.
+/// a table from the database and collating them, either by majority or,
+/// when a model is given (--model/--formula with the practice options, or
+/// --auto), judged by each witness's explained deviations from it.
 
 #include <string>
 #include <vector>
 
 #include "cli/command.hpp"
+#include "cli/reference_options.hpp"
 #include "collate/collation.hpp"
+#include "pipeline/reference.hpp"
 #include "store/database.hpp"
 
 namespace apograph::cli {
@@ -15,14 +18,20 @@ namespace apograph::cli {
 struct CollateRequest {
   std::string table;
   std::string witnesses;  ///< comma-separated sigla; empty: all
-  std::string model;      ///< built-in model name; empty: majority basis
-  std::vector<std::string> params;  ///< NAME=VALUE
   std::string column;     ///< the column the model computes; empty: every column
   double tolerance = 1;
+  std::string scripts;    ///< numeral scripts folder
+  ReferenceArgs reference_args;
+  /// Filled by FinishCollateRequest; Empty(): majority basis.
+  pipeline::ReferenceRequest reference;
 };
 
-/// Adds --witnesses, --model, --param, --column, --tolerance.
+/// Adds --witnesses, --column, --tolerance, --scripts and the model options
+/// (reference_options.hpp, with --auto).
 void AddCollateOptions(po::options_description& options, CollateRequest& request);
+
+/// Checks the model options once parsed.
+void FinishCollateRequest(CollateRequest& request, const po::variables_map& vm);
 
 /// Loads the table's current transcriptions (those named) and collates them.
 collate::Collation CollateFromDb(store::Database& db, const CollateRequest& request);

@@ -1,5 +1,6 @@
 #include "cli/estimate_options.hpp"
 
+#include <cmath>
 #include <cstdlib>
 
 #include "model/formula.hpp"
@@ -13,8 +14,8 @@ double ParseNumber(const std::string& option, const std::string& text) {
   if (auto v = Sexagesimal::Parse(text)) return v->ToDouble();
   char* end = nullptr;
   const double d = std::strtod(text.c_str(), &end);
-  if (!text.empty() && end && *end == '\0') return d;
-  throw InputError::ForOption(option, ExpectedFound("a number such as 2;4,48 or 2.08", text));
+  if (!text.empty() && end && *end == '\0' && std::isfinite(d)) return d;
+  throw InputError::ForOption(option, ExpectedFound("a number such as 2;4,48 or 2.08", "'" + text + "'"));
 }
 
 std::vector<estimate::CatalogEntry> LoadCatalog(store::Database& db) {

@@ -49,6 +49,33 @@ Explanation ConfusionExplanation(const CellContext& c, const Sexagesimal& readin
   return e;
 }
 
+/// Fractional places in a positional script are two-digit positions: a copy
+/// may show 51 where 01 was meant (0 read as 5) and 1 where 51 was (5 read
+/// as 0), the leading zero being a symbol like any other.
+bool TwoDigitPlace(const CellContext& c, std::size_t place) {
+  return c.script->writing() == Writing::kPositional && place >= 1;
+}
+
+void AddLeadingZeroVariants(const CellContext& c, int written, std::vector<PlaceVariant>& variants) {
+  const std::string zero = "0";
+  for (const auto& conf : c.script->confusions()) {
+    PlaceVariant v;
+    if (written >= 10 && conf.intended == zero && conf.written == std::to_string(written / 10)) {
+      v.original = written % 10;  // the tens digit stood for a leading zero
+    } else if (written < 10 && conf.written == zero && conf.intended.size() == 1 && conf.intended[0] >= '1' &&
+               conf.intended[0] <= '5') {
+      v.original = (conf.intended[0] - '0') * 10 + written;  // the leading zero stood for a tens digit
+    } else {
+      continue;
+    }
+    v.weight = conf.weight;
+    v.steps = {{conf.intended, conf.written, conf.weight, conf.source}};
+    auto same = std::find_if(variants.begin(), variants.end(), [&](const PlaceVariant& o) { return o.original == v.original; });
+    if (same == variants.end()) variants.push_back(v);
+    else if (same->weight < v.weight) *same = v;
+  }
+}
+
 }  // namespace
 
 std::vector<Explanation> ConfusionCandidates(const CellContext& c) {
@@ -60,6 +87,7 @@ std::vector<Explanation> ConfusionCandidates(const CellContext& c) {
     const int written = static_cast<int>(copy.d[p]);
     per_place.push_back(written < 1000 ? c.script->OriginalsOf(written, Limit(p), steps)
                                        : std::vector<PlaceVariant>{});
+    if (TwoDigitPlace(c, p) && written < 60) AddLeadingZeroVariants(c, written, per_place.back());
   }
   for (std::size_t p = 0; p < copy.d.size(); ++p) {
     for (const auto& v : per_place[p]) {
@@ -96,7 +124,9 @@ std::vector<Explanation> TranspositionCandidates(const CellContext& c) {
   const Digits copy = ToDigits(c.tabulated, c.places);
   for (std::size_t p = 0; p < copy.d.size(); ++p) {
     const std::int64_t v = copy.d[p];
-    if (v < 10 || v > 99 || v % 10 == 0 || v / 10 == v % 10) continue;
+    // 43 for 34; in a two-digit place also 4 (04) for 40 and 40 for 4 (04).
+    const bool padded = TwoDigitPlace(c, p) && v >= 1 && v <= 59 && (v < 10 || v % 10 == 0);
+    if (!padded && (v < 10 || v > 99 || v % 10 == 0 || v / 10 == v % 10)) continue;
     Digits d = copy;
     d.d[p] = (v % 10) * 10 + v / 10;
     auto reading = FromDigits(d);
@@ -106,8 +136,13 @@ std::vector<Explanation> TranspositionCandidates(const CellContext& c) {
     e.cls = SlipClass::kTransposition;
     e.score = (positional ? kPriorTransposition : kPriorTranspositionOther) * c.Closeness(*reading);
     e.emendation = reading;
-    e.evidence = PlaceName(static_cast<int>(p), c.unit) + ": the digits of " + std::to_string(d.d[p]) +
-                 " transposed to " + std::to_string(v) +
+    auto two = [&](std::int64_t x) {
+      std::string t = std::to_string(x);
+      if (padded && x < 10) t.insert(t.begin(), '0');
+      return t;
+    };
+    e.evidence = PlaceName(static_cast<int>(p), c.unit) + ": the digits of " + two(d.d[p]) + " transposed to " +
+                 two(v) + (padded ? " (read " + std::to_string(v) + ")" : "") +
                  (positional ? "" : " (a slip of digits, unusual in " + c.script->title() + ")") + "; " +
                  c.ModelClause(*reading);
     out.push_back(std::move(e));

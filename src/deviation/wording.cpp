@@ -84,7 +84,11 @@ std::string DigitPlaceWords(const NumeralScript& script, int from, int to, int p
                             const std::string& unit) {
   const std::string name = PlaceName(place, unit);
   if (script.writing() != Writing::kPositional) return name;
-  const std::string a = std::to_string(from), b = std::to_string(to);
+  std::string a = std::to_string(from), b = std::to_string(to);
+  if (place >= 1 && from < 60 && to < 60) {  // fractional places are written with two digits
+    if (a.size() < 2) a.insert(a.begin(), '0');
+    if (b.size() < 2) b.insert(b.begin(), '0');
+  }
   if (a.size() != b.size() || a.size() < 2) return name;
   int differing = -1, count = 0;
   for (std::size_t i = 0; i < a.size(); ++i) {

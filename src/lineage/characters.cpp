@@ -65,6 +65,17 @@ std::string RightText(const collate::CollatedCell& cell) {
   return cell.computed ? cell.computed->ToString() : "";
 }
 
+// A witness without the slide reads the run's rows right; with an error
+// (its own slide or slip) or an unreadable cell there it may have had the
+// slide and written over it: unknown, as for a cell.
+bool ReadsRunRight(const collate::Collation& c, const std::string& siglum, int col, int first, int last) {
+  for (int j = first; j <= last; ++j) {
+    const collate::Reading* r = c.rows[j].cells[col].ReadingOf(siglum);
+    if (!r || !r->Comparable() || r->error) return false;
+  }
+  return true;
+}
+
 void AddSlideCharacters(const collate::Collation& c, CharacterMatrix& m) {
   // Witnesses sharing the same slid run share one character.
   std::map<std::tuple<int, int, int, int>, std::vector<std::string>> runs;
@@ -81,7 +92,7 @@ void AddSlideCharacters(const collate::Collation& c, CharacterMatrix& m) {
     ch.weight_reason = "a run of a column slid by a row";
     for (const auto& w : c.witnesses) {
       const bool has = std::find(sigla.begin(), sigla.end(), w.siglum) != sigla.end();
-      ch.states.push_back(has ? 1 : 0);
+      ch.states.push_back(has ? 1 : (ReadsRunRight(c, w.siglum, col, first, last) ? 0 : -1));
     }
     m.characters.push_back(std::move(ch));
   }
@@ -99,6 +110,7 @@ void AddCellCharacters(const collate::Collation& c, int j, const collate::Collat
     ch.block = c.table_id + " " + ch.row_label;
     ch.position = j;
     ch.weight = ErrorWeight(r, right, &ch.weight_reason);
+    ch.omission = r.kind == collate::ReadingKind::kBlank;
     for (const auto& w : c.witnesses) {
       const collate::Reading* mine = cell.ReadingOf(w.siglum);
       signed char s = -1;
@@ -145,6 +157,7 @@ CharacterMatrix MergeMatrices(const std::vector<CharacterMatrix>& parts) {
     for (const auto& ch : p.characters) {
       Character out = ch;
       out.position = offset + ch.position;
+      if (parts.size() > 1) out.row_label = ch.block;  // "decl 25": rows of several tables
       last = std::max(last, ch.position + 1);
       out.states.assign(m.taxa.size(), -1);
       for (std::size_t k = 0; k < p.taxa.size(); ++k) {

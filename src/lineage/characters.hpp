@@ -40,6 +40,9 @@ struct Character {
   std::vector<signed char> states;  ///< per taxon: 1 carries the error, 0 not, -1 unknown
   double weight = 1;
   std::string weight_reason;
+  /// The error is an entry left blank: a copyist may fill it in (from the
+  /// model or another copy), so a copy that reads it does not refute descent.
+  bool omission = false;
 };
 
 struct CharacterMatrix {

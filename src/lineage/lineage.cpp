@@ -106,7 +106,7 @@ nlohmann::json ToJson(const LineageReport& r) {
   out["copies"] = json::array();
   for (const auto& c : r.copies) {
     out["copies"].push_back({{"copy", c.copy}, {"exemplar", c.exemplar}, {"exemplar_errors", c.exemplar_errors},
-                             {"own_errors", c.own_errors}, {"unreadable", c.unreadable}, {"twins", c.twins},
+                             {"own_errors", c.own_errors}, {"unreadable", c.unreadable}, {"filled", c.filled}, {"twins", c.twins},
                              {"text", c.text}});
   }
   out["contamination"] = json::array();

@@ -69,7 +69,7 @@ LineageReport AnalyseLineage(const CharacterMatrix& matrix, const LineageOptions
 /// The documented JSON of a report: {witnesses, characters,
 /// undetermined_cells, results: [{method, newick, groups: [{witnesses,
 /// support, length}], length, exact, search}], copies: [{copy, exemplar,
-/// exemplar_errors, own_errors, unreadable, twins, text}], contamination:
+/// exemplar_errors, own_errors, unreadable, filled, twins, text}], contamination:
 /// [{witness, text, segments: [{relative, first_row, last_row, shared,
 /// against}]}]}.
 nlohmann::json ToJson(const LineageReport& report);

@@ -18,6 +18,7 @@ CopyCandidate Compare(const CharacterMatrix& m, int a, int b, bool& contained) {
     if (sa == 1) {
       if (sb == 1) ++c.exemplar_errors;
       else if (sb == -1) ++c.unreadable;
+      else if (ch.omission) ++c.filled;
       else contained = false;
     } else if (sa == 0 && sb == 1) {
       ++c.own_errors;
@@ -34,6 +35,10 @@ std::string CopyText(const CopyCandidate& c) {
   } else {
     o << c.copy << " may be a copy of " << c.exemplar << ": " << c.copy << " has all " << c.exemplar_errors
       << " of " << c.exemplar << "'s errors and " << c.own_errors << " of its own";
+  }
+  if (c.filled) {
+    o << "; " << c.copy << " fills in " << c.filled << (c.filled == 1 ? " entry " : " entries ") << c.exemplar
+      << " leaves blank";
   }
   if (c.unreadable) {
     o << " (at " << c.unreadable << " more of " << c.exemplar << "'s errors " << c.copy

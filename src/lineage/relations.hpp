@@ -17,6 +17,7 @@ struct CopyCandidate {
   int exemplar_errors = 0;  ///< A's errors, all found in B
   int own_errors = 0;       ///< B's errors not in A
   int unreadable = 0;       ///< A's errors where B cannot be compared (illegible or another error)
+  int filled = 0;           ///< entries A leaves blank that B reads (a copyist may fill them in)
   /// Both carry exactly the same errors: either copied the other, or both a
   /// lost exemplar.
   bool twins = false;

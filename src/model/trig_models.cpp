@@ -8,7 +8,7 @@
 namespace apograph::model::internal {
 namespace {
 
-/// crd(a) = 2R sin(a/2). Ptolemy's table: R = 60 (diameter 120), arcs 0;30..180.
+/// crd(a) = 2R sin(a/2). The ancient Greek chord table: R = 60 (diameter 120), arcs 0;30..180.
 template <typename T>
 T Chord(const T* p, T a, T) {
   return T(2) * p[0] * std::fabs(SinDeg(a / T(2)));

@@ -117,6 +117,26 @@ TEST_CASE("each kind of slip injected into a solar equation table is recovered")
   CHECK(At(findings, moved)->best().evidence.find("degrees written as minutes") != std::string::npos);
 }
 
+TEST_CASE("places written with two digits: a leading zero transposed or confused") {
+  // Fractional places are two-digit positions: 0;40,48 copied "0;04,48" is
+  // read 0;4,48 (the digits of 40 transposed), and 2;4,01 copied "2;4,51"
+  // (0 read as 5 in the tens of seconds; cases of the demo's TRUTH.md).
+  Synthetic s = MakeTable(testing::SolarEquation, 1, 1, 180, 2);
+  const std::size_t trans = FindRow(s, 1, 0, [](int m) { return m >= 10 && m % 10 == 0; });
+  const int tm = s.table.rows[trans].cells[0].value->FractionDigits()[0];
+  s.Set(trans, WithPlace(s, trans, 1, tm / 10));
+  const std::size_t conf = FindRow(s, 2, trans + 5, [](int x) { return x >= 1 && x <= 9; });
+  const int cs = s.table.rows[conf].cells[0].value->FractionDigits()[1];
+  s.Set(conf, WithPlace(s, conf, 2, 50 + cs));
+  const auto findings = Explain(s);
+  CheckSingle(findings, trans, SlipClass::kTransposition, Original(s, trans));
+  CheckSingle(findings, conf, SlipClass::kConfusion, Original(s, conf));
+  CHECK(findings.size() == 2);
+  CHECK(At(findings, trans)->best().evidence.find("minutes: the digits of " + std::to_string(tm) + " transposed to 0" +
+                                                  std::to_string(tm / 10)) == 0);
+  CHECK(At(findings, conf)->best().evidence.find("tens of seconds: 0 read as 5") == 0);
+}
+
 TEST_CASE("a run of entries displaced by one row is one finding") {
   Synthetic s = MakeTable(testing::SolarEquation, 1, 1, 180, 2);
   for (std::size_t r = 30; r <= 35; ++r) s.Set(r, Original(s, r + 1));

@@ -1,0 +1,143 @@
+#pragma once
+/// The explanation of one column that every later stage works against: a
+/// model (built-in or formula), its parameter values and the author's
+/// computing practice, with a sentence saying what it is and how it was
+/// obtained (given by the editor, or identified from a witness).
+///
+/// Obtained either from an explicit request (model name, saved formula or
+/// formula text; parameters; practice) or automatically: every witness's
+/// column is identified (estimate::Identify: families x practices), the
+/// witness whose best candidate reproduces the most entries exactly is
+/// chosen (ties: the higher identification score, then the first siglum),
+/// and its fitted parameters are brought to the coarsest sexagesimal value
+/// that still reproduces as many entries exactly (RoundParams). One witness
+/// rather than all of them jointly: witnesses disagree exactly where they
+/// carry slips, and the least corrupted copy shows the author's practice
+/// best; the description names that witness.
+///
+///     pipeline::ReferenceRequest r;
+///     r.automatic = true;
+///     auto refs = pipeline::ResolveReferences(witnesses, r, library);
+///     refs[0].description  // "solar-eccentric e = 2;16, rounded to 2 places, ..."
+
+#include <memory>
+#include <string>
+#include <utility>
+#include <vector>
+
+#include "edition/transcription.hpp"
+#include "model/model.hpp"
+
+namespace apograph::store {
+class Database;
+}
+
+namespace apograph::pipeline {
+
+/// The models a request may name besides the built-ins: the formulas saved
+/// in the database, compiled.
+struct ModelLibrary {
+  std::vector<std::shared_ptr<const model::Model>> formulas;
+  /// A built-in model or saved formula by name; nullptr when unknown.
+  std::shared_ptr<const model::Model> Find(const std::string& name) const;
+  /// "chord, sine, ..., my-formula": for error messages.
+  std::string KnownNames() const;
+};
+
+/// Every saved formula of the database that compiles (one that no longer
+/// compiles is left out; `apograph formula show` says why).
+ModelLibrary LoadModelLibrary(store::Database& db);
+
+/// What the editor asked for. Either a model (`model` or `formula`) with
+/// `params` over its defaults and `practice`, or `automatic`.
+struct ReferenceRequest {
+  std::string model;    ///< built-in model or saved formula name
+  std::string formula;  ///< formula text (grammar/formula.ebnf)
+  std::vector<std::pair<std::string, double>> params;  ///< overrides of the defaults
+  model::Practice practice;
+  /// Identify the model and practice from the entries. With `model` or
+  /// `formula` set, only that model is tried (its parameters and the
+  /// practice are still estimated).
+  bool automatic = false;
+  /// The editor gave the practice (rounding, places, grid, displacement):
+  /// with `automatic` and a model, only the parameters are then fitted
+  /// under it; `automatic` without a model refuses it.
+  bool practice_given = false;
+  /// For `automatic`: identify from this witness only (empty: choose).
+  std::string witness;
+  /// Identification runs per column; empty: every value column.
+  std::vector<std::string> columns;
+  bool Empty() const { return model.empty() && formula.empty() && !automatic; }
+};
+
+/// How a reference was obtained.
+enum class ReferenceSource { kGiven, kIdentified };
+const char* ToString(ReferenceSource source);  ///< "given", "identified"
+
+struct ColumnReference {
+  int column = 0;  ///< index in the table's columns
+  std::string column_name;
+  /// Shared so that references stay plain copyable values; a built-in model
+  /// is held without ownership, a formula is owned.
+  std::shared_ptr<const model::Model> model;
+  std::vector<double> params;  ///< in the model's order
+  model::Practice practice;    ///< places filled in (the column's unless given)
+  std::string formula;         ///< formula text when the model is a formula
+  ReferenceSource source = ReferenceSource::kGiven;
+  /// For identified references: the witness identified from, and the
+  /// evidence of its best candidate.
+  std::string witness;
+  double score = 0;
+  int exact = 0, entries = 0;  ///< entries of that witness reproduced exactly / compared
+  int rounded_places = 0;      ///< places the parameters were brought to (0: not rounded)
+  std::vector<std::string> ties;  ///< identify's notes on near-ties
+  /// "solar-eccentric e = 2;16, rounded to 2 places, exact every 6 and
+  /// linear between"
+  std::string description;
+  /// "identified from witness D (178 of 180 entries exact, score -60.2);
+  /// parameters brought to 2 places" or "given".
+  std::string how;
+
+  /// "solar-eccentric e=2.26667 (2;16)": name and parameter values, both
+  /// in decimal and, for short sexagesimal fractions, the trade's notation.
+  std::string ModelText() const;
+  /// Recomputes this column of a witness.
+  model::ColumnRecomputation Recompute(const Transcription& witness) const;
+  /// The value at an argument (and column argument, in a double-argument
+  /// table) under the practice, at the practice's places; nullopt where the
+  /// model is undefined or needs the table's other cells (a formula reading
+  /// col() or a neighbouring row).
+  std::optional<Sexagesimal> ValueAt(double argument, std::optional<double> arg2 = std::nullopt) const;
+};
+
+/// A parameter value as an editor writes it: the trade's notation when it
+/// is a sexagesimal fraction of at most 3 places (2;16), else decimal
+/// (360, 2.26913).
+std::string ParamValueText(double value);
+
+/// "rounded to 2 places, exact every 6 and linear between".
+std::string DescribePractice(const model::Practice& practice, int places);
+
+/// Resolves the references of the requested columns (every value column
+/// when the request names none) of a table from its witnesses (at least
+/// one, all of the same table). Throws InputError (option --model,
+/// --formula, --param, --auto, --witness or --column) on bad requests.
+std::vector<ColumnReference> ResolveReferences(const std::vector<Transcription>& witnesses,
+                                               const ReferenceRequest& request,
+                                               const ModelLibrary& library = {});
+
+/// Authors chose round parameters: `params` brought to 1, 2 or 3
+/// sexagesimal places, the coarsest that reproduces at least as many
+/// entries of `columns` exactly as `params` themselves. Returns the values
+/// and the places used (0: none of them did; the values are returned as
+/// given). Parameters with a value below 1e-9 stay 0.
+std::pair<std::vector<double>, int> RoundParams(const model::Model& model, const std::vector<double>& params,
+                                                const Transcription& table, const std::vector<int>& columns,
+                                                const model::Practice& practice);
+
+/// Entries of `columns` of `table` that `model` at `params` under `practice`
+/// reproduces exactly.
+int ExactEntries(const model::Model& model, const std::vector<double>& params, const Transcription& table,
+                 const std::vector<int>& columns, const model::Practice& practice);
+
+}  // namespace apograph::pipeline

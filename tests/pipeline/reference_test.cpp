@@ -1,0 +1,131 @@
+// Column references and judgements on synthetic tables (e = 2;30).
+#include "pipeline/reference.hpp"
+
+#include <doctest/doctest.h>
+
+#include "../deviation/synthetic.hpp"
+#include "../test_support.hpp"
+#include "deviation/numeral_script.hpp"
+#include "pipeline/witness_findings.hpp"
+#include "support/input_error.hpp"
+
+namespace apograph::pipeline {
+namespace {
+
+const std::string kScripts = std::string(APOGRAPH_SOURCE_DIR) + "/corpora/scripts";
+
+testing::Synthetic Table() { return testing::MakeTable(testing::SolarEquation, 1, 1, 90, 2); }
+
+TEST_CASE("RoundParams brings a fitted value to the coarsest place that keeps the exact entries") {
+  const auto s = Table();
+  const model::Model& m = *model::FindBuiltinModel("solar-eccentric");
+  const auto [params, places] = RoundParams(m, {2.5004}, s.table, {0}, {});
+  CHECK(places == 1);
+  CHECK(params.at(0) == doctest::Approx(2.5).epsilon(1e-15));
+  CHECK(ExactEntries(m, params, s.table, {0}, {}) == 90);
+  // A table made with e = 2;30,30: one place (2;31 or 2;30) loses entries.
+  const double e = 2.5 + 30.0 / 3600;
+  const auto t = testing::MakeTable(
+      [e](double a) {
+        const double r = a * std::numbers::pi / 180.0;
+        return std::atan2(e * std::sin(r), 60.0 + e * std::cos(r)) * 180.0 / std::numbers::pi;
+      },
+      1, 1, 90, 2);
+  const auto [kept, two] = RoundParams(m, {e + 1e-6}, t.table, {0}, {});
+  CHECK(two == 2);
+  CHECK(Sexagesimal::FromDouble(kept.at(0), 2).ToString() == "2;30,30");
+  CHECK(std::fabs(kept.at(0) - e) < 1e-12);
+}
+
+TEST_CASE("a given reference and an identified one describe themselves") {
+  auto s = Table();
+  ReferenceRequest given;
+  given.model = "solar-eccentric";
+  given.params = {{"e", 2.5}};
+  given.practice.grid = 6;
+  const auto g = ResolveReferences({s.table}, given).at(0);
+  CHECK(g.description == "solar-eccentric e = 2;30, rounded to 2 places, exact every 6 and linear between");
+  CHECK(g.how == "given");
+  CHECK(g.ModelText() == "solar-eccentric e=2.5 (2;30)");
+
+  ReferenceRequest automatic;
+  automatic.automatic = true;
+  automatic.model = "solar-eccentric";
+  const auto a = ResolveReferences({s.table}, automatic).at(0);
+  CHECK(a.source == ReferenceSource::kIdentified);
+  CHECK(a.params.at(0) == doctest::Approx(2.5).epsilon(1e-15));
+  CHECK(a.exact == 90);
+  CHECK(a.how == "identified from witness A (90 of 90 entries exact, score " + a.how.substr(a.how.find("score ") + 6));
+  CHECK(a.how.find("parameters brought to 1 sexagesimal place") != std::string::npos);
+
+  ReferenceRequest bad = given;
+  bad.model = "nonesuch";
+  CHECK_THROWS_AS(ResolveReferences({s.table}, bad), InputError);
+  ReferenceRequest none;
+  CHECK_THROWS_AS(ResolveReferences({s.table}, none), InputError);
+}
+
+TEST_CASE("judgements: slips are errors, the author's departures are not, look-alikes are common") {
+  auto s = Table();
+  const auto conf = s.Row(30);   // tens of seconds 4 <-> 5 or the like: one symbol
+  const auto far = s.Row(50);    // a distinctive error: minutes and seconds changed
+  const auto blank = s.Row(70);
+  const auto original = *s.table.rows[conf].cells[0].value;
+  const auto digits = original.FractionDigits();
+  s.Set(conf, Sexagesimal::FromParts(false, original.IntegerPart(), {digits[0], (digits[1] + 10) % 60}).ToString());
+  s.Set(far, "0;0,1");
+  s.Set(blank, "_");
+  ReferenceRequest r;
+  r.model = "solar-eccentric";
+  r.params = {{"e", 2.5}};
+  const auto refs = ResolveReferences({s.table}, r);
+  const auto script = deviation::FindNumeralScript("hindu-arabic", kScripts);
+  const auto found = ExplainWitness(s.table, refs, script);
+  REQUIRE(found.checks.size() == 1);
+  CHECK(found.checks[0].summary.exact == 87);
+  const auto grid = JudgementsFromFindings(s.table, refs, found.findings);
+  REQUIRE(grid.size() == 90);
+  CHECK_FALSE(grid[0][0]->error);
+  CHECK(grid[0][0]->computed == s.values.computed[0]);
+  REQUIRE(grid[far][0].has_value());
+  CHECK(grid[far][0]->error);
+  CHECK_FALSE(grid[far][0]->common_slip);
+  REQUIRE(grid[blank][0].has_value());
+  CHECK(grid[blank][0]->error);
+  CHECK(grid[blank][0]->slip.rfind("blank: ", 0) == 0);
+  REQUIRE(grid[conf][0].has_value());
+  CHECK(grid[conf][0]->error);
+  const bool confusion = grid[conf][0]->slip.rfind("confusion: ", 0) == 0;
+  CHECK(grid[conf][0]->common_slip == confusion);
+}
+
+TEST_CASE("judgements: a departure the author's practice explains is a right reading") {
+  auto s = Table();
+  // One unit off where the exact value lies near a rounding boundary, as an
+  // author computing slightly differently would write it.
+  std::size_t row = 0;
+  for (; row < s.table.rows.size(); ++row) {
+    const double units = s.values.exact[row] * 3600;
+    if (std::fabs(units - std::floor(units) - 0.5) < 0.03) break;
+  }
+  REQUIRE(row < s.table.rows.size());
+  const auto v = *s.table.rows[row].cells[0].value;
+  const bool up = s.values.exact[row] * 3600 > std::round(s.values.exact[row] * 3600);
+  s.Set(row, (v + Sexagesimal::FromUnits(up ? 1 : -1, 2)).ToString());
+  ReferenceRequest r;
+  r.model = "solar-eccentric";
+  r.params = {{"e", 2.5}};
+  const auto refs = ResolveReferences({s.table}, r);
+  const auto found = ExplainWitness(s.table, refs, deviation::FindNumeralScript("hindu-arabic", kScripts));
+  REQUIRE(found.findings.size() == 1);
+  INFO(found.findings[0].Note("A"));
+  REQUIRE(found.findings[0].best().cls == deviation::SlipClass::kComputational);
+  const auto grid = JudgementsFromFindings(s.table, refs, found.findings);
+  CHECK_FALSE(grid[row][0]->error);
+  CHECK(grid[row][0]->slip.rfind("computational: ", 0) == 0);
+  CHECK(found.Departures() == 1);
+  CHECK(found.CopyingSlips() == 0);
+}
+
+}  // namespace
+}  // namespace apograph::pipeline
