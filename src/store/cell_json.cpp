@@ -1,5 +1,6 @@
 #include "store/cell_json.hpp"
 
+#include <algorithm>
 #include <charconv>
 
 #include "store/value_text.hpp"
@@ -23,10 +24,24 @@ void Key(std::string& out, bool& open, const char* key) {
   out += "\":";
 }
 
-bool Canonical(const Cell& c) {
-  if (c.state != CellState::kRead || !c.value) return false;
-  char buffer[kValueTextSize];
-  return FormatValue(*c.value, buffer) == c.raw;
+bool HasMarks(const Cell& c) {
+  return c.damaged || c.doubtful || c.addition != Addition::kNone || c.corrected_from ||
+         !c.note.empty();
+}
+
+/// `["<value>",<column>]` in one append: canonical value text holds only
+/// digits, `-`, `;` and `,`, nothing to escape.
+void AppendPlainCell(std::string& out, std::string_view value, int column) {
+  char buffer[kValueTextSize + 32];
+  char* p = buffer;
+  *p++ = '[';
+  *p++ = '"';
+  p = std::copy(value.begin(), value.end(), p);
+  *p++ = '"';
+  *p++ = ',';
+  p = std::to_chars(p, buffer + sizeof buffer - 1, column).ptr;
+  *p++ = ']';
+  out.append(buffer, static_cast<std::size_t>(p - buffer));
 }
 
 /// The editor's marks, only those present.
@@ -78,6 +93,14 @@ void AppendJsonString(std::string& out, std::string_view text) {
 }
 
 void AppendCellJson(std::string& out, const Cell& c, int column_places, int row_line) {
+  char value_text[kValueTextSize];
+  const std::string_view value =
+      c.state == CellState::kRead && c.value ? FormatValue(*c.value, value_text) : std::string_view();
+  const bool canonical = !value.empty() && value == c.raw;
+  if (canonical && c.places == column_places && c.line == row_line && !HasMarks(c)) {
+    AppendPlainCell(out, value, c.column);  // most cells: no escaping needed
+    return;
+  }
   out += '[';
   AppendJsonString(out, c.raw);
   out += ',';
@@ -86,10 +109,9 @@ void AppendCellJson(std::string& out, const Cell& c, int column_places, int row_
   if (c.state != CellState::kRead) {
     Key(out, open, "state");
     AppendJsonString(out, ToString(c.state));
-  } else if (c.value && !Canonical(c)) {
-    char buffer[kValueTextSize];
+  } else if (!value.empty() && !canonical) {
     Key(out, open, "value");
-    AppendJsonString(out, FormatValue(*c.value, buffer));
+    AppendJsonString(out, value);
   }
   if (c.places != column_places) {
     Key(out, open, "places");
