@@ -173,6 +173,8 @@ Cell ReadCell(Reader& in, int column_places, int row_line) {
     }
   }
   in.Expect(']', "the end of a cell");
+  if (c.places < 0 || c.places > Sexagesimal::kMaxPlaces) in.Fail("0 to 12 places");
+  if (c.line < 0 || c.column < 0) in.Fail("a line and column of 0 or more");
   if (c.state == CellState::kRead) {
     c.value = Sexagesimal::Parse(value ? *value : c.raw);
     if (!c.value) in.Fail("a read cell's exact value");
