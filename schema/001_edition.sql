@@ -101,9 +101,56 @@ CREATE TABLE layout_column (
   PRIMARY KEY (revision_id, position)
 ) WITHOUT ROWID;
 
--- The cells of a revision as transcribed, stored in reading order. col -1
--- is the row's argument as written (arguments are miscopied too), 0, 1, ...
--- the value columns of layout_column.
+-- The cells of a revision as transcribed, one database row per table row
+-- (the row's argument and its value cells together). Query them cell by cell
+-- through the view `cell` (or `current_cell`), which unpacks this table; the
+-- encoding below is documented for completeness, not for hand editing.
+--   row_index   0, 1, ... in reading order
+--   line        the line of the row's argument in the revision's file
+--               (1-based; 0 when unknown): the default line of its cells
+--   cells       a JSON array: element 0 is the argument cell as written
+--               (arguments are miscopied too), element k + 1 the cell of value
+--               column k of layout_column. Each cell is itself an array:
+--                 [raw, source_col]           the common case, see below
+--                 [raw, source_col, {...}]    anything else
+--               raw is the reading as typed (`0;4,10`, `0 4 10`, `?`,
+--               `0;?,10`, `_`), source_col where it was typed (1-based; 0
+--               when unknown). The two-element form means: read in full,
+--               with the exact value written exactly as raw (canonical
+--               trade notation), the places of its column, on the row's
+--               line, without marks. The object lists only what differs:
+--                 "state"           partial | illegible | blank (absent: read)
+--                 "value"           the exact value in canonical notation
+--                                   when raw is written otherwise (`0 4 10`)
+--                 "places"          when not the places of its column
+--                 "line"            when not the row's line
+--                 "damaged": 1, "doubtful": 1,
+--                 "addition"        margin | interlinear
+--                 "corrected_from"  a scribal correction: the reading before it
+--                 "note"            the editor's note on this cell
+--   Example: [["7",1],["0;4,10",5],["0 4 10",14,{"value":"0;4,10"}],
+--             ["?",22,{"state":"illegible","doubtful":1}]]
+-- Why packed: an import writes a million cells in well under a second only
+-- if it writes a few hundred thousand database rows, not a million (each row
+-- costs a B-tree insert, a foreign-key lookup and its CHECKs whatever its
+-- width; one cell per row topped out below the goal even with no
+-- constraints). Exact values and every state and mark are kept; the
+-- program validates each cell before writing it (edition_store.cpp) and
+-- writes the JSON itself (cell_json.cpp). The database checks the keys, the
+-- revision and that `cells` opens an array, not that it is well-formed
+-- JSON: json_valid() on every row cost 40% of an import. Malformed text is
+-- refused when read, by the view and by the program alike.
+CREATE TABLE cell_row (
+  revision_id  INTEGER NOT NULL REFERENCES revision(id),
+  row_index    INTEGER NOT NULL CHECK (row_index >= 0),
+  line         INTEGER NOT NULL CHECK (line >= 0),
+  cells        TEXT NOT NULL CHECK (substr(cells, 1, 1) = '['),
+  PRIMARY KEY (revision_id, row_index)
+) WITHOUT ROWID;
+
+-- Every cell of every revision, one line per cell, unpacked from cell_row.
+-- col -1 is the row's argument as written, 0, 1, ... the value columns of
+-- layout_column (column_name is the argument's or the column's name).
 --   raw             the reading as typed (`0;4,10`, `0 4 10`, `?`, `0;?,10`, `_`)
 --   value           the exact value in canonical trade notation; only when
 --                   state = 'read'
@@ -111,54 +158,56 @@ CREATE TABLE layout_column (
 --   places          the places of the column the cell stands in
 --   state           read | partial (some places unread) | illegible | blank
 --                   (nothing written in the manuscript)
---   source_line, source_col: where the cell was typed in the revision's file
---                   (1-based; 0 when unknown)
--- The editor's marks on a cell are in cell_mark (most cells have none); the
--- view current_cell shows both together.
--- (The CHECKs spell out `a = .. OR a = ..` rather than `a IN (..)`: SQLite
--- builds a temporary index for an IN list on every insert, which made a large
--- import several times slower. For the same reason of speed the rare marks
--- live in their own table: every column of this one costs on each of a
--- million inserts.)
-CREATE TABLE cell (
-  revision_id     INTEGER NOT NULL REFERENCES revision(id),
-  row_index       INTEGER NOT NULL CHECK (row_index >= 0),
-  col             INTEGER NOT NULL CHECK (col >= -1),
-  raw             TEXT NOT NULL,
-  value           TEXT,
-  value_real      REAL,
-  places          INTEGER NOT NULL CHECK (places BETWEEN 0 AND 12),
-  state           TEXT NOT NULL CHECK (state = 'read' OR state = 'partial' OR
-                                       state = 'illegible' OR state = 'blank'),
-  source_line     INTEGER NOT NULL CHECK (source_line >= 0),
-  source_col      INTEGER NOT NULL CHECK (source_col >= 0),
-  CHECK ((state = 'read') = (value IS NOT NULL)),
-  CHECK ((value IS NULL) = (value_real IS NULL)),
-  PRIMARY KEY (revision_id, row_index, col)
-) WITHOUT ROWID;
-
--- The editor's marks on a cell, one row only for a cell that has any.
 --   damaged         1 when the support is damaged there (a reading is given anyway)
 --   doubtful        1 when the editor doubts the reading
 --   addition        none | margin | interlinear: where the text stands
 --   corrected_from  a scribal correction: the reading before it (the cell
 --                   holds the reading after it)
---   note            the editor's note on this cell
-CREATE TABLE cell_mark (
-  revision_id     INTEGER NOT NULL,
-  row_index       INTEGER NOT NULL,
-  col             INTEGER NOT NULL,
-  damaged         INTEGER NOT NULL DEFAULT 0 CHECK (damaged = 0 OR damaged = 1),
-  doubtful        INTEGER NOT NULL DEFAULT 0 CHECK (doubtful = 0 OR doubtful = 1),
-  addition        TEXT NOT NULL DEFAULT 'none' CHECK (addition = 'none' OR addition = 'margin' OR
-                                                    addition = 'interlinear'),
-  corrected_from  TEXT,
-  note            TEXT NOT NULL DEFAULT '',
-  CHECK (damaged = 1 OR doubtful = 1 OR addition <> 'none' OR corrected_from IS NOT NULL OR
-         note <> ''),
-  PRIMARY KEY (revision_id, row_index, col),
-  FOREIGN KEY (revision_id, row_index, col) REFERENCES cell(revision_id, row_index, col)
-) WITHOUT ROWID;
+--   note            the editor's note on this cell ('' when none)
+--   source_line, source_col: where the cell was typed in the revision's file
+--                   (1-based; 0 when unknown)
+CREATE VIEW cell AS
+  SELECT revision_id, row_index, col, column_name, raw, value,
+         CASE WHEN u.value IS NOT NULL THEN
+           (CASE WHEN substr(u.value, 1, 1) = '-' THEN -1.0 ELSE 1.0 END) *
+           (SELECT total(p.value * (CASE p.key WHEN 0 THEN 1.0 WHEN 1 THEN 1 / 60.0
+              WHEN 2 THEN 1 / 3600.0 WHEN 3 THEN 1 / 216000.0 WHEN 4 THEN 1 / 12960000.0
+              WHEN 5 THEN 1 / 777600000.0 WHEN 6 THEN 1 / 46656000000.0
+              WHEN 7 THEN 1 / 2799360000000.0 WHEN 8 THEN 1 / 167961600000000.0
+              WHEN 9 THEN 1 / 10077696000000000.0 WHEN 10 THEN 1 / 604661760000000000.0
+              WHEN 11 THEN 1 / 36279705600000000000.0
+              ELSE 1 / 2176782336000000000000.0 END))
+            FROM json_each('[' || replace(ltrim(u.value, '-'), ';', ',') || ']') p)
+         END AS value_real,
+         places, state, damaged, doubtful, addition, corrected_from, note,
+         source_line, source_col
+  FROM (
+    SELECT r.revision_id, r.row_index, j.key - 1 AS col, lc.name AS column_name,
+           j.value ->> 0 AS raw,
+           CASE WHEN j.value ->> '$[2].state' IS NULL
+                THEN coalesce(j.value ->> '$[2].value', j.value ->> 0) END AS value,
+           coalesce(j.value ->> '$[2].places', lc.places) AS places,
+           coalesce(j.value ->> '$[2].state', 'read') AS state,
+           coalesce(j.value ->> '$[2].damaged', 0) AS damaged,
+           coalesce(j.value ->> '$[2].doubtful', 0) AS doubtful,
+           coalesce(j.value ->> '$[2].addition', 'none') AS addition,
+           j.value ->> '$[2].corrected_from' AS corrected_from,
+           coalesce(j.value ->> '$[2].note', '') AS note,
+           coalesce(j.value ->> '$[2].line', r.line) AS source_line,
+           j.value ->> 1 AS source_col
+    FROM cell_row r
+    JOIN json_each(r.cells) j
+    -- CROSS JOIN keeps this order: each cell looks up its column (otherwise
+    -- SQLite may unpack the row once per column)
+    CROSS JOIN layout_column lc ON lc.revision_id = r.revision_id AND lc.position = j.key - 1
+  ) u;
+
+-- The editor's marks, one line per cell that has any (a subset of `cell`).
+CREATE VIEW cell_mark AS
+  SELECT revision_id, row_index, col, damaged, doubtful, addition, corrected_from, note
+  FROM cell
+  WHERE damaged = 1 OR doubtful = 1 OR addition <> 'none' OR corrected_from IS NOT NULL
+     OR note <> '';
 
 -- The current (highest-numbered) revision of every transcription, with its
 -- table and witness.
@@ -172,17 +221,11 @@ CREATE VIEW current_revision AS
 -- query from the sqlite3 shell. column_name of the argument cells is the
 -- argument's name.
 CREATE VIEW current_cell AS
-  SELECT r.table_id, r.siglum, r.number AS revision, c.row_index,
-         lc.name AS column_name,
-         c.col, c.raw, c.value, c.value_real, c.places, c.state,
-         coalesce(m.damaged, 0) AS damaged, coalesce(m.doubtful, 0) AS doubtful,
-         coalesce(m.addition, 'none') AS addition, m.corrected_from,
-         coalesce(m.note, '') AS note, r.source_file, c.source_line, c.source_col
+  SELECT r.table_id, r.siglum, r.number AS revision, c.row_index, c.column_name,
+         c.col, c.raw, c.value, c.value_real, c.places, c.state, c.damaged, c.doubtful,
+         c.addition, c.corrected_from, c.note, r.source_file, c.source_line, c.source_col
   FROM current_revision r
-  JOIN cell c ON c.revision_id = r.id
-  JOIN layout_column lc ON lc.revision_id = c.revision_id AND lc.position = c.col
-  LEFT JOIN cell_mark m ON m.revision_id = c.revision_id AND m.row_index = c.row_index
-                       AND m.col = c.col;
+  JOIN cell c ON c.revision_id = r.id;
 
 -- One line per transcription: its current revision, how many revisions it
 -- has, and the size of the current one.

@@ -1,48 +1,48 @@
 #pragma once
-/// Internal to the store: the hot loop of an import. Cells are inserted in
-/// key order (revision, row, column) several rows per statement, with text
-/// bound without copying, and the rare editor's marks go to their own table, so that a large import is limited by SQLite's
-/// B-tree rather than by statement overhead.
+/// Internal to the store: the hot loop of an import. Each table row becomes
+/// one row of `cell_row` holding its cells as compact JSON (cell_json.hpp),
+/// inserted in key order several rows per statement with the text bound
+/// without copying, so that a large import writes a few hundred thousand
+/// B-tree entries rather than a million.
 
 #include <array>
 #include <cstdint>
+#include <string>
 
 #include "edition/transcription.hpp"
 #include "store/database.hpp"
-#include "store/value_text.hpp"
 
 namespace apograph::store {
 
 class CellWriter {
  public:
-  /// Cells per multi-row INSERT: fewer statement executions (each opens and
-  /// closes cursors); 64 * 10 parameters stay far below SQLite's limit.
-  static constexpr int kBatch = 64;
+  /// Table rows per multi-row INSERT: fewer statement executions (each
+  /// opens and closes cursors); 32 * 4 parameters stay far below SQLite's limit.
+  static constexpr int kBatch = 32;
 
   explicit CellWriter(Database& db);
 
-  /// Queues one cell; the referenced strings must live until Flush().
-  void Add(std::int64_t revision, std::int64_t row, int col, const Cell& cell);
+  /// Queues row `row` of `t` for revision `revision`.
+  void Add(std::int64_t revision, const Transcription& t, std::size_t row);
   /// Writes what is queued.
   void Flush();
+  /// Cells written so far, argument cells included.
   std::int64_t written() const { return written_; }
 
  private:
   void Bind(Statement& s, int slot, int pending_index);
-  void WriteMarks();
 
   struct Pending {
     std::int64_t revision;
     std::int64_t row;
-    int col;
-    const Cell* cell;
+    int line;
   };
   Statement batch_;
   Statement single_;
-  Statement mark_;
   std::array<Pending, kBatch> pending_{};
+  std::array<std::string, kBatch> cells_;  ///< encoded cells, reused (no allocation once grown)
   int count_ = 0;
-  std::array<char[kValueTextSize], kBatch> value_text_{};
+  std::int64_t queued_cells_ = 0;
   std::int64_t written_ = 0;
 };
 

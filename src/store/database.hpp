@@ -57,6 +57,9 @@ class Statement {
   std::int64_t Int(int column) const;
   double Real(int column) const;
   std::string Text(int column) const;
+  /// The text of a column without copying it: valid until the next
+  /// Step()/Reset(). For hot loops that decode what they read.
+  std::string_view TextView(int column) const;
   std::optional<std::string> OptionalText(int column) const;
 
  private:

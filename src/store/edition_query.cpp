@@ -1,6 +1,8 @@
 // Reading the edition back: Load() and the list functions of edition_store.hpp.
 #include "store/edition_store.hpp"
 
+#include "store/cell_json.hpp"
+
 namespace apograph::store {
 namespace {
 
@@ -80,46 +82,15 @@ void LoadLayout(Database& db, std::int64_t revision, Transcription& t) {
   }
 }
 
-Cell ReadCell(const Statement& s) {
-  Cell c;
-  c.raw = s.Text(2);
-  c.value = ValueFromText(s.OptionalText(3));
-  c.places = static_cast<int>(s.Int(4));
-  c.state = CellStateFromString(s.Text(5)).value_or(CellState::kRead);
-  if (!s.IsNull(6)) {  // the cell has marks
-    c.damaged = s.Int(6) != 0;
-    c.doubtful = s.Int(7) != 0;
-    c.addition = AdditionFromString(s.Text(8)).value_or(Addition::kNone);
-    c.corrected_from = s.OptionalText(9);
-    c.note = s.Text(10);
-  }
-  c.line = static_cast<int>(s.Int(11));
-  c.column = static_cast<int>(s.Int(12));
-  return c;
-}
-
-/// Cells come in key order: per row the argument (col -1), then the columns.
+/// Rows in order, each decoded from its JSON (cell_json.hpp); the same
+/// decoding as the view `cell`, which the tests compare with it.
 void LoadCells(Database& db, std::int64_t revision, Transcription& t) {
-  auto s = db.Prepare(
-      "SELECT c.row_index, c.col, c.raw, c.value, c.places, c.state, m.damaged, m.doubtful, "
-      "m.addition, m.corrected_from, m.note, c.source_line, c.source_col FROM cell c "
-      "LEFT JOIN cell_mark m ON m.revision_id = c.revision_id AND m.row_index = c.row_index "
-      "AND m.col = c.col WHERE c.revision_id = ?1 ORDER BY c.row_index, c.col");
+  auto s = db.Prepare("SELECT row_index, line, cells FROM cell_row WHERE revision_id = ?1 ORDER BY row_index");
   s.Bind(1, revision);
   while (s.Step()) {
     const auto row = static_cast<std::size_t>(s.Int(0));
-    const auto col = s.Int(1);
-    if (row >= t.rows.size()) {
-      t.rows.resize(row + 1);
-      t.rows[row].cells.reserve(t.columns.size());
-    }
-    Cell c = ReadCell(s);
-    if (col < 0) {
-      t.rows[row].line = c.line;
-      t.rows[row].argument = std::move(c);
-    } else {
-      t.rows[row].cells.push_back(std::move(c));
-    }
+    if (row != t.rows.size()) throw StoreError("revision " + std::to_string(revision) + " lacks row " + std::to_string(t.rows.size()));
+    DecodeRowCells(s.TextView(2), t, static_cast<int>(s.Int(1)), t.rows.emplace_back());
   }
 }
 

@@ -190,12 +190,7 @@ TableImport Writer::Write(const Transcription& t, ImportResult& result) {
   const std::int64_t revision = InsertRevision(t, transcription, current + 1);
   InsertLayout(t, revision);
   const std::int64_t before = cells_.written();
-  for (std::size_t r = 0; r < t.rows.size(); ++r) {
-    const auto row = static_cast<std::int64_t>(r);
-    cells_.Add(revision, row, -1, t.rows[r].argument);
-    const auto& cells = t.rows[r].cells;
-    for (std::size_t c = 0; c < cells.size(); ++c) cells_.Add(revision, row, static_cast<int>(c), cells[c]);
-  }
+  for (std::size_t r = 0; r < t.rows.size(); ++r) cells_.Add(revision, t, r);
   cells_.Flush();
   result.cells_written += static_cast<std::size_t>(cells_.written() - before);
   out.revision = current + 1;

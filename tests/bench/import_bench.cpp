@@ -4,11 +4,13 @@
 // figures.
 //
 //   cmake -S . -B build -DAPOGRAPH_BENCH=ON && cmake --build build --target import_bench
-//   ./build/import_bench [WITNESSES] [DB-FILE]
+//   ./build/import_bench [WITNESSES] [DB-FILE] [keep] [scan]
 //
 // WITNESSES (default 10) scales the corpus: each witness has 50 tables of
 // 360 rows and 6 columns. DB-FILE defaults to a file in the temp folder; it
-// is removed first and at the end.
+// is removed first, and at the end unless `keep` is given (to query it with
+// the sqlite3 shell). After the import it also times Load() of one table
+// and, with `scan`, a pass over every cell through the view current_cell.
 #include <chrono>
 #include <ctime>
 #include <cstdio>
@@ -118,10 +120,34 @@ void RemoveDb(const std::string& path) {
   for (const char* suffix : {"", "-wal", "-shm", "-journal"}) std::remove((path + suffix).c_str());
 }
 
+/// Times what editors and later stages do with the database: Load() one
+/// table, and read every current cell through the view (value_real included).
+void ReadBack(const std::string& db_path, bool scan) {
+  apograph::store::Database db(db_path);
+  apograph::store::Load(db, "t6", "W0");  // the first query prepares the schema
+  const Stamp a = Stamp::Now();
+  const auto t = apograph::store::Load(db, "t7", "W0");
+  const Stamp b = Stamp::Now();
+  std::printf("read back: Load() of one table (%zu cells) %.1f ms\n", t.CellCount(),
+              Between(a, b).wall * 1e3);
+  if (!scan) return;
+  auto s = db.Prepare("SELECT count(*), total(value_real) FROM current_cell");
+  s.Step();
+  const Stamp c = Stamp::Now();
+  std::printf("read back: all %lld cells through current_cell (value_real too) %.2f s\n",
+              static_cast<long long>(s.Int(0)), Between(b, c).wall);
+}
+
 }  // namespace
 
 int main(int argc, char** argv) {
   const int witnesses = argc > 1 ? std::stoi(argv[1]) : 10;
+  bool keep = false;
+  bool scan = false;
+  for (int i = 3; i < argc; ++i) {
+    keep = keep || std::string(argv[i]) == "keep";
+    scan = scan || std::string(argv[i]) == "scan";
+  }
   const std::string db_path =
       argc > 2 ? argv[2] : (std::filesystem::temp_directory_path() / "apograph-import-bench.sqlite").string();
 
@@ -161,6 +187,7 @@ int main(int argc, char** argv) {
   Report("parse + store", all_cells, Between(t0, t1) + Between(t2, t3));
   std::printf("database file: %.1f MB\n",
               static_cast<double>(std::filesystem::file_size(db_path)) / 1e6);
-  RemoveDb(db_path);
+  ReadBack(db_path, scan);
+  if (!keep) RemoveDb(db_path);
   return 0;
 }

@@ -161,23 +161,17 @@ TEST_CASE("CHECK and foreign key constraints reject bad rows") {
   TempDb file("checks");
   Database db(file.path());
   store::Import(db, {MakeTranscription("sun-eq", "K", 2)});
-  const std::string cols =
-      "INSERT INTO cell(revision_id, row_index, col, raw, value, value_real, places, state, "
-      "source_line, source_col) VALUES ";
-  CHECK_NOTHROW(db.Execute(cols + "(1, 50, 0, '1', '1', 1.0, 0, 'read', 1, 1)"));
-  CHECK_THROWS_AS(db.Execute(cols + "(1, 51, 0, '1', '1', 1.0, 0, 'smudged', 1, 1)"), StoreError);
-  CHECK_THROWS_AS(db.Execute(cols + "(1, 52, 0, '1', NULL, NULL, 0, 'read', 1, 1)"), StoreError);
-  CHECK_THROWS_AS(db.Execute(cols + "(1, 53, 0, '?', '1', 1.0, 0, 'illegible', 1, 1)"), StoreError);
-  CHECK_THROWS_AS(db.Execute(cols + "(1, 54, 0, '1', '1', 1.0, 13, 'read', 1, 1)"), StoreError);
-  CHECK_THROWS_AS(db.Execute(cols + "(1, 55, -2, '1', '1', 1.0, 0, 'read', 1, 1)"), StoreError);
-  CHECK_THROWS_AS(db.Execute(cols + "(1, 56, 0, '1', '1', 1.0, 0, 'read', -1, 1)"), StoreError);
-  CHECK_THROWS_AS(db.Execute(cols + "(99, 0, 0, '1', '1', 1.0, 0, 'read', 1, 1)"), StoreError);
-  const std::string marks = "INSERT INTO cell_mark(revision_id, row_index, col, damaged, addition, note) VALUES ";
-  CHECK_NOTHROW(db.Execute(marks + "(1, 50, 0, 1, 'none', '')"));
-  CHECK_THROWS_AS(db.Execute(marks + "(1, 0, 0, 2, 'none', '')"), StoreError);
-  CHECK_THROWS_AS(db.Execute(marks + "(1, 0, 1, 0, 'footnote', '')"), StoreError);
-  CHECK_THROWS_AS(db.Execute(marks + "(1, 1, 0, 0, 'none', '')"), StoreError);     // no mark at all
-  CHECK_THROWS_AS(db.Execute(marks + "(1, 77, 0, 1, 'none', '')"), StoreError);    // no such cell
+  const std::string rows = "INSERT INTO cell_row(revision_id, row_index, line, cells) VALUES ";
+  CHECK_NOTHROW(db.Execute(rows + R"((1, 50, 1, '[["1",1],["1",3],["?",5,{"state":"illegible"}]]'))"));
+  CHECK_THROWS_AS(db.Execute(rows + R"((1, 51, 1, '{"raw":"1"}'))"), StoreError);  // not an array
+  CHECK_THROWS_AS(db.Execute(rows + "(1, -1, 1, '[]')"), StoreError);
+  CHECK_THROWS_AS(db.Execute(rows + "(1, 53, -1, '[]')"), StoreError);
+  CHECK_THROWS_AS(db.Execute(rows + "(99, 0, 1, '[]')"), StoreError);  // no such revision
+  CHECK_THROWS_AS(db.Execute(rows + "(1, 0, 1, '[]')"), StoreError);   // the row is there already
+  // Cells are written by the import only: `cell` and `cell_mark` are views.
+  CHECK_THROWS_AS(db.Execute("INSERT INTO cell(revision_id, row_index, col, raw) VALUES(1, 60, 0, '1')"),
+                  StoreError);
+  CHECK_THROWS_AS(db.Execute("DELETE FROM cell_mark"), StoreError);
   CHECK_THROWS_AS(db.Execute("INSERT INTO revision(transcription_id, number, work_id) VALUES(1, 0, 'w')"),
                   StoreError);
   CHECK_THROWS_AS(db.Execute("INSERT INTO edition_table(id, work_id) VALUES('t', 'no-such-work')"),
@@ -238,4 +232,87 @@ TEST_CASE("descriptions keep the latest non-empty values; each revision keeps it
   CHECK(w[0].witness.library == "Nordhafen, Town Library");
   CHECK(store::Load(db, "sun-eq", "K").witness.library.empty());
   CHECK(store::Load(db, "sun-eq", "K", 1).witness.library == "Nordhafen, Town Library");
+}
+
+TEST_CASE("cells written otherwise than canonically keep raw text, value, places, line and marks") {
+  TempDb file("packed");
+  Database db(file.path());
+  Transcription t = MakeTranscription("sun-eq", "K", 3);
+  auto& spaced = t.rows[0].cells[0];  // raw is not the canonical value text
+  spaced = apograph::testing::ReadCell("0;4,10", 2, 10, 6);
+  spaced.raw = "0 4 10";
+  auto& minus_zero = t.rows[0].cells[1];  // `-0;0` reads as 0;0: raw must not stand for the value
+  minus_zero = apograph::testing::ReadCell("-0;0", 2, 10, 18);
+  auto& odd = t.rows[1].cells[0];  // quotes, backslash, a control character, non-ASCII text
+  odd.raw = "\"a\\b\"\t";
+  odd.value.reset();
+  odd.state = CellState::kIllegible;
+  odd.note = "l\xC3\xA4sst \"sich\" nicht lesen\n";
+  odd.corrected_from = "0;1,\\2";
+  odd.places = 3;   // not the places of its column
+  odd.line = 40;    // not the line of its row
+  odd.column = 0;   // unknown
+  t.rows[1].argument.doubtful = true;
+  t.rows[1].argument.addition = apograph::Addition::kInterlinear;
+  t.rows[2].cells[1].damaged = true;
+  store::Import(db, {t});
+
+  const Transcription back = store::Load(db, "sun-eq", "K");
+  CHECK(back.SameContent(t));
+  CHECK(back.rows == t.rows);
+  CHECK(back.rows[0].cells[0].value->Identical(Sexagesimal::ParseOrThrow("0;4,10")));
+  CHECK(back.rows[0].cells[1].raw == "-0;0");
+
+  // The view `cell` shows the same, cell by cell.
+  auto s = db.Prepare(
+      "SELECT raw, value, value_real, places, state, doubtful, addition, corrected_from, note, "
+      "source_line, source_col, column_name FROM cell WHERE revision_id = 1 AND row_index = ?1 "
+      "AND col = ?2");
+  s.Bind(1, 0).Bind(2, 0);
+  REQUIRE(s.Step());
+  CHECK(s.Text(0) == "0 4 10");
+  CHECK(s.Text(1) == "0;4,10");
+  CHECK(s.Real(2) == doctest::Approx(250.0 / 3600.0).epsilon(1e-15));
+  CHECK(s.Text(11) == "equation");
+  s.Reset();
+  s.Bind(1, 1).Bind(2, 0);
+  REQUIRE(s.Step());
+  CHECK(s.Text(0) == odd.raw);
+  CHECK(s.IsNull(1));
+  CHECK(s.IsNull(2));
+  CHECK(s.Int(3) == 3);
+  CHECK(s.Text(4) == "illegible");
+  CHECK(s.Text(7) == "0;1,\\2");
+  CHECK(s.Text(8) == odd.note);
+  CHECK(s.Int(9) == 40);
+  CHECK(s.Int(10) == 0);
+  s.Reset();
+  s.Bind(1, 1).Bind(2, -1);
+  REQUIRE(s.Step());
+  CHECK(s.Int(5) == 1);
+  CHECK(s.Text(6) == "interlinear");
+  CHECK(s.Text(11) == "anomaly");
+
+  auto marks = db.Prepare("SELECT row_index, col, damaged FROM cell_mark ORDER BY row_index, col");
+  std::vector<std::string> seen;
+  while (marks.Step()) {
+    seen.push_back(std::to_string(marks.Int(0)) + "," + std::to_string(marks.Int(1)) + "," +
+                   std::to_string(marks.Int(2)));
+  }
+  CHECK(seen == std::vector<std::string>{"1,-1,0", "1,0,0", "2,1,1"});
+}
+
+TEST_CASE("value_real follows the sign and every place of the exact value") {
+  TempDb file("real");
+  Database db(file.path());
+  Transcription t = MakeTranscription("sun-eq", "K", 1);
+  t.rows[0].cells[0] = apograph::testing::ReadCell("-1,30;0,0,0,0,0,0,0,0,0,0,0,1", 2, 10, 6);
+  t.rows[0].cells[1] = apograph::testing::ReadCell("12;59,59", 2, 10, 18);
+  store::Import(db, {t});
+  auto s = db.Prepare("SELECT value, value_real FROM cell WHERE col >= 0 ORDER BY col");
+  REQUIRE(s.Step());
+  CHECK(s.Text(0) == "-90;0,0,0,0,0,0,0,0,0,0,0,1");
+  CHECK(s.Real(1) == doctest::Approx(-90.0 - 1.0 / 2176782336000000000000.0));
+  REQUIRE(s.Step());
+  CHECK(s.Real(1) == doctest::Approx(12.0 + 59.0 / 60 + 59.0 / 3600).epsilon(1e-15));
 }
