@@ -7,6 +7,8 @@
 
 #include <doctest/doctest.h>
 
+#include <unistd.h>
+
 #include "support/input_error.hpp"
 
 using apograph::InputError;
@@ -98,7 +100,7 @@ TEST_CASE("a user-edited confusion set takes effect") {
   }
   CHECK(stock_weight == doctest::Approx(0.6));
 
-  auto tmp = std::filesystem::temp_directory_path() / "apograph_script_test";
+  auto tmp = std::filesystem::temp_directory_path() / ("apograph_script_test_" + std::to_string(::getpid()));
   std::filesystem::create_directories(tmp);
   std::string edited = text;
   edited.replace(edited.find("confuse 4 5 0.6"), 15, "confuse 4 5 0.2");

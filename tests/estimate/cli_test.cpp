@@ -1,6 +1,8 @@
 // End-to-end: the real binary on a database built from synthetic tables.
 #include <doctest/doctest.h>
 
+#include <unistd.h>
+
 #include <cstdio>
 #include <filesystem>
 #include <fstream>
@@ -30,7 +32,7 @@ Transcription WithMeta(Transcription t, const std::string& siglum) {
 }
 
 std::string MakeDb() {
-  const std::string path = (std::filesystem::temp_directory_path() / "apograph_est_cli.sqlite").string();
+  const std::string path = (std::filesystem::temp_directory_path() / ("apograph_est_cli_" + std::to_string(::getpid()) + ".sqlite")).string();
   std::filesystem::remove(path);
   store::Database db(path);
   const model::Model* m = model::FindBuiltinModel("solar-eccentric");

@@ -2,6 +2,8 @@
 
 #include <doctest/doctest.h>
 
+#include <unistd.h>
+
 #include <cstdlib>
 #include <filesystem>
 #include <fstream>
@@ -138,7 +140,7 @@ TEST_CASE("LaTeX output: a document with the table and its apparatus notes") {
   CHECK(tex.find("\\textsuperscript{4}") == std::string::npos);
   CHECK(tex.rfind("\\end{document}\n") == tex.size() - 15);
   if (std::system("command -v pdflatex > /dev/null 2>&1") == 0) {
-    const auto dir = std::filesystem::temp_directory_path() / "apograph-latex-test";
+    const auto dir = std::filesystem::temp_directory_path() / ("apograph-latex-test-" + std::to_string(::getpid()));
     std::filesystem::create_directories(dir);
     std::ofstream(dir / "t.tex") << tex;
     const std::string cmd = "cd '" + dir.string() + "' && pdflatex -interaction=nonstopmode -halt-on-error t.tex > /dev/null 2>&1";
