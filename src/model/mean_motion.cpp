@@ -42,21 +42,21 @@ constexpr double kSunPerDay = 59.0 / 60 + 8.0 / 3600 + 19.0 / 216000 + 48.0 / 12
 
 const BuiltinModel kDays("mean-motion", kFormula, Convention("days"),
                          {Radix(), Rate("deg/day", kSunPerDay, 15.0), Modulus()},
-                         APOGRAPH_FORMULA(MeanMotion));
+                         APOGRAPH_FORMULA_PLAIN(MeanMotion));
 const BuiltinModel kMonths("mean-motion-months", kFormula,
                            Convention("months (of the table's calendar; the rate is per month)"),
                            {Radix(), Rate("deg/month", 30 * kSunPerDay, 360.0), Modulus()},
-                           APOGRAPH_FORMULA(MeanMotion));
+                           APOGRAPH_FORMULA_PLAIN(MeanMotion));
 const BuiltinModel kYears("mean-motion-years", kFormula,
                           Convention("single years (the rate is per year, usually the excess "
                                      "over whole turns)"),
                           {Radix(), Rate("deg/year", 365 * kSunPerDay, 360.0), Modulus()},
-                          APOGRAPH_FORMULA(MeanMotion));
+                          APOGRAPH_FORMULA_PLAIN(MeanMotion));
 const BuiltinModel kCollected("mean-motion-collected", kFormula,
                               Convention("collected years, the number of years of the group "
                                          "(20, 40, 60 ...; the rate is per year)"),
                               {Radix(), Rate("deg/year", 365 * kSunPerDay, 360.0), Modulus()},
-                              APOGRAPH_FORMULA(MeanMotion));
+                              APOGRAPH_FORMULA_PLAIN(MeanMotion));
 
 }  // namespace
 
