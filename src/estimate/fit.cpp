@@ -1,5 +1,6 @@
 #include "estimate/fit.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <limits>
 #include <stdexcept>
@@ -52,16 +53,19 @@ void FillEntry(FitEntry& e, const Observation& o, double exact, const FitOptions
   e.flag = std::fabs(e.diff_units) > options.tolerance;
 }
 
-/// Entries, counts and robust scale at the free vector x.
+/// Entries, counts and robust scale at the free vector x (`values`: the
+/// model's values there when the solver has them, else computed here).
 void Summarise(internal::FitProblem& problem, const std::vector<Observation>& obs,
-               const FitOptions& options, const double* x, FitResult& result) {
+               const FitOptions& options, const double* x, FitResult& result,
+               const std::vector<double>* values = nullptr) {
   result.entries.assign(obs.size(), {});
   result.n = static_cast<int>(obs.size());
   result.exact = result.within1 = result.flagged = 0;
   std::vector<double> residuals(obs.size());
+  const bool have = values && values->size() == obs.size();
   for (std::size_t i = 0; i < obs.size(); ++i) {
     FitEntry& e = result.entries[i];
-    const double v = problem.Value(i, x);
+    const double v = have ? (*values)[i] : problem.Value(i, x);
     FillEntry(e, obs[i], v, options);
     e.residual = residuals[i] = problem.ResidualOf(i, v);
     if (!std::isfinite(e.diff_units)) {
@@ -99,6 +103,49 @@ void FillParams(const model::Model& model, internal::FitProblem& problem,
   result.free_parameters = k;
 }
 
+/// Every start solved in full (the reference solver); the best.
+internal::SolveOutcome SolveEach(internal::FitProblem& problem, const std::vector<std::vector<double>>& starts,
+                                 const FitOptions& options) {
+  internal::SolveOutcome best;
+  best.cost = std::numeric_limits<double>::infinity();
+  for (const auto& start : starts) {
+    auto s = internal::SolveCeres(problem, start, options.loss_scale, options.max_iterations);
+    if (s.cost < best.cost) best = std::move(s);
+  }
+  return best;
+}
+
+/// x lies within `many` standard errors of the solution s in every free
+/// parameter (so that refining it would land on s again).
+bool SameOptimum(const std::vector<double>& x, const internal::SolveOutcome& s, double many) {
+  const std::size_t k = x.size();
+  if (s.covariance.size() != k * k) return false;
+  for (std::size_t j = 0; j < k; ++j) {
+    const double sd = std::sqrt(std::max(s.covariance[j * k + j], 0.0));
+    if (!(std::fabs(x[j] - s.x[j]) <= many * sd)) return false;
+  }
+  return true;
+}
+
+/// The fast solver: every start brought near its optimum on a subsample,
+/// then refined on every entry unless it came to an optimum already refined
+/// (several grid starts usually share one basin).
+internal::SolveOutcome SolveDistinct(internal::FitProblem& problem, const std::vector<std::vector<double>>& starts,
+                                     const FitOptions& options) {
+  std::vector<internal::SolveOutcome> done;
+  internal::SolveOutcome best;
+  best.cost = std::numeric_limits<double>::infinity();
+  for (const auto& start : starts) {
+    const std::vector<double> near = internal::Approach(problem, start, options.loss_scale, options.max_iterations);
+    bool seen = false;
+    for (const auto& d : done) seen = seen || SameOptimum(near, d, 10);
+    if (seen) continue;
+    done.push_back(internal::Refine(problem, near, options.loss_scale, options.max_iterations));
+    if (done.back().cost < best.cost) best = done.back();
+  }
+  return best;
+}
+
 }  // namespace
 
 FitResult Fit(const model::Model& model, const Transcription& table,
@@ -123,19 +170,14 @@ FitResult Fit(const model::Model& model, const Transcription& table,
   std::vector<std::vector<double>> starts =
       options.start.empty() ? internal::GridStarts(problem, x0, options.loss_scale, 2)
                             : std::vector<std::vector<double>>{x0};
-  internal::SolveOutcome best;
-  best.cost = std::numeric_limits<double>::infinity();
-  for (const auto& start : starts) {
-    auto s = options.solver == Solver::kCeres
-                 ? internal::SolveCeres(problem, start, options.loss_scale, options.max_iterations)
-                 : internal::SolveFast(problem, start, options.loss_scale, options.max_iterations);
-    if (s.cost < best.cost) best = std::move(s);
-  }
+  internal::SolveOutcome best = options.solver == Solver::kCeres
+                                    ? SolveEach(problem, starts, options)
+                                    : SolveDistinct(problem, starts, options);
   if (best.x.empty()) best.x = x0;
   result.cost = best.cost;
   result.converged = best.converged;
   result.iterations = best.iterations;
-  Summarise(problem, obs, options, best.x.data(), result);
+  Summarise(problem, obs, options, best.x.data(), result, &best.values);
   FillParams(model, problem, best, result.robust_scale, result);
   result.practice.displacement = problem.Displacement(best.x.data());
   return result;

@@ -32,6 +32,7 @@ FitProblem::FitProblem(const model::Model& model, const Transcription& table,
     highs_.push_back(hi);
   }
   practice_.displacement = 0;
+  gradient_.assign(free_index_.size(), 0.0);
   for (const auto& o : obs) {
     Entry e;
     const auto& col = table.columns.at(static_cast<std::size_t>(o.column));
@@ -103,6 +104,30 @@ void FitProblem::Residuals(const double* x, double* r, const std::vector<std::si
     for (std::size_t k = 0; k < subset->size(); ++k) r[k] = Residual((*subset)[k], x);
   } else {
     for (std::size_t i = 0; i < entries_.size(); ++i) r[i] = Residual(i, x);
+  }
+}
+
+void FitProblem::Linearise(const double* x, double* r, double* J, double* v,
+                           const std::vector<std::size_t>* subset) {
+  Expand(x);
+  const double shift = Displacement(x);
+  const std::size_t m = subset ? subset->size() : entries_.size();
+  const std::size_t k = static_cast<std::size_t>(num_free());
+  const std::size_t km = free_index_.size();
+  for (std::size_t row = 0; row < m; ++row) {
+    const Entry& e = entries_[subset ? (*subset)[row] : row];
+    const double value =
+        model::PracticeValueWithGradient(model_, full_, e.ctx, practice_, e.places, free_index_, gradient_.data()) +
+        shift;
+    v[row] = value;
+    r[row] = ResidualOf(subset ? (*subset)[row] : row, value);
+    double* Jr = J + row * k;
+    const bool finite = std::isfinite(value);
+    for (std::size_t j = 0; j < km; ++j) {
+      const double d = -e.scale * gradient_[j];
+      Jr[j] = finite && std::isfinite(d) ? d : 0.0;
+    }
+    if (fit_displacement_) Jr[km] = finite ? -e.scale : 0.0;
   }
 }
 

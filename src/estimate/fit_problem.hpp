@@ -28,6 +28,11 @@ class FitProblem {
   double Residual(std::size_t i, const double* x);
   /// All residuals; `subset` limits to some entries (then r has subset size).
   void Residuals(const double* x, double* r, const std::vector<std::size_t>* subset = nullptr);
+  /// Residuals r, their Jacobian J (row-major, num_free() columns, dr/dx)
+  /// and the model's values v (as Value) in one pass: built-in models give
+  /// exact derivatives at about the cost of a value. `subset` as above.
+  void Linearise(const double* x, double* r, double* J, double* v,
+                 const std::vector<std::size_t>* subset = nullptr);
   /// The model's value at entry i under the practice, with displacement.
   double Value(std::size_t i, const double* x);
   /// The residual of entry i when the model's value (as from Value) is v.
@@ -57,6 +62,7 @@ class FitProblem {
   std::vector<Entry> entries_;
   std::vector<int> free_index_;
   std::vector<double> full_;
+  std::vector<double> gradient_;  ///< scratch, one per free model parameter
   std::vector<double> lows_, highs_;
   bool fit_displacement_ = false;
   bool modulo_ = false;
