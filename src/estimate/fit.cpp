@@ -24,14 +24,6 @@ std::vector<double> FitResult::Values() const {
 
 namespace {
 
-/// The computed (practice-applied) value, reduced modulo 360 when asked.
-std::optional<Sexagesimal> Computed(double exact, int places, int out_places, const FitOptions& o) {
-  if (!std::isfinite(exact) || std::fabs(exact) > 1e11) return std::nullopt;
-  Sexagesimal v = Sexagesimal::FromDouble(exact, places, o.practice.rounding).Extended(out_places);
-  if (o.modulo_360) v = v.Modulo(360);
-  return v;
-}
-
 void FillEntry(FitEntry& e, const Observation& o, double exact, const FitOptions& options) {
   e.row = o.row;
   e.column = o.column;
@@ -39,10 +31,20 @@ void FillEntry(FitEntry& e, const Observation& o, double exact, const FitOptions
   e.tabulated = o.value;
   e.exact = exact;
   const int p = options.practice.places ? std::min(*options.practice.places, o.places) : o.places;
-  e.computed = Computed(exact, p, o.places, options);
-  if (!e.computed) {
+  if (!std::isfinite(exact) || std::fabs(exact) > 1e11) {
+    e.computed = std::nullopt;
     e.diff_units = std::numeric_limits<double>::quiet_NaN();
     e.flag = true;
+    return;
+  }
+  const auto units = internal::BroughtUnits(exact, p, options.practice.rounding);
+  Sexagesimal c = units ? Sexagesimal::FromUnits(*units, p) : Sexagesimal::FromDouble(exact, p, options.practice.rounding);
+  if (p != o.places) c = c.Extended(o.places);
+  if (options.modulo_360) c = c.Modulo(360);
+  e.computed = c;
+  if (units && p == o.places && !options.modulo_360 && std::fabs(o.units) < 0x1p52) {
+    e.diff_units = o.units - static_cast<double>(*units);  // = DiffUnits, exactly
+    e.flag = std::fabs(e.diff_units) > options.tolerance;
     return;
   }
   e.diff_units = DiffUnits(o.value, *e.computed, o.places);

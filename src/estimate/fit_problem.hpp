@@ -4,6 +4,8 @@
 /// solvers allocates nothing.
 
 #include <cstddef>
+#include <cstdint>
+#include <optional>
 #include <vector>
 
 #include "estimate/fit.hpp"
@@ -68,6 +70,12 @@ class FitProblem {
   bool modulo_ = false;
   double displacement_ = 0;
 };
+
+/// The units of Sexagesimal::FromDouble(value, places, rounding), by the
+/// same long-double scaling and rounding, when they fit comfortably in 64
+/// bits (so that a summary of 360 entries does not spend its time in
+/// 128-bit conversions); nullopt otherwise.
+std::optional<std::int64_t> BroughtUnits(double value, int places, Rounding rounding);
 
 /// Cauchy robust cost sum s^2 log(1 + r^2/s^2).
 double CauchyCost(const double* r, std::size_t n, double s);

@@ -5,6 +5,7 @@
 #include <cmath>
 #include <numbers>
 
+#include "estimate/fit_problem.hpp"
 #include "model/model.hpp"
 #include "synthetic.hpp"
 
@@ -162,6 +163,31 @@ TEST_CASE("published solar equation table: e between 2;4 and 2;6, only the entry
   }
   CHECK(outside == 1);
   CHECK(outside_arg == 20);
+}
+
+}  // namespace apograph::estimate
+
+namespace apograph::estimate {
+
+TEST_CASE("the summary's quick rounding gives exactly Sexagesimal::FromDouble's units") {
+  int compared = 0;
+  for (Rounding r : {Rounding::kNearest, Rounding::kTruncate}) {
+    for (int places = 0; places <= 5; ++places) {
+      // Ties (x.5 units exactly: dyadic values), negatives, and a spread of others.
+      std::vector<double> values = {0.03125, -0.03125, 2.5, -2.5, 0.5, 1.0 / 3, -7.0 / 3, 59.999999999, 0};
+      for (int k = 1; k < 400; ++k) values.push_back(std::sin(k * 0.7) * 90 + k * 1e-7);
+      for (double v : values) {
+        CAPTURE(v);
+        CAPTURE(places);
+        const auto q = internal::BroughtUnits(v, places, r);
+        REQUIRE(q.has_value());
+        CHECK(*q == static_cast<std::int64_t>(Sexagesimal::FromDouble(v, places, r).units()));
+        ++compared;
+      }
+    }
+  }
+  CHECK(compared > 4000);
+  CHECK_FALSE(internal::BroughtUnits(1e11, 5, Rounding::kNearest).has_value());  // beyond 2^52 units
 }
 
 }  // namespace apograph::estimate
