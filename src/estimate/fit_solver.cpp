@@ -109,11 +109,17 @@ bool Negligible(int k, double tol, const Buffers& b) {
   return true;
 }
 
+/// Relative decrease of the cost below which a step counts as the last (as
+/// Ceres Solver's function tolerance): a wrong model's long flat valley would
+/// otherwise use every iteration allowed.
+constexpr double kCostTolerance = 1e-6;
+
 /// Levenberg-Marquardt at loss scale s from x. On entry b holds residuals,
 /// Jacobian and values at x (Buffers::At); on exit the same at the result,
 /// with A, H and g made there. Stops when the undamped step from the current
-/// point is negligible (tol standard errors), without taking it, or when no
-/// step descends. Returns the cost.
+/// point is negligible (tol standard errors), without taking it, when no
+/// step descends, or when a step lowers the cost by less than
+/// kCostTolerance of itself. Returns the cost.
 double Minimise(FitProblem& p, std::vector<double>& x, double s, int max_iterations, double tol,
                 bool newton, Buffers& b, SolveOutcome& out) {
   const int k = static_cast<int>(x.size());
@@ -122,6 +128,7 @@ double Minimise(FitProblem& p, std::vector<double>& x, double s, int max_iterati
   Normal(k, s, b);
   for (int it = 0; it < max_iterations; ++it) {
     ++out.iterations;
+    const double before = cost;
     if (StepFor(k, 0, newton, b) && Negligible(k, tol, b)) {
       out.converged = true;
       break;
@@ -147,7 +154,8 @@ double Minimise(FitProblem& p, std::vector<double>& x, double s, int max_iterati
         lambda *= 10;
       }
     }
-    if (!improved) {  // no descent left
+    if (!improved || before - cost <= kCostTolerance * before) {  // no descent left, or too little to matter
+      if (improved) Normal(k, s, b);
       out.converged = true;
       break;
     }
