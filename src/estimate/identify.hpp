@@ -5,7 +5,9 @@
 /// entries, with and without a displacement constant; the best six are
 /// refitted on every entry under rounding and under truncation; the best
 /// three families are then tried with the interpolation grids that fit the
-/// argument range (unless a candidate already reproduces every entry). Candidates are ranked by a score (higher is better):
+/// argument range (unless a candidate already reproduces every entry): each
+/// grid fitted on the subsample, the best two per family refitted on every
+/// entry. Candidates are ranked by a score (higher is better):
 ///
 ///   score = sum over entries of log P(d) - (k / 2) ln n
 ///
@@ -17,6 +19,12 @@
 /// parameters: the model's, the displacement, and one for a grid. Entries
 /// reproduced exactly raise the score most; an extra parameter must buy
 /// about ln(n)/2 in fit to pay for itself (a BIC-style penalty).
+///
+/// A candidate whose estimate lies more than its range's width outside a
+/// parameter's historical range (ParamSpec low..high; e.g. an obliquity of
+/// 0;6) is ranked after every candidate with historical values, with a note
+/// when it would have come first: a degenerate limit of a family can mimic
+/// another family.
 ///
 /// Candidates within 2 of the best (a likelihood ratio below e^2 after the
 /// penalty) are reported as near-ties with what tells them apart.

@@ -100,3 +100,29 @@ TEST_CASE("the score rewards exact entries and penalises extra parameters") {
 }
 
 }  // namespace apograph::estimate
+
+namespace apograph::estimate {
+
+TEST_CASE("a degenerate limit of another family with unhistorical parameters is set aside, with a note") {
+  // The ascensional difference with an obliquity near 0 and a latitude near
+  // 90 degrees mimics the declination table and, with one more parameter,
+  // reproduces about as many entries.
+  const model::Model* m = model::FindBuiltinModel("declination");
+  testing::SyntheticColumn c;
+  c.places = 2;
+  c.f = [m](double a) {
+    model::RowContext ctx;
+    ctx.arg = a;
+    return m->Evaluate({23.85}, ctx);
+  };
+  c.errors = {{11, 37}};
+  const Identification id = Identify(testing::MakeTable("decl", 1, 1, 90, {c}), 0);
+  REQUIRE(!id.ranked.empty());
+  CHECK(id.ranked[0].model->name() == "declination");
+  bool noted = false;
+  for (const auto& n : id.notes) noted = noted || (n.find("ascensional-difference") != std::string::npos &&
+                                                   n.find("historical range") != std::string::npos);
+  CHECK(noted);
+}
+
+}  // namespace apograph::estimate
