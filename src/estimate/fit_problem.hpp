@@ -48,6 +48,8 @@ class FitProblem {
   /// Index in the model's parameters of free parameter j (-1: displacement).
   int ModelIndex(int j) const;
   int places(std::size_t i) const { return entries_[i].places; }
+  /// Residuals wrap modulo 360.
+  bool modulo() const { return modulo_; }
 
  private:
   struct Entry {

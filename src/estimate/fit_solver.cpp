@@ -233,7 +233,9 @@ std::vector<std::vector<double>> GridStarts(FitProblem& p, const std::vector<dou
   if (k == 0 || free_model == 0) return {x0};
   // A subsample of at most 40 entries spread over the table.
   const std::vector<std::size_t> sub = Subsample(p.size(), 24);
-  std::vector<double> r(sub.size());
+  std::vector<double> r(sub.size()), scales(sub.size());
+  for (std::size_t i = 0; i < sub.size(); ++i) scales[i] = std::pow(60.0, p.places(sub[i]));
+  const double scale0 = scales[0];
   const int per_dim = free_model == 1 ? 16 : free_model == 2 ? 9 : free_model == 3 ? 5 : 3;
   std::size_t total = 1;
   for (int j = 0; j < free_model; ++j) total *= static_cast<std::size_t>(per_dim);
@@ -251,9 +253,16 @@ std::vector<std::vector<double>> GridStarts(FitProblem& p, const std::vector<dou
       p.Residuals(x.data(), r.data(), &sub);
       std::vector<double> tmp(r);
       std::nth_element(tmp.begin(), tmp.begin() + static_cast<std::ptrdiff_t>(tmp.size() / 2), tmp.end());
-      x[k - 1] = tmp[tmp.size() / 2] / std::pow(60.0, p.places(sub[0]));
+      const double median = tmp[tmp.size() / 2];
+      x[k - 1] = median / scale0;
+      if (p.modulo()) {
+        p.Residuals(x.data(), r.data(), &sub);
+      } else {  // a displacement d moves every residual by d 60^places: no second pass
+        for (std::size_t i = 0; i < sub.size(); ++i) r[i] -= x[k - 1] * scales[i];
+      }
+    } else {
+      p.Residuals(x.data(), r.data(), &sub);
     }
-    p.Residuals(x.data(), r.data(), &sub);
     scored.emplace_back(CauchyCost(r.data(), r.size(), s), x);
   }
   std::sort(scored.begin(), scored.end(), [](const auto& a, const auto& b) { return a.first < b.first; });
