@@ -164,6 +164,12 @@ double Minimise(FitProblem& p, std::vector<double>& x, double s, int max_iterati
   return cost;
 }
 
+/// Residual spread (1.4826 MAD, units) after the wide-scale pass beyond
+/// which the model explains the column so badly that refining at the loss
+/// scale of ~1 unit (every entry then in the loss's flat tail) would only
+/// crawl: the wide-scale estimate stands (its robust scale says how bad).
+constexpr double kHopeless = 20;
+
 /// At most m entries spread evenly over n.
 std::vector<std::size_t> Subsample(std::size_t n, std::size_t m) {
   std::vector<std::size_t> sub;
@@ -193,7 +199,10 @@ std::vector<double> Approach(FitProblem& p, std::vector<double> x, double s, int
   b.At(p, x);
   SolveOutcome ignored;
   const double wide = Mad(std::vector<double>(b.r.begin(), b.r.end()));
-  if (wide > 4 * s) Minimise(p, x, wide, max_iterations, 0.3, false, b, ignored);
+  if (wide > 4 * s) {
+    Minimise(p, x, wide, max_iterations, 0.3, false, b, ignored);
+    if (Mad(b.r) > kHopeless * s) return x;
+  }
   Minimise(p, x, s, max_iterations, 0.3, true, b, ignored);
   return x;
 }
@@ -213,7 +222,17 @@ SolveOutcome Refine(FitProblem& p, std::vector<double> x, double s, int max_iter
     return out;
   }
   const double wide_all = Mad(b.r);
-  if (wide_all > 4 * s) Minimise(p, x, wide_all, max_iterations, 0.3, false, b, out);
+  if (wide_all > 4 * s) {
+    out.cost = Minimise(p, x, wide_all, max_iterations, 0.3, false, b, out);
+    const double spread = Mad(b.r);
+    if (spread > kHopeless * s) {  // every entry in the loss's tail: s measures nothing
+      out.cost = CauchyCost(b.r.data(), n, s);
+      out.x = x;
+      out.covariance = Inverse(b.A, k);
+      out.values = std::move(b.v);
+      return out;
+    }
+  }
   out.converged = false;
   out.cost = Minimise(p, x, s, max_iterations, 0.01, true, b, out);
   out.x = x;

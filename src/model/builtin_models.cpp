@@ -16,7 +16,7 @@ double BuiltinModel::EvaluateWithGradient(const std::vector<double>& p, const Ro
                                           const std::vector<int>& wrt, double* gradient) const {
   if (!f1_ || !f2_) return Model::EvaluateWithGradient(p, row, wrt, gradient);
   if (p.size() < params_.size()) return Evaluate(p, row);  // throws the same message
-  constexpr std::size_t kMax = 8;
+  constexpr std::size_t kMax = 4;  // small enough to be set up without a loop
   if (params_.size() > kMax) return Model::EvaluateWithGradient(p, row, wrt, gradient);
   const double arg = row.arg, arg2 = row.arg2.value_or(0.0);
   double v = 0;

@@ -77,8 +77,18 @@ struct Dual {
   friend bool operator>=(const Dual& a, const Dual& b) { return a.v >= b.v; }
   friend bool operator==(const Dual& a, const Dual& b) { return a.v == b.v; }
 
-  friend Dual sin(const Dual& x) { return x.Constant() ? Dual(std::sin(x.v)) : x.Chain(std::sin(x.v), std::cos(x.v)); }
-  friend Dual cos(const Dual& x) { return x.Constant() ? Dual(std::cos(x.v)) : x.Chain(std::cos(x.v), -std::sin(x.v)); }
+  friend Dual sin(const Dual& x) {
+    if (x.Constant()) return Dual(std::sin(x.v));
+    double s, c;
+    SinCos(x.v, s, c);
+    return x.Chain(s, c);
+  }
+  friend Dual cos(const Dual& x) {
+    if (x.Constant()) return Dual(std::cos(x.v));
+    double s, c;
+    SinCos(x.v, s, c);
+    return x.Chain(c, -s);
+  }
   friend Dual asin(const Dual& x) { return x.Chain(std::asin(x.v), 1 / std::sqrt(1 - x.v * x.v)); }
   friend Dual acos(const Dual& x) { return x.Chain(std::acos(x.v), -1 / std::sqrt(1 - x.v * x.v)); }
   friend Dual atan(const Dual& x) { return x.Chain(std::atan(x.v), 1 / (1 + x.v * x.v)); }
@@ -97,10 +107,22 @@ struct Dual {
   }
   /// x - trunc(x / m) m, differentiated where it is smooth.
   friend Dual fmod(const Dual& x, const Dual& m) {
+    if (m.Constant()) return x.Chain(std::fmod(x.v, m.v), 1);  // the usual case: m = 360
     const double q = std::trunc(x.v / m.v);
     Dual r(std::fmod(x.v, m.v));
     for (int i = 0; i < N; ++i) r.d[i] = x.d[i] - q * m.d[i];
     return r;
+  }
+
+ private:
+  /// Both at once where the C library offers it (one argument reduction).
+  static void SinCos(double x, double& s, double& c) {
+#if defined(__GLIBC__)
+    ::sincos(x, &s, &c);
+#else
+    s = std::sin(x);
+    c = std::cos(x);
+#endif
   }
 };
 
