@@ -14,7 +14,8 @@ namespace {
 constexpr double kAuthor = 0.98;   // share of entries as the author computed them
 constexpr double kRatio = 0.1;     // P(|d| = j+1) / P(|d| = j) for the author's entries
 constexpr double kNearTie = 2.0;   // score difference below which candidates tie
-constexpr std::size_t kGridRefits = 2;  // grids refitted per family (see BestGrids)
+constexpr std::size_t kGridRefits = 2;
+constexpr double kZeroShare = 0.9;  // share of entries ending in 0 that reduces the places (see ReducedPlaces)  // grids refitted per family (see BestGrids)
 
 std::string Trimmed(double v) {
   std::ostringstream o;
@@ -96,6 +97,17 @@ std::vector<double> BestGrids(const model::Model& m, const Transcription& table,
   std::vector<double> out;
   for (std::size_t i = 0; i < scored.size() && i < keep; ++i) out.push_back(scored[i].second);
   return out;
+}
+
+/// One place fewer than the column shows when at least kZeroShare of its
+/// entries end in 0 (see identify.hpp); nullopt otherwise.
+std::optional<int> ReducedPlaces(const std::vector<Observation>& obs) {
+  const int places = obs.front().places;
+  if (places < 1) return std::nullopt;
+  std::size_t zeros = 0;
+  for (const auto& o : obs) zeros += o.places == places && std::fmod(std::fabs(o.units), 60.0) == 0;
+  if (static_cast<double>(zeros) < kZeroShare * static_cast<double>(obs.size())) return std::nullopt;
+  return places - 1;
 }
 
 /// Why a candidate's estimate is no historical value: a free parameter more
@@ -208,7 +220,10 @@ Identification Identify(const Transcription& table, int column, const IdentifyOp
   const std::size_t stride = std::max<std::size_t>(1, (obs.size() + 59) / 60);
   for (std::size_t i = 0; i < obs.size(); i += stride) sub.push_back(obs[i]);
   std::vector<Candidate> screen;
-  const double unit = std::pow(60.0, -obs.front().places);
+  // A column whose last place is (nearly) always 0 was computed to one place
+  // fewer: every fit then works at that number of places.
+  const std::optional<int> reduced = ReducedPlaces(obs);
+  const double unit = std::pow(60.0, -(reduced ? *reduced : obs.front().places));
   for (const model::Model* m : models) {
     if (IsMeanMotion(*m) != mean_motion || !Applicable(*m, table, obs)) continue;
     // Rounding and truncation shift an estimate by half a unit at most, so
@@ -218,6 +233,7 @@ Identification Identify(const Transcription& table, int column, const IdentifyOp
         if (disp && (!options.try_displacement || mean_motion)) continue;
         FitOptions fo;
         fo.practice.rounding = r;
+        fo.practice.places = reduced;
         fo.fit_displacement = disp;
         fo.max_iterations = 10;
         Candidate c = MakeCandidate(*m, Fit(*m, table, sub, fo), false);
@@ -232,10 +248,13 @@ Identification Identify(const Transcription& table, int column, const IdentifyOp
   std::stable_sort(screen.begin(), screen.end(), by_score);
   // Round 1: the best of the screen refitted on every entry from its estimate.
   std::vector<Candidate> all;
-  auto refit = [&](const Candidate& from, Rounding r, double grid) {
+  auto refit = [&](const Candidate& from, Rounding r, double grid, bool round_nodes = false,
+                   std::optional<int> places = std::nullopt, bool keep_places = true) {
     FitOptions fo;
     fo.practice.rounding = r;
+    fo.practice.places = keep_places ? from.fit.practice.places : places;
     fo.practice.grid = grid;
+    fo.practice.round_nodes = grid > 0 && round_nodes;
     fo.practice.displacement = from.fit.practice.displacement;
     fo.fit_displacement = from.fit.practice.displacement != 0;
     for (const auto& p : from.fit.params) {
@@ -254,6 +273,10 @@ Identification Identify(const Transcription& table, int column, const IdentifyOp
       refit(screen[i], r, 0);
       ++out.candidates_tried;
     }
+  }
+  if (reduced && !screen.empty()) {  // the best family at the places as written, for comparison
+    refit(screen[0], Rounding::kNearest, 0, false, std::nullopt, false);
+    ++out.candidates_tried;
   }
   std::stable_sort(all.begin(), all.end(), by_score);
   // Round 2: the best families with interpolation grids, both roundings.
@@ -276,6 +299,12 @@ Identification Identify(const Transcription& table, int column, const IdentifyOp
       const Candidate best = all[0];
       refit(best, best.fit.practice.rounding == Rounding::kNearest ? Rounding::kTruncate : Rounding::kNearest,
             best.fit.practice.grid);
+      ++out.candidates_tried;
+      std::stable_sort(all.begin(), all.end(), by_score);
+    }
+    if (!perfect && all[0].fit.practice.grid > 0) {  // the best grid with its nodes rounded first
+      const Candidate best = all[0];
+      refit(best, best.fit.practice.rounding, best.fit.practice.grid, true);
       ++out.candidates_tried;
       std::stable_sort(all.begin(), all.end(), by_score);
     }
