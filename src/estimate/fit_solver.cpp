@@ -150,8 +150,8 @@ double Minimise(FitProblem& p, std::vector<double>& x, double s, int max_iterati
         std::swap(b.v, b.v2);
         cost = c;
         lambda = std::max(lambda * 0.1, 1e-12);
-      } else {
-        lambda *= 10;
+      } else {  // damp: at once to a tenth of the step's scale, then by tens
+        lambda = std::max(lambda * 10, 0.1);
       }
     }
     if (!improved || before - cost <= kCostTolerance * before) {  // no descent left, or too little to matter
@@ -255,7 +255,7 @@ std::vector<std::vector<double>> GridStarts(FitProblem& p, const std::vector<dou
   std::vector<double> r(sub.size()), scales(sub.size());
   for (std::size_t i = 0; i < sub.size(); ++i) scales[i] = std::pow(60.0, p.places(sub[i]));
   const double scale0 = scales[0];
-  const int per_dim = free_model == 1 ? 16 : free_model == 2 ? 9 : free_model == 3 ? 5 : 3;
+  const int per_dim = free_model == 1 ? 12 : free_model == 2 ? 9 : free_model == 3 ? 5 : 3;
   std::size_t total = 1;
   for (int j = 0; j < free_model; ++j) total *= static_cast<std::size_t>(per_dim);
   std::vector<std::pair<double, std::vector<double>>> scored;
