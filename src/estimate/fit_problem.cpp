@@ -122,6 +122,10 @@ void FitProblem::Residuals(const double* x, double* r, const std::vector<std::si
 
 void FitProblem::Linearise(const double* x, double* r, double* J, double* v,
                            const std::vector<std::size_t>* subset) {
+  if (modulo_ && !model_.ExactGradient()) {
+    LineariseByDifferences(x, r, J, v, subset);
+    return;
+  }
   Expand(x);
   const double shift = Displacement(x);
   const std::size_t m = subset ? subset->size() : entries_.size();
@@ -170,6 +174,28 @@ std::optional<std::int64_t> BroughtUnits(double value, int places, Rounding roun
   if (scaled > 0 && d == 0.5L) ++n;
   if (scaled < 0 && d == -0.5L) --n;
   return n;
+}
+
+void FitProblem::LineariseByDifferences(const double* x, double* r, double* J, double* v,
+                                        const std::vector<std::size_t>* subset) {
+  const std::size_t m = subset ? subset->size() : entries_.size();
+  const std::size_t k = static_cast<std::size_t>(num_free());
+  std::vector<double> xt(x, x + k);
+  for (std::size_t row = 0; row < m; ++row) {
+    const std::size_t i = subset ? (*subset)[row] : row;
+    v[row] = Value(i, x);
+    r[row] = ResidualOf(i, v[row]);
+  }
+  for (std::size_t j = 0; j < k; ++j) {
+    const double h = 1e-7 * std::max(std::fabs(x[j]), 1e-2);
+    xt[j] = x[j] + h;
+    for (std::size_t row = 0; row < m; ++row) {
+      const std::size_t i = subset ? (*subset)[row] : row;
+      J[row * k + j] = (Residual(i, xt.data()) - r[row]) / h;
+    }
+    xt[j] = x[j];
+  }
+  Expand(x);
 }
 
 double CauchyCost(const double* r, std::size_t n, double s) {

@@ -60,6 +60,11 @@ class FitProblem {
     int places = 0;
   };
   double ModelValue(const Entry& e);
+  /// Linearise by forward differences of the wrapped residuals: for models
+  /// without exact derivatives compared modulo 360, whose values jump by a
+  /// whole turn at a wrap.
+  void LineariseByDifferences(const double* x, double* r, double* J, double* v,
+                              const std::vector<std::size_t>* subset);
 
   const model::Model& model_;
   model::Practice practice_;  ///< without displacement (added here)

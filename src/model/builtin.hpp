@@ -118,6 +118,7 @@ class BuiltinModel final : public Model {
                               const std::vector<int>& wrt, double* gradient) const override;
   /// Whether EvaluateWithGradient is exact (dual numbers) here.
   bool HasExactGradient() const { return f1_ && f2_; }
+  bool ExactGradient() const override { return HasExactGradient(); }
   /// The same formula in long double (for the precision tests).
   long double EvaluateLong(const std::vector<long double>& p, long double arg,
                            long double arg2 = 0) const;

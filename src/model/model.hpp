@@ -53,6 +53,10 @@ class Model {
   /// the cost of one evaluation.
   virtual double EvaluateWithGradient(const std::vector<double>& params, const RowContext& row,
                                       const std::vector<int>& wrt, double* gradient) const;
+  /// Whether EvaluateWithGradient is exact rather than forward differences
+  /// (a caller comparing values modulo 360 must difference the wrapped
+  /// residuals itself when it is not).
+  virtual bool ExactGradient() const { return false; }
   /// Defaults of all parameters, in order.
   std::vector<double> Defaults() const;
   /// The argument convention in words: what the argument is, how arguments
