@@ -135,17 +135,17 @@ bool SameOptimum(const std::vector<double>& x, const internal::SolveOutcome& s, 
 internal::SolveOutcome SolveDistinct(internal::FitProblem& problem, const std::vector<std::vector<double>>& starts,
                                      const FitOptions& options) {
   std::vector<internal::SolveOutcome> done;
-  internal::SolveOutcome best;
-  best.cost = std::numeric_limits<double>::infinity();
+  std::size_t best = 0;
   for (const auto& start : starts) {
     const std::vector<double> near = internal::Approach(problem, start, options.loss_scale, options.max_iterations);
     bool seen = false;
     for (const auto& d : done) seen = seen || SameOptimum(near, d, 10);
     if (seen) continue;
     done.push_back(internal::Refine(problem, near, options.loss_scale, options.max_iterations));
-    if (done.back().cost < best.cost) best = done.back();
+    if (done.back().cost < done[best].cost) best = done.size() - 1;
   }
-  return best;
+  if (done.empty()) return {};
+  return std::move(done[best]);
 }
 
 /// With rounded nodes the cost is flat between the parameter values where a
