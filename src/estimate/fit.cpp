@@ -1,5 +1,6 @@
 #include "estimate/fit.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <limits>
 #include <stdexcept>
@@ -23,14 +24,6 @@ std::vector<double> FitResult::Values() const {
 
 namespace {
 
-/// The computed (practice-applied) value, reduced modulo 360 when asked.
-std::optional<Sexagesimal> Computed(double exact, int places, int out_places, const FitOptions& o) {
-  if (!std::isfinite(exact) || std::fabs(exact) > 1e11) return std::nullopt;
-  Sexagesimal v = Sexagesimal::FromDouble(exact, places, o.practice.rounding).Extended(out_places);
-  if (o.modulo_360) v = v.Modulo(360);
-  return v;
-}
-
 void FillEntry(FitEntry& e, const Observation& o, double exact, const FitOptions& options) {
   e.row = o.row;
   e.column = o.column;
@@ -38,10 +31,20 @@ void FillEntry(FitEntry& e, const Observation& o, double exact, const FitOptions
   e.tabulated = o.value;
   e.exact = exact;
   const int p = options.practice.places ? std::min(*options.practice.places, o.places) : o.places;
-  e.computed = Computed(exact, p, o.places, options);
-  if (!e.computed) {
+  if (!std::isfinite(exact) || std::fabs(exact) > 1e11) {
+    e.computed = std::nullopt;
     e.diff_units = std::numeric_limits<double>::quiet_NaN();
     e.flag = true;
+    return;
+  }
+  const auto units = internal::BroughtUnits(exact, p, options.practice.rounding);
+  Sexagesimal c = units ? Sexagesimal::FromUnits(*units, p) : Sexagesimal::FromDouble(exact, p, options.practice.rounding);
+  if (p != o.places) c = c.Extended(o.places);
+  if (options.modulo_360) c = c.Modulo(360);
+  e.computed = c;
+  if (units && p == o.places && !options.modulo_360 && std::fabs(o.units) < 0x1p52) {
+    e.diff_units = o.units - static_cast<double>(*units);  // = DiffUnits, exactly
+    e.flag = std::fabs(e.diff_units) > options.tolerance;
     return;
   }
   e.diff_units = DiffUnits(o.value, *e.computed, o.places);
@@ -52,16 +55,19 @@ void FillEntry(FitEntry& e, const Observation& o, double exact, const FitOptions
   e.flag = std::fabs(e.diff_units) > options.tolerance;
 }
 
-/// Entries, counts and robust scale at the free vector x.
+/// Entries, counts and robust scale at the free vector x (`values`: the
+/// model's values there when the solver has them, else computed here).
 void Summarise(internal::FitProblem& problem, const std::vector<Observation>& obs,
-               const FitOptions& options, const double* x, FitResult& result) {
+               const FitOptions& options, const double* x, FitResult& result,
+               const std::vector<double>* values = nullptr) {
   result.entries.assign(obs.size(), {});
   result.n = static_cast<int>(obs.size());
   result.exact = result.within1 = result.flagged = 0;
   std::vector<double> residuals(obs.size());
+  const bool have = values && values->size() == obs.size();
   for (std::size_t i = 0; i < obs.size(); ++i) {
     FitEntry& e = result.entries[i];
-    const double v = problem.Value(i, x);
+    const double v = have ? (*values)[i] : problem.Value(i, x);
     FillEntry(e, obs[i], v, options);
     e.residual = residuals[i] = problem.ResidualOf(i, v);
     if (!std::isfinite(e.diff_units)) {
@@ -99,6 +105,86 @@ void FillParams(const model::Model& model, internal::FitProblem& problem,
   result.free_parameters = k;
 }
 
+/// Every start solved in full (the reference solver); the best.
+internal::SolveOutcome SolveEach(internal::FitProblem& problem, const std::vector<std::vector<double>>& starts,
+                                 const FitOptions& options) {
+  internal::SolveOutcome best;
+  best.cost = std::numeric_limits<double>::infinity();
+  for (const auto& start : starts) {
+    auto s = internal::SolveCeres(problem, start, options.loss_scale, options.max_iterations);
+    if (s.cost < best.cost) best = std::move(s);
+  }
+  return best;
+}
+
+/// x lies within `many` standard errors of the solution s in every free
+/// parameter (so that refining it would land on s again).
+bool SameOptimum(const std::vector<double>& x, const internal::SolveOutcome& s, double many) {
+  const std::size_t k = x.size();
+  if (s.covariance.size() != k * k) return false;
+  for (std::size_t j = 0; j < k; ++j) {
+    const double sd = std::sqrt(std::max(s.covariance[j * k + j], 0.0));
+    if (!(std::fabs(x[j] - s.x[j]) <= many * sd)) return false;
+  }
+  return true;
+}
+
+/// The fast solver: every start brought near its optimum on a subsample,
+/// then refined on every entry unless it came to an optimum already refined
+/// (several grid starts usually share one basin).
+internal::SolveOutcome SolveDistinct(internal::FitProblem& problem, const std::vector<std::vector<double>>& starts,
+                                     const FitOptions& options) {
+  std::vector<internal::SolveOutcome> done;
+  std::size_t best = 0;
+  for (const auto& start : starts) {
+    const std::vector<double> near = internal::Approach(problem, start, options.loss_scale, options.max_iterations);
+    bool seen = false;
+    for (const auto& d : done) seen = seen || SameOptimum(near, d, 10);
+    if (seen) continue;
+    done.push_back(internal::Refine(problem, near, options.loss_scale, options.max_iterations));
+    if (done.back().cost < done[best].cost) best = done.size() - 1;
+  }
+  if (done.empty()) return {};
+  return std::move(done[best]);
+}
+
+/// With rounded nodes the cost is flat between the parameter values where a
+/// node's rounding changes, and the solver's derivatives (those of the exact
+/// nodes) only bring it near the optimum: a pattern search on the cost
+/// itself finishes the work (steps from 2 standard errors down to 1/100 of
+/// one, each free parameter in turn).
+void Polish(internal::FitProblem& problem, double loss_scale, internal::SolveOutcome& best) {
+  const std::size_t k = best.x.size();
+  std::vector<double> r(problem.size());
+  auto cost = [&](const std::vector<double>& x) {
+    problem.Residuals(x.data(), r.data());
+    return internal::CauchyCost(r.data(), r.size(), loss_scale);
+  };
+  double c = cost(best.x);
+  bool moved = false;
+  for (std::size_t j = 0; j < k; ++j) {
+    const double var = best.covariance.size() == k * k ? best.covariance[j * k + j] : 0;
+    const double sd = var > 0 ? std::sqrt(var) : 1e-6 * std::max(std::fabs(best.x[j]), 1.0);
+    for (double step = 2 * sd; step >= 0.01 * sd; step /= 2) {
+      for (double dir : {1.0, -1.0}) {
+        std::vector<double> x = best.x;
+        x[j] += dir * step;
+        const double cx = cost(x);
+        if (cx < c) {
+          c = cx;
+          best.x = std::move(x);
+          moved = true;
+          break;
+        }
+      }
+    }
+  }
+  if (moved) {
+    best.cost = c;
+    best.values.clear();  // the summary evaluates at the new point
+  }
+}
+
 }  // namespace
 
 FitResult Fit(const model::Model& model, const Transcription& table,
@@ -123,19 +209,15 @@ FitResult Fit(const model::Model& model, const Transcription& table,
   std::vector<std::vector<double>> starts =
       options.start.empty() ? internal::GridStarts(problem, x0, options.loss_scale, 2)
                             : std::vector<std::vector<double>>{x0};
-  internal::SolveOutcome best;
-  best.cost = std::numeric_limits<double>::infinity();
-  for (const auto& start : starts) {
-    auto s = options.solver == Solver::kCeres
-                 ? internal::SolveCeres(problem, start, options.loss_scale, options.max_iterations)
-                 : internal::SolveFast(problem, start, options.loss_scale, options.max_iterations);
-    if (s.cost < best.cost) best = std::move(s);
-  }
+  internal::SolveOutcome best = options.solver == Solver::kCeres
+                                    ? SolveEach(problem, starts, options)
+                                    : SolveDistinct(problem, starts, options);
   if (best.x.empty()) best.x = x0;
+  if (options.practice.round_nodes && options.practice.grid > 0) Polish(problem, options.loss_scale, best);
   result.cost = best.cost;
   result.converged = best.converged;
   result.iterations = best.iterations;
-  Summarise(problem, obs, options, best.x.data(), result);
+  Summarise(problem, obs, options, best.x.data(), result, &best.values);
   FillParams(model, problem, best, result.robust_scale, result);
   result.practice.displacement = problem.Displacement(best.x.data());
   return result;

@@ -4,6 +4,8 @@
 /// solvers allocates nothing.
 
 #include <cstddef>
+#include <cstdint>
+#include <optional>
 #include <vector>
 
 #include "estimate/fit.hpp"
@@ -28,6 +30,11 @@ class FitProblem {
   double Residual(std::size_t i, const double* x);
   /// All residuals; `subset` limits to some entries (then r has subset size).
   void Residuals(const double* x, double* r, const std::vector<std::size_t>* subset = nullptr);
+  /// Residuals r, their Jacobian J (row-major, num_free() columns, dr/dx)
+  /// and the model's values v (as Value) in one pass: built-in models give
+  /// exact derivatives at about the cost of a value. `subset` as above.
+  void Linearise(const double* x, double* r, double* J, double* v,
+                 const std::vector<std::size_t>* subset = nullptr);
   /// The model's value at entry i under the practice, with displacement.
   double Value(std::size_t i, const double* x);
   /// The residual of entry i when the model's value (as from Value) is v.
@@ -41,6 +48,8 @@ class FitProblem {
   /// Index in the model's parameters of free parameter j (-1: displacement).
   int ModelIndex(int j) const;
   int places(std::size_t i) const { return entries_[i].places; }
+  /// Residuals wrap modulo 360.
+  bool modulo() const { return modulo_; }
 
  private:
   struct Entry {
@@ -51,17 +60,29 @@ class FitProblem {
     int places = 0;
   };
   double ModelValue(const Entry& e);
+  /// Linearise by forward differences of the wrapped residuals: for models
+  /// without exact derivatives compared modulo 360, whose values jump by a
+  /// whole turn at a wrap.
+  void LineariseByDifferences(const double* x, double* r, double* J, double* v,
+                              const std::vector<std::size_t>* subset);
 
   const model::Model& model_;
   model::Practice practice_;  ///< without displacement (added here)
   std::vector<Entry> entries_;
   std::vector<int> free_index_;
   std::vector<double> full_;
+  std::vector<double> gradient_;  ///< scratch, one per free model parameter
   std::vector<double> lows_, highs_;
   bool fit_displacement_ = false;
   bool modulo_ = false;
   double displacement_ = 0;
 };
+
+/// The units of Sexagesimal::FromDouble(value, places, rounding), by the
+/// same long-double scaling and rounding, when they fit comfortably in 64
+/// bits (so that a summary of 360 entries does not spend its time in
+/// 128-bit conversions); nullopt otherwise.
+std::optional<std::int64_t> BroughtUnits(double value, int places, Rounding rounding);
 
 /// Cauchy robust cost sum s^2 log(1 + r^2/s^2).
 double CauchyCost(const double* r, std::size_t n, double s);

@@ -14,6 +14,8 @@ namespace {
 constexpr double kAuthor = 0.98;   // share of entries as the author computed them
 constexpr double kRatio = 0.1;     // P(|d| = j+1) / P(|d| = j) for the author's entries
 constexpr double kNearTie = 2.0;   // score difference below which candidates tie
+constexpr std::size_t kGridRefits = 2;
+constexpr double kZeroShare = 0.9;  // share of entries ending in 0 that reduces the places (see ReducedPlaces)  // grids refitted per family (see BestGrids)
 
 std::string Trimmed(double v) {
   std::ostringstream o;
@@ -70,6 +72,90 @@ std::string Difference(const Candidate& a, const Candidate& b) {
   for (std::size_t i = 0; i < args.size() && i < 8; ++i) s += (i ? ", " : "") + args[i];
   if (args.size() > 8) s += ", ...";
   return s + ")";
+}
+
+/// The `keep` grids that fit best when each is fitted on the subsample only
+/// (from the seed's estimate, few iterations): one full fit per kept grid
+/// instead of one per grid. The ranking of grids is clear on a subsample:
+/// the right grid reproduces its entries exactly, a wrong one misses by the
+/// curvature between its nodes.
+std::vector<double> BestGrids(const model::Model& m, const Transcription& table, const std::vector<Observation>& sub,
+                              const Candidate& seed, const std::vector<double>& grids, std::size_t keep) {
+  std::vector<std::pair<double, double>> scored;  // score, grid
+  for (double g : grids) {
+    FitOptions fo;
+    fo.practice = seed.fit.practice;
+    fo.practice.grid = g;
+    fo.fit_displacement = seed.fit.practice.displacement != 0;
+    fo.max_iterations = 10;
+    for (const auto& p : seed.fit.params) {
+      if (!p.fixed) fo.start[p.name] = p.value;
+    }
+    scored.emplace_back(Score(Fit(m, table, sub, fo), seed.fit.free_parameters + 1), g);
+  }
+  std::stable_sort(scored.begin(), scored.end(), [](const auto& a, const auto& b) { return a.first > b.first; });
+  std::vector<double> out;
+  for (std::size_t i = 0; i < scored.size() && i < keep; ++i) out.push_back(scored[i].second);
+  return out;
+}
+
+/// One place fewer than the column shows when at least kZeroShare of its
+/// entries end in 0 (see identify.hpp); nullopt otherwise.
+std::optional<int> ReducedPlaces(const std::vector<Observation>& obs) {
+  const int places = obs.front().places;
+  if (places < 1) return std::nullopt;
+  std::size_t zeros = 0;
+  for (const auto& o : obs) zeros += o.places == places && std::fmod(std::fabs(o.units), 60.0) == 0;
+  if (static_cast<double>(zeros) < kZeroShare * static_cast<double>(obs.size())) return std::nullopt;
+  return places - 1;
+}
+
+/// Why a candidate's estimate is no historical value: a free parameter more
+/// than its range's width outside the model's historical range (ParamSpec
+/// low..high), as an obliquity of 0;6 with a latitude of 89;44 (a degenerate
+/// limit of the ascensional difference that mimics the declination). Empty
+/// when every estimate is plausible or the model gives no range.
+std::string Implausible(const Candidate& c) {
+  const auto& specs = c.model->params();
+  for (std::size_t j = 0; j < specs.size() && j < c.fit.params.size(); ++j) {
+    const auto& p = c.fit.params[j];
+    const double width = specs[j].high - specs[j].low;
+    if (p.fixed || !(width > 0)) continue;
+    if (p.value < specs[j].low - width || p.value > specs[j].high + width) {
+      std::ostringstream o;
+      o << p.name << " = " << p.value << ", far outside its historical range " << specs[j].low << " .. "
+        << specs[j].high;
+      return o.str();
+    }
+  }
+  return {};
+}
+
+/// Moves implausible candidates (see Implausible) after the others, with a
+/// note for each that would otherwise have come first.
+void SetAsideImplausible(std::vector<Candidate>& all, std::vector<std::string>& notes) {
+  std::vector<Candidate> plausible, aside;
+  for (auto& c : all) {
+    const std::string why = Implausible(c);
+    if (why.empty()) {
+      plausible.push_back(std::move(c));
+      continue;
+    }
+    if (plausible.empty()) {
+      std::ostringstream o;
+      o.precision(4);
+      o << c.model->name() << " (" << c.PracticeText() << ") scores " << c.score << " but with " << why
+        << "; ranked after the explanations with historical values.";
+      notes.push_back(o.str());
+    }
+    aside.push_back(std::move(c));
+  }
+  if (plausible.empty()) {  // nothing better: keep the order and say so
+    all = std::move(aside);
+    return;
+  }
+  for (auto& c : aside) plausible.push_back(std::move(c));
+  all = std::move(plausible);
 }
 
 }  // namespace
@@ -134,7 +220,10 @@ Identification Identify(const Transcription& table, int column, const IdentifyOp
   const std::size_t stride = std::max<std::size_t>(1, (obs.size() + 59) / 60);
   for (std::size_t i = 0; i < obs.size(); i += stride) sub.push_back(obs[i]);
   std::vector<Candidate> screen;
-  const double unit = std::pow(60.0, -obs.front().places);
+  // A column whose last place is (nearly) always 0 was computed to one place
+  // fewer: every fit then works at that number of places.
+  const std::optional<int> reduced = ReducedPlaces(obs);
+  const double unit = std::pow(60.0, -(reduced ? *reduced : obs.front().places));
   for (const model::Model* m : models) {
     if (IsMeanMotion(*m) != mean_motion || !Applicable(*m, table, obs)) continue;
     // Rounding and truncation shift an estimate by half a unit at most, so
@@ -144,6 +233,7 @@ Identification Identify(const Transcription& table, int column, const IdentifyOp
         if (disp && (!options.try_displacement || mean_motion)) continue;
         FitOptions fo;
         fo.practice.rounding = r;
+        fo.practice.places = reduced;
         fo.fit_displacement = disp;
         fo.max_iterations = 10;
         Candidate c = MakeCandidate(*m, Fit(*m, table, sub, fo), false);
@@ -158,10 +248,13 @@ Identification Identify(const Transcription& table, int column, const IdentifyOp
   std::stable_sort(screen.begin(), screen.end(), by_score);
   // Round 1: the best of the screen refitted on every entry from its estimate.
   std::vector<Candidate> all;
-  auto refit = [&](const Candidate& from, Rounding r, double grid) {
+  auto refit = [&](const Candidate& from, Rounding r, double grid, bool round_nodes = false,
+                   std::optional<int> places = std::nullopt, bool keep_places = true) {
     FitOptions fo;
     fo.practice.rounding = r;
+    fo.practice.places = keep_places ? from.fit.practice.places : places;
     fo.practice.grid = grid;
+    fo.practice.round_nodes = grid > 0 && round_nodes;
     fo.practice.displacement = from.fit.practice.displacement;
     fo.fit_displacement = from.fit.practice.displacement != 0;
     for (const auto& p : from.fit.params) {
@@ -181,6 +274,10 @@ Identification Identify(const Transcription& table, int column, const IdentifyOp
       ++out.candidates_tried;
     }
   }
+  if (reduced && !screen.empty()) {  // the best family at the places as written, for comparison
+    refit(screen[0], Rounding::kNearest, 0, false, std::nullopt, false);
+    ++out.candidates_tried;
+  }
   std::stable_sort(all.begin(), all.end(), by_score);
   // Round 2: the best families with interpolation grids, both roundings.
   if (options.try_grids && !mean_motion) {
@@ -192,11 +289,10 @@ Identification Identify(const Transcription& table, int column, const IdentifyOp
     }
     // A grid cannot improve on a column reproduced exactly without one.
     const bool perfect = !all.empty() && all[0].fit.exact == all[0].fit.n;
+    const std::vector<double> grids = CandidateGrids(table);
     for (const auto& seed : perfect ? std::vector<Candidate>{} : seeds) {
-      for (double g : CandidateGrids(table)) {
-        refit(seed, seed.fit.practice.rounding, g);
-        ++out.candidates_tried;
-      }
+      for (double g : BestGrids(*seed.model, table, sub, seed, grids, kGridRefits)) refit(seed, seed.fit.practice.rounding, g);
+      out.candidates_tried += static_cast<int>(grids.size());
     }
     std::stable_sort(all.begin(), all.end(), by_score);
     if (!perfect && all[0].fit.practice.grid > 0) {  // the best grid under the other rounding
@@ -206,8 +302,15 @@ Identification Identify(const Transcription& table, int column, const IdentifyOp
       ++out.candidates_tried;
       std::stable_sort(all.begin(), all.end(), by_score);
     }
+    if (!perfect && all[0].fit.practice.grid > 0) {  // the best grid with its nodes rounded first
+      const Candidate best = all[0];
+      refit(best, best.fit.practice.rounding, best.fit.practice.grid, true);
+      ++out.candidates_tried;
+      std::stable_sort(all.begin(), all.end(), by_score);
+    }
   }
   if (all.empty()) return out;
+  SetAsideImplausible(all, out.notes);
   for (std::size_t i = 1; i < all.size() && i < static_cast<std::size_t>(options.top); ++i) {
     if (all[0].score - all[i].score >= kNearTie) break;
     std::ostringstream o;

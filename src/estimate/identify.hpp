@@ -5,7 +5,9 @@
 /// entries, with and without a displacement constant; the best six are
 /// refitted on every entry under rounding and under truncation; the best
 /// three families are then tried with the interpolation grids that fit the
-/// argument range (unless a candidate already reproduces every entry). Candidates are ranked by a score (higher is better):
+/// argument range (unless a candidate already reproduces every entry): each
+/// grid fitted on the subsample, the best two per family refitted on every
+/// entry. Candidates are ranked by a score (higher is better):
 ///
 ///   score = sum over entries of log P(d) - (k / 2) ln n
 ///
@@ -17,6 +19,26 @@
 /// parameters: the model's, the displacement, and one for a grid. Entries
 /// reproduced exactly raise the score most; an extra parameter must buy
 /// about ln(n)/2 in fit to pay for itself (a BIC-style penalty).
+///
+/// Places: when at least 90% of a column's entries end in 0 in the last
+/// place, the author computed to one place fewer and the zero was written
+/// to fill the layout (common practice: a column of minutes and seconds
+/// whose seconds are all 0; a few slips in the last place do not hide it).
+/// Every fit then works at the reduced places (`places` in the practice);
+/// the best family is also refitted at the places as written, for
+/// comparison. Entries written with non-zero last places are not tried at
+/// fewer places: the author must then have computed them.
+///
+/// Rounded nodes: the best grid candidate is also refitted with its node
+/// values brought to the column's places before interpolating
+/// (Practice::round_nodes: the author tabulated the nodes, then filled in
+/// between them from the rounded values).
+///
+/// A candidate whose estimate lies more than its range's width outside a
+/// parameter's historical range (ParamSpec low..high; e.g. an obliquity of
+/// 0;6) is ranked after every candidate with historical values, with a note
+/// when it would have come first: a degenerate limit of a family can mimic
+/// another family.
 ///
 /// Candidates within 2 of the best (a likelihood ratio below e^2 after the
 /// penalty) are reported as near-ties with what tells them apart.

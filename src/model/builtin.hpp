@@ -4,26 +4,49 @@
 ///
 /// Each formula is written once as a template so that the tests can evaluate
 /// it in long double beside the double used everywhere else and bound the
-/// difference (see tests/model/precision_test.cpp).
+/// difference (see tests/model/precision_test.cpp), and so that it can be
+/// evaluated with dual numbers (dual.hpp) for exact derivatives. Formulas
+/// call the <cmath> functions unqualified (sin, not std::sin): the
+/// using-declarations below find the standard ones for double and long
+/// double, and argument-dependent lookup finds Dual's.
 
 #include <cmath>
+#include <limits>
 #include <numbers>
 #include <string>
 #include <vector>
 
+#include "model/dual.hpp"
 #include "model/model.hpp"
 
 namespace apograph::model::internal {
 
-/// Radians per degree at precision T.
+using std::acos;
+using std::asin;
+using std::atan;
+using std::atan2;
+using std::cos;
+using std::fabs;
+using std::floor;
+using std::fmod;
+using std::sin;
+using std::sqrt;
+
+/// Radians per degree at precision T (a plain number for dual numbers).
 template <typename T>
-constexpr T kRadian = std::numbers::pi_v<T> / T(180);
+constexpr ScalarOf<T> kRadian = std::numbers::pi_v<ScalarOf<T>> / ScalarOf<T>(180);
+
+/// The "undefined here" value of a formula.
+template <typename T>
+T NotANumber() {
+  return T(std::numeric_limits<ScalarOf<T>>::quiet_NaN());
+}
 
 /// x reduced exactly (fmod is exact) into (-180, 180], so that large
 /// arguments lose no accuracy before the conversion to radians.
 template <typename T>
 T Reduce180(T x) {
-  T r = std::fmod(x, T(360));
+  T r = fmod(x, T(360));
   if (r > T(180)) r -= T(360);
   if (r <= T(-180)) r += T(360);
   return r;
@@ -37,34 +60,34 @@ template <typename T>
 T SinDeg(T x) {
   T r = Reduce180(x);
   const T sign = r < T(0) ? T(-1) : T(1);
-  r = std::fabs(r);
+  r = fabs(r);
   if (r > T(90)) r = T(180) - r;
-  if (r <= T(45)) return sign * std::sin(r * kRadian<T>);
-  return sign * std::cos((T(90) - r) * kRadian<T>);
+  if (r <= T(45)) return sign * sin(r * kRadian<T>);
+  return sign * cos((T(90) - r) * kRadian<T>);
 }
 /// cos of x degrees, folded the same way.
 template <typename T>
 T CosDeg(T x) {
-  const T r = std::fabs(Reduce180(x));
-  if (r <= T(45)) return std::cos(r * kRadian<T>);
-  if (r <= T(135)) return std::sin((T(90) - r) * kRadian<T>);
-  return -std::cos((T(180) - r) * kRadian<T>);
+  const T r = fabs(Reduce180(x));
+  if (r <= T(45)) return cos(r * kRadian<T>);
+  if (r <= T(135)) return sin((T(90) - r) * kRadian<T>);
+  return -cos((T(180) - r) * kRadian<T>);
 }
 template <typename T>
 T TanDeg(T x) { return SinDeg(x) / CosDeg(x); }
 template <typename T>
-T AsinDeg(T x) { return std::asin(x) / kRadian<T>; }
+T AsinDeg(T x) { return asin(x) / kRadian<T>; }
 template <typename T>
-T AcosDeg(T x) { return std::acos(x) / kRadian<T>; }
+T AcosDeg(T x) { return acos(x) / kRadian<T>; }
 template <typename T>
-T AtanDeg(T x) { return std::atan(x) / kRadian<T>; }
+T AtanDeg(T x) { return atan(x) / kRadian<T>; }
 template <typename T>
-T Atan2Deg(T y, T x) { return std::atan2(y, x) / kRadian<T>; }
+T Atan2Deg(T y, T x) { return atan2(y, x) / kRadian<T>; }
 
 /// x reduced into [0, m).
 template <typename T>
 T ReduceModulo(T x, T m) {
-  T r = std::fmod(x, m);
+  T r = fmod(x, m);
   return r < T(0) ? r + m : r;
 }
 
@@ -73,19 +96,29 @@ T ReduceModulo(T x, T m) {
 template <typename T>
 using Formula = T (*)(const T* params, T arg, T arg2);
 
-/// A built-in model: metadata plus one formula at two precisions.
+/// A built-in model: metadata plus one formula at two precisions and, for
+/// formulas written for it, with dual numbers of one and two derivatives.
 class BuiltinModel final : public Model {
  public:
   BuiltinModel(std::string name, std::string description, std::string convention,
-               std::vector<ParamSpec> params, Formula<double> f, Formula<long double> fl)
+               std::vector<ParamSpec> params, Formula<double> f, Formula<long double> fl,
+               Formula<Dual<1>> f1 = nullptr, Formula<Dual<2>> f2 = nullptr)
       : name_(std::move(name)), description_(std::move(description)),
-        convention_(std::move(convention)), params_(std::move(params)), f_(f), fl_(fl) {}
+        convention_(std::move(convention)), params_(std::move(params)), f_(f), fl_(fl),
+        f1_(f1), f2_(f2) {}
 
   const std::string& name() const override { return name_; }
   const std::string& description() const override { return description_; }
   const std::string& convention() const override { return convention_; }
   const std::vector<ParamSpec>& params() const override { return params_; }
   double Evaluate(const std::vector<double>& p, const RowContext& row) const override;
+  /// Exact derivatives by dual numbers when the formula has them (forward
+  /// differences otherwise, as for every model).
+  double EvaluateWithGradient(const std::vector<double>& p, const RowContext& row,
+                              const std::vector<int>& wrt, double* gradient) const override;
+  /// Whether EvaluateWithGradient is exact (dual numbers) here.
+  bool HasExactGradient() const { return f1_ && f2_; }
+  bool ExactGradient() const override { return HasExactGradient(); }
   /// The same formula in long double (for the precision tests).
   long double EvaluateLong(const std::vector<long double>& p, long double arg,
                            long double arg2 = 0) const;
@@ -95,10 +128,15 @@ class BuiltinModel final : public Model {
   std::vector<ParamSpec> params_;
   Formula<double> f_;
   Formula<long double> fl_;
+  Formula<Dual<1>> f1_;
+  Formula<Dual<2>> f2_;
 };
 
-/// Both precisions of one formula template, for the constructor above.
-#define APOGRAPH_FORMULA(fn) &fn<double>, &fn<long double>
+/// Every instantiation of one formula template, for the constructor above.
+#define APOGRAPH_FORMULA(fn) &fn<double>, &fn<long double>, &fn<Dual<1>>, &fn<Dual<2>>
+/// Only double and long double: for a formula that cannot take dual numbers
+/// (its derivatives are then taken by forward differences).
+#define APOGRAPH_FORMULA_PLAIN(fn) &fn<double>, &fn<long double>
 
 // One list per family file; builtin_models.cpp concatenates them.
 const std::vector<const BuiltinModel*>& TrigModels();

@@ -12,6 +12,37 @@ double BuiltinModel::Evaluate(const std::vector<double>& p, const RowContext& ro
   return f_(p.data(), row.arg, row.arg2.value_or(0.0));
 }
 
+double BuiltinModel::EvaluateWithGradient(const std::vector<double>& p, const RowContext& row,
+                                          const std::vector<int>& wrt, double* gradient) const {
+  if (!f1_ || !f2_) return Model::EvaluateWithGradient(p, row, wrt, gradient);
+  if (p.size() < params_.size()) return Evaluate(p, row);  // throws the same message
+  constexpr std::size_t kMax = 4;  // small enough to be set up without a loop
+  if (params_.size() > kMax) return Model::EvaluateWithGradient(p, row, wrt, gradient);
+  const double arg = row.arg, arg2 = row.arg2.value_or(0.0);
+  double v = 0;
+  // Two derivatives per pass, the last one alone when their number is odd.
+  for (std::size_t j = 0; j < wrt.size() || j == 0; j += 2) {
+    if (j + 1 < wrt.size()) {
+      Dual<2> q[kMax];
+      for (std::size_t i = 0; i < params_.size(); ++i) q[i] = p[i];
+      q[wrt[j]].d[0] = 1;
+      q[wrt[j + 1]].d[1] = 1;
+      const Dual<2> r = f2_(q, Dual<2>(arg), Dual<2>(arg2));
+      v = r.v;
+      gradient[j] = r.d[0];
+      gradient[j + 1] = r.d[1];
+    } else {
+      Dual<1> q[kMax];
+      for (std::size_t i = 0; i < params_.size(); ++i) q[i] = p[i];
+      if (j < wrt.size()) q[wrt[j]].d[0] = 1;
+      const Dual<1> r = f1_(q, Dual<1>(arg), Dual<1>(arg2));
+      v = r.v;
+      if (j < wrt.size()) gradient[j] = r.d[0];
+    }
+  }
+  return v;
+}
+
 long double BuiltinModel::EvaluateLong(const std::vector<long double>& p, long double arg,
                                        long double arg2) const {
   return fl_(p.data(), arg, arg2);

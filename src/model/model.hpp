@@ -45,6 +45,18 @@ class Model {
   virtual const std::vector<ParamSpec>& params() const = 0;
   /// The exact value for one row; NaN where the model is undefined.
   virtual double Evaluate(const std::vector<double>& params, const RowContext& row) const = 0;
+  /// The exact value (as Evaluate) and its partial derivatives with respect
+  /// to the parameters params()[wrt[j]], written to gradient[j]. Estimation
+  /// needs them for every entry at every step. The default takes forward
+  /// differences (step 1e-7 max(|p|, 0.01)), so user formulas need nothing
+  /// more; built-in models give exact derivatives by dual numbers at about
+  /// the cost of one evaluation.
+  virtual double EvaluateWithGradient(const std::vector<double>& params, const RowContext& row,
+                                      const std::vector<int>& wrt, double* gradient) const;
+  /// Whether EvaluateWithGradient is exact rather than forward differences
+  /// (a caller comparing values modulo 360 must difference the wrapped
+  /// residuals itself when it is not).
+  virtual bool ExactGradient() const { return false; }
   /// Defaults of all parameters, in order.
   std::vector<double> Defaults() const;
   /// The argument convention in words: what the argument is, how arguments
@@ -105,6 +117,14 @@ std::optional<double> RowArgument(const Transcription& table, std::size_t row);
 /// (steps 1 and 2 above); NaN where the model is undefined.
 double PracticeValue(const Model& model, const std::vector<double>& params,
                      const RowContext& row, const Practice& practice, int places);
+
+/// PracticeValue and its partial derivatives with respect to
+/// params[wrt[j]] (see Model::EvaluateWithGradient). With rounded nodes the
+/// rounding counts as the identity in the derivatives (it is flat almost
+/// everywhere, which would tell a solver nothing about where to go).
+double PracticeValueWithGradient(const Model& model, const std::vector<double>& params,
+                                 const RowContext& row, const Practice& practice, int places,
+                                 const std::vector<int>& wrt, double* gradient);
 
 /// Built-in models, by name; nullptr when unknown.
 const Model* FindBuiltinModel(std::string_view name);

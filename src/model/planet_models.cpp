@@ -13,7 +13,7 @@ namespace {
 /// whose centre stands at distance d: atan2(r sin g, d + r cos g).
 template <typename T>
 T EpicycleAngle(T r, T d, T g) {
-  return std::fabs(Atan2Deg(r * SinDeg(g), d + r * CosDeg(g)));
+  return fabs(Atan2Deg(r * SinDeg(g), d + r * CosDeg(g)));
 }
 
 template <typename T>
@@ -35,11 +35,11 @@ T EquantCentre(const T* p, T k, T) {
   const T e = p[0];
   const T c = CosDeg(k), s = SinDeg(k);
   const T disc = T(3600) - e * e * s * s;
-  if (disc < T(0)) return std::numeric_limits<T>::quiet_NaN();
-  const T t = -e * c + std::sqrt(disc);
+  if (disc < T(0)) return NotANumber<T>();
+  const T t = -e * c + sqrt(disc);
   const T x = T(2) * e + t * c, y = t * s;
   // Angle from the true direction (x, y) to the mean direction (c, s).
-  return std::fabs(Atan2Deg(s * x - c * y, c * x + s * y));
+  return fabs(Atan2Deg(s * x - c * y, c * x + s * y));
 }
 
 const char kAnomalyConvention[] =

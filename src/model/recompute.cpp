@@ -1,5 +1,6 @@
 // Recomputation of a column under a computing practice (see Practice in
 // model.hpp for the exact order of operations).
+#include <algorithm>
 #include <cmath>
 #include <limits>
 
@@ -35,6 +36,20 @@ std::vector<double> Model::Defaults() const {
   std::vector<double> out;
   for (const auto& p : params()) out.push_back(p.default_value);
   return out;
+}
+
+double Model::EvaluateWithGradient(const std::vector<double>& params, const RowContext& row,
+                                   const std::vector<int>& wrt, double* gradient) const {
+  const double v = Evaluate(params, row);
+  std::vector<double> moved = params;
+  for (std::size_t j = 0; j < wrt.size(); ++j) {
+    const auto i = static_cast<std::size_t>(wrt[j]);
+    const double h = 1e-7 * std::max(std::fabs(params[i]), 1e-2);
+    moved[i] = params[i] + h;
+    gradient[j] = (Evaluate(moved, row) - v) / h;
+    moved[i] = params[i];
+  }
+  return v;
 }
 
 const std::string& Model::convention() const {
@@ -82,6 +97,47 @@ double PracticeValue(const Model& model, const std::vector<double>& params,
     v = model.Evaluate(params, row);
   }
   return v + practice.displacement;
+}
+
+double PracticeValueWithGradient(const Model& model, const std::vector<double>& params,
+                                 const RowContext& row, const Practice& practice, int places,
+                                 const std::vector<int>& wrt, double* gradient) {
+  const double g = practice.grid;
+  const double lo = g > 0 ? practice.grid_origin + std::floor((row.arg - practice.grid_origin) / g) * g
+                          : row.arg;
+  const bool between = g > 0 && std::fabs(row.arg - lo) > kNodeSlack && std::fabs(row.arg - lo - g) > kNodeSlack;
+  if (!between) {
+    RowContext at = row;
+    if (g > 0) at.arg = std::fabs(row.arg - lo) <= kNodeSlack ? lo : lo + g;
+    double v = model.EvaluateWithGradient(params, at, wrt, gradient);
+    if (g > 0 && practice.round_nodes && std::isfinite(v)) {
+      v = RoundUnits(v, places, practice.rounding) / std::pow(60.0, places);
+    }
+    return v + practice.displacement;
+  }
+  // The straight line between the nodes, and the same line between their
+  // derivatives.
+  constexpr std::size_t kStack = 8;
+  double stack[kStack];
+  std::vector<double> heap;
+  double* gb = stack;
+  if (wrt.size() > kStack) {
+    heap.resize(wrt.size());
+    gb = heap.data();
+  }
+  RowContext at = row;
+  at.arg = lo;
+  double va = model.EvaluateWithGradient(params, at, wrt, gradient);
+  at.arg = lo + g;
+  double vb = model.EvaluateWithGradient(params, at, wrt, gb);
+  if (practice.round_nodes) {
+    const double unit = std::pow(60.0, places);
+    if (std::isfinite(va)) va = RoundUnits(va, places, practice.rounding) / unit;
+    if (std::isfinite(vb)) vb = RoundUnits(vb, places, practice.rounding) / unit;
+  }
+  const double t = (row.arg - lo) / g;
+  for (std::size_t j = 0; j < wrt.size(); ++j) gradient[j] += (gb[j] - gradient[j]) * t;
+  return va + (vb - va) * t + practice.displacement;
 }
 
 ColumnRecomputation Recompute(const Model& model, const std::vector<double>& params,

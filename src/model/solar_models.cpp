@@ -13,7 +13,7 @@ namespace {
 /// apogee. Greatest where the true anomaly is 90: asin(e/60).
 template <typename T>
 T SolarEccentric(const T* p, T a, T) {
-  return std::fabs(Atan2Deg(p[0] * SinDeg(a), T(60) + p[0] * CosDeg(a)));
+  return fabs(Atan2Deg(p[0] * SinDeg(a), T(60) + p[0] * CosDeg(a)));
 }
 
 /// Concentric with epicycle, computed from the figure rather than the
@@ -28,7 +28,7 @@ T SolarEpicycle(const T* p, T a, T) {
   const T y = T(60) * SinDeg(a) + p[0] * SinDeg(a + g);
   // Angle from the true direction back to the mean direction, in (-180, 180].
   const T mean_x = CosDeg(a), mean_y = SinDeg(a);
-  return std::fabs(Atan2Deg(mean_y * x - mean_x * y, mean_x * x + mean_y * y));
+  return fabs(Atan2Deg(mean_y * x - mean_x * y, mean_x * x + mean_y * y));
 }
 
 const char kEquationConvention[] =

@@ -19,7 +19,7 @@ T SignedDeclination(T eps, T lambda) { return AsinDeg(SinDeg(eps) * SinDeg(lambd
 template <typename T>
 T SignedAscensionalDifference(T eps, T phi, T lambda) {
   const T x = TanDeg(phi) * TanDeg(SignedDeclination(eps, lambda));
-  if (std::fabs(x) > T(1)) return std::numeric_limits<T>::quiet_NaN();
+  if (fabs(x) > T(1)) return NotANumber<T>();
   return AsinDeg(x);
 }
 
@@ -27,18 +27,18 @@ T SignedAscensionalDifference(T eps, T phi, T lambda) {
 /// whole turns as lambda, so that alpha(360) = 360 and the column rises.
 template <typename T>
 T RightAscensionOf(T eps, T lambda) {
-  const T turns = std::floor(lambda / T(360));
+  const T turns = floor(lambda / T(360));
   const T a = ReduceModulo(Atan2Deg(CosDeg(eps) * SinDeg(lambda), CosDeg(lambda)), T(360));
   return turns * T(360) + a;
 }
 
 template <typename T>
-T Declination(const T* p, T lambda, T) { return std::fabs(SignedDeclination(p[0], lambda)); }
+T Declination(const T* p, T lambda, T) { return fabs(SignedDeclination(p[0], lambda)); }
 template <typename T>
 T RightAscension(const T* p, T lambda, T) { return RightAscensionOf(p[0], lambda); }
 template <typename T>
 T AscensionalDifference(const T* p, T lambda, T) {
-  return std::fabs(SignedAscensionalDifference(p[0], p[1], lambda));
+  return fabs(SignedAscensionalDifference(p[0], p[1], lambda));
 }
 template <typename T>
 T ObliqueAscension(const T* p, T lambda, T) {

@@ -11,7 +11,7 @@ namespace {
 /// crd(a) = 2R sin(a/2). The ancient Greek chord table: R = 60 (diameter 120), arcs 0;30..180.
 template <typename T>
 T Chord(const T* p, T a, T) {
-  return T(2) * p[0] * std::fabs(SinDeg(a / T(2)));
+  return T(2) * p[0] * fabs(SinDeg(a / T(2)));
 }
 /// Sin(a) = R sin a.
 template <typename T>
@@ -30,14 +30,14 @@ T VersedSine(const T* p, T a, T) {
 template <typename T>
 T Shadow(const T* p, T h, T) {
   const T s = SinDeg(h);
-  if (s == T(0)) return std::numeric_limits<T>::quiet_NaN();
+  if (s == T(0)) return NotANumber<T>();
   return p[0] * CosDeg(h) / s;
 }
 /// Reversed shadow (tangent) on a vertical wall: g sin h / cos h.
 template <typename T>
 T ReversedShadow(const T* p, T h, T) {
   const T c = CosDeg(h);
-  if (c == T(0)) return std::numeric_limits<T>::quiet_NaN();
+  if (c == T(0)) return NotANumber<T>();
   return p[0] * SinDeg(h) / c;
 }
 

@@ -5,6 +5,8 @@
 #include <cmath>
 #include <numbers>
 
+#include "estimate/fit_problem.hpp"
+#include "model/formula.hpp"
 #include "model/model.hpp"
 #include "synthetic.hpp"
 
@@ -162,6 +164,73 @@ TEST_CASE("published solar equation table: e between 2;4 and 2;6, only the entry
   }
   CHECK(outside == 1);
   CHECK(outside_arg == 20);
+}
+
+}  // namespace apograph::estimate
+
+namespace apograph::estimate {
+
+TEST_CASE("the summary's quick rounding gives exactly Sexagesimal::FromDouble's units") {
+  int compared = 0;
+  for (Rounding r : {Rounding::kNearest, Rounding::kTruncate}) {
+    for (int places = 0; places <= 5; ++places) {
+      // Ties (x.5 units exactly: dyadic values), negatives, and a spread of others.
+      std::vector<double> values = {0.03125, -0.03125, 2.5, -2.5, 0.5, 1.0 / 3, -7.0 / 3, 59.999999999, 0};
+      for (int k = 1; k < 400; ++k) values.push_back(std::sin(k * 0.7) * 90 + k * 1e-7);
+      for (double v : values) {
+        CAPTURE(v);
+        CAPTURE(places);
+        const auto q = internal::BroughtUnits(v, places, r);
+        REQUIRE(q.has_value());
+        CHECK(*q == static_cast<std::int64_t>(Sexagesimal::FromDouble(v, places, r).units()));
+        ++compared;
+      }
+    }
+  }
+  CHECK(compared > 4000);
+  CHECK_FALSE(internal::BroughtUnits(1e11, 5, Rounding::kNearest).has_value());  // beyond 2^52 units
+}
+
+}  // namespace apograph::estimate
+
+namespace apograph::estimate {
+
+TEST_CASE("a user formula compared modulo 360 is fitted by differences of the wrapped residuals") {
+  // A mean motion written as a formula: its value jumps by 360 at each wrap,
+  // which forward differences of the value would take for a slope.
+  const auto f = model::CompileFormula(
+      "param radix = 10 range 0 .. 360 \"radix\"\n"
+      "param rate = 1 range 0.5 .. 1.5 \"rate\"\n"
+      "param modulus = 360 range 0 .. 360 \"modulus\"\n"
+      "mod(radix + rate * arg, modulus)");
+  REQUIRE(!f->ExactGradient());
+  // The entry at 200 days stands 0;0,0,2 below a whole turn: a forward
+  // difference of the value there crosses the wrap.
+  const double rate = 0.98564736, radix = 720 - 1e-5 - rate * 200 - 360;
+  testing::SyntheticColumn c;
+  c.places = 3;
+  c.modulo_360 = true;
+  c.f = [&](double t) { return radix + rate * t; };
+  const Transcription t = testing::MakeTable("mm", 1, 1, 300, {c});
+  FitOptions o;
+  o.start = {{"radix", radix}, {"rate", rate}};
+  const FitResult r = Fit(*f, t, std::vector<int>{}, o);
+  CHECK(std::fabs(r.Value("rate") - rate) < 1e-7);
+  CHECK(std::fabs(r.Value("radix") - radix) < 1e-4);
+  CHECK(r.exact >= 290);
+  // The Jacobian's row at 200 days is the slope of the wrapped residual
+  // (-60^3 (1, 200)), not a jump of a whole turn over the step.
+  FitOptions mo = o;
+  mo.modulo_360 = true;
+  const auto obs = CollectObservations(t, {});
+  internal::FitProblem problem(*f, t, obs, mo);
+  const std::vector<double> x = problem.Start(mo);
+  std::vector<double> res(obs.size()), J(obs.size() * 2), v(obs.size());
+  problem.Linearise(x.data(), res.data(), J.data(), v.data());
+  const std::size_t row = 199;
+  REQUIRE(obs[row].arg == 200);
+  CHECK(J[row * 2] / -216000.0 == doctest::Approx(1).epsilon(1e-3));
+  CHECK(J[row * 2 + 1] / -216000.0 == doctest::Approx(200).epsilon(1e-3));
 }
 
 }  // namespace apograph::estimate

@@ -70,7 +70,61 @@ TEST_CASE("identify finds an interpolation grid") {
   REQUIRE(!id.ranked.empty());
   CHECK(id.ranked[0].model->name() == "sine");
   CHECK(id.ranked[0].fit.practice.grid == 6);
+  CHECK_FALSE(id.ranked[0].fit.practice.round_nodes);  // exact nodes, as made
   CHECK(id.ranked[0].fit.exact >= 88);
+}
+
+TEST_CASE("identify tells a grid with rounded nodes from one with exact nodes") {
+  auto c = FromModel("sine", {60.0}, 2);
+  c.grid = 6;
+  c.round_nodes = true;
+  const Transcription t = testing::MakeTable("sines", 1, 1, 90, {c});
+  const Identification id = Identify(t, 0);
+  REQUIRE(!id.ranked.empty());
+  CHECK(id.ranked[0].model->name() == "sine");
+  CHECK(id.ranked[0].fit.practice.grid == 6);
+  CHECK(id.ranked[0].fit.practice.round_nodes);
+  CHECK(id.ranked[0].fit.exact == 90);
+  CHECK(id.ranked[0].PracticeText().find("rounded nodes") != std::string::npos);
+  // The same grid with exact nodes ranks lower: it misses entries.
+  bool exact_nodes_lower = false;
+  for (std::size_t i = 1; i < id.ranked.size(); ++i) {
+    const auto& p = id.ranked[i].fit.practice;
+    if (id.ranked[i].model->name() == "sine" && p.grid == 6 && !p.round_nodes) {
+      exact_nodes_lower = id.ranked[i].fit.exact < 90;
+    }
+  }
+  CHECK(exact_nodes_lower);
+}
+
+TEST_CASE("identify works at one place fewer when the last place is written as 0") {
+  // Computed to minutes, written with a seconds place of 0 (two slips in the
+  // seconds do not hide it).
+  auto c = FromModel("solar-eccentric", {2.0 + 10.0 / 60}, 1);
+  c.written_places = 2;
+  c.errors = {{30, 7}, {101, 13}};
+  const Transcription t = testing::MakeTable("sun", 1, 1, 180, {c});
+  REQUIRE(t.columns[0].places == 2);
+  IdentifyOptions all;
+  all.top = 100;
+  const Identification id = Identify(t, 0, all);
+  REQUIRE(!id.ranked.empty());
+  CHECK(id.ranked[0].model->name() == "solar-eccentric");
+  REQUIRE(id.ranked[0].fit.practice.places.has_value());
+  CHECK(*id.ranked[0].fit.practice.places == 1);
+  CHECK(id.ranked[0].fit.exact >= 170);
+  CHECK(std::fabs(id.ranked[0].fit.Value("e") - (2.0 + 10.0 / 60)) < 0.01);
+  // The same family at the places as written is tried and ranks lower.
+  bool full_lower = false;
+  for (const auto& cand : id.ranked) full_lower = full_lower || (!cand.fit.practice.places && cand.score < id.ranked[0].score);
+  CHECK(full_lower);
+}
+
+TEST_CASE("a column with genuine last places is not tried at fewer places") {
+  auto c = FromModel("solar-eccentric", {2.0 + 10.0 / 60}, 2);
+  const Identification id = Identify(testing::MakeTable("sun", 1, 1, 180, {c}), 0);
+  REQUIRE(!id.ranked.empty());
+  for (const auto& cand : id.ranked) CHECK_FALSE(cand.fit.practice.places.has_value());
 }
 
 TEST_CASE("identify recognises a displaced table and estimates the constant") {
@@ -97,6 +151,32 @@ TEST_CASE("the score rewards exact entries and penalises extra parameters") {
   b.entries[3].diff_units = 1;
   CHECK(Score(a, 1) > Score(b, 1));
   CHECK(Score(a, 1) > Score(a, 2));
+}
+
+}  // namespace apograph::estimate
+
+namespace apograph::estimate {
+
+TEST_CASE("a degenerate limit of another family with unhistorical parameters is set aside, with a note") {
+  // The ascensional difference with an obliquity near 0 and a latitude near
+  // 90 degrees mimics the declination table and, with one more parameter,
+  // reproduces about as many entries.
+  const model::Model* m = model::FindBuiltinModel("declination");
+  testing::SyntheticColumn c;
+  c.places = 2;
+  c.f = [m](double a) {
+    model::RowContext ctx;
+    ctx.arg = a;
+    return m->Evaluate({23.85}, ctx);
+  };
+  c.errors = {{11, 37}};
+  const Identification id = Identify(testing::MakeTable("decl", 1, 1, 90, {c}), 0);
+  REQUIRE(!id.ranked.empty());
+  CHECK(id.ranked[0].model->name() == "declination");
+  bool noted = false;
+  for (const auto& n : id.notes) noted = noted || (n.find("ascensional-difference") != std::string::npos &&
+                                                   n.find("historical range") != std::string::npos);
+  CHECK(noted);
 }
 
 }  // namespace apograph::estimate

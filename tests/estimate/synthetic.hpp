@@ -2,6 +2,7 @@
 // Synthetic tables for the estimate tests: entries made from a known function
 // and practice, optionally with injected gross errors.
 
+#include <algorithm>
 #include <cmath>
 #include <functional>
 #include <map>
@@ -18,6 +19,8 @@ struct SyntheticColumn {
   std::function<double(double)> f;
   Rounding rounding = Rounding::kNearest;
   double grid = 0;          ///< interpolation grid (0: none)
+  bool round_nodes = false; ///< nodes brought to `places` before interpolating
+  int written_places = -1;  ///< places as written (zeros appended); -1: `places`
   double displacement = 0;  ///< constant added
   bool modulo_360 = false;
   std::map<int, int> errors;  ///< row -> units added (gross copying errors)
@@ -32,7 +35,9 @@ inline Transcription MakeTable(const std::string& id, double start, double step,
   t.argument.places = arg_places;
   t.argument.start = Sexagesimal::FromDouble(start, arg_places);
   t.argument.step = Sexagesimal::FromDouble(step, arg_places);
-  for (const auto& c : columns) t.columns.push_back({c.name, "", c.places, "", std::nullopt});
+  for (const auto& c : columns) {
+    t.columns.push_back({c.name, "", std::max(c.places, c.written_places), "", std::nullopt});
+  }
   for (int i = 0; i < count; ++i) {
     Row row;
     const Sexagesimal arg = *t.ExpectedArgument(static_cast<std::size_t>(i));
@@ -44,17 +49,23 @@ inline Transcription MakeTable(const std::string& id, double start, double step,
       double v = c.f(a);
       if (c.grid > 0) {
         const double lo = std::floor(a / c.grid + 1e-9) * c.grid;
-        if (std::fabs(a - lo) > 1e-9) v = c.f(lo) + (c.f(lo + c.grid) - c.f(lo)) * (a - lo) / c.grid;
+        auto node = [&](double x) {
+          const double y = c.f(x);
+          return c.round_nodes ? Sexagesimal::FromDouble(y, c.places, c.rounding).ToDouble() : y;
+        };
+        if (std::fabs(a - lo) > 1e-9) v = node(lo) + (node(lo + c.grid) - node(lo)) * (a - lo) / c.grid;
       }
       v += c.displacement;
       Sexagesimal s = Sexagesimal::FromDouble(v, c.places, c.rounding);
       if (c.modulo_360) s = s.Modulo(360);
+      const int written = std::max(c.places, c.written_places);
+      s = s.Extended(written);
       auto e = c.errors.find(i);
-      if (e != c.errors.end()) s = s + Sexagesimal::FromUnits(e->second, c.places);
+      if (e != c.errors.end()) s = s + Sexagesimal::FromUnits(e->second, written);
       Cell cell;
       cell.value = s;
       cell.raw = s.ToString();
-      cell.places = c.places;
+      cell.places = written;
       row.cells.push_back(cell);
     }
     t.rows.push_back(row);
