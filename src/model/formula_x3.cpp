@@ -123,11 +123,11 @@ auto const decl_end = [](auto& ctx) { Get(ctx).ast.params.push_back(Get(ctx).dec
 // ---- tokens
 using x3::lexeme;
 using x3::lit;
-auto const digits = +x3::digit;
+auto const digits = +x3::char_('0', '9');
 auto const number_body =
     digits >> -((lit('.') >> digits) | (lit(';') >> digits >> *(lit(',') >> digits)));
-auto const word = (x3::alpha | lit('_')) >> *(x3::alnum | lit('_'));
-auto kw(char const* w) { return lexeme[lit(w) >> !(x3::alnum | lit('_'))]; }
+auto const word = (x3::char_("a-zA-Z") | lit('_')) >> *(x3::char_("a-zA-Z0-9") | lit('_'));
+auto kw(char const* w) { return lexeme[lit(w) >> !(x3::char_("a-zA-Z0-9") | lit('_'))]; }
 
 x3::rule<class number_r, x3::unused_type> const number = "a number";
 x3::rule<class signed_number_r, x3::unused_type> const signed_number = "a number";
@@ -156,7 +156,7 @@ auto const number_def = x3::raw[lexeme[number_body]][push_number];
 auto const signed_number_def = lexeme[-lit('-') >> number_body];
 auto const param_name_def = x3::raw[lexeme[word]][decl_name];
 auto const column_name_def =
-    x3::raw[lexeme[(x3::alpha | lit('_')) >> *(x3::alnum | lit('_') | lit('-') | lit('.'))] |
+    x3::raw[lexeme[(x3::char_("a-zA-Z") | lit('_')) >> *(x3::char_("a-zA-Z0-9") | lit('_') | lit('-') | lit('.'))] |
             lexeme[lit('"') >> +(x3::char_ - '"') >> lit('"')]][col_name];
 auto const row_shift_def = x3::int_[col_row];
 auto const default_value_def = x3::raw[signed_number][decl_value];
@@ -188,7 +188,7 @@ BOOST_SPIRIT_DEFINE(number, signed_number, param_name, column_name, row_shift, d
                     equals, dots, expr, term, unary, power, primary, colref, call, decl, end,
                     formula)
 
-auto const skipper = x3::space | lexeme[lit('#') >> *(x3::char_ - x3::eol)];
+auto const skipper = x3::char_(" \t\r\n") | lexeme[lit('#') >> *(x3::char_ - x3::eol)];
 
 /// The parser reports a failure before the blanks and comments that precede
 /// the offending symbol; the editor wants the caret on the symbol.

@@ -74,7 +74,7 @@ const auto on_columns = [](auto& ctx) { x3::get<scan_tag>(ctx).form = Form::kCol
 
 // grammar/transcription.ebnf: number, place, sign, *-tail, *-mark.
 const auto kPlace = x3::rule<class place_id>{"a place (digits or '?')"} =
-    x3::raw[+x3::digit][on_digits] | x3::lit('?')[on_unknown];
+    x3::raw[+x3::char_('0', '9')][on_digits] | x3::lit('?')[on_unknown];
 const auto kSign = x3::lit('-')[on_negative] | x3::lit("\xE2\x88\x92")[on_negative] | x3::lit('+');
 const auto kMinuteMark = x3::rule<class minute_id>{"a minute mark (')"} =
     x3::lit('\'') | x3::lit("\xE2\x80\xB2");
@@ -82,12 +82,12 @@ const auto kSecondMark = x3::rule<class second_id>{"a second mark (\")"} =
     x3::lit("''") | x3::lit('"') | x3::lit("\xE2\x80\xB3");
 const auto kDegreeTail = x3::lit("\xC2\xB0")[on_degree] >>
                          -(kPlace > kMinuteMark > -(kPlace > kSecondMark));
-const auto kColumnsTail = +(x3::raw[+x3::blank][on_columns] > kPlace);
+const auto kColumnsTail = +(x3::raw[+x3::char_(" \t")][on_columns] > kPlace);
 const auto kTradeTail = *(x3::lit(',') > kPlace) >>
                         -(x3::lit(';')[on_fraction] > kPlace > *(x3::lit(',') > kPlace));
 const auto kNumber = (-kSign > kPlace) >> (kDegreeTail | kColumnsTail | kTradeTail);
 
-const auto kMarkHead = x3::lit('{') >> x3::omit[*x3::blank] >> x3::raw[*x3::alpha];
+const auto kMarkHead = x3::lit('{') >> x3::omit[*x3::char_(" \t")] >> x3::raw[*x3::char_("a-zA-Z")];
 const auto kMarkClose = x3::rule<class close_id>{"'}' closing the mark"} = x3::lit('}');
 
 bool IsBlank(char c) { return c == ' ' || c == '\t'; }
@@ -294,7 +294,7 @@ void ParseMark(std::string_view line, std::size_t& pos, int places, Cell& cell) 
          "expected a mark (damaged, doubt, margin, interlinear, was READING or note \"TEXT\"), "
          "found " + FoundToken(line, word_offset));
   }
-  x3g::Run(line, pos, *x3::blank > kMarkClose);
+  x3g::Run(line, pos, *x3::char_(" \t") > kMarkClose);
 }
 
 }  // namespace

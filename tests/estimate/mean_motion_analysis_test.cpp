@@ -2,6 +2,8 @@
 
 #include <doctest/doctest.h>
 
+#include "estimate/fit.hpp"
+#include "model/model.hpp"
 #include "synthetic.hpp"
 
 namespace apograph::estimate {
@@ -111,6 +113,21 @@ TEST_CASE("successive addition is found through a few copying slips, which are n
   CHECK(a.unit_value->ToString() == "0;59,8,20");
   CHECK(a.successive_exceptions == std::vector<std::string>{"19", "24"});
   CHECK(a.verdict.rfind("Built from the rounded unit value 0;59,8,20: 38 of 40 entries", 0) == 0);
+}
+
+TEST_CASE("fitting a mean motion to seconds of seconds finds the rate's narrow basin") {
+  // 40 days at 3 places: a rate off by 1e-6 deg/day is already 9 units off at
+  // the end, far narrower than any grid over the rate's historical range.
+  std::vector<std::string> vals;
+  const Sexagesimal daily = Sexagesimal::ParseOrThrow("0;59,8,20");
+  for (int d = 1; d <= 40; ++d) vals.push_back((daily * d).Modulo(360).ToString());
+  vals[18] = "18;34,38,20";  // one copying slip
+  std::vector<std::pair<int, const char*>> view;
+  for (int d = 1; d <= 40; ++d) view.push_back({d, vals[static_cast<std::size_t>(d - 1)].c_str()});
+  const Transcription t = Table(view, 3);
+  const FitResult r = Fit(*model::FindBuiltinModel("mean-motion"), t, std::vector<int>{0}, FitOptions{});
+  CHECK(r.exact == 39);
+  CHECK(std::fabs(r.Value("rate") - daily.ToDouble()) < 1e-7);
 }
 
 TEST_CASE("a mean motion with a radix at argument 0 wraps past 360 and keeps its radix") {
