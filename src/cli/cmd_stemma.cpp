@@ -9,6 +9,7 @@
 #include <ostream>
 
 #include "cli/collate_input.hpp"
+#include "cli/report_output.hpp"
 #include "lineage/lineage.hpp"
 #include "store/edition_store.hpp"
 #include "support/input_error.hpp"
@@ -78,21 +79,6 @@ void PrintText(const lineage::LineageReport& r, std::ostream& out) {
   if (!r.copies.empty() || !r.contamination.empty()) out << "\n";
 }
 
-void RenderSvg(const std::string& dot, const std::string& svg) {
-  if (std::system("command -v dot > /dev/null 2>&1") != 0) {
-    throw InputError::ForOption("--svg", "expected Graphviz 'dot' on PATH to render SVG, found none");
-  }
-  const auto tmp = std::filesystem::temp_directory_path() / "apograph-stemma.dot";
-  std::ofstream(tmp) << dot;
-  std::string quoted = "'";
-  for (char ch : svg) quoted += ch == '\'' ? std::string("'\\''") : std::string(1, ch);
-  quoted += "'";
-  const std::string cmd = "dot -Tsvg '" + tmp.string() + "' -o " + quoted;
-  const int rc = std::system(cmd.c_str());
-  std::filesystem::remove(tmp);
-  if (rc != 0) throw std::runtime_error("dot failed to render " + svg);
-}
-
 }  // namespace
 
 int RunStemma(const std::vector<std::string>& args, Io& io) {
@@ -131,7 +117,9 @@ int RunStemma(const std::vector<std::string>& args, Io& io) {
   } else {
     PrintText(report, io.out);
   }
-  if (!svg.empty()) RenderSvg(lineage::ToDot(report.results.front().stemma, title), svg);
+  if (!svg.empty() && !RenderSvg(lineage::ToDot(report.results.front().stemma, title), svg)) {
+    throw InputError::ForOption("--svg", "expected Graphviz 'dot' on PATH to render SVG, found none");
+  }
   return report.copies.empty() && report.contamination.empty() ? kOk : kFindings;
 }
 
