@@ -4,6 +4,7 @@
 #include <ostream>
 
 #include "cli/estimate_options.hpp"
+#include "store/estimate_store.hpp"
 #include "estimate/fit.hpp"
 #include "estimate/mean_motion_analysis.hpp"
 #include "estimate/report.hpp"
@@ -93,7 +94,7 @@ int RunFit(const std::vector<std::string>& args, Io& io) {
   const estimate::FitOptions options = Options(a, m);
   const Transcription t = store::Load(db, a.table, a.witness);
   const std::vector<int> columns = estimate::ResolveColumns(t, a.columns);
-  const auto catalog = LoadCatalog(db);
+  const auto catalog = store::LoadCatalog(db);
   const estimate::FitResult fit = estimate::Fit(m, t, columns, options);
   const bool mm = m.ParamIndex("modulus") >= 0 && columns.size() == 1;
   if (a.format == "json") {

@@ -149,7 +149,7 @@ int RunIdentify(const std::vector<std::string>& args, Io& io) {
   estimate::IdentifyOptions options;
   options.top = top;
   store::Database database(db);
-  const auto catalog = LoadCatalog(database);
+  const auto catalog = store::LoadCatalog(database);
   const auto formulas = SavedFormulaModels(database);
   for (const auto& f : formulas) options.extra_models.push_back(f.get());
   std::vector<Job> jobs;

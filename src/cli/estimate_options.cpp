@@ -18,12 +18,6 @@ double ParseNumber(const std::string& option, const std::string& text) {
   throw InputError::ForOption(option, ExpectedFound("a number such as 2;4,48 or 2.08", "'" + text + "'"));
 }
 
-std::vector<estimate::CatalogEntry> LoadCatalog(store::Database& db) {
-  auto all = estimate::ReadCatalogFile(estimate::DefaultCatalogPath());
-  auto more = store::CatalogEntries(db);
-  all.insert(all.end(), more.begin(), more.end());
-  return all;
-}
 
 const model::Model& FindModelOrThrow(const std::string& name, store::Database& db,
                                      std::unique_ptr<model::Model>& holder) {

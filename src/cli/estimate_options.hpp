@@ -16,9 +16,6 @@ namespace apograph::cli {
 /// A number in trade notation (2;4,48) or decimal (2.08); InputError naming `option`.
 double ParseNumber(const std::string& option, const std::string& text);
 
-/// The catalog: shipped file plus the database's rows.
-std::vector<estimate::CatalogEntry> LoadCatalog(store::Database& db);
-
 /// A built-in model, or a formula saved in the database (compiled into
 /// `holder`), by name; InputError listing the known ones.
 const model::Model& FindModelOrThrow(const std::string& name, store::Database& db,

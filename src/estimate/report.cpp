@@ -44,6 +44,9 @@ nlohmann::json ParamsJson(const FitResult& fit) {
   return out;
 }
 
+
+}  // namespace
+
 std::string AttestedText(const FitResult& fit, const std::vector<CatalogEntry>& catalog) {
   std::string s;
   for (const auto& p : fit.params) {
@@ -57,8 +60,6 @@ std::string AttestedText(const FitResult& fit, const std::vector<CatalogEntry>& 
   }
   return s;
 }
-
-}  // namespace
 
 std::string TradeValue(double value, double se) {
   // Places down to about a quarter of the standard error (2 at least).

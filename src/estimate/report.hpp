@@ -35,6 +35,10 @@ namespace apograph::estimate {
 /// A parameter value in trade notation with enough places for its error.
 std::string TradeValue(double value, double stderr_);
 
+/// The attested values nearest to each free parameter of a fit, one line
+/// each ("    attested e = 2;4,45 (...) lies 3.1 standard errors away").
+std::string AttestedText(const FitResult& fit, const std::vector<CatalogEntry>& catalog);
+
 nlohmann::json FitJson(const FitResult& fit, const Transcription& table, const std::vector<CatalogEntry>& catalog);
 nlohmann::json MeanMotionJson(const MeanMotionAnalysis& a);
 nlohmann::json IdentificationJson(const Identification& id, const Transcription& table,

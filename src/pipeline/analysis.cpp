@@ -3,9 +3,11 @@
 #include <algorithm>
 
 #include "deviation/numeral_script.hpp"
+#include "estimate/report.hpp"
 #include "lineage/parsimony.hpp"
 #include "store/apparatus_store.hpp"
 #include "store/edition_store.hpp"
+#include "store/estimate_store.hpp"
 #include "support/input_error.hpp"
 
 namespace apograph::pipeline {
@@ -94,7 +96,16 @@ TableAnalysis AnalyseTable(store::Database& db, const std::string& table_id, con
   for (const auto& d : store::LoadApparatusOverrides(db, table_id)) {
     if (!d.reading.empty()) o.overrides.push_back({d.row_argument, d.column, d.reading, d.note});
   }
-  return AnalyseTranscriptions(Chosen(std::move(all), options.witnesses, table_id), o, LoadModelLibrary(db));
+  TableAnalysis a = AnalyseTranscriptions(Chosen(std::move(all), options.witnesses, table_id), o, LoadModelLibrary(db));
+  const auto catalog = store::LoadCatalog(db);
+  for (auto& r : a.references) {
+    if (r.estimates.empty()) continue;
+    estimate::FitResult fit;
+    fit.model = r.model->name();
+    fit.params = r.estimates;
+    r.attested = estimate::AttestedText(fit, catalog);
+  }
+  return a;
 }
 
 }  // namespace apograph::pipeline

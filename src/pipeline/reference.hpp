@@ -26,6 +26,7 @@
 #include <vector>
 
 #include "edition/transcription.hpp"
+#include "estimate/fit.hpp"
 #include "model/model.hpp"
 
 namespace apograph::store {
@@ -91,6 +92,11 @@ struct ColumnReference {
   int exact = 0, entries = 0;  ///< entries of that witness reproduced exactly / compared
   int rounded_places = 0;      ///< places the parameters were brought to (0: not rounded)
   std::vector<std::string> ties;  ///< identify's notes on near-ties
+  /// The estimate before rounding, with standard errors (identified only).
+  std::vector<estimate::FittedParam> estimates;
+  /// The attested values nearest to the estimate, one line each (filled by
+  /// AnalyseTable from the catalog; empty otherwise).
+  std::string attested;
   /// "solar-eccentric e = 2;16, rounded to 2 places, exact every 6 and
   /// linear between"
   std::string description;

@@ -161,6 +161,7 @@ ColumnReference Identified(const std::vector<const Transcription*>& from, int co
   r.score = chosen->score;
   r.ties = chosen->ties;
   r.entries = chosen->fit.n;
+  r.estimates = chosen->fit.params;
   auto [params, places] = RoundParams(*r.model, chosen->fit.Values(), *chosen->witness, {column}, r.practice);
   r.params = std::move(params);
   r.rounded_places = places;

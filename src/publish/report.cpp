@@ -4,6 +4,7 @@
 #include <sstream>
 
 #include "estimate/mean_motion_analysis.hpp"
+#include "estimate/report.hpp"
 #include "lineage/stemma.hpp"
 #include "support/input_error.hpp"
 #include "support/tabular.hpp"
@@ -43,6 +44,23 @@ void Witnesses(const pipeline::TableAnalysis& a, std::ostream& out) {
   out << "\n";
 }
 
+/// The fitted values with their standard errors, and the attested values
+/// nearest to them (which tradition the table belongs to).
+void Estimates(const pipeline::ColumnReference& r, std::ostream& out) {
+  std::vector<std::string> parts;
+  for (const auto& p : r.estimates) {
+    if (p.fixed) continue;
+    char buf[64];
+    std::snprintf(buf, sizeof buf, " (%.6g \u00b1 %.2g)", p.value, p.stderr_);
+    parts.push_back(p.name + " = " + estimate::TradeValue(p.value, p.stderr_) + buf);
+  }
+  if (!parts.empty()) out << "  estimate from witness " << r.witness << ": " << Join(parts, ", ") << "\n";
+  std::istringstream lines(r.attested);
+  for (std::string line; std::getline(lines, line);) {
+    out << "  - " << line.substr(line.find_first_not_of(' ')) << "\n";
+  }
+}
+
 /// For a mean motion, how its entries were made (multiplication, successive
 /// addition, entries built from other rounded entries), read off the
 /// witness the reference was identified from (or the first).
@@ -69,7 +87,13 @@ void References(const pipeline::TableAnalysis& a, std::ostream& out) {
   if (a.references.empty()) out << "No model explains the table yet (give one with --model).\n";
   for (const auto& r : a.references) {
     out << "- **" << r.column_name << "**: " << r.description << "\n  " << r.how << "\n";
-    for (const auto& tie : r.ties) out << "  - " << tie << "\n";
+    constexpr std::size_t kTiesShown = 2;
+    for (std::size_t i = 0; i < r.ties.size() && i < kTiesShown; ++i) out << "  - " << r.ties[i] << "\n";
+    if (r.ties.size() > kTiesShown) {
+      out << "  - and " << r.ties.size() - kTiesShown << " more near-ties (apograph identify --table " << a.table_id
+          << " --witness " << r.witness << ")\n";
+    }
+    Estimates(r, out);
     MeanMotionVerdict(a, r, out);
   }
   out << "\n";

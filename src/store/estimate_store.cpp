@@ -80,4 +80,11 @@ std::int64_t CountIdentifyRuns(Database& db) {
   return s.Int(0);
 }
 
+std::vector<estimate::CatalogEntry> LoadCatalog(Database& db) {
+  auto all = estimate::ReadCatalogFile(estimate::DefaultCatalogPath());
+  auto more = CatalogEntries(db);
+  all.insert(all.end(), more.begin(), more.end());
+  return all;
+}
+
 }  // namespace apograph::store

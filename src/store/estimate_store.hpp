@@ -18,6 +18,9 @@ std::int64_t AddCatalogEntry(Database& db, const estimate::CatalogEntry& entry);
 /// Every attested value added to the database (origin "database #ID").
 std::vector<estimate::CatalogEntry> CatalogEntries(Database& db);
 
+/// The whole catalog: the shipped file's rows, then the database's.
+std::vector<estimate::CatalogEntry> LoadCatalog(Database& db);
+
 /// What identify found for one column of one witness's table.
 struct IdentifyRecord {
   std::string table_id;
