@@ -32,6 +32,10 @@ TEST_CASE("the demo runs the whole pipeline and finds what the generator did") {
   CHECK(Has(r.out, "shadow g = 12, truncated to 2 places"));
   CHECK(Has(r.out, " = 2;16, rounded to 2 places, exact every 6 and linear between"));
   CHECK(Has(r.out, "Built from the rounded unit value 0;59,8,20"));
+  // Estimates with their errors beside the nearest attested value (the
+  // catalog's 23;32,30 is the closest to the invented 23;32,40).
+  CHECK(Has(r.out, "estimate from witness E: obliquity = 23;32,40"));
+  CHECK(Has(r.out, "- attested obliquity = 23;32,30 (Latin tables of the 13th-14th centuries"));
   // A slip and the author's own departure, told apart.
   CHECK(Has(r.out, "7 declination: 2;47,52 A] read 2;47,25 - seconds: the digits of 25 transposed to 52"));
   CHECK(Has(r.out, "41 declination: 15;11,33 A] keep (the author's)"));
