@@ -105,6 +105,17 @@ Database::Database(const std::string& path) : path_(path) {
     sqlite3_close(db_);
     throw StoreError("cannot open database " + path + ": " + msg);
   }
+  try {
+    Configure();
+  } catch (...) {
+    // The destructor does not run for a half-built object: close here, or
+    // a refused database (newer schema, not a database) leaks its handle.
+    sqlite3_close_v2(db_);
+    throw;
+  }
+}
+
+void Database::Configure() {
   sqlite3_busy_timeout(db_, 5000);
   Execute("PRAGMA foreign_keys = ON");
   // Up to 32 MiB of page cache (memory only, safe): a large import then
@@ -119,7 +130,7 @@ Database::Database(const std::string& path) : path_(path) {
   Migrate();
 }
 
-Database::~Database() { sqlite3_close(db_); }
+Database::~Database() { sqlite3_close_v2(db_); }
 
 Statement Database::Prepare(std::string_view sql) { return Statement(db_, sql); }
 

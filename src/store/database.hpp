@@ -84,6 +84,7 @@ class Database {
   const std::string& path() const { return path_; }
 
  private:
+  void Configure();
   void Migrate();
   sqlite3* db_ = nullptr;
   std::string path_;
