@@ -92,8 +92,7 @@ int RunApparatus(const std::vector<std::string>& args, Io& io) {
   if (ParseOptions(FindCommand("apparatus"), args, options, vm, io)) return kOk;
   FinishCollateRequest(request, vm);
   CheckChoice("--format", format, {"text", "tei", "latex", "csv"});
-  if (!std::filesystem::exists(db_path)) throw InputError::ForOption("--db", ExpectedFound("an edition database", "'" + db_path + "'"));
-  store::Database db(db_path);
+  store::Database db = OpenEdition(db_path);
   const auto collation = CollateFromDb(db, request);
   std::vector<store::ApparatusDecision> pending;
   for (const auto& o : overrides) pending.push_back(ParseDecision("--override", o, true, request.table, note));

@@ -169,10 +169,7 @@ int RunCheck(const std::vector<std::string>& args, Io& io) {
   pipeline::ReferenceRequest request = ToReferenceRequest(o.reference, vm);
   const double tolerance = ParseNumber("--tolerance", o.tolerance);
   if (tolerance < 0) throw InputError::ForOption("--tolerance", ExpectedFound("0 or more", "'" + o.tolerance + "'"));
-  if (!std::filesystem::exists(o.db)) {
-    throw InputError::ForFile(o.db, "no such edition database (create it with apograph init and import)");
-  }
-  store::Database db(o.db);
+  store::Database db = OpenEdition(o.db);
   const std::optional<int> revision = vm.count("revision") ? std::optional<int>(o.revision) : std::nullopt;
   const Transcription t = store::Load(db, o.table, o.witness, revision);
   if (t.columns.empty()) throw InputError::ForOption("--table", ExpectedFound("a table with value columns", "none"));

@@ -148,10 +148,7 @@ int RunCollate(const std::vector<std::string>& args, Io& io) {
   if (ParseOptions(FindCommand("collate"), args, options, vm, io)) return kOk;
   FinishCollateRequest(request, vm);
   CheckChoice("--format", format, {"text", "csv", "json"});
-  if (!std::filesystem::exists(db_path)) {
-    throw InputError::ForOption("--db", ExpectedFound("an edition database", "'" + db_path + "'"));
-  }
-  store::Database db(db_path);
+  store::Database db = OpenEdition(db_path);
   const auto c = CollateFromDb(db, request);
   if (format == "json") io.out << ToJson(c).dump(2) << "\n";
   else if (format == "csv") PrintCsv(c, io.out);

@@ -95,8 +95,7 @@ int RunEmendation(const std::vector<std::string>& args, Io& io) {
   CheckChoice("action", action, {"list", "accept", "reject"});
   CheckChoice("--format", format, {"text", "csv", "json"});
   if (!status.empty()) CheckChoice("--status", status, {"proposed", "accepted", "rejected"});
-  if (!std::filesystem::exists(db_path)) throw InputError::ForOption("--db", ExpectedFound("an edition database", "no file '" + db_path + "'"));
-  store::Database db(db_path);
+  store::Database db = OpenEdition(db_path);
   if (action == "list") {
     store::EmendationFilter filter;
     if (!table.empty()) filter.table_id = table;

@@ -233,9 +233,8 @@ int RunErrors(const std::vector<std::string>& args, Io& io) {
   pipeline::ReferenceRequest request = ToReferenceRequest(o.reference, vm);
   if (request.Empty()) throw InputError::ForOption("--model", "expected --model NAME, --formula TEXT or --auto, found none of them");
   if (!(o.tolerance >= 0)) throw InputError::ForOption("--tolerance", ExpectedFound("a number of units >= 0", std::to_string(o.tolerance)));
-  if (!std::filesystem::exists(o.db)) throw InputError::ForOption("--db", ExpectedFound("an edition database", "no file '" + o.db + "'"));
 
-  store::Database db(o.db);
+  store::Database db = OpenEdition(o.db);
   const Transcription t = store::Load(db, o.table, o.witness, o.revision > 0 ? std::optional<int>(o.revision) : std::nullopt);
   if (!o.column.empty()) request.columns = {o.column};
   // --auto identifies from every witness of the table (this revision of this one).

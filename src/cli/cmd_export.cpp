@@ -118,10 +118,7 @@ int RunExport(const std::vector<std::string>& args, Io& io) {
   if (vm.count("revision") && revision < 1) {
     throw InputError::ForOption("--revision", ExpectedFound("a revision number from 1", std::to_string(revision)));
   }
-  if (!std::filesystem::exists(db_path)) {
-    throw InputError::ForFile(db_path, "expected an edition database, found no such file (see apograph init)");
-  }
-  store::Database db(db_path);
+  store::Database db = OpenEdition(db_path);
   const std::optional<int> wanted = vm.count("revision") ? std::optional<int>(revision) : std::nullopt;
   const Transcription t = store::Load(db, table, witness, wanted);
   std::string text;

@@ -88,7 +88,7 @@ int RunFit(const std::vector<std::string>& args, Io& io) {
   if (ParseOptions(cmd, args, opts, vm, io)) return kOk;
   CheckChoice("--format", a.format, {"text", "json"});
   CheckChoice("--solver", a.solver, {"fast", "ceres"});
-  store::Database db(a.db);
+  store::Database db = OpenEdition(a.db);
   std::unique_ptr<model::Model> holder;
   const model::Model& m = FindModelOrThrow(a.model, db, holder);
   const estimate::FitOptions options = Options(a, m);

@@ -148,7 +148,7 @@ int RunIdentify(const std::vector<std::string>& args, Io& io) {
   if (!all && format == "csv") throw InputError::ForOption("--format", ExpectedFound("text or json for one table", format));
   estimate::IdentifyOptions options;
   options.top = top;
-  store::Database database(db);
+  store::Database database = OpenEdition(db);
   const auto catalog = store::LoadCatalog(database);
   const auto formulas = SavedFormulaModels(database);
   for (const auto& f : formulas) options.extra_models.push_back(f.get());

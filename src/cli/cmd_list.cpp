@@ -114,10 +114,7 @@ int RunList(const std::vector<std::string>& args, Io& io) {
   if (ParseOptions(FindCommand("list"), args, options, vm, io, &positional)) return kOk;
   CheckChoice("list", what, kinds);
   CheckChoice("--format", format, {"text", "csv", "json"});
-  if (!std::filesystem::exists(db_path)) {
-    throw InputError::ForFile(db_path, "expected an edition database, found no such file (see apograph init)");
-  }
-  store::Database db(db_path);
+  store::Database db = OpenEdition(db_path);
   const Opt table = Given(vm, "table");
   Listing l = what == "works"       ? Works(db)
               : what == "tables"    ? Tables(db, Given(vm, "work"))

@@ -44,10 +44,7 @@ int RunReport(const std::vector<std::string>& args, Io& io) {
     throw InputError::ForOption("apograph report", "expected one of --table or --work, found " +
                                                        std::string(table.empty() ? "neither" : "both"));
   }
-  if (!std::filesystem::exists(db_path)) {
-    throw InputError::ForOption("--db", ExpectedFound("an edition database", "no file '" + db_path + "'"));
-  }
-  store::Database db(db_path);
+  store::Database db = OpenEdition(db_path);
   ReportRequest request;
   request.output_dir = output;
   request.report.max_findings = findings;

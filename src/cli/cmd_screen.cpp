@@ -86,9 +86,8 @@ int RunScreen(const std::vector<std::string>& args, Io& io) {
     throw InputError::ForOption("--window", ExpectedFound("a number of rows from 2 to 20", std::to_string(so.half_window)));
   }
   if (!(so.threshold > 0)) throw InputError::ForOption("--threshold", ExpectedFound("a positive number", std::to_string(so.threshold)));
-  if (!std::filesystem::exists(db_path)) throw InputError::ForOption("--db", ExpectedFound("an edition database", "no file '" + db_path + "'"));
 
-  store::Database db(db_path);
+  store::Database db = OpenEdition(db_path);
   const Transcription t = store::Load(db, table, witness, revision > 0 ? std::optional<int>(revision) : std::nullopt);
   const auto columns = estimate::ResolveColumns(t, column.empty() ? std::vector<std::string>{} : std::vector<std::string>{column});
   const deviation::NumeralScript script = deviation::FindNumeralScript(t.witness.script, scripts);

@@ -104,8 +104,7 @@ int RunStemma(const std::vector<std::string>& args, Io& io) {
   if (lo.bootstrap < 0) throw InputError::ForOption("--bootstrap", ExpectedFound("a count of 0 or more", std::to_string(lo.bootstrap)));
   if (method == "nj") lo.methods = {lineage::Method::kNeighbourJoining};
   if (method == "both") lo.methods = {lineage::Method::kParsimony, lineage::Method::kNeighbourJoining};
-  if (!std::filesystem::exists(db_path)) throw InputError::ForOption("--db", ExpectedFound("an edition database", "'" + db_path + "'"));
-  store::Database db(db_path);
+  store::Database db = OpenEdition(db_path);
   const auto report = lineage::AnalyseLineage(Characters(db, table, work, request), lo);
   const std::string title = table.empty() ? "work " + work : "table " + table;
   if (format == "json") {

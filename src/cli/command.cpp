@@ -1,5 +1,6 @@
 #include "cli/command.hpp"
 
+#include <filesystem>
 #include <iostream>
 
 #include "store/database.hpp"
@@ -73,6 +74,14 @@ void CheckChoice(const std::string& option, const std::string& value,
   std::string list;
   for (const auto& a : allowed) list += (list.empty() ? "" : ", ") + a;
   throw InputError::ForOption(option, ExpectedFound("one of " + list, "'" + value + "'"));
+}
+
+store::Database OpenEdition(const std::string& path) {
+  if (!std::filesystem::is_regular_file(path)) {
+    throw InputError::ForOption("--db", ExpectedFound("an edition database", "no file '" + path + "'") +
+                                            " (create one with apograph init or apograph import)");
+  }
+  return store::Database(path);
 }
 
 Format ParseFormat(const std::string& value) {

@@ -10,6 +10,8 @@
 
 #include <boost/program_options.hpp>
 
+#include "store/database.hpp"
+
 namespace apograph::cli {
 
 /// Exit codes (listed in the README).
@@ -60,6 +62,10 @@ void AddDbOption(po::options_description& options, std::string& db);
 /// Adds --format with the given allowed values (first is the default).
 void AddFormatOption(po::options_description& options, std::string& format,
                      const std::vector<std::string>& allowed);
+/// Opens an existing edition database (never creates one: a mistyped --db
+/// must not leave an empty file behind); InputError naming --db otherwise.
+store::Database OpenEdition(const std::string& path);
+
 /// Checks a --format value against the allowed ones (InputError otherwise).
 void CheckChoice(const std::string& option, const std::string& value,
                  const std::vector<std::string>& allowed);

@@ -85,6 +85,11 @@ TEST_CASE("report needs one of --table and --work, and an existing database") {
   CHECK(r.err == "apograph report: error: expected one of --table or --work, found neither\n");
   r = RunBinary("report --table t --db none.sqlite", dir.path());
   CHECK(r.code == 2);
-  CHECK(r.err == "--db: error: expected an edition database, found no file 'none.sqlite'\n");
+  CHECK(r.err == "--db: error: expected an edition database, found no file 'none.sqlite' (create one with "
+                 "apograph init or apograph import)\n");
   CHECK_FALSE(std::filesystem::exists(dir / "none.sqlite"));
+  // The same for a command that used to create an empty file on a typo.
+  r = RunBinary("identify --table t --witness A --db typo.sqlite", dir.path());
+  CHECK(r.code == 2);
+  CHECK_FALSE(std::filesystem::exists(dir / "typo.sqlite"));
 }

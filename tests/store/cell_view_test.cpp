@@ -21,6 +21,8 @@ using apograph::testing::TempDb;
 
 namespace {
 
+using apograph::testing::ProjectFiles;
+
 /// One cell as text, from Load() ...
 std::string Describe(const Cell& c) {
   return c.raw + "|" + (c.value ? c.value->ToString() : "<null>") + "|" + std::to_string(c.places) +
@@ -53,19 +55,6 @@ std::vector<std::string> FromView(Database& db, const Transcription& t) {
     out.push_back(line);
   }
   return out;
-}
-
-std::vector<std::string> ProjectFiles() {
-  std::vector<std::string> files;
-  const fs::path root = APOGRAPH_SOURCE_DIR;
-  for (const char* dir : {"corpora", "grammar/examples"}) {
-    if (!fs::exists(root / dir)) continue;
-    for (const auto& e : fs::recursive_directory_iterator(root / dir)) {
-      if (e.is_regular_file() && e.path().extension() == ".apo") files.push_back(e.path().string());
-    }
-  }
-  std::sort(files.begin(), files.end());
-  return files;
 }
 
 }  // namespace

@@ -19,18 +19,7 @@ using apograph::testing::TempDb;
 
 namespace {
 
-std::vector<std::string> ProjectFiles() {
-  std::vector<std::string> files;
-  const fs::path root = APOGRAPH_SOURCE_DIR;
-  for (const char* dir : {"corpora", "grammar/examples"}) {
-    if (!fs::exists(root / dir)) continue;
-    for (const auto& e : fs::recursive_directory_iterator(root / dir)) {
-      if (e.is_regular_file() && e.path().extension() == ".apo") files.push_back(e.path().string());
-    }
-  }
-  std::sort(files.begin(), files.end());
-  return files;
-}
+using apograph::testing::ProjectFiles;
 
 /// Everything the edition holds about current transcriptions except
 /// provenance (file names, lines, import times): one string to compare.

@@ -2,16 +2,35 @@
 // Helpers for the store tests: a temporary database file and transcriptions
 // built in code.
 
+#include <algorithm>
 #include <cstdio>
 #include <filesystem>
 #include <fstream>
 #include <iterator>
 #include <string>
+#include <vector>
 #include <unistd.h>
 
 #include "edition/transcription.hpp"
 
 namespace apograph::testing {
+
+/// Every transcription file the project ships (corpora/, grammar/examples/),
+/// sorted: the round-trip tests run over all of them.
+inline std::vector<std::string> ProjectFiles() {
+  namespace fs = std::filesystem;
+  std::vector<std::string> files;
+  const fs::path root = APOGRAPH_SOURCE_DIR;
+  for (const char* dir : {"corpora", "grammar/examples"}) {
+    if (!fs::exists(root / dir)) continue;
+    for (const auto& e : fs::recursive_directory_iterator(root / dir)) {
+      if (e.is_regular_file() && e.path().extension() == ".apo") files.push_back(e.path().string());
+    }
+  }
+  std::sort(files.begin(), files.end());
+  return files;
+}
+
 
 /// A fresh database path in the temp folder, removed (with its journal files)
 /// at the end of the test.
