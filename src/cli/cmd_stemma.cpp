@@ -3,9 +3,7 @@
 #include "cli/command.hpp"
 
 #include <cstdio>
-#include <cstdlib>
 #include <filesystem>
-#include <fstream>
 #include <ostream>
 
 #include "cli/collate_input.hpp"

@@ -21,12 +21,14 @@
 ///     refs[0].description  // "solar-eccentric e = 2;16, rounded to 2 places, ..."
 
 #include <memory>
+#include <optional>
 #include <string>
 #include <utility>
 #include <vector>
 
 #include "edition/transcription.hpp"
 #include "estimate/fit.hpp"
+#include "estimate/mean_motion_analysis.hpp"
 #include "model/model.hpp"
 
 namespace apograph::store {
@@ -94,6 +96,9 @@ struct ColumnReference {
   std::vector<std::string> ties;  ///< identify's notes on near-ties
   /// The estimate before rounding, with standard errors (identified only).
   std::vector<estimate::FittedParam> estimates;
+  /// For a mean-motion column: how the identified witness's entries were
+  /// made (multiplication, successive addition, other rounded entries).
+  std::optional<estimate::MeanMotionAnalysis> mean_motion;
   /// The attested values nearest to the estimate, one line each (filled by
   /// AnalyseTable from the catalog; empty otherwise).
   std::string attested;

@@ -75,6 +75,7 @@ struct WitnessBest {
   estimate::FitResult fit;
   double score = 0;
   std::vector<std::string> ties;
+  std::optional<estimate::MeanMotionAnalysis> mean_motion;  ///< identify's, for a mean-motion column
 };
 
 std::optional<WitnessBest> BestOf(const Transcription& t, int column, const std::shared_ptr<const model::Model>& requested,
@@ -84,7 +85,7 @@ std::optional<WitnessBest> BestOf(const Transcription& t, int column, const std:
     fo.practice = request.practice;
     const auto obs = estimate::CollectObservations(t, {column});
     if (obs.size() < 3) return std::nullopt;
-    WitnessBest b{&t, requested, estimate::Fit(*requested, t, obs, fo), 0, {}};
+    WitnessBest b{&t, requested, estimate::Fit(*requested, t, obs, fo), 0, {}, std::nullopt};
     b.score = estimate::Score(b.fit, b.fit.free_parameters);
     return b;
   }
@@ -110,7 +111,7 @@ std::optional<WitnessBest> BestOf(const Transcription& t, int column, const std:
       if (f.get() == best.model) m = f;
     }
   }
-  return WitnessBest{&t, m, best.fit, best.score, id.notes};
+  return WitnessBest{&t, m, best.fit, best.score, id.notes, id.mean_motion};
 }
 
 /// A mean motion's radix is fitted modulo the modulus: 360 is written 0.
@@ -162,6 +163,7 @@ ColumnReference Identified(const std::vector<const Transcription*>& from, int co
   r.ties = chosen->ties;
   r.entries = chosen->fit.n;
   r.estimates = chosen->fit.params;
+  r.mean_motion = chosen->mean_motion;
   auto [params, places] = RoundParams(*r.model, chosen->fit.Values(), *chosen->witness, {column}, r.practice);
   r.params = std::move(params);
   r.rounded_places = places;

@@ -3,10 +3,8 @@
 #include <cstdio>
 #include <sstream>
 
-#include "estimate/mean_motion_analysis.hpp"
 #include "estimate/report.hpp"
 #include "lineage/stemma.hpp"
-#include "support/input_error.hpp"
 #include "support/tabular.hpp"
 
 namespace apograph::publish {
@@ -61,25 +59,14 @@ void Estimates(const pipeline::ColumnReference& r, std::ostream& out) {
   }
 }
 
-/// For a mean motion, how its entries were made (multiplication, successive
-/// addition, entries built from other rounded entries), read off the
-/// witness the reference was identified from (or the first).
-void MeanMotionVerdict(const pipeline::TableAnalysis& a, const pipeline::ColumnReference& r, std::ostream& out) {
-  if (!r.model || r.model->name().rfind("mean-motion", 0) != 0 || a.transcriptions.empty()) return;
-  const Transcription* t = &a.transcriptions.front();
-  for (const auto& w : a.transcriptions) {
-    if (w.witness.siglum == r.witness) t = &w;
-  }
-  const int column = t->ColumnIndex(r.column_name);
-  if (column < 0) return;
-  try {
-    const auto mm = estimate::AnalyseMeanMotion(*t, column);
-    // The simplest account is enough here; `apograph identify` shows every entry.
-    const std::string verdict = mm.verdict.substr(0, mm.verdict.find(" Entry by entry:"));
-    out << "  How the entries were made (witness " << t->witness.siglum << "): " << verdict << "\n";
-  } catch (const InputError&) {
-    // Too few readable entries for the analysis: nothing to add.
-  }
+/// For a mean motion, how its entries were made, as identification read
+/// them off the witness the reference comes from.
+void MeanMotionVerdict(const pipeline::ColumnReference& r, std::ostream& out) {
+  if (!r.mean_motion) return;
+  // The simplest account is enough here; `apograph identify` shows every entry.
+  const std::string& v = r.mean_motion->verdict;
+  out << "  How the entries were made (witness " << r.witness << "): " << v.substr(0, v.find(" Entry by entry:"))
+      << "\n";
 }
 
 void References(const pipeline::TableAnalysis& a, std::ostream& out) {
@@ -94,7 +81,7 @@ void References(const pipeline::TableAnalysis& a, std::ostream& out) {
           << " --witness " << r.witness << ")\n";
     }
     Estimates(r, out);
-    MeanMotionVerdict(a, r, out);
+    MeanMotionVerdict(r, out);
   }
   out << "\n";
 }

@@ -1,7 +1,4 @@
 // The real binary on a database: errors, screen and emendation end to end.
-#include <array>
-#include <cstdio>
-#include <sys/wait.h>
 
 #include <doctest/doctest.h>
 #include <nlohmann/json.hpp>

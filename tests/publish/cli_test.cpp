@@ -1,7 +1,6 @@
 // The real binary on a database: collate, stemma and apparatus end to end.
 #include <doctest/doctest.h>
 
-#include <cstdio>
 #include <nlohmann/json.hpp>
 #include <string>
 
