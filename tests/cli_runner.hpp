@@ -53,8 +53,8 @@ inline CliResult RunBinary(const std::string& args, const std::filesystem::path&
   const std::string cmd = "cd '" + dir.string() + "' && '" + APOGRAPH_BINARY + "' " + args +
                           " > .apograph-out.txt 2> .apograph-err.txt";
   const int status = std::system(cmd.c_str());
-  CliResult r{WIFEXITED(status) ? WEXITSTATUS(status) : -1, ReadWholeFile(dir / ".apograph-out.txt"),
-              ReadWholeFile(dir / ".apograph-err.txt")};
+  CliResult r{WIFEXITED(status) ? WEXITSTATUS(status) : -1,
+              ReadWholeFile(dir / ".apograph-out.txt"), ReadWholeFile(dir / ".apograph-err.txt")};
   std::filesystem::remove(dir / ".apograph-out.txt");
   std::filesystem::remove(dir / ".apograph-err.txt");
   return r;

@@ -17,9 +17,11 @@ namespace apograph::cli {
 
 extern const char kApparatusUsage[] =
     "usage: apograph apparatus --table ID [--format tei|latex|csv|text] [--output FILE]\n"
-    "                          [--override ROW:COLUMN=READING]... [--withdraw ROW:COLUMN]... [--note TEXT]\n"
+    "                          [--override ROW:COLUMN=READING]... [--withdraw ROW:COLUMN]... "
+    "[--note TEXT]\n"
     "                          [--witnesses A,B,...] [--db FILE]\n"
-    "                          [(--model NAME | --formula TEXT) [--param N=V]... [practice options] | --auto]\n\n"
+    "                          [(--model NAME | --formula TEXT) [--param N=V]... [practice "
+    "options] | --auto]\n\n"
     "Writes the edited table: for every cell the adopted reading (the reading of most\n"
     "independent branches of the parsimony stemma that is not an error; an editor's\n"
     "override wins) and the variant readings with their sigla.\n"
@@ -29,26 +31,34 @@ extern const char kApparatusUsage[] =
     "history (table apparatus_decision, view apparatus_override).\n"
     "Which readings are errors: see apograph collate --help (--auto or a model judges\n"
     "them by the explained deviations).\n\n"
-    "example: apograph apparatus --table decl --override '46:declination=16;41,57' --note \"all witnesses err\"\n"
+    "example: apograph apparatus --table decl --override '46:declination=16;41,57' --note \"all "
+    "witnesses err\"\n"
     "         apograph apparatus --table sun-eq --auto --format tei --output sun-eq.xml";
 
 namespace {
 
 // ROW:COLUMN[=READING]: the row is everything before the last ':' of the left side.
-store::ApparatusDecision ParseDecision(const std::string& option, const std::string& text, bool with_reading,
-                                       const std::string& table, const std::string& note) {
+store::ApparatusDecision ParseDecision(const std::string& option, const std::string& text,
+                                       bool with_reading, const std::string& table,
+                                       const std::string& note) {
   const auto eq = text.find('=');
   const std::string cell = with_reading ? text.substr(0, eq) : text;
   const auto colon = cell.rfind(':');
   const bool ok = colon != std::string::npos && colon > 0 && colon + 1 < cell.size() &&
                   (!with_reading || (eq != std::string::npos && eq + 1 < text.size()));
   if (!ok) {
-    throw InputError::ForOption(option, ExpectedFound(with_reading ? "ROW:COLUMN=READING" : "ROW:COLUMN", "'" + text + "'"));
+    throw InputError::ForOption(
+        option,
+        ExpectedFound(with_reading ? "ROW:COLUMN=READING" : "ROW:COLUMN", "'" + text + "'"));
   }
   const std::string row = cell.substr(0, colon);
   auto v = Sexagesimal::Parse(row);
-  if (!v) throw InputError::ForOption(option, ExpectedFound("a row argument in trade notation", "'" + row + "'"));
-  return {table, v->ToString(), cell.substr(colon + 1), with_reading ? text.substr(eq + 1) : "", note, ""};
+  if (!v)
+    throw InputError::ForOption(option,
+                                ExpectedFound("a row argument in trade notation", "'" + row + "'"));
+  return {
+      table, v->ToString(), cell.substr(colon + 1), with_reading ? text.substr(eq + 1) : "", note,
+      ""};
 }
 
 std::vector<std::vector<std::string>> Branches(const collate::Collation& c) {
@@ -67,7 +77,9 @@ std::vector<publish::Override> Overrides(const std::vector<store::ApparatusDecis
 std::vector<store::ApparatusDecision> Merged(std::vector<store::ApparatusDecision> stored,
                                              const std::vector<store::ApparatusDecision>& pending) {
   for (const auto& p : pending) {
-    std::erase_if(stored, [&](const auto& s) { return s.row_argument == p.row_argument && s.column == p.column; });
+    std::erase_if(stored, [&](const auto& s) {
+      return s.row_argument == p.row_argument && s.column == p.column;
+    });
     stored.push_back(p);
   }
   return stored;
@@ -82,8 +94,10 @@ int RunApparatus(const std::vector<std::string>& args, Io& io) {
   std::vector<std::string> overrides, withdrawals;
   options.add_options()("table", po::value(&request.table)->required(), "table id")(
       "output", po::value(&output), "write to this file instead of standard output")(
-      "override", po::value(&overrides)->composing(), "ROW:COLUMN=READING: the editor's reading (repeatable)")(
-      "withdraw", po::value(&withdrawals)->composing(), "ROW:COLUMN: withdraw an override (repeatable)")(
+      "override", po::value(&overrides)->composing(),
+      "ROW:COLUMN=READING: the editor's reading (repeatable)")(
+      "withdraw", po::value(&withdrawals)->composing(),
+      "ROW:COLUMN: withdraw an override (repeatable)")(
       "note", po::value(&note), "the editor's reason for the overrides of this call");
   AddCollateOptions(options, request);
   AddFormatOption(options, format, {"text", "tei", "latex", "csv"});
@@ -95,11 +109,14 @@ int RunApparatus(const std::vector<std::string>& args, Io& io) {
   store::Database db = OpenEdition(db_path);
   const auto collation = CollateFromDb(db, request);
   std::vector<store::ApparatusDecision> pending;
-  for (const auto& o : overrides) pending.push_back(ParseDecision("--override", o, true, request.table, note));
-  for (const auto& w : withdrawals) pending.push_back(ParseDecision("--withdraw", w, false, request.table, note));
+  for (const auto& o : overrides)
+    pending.push_back(ParseDecision("--override", o, true, request.table, note));
+  for (const auto& w : withdrawals)
+    pending.push_back(ParseDecision("--withdraw", w, false, request.table, note));
   const auto decisions = Merged(store::LoadApparatusOverrides(db, request.table), pending);
   // Built before anything is written: a bad row or column stops here.
-  const auto apparatus = publish::BuildApparatus(collation, Branches(collation), Overrides(decisions));
+  const auto apparatus =
+      publish::BuildApparatus(collation, Branches(collation), Overrides(decisions));
   if (!pending.empty()) store::SaveApparatusDecisions(db, pending);
   std::string text = format == "tei"     ? publish::ToTei(apparatus)
                      : format == "latex" ? publish::ToLatex(apparatus)
@@ -109,7 +126,8 @@ int RunApparatus(const std::vector<std::string>& args, Io& io) {
     io.out << text;
   } else {
     std::ofstream out(output, std::ios::binary);
-    if (!(out << text)) throw InputError::ForOption("--output", ExpectedFound("a writable file", "'" + output + "'"));
+    if (!(out << text))
+      throw InputError::ForOption("--output", ExpectedFound("a writable file", "'" + output + "'"));
     io.err << "wrote " << output << "\n";
   }
   return kOk;

@@ -15,7 +15,8 @@
 namespace apograph::cli {
 
 extern const char kCatalogUsage[] =
-    "usage: apograph catalog list [--kind KIND] [--model MODEL] [--format text|csv|json] [--db FILE]\n"
+    "usage: apograph catalog list [--kind KIND] [--model MODEL] [--format text|csv|json] [--db "
+    "FILE]\n"
     "       apograph catalog add --kind KIND --applies-to MODEL:PARAM... --value VALUE\n"
     "                            --source SOURCE [--tradition TEXT] [--from-memory] [--db FILE]\n\n"
     "Attested parameter values come from corpora/catalog/parameters.tsv (shipped; rows\n"
@@ -29,7 +30,8 @@ extern const char kCatalogUsage[] =
 namespace {
 
 std::vector<estimate::CatalogEntry> AllEntries(const std::string& db_path) {
-  std::vector<estimate::CatalogEntry> all = estimate::ReadCatalogFile(estimate::DefaultCatalogPath());
+  std::vector<estimate::CatalogEntry> all =
+      estimate::ReadCatalogFile(estimate::DefaultCatalogPath());
   if (std::filesystem::exists(db_path)) {
     store::Database db(db_path);
     auto more = store::CatalogEntries(db);
@@ -38,8 +40,8 @@ std::vector<estimate::CatalogEntry> AllEntries(const std::string& db_path) {
   return all;
 }
 
-int List(const std::vector<estimate::CatalogEntry>& all, const std::string& kind, const std::string& model,
-         Format format, Io& io) {
+int List(const std::vector<estimate::CatalogEntry>& all, const std::string& kind,
+         const std::string& model, Format format, Io& io) {
   Tabular tab;
   tab.headers = {"kind", "value", "applies_to", "tradition", "source", "from_memory", "origin"};
   nlohmann::json j = nlohmann::json::array();
@@ -48,14 +50,23 @@ int List(const std::vector<estimate::CatalogEntry>& all, const std::string& kind
     bool model_ok = model.empty();
     for (const auto& [m, p] : e.applies_to) model_ok = model_ok || m == model;
     if (!model_ok) continue;
-    tab.Add({e.kind, e.value.ToString(), e.AppliesToText(), e.tradition, e.source, e.from_memory ? "yes" : "no", e.origin});
-    j.push_back({{"kind", e.kind}, {"value", e.value.ToString()}, {"value_real", e.value.ToDouble()},
-                 {"applies_to", e.AppliesToText()}, {"tradition", e.tradition}, {"source", e.source},
-                 {"from_memory", e.from_memory}, {"origin", e.origin}});
+    tab.Add({e.kind, e.value.ToString(), e.AppliesToText(), e.tradition, e.source,
+             e.from_memory ? "yes" : "no", e.origin});
+    j.push_back({{"kind", e.kind},
+                 {"value", e.value.ToString()},
+                 {"value_real", e.value.ToDouble()},
+                 {"applies_to", e.AppliesToText()},
+                 {"tradition", e.tradition},
+                 {"source", e.source},
+                 {"from_memory", e.from_memory},
+                 {"origin", e.origin}});
   }
-  if (format == Format::kJson) io.out << j.dump(2) << "\n";
-  else if (format == Format::kCsv) io.out << tab.RenderCsv();
-  else io.out << tab.RenderText();
+  if (format == Format::kJson)
+    io.out << j.dump(2) << "\n";
+  else if (format == Format::kCsv)
+    io.out << tab.RenderCsv();
+  else
+    io.out << tab.RenderText();
   return kOk;
 }
 
@@ -65,14 +76,15 @@ int RunCatalog(const std::vector<std::string>& args, Io& io) {
   const Command& cmd = FindCommand("catalog");
   std::string action, kind, model, applies, value, tradition, source, db, format;
   po::options_description opts("options");
-  opts.add_options()("action", po::value(&action), "list or add")
-      ("kind", po::value(&kind), "kind of parameter (obliquity, solar-eccentricity, mean-motion, ...)")
-      ("model", po::value(&model), "list: only values that apply to this model")
-      ("applies-to", po::value(&applies), "add: model:parameter pairs separated by blanks")
-      ("value", po::value(&value), "add: the value in trade notation")
-      ("tradition", po::value(&tradition)->default_value(""), "add: tradition or work")
-      ("source", po::value(&source), "add: where the value was read")
-      ("from-memory", "add: the value was recalled, not read");
+  opts.add_options()("action", po::value(&action), "list or add")(
+      "kind", po::value(&kind),
+      "kind of parameter (obliquity, solar-eccentricity, mean-motion, ...)")(
+      "model", po::value(&model), "list: only values that apply to this model")(
+      "applies-to", po::value(&applies), "add: model:parameter pairs separated by blanks")(
+      "value", po::value(&value), "add: the value in trade notation")(
+      "tradition", po::value(&tradition)->default_value(""), "add: tradition or work")(
+      "source", po::value(&source), "add: where the value was read")(
+      "from-memory", "add: the value was recalled, not read");
   AddDbOption(opts, db);
   AddFormatOption(opts, format, {"text", "csv", "json"});
   po::positional_options_description pos;
@@ -81,12 +93,15 @@ int RunCatalog(const std::vector<std::string>& args, Io& io) {
   if (ParseOptions(cmd, args, opts, vm, io, &pos)) return kOk;
   CheckChoice("--format", format, {"text", "csv", "json"});
   if (action == "list") return List(AllEntries(db), kind, model, ParseFormat(format), io);
-  if (action != "add") throw InputError::ForOption("apograph catalog", ExpectedFound("list or add", action.empty() ? "nothing" : action));
-  const auto entry = estimate::MakeCatalogEntry(kind, applies, value, tradition, source, vm.count("from-memory") > 0);
+  if (action != "add")
+    throw InputError::ForOption("apograph catalog",
+                                ExpectedFound("list or add", action.empty() ? "nothing" : action));
+  const auto entry = estimate::MakeCatalogEntry(kind, applies, value, tradition, source,
+                                                vm.count("from-memory") > 0);
   store::Database database(db);
   const auto id = store::AddCatalogEntry(database, entry);
-  io.out << "added attested value #" << id << ": " << entry.kind << " " << entry.value.ToString() << " ("
-         << entry.AppliesToText() << ")\n";
+  io.out << "added attested value #" << id << ": " << entry.kind << " " << entry.value.ToString()
+         << " (" << entry.AppliesToText() << ")\n";
   return kOk;
 }
 

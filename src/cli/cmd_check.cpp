@@ -85,8 +85,10 @@ Tabular EntryTable(const model::CheckReport& r, bool flagged_only) {
   for (const auto& e : r.entries) {
     if (flagged_only && !e.flag) continue;
     std::string flag = e.flag ? "FLAG" : (e.skipped.empty() ? "" : "(" + e.skipped + ")");
-    t.Add({std::to_string(e.row + 1), e.arg, e.tabulated ? e.tabulated->ToString() : e.tabulated_raw,
-           e.computed ? e.computed->ToString() : "", FormatExact(e.exact, r.places), FormatDiff(e.diff_units), flag});
+    t.Add({std::to_string(e.row + 1), e.arg,
+           e.tabulated ? e.tabulated->ToString() : e.tabulated_raw,
+           e.computed ? e.computed->ToString() : "", FormatExact(e.exact, r.places),
+           FormatDiff(e.diff_units), flag});
   }
   return t;
 }
@@ -95,9 +97,11 @@ std::string SummaryLine(const model::CheckReport& r) {
   const auto& s = r.summary;
   std::ostringstream out;
   out << s.entries << " entries: " << s.exact << " exact, " << s.within_one << " within one unit, "
-      << s.flagged << " flagged (|diff| > " << r.tolerance << "), " << s.blank << " blank, " << s.illegible
-      << " illegible or partial, " << s.undefined << " without a model value";
-  if (s.worst_row) out << "; worst " << FormatDiff(r.entries[*s.worst_row].diff_units) << " at argument " << r.entries[*s.worst_row].arg;
+      << s.flagged << " flagged (|diff| > " << r.tolerance << "), " << s.blank << " blank, "
+      << s.illegible << " illegible or partial, " << s.undefined << " without a model value";
+  if (s.worst_row)
+    out << "; worst " << FormatDiff(r.entries[*s.worst_row].diff_units) << " at argument "
+        << r.entries[*s.worst_row].arg;
   return out.str();
 }
 
@@ -110,7 +114,9 @@ void PrintText(const model::CheckReport& r, const CheckOptions& o, Io& io) {
   }
   const auto& p = r.practice;
   io.out << "\npractice: " << model::ToString(p.rounding) << " to " << r.places << " places";
-  if (p.grid > 0) io.out << ", exact every " << p.grid << " (from " << p.grid_origin << ")" << (p.round_nodes ? ", nodes rounded" : "") << ", linear between";
+  if (p.grid > 0)
+    io.out << ", exact every " << p.grid << " (from " << p.grid_origin << ")"
+           << (p.round_nodes ? ", nodes rounded" : "") << ", linear between";
   if (p.displacement != 0) io.out << ", displaced by " << p.displacement;
   io.out << "\n\n" << EntryTable(r, o.flagged_only).RenderText() << "\n" << SummaryLine(r) << "\n";
 }
@@ -122,37 +128,61 @@ nlohmann::json ToJson(const model::CheckReport& r, std::optional<int> revision,
   for (const auto& [name, value] : r.params) params[name] = value;
   json entries = json::array();
   for (const auto& e : r.entries) {
-    entries.push_back({{"row", e.row + 1}, {"arg", e.arg}, {"column", e.column},
-                       {"tabulated", e.tabulated ? e.tabulated->ToString() : e.tabulated_raw},
-                       {"computed", e.computed ? json(e.computed->ToString()) : json(nullptr)},
-                       {"exact", std::isfinite(e.exact) ? json(e.exact) : json(nullptr)},
-                       {"diff_units", e.diff_units ? json(*e.diff_units) : json(nullptr)},
-                       {"exact_diff_units", e.exact_diff_units ? json(*e.exact_diff_units) : json(nullptr)},
-                       {"flag", e.flag}, {"skipped", e.skipped}});
+    entries.push_back(
+        {{"row", e.row + 1},
+         {"arg", e.arg},
+         {"column", e.column},
+         {"tabulated", e.tabulated ? e.tabulated->ToString() : e.tabulated_raw},
+         {"computed", e.computed ? json(e.computed->ToString()) : json(nullptr)},
+         {"exact", std::isfinite(e.exact) ? json(e.exact) : json(nullptr)},
+         {"diff_units", e.diff_units ? json(*e.diff_units) : json(nullptr)},
+         {"exact_diff_units", e.exact_diff_units ? json(*e.exact_diff_units) : json(nullptr)},
+         {"flag", e.flag},
+         {"skipped", e.skipped}});
   }
   const auto& s = r.summary;
-  json summary = {{"entries", s.entries}, {"compared", s.compared}, {"exact", s.exact},
-                  {"within_one", s.within_one}, {"flagged", s.flagged}, {"blank", s.blank},
-                  {"illegible", s.illegible}, {"undefined", s.undefined}, {"worst", s.worst},
+  json summary = {{"entries", s.entries},
+                  {"compared", s.compared},
+                  {"exact", s.exact},
+                  {"within_one", s.within_one},
+                  {"flagged", s.flagged},
+                  {"blank", s.blank},
+                  {"illegible", s.illegible},
+                  {"undefined", s.undefined},
+                  {"worst", s.worst},
                   {"worst_arg", s.worst_row ? json(r.entries[*s.worst_row].arg) : json(nullptr)}};
   const auto& p = r.practice;
-  return {{"table", r.table}, {"witness", r.witness}, {"revision", revision ? json(*revision) : json(nullptr)},
-          {"column", r.entries.empty() ? "" : r.entries.front().column}, {"model", r.model},
-          {"formula", formula ? json(*formula) : json(nullptr)}, {"params", params},
-          {"practice", {{"rounding", model::ToString(p.rounding)}, {"places", r.places}, {"grid", p.grid},
-                        {"grid_origin", p.grid_origin}, {"round_nodes", p.round_nodes}, {"displacement", p.displacement}}},
-          {"tolerance", r.tolerance}, {"entries", entries}, {"summary", summary}, {"run_id", run}};
+  return {{"table", r.table},
+          {"witness", r.witness},
+          {"revision", revision ? json(*revision) : json(nullptr)},
+          {"column", r.entries.empty() ? "" : r.entries.front().column},
+          {"model", r.model},
+          {"formula", formula ? json(*formula) : json(nullptr)},
+          {"params", params},
+          {"practice",
+           {{"rounding", model::ToString(p.rounding)},
+            {"places", r.places},
+            {"grid", p.grid},
+            {"grid_origin", p.grid_origin},
+            {"round_nodes", p.round_nodes},
+            {"displacement", p.displacement}}},
+          {"tolerance", r.tolerance},
+          {"entries", entries},
+          {"summary", summary},
+          {"run_id", run}};
 }
 
 void AddOptions(po::options_description& d, CheckOptions& o) {
-  d.add_options()
-      ("table", po::value(&o.table)->required(), "table id")
-      ("witness", po::value(&o.witness)->required(), "siglum of the witness")
-      ("column", po::value(&o.column), "column to check (default: the first)")
-      ("tolerance", po::value(&o.tolerance)->default_value("1"), "flag when |diff| > this many units")
-      ("revision", po::value(&o.revision), "revision to check (default: the current)")
-      ("flagged-only", po::bool_switch(&o.flagged_only), "text and CSV: list only the flagged entries");
-  AddReferenceOptions(d, o.reference, "identify the model, parameters and practice from this witness's entries");
+  d.add_options()("table", po::value(&o.table)->required(), "table id")(
+      "witness", po::value(&o.witness)->required(), "siglum of the witness")(
+      "column", po::value(&o.column), "column to check (default: the first)")(
+      "tolerance", po::value(&o.tolerance)->default_value("1"),
+      "flag when |diff| > this many units")("revision", po::value(&o.revision),
+                                            "revision to check (default: the current)")(
+      "flagged-only", po::bool_switch(&o.flagged_only),
+      "text and CSV: list only the flagged entries");
+  AddReferenceOptions(d, o.reference,
+                      "identify the model, parameters and practice from this witness's entries");
 }
 
 }  // namespace
@@ -168,23 +198,34 @@ int RunCheck(const std::vector<std::string>& args, Io& io) {
   CheckChoice("--format", o.format, {"text", "csv", "json"});
   pipeline::ReferenceRequest request = ToReferenceRequest(o.reference, vm);
   const double tolerance = ParseNumber("--tolerance", o.tolerance);
-  if (tolerance < 0) throw InputError::ForOption("--tolerance", ExpectedFound("0 or more", "'" + o.tolerance + "'"));
+  if (tolerance < 0)
+    throw InputError::ForOption("--tolerance", ExpectedFound("0 or more", "'" + o.tolerance + "'"));
   store::Database db = OpenEdition(o.db);
-  const std::optional<int> revision = vm.count("revision") ? std::optional<int>(o.revision) : std::nullopt;
+  const std::optional<int> revision =
+      vm.count("revision") ? std::optional<int>(o.revision) : std::nullopt;
   const Transcription t = store::Load(db, o.table, o.witness, revision);
-  if (t.columns.empty()) throw InputError::ForOption("--table", ExpectedFound("a table with value columns", "none"));
+  if (t.columns.empty())
+    throw InputError::ForOption("--table", ExpectedFound("a table with value columns", "none"));
   request.columns = {o.column.empty() ? t.columns.front().name : o.column};
-  const auto ref = pipeline::ResolveReferences({t}, request, pipeline::LoadModelLibrary(db)).front();
-  const model::CheckReport r = model::Check(t, *ref.model, ref.params, ref.practice, tolerance, ref.column);
-  const std::optional<std::string> formula_text = ref.formula.empty() ? std::nullopt : std::optional(ref.formula);
+  const auto ref =
+      pipeline::ResolveReferences({t}, request, pipeline::LoadModelLibrary(db)).front();
+  const model::CheckReport r =
+      model::Check(t, *ref.model, ref.params, ref.practice, tolerance, ref.column);
+  const std::optional<std::string> formula_text =
+      ref.formula.empty() ? std::nullopt : std::optional(ref.formula);
   const std::optional<int> stored_revision =
       revision ? revision : std::optional<int>(store::CurrentRevision(db, o.table, o.witness));
   const std::int64_t run = store::SaveCheckRun(db, r, stored_revision, formula_text);
   switch (ParseFormat(o.format)) {
-    case Format::kJson: io.out << ToJson(r, stored_revision, formula_text, run).dump(2) << "\n"; break;
-    case Format::kCsv: io.out << EntryTable(r, o.flagged_only).RenderCsv(); break;
+    case Format::kJson:
+      io.out << ToJson(r, stored_revision, formula_text, run).dump(2) << "\n";
+      break;
+    case Format::kCsv:
+      io.out << EntryTable(r, o.flagged_only).RenderCsv();
+      break;
     case Format::kText:
-      if (ref.source == pipeline::ReferenceSource::kIdentified) io.out << "reference: " << ref.how << "\n";
+      if (ref.source == pipeline::ReferenceSource::kIdentified)
+        io.out << "reference: " << ref.how << "\n";
       PrintText(r, o, io);
       break;
   }

@@ -15,8 +15,10 @@
 namespace apograph::cli {
 
 extern const char kCollateUsage[] =
-    "usage: apograph collate --table ID [--witnesses A,B,...] [--format text|csv|json] [--db FILE]\n"
-    "                        [(--model NAME | --formula TEXT) [--param N=V]... [practice options] | --auto]\n"
+    "usage: apograph collate --table ID [--witnesses A,B,...] [--format text|csv|json] [--db "
+    "FILE]\n"
+    "                        [(--model NAME | --formula TEXT) [--param N=V]... [practice options] "
+    "| --auto]\n"
     "                        [--column C] [--tolerance U] [--scripts DIR]\n\n"
     "Aligns the current transcriptions of a table by argument (missing, extra and\n"
     "miscopied rows and columns slid by a row are reported) and lists every cell's\n"
@@ -51,7 +53,8 @@ std::string Readings(const collate::CollatedCell& cell) {
 }
 
 void PrintText(const collate::Collation& c, std::ostream& out) {
-  out << "table " << c.table_id << ": " << c.witnesses.size() << " witnesses, " << c.rows.size() << " rows\n";
+  out << "table " << c.table_id << ": " << c.witnesses.size() << " witnesses, " << c.rows.size()
+      << " rows\n";
   const bool judged = c.BasisCounts().count(collate::Basis::kCaller) > 0;
   out << "errors judged by "
       << (c.reference_description.empty() ? std::string("majority (no model)")
@@ -64,7 +67,8 @@ void PrintText(const collate::Collation& c, std::ostream& out) {
   t.headers = {"argument", "column", "computed", "basis", "readings (* error)"};
   for (const auto& row : c.rows) {
     for (const auto& cell : row.cells) {
-      t.Add({row.argument.ToString(), c.columns[cell.column].name, cell.computed ? cell.computed->ToString() : "",
+      t.Add({row.argument.ToString(), c.columns[cell.column].name,
+             cell.computed ? cell.computed->ToString() : "",
              cell.Varies() ? collate::ToString(cell.basis) : "", Readings(cell)});
     }
   }
@@ -73,14 +77,16 @@ void PrintText(const collate::Collation& c, std::ostream& out) {
 
 void PrintCsv(const collate::Collation& c, std::ostream& out) {
   Tabular t;
-  t.headers = {"argument", "column", "reading", "sigla", "kind", "error", "units_off", "basis", "why"};
+  t.headers = {"argument", "column",    "reading", "sigla", "kind",
+               "error",    "units_off", "basis",   "why"};
   for (const auto& row : c.rows) {
     for (const auto& cell : row.cells) {
       for (const auto& r : cell.readings) {
         std::string sigla;
         for (const auto& s : r.sigla) sigla += (sigla.empty() ? "" : " ") + s;
-        t.Add({row.argument.ToString(), c.columns[cell.column].name, r.text, sigla, collate::ToString(r.kind),
-               r.error ? "1" : "0", Units(r.units_off), collate::ToString(cell.basis), r.why});
+        t.Add({row.argument.ToString(), c.columns[cell.column].name, r.text, sigla,
+               collate::ToString(r.kind), r.error ? "1" : "0", Units(r.units_off),
+               collate::ToString(cell.basis), r.why});
       }
     }
   }
@@ -89,19 +95,28 @@ void PrintCsv(const collate::Collation& c, std::ostream& out) {
 
 nlohmann::json ToJson(const collate::Collation& c) {
   using nlohmann::json;
-  json j = {{"table", c.table_id}, {"reference", c.reference_description}, {"tolerance", c.tolerance_units}};
+  json j = {{"table", c.table_id},
+            {"reference", c.reference_description},
+            {"tolerance", c.tolerance_units}};
   j["witnesses"] = json::array();
   for (const auto& w : c.witnesses) j["witnesses"].push_back(w.siglum);
   j["notes"] = json::array();
   for (const auto& n : c.notes) {
-    j["notes"].push_back({{"siglum", n.siglum}, {"kind", n.kind}, {"source_row", n.source_row}, {"line", n.line},
-                          {"argument", n.row >= 0 ? c.rows[n.row].argument.ToString() : ""}, {"text", n.text}});
+    j["notes"].push_back({{"siglum", n.siglum},
+                          {"kind", n.kind},
+                          {"source_row", n.source_row},
+                          {"line", n.line},
+                          {"argument", n.row >= 0 ? c.rows[n.row].argument.ToString() : ""},
+                          {"text", n.text}});
   }
   j["slides"] = json::array();
   for (const auto& s : c.slides) {
-    j["slides"].push_back({{"siglum", s.siglum}, {"column", c.columns[s.column].name},
+    j["slides"].push_back({{"siglum", s.siglum},
+                           {"column", c.columns[s.column].name},
                            {"first", c.rows[s.first_row].argument.ToString()},
-                           {"last", c.rows[s.last_row].argument.ToString()}, {"offset", s.offset}, {"text", s.text}});
+                           {"last", c.rows[s.last_row].argument.ToString()},
+                           {"offset", s.offset},
+                           {"text", s.text}});
   }
   j["rows"] = json::array();
   for (const auto& row : c.rows) {
@@ -109,13 +124,18 @@ nlohmann::json ToJson(const collate::Collation& c) {
     for (const auto& cell : row.cells) {
       json readings = json::array();
       for (const auto& r : cell.readings) {
-        readings.push_back({{"text", r.text}, {"kind", collate::ToString(r.kind)}, {"sigla", r.sigla},
-                            {"error", r.error}, {"units_off", r.units_off ? json(*r.units_off) : json(nullptr)},
+        readings.push_back({{"text", r.text},
+                            {"kind", collate::ToString(r.kind)},
+                            {"sigla", r.sigla},
+                            {"error", r.error},
+                            {"units_off", r.units_off ? json(*r.units_off) : json(nullptr)},
                             {"why", r.why}});
       }
-      cells.push_back({{"column", c.columns[cell.column].name},
-                       {"computed", cell.computed ? json(cell.computed->ToString()) : json(nullptr)},
-                       {"basis", collate::ToString(cell.basis)}, {"readings", readings}});
+      cells.push_back(
+          {{"column", c.columns[cell.column].name},
+           {"computed", cell.computed ? json(cell.computed->ToString()) : json(nullptr)},
+           {"basis", collate::ToString(cell.basis)},
+           {"readings", readings}});
     }
     j["rows"].push_back({{"argument", row.argument.ToString()}, {"cells", cells}});
   }
@@ -150,9 +170,12 @@ int RunCollate(const std::vector<std::string>& args, Io& io) {
   CheckChoice("--format", format, {"text", "csv", "json"});
   store::Database db = OpenEdition(db_path);
   const auto c = CollateFromDb(db, request);
-  if (format == "json") io.out << ToJson(c).dump(2) << "\n";
-  else if (format == "csv") PrintCsv(c, io.out);
-  else PrintText(c, io.out);
+  if (format == "json")
+    io.out << ToJson(c).dump(2) << "\n";
+  else if (format == "csv")
+    PrintCsv(c, io.out);
+  else
+    PrintText(c, io.out);
   return HasFindings(c) ? kFindings : kOk;
 }
 

@@ -43,21 +43,25 @@ constexpr const char* kMarker = ".apograph-demo";
 void PrepareOutput(const fs::path& dir) {
   if (fs::exists(dir)) {
     if (!fs::is_directory(dir)) {
-      throw InputError::ForOption("--output", ExpectedFound("a folder", "the file '" + dir.string() + "'"));
+      throw InputError::ForOption("--output",
+                                  ExpectedFound("a folder", "the file '" + dir.string() + "'"));
     }
     if (!fs::is_empty(dir) && !fs::exists(dir / kMarker)) {
-      throw InputError::ForOption("--output", ExpectedFound("an empty folder or one an earlier demo wrote",
-                                                            "'" + dir.string() + "' holding other files"));
+      throw InputError::ForOption("--output",
+                                  ExpectedFound("an empty folder or one an earlier demo wrote",
+                                                "'" + dir.string() + "' holding other files"));
     }
     fs::remove_all(dir);
   }
   fs::create_directories(dir);
-  std::ofstream(dir / kMarker) << "written by apograph demo; the next demo may replace this folder\n";
+  std::ofstream(dir / kMarker)
+      << "written by apograph demo; the next demo may replace this folder\n";
 }
 
 std::vector<Transcription> ReadCorpus(const fs::path& corpus, std::vector<Diagnostic>& warnings) {
   if (!fs::is_directory(corpus)) {
-    throw InputError::ForOption("--corpus", ExpectedFound("the demo corpus folder", "'" + corpus.string() + "'"));
+    throw InputError::ForOption(
+        "--corpus", ExpectedFound("the demo corpus folder", "'" + corpus.string() + "'"));
   }
   std::vector<fs::path> files;
   for (const auto& e : fs::directory_iterator(corpus)) {
@@ -70,7 +74,9 @@ std::vector<Transcription> ReadCorpus(const fs::path& corpus, std::vector<Diagno
     for (auto& t : file.tables) tables.push_back(std::move(t));
     for (auto& w : file.warnings) warnings.push_back(std::move(w));
   }
-  if (tables.empty()) throw InputError::ForOption("--corpus", "expected .apo files, found none in " + corpus.string());
+  if (tables.empty())
+    throw InputError::ForOption("--corpus",
+                                "expected .apo files, found none in " + corpus.string());
   return tables;
 }
 
@@ -93,8 +99,9 @@ void PrintImport(const std::vector<Transcription>& tables, const std::vector<Dia
   if (!warnings.empty()) {
     io.out << "The transcriptions raise " << warnings.size()
            << " warnings about arguments (evidence, kept as written):\n";
-    for (const auto& w : warnings) io.out << "  " << w.where.file.substr(w.where.file.find_last_of('/') + 1)
-                                           << ":" << w.where.line << ": " << w.message << "\n";
+    for (const auto& w : warnings)
+      io.out << "  " << w.where.file.substr(w.where.file.find_last_of('/') + 1) << ":"
+             << w.where.line << ": " << w.message << "\n";
   }
   io.out << "\nEverything below is a suggestion with its evidence: the editor decides.\n\n";
 }
@@ -105,11 +112,12 @@ int RunDemo(const std::vector<std::string>& args, Io& io) {
   std::string corpus, output;
   std::size_t findings = 6;
   po::options_description options("options");
-  options.add_options()
-      ("corpus", po::value(&corpus)->default_value(std::string(APOGRAPH_DATA_DIR) + "/demo"),
-       "folder of the demo transcriptions")
-      ("output", po::value(&output)->default_value("apograph-demo"), "folder for the database and files")
-      ("findings", po::value(&findings)->default_value(6), "deviations shown per witness (0: all)");
+  options.add_options()("corpus",
+                        po::value(&corpus)->default_value(std::string(APOGRAPH_DATA_DIR) + "/demo"),
+                        "folder of the demo transcriptions")(
+      "output", po::value(&output)->default_value("apograph-demo"),
+      "folder for the database and files")("findings", po::value(&findings)->default_value(6),
+                                           "deviations shown per witness (0: all)");
   po::variables_map vm;
   if (ParseOptions(FindCommand("demo"), args, options, vm, io)) return kOk;
 
@@ -126,9 +134,12 @@ int RunDemo(const std::vector<std::string>& args, Io& io) {
   request.output_dir = dir.string();
   request.report.max_findings = findings;
   WriteWorkReports(db, tables.front().work.id, request, io);
-  io.out << "Files in " << dir.string() << "/: the edition database, one report per table (*.md, every\n"
-         << "deviation listed), the apparatus (*.tei.xml, *.tex, *.csv) and the stemmata (*.nwk, *.dot,\n"
-         << "*.svg). Try: apograph errors --db " << db_path.string() << " --table sun-eq --witness D --auto\n";
+  io.out << "Files in " << dir.string()
+         << "/: the edition database, one report per table (*.md, every\n"
+         << "deviation listed), the apparatus (*.tei.xml, *.tex, *.csv) and the stemmata (*.nwk, "
+            "*.dot,\n"
+         << "*.svg). Try: apograph errors --db " << db_path.string()
+         << " --table sun-eq --witness D --auto\n";
   return kOk;
 }
 

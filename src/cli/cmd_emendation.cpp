@@ -14,7 +14,8 @@
 namespace apograph::cli {
 
 extern const char kEmendationUsage[] =
-    "usage: apograph emendation list [--table ID] [--witness SIGLUM] [--status proposed|accepted|rejected]\n"
+    "usage: apograph emendation list [--table ID] [--witness SIGLUM] [--status "
+    "proposed|accepted|rejected]\n"
     "                                [--format text|csv|json] [--db FILE]\n"
     "       apograph emendation accept ID [--note TEXT] [--db FILE]\n"
     "       apograph emendation reject ID [--note TEXT] [--db FILE]\n"
@@ -48,7 +49,8 @@ nlohmann::json RecordJson(const store::EmendationRecord& r) {
           {"note", r.editor_note}};
 }
 
-int List(store::Database& db, const store::EmendationFilter& filter, const std::string& format, Io& io) {
+int List(store::Database& db, const store::EmendationFilter& filter, const std::string& format,
+         Io& io) {
   const auto records = store::ListEmendations(db, filter);
   const Format f = ParseFormat(format);
   if (f == Format::kJson) {
@@ -58,16 +60,17 @@ int List(store::Database& db, const store::EmendationFilter& filter, const std::
     return kOk;
   }
   Tabular tab;
-  tab.headers = {"id", "table", "witness", "rev", "arg", "column", "tabulated", "proposed", "class", "score",
-                 "status", "evidence", "note"};
-  tab.right_aligned = {true, false, false, true, true, false, true, true, false, true, false, false, false};
+  tab.headers = {"id",       "table", "witness", "rev",    "arg",      "column", "tabulated",
+                 "proposed", "class", "score",   "status", "evidence", "note"};
+  tab.right_aligned = {true, false, false, true,  true,  false, true,
+                       true, false, true,  false, false, false};
   for (const auto& r : records) {
     char score[16];
     std::snprintf(score, sizeof score, "%.2f", r.score);
     std::string id = std::to_string(r.id);
     if (r.finding) id += " (run " + std::to_string(*r.finding) + ")";
-    tab.Add({id, r.table_id, r.siglum, std::to_string(r.revision), r.arg, r.column_name, r.tabulated, r.proposed,
-             r.cls, score, r.status, r.evidence, r.editor_note});
+    tab.Add({id, r.table_id, r.siglum, std::to_string(r.revision), r.arg, r.column_name,
+             r.tabulated, r.proposed, r.cls, score, r.status, r.evidence, r.editor_note});
   }
   io.out << (f == Format::kCsv ? tab.RenderCsv() : tab.RenderText());
   return kOk;
@@ -79,13 +82,12 @@ int RunEmendation(const std::vector<std::string>& args, Io& io) {
   std::string db_path, action, table, witness, status, note, format;
   std::int64_t id = 0;
   po::options_description options("options");
-  options.add_options()
-      ("action", po::value(&action)->required(), "list, accept or reject")
-      ("id", po::value(&id), "the emendation to accept or reject")
-      ("table", po::value(&table), "list: only this table")
-      ("witness", po::value(&witness), "list: only this witness")
-      ("status", po::value(&status), "list: only proposed, accepted or rejected")
-      ("note", po::value(&note)->default_value(""), "accept/reject: the editor's note");
+  options.add_options()("action", po::value(&action)->required(), "list, accept or reject")(
+      "id", po::value(&id), "the emendation to accept or reject")(
+      "table", po::value(&table), "list: only this table")("witness", po::value(&witness),
+                                                           "list: only this witness")(
+      "status", po::value(&status), "list: only proposed, accepted or rejected")(
+      "note", po::value(&note)->default_value(""), "accept/reject: the editor's note");
   AddFormatOption(options, format, {"text", "csv", "json"});
   AddDbOption(options, db_path);
   po::positional_options_description positional;
@@ -103,10 +105,14 @@ int RunEmendation(const std::vector<std::string>& args, Io& io) {
     if (!status.empty()) filter.status = status;
     return List(db, filter, format, io);
   }
-  if (!vm.count("id")) throw InputError::ForOption("apograph emendation " + action, "expected the id of an emendation, found none");
-  const auto r = store::DecideEmendation(db, id, action == "accept" ? "accepted" : "rejected", note);
-  io.out << "emendation " << r.id << " " << r.status << ": " << r.arg << " " << r.column_name << " " << r.tabulated
-         << " " << r.siglum << "] " << r.proposed << (r.editor_note.empty() ? "" : " (" + r.editor_note + ")") << "\n";
+  if (!vm.count("id"))
+    throw InputError::ForOption("apograph emendation " + action,
+                                "expected the id of an emendation, found none");
+  const auto r =
+      store::DecideEmendation(db, id, action == "accept" ? "accepted" : "rejected", note);
+  io.out << "emendation " << r.id << " " << r.status << ": " << r.arg << " " << r.column_name << " "
+         << r.tabulated << " " << r.siglum << "] " << r.proposed
+         << (r.editor_note.empty() ? "" : " (" + r.editor_note + ")") << "\n";
   return kOk;
 }
 

@@ -26,7 +26,8 @@ extern const char kErrorsUsage[] =
     "                       ((--model NAME | --formula TEXT) [--param N=V]... [practice options]\n"
     "                        | --auto [--model NAME | --formula TEXT] [practice options])\n"
     "                       [--column NAME] [--tolerance U]\n"
-    "                       [--revision N] [--scripts DIR] [--no-record] [--format text|csv|json] [--db FILE]\n"
+    "                       [--revision N] [--scripts DIR] [--no-record] [--format text|csv|json] "
+    "[--db FILE]\n"
     "\n"
     "Recomputes the witness's entries from the model and, for every entry further\n"
     "from it than the tolerance (units of the last place, default 0.5), ranks the\n"
@@ -45,7 +46,8 @@ extern const char kErrorsUsage[] =
     "fitted. Practice options: --rounding nearest|truncate, --places N, --grid G\n"
     "[--grid-origin O] [--round-nodes], --displacement D. Exit 1 when there are findings.\n"
     "\n"
-    "example: apograph errors --table sun-eq --witness D --model solar-eccentric --param 'e=2;16' --grid 6\n"
+    "example: apograph errors --table sun-eq --witness D --model solar-eccentric --param 'e=2;16' "
+    "--grid 6\n"
     "         apograph errors --table sun-eq --witness D --auto";
 
 namespace {
@@ -69,11 +71,14 @@ bool SpecialPractice(const pipeline::ColumnReference& r, const Transcription& t)
 /// identified and the practice when it is not plain rounding.
 std::string ModelText(const pipeline::ColumnReference& r, const Transcription& t) {
   std::string out = r.ModelText();
-  const std::string practice = SpecialPractice(r, t) ? pipeline::DescribePractice(r.practice, *r.practice.places) : "";
-  if (r.source == pipeline::ReferenceSource::kGiven) return practice.empty() ? out : out + " (" + practice + ")";
+  const std::string practice =
+      SpecialPractice(r, t) ? pipeline::DescribePractice(r.practice, *r.practice.places) : "";
+  if (r.source == pipeline::ReferenceSource::kGiven)
+    return practice.empty() ? out : out + " (" + practice + ")";
   std::string how = "fitted";
   if (r.rounded_places > 0) {
-    how += ", rounded to " + std::to_string(r.rounded_places) + (r.rounded_places == 1 ? " place" : " places");
+    how += ", rounded to " + std::to_string(r.rounded_places) +
+           (r.rounded_places == 1 ? " place" : " places");
   }
   if (!practice.empty()) how += "; entries " + practice;
   return out + " (" + how + ")";
@@ -81,19 +86,31 @@ std::string ModelText(const pipeline::ColumnReference& r, const Transcription& t
 
 std::string ModelText(const std::vector<pipeline::ColumnReference>& refs, const Transcription& t) {
   std::string out;
-  for (const auto& r : refs) out += (out.empty() ? "" : "; ") + (refs.size() > 1 ? r.column_name + ": " : "") + ModelText(r, t);
+  for (const auto& r : refs)
+    out +=
+        (out.empty() ? "" : "; ") + (refs.size() > 1 ? r.column_name + ": " : "") + ModelText(r, t);
   return out;
 }
 
 nlohmann::json ReferenceJson(const pipeline::ColumnReference& r) {
   nlohmann::json params = nlohmann::json::object();
-  for (std::size_t i = 0; i < r.params.size() && i < r.model->params().size(); ++i) params[r.model->params()[i].name] = r.params[i];
+  for (std::size_t i = 0; i < r.params.size() && i < r.model->params().size(); ++i)
+    params[r.model->params()[i].name] = r.params[i];
   const auto& p = r.practice;
-  return {{"column", r.column_name}, {"model", r.model->name()}, {"params", params},
-          {"practice", {{"rounding", model::ToString(p.rounding)}, {"places", p.places.value_or(0)}, {"grid", p.grid},
-                        {"grid_origin", p.grid_origin}, {"round_nodes", p.round_nodes}, {"displacement", p.displacement}}},
-          {"description", r.description}, {"source", pipeline::ToString(r.source)},
-          {"witness", r.witness.empty() ? nlohmann::json(nullptr) : nlohmann::json(r.witness)}, {"how", r.how}};
+  return {{"column", r.column_name},
+          {"model", r.model->name()},
+          {"params", params},
+          {"practice",
+           {{"rounding", model::ToString(p.rounding)},
+            {"places", p.places.value_or(0)},
+            {"grid", p.grid},
+            {"grid_origin", p.grid_origin},
+            {"round_nodes", p.round_nodes},
+            {"displacement", p.displacement}}},
+          {"description", r.description},
+          {"source", pipeline::ToString(r.source)},
+          {"witness", r.witness.empty() ? nlohmann::json(nullptr) : nlohmann::json(r.witness)},
+          {"how", r.how}};
 }
 
 nlohmann::json Units(double d) {
@@ -120,26 +137,35 @@ nlohmann::json FindingJson(const deviation::Finding& f) {
   j["arg_end"] = f.cells.back().arg;
   j["cells"] = nlohmann::json::array();
   for (const auto& cell : f.cells) {
-    j["cells"].push_back({{"row", cell.row + 1}, {"arg", cell.arg}, {"tabulated", cell.tabulated},
-                          {"computed", Reading(cell.computed)}, {"diff_units", Units(cell.diff_units)},
+    j["cells"].push_back({{"row", cell.row + 1},
+                          {"arg", cell.arg},
+                          {"tabulated", cell.tabulated},
+                          {"computed", Reading(cell.computed)},
+                          {"diff_units", Units(cell.diff_units)},
                           {"emendation", Reading(cell.emendation)}});
   }
   j["alternatives"] = nlohmann::json::array();
   for (std::size_t i = 1; i < f.explanations.size(); ++i) {
     const auto& e = f.explanations[i];
-    j["alternatives"].push_back({{"class", deviation::ToString(e.cls)}, {"score", std::round(e.score * 100) / 100},
-                                 {"emendation", Reading(e.emendation)}, {"explanation", e.evidence}});
+    j["alternatives"].push_back({{"class", deviation::ToString(e.cls)},
+                                 {"score", std::round(e.score * 100) / 100},
+                                 {"emendation", Reading(e.emendation)},
+                                 {"explanation", e.evidence}});
   }
   return j;
 }
 
-void Print(const ErrorsOptions& o, const Transcription& t, const std::vector<pipeline::ColumnReference>& refs,
+void Print(const ErrorsOptions& o, const Transcription& t,
+           const std::vector<pipeline::ColumnReference>& refs,
            const std::vector<deviation::Finding>& findings, Io& io) {
   const Format format = ParseFormat(o.format);
   const std::string model = ModelText(refs, t);
   if (format == Format::kJson) {
-    nlohmann::json j = {{"table", t.table_id}, {"witness", t.witness.siglum}, {"script", t.witness.script},
-                        {"model", model}, {"tolerance", o.tolerance}};
+    nlohmann::json j = {{"table", t.table_id},
+                        {"witness", t.witness.siglum},
+                        {"script", t.witness.script},
+                        {"model", model},
+                        {"tolerance", o.tolerance}};
     j["references"] = nlohmann::json::array();
     for (const auto& r : refs) j["references"].push_back(ReferenceJson(r));
     j["findings"] = nlohmann::json::array();
@@ -149,39 +175,44 @@ void Print(const ErrorsOptions& o, const Transcription& t, const std::vector<pip
   }
   if (format == Format::kCsv) {
     Tabular tab;
-    tab.headers = {"finding", "arg", "column", "tabulated", "computed", "diff_units", "class", "emendation", "score",
-                   "explanation"};
+    tab.headers = {"finding",    "arg",   "column",     "tabulated", "computed",
+                   "diff_units", "class", "emendation", "score",     "explanation"};
     for (std::size_t i = 0; i < findings.size(); ++i) {
       const auto& f = findings[i];
       for (const auto& c : f.cells) {
         char diff[32] = "", score[16];
-        if (std::isfinite(c.diff_units)) std::snprintf(diff, sizeof diff, "%g", std::round(c.diff_units * 100) / 100);
+        if (std::isfinite(c.diff_units))
+          std::snprintf(diff, sizeof diff, "%g", std::round(c.diff_units * 100) / 100);
         std::snprintf(score, sizeof score, "%.2f", f.best().score);
-        tab.Add({std::to_string(i + 1), c.arg, f.column_name, c.tabulated, c.computed ? c.computed->ToString() : "",
-                 diff, deviation::ToString(f.best().cls), c.emendation ? c.emendation->ToString() : "", score,
-                 f.best().evidence});
+        tab.Add({std::to_string(i + 1), c.arg, f.column_name, c.tabulated,
+                 c.computed ? c.computed->ToString() : "", diff, deviation::ToString(f.best().cls),
+                 c.emendation ? c.emendation->ToString() : "", score, f.best().evidence});
       }
     }
     io.out << tab.RenderCsv();
     return;
   }
   for (const auto& r : refs) {
-    if (r.source == pipeline::ReferenceSource::kIdentified) io.out << r.column_name << ": " << r.description << "; " << r.how << "\n";
+    if (r.source == pipeline::ReferenceSource::kIdentified)
+      io.out << r.column_name << ": " << r.description << "; " << r.how << "\n";
   }
   io.out << "table " << t.table_id << ", witness " << t.witness.siglum << " ("
-         << (t.witness.script.empty() ? "hindu-arabic" : t.witness.script) << "), compared with " << model << ": "
-         << findings.size() << (findings.size() == 1 ? " finding\n" : " findings\n");
+         << (t.witness.script.empty() ? "hindu-arabic" : t.witness.script) << "), compared with "
+         << model << ": " << findings.size()
+         << (findings.size() == 1 ? " finding\n" : " findings\n");
   for (const auto& f : findings) io.out << f.Note(t.witness.siglum) << "\n";
 }
 
-std::vector<store::EmendationRecord> Proposals(const Transcription& t, int revision, const std::string& model,
+std::vector<store::EmendationRecord> Proposals(const Transcription& t, int revision,
+                                               const std::string& model,
                                                const std::vector<deviation::Finding>& findings) {
   std::vector<store::EmendationRecord> out;
   for (std::size_t i = 0; i < findings.size(); ++i) {
     const auto& f = findings[i];
     if (!deviation::IsCopyingSlip(f.best().cls)) continue;
     for (const auto& c : f.cells) {
-      if (!c.emendation || (c.value && c.emendation->Identical(c.value->Rounded(f.places)))) continue;
+      if (!c.emendation || (c.value && c.emendation->Identical(c.value->Rounded(f.places))))
+        continue;
       store::EmendationRecord r;
       r.table_id = t.table_id;
       r.siglum = t.witness.siglum;
@@ -214,16 +245,19 @@ int CurrentRevision(store::Database& db, const ErrorsOptions& o) {
 int RunErrors(const std::vector<std::string>& args, Io& io) {
   ErrorsOptions o;
   po::options_description options("options");
-  options.add_options()
-      ("table", po::value(&o.table)->required(), "table id")
-      ("witness", po::value(&o.witness)->required(), "siglum of the witness")
-      ("column", po::value(&o.column), "only this column")
-      ("tolerance", po::value(&o.tolerance)->default_value(0.5), "units of the last place an entry may differ")
-      ("revision", po::value(&o.revision), "an earlier revision of the transcription (default: current)")
-      ("scripts", po::value(&o.scripts)->default_value(deviation::DefaultScriptDir()), "folder of numeral scripts")
-      ("no-record", po::bool_switch(&o.no_record), "do not record the proposals in the database");
-  AddReferenceOptions(options, o.reference,
-                      "identify the model, parameters and practice from the table's witnesses first");
+  options.add_options()("table", po::value(&o.table)->required(), "table id")(
+      "witness", po::value(&o.witness)->required(), "siglum of the witness")(
+      "column", po::value(&o.column), "only this column")(
+      "tolerance", po::value(&o.tolerance)->default_value(0.5),
+      "units of the last place an entry may differ")(
+      "revision", po::value(&o.revision),
+      "an earlier revision of the transcription (default: current)")(
+      "scripts", po::value(&o.scripts)->default_value(deviation::DefaultScriptDir()),
+      "folder of numeral scripts")("no-record", po::bool_switch(&o.no_record),
+                                   "do not record the proposals in the database");
+  AddReferenceOptions(
+      options, o.reference,
+      "identify the model, parameters and practice from the table's witnesses first");
   AddFormatOption(options, o.format, {"text", "csv", "json"});
   AddDbOption(options, o.db);
   po::variables_map vm;
@@ -231,15 +265,22 @@ int RunErrors(const std::vector<std::string>& args, Io& io) {
   CheckChoice("--format", o.format, {"text", "csv", "json"});
   CheckChoice("--rounding", o.reference.rounding, {"nearest", "truncate"});
   pipeline::ReferenceRequest request = ToReferenceRequest(o.reference, vm);
-  if (request.Empty()) throw InputError::ForOption("--model", "expected --model NAME, --formula TEXT or --auto, found none of them");
-  if (!(o.tolerance >= 0)) throw InputError::ForOption("--tolerance", ExpectedFound("a number of units >= 0", std::to_string(o.tolerance)));
+  if (request.Empty())
+    throw InputError::ForOption(
+        "--model", "expected --model NAME, --formula TEXT or --auto, found none of them");
+  if (!(o.tolerance >= 0))
+    throw InputError::ForOption(
+        "--tolerance", ExpectedFound("a number of units >= 0", std::to_string(o.tolerance)));
 
   store::Database db = OpenEdition(o.db);
-  const Transcription t = store::Load(db, o.table, o.witness, o.revision > 0 ? std::optional<int>(o.revision) : std::nullopt);
+  const Transcription t = store::Load(
+      db, o.table, o.witness, o.revision > 0 ? std::optional<int>(o.revision) : std::nullopt);
   if (!o.column.empty()) request.columns = {o.column};
   // --auto identifies from every witness of the table (this revision of this one).
-  std::vector<Transcription> witnesses = request.automatic ? store::LoadTable(db, o.table) : std::vector<Transcription>{};
-  std::erase_if(witnesses, [&](const Transcription& w) { return w.witness.siglum == t.witness.siglum; });
+  std::vector<Transcription> witnesses =
+      request.automatic ? store::LoadTable(db, o.table) : std::vector<Transcription>{};
+  std::erase_if(witnesses,
+                [&](const Transcription& w) { return w.witness.siglum == t.witness.siglum; });
   witnesses.insert(witnesses.begin(), t);
   const auto refs = pipeline::ResolveReferences(witnesses, request, pipeline::LoadModelLibrary(db));
   const deviation::NumeralScript script = deviation::FindNumeralScript(t.witness.script, o.scripts);
@@ -251,7 +292,8 @@ int RunErrors(const std::vector<std::string>& args, Io& io) {
     auto proposals = Proposals(t, CurrentRevision(db, o), ModelText(refs, t), findings);
     if (!proposals.empty()) {
       const auto r = store::RecordEmendations(db, proposals);
-      io.err << "recorded " << r.added << " new proposed emendation" << (r.added == 1 ? "" : "s") << " in " << o.db
+      io.err << "recorded " << r.added << " new proposed emendation" << (r.added == 1 ? "" : "s")
+             << " in " << o.db
              << (r.kept ? " (" + std::to_string(r.kept) + " already recorded)" : "") << "\n";
     }
   }

@@ -37,37 +37,54 @@ nlohmann::ordered_json ValueJson(const std::optional<Sexagesimal>& v) {
 nlohmann::ordered_json CellJson(const Cell& c) {
   return {{"raw", c.raw},
           {"value", ValueJson(c.value)},
-          {"decimal", c.value ? nlohmann::ordered_json(c.value->ToDouble()) : nlohmann::ordered_json(nullptr)},
+          {"decimal",
+           c.value ? nlohmann::ordered_json(c.value->ToDouble()) : nlohmann::ordered_json(nullptr)},
           {"places", c.places},
           {"state", ToString(c.state)},
           {"damaged", c.damaged},
           {"doubtful", c.doubtful},
           {"addition", ToString(c.addition)},
-          {"corrected_from", c.corrected_from ? nlohmann::ordered_json(*c.corrected_from) : nlohmann::ordered_json(nullptr)},
+          {"corrected_from", c.corrected_from ? nlohmann::ordered_json(*c.corrected_from)
+                                              : nlohmann::ordered_json(nullptr)},
           {"note", c.note},
           {"line", c.line},
           {"column", c.column}};
 }
 
 nlohmann::ordered_json ArgumentJson(const ArgumentSpec& a) {
-  return {{"name", a.name}, {"unit", a.unit}, {"places", a.places},
-          {"start", ValueJson(a.start)}, {"step", ValueJson(a.step)}};
+  return {{"name", a.name},
+          {"unit", a.unit},
+          {"places", a.places},
+          {"start", ValueJson(a.start)},
+          {"step", ValueJson(a.step)}};
 }
 
 nlohmann::ordered_json TranscriptionJson(const Transcription& t, int revision) {
   nlohmann::ordered_json j = {
-      {"table", t.table_id}, {"title", t.table_title}, {"kind", t.kind},
+      {"table", t.table_id},
+      {"title", t.table_title},
+      {"kind", t.kind},
       {"work", {{"id", t.work.id}, {"title", t.work.title}, {"author", t.work.author}}},
-      {"witness", {{"siglum", t.witness.siglum}, {"library", t.witness.library},
-                   {"shelfmark", t.witness.shelfmark}, {"date", t.witness.date},
-                   {"script", t.witness.script}, {"note", t.witness.note}}},
-      {"folios", t.folios}, {"hand", t.hand}, {"revision", revision},
-      {"source_file", t.source_file}, {"argument", ArgumentJson(t.argument)},
+      {"witness",
+       {{"siglum", t.witness.siglum},
+        {"library", t.witness.library},
+        {"shelfmark", t.witness.shelfmark},
+        {"date", t.witness.date},
+        {"script", t.witness.script},
+        {"note", t.witness.note}}},
+      {"folios", t.folios},
+      {"hand", t.hand},
+      {"revision", revision},
+      {"source_file", t.source_file},
+      {"argument", ArgumentJson(t.argument)},
       {"argument2", t.argument2 ? ArgumentJson(*t.argument2) : nlohmann::ordered_json(nullptr)}};
   j["columns"] = nlohmann::ordered_json::array();
   for (const auto& c : t.columns) {
-    j["columns"].push_back({{"name", c.name}, {"unit", c.unit}, {"places", c.places},
-                            {"title", c.title}, {"arg2", ValueJson(c.arg2)}});
+    j["columns"].push_back({{"name", c.name},
+                            {"unit", c.unit},
+                            {"places", c.places},
+                            {"title", c.title},
+                            {"arg2", ValueJson(c.arg2)}});
   }
   j["rows"] = nlohmann::ordered_json::array();
   for (const auto& r : t.rows) {
@@ -95,7 +112,8 @@ void WriteFile(const std::string& path, const std::string& text) {
   std::filesystem::rename(tmp, path, ec);
   if (ec) {
     std::remove(tmp.c_str());
-    throw InputError::ForOption("--output", ExpectedFound("a writable file", "'" + path + "' (" + ec.message() + ")"));
+    throw InputError::ForOption(
+        "--output", ExpectedFound("a writable file", "'" + path + "' (" + ec.message() + ")"));
   }
 }
 
@@ -106,20 +124,21 @@ int RunExport(const std::vector<std::string>& args, Io& io) {
   int revision = 0;
   po::options_description options("options");
   AddDbOption(options, db_path);
-  options.add_options()
-      ("table", po::value(&table)->required(), "the table id")
-      ("witness", po::value(&witness)->required(), "the witness's siglum")
-      ("revision", po::value(&revision), "revision number (default: the current one)")
-      ("output", po::value(&output), "write to FILE instead of standard output");
+  options.add_options()("table", po::value(&table)->required(), "the table id")(
+      "witness", po::value(&witness)->required(), "the witness's siglum")(
+      "revision", po::value(&revision), "revision number (default: the current one)")(
+      "output", po::value(&output), "write to FILE instead of standard output");
   AddFormatOption(options, format, {"transcription", "csv", "json"});
   po::variables_map vm;
   if (ParseOptions(FindCommand("export"), args, options, vm, io)) return kOk;
   CheckChoice("--format", format, {"transcription", "csv", "json"});
   if (vm.count("revision") && revision < 1) {
-    throw InputError::ForOption("--revision", ExpectedFound("a revision number from 1", std::to_string(revision)));
+    throw InputError::ForOption(
+        "--revision", ExpectedFound("a revision number from 1", std::to_string(revision)));
   }
   store::Database db = OpenEdition(db_path);
-  const std::optional<int> wanted = vm.count("revision") ? std::optional<int>(revision) : std::nullopt;
+  const std::optional<int> wanted =
+      vm.count("revision") ? std::optional<int>(revision) : std::nullopt;
   const Transcription t = store::Load(db, table, witness, wanted);
   std::string text;
   if (format == "csv") {

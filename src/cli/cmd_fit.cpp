@@ -4,11 +4,11 @@
 #include <ostream>
 
 #include "cli/estimate_options.hpp"
-#include "store/estimate_store.hpp"
 #include "estimate/fit.hpp"
 #include "estimate/mean_motion_analysis.hpp"
 #include "estimate/report.hpp"
 #include "store/edition_store.hpp"
+#include "store/estimate_store.hpp"
 #include "support/input_error.hpp"
 
 namespace apograph::cli {
@@ -41,22 +41,28 @@ struct FitArgs {
 estimate::FitOptions Options(const FitArgs& a, const model::Model& m) {
   estimate::FitOptions o;
   auto r = model::RoundingFromString(a.rounding);
-  if (!r) throw InputError::ForOption("--rounding", ExpectedFound("nearest or truncate", a.rounding));
+  if (!r)
+    throw InputError::ForOption("--rounding", ExpectedFound("nearest or truncate", a.rounding));
   o.practice.rounding = *r;
   if (a.places >= 0) o.practice.places = a.places;
-  if (a.grid < 0) throw InputError::ForOption("--grid", ExpectedFound("a positive step", std::to_string(a.grid)));
+  if (a.grid < 0)
+    throw InputError::ForOption("--grid", ExpectedFound("a positive step", std::to_string(a.grid)));
   o.practice.grid = a.grid;
   o.practice.grid_origin = a.grid_origin;
   o.practice.round_nodes = a.round_nodes;
-  if (a.displacement == "fit") o.fit_displacement = true;
-  else if (!a.displacement.empty()) o.practice.displacement = ParseNumber("--displacement", a.displacement);
+  if (a.displacement == "fit")
+    o.fit_displacement = true;
+  else if (!a.displacement.empty())
+    o.practice.displacement = ParseNumber("--displacement", a.displacement);
   o.tolerance = a.tolerance;
   o.solver = a.solver == "ceres" ? estimate::Solver::kCeres : estimate::Solver::kFast;
   for (const auto& f : a.fixes) {
     const auto eq = f.find('=');
-    if (eq == std::string::npos || eq == 0) throw InputError::ForOption("--fix", ExpectedFound("NAME=VALUE", f));
+    if (eq == std::string::npos || eq == 0)
+      throw InputError::ForOption("--fix", ExpectedFound("NAME=VALUE", f));
     const std::string name = f.substr(0, eq);
-    if (m.ParamIndex(name) < 0) throw InputError::ForOption("--fix", ExpectedFound("a parameter of " + m.name(), name));
+    if (m.ParamIndex(name) < 0)
+      throw InputError::ForOption("--fix", ExpectedFound("a parameter of " + m.name(), name));
     o.fixed[name] = ParseNumber("--fix", f.substr(eq + 1));
   }
   return o;
@@ -68,20 +74,26 @@ int RunFit(const std::vector<std::string>& args, Io& io) {
   const Command& cmd = FindCommand("fit");
   FitArgs a;
   po::options_description opts("options");
-  opts.add_options()("table", po::value(&a.table)->required(), "table id")
-      ("witness", po::value(&a.witness)->required(), "siglum of the witness")
-      ("model", po::value(&a.model)->required(), "built-in model or saved formula (see apograph check --help)")
-      ("column", po::value(&a.columns), "value column (repeat to fit jointly; default: every column)")
-      ("fix", po::value(&a.fixes), "hold a parameter: NAME=VALUE (repeatable)")
-      ("rounding", po::value(&a.rounding)->default_value("nearest"), "nearest or truncate")
-      ("places", po::value(&a.places), "places the author computed to (default: the column's)")
-      ("grid", po::value(&a.grid), "interpolation grid in argument units")
-      ("grid-origin", po::value(&a.grid_origin), "first node of the grid (default 0)")
-      ("round-nodes", po::bool_switch(&a.round_nodes), "grid nodes were rounded before interpolating")
-      ("displacement", po::value(&a.displacement), "constant added to every entry, or 'fit' to estimate it")
-      ("tolerance", po::value(&a.tolerance)->default_value(1.0), "flag entries more than this many units away")
-      ("solver", po::value(&a.solver)->default_value("fast"), "fast or ceres (reference)")
-      ("all-entries", po::bool_switch(&a.all_entries), "text: list every entry, not only flagged ones");
+  opts.add_options()("table", po::value(&a.table)->required(), "table id")(
+      "witness", po::value(&a.witness)->required(), "siglum of the witness")(
+      "model", po::value(&a.model)->required(),
+      "built-in model or saved formula (see apograph check --help)")(
+      "column", po::value(&a.columns),
+      "value column (repeat to fit jointly; default: every column)")(
+      "fix", po::value(&a.fixes), "hold a parameter: NAME=VALUE (repeatable)")(
+      "rounding", po::value(&a.rounding)->default_value("nearest"), "nearest or truncate")(
+      "places", po::value(&a.places), "places the author computed to (default: the column's)")(
+      "grid", po::value(&a.grid), "interpolation grid in argument units")(
+      "grid-origin", po::value(&a.grid_origin), "first node of the grid (default 0)")(
+      "round-nodes", po::bool_switch(&a.round_nodes),
+      "grid nodes were rounded before interpolating")(
+      "displacement", po::value(&a.displacement),
+      "constant added to every entry, or 'fit' to estimate it")(
+      "tolerance", po::value(&a.tolerance)->default_value(1.0),
+      "flag entries more than this many units away")(
+      "solver", po::value(&a.solver)->default_value("fast"), "fast or ceres (reference)")(
+      "all-entries", po::bool_switch(&a.all_entries),
+      "text: list every entry, not only flagged ones");
   AddDbOption(opts, a.db);
   AddFormatOption(opts, a.format, {"text", "json"});
   po::variables_map vm;

@@ -39,24 +39,40 @@ std::string ParamText(const model::ParamSpec& p) {
 nlohmann::json ModelJson(const model::Model& m, const std::string& kind, const std::string& text) {
   nlohmann::json params = nlohmann::json::array();
   for (const auto& p : m.params()) {
-    params.push_back({{"name", p.name}, {"unit", p.unit}, {"description", p.description},
-                      {"default", p.default_value}, {"low", p.low}, {"high", p.high}});
+    params.push_back({{"name", p.name},
+                      {"unit", p.unit},
+                      {"description", p.description},
+                      {"default", p.default_value},
+                      {"low", p.low},
+                      {"high", p.high}});
   }
-  return {{"name", m.name()}, {"kind", kind}, {"description", kind == "builtin" ? m.description() : text},
-          {"convention", m.convention()}, {"params", params}};
+  return {{"name", m.name()},
+          {"kind", kind},
+          {"description", kind == "builtin" ? m.description() : text},
+          {"convention", m.convention()},
+          {"params", params}};
 }
 
 void CheckName(const std::string& name) {
   bool ok = !name.empty();
-  for (char c : name) ok = ok && (std::isalnum(static_cast<unsigned char>(c)) || c == '-' || c == '_' || c == '.');
-  if (!ok) throw InputError::ForOption("formula save", ExpectedFound("a name of letters, digits, '-', '_' or '.'", "'" + name + "'"));
+  for (char c : name)
+    ok = ok && (std::isalnum(static_cast<unsigned char>(c)) || c == '-' || c == '_' || c == '.');
+  if (!ok)
+    throw InputError::ForOption(
+        "formula save",
+        ExpectedFound("a name of letters, digits, '-', '_' or '.'", "'" + name + "'"));
   if (model::FindBuiltinModel(name)) {
-    throw InputError::ForOption("formula save", ExpectedFound("a name that is not a built-in model", "'" + name + "'"));
+    throw InputError::ForOption(
+        "formula save", ExpectedFound("a name that is not a built-in model", "'" + name + "'"));
   }
 }
 
-int Save(store::Database& db, const std::vector<std::string>& pos, const std::string& description, Io& io) {
-  if (pos.size() != 3) throw InputError::ForOption("formula save", ExpectedFound("NAME and 'TEXT'", std::to_string(pos.size() - 1) + " arguments"));
+int Save(store::Database& db, const std::vector<std::string>& pos, const std::string& description,
+         Io& io) {
+  if (pos.size() != 3)
+    throw InputError::ForOption(
+        "formula save",
+        ExpectedFound("NAME and 'TEXT'", std::to_string(pos.size() - 1) + " arguments"));
   CheckName(pos[1]);
   auto f = model::CompileFormula(pos[2], pos[1]);  // only valid formulas are saved
   store::SaveFormula(db, {pos[1], pos[2], description, ""});
@@ -83,14 +99,19 @@ int List(store::Database* db, bool builtin, Format format, Io& io) {
           f.description.empty() ? f.text : f.description);
     }
   }
-  if (format == Format::kJson) io.out << out.dump(2) << "\n";
-  else if (format == Format::kCsv) io.out << t.RenderCsv();
-  else io.out << t.RenderText();
+  if (format == Format::kJson)
+    io.out << out.dump(2) << "\n";
+  else if (format == Format::kCsv)
+    io.out << t.RenderCsv();
+  else
+    io.out << t.RenderText();
   return kOk;
 }
 
 int Show(store::Database* db, const std::vector<std::string>& pos, Format format, Io& io) {
-  if (pos.size() != 2) throw InputError::ForOption("formula show", ExpectedFound("NAME", std::to_string(pos.size() - 1) + " arguments"));
+  if (pos.size() != 2)
+    throw InputError::ForOption(
+        "formula show", ExpectedFound("NAME", std::to_string(pos.size() - 1) + " arguments"));
   std::unique_ptr<model::FormulaModel> holder;
   const model::Model* m = model::FindBuiltinModel(pos[1]);
   std::string kind = "builtin", text, description;
@@ -103,7 +124,9 @@ int Show(store::Database* db, const std::vector<std::string>& pos, Format format
       description = f->description;
     }
   }
-  if (!m) throw InputError::ForOption("formula show", ExpectedFound("a built-in model or a saved formula", "'" + pos[1] + "'"));
+  if (!m)
+    throw InputError::ForOption(
+        "formula show", ExpectedFound("a built-in model or a saved formula", "'" + pos[1] + "'"));
   if (format == Format::kJson) {
     auto j = ModelJson(*m, kind, text);
     if (kind == "formula") j["text"] = text, j["description"] = description;
@@ -135,14 +158,16 @@ int RunFormula(const std::vector<std::string>& args, Io& io) {
   po::variables_map vm;
   if (ParseOptions(FindCommand("formula"), args, d, vm, io, &positional)) return kOk;
   CheckChoice("--format", format, {"text", "csv", "json"});
-  if (pos.empty()) throw InputError::ForOption("apograph formula", ExpectedFound("save, list or show", "nothing"));
+  if (pos.empty())
+    throw InputError::ForOption("apograph formula", ExpectedFound("save, list or show", "nothing"));
   const bool have_db = std::filesystem::exists(db_path);
   std::unique_ptr<store::Database> db;
   if (pos[0] == "save" || have_db) db = std::make_unique<store::Database>(db_path);
   if (pos[0] == "save") return Save(*db, pos, description, io);
   if (pos[0] == "list") return List(db.get(), builtin, ParseFormat(format), io);
   if (pos[0] == "show") return Show(db.get(), pos, ParseFormat(format), io);
-  throw InputError::ForOption("apograph formula", ExpectedFound("save, list or show", "'" + pos[0] + "'"));
+  throw InputError::ForOption("apograph formula",
+                              ExpectedFound("save, list or show", "'" + pos[0] + "'"));
 }
 
 }  // namespace apograph::cli

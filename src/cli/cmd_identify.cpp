@@ -23,7 +23,8 @@ namespace apograph::cli {
 extern const char kIdentifyUsage[] =
     "usage: apograph identify --table ID --witness SIGLUM [--column NAME] [--top N]\n"
     "                         [--format text|json] [--db FILE]\n"
-    "       apograph identify --all [--top N] [--threads N] [--format text|csv|json] [--db FILE]\n\n"
+    "       apograph identify --all [--top N] [--threads N] [--format text|csv|json] [--db "
+    "FILE]\n\n"
     "Tries every applicable built-in model and saved formula with rounding and truncation,\n"
     "a displacement constant, and interpolation grids that fit the argument range (the best\n"
     "also with its nodes rounded first); a column whose last place is nearly always 0 is\n"
@@ -54,11 +55,13 @@ void Progress(Io& io, std::size_t done, std::size_t total) {
   const int width = 30;
   const int filled = total ? static_cast<int>(width * done / total) : width;
   io.err << "\ridentify [" << std::string(static_cast<std::size_t>(filled), '#')
-         << std::string(static_cast<std::size_t>(width - filled), '.') << "] " << done << "/" << total << std::flush;
+         << std::string(static_cast<std::size_t>(width - filled), '.') << "] " << done << "/"
+         << total << std::flush;
 }
 
 /// Runs every job on `threads` threads; progress on a terminal.
-void RunJobs(std::vector<Job>& jobs, const estimate::IdentifyOptions& options, unsigned threads, Io& io) {
+void RunJobs(std::vector<Job>& jobs, const estimate::IdentifyOptions& options, unsigned threads,
+             Io& io) {
   std::atomic<std::size_t> next{0}, done{0};
   auto worker = [&] {
     for (std::size_t i = next++; i < jobs.size(); i = next++) {
@@ -95,10 +98,12 @@ int RevisionOf(store::Database& db, const std::string& table, const std::string&
   return 1;
 }
 
-int PrintAll(const std::vector<Job>& jobs, const std::vector<estimate::CatalogEntry>& catalog, Format format, Io& io) {
+int PrintAll(const std::vector<Job>& jobs, const std::vector<estimate::CatalogEntry>& catalog,
+             Format format, Io& io) {
   if (format == Format::kJson) {
     nlohmann::json j = nlohmann::json::array();
-    for (const auto& job : jobs) j.push_back(estimate::IdentificationJson(job.result, job.table, catalog));
+    for (const auto& job : jobs)
+      j.push_back(estimate::IdentificationJson(job.result, job.table, catalog));
     io.out << j.dump(2) << "\n";
     return kOk;
   }
@@ -109,13 +114,14 @@ int PrintAll(const std::vector<Job>& jobs, const std::vector<estimate::CatalogEn
     const auto& r = job.result;
     const std::string col = job.table.columns[static_cast<std::size_t>(job.column)].name;
     if (r.ranked.empty()) {
-      tab.Add({job.table.table_id, job.table.witness.siglum, col, "-", "too few entries", "", "", ""});
+      tab.Add(
+          {job.table.table_id, job.table.witness.siglum, col, "-", "too few entries", "", "", ""});
       continue;
     }
     const auto& c = r.ranked[0];
     tab.Add({job.table.table_id, job.table.witness.siglum, col, c.model->name(), c.PracticeText(),
-             std::to_string(c.fit.exact) + "/" + std::to_string(c.fit.n), std::to_string(c.fit.flagged),
-             std::to_string(r.notes.size())});
+             std::to_string(c.fit.exact) + "/" + std::to_string(c.fit.n),
+             std::to_string(c.fit.flagged), std::to_string(r.notes.size())});
   }
   io.out << (format == Format::kCsv ? tab.RenderCsv() : tab.RenderText());
   return kOk;
@@ -129,23 +135,26 @@ int RunIdentify(const std::vector<std::string>& args, Io& io) {
   int top = 5;
   unsigned threads = std::max(1u, std::thread::hardware_concurrency());
   po::options_description opts("options");
-  opts.add_options()("table", po::value(&table), "table id")
-      ("witness", po::value(&witness), "siglum of the witness")
-      ("column", po::value(&column), "value column (default: every column)")
-      ("top", po::value(&top)->default_value(5), "how many explanations to list")
-      ("all", "every table and witness in the database")
-      ("threads", po::value(&threads), "threads for --all (default: the number of cores)");
+  opts.add_options()("table", po::value(&table), "table id")("witness", po::value(&witness),
+                                                             "siglum of the witness")(
+      "column", po::value(&column), "value column (default: every column)")(
+      "top", po::value(&top)->default_value(5), "how many explanations to list")(
+      "all", "every table and witness in the database")(
+      "threads", po::value(&threads), "threads for --all (default: the number of cores)");
   AddDbOption(opts, db);
   AddFormatOption(opts, format, {"text", "csv", "json"});
   po::variables_map vm;
   if (ParseOptions(cmd, args, opts, vm, io)) return kOk;
   CheckChoice("--format", format, {"text", "csv", "json"});
-  if (top < 1) throw InputError::ForOption("--top", ExpectedFound("a positive number", std::to_string(top)));
+  if (top < 1)
+    throw InputError::ForOption("--top", ExpectedFound("a positive number", std::to_string(top)));
   const bool all = vm.count("all") > 0;
   if (!all && (table.empty() || witness.empty())) {
-    throw InputError::ForOption("apograph identify", ExpectedFound("--table and --witness, or --all", "neither"));
+    throw InputError::ForOption("apograph identify",
+                                ExpectedFound("--table and --witness, or --all", "neither"));
   }
-  if (!all && format == "csv") throw InputError::ForOption("--format", ExpectedFound("text or json for one table", format));
+  if (!all && format == "csv")
+    throw InputError::ForOption("--format", ExpectedFound("text or json for one table", format));
   estimate::IdentifyOptions options;
   options.top = top;
   store::Database database = OpenEdition(db);
@@ -154,12 +163,14 @@ int RunIdentify(const std::vector<std::string>& args, Io& io) {
   for (const auto& f : formulas) options.extra_models.push_back(f.get());
   std::vector<Job> jobs;
   std::vector<store::RevisionSummary> which;
-  if (all) which = store::ListTranscriptions(database);
-  else which.push_back({table, witness, RevisionOf(database, table, witness)});
+  if (all)
+    which = store::ListTranscriptions(database);
+  else
+    which.push_back({table, witness, RevisionOf(database, table, witness)});
   for (const auto& r : which) {
     Transcription t = store::Load(database, r.table_id, r.siglum);
-    const std::vector<int> cols = estimate::ResolveColumns(t, all || column.empty() ? std::vector<std::string>{}
-                                                                                   : std::vector<std::string>{column});
+    const std::vector<int> cols = estimate::ResolveColumns(
+        t, all || column.empty() ? std::vector<std::string>{} : std::vector<std::string>{column});
     for (int c : cols) jobs.push_back({t, r.number, c, {}});
   }
   RunJobs(jobs, options, all ? std::max(1u, threads) : 1u, io);
@@ -167,7 +178,8 @@ int RunIdentify(const std::vector<std::string>& args, Io& io) {
   if (all) return PrintAll(jobs, catalog, ParseFormat(format), io);
   bool findings = false;
   // Columns made from other columns of the same table.
-  const auto derived = jobs.empty() ? std::vector<estimate::DerivedColumn>{} : estimate::DetectDerivedColumns(jobs[0].table);
+  const auto derived = jobs.empty() ? std::vector<estimate::DerivedColumn>{}
+                                    : estimate::DetectDerivedColumns(jobs[0].table);
   if (format == "json") {
     nlohmann::json j = nlohmann::json::array();
     for (const auto& job : jobs) {
@@ -176,14 +188,19 @@ int RunIdentify(const std::vector<std::string>& args, Io& io) {
       for (const auto& d : derived) {
         if (d.column != job.column) continue;
         one["derived"] = {{"source", job.table.columns[static_cast<std::size_t>(d.source)].name},
-                          {"relation", d.relation}, {"rows", d.rows}, {"matched_tabulated", d.matched_tabulated},
-                          {"matched_precise", d.matched_precise}, {"basis", d.basis}, {"evidence", d.evidence}};
+                          {"relation", d.relation},
+                          {"rows", d.rows},
+                          {"matched_tabulated", d.matched_tabulated},
+                          {"matched_precise", d.matched_precise},
+                          {"basis", d.basis},
+                          {"evidence", d.evidence}};
       }
       j.push_back(one);
     }
     io.out << (j.size() == 1 ? j[0] : j).dump(2) << "\n";
   } else {
-    for (const auto& job : jobs) io.out << estimate::IdentificationText(job.result, job.table, catalog) << "\n";
+    for (const auto& job : jobs)
+      io.out << estimate::IdentificationText(job.result, job.table, catalog) << "\n";
     for (const auto& d : derived) io.out << "derived column: " << d.evidence << "\n";
   }
   for (const auto& job : jobs) {

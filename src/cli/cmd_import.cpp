@@ -57,15 +57,17 @@ int ParsePlaces(const std::string& text, const std::string& whole) {
     used = 0;
   }
   if (used != text.size() || n < 0 || n > Sexagesimal::kMaxPlaces) {
-    throw InputError::ForOption("--places", ExpectedFound("N or COLUMN=N with N from 0 to 12",
-                                                          "'" + whole + "'"));
+    throw InputError::ForOption(
+        "--places", ExpectedFound("N or COLUMN=N with N from 0 to 12", "'" + whole + "'"));
   }
   return n;
 }
 
 CsvOptions MakeCsvOptions(const ImportOptions& o) {
-  if (o.table.empty()) throw InputError::ForOption("--table", "expected the table id of the CSV sheet, found none");
-  if (o.witness.empty()) throw InputError::ForOption("--witness", "expected the siglum of the CSV sheet, found none");
+  if (o.table.empty())
+    throw InputError::ForOption("--table", "expected the table id of the CSV sheet, found none");
+  if (o.witness.empty())
+    throw InputError::ForOption("--witness", "expected the siglum of the CSV sheet, found none");
   CsvOptions c;
   c.table_id = o.table;
   c.siglum = o.witness;
@@ -96,10 +98,13 @@ TranscriptionFile ReadAll(const ImportOptions& o) {
     take(ReadCsvFile(o.csv, MakeCsvOptions(o)));
   } else if (!o.table.empty() || !o.witness.empty() || !o.places.empty() || !o.work.empty() ||
              !o.script.empty()) {
-    throw InputError::ForOption("--csv", "expected a CSV file for --table/--witness/--work/--script/--places, found none");
+    throw InputError::ForOption(
+        "--csv", "expected a CSV file for --table/--witness/--work/--script/--places, found none");
   }
   if (all.tables.empty()) {
-    throw InputError::ForOption("apograph import", "expected at least one FILE or --csv FILE, found none (see apograph import --help)");
+    throw InputError::ForOption(
+        "apograph import",
+        "expected at least one FILE or --csv FILE, found none (see apograph import --help)");
   }
   return all;
 }
@@ -110,14 +115,20 @@ void PrintJson(const ImportOptions& o, const TranscriptionFile& input,
   j["database"] = o.db;
   j["tables"] = nlohmann::ordered_json::array();
   for (const auto& t : result.tables) {
-    j["tables"].push_back({{"file", t.source_file}, {"table", t.table_id}, {"siglum", t.siglum},
+    j["tables"].push_back({{"file", t.source_file},
+                           {"table", t.table_id},
+                           {"siglum", t.siglum},
                            {"status", t.changed ? "new revision" : "unchanged"},
-                           {"revision", t.revision}, {"rows", t.rows}, {"cells", t.cells}});
+                           {"revision", t.revision},
+                           {"rows", t.rows},
+                           {"cells", t.cells}});
   }
   j["warnings"] = nlohmann::ordered_json::array();
   for (const auto& w : input.warnings) {
-    j["warnings"].push_back({{"file", w.where.file}, {"line", w.where.line},
-                             {"column", w.where.column}, {"message", w.message}});
+    j["warnings"].push_back({{"file", w.where.file},
+                             {"line", w.where.line},
+                             {"column", w.where.column},
+                             {"message", w.message}});
   }
   j["cells_written"] = result.cells_written;
   io.out << j.dump(2) << "\n";
@@ -138,9 +149,9 @@ void PrintTable(const ImportOptions& o, const store::ImportResult& result, Forma
     return;
   }
   io.out << tab.RenderText() << "\n"
-         << result.tables.size() << " table(s) into " << o.db << ": " << fresh << " new revision(s), "
-         << result.tables.size() - fresh << " unchanged, " << result.cells_written
-         << " cells written (argument cells included)\n";
+         << result.tables.size() << " table(s) into " << o.db << ": " << fresh
+         << " new revision(s), " << result.tables.size() - fresh << " unchanged, "
+         << result.cells_written << " cells written (argument cells included)\n";
 }
 
 }  // namespace
@@ -150,14 +161,14 @@ int RunImport(const std::vector<std::string>& args, Io& io) {
   po::options_description options("options");
   AddDbOption(options, o.db);
   AddFormatOption(options, o.format, {"text", "csv", "json"});
-  options.add_options()
-      ("file", po::value(&o.files)->composing(), "transcription file(s) (also positional)")
-      ("csv", po::value(&o.csv), "a CSV sheet holding one witness's table")
-      ("table", po::value(&o.table), "CSV: the table id")
-      ("witness", po::value(&o.witness), "CSV: the witness's siglum")
-      ("work", po::value(&o.work), "CSV: the work id (default: the table id)")
-      ("script", po::value(&o.script), "CSV: the witness's numeral script")
-      ("places", po::value(&o.places)->composing(), "CSV: N (every value column) or COLUMN=N");
+  options.add_options()("file", po::value(&o.files)->composing(),
+                        "transcription file(s) (also positional)")(
+      "csv", po::value(&o.csv), "a CSV sheet holding one witness's table")(
+      "table", po::value(&o.table), "CSV: the table id")("witness", po::value(&o.witness),
+                                                         "CSV: the witness's siglum")(
+      "work", po::value(&o.work), "CSV: the work id (default: the table id)")(
+      "script", po::value(&o.script), "CSV: the witness's numeral script")(
+      "places", po::value(&o.places)->composing(), "CSV: N (every value column) or COLUMN=N");
   po::positional_options_description positional;
   positional.add("file", -1);
   po::variables_map vm;

@@ -45,8 +45,12 @@ Listing Works(store::Database& db) {
   l.tab.right_aligned = {false, false, false, true, true, true};
   for (const auto& w : store::ListWorks(db)) {
     l.tab.Add({w.work.id, w.work.title, w.work.author, N(w.tables), N(w.witnesses), N(w.cells)});
-    l.items.push_back({{"work", w.work.id}, {"title", w.work.title}, {"author", w.work.author},
-                       {"tables", w.tables}, {"witnesses", w.witnesses}, {"cells", w.cells}});
+    l.items.push_back({{"work", w.work.id},
+                       {"title", w.work.title},
+                       {"author", w.work.author},
+                       {"tables", w.tables},
+                       {"witnesses", w.witnesses},
+                       {"cells", w.cells}});
   }
   return l;
 }
@@ -57,8 +61,12 @@ Listing Tables(store::Database& db, const Opt& work) {
   l.tab.right_aligned = {false, false, false, false, true, true};
   for (const auto& t : store::ListTables(db, work)) {
     l.tab.Add({t.id, t.work_id, t.title, t.kind, N(t.witnesses), N(t.cells)});
-    l.items.push_back({{"table", t.id}, {"work", t.work_id}, {"title", t.title}, {"kind", t.kind},
-                       {"witnesses", t.witnesses}, {"cells", t.cells}});
+    l.items.push_back({{"table", t.id},
+                       {"work", t.work_id},
+                       {"title", t.title},
+                       {"kind", t.kind},
+                       {"witnesses", t.witnesses},
+                       {"cells", t.cells}});
   }
   return l;
 }
@@ -70,23 +78,34 @@ Listing Witnesses(store::Database& db, const Opt& table) {
   for (const auto& s : store::ListWitnesses(db, table)) {
     const auto& w = s.witness;
     l.tab.Add({w.siglum, w.library, w.shelfmark, w.date, w.script, N(s.tables), N(s.cells)});
-    l.items.push_back({{"siglum", w.siglum}, {"library", w.library}, {"shelfmark", w.shelfmark},
-                       {"date", w.date}, {"script", w.script}, {"tables", s.tables}, {"cells", s.cells}});
+    l.items.push_back({{"siglum", w.siglum},
+                       {"library", w.library},
+                       {"shelfmark", w.shelfmark},
+                       {"date", w.date},
+                       {"script", w.script},
+                       {"tables", s.tables},
+                       {"cells", s.cells}});
   }
   return l;
 }
 
 Listing Revisions(const std::vector<store::RevisionSummary>& list, const Opt& witness) {
   Listing l;
-  l.tab.headers = {"table", "witness", "revision", "revisions", "rows", "cells", "imported", "file"};
+  l.tab.headers = {"table", "witness", "revision", "revisions",
+                   "rows",  "cells",   "imported", "file"};
   l.tab.right_aligned = {false, false, true, true, true, true, false, false};
   for (const auto& r : list) {
     if (witness && r.siglum != *witness) continue;
     l.tab.Add({r.table_id, r.siglum, N(r.number), N(r.revisions), N(r.rows), N(r.cells),
                r.imported_at, r.source_file});
-    l.items.push_back({{"table", r.table_id}, {"siglum", r.siglum}, {"revision", r.number},
-                       {"revisions", r.revisions}, {"rows", r.rows}, {"cells", r.cells},
-                       {"imported_at", r.imported_at}, {"source_file", r.source_file}});
+    l.items.push_back({{"table", r.table_id},
+                       {"siglum", r.siglum},
+                       {"revision", r.number},
+                       {"revisions", r.revisions},
+                       {"rows", r.rows},
+                       {"cells", r.cells},
+                       {"imported_at", r.imported_at},
+                       {"source_file", r.source_file}});
   }
   return l;
 }
@@ -99,14 +118,15 @@ Opt Given(const po::variables_map& vm, const char* name) {
 
 int RunList(const std::vector<std::string>& args, Io& io) {
   std::string db_path, format, what;
-  const std::vector<std::string> kinds = {"works", "tables", "witnesses", "transcriptions", "revisions"};
+  const std::vector<std::string> kinds = {"works", "tables", "witnesses", "transcriptions",
+                                          "revisions"};
   po::options_description options("options");
   AddDbOption(options, db_path);
-  options.add_options()
-      ("what", po::value(&what)->default_value("tables"), "works|tables|witnesses|transcriptions|revisions")
-      ("work", po::value<std::string>(), "tables: only those of this work")
-      ("table", po::value<std::string>(), "witnesses, transcriptions, revisions: only this table")
-      ("witness", po::value<std::string>(), "transcriptions, revisions: only this witness");
+  options.add_options()("what", po::value(&what)->default_value("tables"),
+                        "works|tables|witnesses|transcriptions|revisions")(
+      "work", po::value<std::string>(), "tables: only those of this work")(
+      "table", po::value<std::string>(), "witnesses, transcriptions, revisions: only this table")(
+      "witness", po::value<std::string>(), "transcriptions, revisions: only this witness");
   AddFormatOption(options, format, {"text", "csv", "json"});
   po::positional_options_description positional;
   positional.add("what", 1);
@@ -119,11 +139,16 @@ int RunList(const std::vector<std::string>& args, Io& io) {
   Listing l = what == "works"       ? Works(db)
               : what == "tables"    ? Tables(db, Given(vm, "work"))
               : what == "witnesses" ? Witnesses(db, table)
-              : what == "revisions" ? Revisions(store::ListRevisions(db, table, Given(vm, "witness")), {})
-                                    : Revisions(store::ListTranscriptions(db, table), Given(vm, "witness"));
+              : what == "revisions"
+                  ? Revisions(store::ListRevisions(db, table, Given(vm, "witness")), {})
+                  : Revisions(store::ListTranscriptions(db, table), Given(vm, "witness"));
   switch (ParseFormat(format)) {
-    case Format::kJson: io.out << json{{what, l.items}}.dump(2) << "\n"; break;
-    case Format::kCsv: io.out << l.tab.RenderCsv(); break;
+    case Format::kJson:
+      io.out << json{{what, l.items}}.dump(2) << "\n";
+      break;
+    case Format::kCsv:
+      io.out << l.tab.RenderCsv();
+      break;
     case Format::kText:
       io.out << (l.tab.rows.empty() ? "(none)\n" : l.tab.RenderText());
       break;

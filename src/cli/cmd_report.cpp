@@ -32,17 +32,17 @@ int RunReport(const std::vector<std::string>& args, Io& io) {
   std::string table, work, output, db_path;
   std::size_t findings = 0;
   po::options_description options("options");
-  options.add_options()
-      ("table", po::value(&table), "the table to report on")
-      ("work", po::value(&work), "report on every table of this work")
-      ("findings", po::value(&findings)->default_value(0), "deviations shown per witness (0: all)")
-      ("output", po::value(&output), "folder for the files (created if missing)");
+  options.add_options()("table", po::value(&table), "the table to report on")(
+      "work", po::value(&work), "report on every table of this work")(
+      "findings", po::value(&findings)->default_value(0), "deviations shown per witness (0: all)")(
+      "output", po::value(&output), "folder for the files (created if missing)");
   AddDbOption(options, db_path);
   po::variables_map vm;
   if (ParseOptions(FindCommand("report"), args, options, vm, io)) return kOk;
   if (table.empty() == work.empty()) {
-    throw InputError::ForOption("apograph report", "expected one of --table or --work, found " +
-                                                       std::string(table.empty() ? "neither" : "both"));
+    throw InputError::ForOption("apograph report",
+                                "expected one of --table or --work, found " +
+                                    std::string(table.empty() ? "neither" : "both"));
   }
   store::Database db = OpenEdition(db_path);
   ReportRequest request;
@@ -53,7 +53,8 @@ int RunReport(const std::vector<std::string>& args, Io& io) {
     ReportTable(db, table, request, io);
   } else {
     if (store::TablesOfWork(db, work).empty()) {
-      throw InputError::ForOption("--work", ExpectedFound("a work in the database", "'" + work + "'"));
+      throw InputError::ForOption("--work",
+                                  ExpectedFound("a work in the database", "'" + work + "'"));
     }
     WriteWorkReports(db, work, request, io);
   }

@@ -18,7 +18,8 @@ extern const char kStemmaUsage[] =
     "usage: apograph stemma (--table ID | --work ID) [--method nj|parsimony|both] [--bootstrap N]\n"
     "                       [--seed N] [--format text|newick|dot|json] [--svg FILE]\n"
     "                       [--witnesses A,B,...] [--db FILE]\n"
-    "                       [(--model NAME | --formula TEXT) [--param N=V]... [practice options] | --auto]\n\n"
+    "                       [(--model NAME | --formula TEXT) [--param N=V]... [practice options] | "
+    "--auto]\n\n"
     "Works out the stemma from the errors the witnesses share (shared right readings\n"
     "do not count; distinctive errors weigh more than common slips), rooted at the\n"
     "archetype. Parsimony is exact (branch-and-bound) up to 12 witnesses and a\n"
@@ -33,31 +34,38 @@ extern const char kStemmaUsage[] =
 
 namespace {
 
-lineage::CharacterMatrix Characters(store::Database& db, const std::string& table, const std::string& work,
-                                    CollateRequest request) {
+lineage::CharacterMatrix Characters(store::Database& db, const std::string& table,
+                                    const std::string& work, CollateRequest request) {
   if (!table.empty()) {
     request.table = table;
     return lineage::BuildErrorCharacters(CollateFromDb(db, request));
   }
   if (!request.reference.Empty() && !request.reference.automatic) {
-    throw InputError::ForOption("--model", "expected --table with a model (a work's tables differ; --auto identifies "
-                                           "each table's own), found --work");
+    throw InputError::ForOption(
+        "--model",
+        "expected --table with a model (a work's tables differ; --auto identifies "
+        "each table's own), found --work");
   }
   std::vector<lineage::CharacterMatrix> parts;
   for (const auto& t : store::TablesOfWork(db, work)) {
     request.table = t;
-    if (!store::Sigla(db, t).empty()) parts.push_back(lineage::BuildErrorCharacters(CollateFromDb(db, request)));
+    if (!store::Sigla(db, t).empty())
+      parts.push_back(lineage::BuildErrorCharacters(CollateFromDb(db, request)));
   }
-  if (parts.empty()) throw InputError::ForOption("--work", ExpectedFound("a work with transcribed tables", "'" + work + "'"));
+  if (parts.empty())
+    throw InputError::ForOption("--work",
+                                ExpectedFound("a work with transcribed tables", "'" + work + "'"));
   return lineage::MergeMatrices(parts);
 }
 
 void PrintText(const lineage::LineageReport& r, std::ostream& out) {
   out << r.witnesses.size() << " witnesses, " << r.characters << " error characters";
-  if (r.undetermined_cells) out << " (" << r.undetermined_cells << " cells without a majority left out)";
+  if (r.undetermined_cells)
+    out << " (" << r.undetermined_cells << " cells without a majority left out)";
   out << "\n";
   for (const auto& res : r.results) {
-    out << "\nstemma by " << (res.method == lineage::Method::kParsimony ? "maximum parsimony" : "neighbour joining");
+    out << "\nstemma by "
+        << (res.method == lineage::Method::kParsimony ? "maximum parsimony" : "neighbour joining");
     if (res.parsimony) {
       out << " (" << res.parsimony->search << (res.parsimony->exact ? ", exact" : "") << "; length "
           << res.parsimony->length << ")";
@@ -84,10 +92,12 @@ int RunStemma(const std::vector<std::string>& args, Io& io) {
   CollateRequest request;
   std::string table, work, method, format, db_path, svg;
   lineage::LineageOptions lo;
-  options.add_options()("table", po::value(&table), "table id")("work", po::value(&work), "work id (all its tables)")(
+  options.add_options()("table", po::value(&table), "table id")("work", po::value(&work),
+                                                                "work id (all its tables)")(
       "method", po::value(&method)->default_value("parsimony"), "nj|parsimony|both")(
-      "bootstrap", po::value(&lo.bootstrap)->default_value(0), "bootstrap replicates (rows resampled)")(
-      "seed", po::value(&lo.seed)->default_value(1), "random seed of the bootstrap and the heuristic")(
+      "bootstrap", po::value(&lo.bootstrap)->default_value(0),
+      "bootstrap replicates (rows resampled)")("seed", po::value(&lo.seed)->default_value(1),
+                                               "random seed of the bootstrap and the heuristic")(
       "svg", po::value(&svg), "render the stemma with Graphviz into this SVG file");
   AddCollateOptions(options, request);
   AddFormatOption(options, format, {"text", "newick", "dot", "json"});
@@ -97,11 +107,15 @@ int RunStemma(const std::vector<std::string>& args, Io& io) {
   FinishCollateRequest(request, vm);
   CheckChoice("--format", format, {"text", "newick", "dot", "json"});
   CheckChoice("--method", method, {"nj", "parsimony", "both"});
-  if (table.empty() == work.empty()) throw InputError::ForOption("stemma", "expected one of --table or --work, found " +
-                                                                    std::string(table.empty() ? "neither" : "both"));
-  if (lo.bootstrap < 0) throw InputError::ForOption("--bootstrap", ExpectedFound("a count of 0 or more", std::to_string(lo.bootstrap)));
+  if (table.empty() == work.empty())
+    throw InputError::ForOption("stemma", "expected one of --table or --work, found " +
+                                              std::string(table.empty() ? "neither" : "both"));
+  if (lo.bootstrap < 0)
+    throw InputError::ForOption(
+        "--bootstrap", ExpectedFound("a count of 0 or more", std::to_string(lo.bootstrap)));
   if (method == "nj") lo.methods = {lineage::Method::kNeighbourJoining};
-  if (method == "both") lo.methods = {lineage::Method::kParsimony, lineage::Method::kNeighbourJoining};
+  if (method == "both")
+    lo.methods = {lineage::Method::kParsimony, lineage::Method::kNeighbourJoining};
   store::Database db = OpenEdition(db_path);
   const auto report = lineage::AnalyseLineage(Characters(db, table, work, request), lo);
   const std::string title = table.empty() ? "work " + work : "table " + table;
@@ -110,12 +124,14 @@ int RunStemma(const std::vector<std::string>& args, Io& io) {
   } else if (format == "newick") {
     for (const auto& res : report.results) io.out << lineage::ToNewick(res.stemma) << "\n";
   } else if (format == "dot") {
-    for (const auto& res : report.results) io.out << lineage::ToDot(res.stemma, title + " (" + lineage::ToString(res.method) + ")");
+    for (const auto& res : report.results)
+      io.out << lineage::ToDot(res.stemma, title + " (" + lineage::ToString(res.method) + ")");
   } else {
     PrintText(report, io.out);
   }
   if (!svg.empty() && !RenderSvg(lineage::ToDot(report.results.front().stemma, title), svg)) {
-    throw InputError::ForOption("--svg", "expected Graphviz 'dot' on PATH to render SVG, found none");
+    throw InputError::ForOption("--svg",
+                                "expected Graphviz 'dot' on PATH to render SVG, found none");
   }
   return report.copies.empty() && report.contamination.empty() ? kOk : kFindings;
 }

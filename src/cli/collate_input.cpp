@@ -21,7 +21,8 @@ std::vector<std::string> Split(const std::string& text, char sep) {
 }
 
 /// Each witness's findings against the references become the judgements.
-collate::CollateOptions JudgedOptions(store::Database& db, const std::vector<Transcription>& witnesses,
+collate::CollateOptions JudgedOptions(store::Database& db,
+                                      const std::vector<Transcription>& witnesses,
                                       const CollateRequest& r) {
   pipeline::ReferenceRequest request = r.reference;
   if (!r.column.empty()) request.columns = {r.column};
@@ -37,35 +38,42 @@ collate::CollateOptions JudgedOptions(store::Database& db, const std::vector<Tra
 }  // namespace
 
 void AddCollateOptions(po::options_description& o, CollateRequest& r) {
-  o.add_options()("witnesses", po::value(&r.witnesses), "only these witnesses (comma-separated sigla)")(
+  o.add_options()("witnesses", po::value(&r.witnesses),
+                  "only these witnesses (comma-separated sigla)")(
       "column", po::value(&r.column), "the column the model computes (default: every column)")(
       "tolerance", po::value(&r.tolerance)->default_value(1),
-      "units of the last place a reading may lie from the recomputed value (cells without a judgement)")(
-      "scripts", po::value(&r.scripts)->default_value(deviation::DefaultScriptDir()), "folder of numeral scripts");
-  AddReferenceOptions(o, r.reference_args,
-                      "identify each column's model, parameters and practice from the witnesses, and judge by it");
+      "units of the last place a reading may lie from the recomputed value (cells without a "
+      "judgement)")("scripts", po::value(&r.scripts)->default_value(deviation::DefaultScriptDir()),
+                    "folder of numeral scripts");
+  AddReferenceOptions(
+      o, r.reference_args,
+      "identify each column's model, parameters and practice from the witnesses, and judge by it");
 }
 
 void FinishCollateRequest(CollateRequest& r, const po::variables_map& vm) {
   r.reference = ToReferenceRequest(r.reference_args, vm);
   if (r.reference.Empty() && !r.reference_args.params.empty()) {
-    throw InputError::ForOption("--param", "expected --model or --formula with --param, found neither");
+    throw InputError::ForOption("--param",
+                                "expected --model or --formula with --param, found neither");
   }
 }
 
 collate::Collation CollateFromDb(store::Database& db, const CollateRequest& r) {
   auto all = store::LoadTable(db, r.table);
   if (all.empty()) {
-    throw InputError::ForOption("--table", ExpectedFound("a table with transcriptions", "'" + r.table + "'"));
+    throw InputError::ForOption("--table",
+                                ExpectedFound("a table with transcriptions", "'" + r.table + "'"));
   }
   std::vector<Transcription> chosen;
   if (r.witnesses.empty()) {
     chosen = std::move(all);
   } else {
     for (const auto& s : Split(r.witnesses, ',')) {
-      auto it = std::find_if(all.begin(), all.end(), [&](const Transcription& t) { return t.witness.siglum == s; });
+      auto it = std::find_if(all.begin(), all.end(),
+                             [&](const Transcription& t) { return t.witness.siglum == s; });
       if (it == all.end()) {
-        throw InputError::ForOption("--witnesses", ExpectedFound("a witness of table " + r.table, "'" + s + "'"));
+        throw InputError::ForOption("--witnesses",
+                                    ExpectedFound("a witness of table " + r.table, "'" + s + "'"));
       }
       chosen.push_back(*it);
     }

@@ -20,7 +20,7 @@ struct CollateRequest {
   std::string witnesses;  ///< comma-separated sigla; empty: all
   std::string column;     ///< the column the model computes; empty: every column
   double tolerance = 1;
-  std::string scripts;    ///< numeral scripts folder
+  std::string scripts;  ///< numeral scripts folder
   ReferenceArgs reference_args;
   /// Filled by FinishCollateRequest; Empty(): majority basis.
   pipeline::ReferenceRequest reference;

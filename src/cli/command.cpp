@@ -42,13 +42,15 @@ bool ParseOptions(const Command& command, const std::vector<std::string>& args,
     po::store(parser.run(), vm);
     if (vm.count("help")) {
       io.out << "apograph " << command.name << ": " << command.summary << "\n\n"
-             << command.usage << "\n\n" << options << "\n";
+             << command.usage << "\n\n"
+             << options << "\n";
       return true;
     }
     po::notify(vm);
   } catch (const po::error& e) {
-    throw InputError::ForOption(std::string("apograph ") + command.name,
-                                std::string(e.what()) + " (see apograph " + command.name + " --help)");
+    throw InputError::ForOption(
+        std::string("apograph ") + command.name,
+        std::string(e.what()) + " (see apograph " + command.name + " --help)");
   }
   return false;
 }
@@ -78,8 +80,9 @@ void CheckChoice(const std::string& option, const std::string& value,
 
 store::Database OpenEdition(const std::string& path) {
   if (!std::filesystem::is_regular_file(path)) {
-    throw InputError::ForOption("--db", ExpectedFound("an edition database", "no file '" + path + "'") +
-                                            " (create one with apograph init or apograph import)");
+    throw InputError::ForOption("--db",
+                                ExpectedFound("an edition database", "no file '" + path + "'") +
+                                    " (create one with apograph init or apograph import)");
   }
   return store::Database(path);
 }

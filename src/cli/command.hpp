@@ -16,10 +16,10 @@ namespace apograph::cli {
 
 /// Exit codes (listed in the README).
 enum ExitCode : int {
-  kOk = 0,           ///< success, nothing to look at
-  kFindings = 1,     ///< success, with findings the editor should look at
-  kBadInput = 2,     ///< bad input or usage; nothing was written
-  kInternal = 3,     ///< database or internal failure; nothing was written
+  kOk = 0,        ///< success, nothing to look at
+  kFindings = 1,  ///< success, with findings the editor should look at
+  kBadInput = 2,  ///< bad input or usage; nothing was written
+  kInternal = 3,  ///< database or internal failure; nothing was written
 };
 
 /// Output format of tabular results.

@@ -15,9 +15,9 @@ double ParseNumber(const std::string& option, const std::string& text) {
   char* end = nullptr;
   const double d = std::strtod(text.c_str(), &end);
   if (!text.empty() && end && *end == '\0' && std::isfinite(d)) return d;
-  throw InputError::ForOption(option, ExpectedFound("a number such as 2;4,48 or 2.08", "'" + text + "'"));
+  throw InputError::ForOption(option,
+                              ExpectedFound("a number such as 2;4,48 or 2.08", "'" + text + "'"));
 }
-
 
 const model::Model& FindModelOrThrow(const std::string& name, store::Database& db,
                                      std::unique_ptr<model::Model>& holder) {
@@ -29,7 +29,8 @@ const model::Model& FindModelOrThrow(const std::string& name, store::Database& d
   std::string known;
   for (const auto* m : model::BuiltinModels()) known += (known.empty() ? "" : ", ") + m->name();
   for (const auto& f : store::ListFormulas(db)) known += ", " + f.name;
-  throw InputError::ForOption("--model", ExpectedFound("a model or saved formula (" + known + ")", name));
+  throw InputError::ForOption("--model",
+                              ExpectedFound("a model or saved formula (" + known + ")", name));
 }
 
 std::vector<std::unique_ptr<model::Model>> SavedFormulaModels(store::Database& db) {

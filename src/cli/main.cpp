@@ -7,7 +7,8 @@
 
 int main(int argc, char** argv) {
   std::ios::sync_with_stdio(false);
-  apograph::cli::Io io{std::cout, std::cerr, isatty(STDOUT_FILENO) != 0, isatty(STDERR_FILENO) != 0};
+  apograph::cli::Io io{std::cout, std::cerr, isatty(STDOUT_FILENO) != 0,
+                       isatty(STDERR_FILENO) != 0};
   const int code = apograph::cli::Dispatch(std::vector<std::string>(argv + 1, argv + argc), io);
   std::cout.flush();
   return code;

@@ -5,17 +5,21 @@
 
 namespace apograph::cli {
 
-void AddReferenceOptions(po::options_description& d, ReferenceArgs& a, const std::string& auto_help) {
-  d.add_options()
-      ("model", po::value(&a.model), "built-in model or saved formula")
-      ("formula", po::value(&a.formula), "an ad-hoc formula (grammar/formula.ebnf)")
-      ("param", po::value(&a.params)->composing(), "parameter NAME=VALUE (repeatable; 2;16 or 2.2667)")
-      ("rounding", po::value(&a.rounding)->default_value("nearest"), "the author's rounding: nearest|truncate")
-      ("places", po::value(&a.places), "places the author computed to (default: the column's)")
-      ("grid", po::value(&a.grid)->default_value("0"), "interpolation grid in argument units (0: none)")
-      ("grid-origin", po::value(&a.grid_origin)->default_value("0"), "argument of the first node")
-      ("round-nodes", po::bool_switch(&a.round_nodes), "round the node values before interpolating")
-      ("displacement", po::value(&a.displacement)->default_value("0"), "constant added before rounding");
+void AddReferenceOptions(po::options_description& d, ReferenceArgs& a,
+                         const std::string& auto_help) {
+  d.add_options()("model", po::value(&a.model), "built-in model or saved formula")(
+      "formula", po::value(&a.formula), "an ad-hoc formula (grammar/formula.ebnf)")(
+      "param", po::value(&a.params)->composing(),
+      "parameter NAME=VALUE (repeatable; 2;16 or 2.2667)")(
+      "rounding", po::value(&a.rounding)->default_value("nearest"),
+      "the author's rounding: nearest|truncate")(
+      "places", po::value(&a.places), "places the author computed to (default: the column's)")(
+      "grid", po::value(&a.grid)->default_value("0"),
+      "interpolation grid in argument units (0: none)")(
+      "grid-origin", po::value(&a.grid_origin)->default_value("0"), "argument of the first node")(
+      "round-nodes", po::bool_switch(&a.round_nodes), "round the node values before interpolating")(
+      "displacement", po::value(&a.displacement)->default_value("0"),
+      "constant added before rounding");
   if (!auto_help.empty()) d.add_options()("auto", po::bool_switch(&a.automatic), auto_help.c_str());
 }
 
@@ -24,21 +28,27 @@ std::vector<std::pair<std::string, double>> ParseParams(const std::vector<std::s
   for (const auto& item : items) {
     const auto eq = item.find('=');
     if (eq == std::string::npos || eq == 0) {
-      throw InputError::ForOption("--param", ExpectedFound("NAME=VALUE (e.g. e=2;30 or e=2.5)", "'" + item + "'"));
+      throw InputError::ForOption(
+          "--param", ExpectedFound("NAME=VALUE (e.g. e=2;30 or e=2.5)", "'" + item + "'"));
     }
-    out.emplace_back(item.substr(0, eq), ParseNumber("--param " + item.substr(0, eq), item.substr(eq + 1)));
+    out.emplace_back(item.substr(0, eq),
+                     ParseNumber("--param " + item.substr(0, eq), item.substr(eq + 1)));
   }
   return out;
 }
 
 namespace {
 
-bool Given(const po::variables_map& vm, const char* name) { return vm.count(name) && !vm[name].defaulted(); }
+bool Given(const po::variables_map& vm, const char* name) {
+  return vm.count(name) && !vm[name].defaulted();
+}
 
 model::Practice ParsePractice(const ReferenceArgs& a) {
   model::Practice p;
   auto rounding = model::RoundingFromString(a.rounding);
-  if (!rounding) throw InputError::ForOption("--rounding", ExpectedFound("nearest or truncate", "'" + a.rounding + "'"));
+  if (!rounding)
+    throw InputError::ForOption("--rounding",
+                                ExpectedFound("nearest or truncate", "'" + a.rounding + "'"));
   p.rounding = *rounding;
   if (a.places >= 0) {
     if (a.places > Sexagesimal::kMaxPlaces) {
@@ -47,7 +57,8 @@ model::Practice ParsePractice(const ReferenceArgs& a) {
     p.places = a.places;
   }
   p.grid = ParseNumber("--grid", a.grid);
-  if (p.grid < 0) throw InputError::ForOption("--grid", ExpectedFound("a grid of 0 or more", "'" + a.grid + "'"));
+  if (p.grid < 0)
+    throw InputError::ForOption("--grid", ExpectedFound("a grid of 0 or more", "'" + a.grid + "'"));
   p.grid_origin = ParseNumber("--grid-origin", a.grid_origin);
   p.round_nodes = a.round_nodes;
   p.displacement = ParseNumber("--displacement", a.displacement);
@@ -66,11 +77,14 @@ pipeline::ReferenceRequest ToReferenceRequest(const ReferenceArgs& a, const po::
   r.params = ParseParams(a.params);
   r.practice = ParsePractice(a);
   r.automatic = a.automatic;
-  for (const char* o : {"rounding", "places", "grid", "grid-origin", "round-nodes", "displacement"}) {
-    if (Given(vm, o) && !(std::string(o) == "round-nodes" && !a.round_nodes)) r.practice_given = true;
+  for (const char* o :
+       {"rounding", "places", "grid", "grid-origin", "round-nodes", "displacement"}) {
+    if (Given(vm, o) && !(std::string(o) == "round-nodes" && !a.round_nodes))
+      r.practice_given = true;
   }
   if (r.automatic && !r.params.empty()) {
-    throw InputError::ForOption("--param", "expected no --param with --auto (the parameters are estimated)");
+    throw InputError::ForOption("--param",
+                                "expected no --param with --auto (the parameters are estimated)");
   }
   return r;
 }

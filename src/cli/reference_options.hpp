@@ -24,7 +24,8 @@ struct ReferenceArgs {
 };
 
 /// Adds the options; --auto only when `auto_help` is not empty (its help text).
-void AddReferenceOptions(po::options_description& options, ReferenceArgs& args, const std::string& auto_help = "");
+void AddReferenceOptions(po::options_description& options, ReferenceArgs& args,
+                         const std::string& auto_help = "");
 
 /// NAME=VALUE items; values in the trade's notation or decimal. InputError
 /// naming `--param` (or `--param NAME` for a bad value).
@@ -32,6 +33,7 @@ std::vector<std::pair<std::string, double>> ParseParams(const std::vector<std::s
 
 /// Checks the options and turns them into a request (nothing is resolved
 /// yet). `vm` tells which practice options the editor gave.
-pipeline::ReferenceRequest ToReferenceRequest(const ReferenceArgs& args, const po::variables_map& vm);
+pipeline::ReferenceRequest ToReferenceRequest(const ReferenceArgs& args,
+                                              const po::variables_map& vm);
 
 }  // namespace apograph::cli

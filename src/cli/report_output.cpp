@@ -42,7 +42,8 @@ void WriteStemma(const fs::path& dir, const std::string& stem, const std::string
   RenderSvg(dot, (dir / (stem + ".svg")).string());
 }
 
-void WriteTableFiles(const fs::path& dir, const pipeline::TableAnalysis& a, const ReportRequest& request) {
+void WriteTableFiles(const fs::path& dir, const pipeline::TableAnalysis& a,
+                     const ReportRequest& request) {
   publish::ReportOptions full = request.report;
   full.max_findings = 0;
   WriteFile(dir / (a.table_id + ".md"), publish::TableReport(a, full));
@@ -58,7 +59,8 @@ bool RenderSvg(const std::string& dot, const std::string& svg_path) {
   if (std::system("command -v dot > /dev/null 2>&1") != 0) return false;
   const fs::path tmp = svg_path + ".dot.tmp";
   WriteFile(tmp, dot);
-  const int rc = std::system(("dot -Tsvg " + ShellQuote(tmp.string()) + " -o " + ShellQuote(svg_path)).c_str());
+  const int rc = std::system(
+      ("dot -Tsvg " + ShellQuote(tmp.string()) + " -o " + ShellQuote(svg_path)).c_str());
   fs::remove(tmp);
   if (rc != 0) throw std::runtime_error("Graphviz dot failed to render " + svg_path);
   return true;
@@ -72,7 +74,8 @@ pipeline::TableAnalysis ReportTable(store::Database& db, const std::string& tabl
   return a;
 }
 
-void WriteWorkReports(store::Database& db, const std::string& work_id, const ReportRequest& request, Io& io) {
+void WriteWorkReports(store::Database& db, const std::string& work_id, const ReportRequest& request,
+                      Io& io) {
   std::vector<pipeline::TableAnalysis> analyses;
   for (const auto& table : store::TablesOfWork(db, work_id)) {
     analyses.push_back(ReportTable(db, table, request, io));

@@ -24,7 +24,8 @@ pipeline::TableAnalysis ReportTable(store::Database& db, const std::string& tabl
                                     const ReportRequest& request, Io& io);
 
 /// Every table of the work, then the stemma argued from all of them.
-void WriteWorkReports(store::Database& db, const std::string& work_id, const ReportRequest& request, Io& io);
+void WriteWorkReports(store::Database& db, const std::string& work_id, const ReportRequest& request,
+                      Io& io);
 
 /// Renders DOT into an SVG file with Graphviz; false when `dot` is not
 /// installed. Throws std::runtime_error when dot fails.

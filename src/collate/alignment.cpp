@@ -75,7 +75,8 @@ std::optional<std::pair<Sexagesimal, Sexagesimal>> StartAndStep(
   std::map<UnitsKey, int> starts;
   for (const auto* w : ws) {
     for (std::size_t i = 0; i < w->rows.size(); ++i) {
-      if (auto a = ReadArgument(w->rows[i])) ++starts[Key(*a - s * static_cast<std::int64_t>(i), places)];
+      if (auto a = ReadArgument(w->rows[i]))
+        ++starts[Key(*a - s * static_cast<std::int64_t>(i), places)];
     }
   }
   return std::pair{FromKey(*Mode(starts)), s};
@@ -140,8 +141,10 @@ RowAlignment AlignRows(const Transcription& w, const std::vector<Sexagesimal>& g
   };
   for (int i = 0; i <= m; ++i) {
     for (int j = 0; j <= n; ++j) {
-      if (i > 0 && cost[i - 1][j] + kSkip < cost[i][j]) cost[i][j] = cost[i - 1][j] + kSkip, move[i][j] = 'x';
-      if (j > 0 && cost[i][j - 1] + kSkip < cost[i][j]) cost[i][j] = cost[i][j - 1] + kSkip, move[i][j] = 'm';
+      if (i > 0 && cost[i - 1][j] + kSkip < cost[i][j])
+        cost[i][j] = cost[i - 1][j] + kSkip, move[i][j] = 'x';
+      if (j > 0 && cost[i][j - 1] + kSkip < cost[i][j])
+        cost[i][j] = cost[i][j - 1] + kSkip, move[i][j] = 'm';
       if (i > 0 && j > 0) {
         const double c = cost[i - 1][j - 1] + pair_cost(i - 1, j - 1);
         if (c <= cost[i][j]) cost[i][j] = c, move[i][j] = 'p';
@@ -167,11 +170,13 @@ RowAlignment AlignRows(const Transcription& w, const std::vector<Sexagesimal>& g
       --i;
       auto a = ReadArgument(w.rows[i]);
       notes.push_back({s, "extra row", -1, i, w.rows[i].line,
-                       "extra row (argument written " + (a ? a->ToString() : w.rows[i].argument.raw) +
+                       "extra row (argument written " +
+                           (a ? a->ToString() : w.rows[i].argument.raw) +
                            ") has no place among the expected arguments"});
     } else {
       --j;
-      notes.push_back({s, "missing row", j, -1, 0, "the row for argument " + grid[j].ToString() + " is missing"});
+      notes.push_back({s, "missing row", j, -1, 0,
+                       "the row for argument " + grid[j].ToString() + " is missing"});
     }
   }
   std::reverse(notes.begin(), notes.end());

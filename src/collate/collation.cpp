@@ -11,21 +11,30 @@ namespace apograph::collate {
 
 const char* ToString(Basis basis) {
   switch (basis) {
-    case Basis::kCaller: return "judgement";
-    case Basis::kRecomputation: return "recomputation";
-    case Basis::kMajority: return "majority";
-    case Basis::kUndetermined: return "undetermined";
+    case Basis::kCaller:
+      return "judgement";
+    case Basis::kRecomputation:
+      return "recomputation";
+    case Basis::kMajority:
+      return "majority";
+    case Basis::kUndetermined:
+      return "undetermined";
   }
   return "?";
 }
 
 const char* ToString(ReadingKind kind) {
   switch (kind) {
-    case ReadingKind::kValue: return "value";
-    case ReadingKind::kBlank: return "blank";
-    case ReadingKind::kPartial: return "partial";
-    case ReadingKind::kIllegible: return "illegible";
-    case ReadingKind::kOmitted: return "omitted";
+    case ReadingKind::kValue:
+      return "value";
+    case ReadingKind::kBlank:
+      return "blank";
+    case ReadingKind::kPartial:
+      return "partial";
+    case ReadingKind::kIllegible:
+      return "illegible";
+    case ReadingKind::kOmitted:
+      return "omitted";
   }
   return "?";
 }
@@ -80,11 +89,13 @@ struct Context {
 };
 
 void CheckInput(const std::vector<Transcription>& ws) {
-  if (ws.empty()) throw InputError::ForOption("collate", "expected at least one witness, found none");
+  if (ws.empty())
+    throw InputError::ForOption("collate", "expected at least one witness, found none");
   for (const auto& w : ws) {
     if (w.table_id != ws.front().table_id) {
-      throw InputError::ForOption("collate", ExpectedFound("witnesses of table '" + ws.front().table_id + "'",
-                                                           "'" + w.table_id + "' in " + w.witness.siglum));
+      throw InputError::ForOption("collate",
+                                  ExpectedFound("witnesses of table '" + ws.front().table_id + "'",
+                                                "'" + w.table_id + "' in " + w.witness.siglum));
     }
   }
 }
@@ -121,8 +132,10 @@ std::optional<Sexagesimal> Majority(std::vector<Sexagesimal> vs) {
   for (std::size_t i = 0; i < vs.size();) {
     std::size_t j = i;
     while (j < vs.size() && vs[j].Identical(vs[i])) ++j;
-    if (j - i > best_n) best = vs[i], best_n = j - i, tie = false;
-    else if (j - i == best_n) tie = true;
+    if (j - i > best_n)
+      best = vs[i], best_n = j - i, tie = false;
+    else if (j - i == best_n)
+      tie = true;
     i = j;
   }
   return tie ? std::nullopt : best;
@@ -185,7 +198,8 @@ void Align(Context& cx, const std::vector<Sexagesimal>& grid) {
   for (std::size_t j = 0; j < grid.size(); ++j) {
     CollatedRow row;
     row.argument = grid[j];
-    for (std::size_t wi = 0; wi < cx.ws.size(); ++wi) row.source_row.push_back(pass[wi].grid_to_source[j]);
+    for (std::size_t wi = 0; wi < cx.ws.size(); ++wi)
+      row.source_row.push_back(pass[wi].grid_to_source[j]);
     cx.out.rows.push_back(std::move(row));
   }
 }
@@ -219,10 +233,11 @@ void FindSlides(Context& cx) {
             if (j - start >= kMinRun) {
               Slide s{cx.ws[wi].witness.siglum, static_cast<int>(c), start, j - 1, offset, ""};
               std::ostringstream t;
-              t << "column " << cx.out.columns[c].name << " of " << s.siglum << " is slid by one row in rows "
-                << cx.out.rows[start].argument.ToString() << " to " << cx.out.rows[j - 1].argument.ToString()
-                << ": it carries the " << (offset > 0 ? "next" : "previous") << " row's values there ("
-                << (j - start) << " entries, compared with the other witnesses)";
+              t << "column " << cx.out.columns[c].name << " of " << s.siglum
+                << " is slid by one row in rows " << cx.out.rows[start].argument.ToString()
+                << " to " << cx.out.rows[j - 1].argument.ToString() << ": it carries the "
+                << (offset > 0 ? "next" : "previous") << " row's values there (" << (j - start)
+                << " entries, compared with the other witnesses)";
               s.text = t.str();
               cx.out.slides.push_back(std::move(s));
             }
@@ -262,7 +277,8 @@ void JudgeByCaller(Reading& r, const CellJudgement& j) {
   if (j.computed && r.value) r.units_off = j.units_off;
   r.slip = j.slip;
   r.common_slip = j.common_slip;
-  r.why = j.error ? (j.slip.empty() ? "judged an error" : "judged an error: " + j.slip) : "judged right";
+  r.why = j.error ? (j.slip.empty() ? "judged an error" : "judged an error: " + j.slip)
+                  : "judged right";
 }
 
 void JudgeByReference(Reading& r, const Sexagesimal& computed, int places, double tolerance) {
@@ -274,7 +290,8 @@ void JudgeByReference(Reading& r, const Sexagesimal& computed, int places, doubl
   r.units_off = off;
   r.error = std::fabs(off) > tolerance;
   r.why = r.text + " is " + Fmt(off) + " units from the recomputed " + computed.ToString() +
-          (r.error ? " (beyond the tolerance of " : " (within the tolerance of ") + Fmt(tolerance) + ")";
+          (r.error ? " (beyond the tolerance of " : " (within the tolerance of ") + Fmt(tolerance) +
+          ")";
 }
 
 void JudgeByMajority(CollatedCell& cell) {
@@ -284,12 +301,13 @@ void JudgeByMajority(CollatedCell& cell) {
   }
   const std::size_t top = comparable.empty() ? 0 : comparable.front()->sigla.size();
   const bool clear = comparable.size() >= 2 && comparable[1]->sigla.size() < top;
-  cell.basis = comparable.size() < 2 ? Basis::kMajority : (clear ? Basis::kMajority : Basis::kUndetermined);
+  cell.basis =
+      comparable.size() < 2 ? Basis::kMajority : (clear ? Basis::kMajority : Basis::kUndetermined);
   if (!clear) return;
   for (std::size_t k = 1; k < comparable.size(); ++k) {
     comparable[k]->error = true;
-    comparable[k]->why = "minority reading: " + std::to_string(comparable[k]->sigla.size()) + " against " +
-                         std::to_string(top) + " for " + comparable.front()->text;
+    comparable[k]->why = "minority reading: " + std::to_string(comparable[k]->sigla.size()) +
+                         " against " + std::to_string(top) + " for " + comparable.front()->text;
   }
 }
 
@@ -304,10 +322,11 @@ void GroupReadings(std::vector<Reading>& flat, CollatedCell& cell) {
       same->sigla.push_back(r.sigla.front());
     }
   }
-  std::stable_sort(cell.readings.begin(), cell.readings.end(), [](const Reading& a, const Reading& b) {
-    if (a.Comparable() != b.Comparable()) return a.Comparable();
-    return a.sigla.size() > b.sigla.size();
-  });
+  std::stable_sort(cell.readings.begin(), cell.readings.end(),
+                   [](const Reading& a, const Reading& b) {
+                     if (a.Comparable() != b.Comparable()) return a.Comparable();
+                     return a.sigla.size() > b.sigla.size();
+                   });
 }
 
 CollatedCell BuildCell(const Context& cx, int j, int c) {
@@ -330,7 +349,8 @@ CollatedCell BuildCell(const Context& cx, int j, int c) {
     }
     Reading r = MakeReading(cellp, w.witness.siglum);
     auto jt = cx.options.judgements.find(w.witness.siglum);
-    if (cellp && r.Comparable() && jt != cx.options.judgements.end() && src < static_cast<int>(jt->second.size()) &&
+    if (cellp && r.Comparable() && jt != cx.options.judgements.end() &&
+        src < static_cast<int>(jt->second.size()) &&
         own_col < static_cast<int>(jt->second[src].size()) && jt->second[src][own_col]) {
       JudgeByCaller(r, *jt->second[src][own_col]);
       any_caller = true;
@@ -340,9 +360,12 @@ CollatedCell BuildCell(const Context& cx, int j, int c) {
     flat.push_back(std::move(r));
   }
   GroupReadings(flat, cell);
-  if (any_caller) cell.basis = Basis::kCaller;
-  else if (cell.computed) cell.basis = Basis::kRecomputation;
-  else JudgeByMajority(cell);
+  if (any_caller)
+    cell.basis = Basis::kCaller;
+  else if (cell.computed)
+    cell.basis = Basis::kRecomputation;
+  else
+    JudgeByMajority(cell);
   return cell;
 }
 

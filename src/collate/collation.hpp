@@ -75,7 +75,8 @@ const char* ToString(ReadingKind kind);
 
 /// One reading of a cell and the witnesses that carry it.
 struct Reading {
-  std::string text;  ///< canonical trade notation, the raw text if partial, or "blank"/"illeg."/"om."
+  std::string
+      text;  ///< canonical trade notation, the raw text if partial, or "blank"/"illeg."/"om."
   ReadingKind kind = ReadingKind::kValue;
   std::optional<Sexagesimal> value;
   std::vector<std::string> sigla;  ///< in the collation's witness order
@@ -112,7 +113,7 @@ struct AlignmentNote {
   std::string kind;  ///< "missing row", "extra row", "miscopied argument"
   int row = -1;      ///< aligned row (-1 for extra rows)
   int source_row = -1;
-  int line = 0;      ///< line in the witness's source file, when known
+  int line = 0;  ///< line in the witness's source file, when known
   std::string text;
 };
 

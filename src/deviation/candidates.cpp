@@ -17,8 +17,9 @@ std::string Seq(const std::vector<ConfusionStep>& steps, const NumeralScript& sc
 }
 
 std::string SourceWords(const std::vector<ConfusionStep>& steps, const NumeralScript& script) {
-  bool memory = std::any_of(steps.begin(), steps.end(),
-                            [](const ConfusionStep& s) { return s.source == ConfusionSource::kFromMemory; });
+  bool memory = std::any_of(steps.begin(), steps.end(), [](const ConfusionStep& s) {
+    return s.source == ConfusionSource::kFromMemory;
+  });
   return std::string(steps.size() > 1 ? "confusions" : "a confusion") + " of " + script.title() +
          (memory ? ", listed from memory" : ", common practice");
 }
@@ -36,9 +37,10 @@ Explanation ConfusionExplanation(const CellContext& c, const Sexagesimal& readin
   for (const auto& ch : changes) {
     weight *= ch.variant.weight;
     const int from = static_cast<int>(copy.d[ch.place]);
-    words += (words.empty() ? "" : "; ") +
-             DigitPlaceWords(*c.script, ch.variant.original, from, static_cast<int>(ch.place), c.unit) + ": " +
-             Seq(ch.variant.steps, *c.script);
+    words +=
+        (words.empty() ? "" : "; ") +
+        DigitPlaceWords(*c.script, ch.variant.original, from, static_cast<int>(ch.place), c.unit) +
+        ": " + Seq(ch.variant.steps, *c.script);
     all.insert(all.end(), ch.variant.steps.begin(), ch.variant.steps.end());
   }
   Explanation e;
@@ -56,23 +58,28 @@ bool TwoDigitPlace(const CellContext& c, std::size_t place) {
   return c.script->writing() == Writing::kPositional && place >= 1;
 }
 
-void AddLeadingZeroVariants(const CellContext& c, int written, std::vector<PlaceVariant>& variants) {
+void AddLeadingZeroVariants(const CellContext& c, int written,
+                            std::vector<PlaceVariant>& variants) {
   const std::string zero = "0";
   for (const auto& conf : c.script->confusions()) {
     PlaceVariant v;
     if (written >= 10 && conf.intended == zero && conf.written == std::to_string(written / 10)) {
       v.original = written % 10;  // the tens digit stood for a leading zero
-    } else if (written < 10 && conf.written == zero && conf.intended.size() == 1 && conf.intended[0] >= '1' &&
-               conf.intended[0] <= '5') {
-      v.original = (conf.intended[0] - '0') * 10 + written;  // the leading zero stood for a tens digit
+    } else if (written < 10 && conf.written == zero && conf.intended.size() == 1 &&
+               conf.intended[0] >= '1' && conf.intended[0] <= '5') {
+      v.original =
+          (conf.intended[0] - '0') * 10 + written;  // the leading zero stood for a tens digit
     } else {
       continue;
     }
     v.weight = conf.weight;
     v.steps = {{conf.intended, conf.written, conf.weight, conf.source}};
-    auto same = std::find_if(variants.begin(), variants.end(), [&](const PlaceVariant& o) { return o.original == v.original; });
-    if (same == variants.end()) variants.push_back(v);
-    else if (same->weight < v.weight) *same = v;
+    auto same = std::find_if(variants.begin(), variants.end(),
+                             [&](const PlaceVariant& o) { return o.original == v.original; });
+    if (same == variants.end())
+      variants.push_back(v);
+    else if (same->weight < v.weight)
+      *same = v;
   }
 }
 
@@ -94,7 +101,8 @@ std::vector<Explanation> ConfusionCandidates(const CellContext& c) {
       Digits d = copy;
       d.d[p] = v.original;
       auto reading = FromDigits(d);
-      if (reading && c.Reaches(*reading)) out.push_back(ConfusionExplanation(c, *reading, {{p, v}}, copy));
+      if (reading && c.Reaches(*reading))
+        out.push_back(ConfusionExplanation(c, *reading, {{p, v}}, copy));
     }
   }
   if (c.options->max_confusions < 2) return out;
@@ -141,10 +149,10 @@ std::vector<Explanation> TranspositionCandidates(const CellContext& c) {
       if (padded && x < 10) t.insert(t.begin(), '0');
       return t;
     };
-    e.evidence = PlaceName(static_cast<int>(p), c.unit) + ": the digits of " + two(d.d[p]) + " transposed to " +
-                 two(v) + (padded ? " (read " + std::to_string(v) + ")" : "") +
-                 (positional ? "" : " (a slip of digits, unusual in " + c.script->title() + ")") + "; " +
-                 c.ModelClause(*reading);
+    e.evidence = PlaceName(static_cast<int>(p), c.unit) + ": the digits of " + two(d.d[p]) +
+                 " transposed to " + two(v) + (padded ? " (read " + std::to_string(v) + ")" : "") +
+                 (positional ? "" : " (a slip of digits, unusual in " + c.script->title() + ")") +
+                 "; " + c.ModelClause(*reading);
     out.push_back(std::move(e));
   }
   return out;
@@ -182,7 +190,8 @@ std::vector<Explanation> PlaceCandidates(const CellContext& c) {
     Digits d = copy;
     d.d[p] = model.d[p];
     AddPlace(c, out, d, kPriorPlaceOmitted,
-             PlaceName(static_cast<int>(p), c.unit) + " omitted (written as 0); " + Supplied(c, p, model.d[p]));
+             PlaceName(static_cast<int>(p), c.unit) + " omitted (written as 0); " +
+                 Supplied(c, p, model.d[p]));
   }
   for (std::size_t p = 0; p + 1 < n; ++p) {
     // Place p dropped and the places after it moved up one: restore it.
@@ -190,9 +199,10 @@ std::vector<Explanation> PlaceCandidates(const CellContext& c) {
     up.d.insert(up.d.begin() + static_cast<std::ptrdiff_t>(p), model.d[p]);
     up.d.pop_back();
     AddPlace(c, out, up, kPriorPlaceMoved,
-             PlaceName(static_cast<int>(p), c.unit) + " omitted and the following places moved up (" +
-                 PlaceName(static_cast<int>(p + 1), c.unit) + " written as " + PlaceName(static_cast<int>(p), c.unit) +
-                 "); " + Supplied(c, p, model.d[p]));
+             PlaceName(static_cast<int>(p), c.unit) +
+                 " omitted and the following places moved up (" +
+                 PlaceName(static_cast<int>(p + 1), c.unit) + " written as " +
+                 PlaceName(static_cast<int>(p), c.unit) + "); " + Supplied(c, p, model.d[p]));
     // Places from p moved down one (minutes written as seconds), a 0 in front.
     if (copy.d[p] == 0 || copy.d[p] == copy.d[p + 1]) {
       Digits down = copy;
@@ -200,9 +210,11 @@ std::vector<Explanation> PlaceCandidates(const CellContext& c) {
       down.d.push_back(model.d[n - 1]);
       const bool doubled = copy.d[p] != 0;
       AddPlace(c, out, down, doubled ? kPriorPlaceAdded : kPriorPlaceMoved,
-               (doubled ? PlaceName(static_cast<int>(p), c.unit) + " written twice, pushing the following places down"
+               (doubled ? PlaceName(static_cast<int>(p), c.unit) +
+                              " written twice, pushing the following places down"
                         : PlaceName(static_cast<int>(p), c.unit) + " written as " +
-                              PlaceName(static_cast<int>(p + 1), c.unit) + " (the places from there moved down one)") +
+                              PlaceName(static_cast<int>(p + 1), c.unit) +
+                              " (the places from there moved down one)") +
                    "; " + Supplied(c, n - 1, model.d[n - 1]));
     }
   }
@@ -222,7 +234,8 @@ std::vector<Explanation> RepetitionCandidates(const CellContext& c) {
       e.cls = SlipClass::kRepetition;
       e.score = kPriorRepetition;
       e.emendation = c.model_reading;
-      e.evidence = "repeats " + where + " (" + n->ToString() + "); " + c.ModelClause(c.model_reading);
+      e.evidence =
+          "repeats " + where + " (" + n->ToString() + "); " + c.ModelClause(c.model_reading);
       out.push_back(std::move(e));
       continue;
     }
@@ -240,9 +253,9 @@ std::vector<Explanation> RepetitionCandidates(const CellContext& c) {
       const bool small = std::fabs(c.diff) <= c.options->computational_units + 1e-9;
       e.score = kPriorPlaceRepeated * c.Closeness(*reading) * (small ? 0.5 : 1.0);
       e.emendation = reading;
-      e.evidence = PlaceName(static_cast<int>(p), c.unit) + " " + std::to_string(copy.d[p]) + " repeated from " +
-                   where + " (" + n->ToString() + "), the model's " + std::to_string(model.d[p]) +
-                   " restored; " + c.ModelClause(*reading);
+      e.evidence = PlaceName(static_cast<int>(p), c.unit) + " " + std::to_string(copy.d[p]) +
+                   " repeated from " + where + " (" + n->ToString() + "), the model's " +
+                   std::to_string(model.d[p]) + " restored; " + c.ModelClause(*reading);
       out.push_back(std::move(e));
     }
   }

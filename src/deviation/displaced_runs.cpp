@@ -55,7 +55,9 @@ struct RunScan {
   }
 };
 
-std::string RowsWord(int k) { return std::abs(k) == 1 ? "one row" : std::to_string(std::abs(k)) + " rows"; }
+std::string RowsWord(int k) {
+  return std::abs(k) == 1 ? "one row" : std::to_string(std::abs(k)) + " rows";
+}
 
 Finding RunFinding(const RunScan& s, const RunCandidate& run) {
   Finding f = NewFinding(s.table, s.values, s.places);
@@ -66,7 +68,8 @@ Finding RunFinding(const RunScan& s, const RunCandidate& run) {
     f.cells.push_back(MakeCell(s.table, s.values, r, s.places));
     const std::ptrdiff_t from = static_cast<std::ptrdiff_t>(r) - run.shift;
     auto& cell = f.cells.back();
-    if (from >= static_cast<std::ptrdiff_t>(run.first) && from <= static_cast<std::ptrdiff_t>(run.last)) {
+    if (from >= static_cast<std::ptrdiff_t>(run.first) &&
+        from <= static_cast<std::ptrdiff_t>(run.last)) {
       cell.emendation = s.Value(static_cast<std::size_t>(from))->Rounded(s.places);
     } else if (s.values.computed[r]) {
       const auto& c = *s.values.computed[r];
@@ -104,10 +107,12 @@ Finding RunFinding(const RunScan& s, const RunCandidate& run) {
     Explanation comp;
     comp.cls = SlipClass::kComputational;
     comp.score = 0.85;
-    comp.evidence = "every entry of " + first.arg + " to " + last.arg +
-                    " departs from the model by at most " + std::to_string(static_cast<int>(s.options.computational_units)) +
-                    " units, all of one sign: in a slowly changing column the author's computation and a "
-                    "slide of " + RowsWord(run.shift) + " look alike; keep the readings unless other witnesses differ";
+    comp.evidence =
+        "every entry of " + first.arg + " to " + last.arg + " departs from the model by at most " +
+        std::to_string(static_cast<int>(s.options.computational_units)) +
+        " units, all of one sign: in a slowly changing column the author's computation and a "
+        "slide of " +
+        RowsWord(run.shift) + " look alike; keep the readings unless other witnesses differ";
     e.score *= 0.6;
     f.explanations = {comp, e};
     for (auto& c : f.cells) c.emendation.reset();
@@ -130,10 +135,11 @@ std::vector<Finding> DisplacedRuns(const Transcription& table, const ColumnValue
     scan.Collect(k, candidates);
     scan.Collect(-k, candidates);
   }
-  std::stable_sort(candidates.begin(), candidates.end(), [](const RunCandidate& a, const RunCandidate& b) {
-    if (a.deviant != b.deviant) return a.deviant > b.deviant;
-    return std::abs(a.shift) < std::abs(b.shift);
-  });
+  std::stable_sort(candidates.begin(), candidates.end(),
+                   [](const RunCandidate& a, const RunCandidate& b) {
+                     if (a.deviant != b.deviant) return a.deviant > b.deviant;
+                     return std::abs(a.shift) < std::abs(b.shift);
+                   });
   std::vector<Finding> out;
   for (const auto& run : candidates) {
     bool free = true;

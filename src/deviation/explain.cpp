@@ -10,15 +10,24 @@ namespace apograph::deviation {
 
 const char* ToString(SlipClass cls) {
   switch (cls) {
-    case SlipClass::kConfusion: return "confusion";
-    case SlipClass::kTransposition: return "transposition";
-    case SlipClass::kPlace: return "place";
-    case SlipClass::kDisplacedRun: return "displaced-run";
-    case SlipClass::kRepetition: return "repetition";
-    case SlipClass::kBlank: return "blank";
-    case SlipClass::kIllegible: return "illegible";
-    case SlipClass::kComputational: return "computational";
-    case SlipClass::kUnexplained: return "unexplained";
+    case SlipClass::kConfusion:
+      return "confusion";
+    case SlipClass::kTransposition:
+      return "transposition";
+    case SlipClass::kPlace:
+      return "place";
+    case SlipClass::kDisplacedRun:
+      return "displaced-run";
+    case SlipClass::kRepetition:
+      return "repetition";
+    case SlipClass::kBlank:
+      return "blank";
+    case SlipClass::kIllegible:
+      return "illegible";
+    case SlipClass::kComputational:
+      return "computational";
+    case SlipClass::kUnexplained:
+      return "unexplained";
   }
   return "unexplained";
 }
@@ -62,8 +71,8 @@ double CellContext::Closeness(const Sexagesimal& reading) const {
 }
 
 std::string CellContext::ModelClause(const Sexagesimal& reading) const {
-  std::string out = "the model gives " + ModelText(computed, exact, places) + ", the emended reading " +
-                    reading.ToString();
+  std::string out = "the model gives " + ModelText(computed, exact, places) +
+                    ", the emended reading " + reading.ToString();
   if (std::isfinite(exact)) {
     const double off = std::fabs(reading.ToDouble() - exact) * std::pow(60.0, places);
     if (off <= 0.5 + 1e-9) return out + " is within half a unit";
@@ -77,7 +86,8 @@ std::string CellContext::ModelClause(const Sexagesimal& reading) const {
 std::optional<Sexagesimal> CellContext::Neighbour(std::ptrdiff_t offset) const {
   const std::ptrdiff_t r = static_cast<std::ptrdiff_t>(row) + offset;
   if (r < 0 || r >= static_cast<std::ptrdiff_t>(table->rows.size())) return std::nullopt;
-  const Cell& cell = table->rows[static_cast<std::size_t>(r)].cells[static_cast<std::size_t>(column)];
+  const Cell& cell =
+      table->rows[static_cast<std::size_t>(r)].cells[static_cast<std::size_t>(column)];
   if (cell.state != CellState::kRead || !cell.value) return std::nullopt;
   return cell.value;
 }
@@ -121,7 +131,8 @@ namespace internal {
 
 Finding SingleFinding(const CellContext& c, const ColumnValues& values, const DiffColumn& diffs) {
   std::vector<Explanation> all;
-  for (auto* gen : {ConfusionCandidates, TranspositionCandidates, PlaceCandidates, RepetitionCandidates}) {
+  for (auto* gen :
+       {ConfusionCandidates, TranspositionCandidates, PlaceCandidates, RepetitionCandidates}) {
     auto found = gen(c);
     all.insert(all.end(), found.begin(), found.end());
   }
@@ -147,7 +158,8 @@ std::vector<Finding> ExplainColumn(const Transcription& table, const ColumnValue
   const int places = table.columns.at(col).places;
   const internal::DiffColumn diffs = internal::Diffs(table, values, places);
   std::vector<bool> claimed(table.rows.size(), false);
-  std::vector<Finding> out = internal::DisplacedRuns(table, values, script, options, diffs, claimed);
+  std::vector<Finding> out =
+      internal::DisplacedRuns(table, values, script, options, diffs, claimed);
   for (std::size_t r = 0; r < table.rows.size() && r < values.computed.size(); ++r) {
     if (claimed[r] || !values.computed[r]) continue;
     const Cell& cell = table.rows[r].cells[col];
@@ -155,14 +167,16 @@ std::vector<Finding> ExplainColumn(const Transcription& table, const ColumnValue
       out.push_back(internal::MissingFinding(table, values, r, places, options));
       continue;
     }
-    if (!std::isfinite(diffs.diff[r]) || std::fabs(diffs.diff[r]) <= options.tolerance + 1e-9) continue;
+    if (!std::isfinite(diffs.diff[r]) || std::fabs(diffs.diff[r]) <= options.tolerance + 1e-9)
+      continue;
     CellContext c = internal::MakeContext(table, values, script, options, r, places);
     c.diff = diffs.diff[r];
     out.push_back(internal::SingleFinding(c, values, diffs));
   }
   internal::MergeComputationalRuns(out, options);
-  std::sort(out.begin(), out.end(),
-            [](const Finding& a, const Finding& b) { return a.cells.front().row < b.cells.front().row; });
+  std::sort(out.begin(), out.end(), [](const Finding& a, const Finding& b) {
+    return a.cells.front().row < b.cells.front().row;
+  });
   return out;
 }
 

@@ -72,16 +72,18 @@ DiffColumn Diffs(const Transcription& table, const ColumnValues& values, int pla
 /// neighbours" and halves the copying candidates.
 constexpr double kSharedComputational = 0.7;
 
-CellContext MakeContext(const Transcription& table, const ColumnValues& values, const NumeralScript& script,
-                        const ExplainOptions& options, std::size_t row, int places);
-FindingCell MakeCell(const Transcription& table, const ColumnValues& values, std::size_t row, int places);
+CellContext MakeContext(const Transcription& table, const ColumnValues& values,
+                        const NumeralScript& script, const ExplainOptions& options, std::size_t row,
+                        int places);
+FindingCell MakeCell(const Transcription& table, const ColumnValues& values, std::size_t row,
+                     int places);
 Finding NewFinding(const Transcription& table, const ColumnValues& values, int places);
 
 std::optional<Explanation> ComputationalCandidate(const CellContext& c, const DiffColumn& diffs);
 Finding SingleFinding(const CellContext& c, const ColumnValues& values, const DiffColumn& diffs);
 /// A blank, illegible or partly read cell.
-Finding MissingFinding(const Transcription& table, const ColumnValues& values, std::size_t row, int places,
-                       const ExplainOptions& options);
+Finding MissingFinding(const Transcription& table, const ColumnValues& values, std::size_t row,
+                       int places, const ExplainOptions& options);
 /// Runs of entries slid by rows; marks the rows they cover in `claimed`.
 std::vector<Finding> DisplacedRuns(const Transcription& table, const ColumnValues& values,
                                    const NumeralScript& script, const ExplainOptions& options,

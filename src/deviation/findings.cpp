@@ -38,8 +38,9 @@ DiffColumn Diffs(const Transcription& table, const ColumnValues& values, int pla
   return out;
 }
 
-CellContext MakeContext(const Transcription& table, const ColumnValues& values, const NumeralScript& script,
-                        const ExplainOptions& options, std::size_t row, int places) {
+CellContext MakeContext(const Transcription& table, const ColumnValues& values,
+                        const NumeralScript& script, const ExplainOptions& options, std::size_t row,
+                        int places) {
   CellContext c;
   c.table = &table;
   c.script = &script;
@@ -56,7 +57,8 @@ CellContext MakeContext(const Transcription& table, const ColumnValues& values, 
   return c;
 }
 
-FindingCell MakeCell(const Transcription& table, const ColumnValues& values, std::size_t row, int places) {
+FindingCell MakeCell(const Transcription& table, const ColumnValues& values, std::size_t row,
+                     int places) {
   FindingCell out;
   out.row = row;
   const Cell& arg = table.rows[row].argument;
@@ -93,7 +95,8 @@ std::optional<Explanation> ComputationalCandidate(const CellContext& c, const Di
     const std::ptrdiff_t j = static_cast<std::ptrdiff_t>(c.row) + off;
     if (j < 0 || j >= static_cast<std::ptrdiff_t>(diffs.diff.size())) continue;
     const double d = diffs.diff[static_cast<std::size_t>(j)];
-    if (std::isfinite(d) && std::fabs(d) > tol + 1e-9 && std::fabs(d) <= limit + 1e-9 && (d > 0) == (c.diff > 0)) {
+    if (std::isfinite(d) && std::fabs(d) > tol + 1e-9 && std::fabs(d) <= limit + 1e-9 &&
+        (d > 0) == (c.diff > 0)) {
       shared = true;
     }
   }
@@ -107,13 +110,16 @@ std::optional<Explanation> ComputationalCandidate(const CellContext& c, const Di
   const std::string model = "the model gives " + ModelText(c.computed, c.exact, c.places);
   if (shared) {
     e.score = ad <= 1 + 1e-9 ? 0.85 : kSharedComputational;
-    e.evidence = what + ", shared by a neighbouring entry: the author's computation, not a copyist's slip; " +
-                 model + "; keep the reading";
+    e.evidence =
+        what +
+        ", shared by a neighbouring entry: the author's computation, not a copyist's slip; " +
+        model + "; keep the reading";
   } else if (boundary) {
     e.score = 0.65;  // below kSharedComputational: does not weaken the slips
-    e.evidence = what + "; " + model +
-                 ", close to the rounding boundary, so a slightly different computation by the author "
-                 "explains it; keep the reading";
+    e.evidence =
+        what + "; " + model +
+        ", close to the rounding boundary, so a slightly different computation by the author "
+        "explains it; keep the reading";
   } else {
     e.score = ad <= 1 + 1e-9 ? 0.45 : 0.25;
     e.evidence = "a small " + what.substr(2) + ", perhaps the author's computation; " + model;
@@ -121,8 +127,8 @@ std::optional<Explanation> ComputationalCandidate(const CellContext& c, const Di
   return e;
 }
 
-Finding MissingFinding(const Transcription& table, const ColumnValues& values, std::size_t row, int places,
-                       const ExplainOptions& options) {
+Finding MissingFinding(const Transcription& table, const ColumnValues& values, std::size_t row,
+                       int places, const ExplainOptions& options) {
   (void)options;
   const Cell& cell = CellAt(table, row, values.column);
   Finding f = NewFinding(table, values, places);
@@ -136,8 +142,8 @@ Finding MissingFinding(const Transcription& table, const ColumnValues& values, s
                                ? "partly illegible in the witness ('" + cell.raw + "')"
                                : "illegible in the witness ('" + cell.raw + "')";
   const double exact = row < values.exact.size() ? values.exact[row] : NAN;
-  e.evidence = what + "; the model gives " + ModelText(*values.computed[row], exact, places) + ", supplied as " +
-               e.emendation->ToString();
+  e.evidence = what + "; the model gives " + ModelText(*values.computed[row], exact, places) +
+               ", supplied as " + e.emendation->ToString();
   f.cells.back().emendation = e.emendation;
   f.explanations.push_back(std::move(e));
   return f;
@@ -145,8 +151,9 @@ Finding MissingFinding(const Transcription& table, const ColumnValues& values, s
 
 void MergeComputationalRuns(std::vector<Finding>& findings, const ExplainOptions& options) {
   (void)options;
-  std::sort(findings.begin(), findings.end(),
-            [](const Finding& a, const Finding& b) { return a.cells.front().row < b.cells.front().row; });
+  std::sort(findings.begin(), findings.end(), [](const Finding& a, const Finding& b) {
+    return a.cells.front().row < b.cells.front().row;
+  });
   std::vector<Finding> out;
   for (auto& f : findings) {
     const bool comp = f.best().cls == SlipClass::kComputational && f.cells.size() == 1;
@@ -158,12 +165,15 @@ void MergeComputationalRuns(std::vector<Finding>& findings, const ExplainOptions
       if (last_comp && next_row && same_sign) {
         last.cells.push_back(f.cells.front());
         std::string diffs;
-        for (const auto& c : last.cells) diffs += (diffs.empty() ? "" : ", ") + Signed(c.diff_units);
+        for (const auto& c : last.cells)
+          diffs += (diffs.empty() ? "" : ", ") + Signed(c.diff_units);
         Explanation& e = last.explanations.front();
         e.score = std::max(e.score, 0.85);
-        e.evidence = std::to_string(last.cells.size()) + " consecutive entries depart from the model by " + diffs +
-                     " units, all of one sign: a smooth run left by the author's computation, not a "
-                     "copyist's slip; keep the readings";
+        e.evidence =
+            std::to_string(last.cells.size()) + " consecutive entries depart from the model by " +
+            diffs +
+            " units, all of one sign: a smooth run left by the author's computation, not a "
+            "copyist's slip; keep the readings";
         continue;
       }
     }

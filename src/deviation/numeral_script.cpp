@@ -77,7 +77,8 @@ class LineReader {
   std::size_t size() const { return tokens_.size(); }
   std::string Rest(std::size_t index) const {
     std::string out;
-    for (std::size_t i = index; i < tokens_.size(); ++i) out += (out.empty() ? "" : " ") + tokens_[i].text;
+    for (std::size_t i = index; i < tokens_.size(); ++i)
+      out += (out.empty() ? "" : " ") + tokens_[i].text;
     return out;
   }
   int line() const { return line_; }
@@ -146,10 +147,14 @@ void ParseLine(const LineReader& r, ScriptBuilder& b) {
     b.title = r.Rest(1);
   } else if (k == "writing") {
     const std::string& w = r.Word(1, "positional, additive or roman");
-    if (w == "positional") b.writing = Writing::kPositional;
-    else if (w == "additive") b.writing = Writing::kAdditive;
-    else if (w == "roman") b.writing = Writing::kRoman;
-    else r.Fail(1, "positional, additive or roman");
+    if (w == "positional")
+      b.writing = Writing::kPositional;
+    else if (w == "additive")
+      b.writing = Writing::kAdditive;
+    else if (w == "roman")
+      b.writing = Writing::kRoman;
+    else
+      r.Fail(1, "positional, additive or roman");
     r.NoMore(2);
   } else if (k == "symbol") {
     const std::string& g = r.Word(1, "a symbol");
@@ -186,7 +191,9 @@ NumeralScript ParseNumeralScript(std::string_view text, const std::string& file)
     if (tokens.empty()) continue;
     ParseLine(LineReader(file, number, line, std::move(tokens)), b);
   }
-  auto whole = [&](const std::string& what) { return InputError::ForFile(file, ExpectedFound(what, "none")); };
+  auto whole = [&](const std::string& what) {
+    return InputError::ForFile(file, ExpectedFound(what, "none"));
+  };
   if (b.name.empty()) throw whole("a 'script NAME' line");
   if (!b.writing) throw whole("a 'writing' line");
   if (b.symbols.empty()) throw whole("'symbol' lines");
@@ -234,8 +241,8 @@ NumeralScript FindNumeralScript(const std::string& name, const std::string& dir)
   const std::string n = name.empty() ? "hindu-arabic" : name;
   const std::string path = dir + "/" + n + ".script";
   if (!std::ifstream(path)) {
-    throw InputError::ForFile(path, "no numeral script '" + n +
-                                        "' (scripts are files NAME.script in " + dir + ")");
+    throw InputError::ForFile(
+        path, "no numeral script '" + n + "' (scripts are files NAME.script in " + dir + ")");
   }
   return LoadNumeralScript(path);
 }

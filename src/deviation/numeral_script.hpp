@@ -97,7 +97,7 @@ class NumeralScript {
   std::vector<Symbol> symbols_;
   std::vector<std::pair<int, std::vector<std::string>>> specials_;
   std::vector<Confusion> confusions_;
-  std::vector<std::vector<std::string>> writings_;  // index = value, 0..999
+  std::vector<std::vector<std::string>> writings_;    // index = value, 0..999
   std::map<std::vector<std::string>, int> readings_;  // the inverse of writings_
 };
 
@@ -128,6 +128,7 @@ std::string DefaultScriptDir();
 
 /// Loads `<dir>/<name>.script`; an empty name means hindu-arabic. InputError
 /// names the option `--scripts`/the witness's script when the file is missing.
-NumeralScript FindNumeralScript(const std::string& name, const std::string& dir = DefaultScriptDir());
+NumeralScript FindNumeralScript(const std::string& name,
+                                const std::string& dir = DefaultScriptDir());
 
 }  // namespace apograph::deviation

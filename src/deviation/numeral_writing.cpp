@@ -21,7 +21,8 @@ struct RomanStep {
 
 std::vector<std::string> NumeralScript::Write(int value) const {
   if (value < 0 || value >= kMaxWritten) throw std::out_of_range("place value outside 0..999");
-  if (writings_.size() == static_cast<std::size_t>(kMaxWritten)) return writings_[static_cast<std::size_t>(value)];
+  if (writings_.size() == static_cast<std::size_t>(kMaxWritten))
+    return writings_[static_cast<std::size_t>(value)];
   return {};
 }
 
@@ -152,8 +153,9 @@ std::vector<PlaceVariant> NumeralScript::OriginalsOf(int copy, int limit, int ma
   }
   std::vector<PlaceVariant> out;
   for (auto& [v, variant] : best) out.push_back(std::move(variant));
-  std::stable_sort(out.begin(), out.end(),
-                   [](const PlaceVariant& a, const PlaceVariant& b) { return a.weight > b.weight; });
+  std::stable_sort(out.begin(), out.end(), [](const PlaceVariant& a, const PlaceVariant& b) {
+    return a.weight > b.weight;
+  });
   return out;
 }
 

@@ -27,7 +27,8 @@ std::optional<double> QuadraticAtZero(const std::vector<double>& x, const std::v
     t[2] += w[i] * y[i] * x[i] * x[i];
   }
   // Solve [[s0 s1 s2][s1 s2 s3][s2 s3 s4]] a = t by Cramer's rule.
-  auto det3 = [](double a, double b, double c, double d, double e, double f, double g, double h, double i) {
+  auto det3 = [](double a, double b, double c, double d, double e, double f, double g, double h,
+                 double i) {
     return a * (e * i - f * h) - b * (d * i - f * g) + c * (d * h - e * g);
   };
   const double d = det3(s[0], s[1], s[2], s[1], s[2], s[3], s[2], s[3], s[4]);
@@ -50,11 +51,14 @@ std::vector<double> Residuals(const std::vector<double>& xs, const std::vector<d
 }
 
 /// Robust local fit at row i from rows within the window (row i left out).
-std::optional<double> LocalFit(const std::vector<std::optional<double>>& y, std::size_t i, int half) {
+std::optional<double> LocalFit(const std::vector<std::optional<double>>& y, std::size_t i,
+                               int half) {
   std::vector<double> xs, ys;
   for (int k = -half; k <= half; ++k) {
     const std::ptrdiff_t j = static_cast<std::ptrdiff_t>(i) + k;
-    if (k == 0 || j < 0 || j >= static_cast<std::ptrdiff_t>(y.size()) || !y[static_cast<std::size_t>(j)]) continue;
+    if (k == 0 || j < 0 || j >= static_cast<std::ptrdiff_t>(y.size()) ||
+        !y[static_cast<std::size_t>(j)])
+      continue;
     xs.push_back(k);
     ys.push_back(*y[static_cast<std::size_t>(j)]);
   }
@@ -99,7 +103,8 @@ std::string ArgText(const Transcription& t, std::size_t row) {
 
 std::string SecondDifferences(const std::vector<std::optional<double>>& y, std::size_t i) {
   std::string out;
-  for (std::ptrdiff_t j = static_cast<std::ptrdiff_t>(i) - 1; j <= static_cast<std::ptrdiff_t>(i) + 1; ++j) {
+  for (std::ptrdiff_t j = static_cast<std::ptrdiff_t>(i) - 1;
+       j <= static_cast<std::ptrdiff_t>(i) + 1; ++j) {
     if (j < 1 || j + 1 >= static_cast<std::ptrdiff_t>(y.size())) continue;
     const auto a = y[static_cast<std::size_t>(j - 1)], b = y[static_cast<std::size_t>(j)],
                c = y[static_cast<std::size_t>(j + 1)];
@@ -113,8 +118,8 @@ std::string SecondDifferences(const std::vector<std::optional<double>>& y, std::
 
 }  // namespace
 
-std::vector<Suspect> ScreenColumn(const Transcription& table, int column, const NumeralScript* script,
-                                  const ScreenOptions& options) {
+std::vector<Suspect> ScreenColumn(const Transcription& table, int column,
+                                  const NumeralScript* script, const ScreenOptions& options) {
   const auto col = static_cast<std::size_t>(column);
   const int places = table.columns.at(col).places;
   const double scale = std::pow(60.0, places), turn = 360 * scale;
@@ -126,7 +131,8 @@ std::vector<Suspect> ScreenColumn(const Transcription& table, int column, const 
     const Cell& c = table.rows[r].cells[col];
     if (c.state != CellState::kRead || !c.value) continue;
     double v = c.value->ToDouble() * scale;
-    if (std::isfinite(last) && std::fabs(v + offset - last) > turn / 2) offset += v + offset < last ? turn : -turn;
+    if (std::isfinite(last) && std::fabs(v + offset - last) > turn / 2)
+      offset += v + offset < last ? turn : -turn;
     y[r] = v + offset;
     last = *y[r];
   }
@@ -155,8 +161,9 @@ std::vector<Suspect> ScreenColumn(const Transcription& table, int column, const 
     if (c.state != CellState::kRead) {
       s.diff_units = NAN;
       s.score = 1;
-      s.evidence = std::string(c.state == CellState::kBlank ? "nothing written" : "not fully readable") +
-                   " in the witness";
+      s.evidence =
+          std::string(c.state == CellState::kBlank ? "nothing written" : "not fully readable") +
+          " in the witness";
       out.push_back(std::move(s));
       continue;
     }
@@ -166,12 +173,15 @@ std::vector<Suspect> ScreenColumn(const Transcription& table, int column, const 
     const double res = *y[r] - *fit[r];
     if (std::fabs(res) <= limit) continue;
     const double back = *fit[r] - (*y[r] - c.value->ToDouble() * scale);  // undo the unwrapping
-    s.expected = Sexagesimal::FromUnits(static_cast<Sexagesimal::Units>(std::llround(back)), places);
+    s.expected =
+        Sexagesimal::FromUnits(static_cast<Sexagesimal::Units>(std::llround(back)), places);
     s.diff_units = res;
     s.score = std::fabs(res) / (std::fabs(res) + options.threshold * scatter);
     char buf[160];
-    std::snprintf(buf, sizeof buf, "the entry stands %+.1f units off the smooth curve through its neighbours "
-                  "(%s expected; the column's scatter is %.1f units)", res, s.expected->ToString().c_str(), scatter);
+    std::snprintf(buf, sizeof buf,
+                  "the entry stands %+.1f units off the smooth curve through its neighbours "
+                  "(%s expected; the column's scatter is %.1f units)",
+                  res, s.expected->ToString().c_str(), scatter);
     s.evidence = buf;
     const std::string dd = SecondDifferences(y, r);
     if (!dd.empty()) s.evidence += "; second differences around it: " + dd;

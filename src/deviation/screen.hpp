@@ -43,7 +43,7 @@ struct Suspect {
 };
 
 /// Screens one column. `script` may be null (no explanations).
-std::vector<Suspect> ScreenColumn(const Transcription& table, int column, const NumeralScript* script,
-                                  const ScreenOptions& options = {});
+std::vector<Suspect> ScreenColumn(const Transcription& table, int column,
+                                  const NumeralScript* script, const ScreenOptions& options = {});
 
 }  // namespace apograph::deviation

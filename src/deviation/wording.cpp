@@ -43,7 +43,8 @@ std::string Readings(const Finding& f, bool emended) {
 
 std::string Finding::Note(const std::string& siglum) const {
   const Explanation& e = best();
-  std::string out = CellRange(*this) + " " + column_name + ": " + Readings(*this, false) + " " + siglum + "]";
+  std::string out =
+      CellRange(*this) + " " + column_name + ": " + Readings(*this, false) + " " + siglum + "]";
   if (IsCopyingSlip(e.cls) && e.emendation) {
     out += " read " + Readings(*this, true) + " -";
   } else if (e.cls == SlipClass::kComputational) {

@@ -6,19 +6,26 @@ namespace apograph {
 
 const char* ToString(CellState state) {
   switch (state) {
-    case CellState::kRead: return "read";
-    case CellState::kPartial: return "partial";
-    case CellState::kIllegible: return "illegible";
-    case CellState::kBlank: return "blank";
+    case CellState::kRead:
+      return "read";
+    case CellState::kPartial:
+      return "partial";
+    case CellState::kIllegible:
+      return "illegible";
+    case CellState::kBlank:
+      return "blank";
   }
   return "read";
 }
 
 const char* ToString(Addition addition) {
   switch (addition) {
-    case Addition::kNone: return "none";
-    case Addition::kMargin: return "margin";
-    case Addition::kInterlinear: return "interlinear";
+    case Addition::kNone:
+      return "none";
+    case Addition::kMargin:
+      return "margin";
+    case Addition::kInterlinear:
+      return "interlinear";
   }
   return "none";
 }
@@ -38,8 +45,8 @@ std::optional<Addition> AdditionFromString(const std::string& text) {
 }
 
 bool Cell::SameContent(const Cell& o) const {
-  const bool same_value = value.has_value() == o.value.has_value() &&
-                          (!value || value->Identical(*o.value));
+  const bool same_value =
+      value.has_value() == o.value.has_value() && (!value || value->Identical(*o.value));
   return raw == o.raw && same_value && places == o.places && state == o.state &&
          damaged == o.damaged && doubtful == o.doubtful && addition == o.addition &&
          corrected_from == o.corrected_from && note == o.note;
@@ -66,7 +73,9 @@ std::optional<Sexagesimal> Transcription::ArgumentInUse(std::size_t row) const {
 }
 
 std::optional<Sexagesimal> Transcription::ResolveArgument(std::size_t row) const {
-  auto written = [&](std::size_t i) -> const std::optional<Sexagesimal>& { return rows[i].argument.value; };
+  auto written = [&](std::size_t i) -> const std::optional<Sexagesimal>& {
+    return rows[i].argument.value;
+  };
   const auto& w = written(row);
   const bool has_prev = row > 0 && written(row - 1);
   const bool has_next = row + 1 < rows.size() && written(row + 1);

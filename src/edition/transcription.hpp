@@ -34,17 +34,17 @@ std::optional<Addition> AdditionFromString(const std::string& text);
 
 /// One cell as transcribed.
 struct Cell {
-  std::string raw;                     ///< the reading as typed (`0;4,10`, `?`, `0;?,10`)
-  std::optional<Sexagesimal> value;    ///< present when state == kRead
-  int places = 0;                      ///< places of the column it stands in
+  std::string raw;                   ///< the reading as typed (`0;4,10`, `?`, `0;?,10`)
+  std::optional<Sexagesimal> value;  ///< present when state == kRead
+  int places = 0;                    ///< places of the column it stands in
   CellState state = CellState::kRead;
-  bool damaged = false;                ///< the support is damaged here (reading given anyway)
-  bool doubtful = false;               ///< the editor doubts the reading
+  bool damaged = false;   ///< the support is damaged here (reading given anyway)
+  bool doubtful = false;  ///< the editor doubts the reading
   Addition addition = Addition::kNone;
   std::optional<std::string> corrected_from;  ///< scribal correction: reading before it
-  std::string note;                    ///< the editor's note on this cell
-  int line = 0;                        ///< provenance: line in the source file
-  int column = 0;                      ///< provenance: column in the source file
+  std::string note;                           ///< the editor's note on this cell
+  int line = 0;                               ///< provenance: line in the source file
+  int column = 0;                             ///< provenance: column in the source file
 
   bool operator==(const Cell&) const = default;
   /// Same content, ignoring provenance (used to compare revisions).

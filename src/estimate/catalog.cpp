@@ -29,7 +29,8 @@ std::string DefaultCatalogPath() {
   return std::string(env && *env ? env : APOGRAPH_DATA_DIR) + "/catalog/parameters.tsv";
 }
 
-std::optional<std::vector<std::pair<std::string, std::string>>> ParseAppliesTo(const std::string& text) {
+std::optional<std::vector<std::pair<std::string, std::string>>> ParseAppliesTo(
+    const std::string& text) {
   std::vector<std::pair<std::string, std::string>> out;
   std::istringstream in(text);
   std::string word;
@@ -63,8 +64,8 @@ int FieldColumn(const std::string& line, std::size_t i) {
   return static_cast<int>(pos) + 1;
 }
 
-InputError RowError(const std::string& path, int line_no, const std::string& line, std::size_t field,
-                    const std::string& expected, const std::string& found) {
+InputError RowError(const std::string& path, int line_no, const std::string& line,
+                    std::size_t field, const std::string& expected, const std::string& found) {
   Diagnostic d;
   d.where = {path, line_no, FieldColumn(line, field), line};
   d.message = ExpectedFound(expected, found);
@@ -87,18 +88,24 @@ std::vector<CatalogEntry> ReadCatalogFile(const std::string& path) {
     if (line.empty() || line[0] == '#') continue;
     const auto f = SplitTabs(line);
     if (!header) {
-      if (f.empty() || f[0] != "kind") throw RowError(path, line_no, line, 0, "the header line starting 'kind'", f.empty() ? "" : f[0]);
+      if (f.empty() || f[0] != "kind")
+        throw RowError(path, line_no, line, 0, "the header line starting 'kind'",
+                       f.empty() ? "" : f[0]);
       header = true;
       continue;
     }
-    if (f.size() != 6) throw RowError(path, line_no, line, std::min<std::size_t>(f.size(), 5), "6 tab-separated fields", std::to_string(f.size()) + " fields");
+    if (f.size() != 6)
+      throw RowError(path, line_no, line, std::min<std::size_t>(f.size(), 5),
+                     "6 tab-separated fields", std::to_string(f.size()) + " fields");
     CatalogEntry e;
     e.kind = f[0];
     auto applies = ParseAppliesTo(f[1]);
-    if (!applies) throw RowError(path, line_no, line, 1, "model:parameter pairs separated by blanks", f[1]);
+    if (!applies)
+      throw RowError(path, line_no, line, 1, "model:parameter pairs separated by blanks", f[1]);
     e.applies_to = *applies;
     auto v = Sexagesimal::Parse(f[2]);
-    if (!v) throw RowError(path, line_no, line, 2, "a value in trade notation such as 23;51,20", f[2]);
+    if (!v)
+      throw RowError(path, line_no, line, 2, "a value in trade notation such as 23;51,20", f[2]);
     e.value = *v;
     e.tradition = f[3];
     e.source = f[4];
@@ -110,14 +117,24 @@ std::vector<CatalogEntry> ReadCatalogFile(const std::string& path) {
   return out;
 }
 
-CatalogEntry MakeCatalogEntry(const std::string& kind, const std::string& applies_to, const std::string& value,
-                              const std::string& tradition, const std::string& source, bool from_memory) {
-  if (kind.empty()) throw InputError::ForOption("--kind", ExpectedFound("a kind such as obliquity", "an empty value"));
-  if (source.empty()) throw InputError::ForOption("--source", ExpectedFound("where the value was read", "an empty value"));
+CatalogEntry MakeCatalogEntry(const std::string& kind, const std::string& applies_to,
+                              const std::string& value, const std::string& tradition,
+                              const std::string& source, bool from_memory) {
+  if (kind.empty())
+    throw InputError::ForOption("--kind",
+                                ExpectedFound("a kind such as obliquity", "an empty value"));
+  if (source.empty())
+    throw InputError::ForOption("--source",
+                                ExpectedFound("where the value was read", "an empty value"));
   auto applies = ParseAppliesTo(applies_to);
-  if (!applies) throw InputError::ForOption("--applies-to", ExpectedFound("model:parameter pairs such as solar-eccentric:e", applies_to));
+  if (!applies)
+    throw InputError::ForOption(
+        "--applies-to",
+        ExpectedFound("model:parameter pairs such as solar-eccentric:e", applies_to));
   auto v = Sexagesimal::Parse(value);
-  if (!v) throw InputError::ForOption("--value", ExpectedFound("a value in trade notation such as 23;51,20", value));
+  if (!v)
+    throw InputError::ForOption("--value",
+                                ExpectedFound("a value in trade notation such as 23;51,20", value));
   CatalogEntry e;
   e.kind = kind;
   e.applies_to = *applies;
@@ -128,8 +145,9 @@ CatalogEntry MakeCatalogEntry(const std::string& kind, const std::string& applie
   return e;
 }
 
-std::vector<AttestedMatch> NearestAttested(const std::vector<CatalogEntry>& catalog, const std::string& model,
-                                           const std::string& param, double value, double se, int count) {
+std::vector<AttestedMatch> NearestAttested(const std::vector<CatalogEntry>& catalog,
+                                           const std::string& model, const std::string& param,
+                                           double value, double se, int count) {
   std::vector<AttestedMatch> out;
   for (const auto& e : catalog) {
     if (!e.AppliesTo(model, param)) continue;

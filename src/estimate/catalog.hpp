@@ -47,7 +47,8 @@ CatalogEntry MakeCatalogEntry(const std::string& kind, const std::string& applie
                               const std::string& source, bool from_memory);
 
 /// Parses "model:param model:param"; nullopt when malformed.
-std::optional<std::vector<std::pair<std::string, std::string>>> ParseAppliesTo(const std::string& text);
+std::optional<std::vector<std::pair<std::string, std::string>>> ParseAppliesTo(
+    const std::string& text);
 
 /// An attested value near an estimate.
 struct AttestedMatch {
@@ -57,8 +58,8 @@ struct AttestedMatch {
 };
 
 /// The `count` attested values for (model, param) nearest to `value`.
-std::vector<AttestedMatch> NearestAttested(const std::vector<CatalogEntry>& catalog, const std::string& model,
-                                           const std::string& param, double value, double stderr_,
-                                           int count = 3);
+std::vector<AttestedMatch> NearestAttested(const std::vector<CatalogEntry>& catalog,
+                                           const std::string& model, const std::string& param,
+                                           double value, double stderr_, int count = 3);
 
 }  // namespace apograph::estimate

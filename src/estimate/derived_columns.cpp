@@ -14,7 +14,8 @@ Values ColumnValues(const Transcription& t, int c) {
   Values v(t.rows.size());
   for (std::size_t r = 0; r < t.rows.size(); ++r) {
     const auto& cells = t.rows[r].cells;
-    if (static_cast<std::size_t>(c) < cells.size() && cells[static_cast<std::size_t>(c)].state == CellState::kRead) {
+    if (static_cast<std::size_t>(c) < cells.size() &&
+        cells[static_cast<std::size_t>(c)].state == CellState::kRead) {
       v[r] = cells[static_cast<std::size_t>(c)].value;
     }
   }
@@ -42,13 +43,13 @@ std::vector<double> Smoothed(const Values& v) {
 
 struct Relation {
   std::string name;
-  int offset;   // +1: next row minus this; -1: this minus previous; 0: sum
+  int offset;  // +1: next row minus this; -1: this minus previous; 0: sum
   int divisor;
 };
 
 /// Target brought from an exact source relation value.
-std::optional<Sexagesimal> FromTabulated(const Values& s, const Values* s2, std::size_t i, const Relation& r,
-                                         int places, Rounding rounding) {
+std::optional<Sexagesimal> FromTabulated(const Values& s, const Values* s2, std::size_t i,
+                                         const Relation& r, int places, Rounding rounding) {
   std::optional<Sexagesimal> x;
   if (r.offset == 0) {
     if (s[i] && (*s2)[i]) x = *s[i] + *(*s2)[i];
@@ -60,8 +61,8 @@ std::optional<Sexagesimal> FromTabulated(const Values& s, const Values* s2, std:
   return x->Divided(r.divisor, places, rounding);
 }
 
-std::optional<double> FromPrecise(const std::vector<double>& p, const std::vector<double>* p2, std::size_t i,
-                                  const Relation& r) {
+std::optional<double> FromPrecise(const std::vector<double>& p, const std::vector<double>* p2,
+                                  std::size_t i, const Relation& r) {
   double x = 0;
   if (r.offset == 0) {
     x = p[i] + (*p2)[i];
@@ -75,7 +76,8 @@ std::optional<double> FromPrecise(const std::vector<double>& p, const std::vecto
 }
 
 std::vector<Relation> Relations() {
-  std::vector<Relation> out = {{"difference to the next row", 1, 1}, {"difference from the previous row", -1, 1}};
+  std::vector<Relation> out = {{"difference to the next row", 1, 1},
+                               {"difference from the previous row", -1, 1}};
   for (int k : {2, 3, 4, 5, 6, 10, 12, 15, 20, 30, 60}) {
     out.push_back({"1/" + std::to_string(k) + " of the difference to the next row", 1, k});
     out.push_back({"1/" + std::to_string(k) + " of the difference from the previous row", -1, k});
@@ -100,25 +102,29 @@ bool Test(const Transcription& t, int c, int s, int s2, const Relation& r, Round
       if (d.evidence.empty() && r.divisor > 1) {
         const auto& a = r.offset > 0 ? src[i] : src[i - 1];
         const auto& b = r.offset > 0 ? src[i + 1] : src[i];
-        d.evidence = "row " + std::to_string(i + 1) + ": (" + b->ToString() + " - " + a->ToString() + ") / " +
-                     std::to_string(r.divisor) + " = " + (*b - *a).ToString() + " / " + std::to_string(r.divisor) +
-                     " = " + v->ToString() + ", as tabulated";
+        d.evidence = "row " + std::to_string(i + 1) + ": (" + b->ToString() + " - " +
+                     a->ToString() + ") / " + std::to_string(r.divisor) + " = " +
+                     (*b - *a).ToString() + " / " + std::to_string(r.divisor) + " = " +
+                     v->ToString() + ", as tabulated";
       }
     } else {
       d.mismatched_rows.push_back(i);
     }
-    const auto p = FromPrecise(precise[static_cast<std::size_t>(s)], s2 >= 0 ? &precise[static_cast<std::size_t>(s2)] : nullptr, i, r);
+    const auto p = FromPrecise(precise[static_cast<std::size_t>(s)],
+                               s2 >= 0 ? &precise[static_cast<std::size_t>(s2)] : nullptr, i, r);
     if (p && Sexagesimal::FromDouble(*p, places, rounding) == *target[i]) ++d.matched_precise;
   }
-  if (d.rows < 3 || std::max(d.matched_tabulated, d.matched_precise) * 10 < d.rows * 8) return false;
+  if (d.rows < 3 || std::max(d.matched_tabulated, d.matched_precise) * 10 < d.rows * 8)
+    return false;
   d.column = c;
   d.source = s;
   d.other = s2;
   d.relation = r.name;
   d.divisor = r.divisor;
   d.rounding = rounding;
-  d.basis = d.matched_tabulated > d.matched_precise ? "tabulated entries"
-            : d.matched_precise > d.matched_tabulated ? "precise values" : "cannot tell";
+  d.basis = d.matched_tabulated > d.matched_precise   ? "tabulated entries"
+            : d.matched_precise > d.matched_tabulated ? "precise values"
+                                                      : "cannot tell";
   return true;
 }
 
@@ -129,8 +135,10 @@ std::vector<DerivedColumn> DetectDerivedColumns(const Transcription& table,
   const int ncol = static_cast<int>(table.columns.size());
   std::vector<std::vector<double>> precise(static_cast<std::size_t>(ncol));
   for (int s = 0; s < ncol; ++s) {
-    const bool have = given && static_cast<std::size_t>(s) < given->size() && !(*given)[static_cast<std::size_t>(s)].empty();
-    precise[static_cast<std::size_t>(s)] = have ? (*given)[static_cast<std::size_t>(s)] : Smoothed(ColumnValues(table, s));
+    const bool have = given && static_cast<std::size_t>(s) < given->size() &&
+                      !(*given)[static_cast<std::size_t>(s)].empty();
+    precise[static_cast<std::size_t>(s)] =
+        have ? (*given)[static_cast<std::size_t>(s)] : Smoothed(ColumnValues(table, s));
   }
   std::vector<DerivedColumn> out;
   for (int c = 0; c < ncol; ++c) {
@@ -138,7 +146,10 @@ std::vector<DerivedColumn> DetectDerivedColumns(const Transcription& table,
     auto consider = [&](int s, int s2, const Relation& r) {
       for (Rounding rd : {Rounding::kNearest, Rounding::kTruncate}) {
         DerivedColumn d;
-        if (Test(table, c, s, s2, r, rd, precise, d) && (!best || std::max(d.matched_tabulated, d.matched_precise) > std::max(best->matched_tabulated, best->matched_precise))) best = d;
+        if (Test(table, c, s, s2, r, rd, precise, d) &&
+            (!best || std::max(d.matched_tabulated, d.matched_precise) >
+                          std::max(best->matched_tabulated, best->matched_precise)))
+          best = d;
       }
     };
     for (int s = 0; s < ncol; ++s) {
@@ -150,12 +161,19 @@ std::vector<DerivedColumn> DetectDerivedColumns(const Transcription& table,
     }
     if (best) {
       auto& d = *best;
-      const std::string rel = d.relation == "sum" ? "the sum of " + table.columns[static_cast<std::size_t>(d.source)].name + " and " + table.columns[static_cast<std::size_t>(d.other)].name
-                                                  : d.relation + " of " + table.columns[static_cast<std::size_t>(d.source)].name;
+      const std::string rel =
+          d.relation == "sum"
+              ? "the sum of " + table.columns[static_cast<std::size_t>(d.source)].name + " and " +
+                    table.columns[static_cast<std::size_t>(d.other)].name
+              : d.relation + " of " + table.columns[static_cast<std::size_t>(d.source)].name;
       d.evidence = table.columns[static_cast<std::size_t>(c)].name + " is " + rel + " (" +
-                   (d.rounding == Rounding::kNearest ? "rounded" : "truncated") + ") at " + std::to_string(d.matched_tabulated) +
-                   " of " + std::to_string(d.rows) + " rows from the tabulated entries, " + std::to_string(d.matched_precise) +
-                   " from precise values: " + (d.basis == "cannot tell" ? std::string("the entries cannot tell which") : "made from the " + d.basis) + (d.evidence.empty() ? "" : "; e.g. " + d.evidence);
+                   (d.rounding == Rounding::kNearest ? "rounded" : "truncated") + ") at " +
+                   std::to_string(d.matched_tabulated) + " of " + std::to_string(d.rows) +
+                   " rows from the tabulated entries, " + std::to_string(d.matched_precise) +
+                   " from precise values: " +
+                   (d.basis == "cannot tell" ? std::string("the entries cannot tell which")
+                                             : "made from the " + d.basis) +
+                   (d.evidence.empty() ? "" : "; e.g. " + d.evidence);
       out.push_back(d);
     }
   }

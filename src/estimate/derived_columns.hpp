@@ -23,10 +23,11 @@
 namespace apograph::estimate {
 
 struct DerivedColumn {
-  int column = 0;       ///< the derived column
-  int source = 0;       ///< the column it is made from
-  int other = -1;       ///< second column of a sum
-  std::string relation; ///< "difference to the next row", "1/30 of the difference to the next row", "sum", ...
+  int column = 0;        ///< the derived column
+  int source = 0;        ///< the column it is made from
+  int other = -1;        ///< second column of a sum
+  std::string relation;  ///< "difference to the next row", "1/30 of the difference to the next
+                         ///< row", "sum", ...
   int divisor = 1;
   Rounding rounding = Rounding::kNearest;
   int rows = 0;               ///< rows the relation applies to
@@ -34,12 +35,12 @@ struct DerivedColumn {
   int matched_precise = 0;    ///< reproduced from precise source values
   std::string basis;          ///< "tabulated entries", "precise values", "cannot tell"
   std::vector<std::size_t> mismatched_rows;  ///< rows not reproduced from the tabulated entries
-  std::string evidence;       ///< one sentence with an example in exact arithmetic
+  std::string evidence;                      ///< one sentence with an example in exact arithmetic
 };
 
 /// Finds derived columns. `precise` (optional, per column, per row; NaN
 /// where unknown) holds precise values of source columns.
-std::vector<DerivedColumn> DetectDerivedColumns(const Transcription& table,
-                                                const std::vector<std::vector<double>>* precise = nullptr);
+std::vector<DerivedColumn> DetectDerivedColumns(
+    const Transcription& table, const std::vector<std::vector<double>>* precise = nullptr);
 
 }  // namespace apograph::estimate

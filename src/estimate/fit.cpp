@@ -38,7 +38,8 @@ void FillEntry(FitEntry& e, const Observation& o, double exact, const FitOptions
     return;
   }
   const auto units = internal::BroughtUnits(exact, p, options.practice.rounding);
-  Sexagesimal c = units ? Sexagesimal::FromUnits(*units, p) : Sexagesimal::FromDouble(exact, p, options.practice.rounding);
+  Sexagesimal c = units ? Sexagesimal::FromUnits(*units, p)
+                        : Sexagesimal::FromDouble(exact, p, options.practice.rounding);
   if (p != o.places) c = c.Extended(o.places);
   if (options.modulo_360) c = c.Modulo(360);
   e.computed = c;
@@ -106,7 +107,8 @@ void FillParams(const model::Model& model, internal::FitProblem& problem,
 }
 
 /// Every start solved in full (the reference solver); the best.
-internal::SolveOutcome SolveEach(internal::FitProblem& problem, const std::vector<std::vector<double>>& starts,
+internal::SolveOutcome SolveEach(internal::FitProblem& problem,
+                                 const std::vector<std::vector<double>>& starts,
                                  const FitOptions& options) {
   internal::SolveOutcome best;
   best.cost = std::numeric_limits<double>::infinity();
@@ -152,29 +154,36 @@ std::vector<double> MeanMotionStart(const model::Model& model, internal::FitProb
   for (std::size_t i = 1; i < obs.size(); ++i) {
     const double da = obs[i].arg - obs[i - 1].arg;
     if (obs[i].column != obs[i - 1].column || !(da > 0)) continue;
-    const double dv = std::fmod(obs[i].value.ToDouble() - obs[i - 1].value.ToDouble() + 720.0, 360.0);
+    const double dv =
+        std::fmod(obs[i].value.ToDouble() - obs[i - 1].value.ToDouble() + 720.0, 360.0);
     rates.push_back(dv / da);
   }
   if (rates.size() < 2) return {};
-  std::nth_element(rates.begin(), rates.begin() + static_cast<std::ptrdiff_t>(rates.size() / 2), rates.end());
+  std::nth_element(rates.begin(), rates.begin() + static_cast<std::ptrdiff_t>(rates.size() / 2),
+                   rates.end());
   x[static_cast<std::size_t>(rate)] = rates[rates.size() / 2];
   if (radix >= 0) {
     std::vector<double> radices;
     for (const auto& o : obs) {
-      radices.push_back(std::fmod(o.value.ToDouble() - x[static_cast<std::size_t>(rate)] * o.arg + 3600.0 * 360.0, 360.0));
+      radices.push_back(std::fmod(
+          o.value.ToDouble() - x[static_cast<std::size_t>(rate)] * o.arg + 3600.0 * 360.0, 360.0));
     }
-    std::nth_element(radices.begin(), radices.begin() + static_cast<std::ptrdiff_t>(radices.size() / 2), radices.end());
+    std::nth_element(radices.begin(),
+                     radices.begin() + static_cast<std::ptrdiff_t>(radices.size() / 2),
+                     radices.end());
     x[static_cast<std::size_t>(radix)] = radices[radices.size() / 2];
   }
   return x;
 }
 
-internal::SolveOutcome SolveDistinct(internal::FitProblem& problem, const std::vector<std::vector<double>>& starts,
+internal::SolveOutcome SolveDistinct(internal::FitProblem& problem,
+                                     const std::vector<std::vector<double>>& starts,
                                      const FitOptions& options) {
   std::vector<internal::SolveOutcome> done;
   std::size_t best = 0;
   for (const auto& start : starts) {
-    const std::vector<double> near = internal::Approach(problem, start, options.loss_scale, options.max_iterations);
+    const std::vector<double> near =
+        internal::Approach(problem, start, options.loss_scale, options.max_iterations);
     bool seen = false;
     for (const auto& d : done) seen = seen || SameOptimum(near, d, 10);
     if (seen) continue;
@@ -230,7 +239,9 @@ FitResult Fit(const model::Model& model, const Transcription& table,
   // A model reduced modulo a circle is compared modulo 360.
   if (const int m = model.ParamIndex("modulus"); m >= 0) {
     auto f = options.fixed.find("modulus");
-    const double modulus = f != options.fixed.end() ? f->second : model.params()[static_cast<std::size_t>(m)].default_value;
+    const double modulus = f != options.fixed.end()
+                               ? f->second
+                               : model.params()[static_cast<std::size_t>(m)].default_value;
     options.modulo_360 = options.modulo_360 || modulus > 0;
   }
   for (const auto& [name, v] : options.fixed) {
@@ -247,13 +258,15 @@ FitResult Fit(const model::Model& model, const Transcription& table,
       options.start.empty() ? internal::GridStarts(problem, x0, options.loss_scale, 2)
                             : std::vector<std::vector<double>>{x0};
   if (options.start.empty() && problem.modulo()) {
-    if (auto mm = MeanMotionStart(model, problem, obs, x0); !mm.empty()) starts.insert(starts.begin(), mm);
+    if (auto mm = MeanMotionStart(model, problem, obs, x0); !mm.empty())
+      starts.insert(starts.begin(), mm);
   }
   internal::SolveOutcome best = options.solver == Solver::kCeres
                                     ? SolveEach(problem, starts, options)
                                     : SolveDistinct(problem, starts, options);
   if (best.x.empty()) best.x = x0;
-  if (options.practice.round_nodes && options.practice.grid > 0) Polish(problem, options.loss_scale, best);
+  if (options.practice.round_nodes && options.practice.grid > 0)
+    Polish(problem, options.loss_scale, best);
   result.cost = best.cost;
   result.converged = best.converged;
   result.iterations = best.iterations;
@@ -263,8 +276,8 @@ FitResult Fit(const model::Model& model, const Transcription& table,
   return result;
 }
 
-FitResult Fit(const model::Model& model, const Transcription& table, const std::vector<int>& columns,
-              const FitOptions& options) {
+FitResult Fit(const model::Model& model, const Transcription& table,
+              const std::vector<int>& columns, const FitOptions& options) {
   return Fit(model, table, CollectObservations(table, columns), options);
 }
 

@@ -89,12 +89,12 @@ struct FitEntry {
 
 struct FitResult {
   std::string model;
-  std::vector<FittedParam> params;        ///< model parameters in model order
-  model::Practice practice;               ///< displacement filled in when estimated
+  std::vector<FittedParam> params;  ///< model parameters in model order
+  model::Practice practice;         ///< displacement filled in when estimated
   double displacement_stderr = 0;
-  int free_parameters = 0;                ///< counted for scoring
-  double robust_scale = 0;                ///< 1.4826 MAD of residuals, units
-  double cost = 0;                        ///< robust cost at the optimum
+  int free_parameters = 0;  ///< counted for scoring
+  double robust_scale = 0;  ///< 1.4826 MAD of residuals, units
+  double cost = 0;          ///< robust cost at the optimum
   int n = 0, exact = 0, within1 = 0, flagged = 0;
   std::vector<FitEntry> entries;
   bool converged = false;

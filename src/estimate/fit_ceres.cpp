@@ -10,11 +10,13 @@ namespace {
 /// black box behind the Model interface).
 class EntryCost final : public ceres::CostFunction {
  public:
-  EntryCost(FitProblem& problem, std::size_t index, int k) : problem_(problem), index_(index), k_(k) {
+  EntryCost(FitProblem& problem, std::size_t index, int k)
+      : problem_(problem), index_(index), k_(k) {
     set_num_residuals(1);
     mutable_parameter_block_sizes()->push_back(k);
   }
-  bool Evaluate(double const* const* parameters, double* residuals, double** jacobians) const override {
+  bool Evaluate(double const* const* parameters, double* residuals,
+                double** jacobians) const override {
     const double* x = parameters[0];
     residuals[0] = problem_.Residual(index_, x);
     if (jacobians && jacobians[0]) {

@@ -40,7 +40,8 @@ FitProblem::FitProblem(const model::Model& model, const Transcription& table,
   std::optional<double> arg2;
   std::vector<double> powers;
   auto power = [&](int places) {
-    while (static_cast<int>(powers.size()) <= places) powers.push_back(std::pow(60.0, static_cast<double>(powers.size())));
+    while (static_cast<int>(powers.size()) <= places)
+      powers.push_back(std::pow(60.0, static_cast<double>(powers.size())));
     return powers[static_cast<std::size_t>(places)];
   };
   for (const auto& o : obs) {
@@ -74,7 +75,8 @@ std::vector<double> FitProblem::Start(const FitOptions& options) const {
 }
 
 const std::vector<double>& FitProblem::Expand(const double* x) {
-  for (std::size_t j = 0; j < free_index_.size(); ++j) full_[static_cast<std::size_t>(free_index_[j])] = x[j];
+  for (std::size_t j = 0; j < free_index_.size(); ++j)
+    full_[static_cast<std::size_t>(free_index_[j])] = x[j];
   return full_;
 }
 
@@ -133,9 +135,9 @@ void FitProblem::Linearise(const double* x, double* r, double* J, double* v,
   const std::size_t km = free_index_.size();
   for (std::size_t row = 0; row < m; ++row) {
     const Entry& e = entries_[subset ? (*subset)[row] : row];
-    const double value =
-        model::PracticeValueWithGradient(model_, full_, e.ctx, practice_, e.places, free_index_, gradient_.data()) +
-        shift;
+    const double value = model::PracticeValueWithGradient(model_, full_, e.ctx, practice_, e.places,
+                                                          free_index_, gradient_.data()) +
+                         shift;
     v[row] = value;
     r[row] = ResidualOf(subset ? (*subset)[row] : row, value);
     double* Jr = J + row * k;
@@ -166,7 +168,8 @@ long double LongPowerOf60(int places) {
 std::optional<std::int64_t> BroughtUnits(double value, int places, Rounding rounding) {
   const long double scaled = static_cast<long double>(value) * LongPowerOf60(places);
   if (!(fabsl(scaled) < 0x1p52L)) return std::nullopt;
-  if (rounding == Rounding::kTruncate) return static_cast<std::int64_t>(scaled);  // toward zero, as truncl
+  if (rounding == Rounding::kTruncate)
+    return static_cast<std::int64_t>(scaled);  // toward zero, as truncl
   // roundl (ties away from zero) by the hardware's nearest-even conversion,
   // the ties then moved away from zero: scaled - n is exact here.
   std::int64_t n = llrintl(scaled);

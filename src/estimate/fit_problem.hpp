@@ -18,7 +18,9 @@ class FitProblem {
              const std::vector<Observation>& obs, const FitOptions& options);
 
   std::size_t size() const { return entries_.size(); }
-  int num_free() const { return static_cast<int>(free_index_.size()) + (fit_displacement_ ? 1 : 0); }
+  int num_free() const {
+    return static_cast<int>(free_index_.size()) + (fit_displacement_ ? 1 : 0);
+  }
   const std::vector<double>& lows() const { return lows_; }
   const std::vector<double>& highs() const { return highs_; }
   /// Starting free vector from defaults, options.start and the practice.
@@ -54,9 +56,9 @@ class FitProblem {
  private:
   struct Entry {
     model::RowContext ctx;
-    double target = 0;         ///< tabulated units + truncation offset
-    double tab = 0;            ///< tabulated value as a double
-    double scale = 1;          ///< 60^places
+    double target = 0;  ///< tabulated units + truncation offset
+    double tab = 0;     ///< tabulated value as a double
+    double scale = 1;   ///< 60^places
     int places = 0;
   };
   double ModelValue(const Entry& e);

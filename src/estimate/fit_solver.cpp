@@ -52,11 +52,22 @@ struct Buffers {
   std::size_t n = 0;
 
   Buffers(std::size_t entries, int k)
-      : r(entries), r2(entries), J(entries * static_cast<std::size_t>(k)), J2(J.size()), v(entries),
-        v2(entries), A(static_cast<std::size_t>(k * k)), H(A.size()), g(static_cast<std::size_t>(k)),
-        trial(g.size()), delta(g.size()), M(A.size()) {}
+      : r(entries),
+        r2(entries),
+        J(entries * static_cast<std::size_t>(k)),
+        J2(J.size()),
+        v(entries),
+        v2(entries),
+        A(static_cast<std::size_t>(k * k)),
+        H(A.size()),
+        g(static_cast<std::size_t>(k)),
+        trial(g.size()),
+        delta(g.size()),
+        M(A.size()) {}
   /// Residuals, Jacobian and values at x over the current entries.
-  void At(FitProblem& p, const std::vector<double>& x) { p.Linearise(x.data(), r.data(), J.data(), v.data(), subset); }
+  void At(FitProblem& p, const std::vector<double>& x) {
+    p.Linearise(x.data(), r.data(), J.data(), v.data(), subset);
+  }
 };
 
 /// From the residuals b.r and Jacobian b.J: the weighted normal matrix
@@ -154,7 +165,8 @@ double Minimise(FitProblem& p, std::vector<double>& x, double s, int max_iterati
         lambda = std::max(lambda * 10, 0.1);
       }
     }
-    if (!improved || before - cost <= kCostTolerance * before) {  // no descent left, or too little to matter
+    if (!improved ||
+        before - cost <= kCostTolerance * before) {  // no descent left, or too little to matter
       if (improved) Normal(k, s, b);
       out.converged = true;
       break;
@@ -271,7 +283,8 @@ std::vector<std::vector<double>> GridStarts(FitProblem& p, const std::vector<dou
       x[k - 1] = 0;
       p.Residuals(x.data(), r.data(), &sub);
       std::vector<double> tmp(r);
-      std::nth_element(tmp.begin(), tmp.begin() + static_cast<std::ptrdiff_t>(tmp.size() / 2), tmp.end());
+      std::nth_element(tmp.begin(), tmp.begin() + static_cast<std::ptrdiff_t>(tmp.size() / 2),
+                       tmp.end());
       const double median = tmp[tmp.size() / 2];
       x[k - 1] = median / scale0;
       if (p.modulo()) {
@@ -284,7 +297,8 @@ std::vector<std::vector<double>> GridStarts(FitProblem& p, const std::vector<dou
     }
     scored.emplace_back(CauchyCost(r.data(), r.size(), s), x);
   }
-  std::sort(scored.begin(), scored.end(), [](const auto& a, const auto& b) { return a.first < b.first; });
+  std::sort(scored.begin(), scored.end(),
+            [](const auto& a, const auto& b) { return a.first < b.first; });
   // The best grid point, then others whose subsample cost is close to it
   // (rival basins), then the caller's start when it is competitive.
   std::vector<std::vector<double>> starts;
@@ -304,7 +318,8 @@ std::vector<std::vector<double>> GridStarts(FitProblem& p, const std::vector<dou
     if (!near_chosen(v)) starts.push_back(v);
   }
   p.Residuals(x0.data(), r.data(), &sub);
-  if (CauchyCost(r.data(), r.size(), s) <= best * 1.1 + 1e-9 && !near_chosen(x0)) starts.push_back(x0);
+  if (CauchyCost(r.data(), r.size(), s) <= best * 1.1 + 1e-9 && !near_chosen(x0))
+    starts.push_back(x0);
   return starts;
 }
 

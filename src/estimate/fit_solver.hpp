@@ -34,7 +34,8 @@ std::vector<double> Approach(FitProblem& problem, std::vector<double> x, double 
 
 /// SolveFast's second stage, on every entry: converged when the next Newton
 /// step would move no parameter by more than 1/100 of its standard error.
-SolveOutcome Refine(FitProblem& problem, std::vector<double> x, double loss_scale, int max_iterations);
+SolveOutcome Refine(FitProblem& problem, std::vector<double> x, double loss_scale,
+                    int max_iterations);
 
 /// The same problem through Ceres (CauchyLoss, one residual block per entry)
 /// with ceres::Covariance at the optimum.

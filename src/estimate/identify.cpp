@@ -11,11 +11,12 @@ namespace apograph::estimate {
 
 namespace {
 
-constexpr double kAuthor = 0.98;   // share of entries as the author computed them
-constexpr double kRatio = 0.1;     // P(|d| = j+1) / P(|d| = j) for the author's entries
-constexpr double kNearTie = 2.0;   // score difference below which candidates tie
+constexpr double kAuthor = 0.98;  // share of entries as the author computed them
+constexpr double kRatio = 0.1;    // P(|d| = j+1) / P(|d| = j) for the author's entries
+constexpr double kNearTie = 2.0;  // score difference below which candidates tie
 constexpr std::size_t kGridRefits = 2;
-constexpr double kZeroShare = 0.9;  // share of entries ending in 0 that reduces the places (see ReducedPlaces)  // grids refitted per family (see BestGrids)
+constexpr double kZeroShare = 0.9;  // share of entries ending in 0 that reduces the places (see
+                                    // ReducedPlaces)  // grids refitted per family (see BestGrids)
 
 std::string Trimmed(double v) {
   std::ostringstream o;
@@ -23,16 +24,20 @@ std::string Trimmed(double v) {
   return o.str();
 }
 
-bool IsMeanMotion(const model::Model& m) { return m.ParamIndex("modulus") >= 0 && m.ParamIndex("rate") >= 0; }
+bool IsMeanMotion(const model::Model& m) {
+  return m.ParamIndex("modulus") >= 0 && m.ParamIndex("rate") >= 0;
+}
 
 /// The model gives a finite value for most rows at its defaults.
-bool Applicable(const model::Model& m, const Transcription& table, const std::vector<Observation>& obs) {
+bool Applicable(const model::Model& m, const Transcription& table,
+                const std::vector<Observation>& obs) {
   const std::vector<double> p = m.Defaults();
   int bad = 0, tried = 0;
   const std::size_t step = std::max<std::size_t>(1, obs.size() / 20);
   for (std::size_t i = 0; i < obs.size(); i += step) {
     const auto& col = table.columns[static_cast<std::size_t>(obs[i].column)];
-    model::RowContext ctx{obs[i].arg, col.arg2 ? std::optional<double>(col.arg2->ToDouble()) : std::nullopt,
+    model::RowContext ctx{obs[i].arg,
+                          col.arg2 ? std::optional<double>(col.arg2->ToDouble()) : std::nullopt,
                           &table, obs[i].row, obs[i].column};
     ++tried;
     try {
@@ -56,17 +61,22 @@ Candidate MakeCandidate(const model::Model& m, FitResult fit, bool grid) {
 /// A practice text for comparing two candidates.
 std::string Difference(const Candidate& a, const Candidate& b) {
   std::vector<std::string> parts;
-  if (a.model != b.model) parts.push_back("the model (" + a.model->name() + " / " + b.model->name() + ")");
-  if (a.PracticeText() != b.PracticeText()) parts.push_back("the practice (" + a.PracticeText() + " / " + b.PracticeText() + ")");
+  if (a.model != b.model)
+    parts.push_back("the model (" + a.model->name() + " / " + b.model->name() + ")");
+  if (a.PracticeText() != b.PracticeText())
+    parts.push_back("the practice (" + a.PracticeText() + " / " + b.PracticeText() + ")");
   std::vector<std::string> args;
   for (std::size_t i = 0; i < a.fit.entries.size() && i < b.fit.entries.size(); ++i) {
     const auto& x = a.fit.entries[i].computed;
     const auto& y = b.fit.entries[i].computed;
-    if (x.has_value() != y.has_value() || (x && !(*x == *y))) args.push_back(Trimmed(a.fit.entries[i].arg));
+    if (x.has_value() != y.has_value() || (x && !(*x == *y)))
+      args.push_back(Trimmed(a.fit.entries[i].arg));
   }
   std::string s;
   for (std::size_t i = 0; i < parts.size(); ++i) s += (i ? " and " : "") + parts[i];
-  if (args.empty()) return s + "; they compute the same value at every entry, so the entries cannot tell them apart";
+  if (args.empty())
+    return s +
+           "; they compute the same value at every entry, so the entries cannot tell them apart";
   s += "; their computed values differ at " + std::to_string(args.size()) + " entries (argument";
   s += args.size() > 1 ? "s " : " ";
   for (std::size_t i = 0; i < args.size() && i < 8; ++i) s += (i ? ", " : "") + args[i];
@@ -79,8 +89,9 @@ std::string Difference(const Candidate& a, const Candidate& b) {
 /// instead of one per grid. The ranking of grids is clear on a subsample:
 /// the right grid reproduces its entries exactly, a wrong one misses by the
 /// curvature between its nodes.
-std::vector<double> BestGrids(const model::Model& m, const Transcription& table, const std::vector<Observation>& sub,
-                              const Candidate& seed, const std::vector<double>& grids, std::size_t keep) {
+std::vector<double> BestGrids(const model::Model& m, const Transcription& table,
+                              const std::vector<Observation>& sub, const Candidate& seed,
+                              const std::vector<double>& grids, std::size_t keep) {
   std::vector<std::pair<double, double>> scored;  // score, grid
   for (double g : grids) {
     FitOptions fo;
@@ -93,7 +104,8 @@ std::vector<double> BestGrids(const model::Model& m, const Transcription& table,
     }
     scored.emplace_back(Score(Fit(m, table, sub, fo), seed.fit.free_parameters + 1), g);
   }
-  std::stable_sort(scored.begin(), scored.end(), [](const auto& a, const auto& b) { return a.first > b.first; });
+  std::stable_sort(scored.begin(), scored.end(),
+                   [](const auto& a, const auto& b) { return a.first > b.first; });
   std::vector<double> out;
   for (std::size_t i = 0; i < scored.size() && i < keep; ++i) out.push_back(scored[i].second);
   return out;
@@ -106,7 +118,8 @@ std::optional<int> ReducedPlaces(const std::vector<Observation>& obs) {
   if (places < 1) return std::nullopt;
   std::size_t zeros = 0;
   for (const auto& o : obs) zeros += o.places == places && std::fmod(std::fabs(o.units), 60.0) == 0;
-  if (static_cast<double>(zeros) < kZeroShare * static_cast<double>(obs.size())) return std::nullopt;
+  if (static_cast<double>(zeros) < kZeroShare * static_cast<double>(obs.size()))
+    return std::nullopt;
   return places - 1;
 }
 
@@ -123,8 +136,8 @@ std::string Implausible(const Candidate& c) {
     if (p.fixed || !(width > 0)) continue;
     if (p.value < specs[j].low - width || p.value > specs[j].high + width) {
       std::ostringstream o;
-      o << p.name << " = " << p.value << ", far outside its historical range " << specs[j].low << " .. "
-        << specs[j].high;
+      o << p.name << " = " << p.value << ", far outside its historical range " << specs[j].low
+        << " .. " << specs[j].high;
       return o.str();
     }
   }
@@ -144,8 +157,8 @@ void SetAsideImplausible(std::vector<Candidate>& all, std::vector<std::string>& 
     if (plausible.empty()) {
       std::ostringstream o;
       o.precision(4);
-      o << c.model->name() << " (" << c.PracticeText() << ") scores " << c.score << " but with " << why
-        << "; ranked after the explanations with historical values.";
+      o << c.model->name() << " (" << c.PracticeText() << ") scores " << c.score << " but with "
+        << why << "; ranked after the explanations with historical values.";
       notes.push_back(o.str());
     }
     aside.push_back(std::move(c));
@@ -165,7 +178,8 @@ std::string Candidate::PracticeText() const {
   std::string s = p.rounding == Rounding::kTruncate ? "truncated" : "rounded";
   if (p.places) s += ", " + std::to_string(*p.places) + " places";
   if (p.grid > 0) s += ", grid " + Trimmed(p.grid) + (p.round_nodes ? " (rounded nodes)" : "");
-  if (p.displacement != 0) s += ", displacement " + Sexagesimal::FromDouble(p.displacement, 2).ToString();
+  if (p.displacement != 0)
+    s += ", displacement " + Sexagesimal::FromDouble(p.displacement, 2).ToString();
   return s;
 }
 
@@ -211,7 +225,8 @@ Identification Identify(const Transcription& table, int column, const IdentifyOp
   if (obs.size() < 3) return out;
   const bool mean_motion = LooksLikeMeanMotion(table, column);
   if (mean_motion) out.mean_motion = AnalyseMeanMotion(table, column);
-  std::vector<const model::Model*> models = options.models.empty() ? model::BuiltinModels() : options.models;
+  std::vector<const model::Model*> models =
+      options.models.empty() ? model::BuiltinModels() : options.models;
   models.insert(models.end(), options.extra_models.begin(), options.extra_models.end());
   auto by_score = [](const Candidate& a, const Candidate& b) { return a.score > b.score; };
   // Round 0, on a subsample of at most 60 entries: every applicable family,
@@ -268,7 +283,8 @@ Identification Identify(const Transcription& table, int column, const IdentifyOp
     }
     all.push_back(std::move(c));
   };
-  for (std::size_t i = 0; i < screen.size() && i < static_cast<std::size_t>(options.refine + 3); ++i) {
+  for (std::size_t i = 0; i < screen.size() && i < static_cast<std::size_t>(options.refine + 3);
+       ++i) {
     for (Rounding r : {Rounding::kNearest, Rounding::kTruncate}) {
       refit(screen[i], r, 0);
       ++out.candidates_tried;
@@ -291,13 +307,16 @@ Identification Identify(const Transcription& table, int column, const IdentifyOp
     const bool perfect = !all.empty() && all[0].fit.exact == all[0].fit.n;
     const std::vector<double> grids = CandidateGrids(table);
     for (const auto& seed : perfect ? std::vector<Candidate>{} : seeds) {
-      for (double g : BestGrids(*seed.model, table, sub, seed, grids, kGridRefits)) refit(seed, seed.fit.practice.rounding, g);
+      for (double g : BestGrids(*seed.model, table, sub, seed, grids, kGridRefits))
+        refit(seed, seed.fit.practice.rounding, g);
       out.candidates_tried += static_cast<int>(grids.size());
     }
     std::stable_sort(all.begin(), all.end(), by_score);
     if (!perfect && all[0].fit.practice.grid > 0) {  // the best grid under the other rounding
       const Candidate best = all[0];
-      refit(best, best.fit.practice.rounding == Rounding::kNearest ? Rounding::kTruncate : Rounding::kNearest,
+      refit(best,
+            best.fit.practice.rounding == Rounding::kNearest ? Rounding::kTruncate
+                                                             : Rounding::kNearest,
             best.fit.practice.grid);
       ++out.candidates_tried;
       std::stable_sort(all.begin(), all.end(), by_score);
@@ -315,9 +334,10 @@ Identification Identify(const Transcription& table, int column, const IdentifyOp
     if (all[0].score - all[i].score >= kNearTie) break;
     std::ostringstream o;
     o.precision(4);
-    o << all[0].model->name() << " (" << all[0].PracticeText() << ") and " << all[i].model->name() << " ("
-      << all[i].PracticeText() << ") explain the column about equally well (score " << all[0].score << " vs "
-      << all[i].score << "); they differ in " << Difference(all[0], all[i]) << ".";
+    o << all[0].model->name() << " (" << all[0].PracticeText() << ") and " << all[i].model->name()
+      << " (" << all[i].PracticeText() << ") explain the column about equally well (score "
+      << all[0].score << " vs " << all[i].score << "); they differ in "
+      << Difference(all[0], all[i]) << ".";
     out.notes.push_back(o.str());
   }
   if (static_cast<int>(all.size()) > options.top) all.resize(static_cast<std::size_t>(options.top));

@@ -76,8 +76,8 @@ struct IdentifyOptions {
 
 struct Identification {
   int column = 0;
-  std::vector<Candidate> ranked;  ///< best first, at most `top`
-  std::vector<std::string> notes; ///< near-ties and what tells them apart
+  std::vector<Candidate> ranked;                  ///< best first, at most `top`
+  std::vector<std::string> notes;                 ///< near-ties and what tells them apart
   std::optional<MeanMotionAnalysis> mean_motion;  ///< for mean-motion columns
   int candidates_tried = 0;
 };
@@ -87,7 +87,8 @@ struct Identification {
 double Score(const FitResult& fit, int penalised_parameters, double* log_likelihood = nullptr);
 
 /// Ranks the explanations of column `column`.
-Identification Identify(const Transcription& table, int column, const IdentifyOptions& options = {});
+Identification Identify(const Transcription& table, int column,
+                        const IdentifyOptions& options = {});
 
 /// Interpolation grids worth trying for a table's argument step and range.
 std::vector<double> CandidateGrids(const Transcription& table);

@@ -13,10 +13,14 @@ namespace apograph::estimate {
 
 const char* ToString(EntryOrigin origin) {
   switch (origin) {
-    case EntryOrigin::kDirect: return "direct";
-    case EntryOrigin::kMultiple: return "multiple";
-    case EntryOrigin::kSum: return "sum";
-    case EntryOrigin::kUnexplained: return "unexplained";
+    case EntryOrigin::kDirect:
+      return "direct";
+    case EntryOrigin::kMultiple:
+      return "multiple";
+    case EntryOrigin::kSum:
+      return "sum";
+    case EntryOrigin::kUnexplained:
+      return "unexplained";
   }
   return "unexplained";
 }
@@ -49,7 +53,8 @@ std::string Arg(Real a) {
 }
 
 /// Restores whole turns by argument and sets radix and rate estimates.
-void Unwrap(std::vector<Item>& items, Real radix, Real rate, std::vector<MeanMotionEntry>& entries) {
+void Unwrap(std::vector<Item>& items, Real radix, Real rate,
+            std::vector<MeanMotionEntry>& entries) {
   Real best_a = 0;
   for (auto& it : items) {
     const Real k = std::round((radix + rate * it.a - it.v) / 360);
@@ -115,11 +120,13 @@ bool Reproduces(const Sexagesimal& rate, const Sexagesimal& radix, std::int64_t 
 namespace {
 
 /// Entries, items sorted by argument, radix and a first rate.
-void Setup(const Transcription& table, int column, MeanMotionAnalysis& out, std::vector<Item>& items) {
+void Setup(const Transcription& table, int column, MeanMotionAnalysis& out,
+           std::vector<Item>& items) {
   const auto obs = CollectObservations(table, {column});
   if (obs.size() < 2) {
-    throw InputError::ForOption("--column", ExpectedFound("a mean-motion column with two or more readable entries",
-                                                          table.columns.at(static_cast<std::size_t>(column)).name));
+    throw InputError::ForOption(
+        "--column", ExpectedFound("a mean-motion column with two or more readable entries",
+                                  table.columns.at(static_cast<std::size_t>(column)).name));
   }
   out.column = column;
   out.places = obs.front().places;
@@ -153,9 +160,12 @@ void RadixAndTurns(MeanMotionAnalysis& out, std::vector<Item>& items) {
       out.radix_present = true;
     }
   }
-  if (pos.size() < 2) throw InputError::ForOption("--column", "expected two entries at positive arguments, found fewer");
+  if (pos.size() < 2)
+    throw InputError::ForOption("--column",
+                                "expected two entries at positive arguments, found fewer");
   const Real rate0 = Wrap360(pos[1]->v - pos[0]->v) / (pos[1]->a - pos[0]->a);
-  Real radix = out.radix_present ? static_cast<Real>(out.radix.ToDouble()) : Wrap360(pos[0]->v - rate0 * pos[0]->a);
+  Real radix = out.radix_present ? static_cast<Real>(out.radix.ToDouble())
+                                 : Wrap360(pos[0]->v - rate0 * pos[0]->a);
   if (radix > 180) radix -= 360;
   Unwrap(items, radix, rate0, out.entries);
   if (!out.radix_present) {
@@ -163,7 +173,11 @@ void RadixAndTurns(MeanMotionAnalysis& out, std::vector<Item>& items) {
     Real sa = 0, sv = 0, saa = 0, sav = 0, n = 0;
     for (const auto* it : pos) {
       const Real v = it->t + radix;
-      sa += it->a; sv += v; saa += it->a * it->a; sav += it->a * v; n += 1;
+      sa += it->a;
+      sv += v;
+      saa += it->a * it->a;
+      sav += it->a * v;
+      n += 1;
     }
     const Real rate = (n * sav - sa * sv) / (n * saa - sa * sa);
     const Real intercept = (sv - rate * sa) / n;
@@ -171,7 +185,8 @@ void RadixAndTurns(MeanMotionAnalysis& out, std::vector<Item>& items) {
     // least-squares line is pulled by entries made otherwise).
     auto shared = [&](Real r) {
       Unwrap(items, r, rate, out.entries);
-      return std::max(MaxStab(items, Rounding::kNearest).count, MaxStab(items, Rounding::kTruncate).count);
+      return std::max(MaxStab(items, Rounding::kNearest).count,
+                      MaxStab(items, Rounding::kTruncate).count);
     };
     const Sexagesimal fitted = Sexagesimal::FromDouble(static_cast<double>(intercept), out.places);
     const bool use = !fitted.is_zero() && pos.size() > 2 &&
@@ -260,7 +275,8 @@ bool TryMultiple(MeanMotionAnalysis& out, const Item& i, const Item& j, const Se
   return true;
 }
 
-bool TrySum(MeanMotionAnalysis& out, const Item& i, const Item& j, const Item& l, const Sexagesimal& radix) {
+bool TrySum(MeanMotionAnalysis& out, const Item& i, const Item& j, const Item& l,
+            const Sexagesimal& radix) {
   if (!j.integer || !l.integer || j.ia <= 0 || l.ia <= 0 || j.ia + l.ia != i.ia) return false;
   auto& e = out.entries[i.entry];
   const auto& f = out.entries[j.entry];
@@ -270,8 +286,9 @@ bool TrySum(MeanMotionAnalysis& out, const Item& i, const Item& j, const Item& l
   if (!(reduced == e.value)) return false;
   e.origin = EntryOrigin::kSum;
   e.from = {f.row, g.row};
-  e.evidence = Fmt(e.value) + " = " + Fmt(f.value) + " + " + Fmt(g.value) + " (entries at " + Arg(j.a) +
-               " and " + Arg(l.a) + ") = " + TurnsText(raw, reduced) + ": made from rounded entries";
+  e.evidence = Fmt(e.value) + " = " + Fmt(f.value) + " + " + Fmt(g.value) + " (entries at " +
+               Arg(j.a) + " and " + Arg(l.a) + ") = " + TurnsText(raw, reduced) +
+               ": made from rounded entries";
   if (e.direct) e.evidence += "; the rate itself would give " + Fmt(*e.direct);
   return true;
 }
@@ -299,8 +316,9 @@ void Derivations(MeanMotionAnalysis& out, const std::vector<Item>& items) {
     const Real hi = (i.t + (out.rounding == Rounding::kNearest ? i.u / 2 : i.u)) / i.a;
     std::ostringstream o;
     o.precision(12);
-    o << "not explained: reproducing " << Fmt(e.value) << " needs a rate in [" << static_cast<double>(lo) << ", "
-      << static_cast<double>(hi) << "], outside the rates shared by the direct entries [" << out.rate_low << ", "
+    o << "not explained: reproducing " << Fmt(e.value) << " needs a rate in ["
+      << static_cast<double>(lo) << ", " << static_cast<double>(hi)
+      << "], outside the rates shared by the direct entries [" << out.rate_low << ", "
       << out.rate_high << "] (they give " << (e.direct ? Fmt(*e.direct) : std::string("-"))
       << "); it is no multiple of another entry and no sum of two";
     e.evidence = o.str();
@@ -380,11 +398,13 @@ void Verdict(MeanMotionAnalysis& out) {
       ++derived;
       derived_args += (derived_args.empty() ? "" : ", ") + Arg(e.arg);
     }
-    if (e.origin == EntryOrigin::kUnexplained) unexplained_args += (unexplained_args.empty() ? "" : ", ") + Arg(e.arg);
+    if (e.origin == EntryOrigin::kUnexplained)
+      unexplained_args += (unexplained_args.empty() ? "" : ", ") + Arg(e.arg);
   }
   o << direct << " of " << out.entries.size() << " entries are reproduced by one rate ("
-    << (out.rounding == Rounding::kNearest ? "rounded" : "truncated") << "): " << Fmt(out.rate_sexagesimal)
-    << " per unit (any rate in [" << out.rate_low << ", " << out.rate_high << "]).";
+    << (out.rounding == Rounding::kNearest ? "rounded" : "truncated")
+    << "): " << Fmt(out.rate_sexagesimal) << " per unit (any rate in [" << out.rate_low << ", "
+    << out.rate_high << "]).";
   if (out.successive_addition && out.successive_exceptions.empty()) {
     o << " Every entry is the previous one plus " << Fmt(*out.unit_value)
       << ": successive addition of the rounded unit value (error against the shared rate "
@@ -407,15 +427,19 @@ void Verdict(MeanMotionAnalysis& out) {
     std::string off;
     for (const auto& a : out.successive_exceptions) off += (off.empty() ? "" : ", ") + a;
     const std::size_t n = out.entries.size();
-    out.verdict = "Built from the rounded unit value " + Fmt(*out.unit_value) + ": " +
-                  std::to_string(n - out.successive_exceptions.size()) + " of " + std::to_string(n) +
-                  " entries are the first plus k times it (successive addition, or multiplication, of the "
-                  "rounded value; the error against a precise rate grows along the table). Off the pattern, "
-                  "to be explained as slips or as the author's: " + off + ". Entry by entry: " + out.verdict;
+    out.verdict =
+        "Built from the rounded unit value " + Fmt(*out.unit_value) + ": " +
+        std::to_string(n - out.successive_exceptions.size()) + " of " + std::to_string(n) +
+        " entries are the first plus k times it (successive addition, or multiplication, of the "
+        "rounded value; the error against a precise rate grows along the table). Off the pattern, "
+        "to be explained as slips or as the author's: " +
+        off + ". Entry by entry: " + out.verdict;
   }
 }
 
-int Explained(const MeanMotionAnalysis& a) { return static_cast<int>(a.entries.size()) - a.unexplained; }
+int Explained(const MeanMotionAnalysis& a) {
+  return static_cast<int>(a.entries.size()) - a.unexplained;
+}
 
 /// Other rounded entries an entry (made directly) also equals.
 void AlsoDerived(MeanMotionAnalysis& out, const std::vector<Item>& items) {
@@ -428,7 +452,8 @@ void AlsoDerived(MeanMotionAnalysis& out, const std::vector<Item>& items) {
   for (std::size_t i = 0; i < out.entries.size(); ++i) {
     auto& e = out.entries[i];
     const auto& q = probe.entries[i];
-    if (e.origin == EntryOrigin::kDirect && (q.origin == EntryOrigin::kMultiple || q.origin == EntryOrigin::kSum)) {
+    if (e.origin == EntryOrigin::kDirect &&
+        (q.origin == EntryOrigin::kMultiple || q.origin == EntryOrigin::kSum)) {
       e.evidence += "; it also equals " + q.evidence.substr(q.evidence.find('=') + 2);
       e.from = q.from;
     }
@@ -436,19 +461,22 @@ void AlsoDerived(MeanMotionAnalysis& out, const std::vector<Item>& items) {
 }
 
 /// Entries that equal a multiple or a sum of other tabulated entries.
-std::vector<bool> MadeFromOthers(const MeanMotionAnalysis& base, const std::vector<Item>& items, Rounding r) {
+std::vector<bool> MadeFromOthers(const MeanMotionAnalysis& base, const std::vector<Item>& items,
+                                 Rounding r) {
   MeanMotionAnalysis probe = base;
   probe.rounding = r;
   Derivations(probe, items);
   std::vector<bool> out(probe.entries.size(), false);
-  for (std::size_t i = 0; i < out.size(); ++i) out[i] = probe.entries[i].origin != EntryOrigin::kUnexplained;
+  for (std::size_t i = 0; i < out.size(); ++i)
+    out[i] = probe.entries[i].origin != EntryOrigin::kUnexplained;
   return out;
 }
 
-MeanMotionAnalysis Run(const MeanMotionAnalysis& base, std::vector<Item>& items, Rounding r, bool derived_first) {
+MeanMotionAnalysis Run(const MeanMotionAnalysis& base, std::vector<Item>& items, Rounding r,
+                       bool derived_first) {
   MeanMotionAnalysis a = base;
-  const std::vector<bool> aside =
-      derived_first ? MadeFromOthers(base, items, r) : std::vector<bool>(base.entries.size(), false);
+  const std::vector<bool> aside = derived_first ? MadeFromOthers(base, items, r)
+                                                : std::vector<bool>(base.entries.size(), false);
   Direct(a, items, r, aside);
   Derivations(a, items);
   AlsoDerived(a, items);
@@ -488,8 +516,9 @@ MeanMotionAnalysis AnalyseMeanMotion(const Transcription& table, int column) {
     std::ostringstream o;
     o.precision(12);
     o << " Equally good: " << (other.rounding == Rounding::kNearest ? "rounding" : "truncation")
-      << " of a rate in [" << other.rate_low << ", " << other.rate_high << "] (" << Fmt(other.rate_sexagesimal)
-      << ") makes " << direct << " entries direct and explains as many; the entries alone cannot tell the two apart.";
+      << " of a rate in [" << other.rate_low << ", " << other.rate_high << "] ("
+      << Fmt(other.rate_sexagesimal) << ") makes " << direct
+      << " entries direct and explains as many; the entries alone cannot tell the two apart.";
     out.verdict += o.str();
     break;
   }
@@ -509,7 +538,8 @@ bool LooksLikeMeanMotion(const Transcription& table, int column) {
     std::vector<Item> items;
     Setup(table, column, a, items);
     RadixAndTurns(a, items);
-    const int shared = std::max(MaxStab(items, Rounding::kNearest).count, MaxStab(items, Rounding::kTruncate).count);
+    const int shared = std::max(MaxStab(items, Rounding::kNearest).count,
+                                MaxStab(items, Rounding::kTruncate).count);
     return shared * 10 >= static_cast<int>(items.size()) * 6 && shared >= 3;
   } catch (const std::exception&) {
     return false;

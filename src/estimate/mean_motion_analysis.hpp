@@ -56,7 +56,7 @@ struct MeanMotionAnalysis {
   double rate_low = 0, rate_high = 0;  ///< rates that reproduce every direct entry
   double rate = 0;                     ///< least squares over the direct entries
   double rate_stderr = 0;
-  Sexagesimal rate_sexagesimal;        ///< mid-interval, to the places the entries allow
+  Sexagesimal rate_sexagesimal;  ///< mid-interval, to the places the entries allow
   /// Coarsest rounded rate reproducing every direct entry (exact check).
   std::optional<Sexagesimal> rounded_rate;
   /// Arguments in a regular step and (at least three quarters of) the

@@ -14,10 +14,10 @@ namespace apograph::estimate {
 struct Observation {
   std::size_t row = 0;
   int column = 0;
-  double arg = 0;       ///< the argument the model uses (model::RowArgument)
-  Sexagesimal value;    ///< as tabulated
-  int places = 0;       ///< places of the column
-  double units = 0;     ///< value in units of its last place (an integer)
+  double arg = 0;     ///< the argument the model uses (model::RowArgument)
+  Sexagesimal value;  ///< as tabulated
+  int places = 0;     ///< places of the column
+  double units = 0;   ///< value in units of its last place (an integer)
 };
 
 /// The readable entries of `columns` (every value column when empty), in row

@@ -17,7 +17,9 @@ std::string Num(double v, int precision = 6) {
 }
 
 std::string ColumnName(const Transcription& t, int c) {
-  return c >= 0 && static_cast<std::size_t>(c) < t.columns.size() ? t.columns[static_cast<std::size_t>(c)].name : "";
+  return c >= 0 && static_cast<std::size_t>(c) < t.columns.size()
+             ? t.columns[static_cast<std::size_t>(c)].name
+             : "";
 }
 
 nlohmann::json AttestedJson(const FitResult& fit, const std::vector<CatalogEntry>& catalog) {
@@ -26,10 +28,15 @@ nlohmann::json AttestedJson(const FitResult& fit, const std::vector<CatalogEntry
     if (p.fixed) continue;
     nlohmann::json list = nlohmann::json::array();
     for (const auto& m : NearestAttested(catalog, fit.model, p.name, p.value, p.stderr_)) {
-      list.push_back({{"value", m.entry.value.ToString()}, {"kind", m.entry.kind}, {"tradition", m.entry.tradition},
-                      {"source", m.entry.source}, {"from_memory", m.entry.from_memory}, {"origin", m.entry.origin},
+      list.push_back({{"value", m.entry.value.ToString()},
+                      {"kind", m.entry.kind},
+                      {"tradition", m.entry.tradition},
+                      {"source", m.entry.source},
+                      {"from_memory", m.entry.from_memory},
+                      {"origin", m.entry.origin},
                       {"distance", m.distance},
-                      {"distance_se", std::isfinite(m.distance_se) ? nlohmann::json(m.distance_se) : nlohmann::json(nullptr)}});
+                      {"distance_se", std::isfinite(m.distance_se) ? nlohmann::json(m.distance_se)
+                                                                   : nlohmann::json(nullptr)}});
     }
     out[p.name] = list;
   }
@@ -39,11 +46,13 @@ nlohmann::json AttestedJson(const FitResult& fit, const std::vector<CatalogEntry
 nlohmann::json ParamsJson(const FitResult& fit) {
   nlohmann::json out = nlohmann::json::object();
   for (const auto& p : fit.params) {
-    out[p.name] = {{"value", p.value}, {"stderr", p.stderr_}, {"fixed", p.fixed}, {"trade", TradeValue(p.value, p.stderr_)}};
+    out[p.name] = {{"value", p.value},
+                   {"stderr", p.stderr_},
+                   {"fixed", p.fixed},
+                   {"trade", TradeValue(p.value, p.stderr_)}};
   }
   return out;
 }
-
 
 }  // namespace
 
@@ -52,9 +61,10 @@ std::string AttestedText(const FitResult& fit, const std::vector<CatalogEntry>& 
   for (const auto& p : fit.params) {
     if (p.fixed) continue;
     for (const auto& m : NearestAttested(catalog, fit.model, p.name, p.value, p.stderr_)) {
-      s += "    attested " + p.name + " = " + m.entry.value.ToString() + " (" + m.entry.tradition + "; " + m.entry.source +
-           (m.entry.from_memory ? "; from memory" : "") + ") lies " +
-           (std::isfinite(m.distance_se) ? Num(m.distance_se, 3) + " standard errors" : Num(std::fabs(m.distance), 4)) +
+      s += "    attested " + p.name + " = " + m.entry.value.ToString() + " (" + m.entry.tradition +
+           "; " + m.entry.source + (m.entry.from_memory ? "; from memory" : "") + ") lies " +
+           (std::isfinite(m.distance_se) ? Num(m.distance_se, 3) + " standard errors"
+                                         : Num(std::fabs(m.distance), 4)) +
            " away\n";
     }
   }
@@ -69,7 +79,8 @@ std::string TradeValue(double value, double se) {
   return Sexagesimal::FromDouble(value, places).ToString();
 }
 
-nlohmann::json FitJson(const FitResult& fit, const Transcription& t, const std::vector<CatalogEntry>& catalog) {
+nlohmann::json FitJson(const FitResult& fit, const Transcription& t,
+                       const std::vector<CatalogEntry>& catalog) {
   nlohmann::json j;
   j["table"] = t.table_id;
   j["witness"] = t.witness.siglum;
@@ -77,8 +88,11 @@ nlohmann::json FitJson(const FitResult& fit, const Transcription& t, const std::
   const auto& p = fit.practice;
   j["practice"] = {{"rounding", p.rounding == Rounding::kTruncate ? "truncate" : "nearest"},
                    {"places", p.places ? nlohmann::json(*p.places) : nlohmann::json(nullptr)},
-                   {"grid", p.grid}, {"grid_origin", p.grid_origin}, {"round_nodes", p.round_nodes},
-                   {"displacement", p.displacement}, {"displacement_stderr", fit.displacement_stderr}};
+                   {"grid", p.grid},
+                   {"grid_origin", p.grid_origin},
+                   {"round_nodes", p.round_nodes},
+                   {"displacement", p.displacement},
+                   {"displacement_stderr", fit.displacement_stderr}};
   j["params"] = ParamsJson(fit);
   j["exact"] = fit.exact;
   j["within1"] = fit.within1;
@@ -89,9 +103,13 @@ nlohmann::json FitJson(const FitResult& fit, const Transcription& t, const std::
   j["iterations"] = fit.iterations;
   nlohmann::json entries = nlohmann::json::array();
   for (const auto& e : fit.entries) {
-    entries.push_back({{"arg", e.arg}, {"column", ColumnName(t, e.column)}, {"tabulated", e.tabulated.ToString()},
-                       {"computed", e.computed ? nlohmann::json(e.computed->ToString()) : nlohmann::json(nullptr)},
-                       {"diff_units", std::isfinite(e.diff_units) ? nlohmann::json(e.diff_units) : nlohmann::json(nullptr)},
+    entries.push_back({{"arg", e.arg},
+                       {"column", ColumnName(t, e.column)},
+                       {"tabulated", e.tabulated.ToString()},
+                       {"computed", e.computed ? nlohmann::json(e.computed->ToString())
+                                               : nlohmann::json(nullptr)},
+                       {"diff_units", std::isfinite(e.diff_units) ? nlohmann::json(e.diff_units)
+                                                                  : nlohmann::json(nullptr)},
                        {"flag", e.flag}});
   }
   j["entries"] = entries;
@@ -107,17 +125,25 @@ nlohmann::json MeanMotionJson(const MeanMotionAnalysis& a) {
   j["rate_low"] = a.rate_low;
   j["rate_high"] = a.rate_high;
   j["rate_trade"] = a.rate_sexagesimal.ToString();
-  j["rounded_rate"] = a.rounded_rate ? nlohmann::json(a.rounded_rate->ToString()) : nlohmann::json(nullptr);
+  j["rounded_rate"] =
+      a.rounded_rate ? nlohmann::json(a.rounded_rate->ToString()) : nlohmann::json(nullptr);
   j["radix"] = a.radix_present ? nlohmann::json(a.radix.ToString()) : nlohmann::json(nullptr);
   j["successive_addition"] = a.successive_addition;
-  j["unit_value"] = a.unit_value ? nlohmann::json(a.unit_value->ToString()) : nlohmann::json(nullptr);
+  j["unit_value"] =
+      a.unit_value ? nlohmann::json(a.unit_value->ToString()) : nlohmann::json(nullptr);
   j["unexplained"] = a.unexplained;
   j["verdict"] = a.verdict;
   nlohmann::json entries = nlohmann::json::array();
   for (const auto& e : a.entries) {
-    entries.push_back({{"arg", e.arg}, {"tabulated", e.value.ToString()}, {"turns", e.turns}, {"origin", ToString(e.origin)},
-                       {"direct", e.direct ? nlohmann::json(e.direct->ToString()) : nlohmann::json(nullptr)},
-                       {"direct_diff_units", e.direct_diff_units}, {"from_rows", e.from}, {"evidence", e.evidence}});
+    entries.push_back(
+        {{"arg", e.arg},
+         {"tabulated", e.value.ToString()},
+         {"turns", e.turns},
+         {"origin", ToString(e.origin)},
+         {"direct", e.direct ? nlohmann::json(e.direct->ToString()) : nlohmann::json(nullptr)},
+         {"direct_diff_units", e.direct_diff_units},
+         {"from_rows", e.from},
+         {"evidence", e.evidence}});
   }
   j["entries"] = entries;
   return j;
@@ -133,10 +159,18 @@ nlohmann::json IdentificationJson(const Identification& id, const Transcription&
   nlohmann::json list = nlohmann::json::array();
   int rank = 0;
   for (const auto& c : id.ranked) {
-    list.push_back({{"rank", ++rank}, {"model", c.model->name()}, {"practice", c.PracticeText()}, {"score", c.score},
-                    {"log_likelihood", c.log_likelihood}, {"penalised_parameters", c.penalised_parameters},
-                    {"params", ParamsJson(c.fit)}, {"exact", c.fit.exact}, {"within1", c.fit.within1},
-                    {"flagged", c.fit.flagged}, {"n", c.fit.n}, {"robust_scale", c.fit.robust_scale},
+    list.push_back({{"rank", ++rank},
+                    {"model", c.model->name()},
+                    {"practice", c.PracticeText()},
+                    {"score", c.score},
+                    {"log_likelihood", c.log_likelihood},
+                    {"penalised_parameters", c.penalised_parameters},
+                    {"params", ParamsJson(c.fit)},
+                    {"exact", c.fit.exact},
+                    {"within1", c.fit.within1},
+                    {"flagged", c.fit.flagged},
+                    {"n", c.fit.n},
+                    {"robust_scale", c.fit.robust_scale},
                     {"attested", AttestedJson(c.fit, catalog)}});
   }
   j["candidates"] = list;
@@ -145,29 +179,34 @@ nlohmann::json IdentificationJson(const Identification& id, const Transcription&
   return j;
 }
 
-std::string FitText(const FitResult& fit, const Transcription& t, const std::vector<CatalogEntry>& catalog,
-                    bool all_entries) {
+std::string FitText(const FitResult& fit, const Transcription& t,
+                    const std::vector<CatalogEntry>& catalog, bool all_entries) {
   std::ostringstream o;
-  o << "table " << t.table_id << ", witness " << t.witness.siglum << ": model " << fit.model << "\n";
+  o << "table " << t.table_id << ", witness " << t.witness.siglum << ": model " << fit.model
+    << "\n";
   for (const auto& p : fit.params) {
     o << "  " << p.name << " = " << Num(p.value, 10) << " = " << TradeValue(p.value, p.stderr_);
-    if (p.fixed) o << " (fixed)\n";
-    else o << "  standard error " << Num(p.stderr_, 3) << " " << p.unit << "\n";
+    if (p.fixed)
+      o << " (fixed)\n";
+    else
+      o << "  standard error " << Num(p.stderr_, 3) << " " << p.unit << "\n";
   }
   if (fit.practice.displacement != 0) {
-    o << "  displacement = " << Num(fit.practice.displacement, 10) << " = " << TradeValue(fit.practice.displacement, fit.displacement_stderr)
-      << "  standard error " << Num(fit.displacement_stderr, 3) << "\n";
+    o << "  displacement = " << Num(fit.practice.displacement, 10) << " = "
+      << TradeValue(fit.practice.displacement, fit.displacement_stderr) << "  standard error "
+      << Num(fit.displacement_stderr, 3) << "\n";
   }
   o << AttestedText(fit, catalog);
   o << "  " << fit.exact << " of " << fit.n << " entries reproduced exactly, " << fit.within1
-    << " within one unit; robust scale of residuals " << Num(fit.robust_scale, 3) << " units of the last place; "
-    << fit.flagged << " flagged (more than the tolerance away)\n";
+    << " within one unit; robust scale of residuals " << Num(fit.robust_scale, 3)
+    << " units of the last place; " << fit.flagged << " flagged (more than the tolerance away)\n";
   Tabular tab;
   tab.headers = {"arg", "column", "tabulated", "computed", "diff", "flag"};
   tab.right_aligned = {true, false, true, true, true, false};
   for (const auto& e : fit.entries) {
     if (!all_entries && !e.flag) continue;
-    tab.Add({Num(e.arg), ColumnName(t, e.column), e.tabulated.ToString(), e.computed ? e.computed->ToString() : "-",
+    tab.Add({Num(e.arg), ColumnName(t, e.column), e.tabulated.ToString(),
+             e.computed ? e.computed->ToString() : "-",
              std::isfinite(e.diff_units) ? Num(e.diff_units, 4) : "-", e.flag ? "*" : ""});
   }
   if (!tab.rows.empty()) o << "\n" << tab.RenderText();
@@ -180,7 +219,8 @@ std::string MeanMotionText(const MeanMotionAnalysis& a) {
   Tabular tab;
   tab.headers = {"arg", "tabulated", "origin", "evidence"};
   tab.right_aligned = {true, true, false, false};
-  for (const auto& e : a.entries) tab.Add({Num(e.arg, 12), e.value.ToString(), ToString(e.origin), e.evidence});
+  for (const auto& e : a.entries)
+    tab.Add({Num(e.arg, 12), e.value.ToString(), ToString(e.origin), e.evidence});
   o << tab.RenderText();
   return o.str();
 }
@@ -188,8 +228,8 @@ std::string MeanMotionText(const MeanMotionAnalysis& a) {
 std::string IdentificationText(const Identification& id, const Transcription& t,
                                const std::vector<CatalogEntry>& catalog) {
   std::ostringstream o;
-  o << "table " << t.table_id << ", witness " << t.witness.siglum << ", column " << ColumnName(t, id.column) << ": "
-    << id.candidates_tried << " candidates tried\n";
+  o << "table " << t.table_id << ", witness " << t.witness.siglum << ", column "
+    << ColumnName(t, id.column) << ": " << id.candidates_tried << " candidates tried\n";
   Tabular tab;
   tab.headers = {"rank", "model", "practice", "parameters", "exact", "within1", "flagged", "score"};
   tab.right_aligned = {true, false, false, false, true, true, true, true};
@@ -197,11 +237,13 @@ std::string IdentificationText(const Identification& id, const Transcription& t,
   for (const auto& c : id.ranked) {
     std::string params;
     for (const auto& p : c.fit.params) {
-      if (!p.fixed) params += (params.empty() ? "" : ", ") + p.name + " " + TradeValue(p.value, p.stderr_) + " ± " + Num(p.stderr_, 2);
+      if (!p.fixed)
+        params += (params.empty() ? "" : ", ") + p.name + " " + TradeValue(p.value, p.stderr_) +
+                  " ± " + Num(p.stderr_, 2);
     }
     tab.Add({std::to_string(++rank), c.model->name(), c.PracticeText(), params,
-             std::to_string(c.fit.exact) + "/" + std::to_string(c.fit.n), std::to_string(c.fit.within1),
-             std::to_string(c.fit.flagged), Num(c.score, 5)});
+             std::to_string(c.fit.exact) + "/" + std::to_string(c.fit.n),
+             std::to_string(c.fit.within1), std::to_string(c.fit.flagged), Num(c.score, 5)});
   }
   o << tab.RenderText();
   if (!id.ranked.empty()) o << AttestedText(id.ranked[0].fit, catalog);

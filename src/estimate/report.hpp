@@ -39,15 +39,16 @@ std::string TradeValue(double value, double stderr_);
 /// each ("    attested e = 2;4,45 (...) lies 3.1 standard errors away").
 std::string AttestedText(const FitResult& fit, const std::vector<CatalogEntry>& catalog);
 
-nlohmann::json FitJson(const FitResult& fit, const Transcription& table, const std::vector<CatalogEntry>& catalog);
+nlohmann::json FitJson(const FitResult& fit, const Transcription& table,
+                       const std::vector<CatalogEntry>& catalog);
 nlohmann::json MeanMotionJson(const MeanMotionAnalysis& a);
 nlohmann::json IdentificationJson(const Identification& id, const Transcription& table,
                                   const std::vector<CatalogEntry>& catalog);
 
 /// Text: summary, parameters with nearest attested values, flagged entries
 /// (every entry when `all_entries`).
-std::string FitText(const FitResult& fit, const Transcription& table, const std::vector<CatalogEntry>& catalog,
-                    bool all_entries);
+std::string FitText(const FitResult& fit, const Transcription& table,
+                    const std::vector<CatalogEntry>& catalog, bool all_entries);
 std::string MeanMotionText(const MeanMotionAnalysis& a);
 std::string IdentificationText(const Identification& id, const Transcription& table,
                                const std::vector<CatalogEntry>& catalog);

@@ -49,7 +49,8 @@ double ErrorWeight(const collate::Reading& r, const std::string& right, std::str
   if (!right.empty() && SymbolsChanged(r.text, right) == 1) {
     return say(1, "one symbol changed: a common confusion");
   }
-  if (!right.empty() && AdjacentTransposition(r.text, right)) return say(1, "two symbols transposed");
+  if (!right.empty() && AdjacentTransposition(r.text, right))
+    return say(1, "two symbols transposed");
   if (!r.slip.empty()) return say(2, "an explained slip that is not a common one");
   return say(3, "distinctive: several symbols or a place changed");
 }
@@ -68,7 +69,8 @@ std::string RightText(const collate::CollatedCell& cell) {
 // A witness without the slide reads the run's rows right; with an error
 // (its own slide or slip) or an unreadable cell there it may have had the
 // slide and written over it: unknown, as for a cell.
-bool ReadsRunRight(const collate::Collation& c, const std::string& siglum, int col, int first, int last) {
+bool ReadsRunRight(const collate::Collation& c, const std::string& siglum, int col, int first,
+                   int last) {
   for (int j = first; j <= last; ++j) {
     const collate::Reading* r = c.rows[j].cells[col].ReadingOf(siglum);
     if (!r || !r->Comparable() || r->error) return false;
@@ -79,7 +81,8 @@ bool ReadsRunRight(const collate::Collation& c, const std::string& siglum, int c
 void AddSlideCharacters(const collate::Collation& c, CharacterMatrix& m) {
   // Witnesses sharing the same slid run share one character.
   std::map<std::tuple<int, int, int, int>, std::vector<std::string>> runs;
-  for (const auto& s : c.slides) runs[{s.column, s.first_row, s.last_row, s.offset}].push_back(s.siglum);
+  for (const auto& s : c.slides)
+    runs[{s.column, s.first_row, s.last_row, s.offset}].push_back(s.siglum);
   for (const auto& [key, sigla] : runs) {
     const auto [col, first, last, offset] = key;
     Character ch;
@@ -114,12 +117,16 @@ void AddCellCharacters(const collate::Collation& c, int j, const collate::Collat
     for (const auto& w : c.witnesses) {
       const collate::Reading* mine = cell.ReadingOf(w.siglum);
       signed char s = -1;
-      if (c.SlideAt(w.siglum, j, cell.column)) s = -1;  // counted once as the slide
-      else if (mine == &r) s = 1;
-      else if (mine && mine->Comparable()) s = mine->error ? -1 : 0;  // another error may hide this one
+      if (c.SlideAt(w.siglum, j, cell.column))
+        s = -1;  // counted once as the slide
+      else if (mine == &r)
+        s = 1;
+      else if (mine && mine->Comparable())
+        s = mine->error ? -1 : 0;  // another error may hide this one
       ch.states.push_back(s);
     }
-    if (std::count(ch.states.begin(), ch.states.end(), 1) > 0) m.characters.push_back(std::move(ch));
+    if (std::count(ch.states.begin(), ch.states.end(), 1) > 0)
+      m.characters.push_back(std::move(ch));
   }
 }
 

@@ -33,10 +33,10 @@
 namespace apograph::lineage {
 
 struct Character {
-  std::string label;   ///< "T1 20 eq: 0;45 (0;40)" - cell and the error
-  std::string block;   ///< resampling unit for the bootstrap: table and row
-  std::string row_label;  ///< the row's argument, for reports ("20")
-  int position = 0;    ///< order along the table(s), for contamination
+  std::string label;                ///< "T1 20 eq: 0;45 (0;40)" - cell and the error
+  std::string block;                ///< resampling unit for the bootstrap: table and row
+  std::string row_label;            ///< the row's argument, for reports ("20")
+  int position = 0;                 ///< order along the table(s), for contamination
   std::vector<signed char> states;  ///< per taxon: 1 carries the error, 0 not, -1 unknown
   double weight = 1;
   std::string weight_reason;
@@ -56,7 +56,8 @@ struct CharacterMatrix {
 
 /// Weight of one error reading against the right reading (see the table above).
 /// `units_off` is the distance from the recomputed value when known.
-double ErrorWeight(const collate::Reading& error, const std::string& right_text, std::string* reason);
+double ErrorWeight(const collate::Reading& error, const std::string& right_text,
+                   std::string* reason);
 
 /// The error characters of one collation.
 CharacterMatrix BuildErrorCharacters(const collate::Collation& collation);

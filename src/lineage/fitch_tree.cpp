@@ -63,7 +63,8 @@ void FitchTree::UpdateUp(int y, bool force_first) {
     cost_[y] = c;
     std::uint64_t* s0 = &set0_[static_cast<std::size_t>(y) * p_.words];
     std::uint64_t* s1 = &set1_[static_cast<std::size_t>(y) * p_.words];
-    const bool same = std::memcmp(s0, tmp0_.data(), bytes) == 0 && std::memcmp(s1, tmp1_.data(), bytes) == 0;
+    const bool same =
+        std::memcmp(s0, tmp0_.data(), bytes) == 0 && std::memcmp(s1, tmp1_.data(), bytes) == 0;
     if (same && !(first && force_first)) break;
     std::memcpy(s0, tmp0_.data(), bytes);
     std::memcpy(s1, tmp1_.data(), bytes);
@@ -127,7 +128,9 @@ std::vector<int> FitchTree::Subtree(int x) const {
   return out;
 }
 
-std::vector<int> FitchTree::Branches() const { return left_[0] >= 0 ? Subtree(left_[0]) : std::vector<int>{}; }
+std::vector<int> FitchTree::Branches() const {
+  return left_[0] >= 0 ? Subtree(left_[0]) : std::vector<int>{};
+}
 
 void FitchTree::CopyTopology(const FitchTree& o) {
   parent_ = o.parent_;

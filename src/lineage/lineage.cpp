@@ -20,8 +20,8 @@ Stemma RunMethod(const CharacterMatrix& m, Method method, const std::vector<doub
 
 }  // namespace
 
-std::map<Group, double> Bootstrap(const CharacterMatrix& m, Method method, int replicates, unsigned seed,
-                                  const ParsimonyOptions& parsimony) {
+std::map<Group, double> Bootstrap(const CharacterMatrix& m, Method method, int replicates,
+                                  unsigned seed, const ParsimonyOptions& parsimony) {
   std::map<Group, double> support;
   if (replicates <= 0 || m.characters.empty()) return support;
   std::vector<std::string> blocks;
@@ -41,7 +41,8 @@ std::map<Group, double> Bootstrap(const CharacterMatrix& m, Method method, int r
     std::vector<int> drawn(blocks.size(), 0);
     for (std::size_t k = 0; k < blocks.size(); ++k) ++drawn[pick(rng)];
     std::vector<double> weights(m.characters.size());
-    for (std::size_t c = 0; c < m.characters.size(); ++c) weights[c] = m.characters[c].weight * drawn[block_of[c]];
+    for (std::size_t c = 0; c < m.characters.size(); ++c)
+      weights[c] = m.characters[c].weight * drawn[block_of[c]];
     const Stemma s = RunMethod(m, method, weights, fast);
     for (const auto& [g, node] : s.Groups()) support[g] += 1.0 / replicates;
   }
@@ -70,7 +71,8 @@ LineageReport AnalyseLineage(const CharacterMatrix& m, const LineageOptions& o) 
     } else {
       res.stemma = NeighbourJoiningStemma(m);
     }
-    if (o.bootstrap > 0) AnnotateSupport(res.stemma, Bootstrap(m, method, o.bootstrap, o.seed, o.parsimony));
+    if (o.bootstrap > 0)
+      AnnotateSupport(res.stemma, Bootstrap(m, method, o.bootstrap, o.seed, o.parsimony));
     for (const auto& [g, node] : res.stemma.Groups()) {
       res.groups.push_back({g, res.stemma.nodes[node].support, res.stemma.nodes[node].length});
     }
@@ -83,7 +85,9 @@ LineageReport AnalyseLineage(const CharacterMatrix& m, const LineageOptions& o) 
 
 nlohmann::json ToJson(const LineageReport& r) {
   using nlohmann::json;
-  json out = {{"witnesses", r.witnesses}, {"characters", r.characters}, {"undetermined_cells", r.undetermined_cells}};
+  json out = {{"witnesses", r.witnesses},
+              {"characters", r.characters},
+              {"undetermined_cells", r.undetermined_cells}};
   out["results"] = json::array();
   for (const auto& res : r.results) {
     json j = {{"method", ToString(res.method)}, {"newick", ToNewick(res.stemma)}};
@@ -105,16 +109,24 @@ nlohmann::json ToJson(const LineageReport& r) {
   }
   out["copies"] = json::array();
   for (const auto& c : r.copies) {
-    out["copies"].push_back({{"copy", c.copy}, {"exemplar", c.exemplar}, {"exemplar_errors", c.exemplar_errors},
-                             {"own_errors", c.own_errors}, {"unreadable", c.unreadable}, {"filled", c.filled}, {"twins", c.twins},
+    out["copies"].push_back({{"copy", c.copy},
+                             {"exemplar", c.exemplar},
+                             {"exemplar_errors", c.exemplar_errors},
+                             {"own_errors", c.own_errors},
+                             {"unreadable", c.unreadable},
+                             {"filled", c.filled},
+                             {"twins", c.twins},
                              {"text", c.text}});
   }
   out["contamination"] = json::array();
   for (const auto& c : r.contamination) {
     json segs = json::array();
     for (const auto& s : c.segments) {
-      segs.push_back({{"relative", s.relative}, {"first_row", s.first_row}, {"last_row", s.last_row},
-                      {"shared", s.shared}, {"against", s.against}});
+      segs.push_back({{"relative", s.relative},
+                      {"first_row", s.first_row},
+                      {"last_row", s.last_row},
+                      {"shared", s.shared},
+                      {"against", s.against}});
     }
     out["contamination"].push_back({{"witness", c.witness}, {"text", c.text}, {"segments", segs}});
   }

@@ -18,7 +18,8 @@ using DistanceMatrix = std::vector<std::vector<double>>;
 /// shared errors bring witnesses together, shared right readings add nothing.
 /// `weights` (one per character) replaces the characters' own weights when
 /// not empty (the bootstrap passes resampled ones).
-DistanceMatrix ErrorDistances(const CharacterMatrix& matrix, const std::vector<double>& weights = {});
+DistanceMatrix ErrorDistances(const CharacterMatrix& matrix,
+                              const std::vector<double>& weights = {});
 
 /// An unrooted tree as edges between nodes; nodes 0..n-1 are the taxa.
 struct UnrootedTree {
@@ -40,6 +41,7 @@ Stemma RootAt(const UnrootedTree& tree, const std::vector<std::string>& names, i
 
 /// The NJ stemma of a matrix: distances, joining, rooted at the archetype,
 /// groups no error supports contracted, exemplars placed (tree_checks.hpp).
-Stemma NeighbourJoiningStemma(const CharacterMatrix& matrix, const std::vector<double>& weights = {});
+Stemma NeighbourJoiningStemma(const CharacterMatrix& matrix,
+                              const std::vector<double>& weights = {});
 
 }  // namespace apograph::lineage

@@ -25,7 +25,8 @@ struct Compressed {
   std::int64_t constant = 0;  // length of the characters left out of the search
 };
 
-Patterns Pack(const std::vector<std::pair<std::vector<signed char>, std::int64_t>>& rows, int taxa) {
+Patterns Pack(const std::vector<std::pair<std::vector<signed char>, std::int64_t>>& rows,
+              int taxa) {
   Patterns p;
   p.taxa = taxa;
   p.count = static_cast<int>(rows.size());
@@ -64,8 +65,10 @@ Compressed Compress(const CharacterMatrix& m, const std::vector<double>& weights
   for (const auto& [s, w] : merged) {
     all.emplace_back(s, w);
     const auto ones = std::count(s.begin(), s.end(), 1), zeros = std::count(s.begin(), s.end(), 0);
-    if (ones >= 2 && zeros >= 2) informative.emplace_back(s, w);
-    else if (ones >= 1) out.constant += w;
+    if (ones >= 2 && zeros >= 2)
+      informative.emplace_back(s, w);
+    else if (ones >= 1)
+      out.constant += w;
   }
   out.informative = Pack(informative, taxa);
   out.all = Pack(all, taxa);
@@ -77,12 +80,14 @@ std::vector<int> ErrorOrder(const CharacterMatrix& m, const std::vector<double>&
   std::vector<double> load(m.taxa.size(), 0);
   for (std::size_t c = 0; c < m.characters.size(); ++c) {
     for (std::size_t t = 0; t < m.taxa.size(); ++t) {
-      if (m.characters[c].states[t] == 1) load[t] += weights.empty() ? m.characters[c].weight : weights[c];
+      if (m.characters[c].states[t] == 1)
+        load[t] += weights.empty() ? m.characters[c].weight : weights[c];
     }
   }
   std::vector<int> order(m.taxa.size());
   std::iota(order.begin(), order.end(), 1);
-  std::stable_sort(order.begin(), order.end(), [&](int a, int b) { return load[a - 1] > load[b - 1]; });
+  std::stable_sort(order.begin(), order.end(),
+                   [&](int a, int b) { return load[a - 1] > load[b - 1]; });
   return order;
 }
 
@@ -122,8 +127,8 @@ bool SprRound(FitchTree& t, std::int64_t& examined) {
   return improved;
 }
 
-std::unique_ptr<FitchTree> Heuristic(const Patterns& p, std::vector<int> order, const ParsimonyOptions& o,
-                                     std::int64_t& examined) {
+std::unique_ptr<FitchTree> Heuristic(const Patterns& p, std::vector<int> order,
+                                     const ParsimonyOptions& o, std::int64_t& examined) {
   std::unique_ptr<FitchTree> best;
   std::mt19937 rng(o.seed);
   for (int start = 0; start < std::max(1, o.starts); ++start) {
@@ -150,7 +155,9 @@ struct BranchAndBound {
     for (std::size_t k = 0; k <= order.size(); ++k) {
       for (int c = 0; c < p.count; ++c) {
         const std::uint64_t bit = 1ULL << (c % 64);
-        auto definite_one = [&](int t) { return !(p.zero[static_cast<std::size_t>(t) * p.words + c / 64] & bit); };
+        auto definite_one = [&](int t) {
+          return !(p.zero[static_cast<std::size_t>(t) * p.words + c / 64] & bit);
+        };
         bool placed = definite_one(0), later = false;
         for (std::size_t i = 0; i < order.size(); ++i) {
           (i < k ? placed : later) |= definite_one(order[i]);
@@ -216,7 +223,8 @@ Stemma Trivial(const CharacterMatrix& m, const std::vector<double>& weights) {
     leaf.name = m.taxa[t];
     leaf.witness = true;
     for (std::size_t c = 0; c < m.characters.size(); ++c) {
-      if (m.characters[c].states[t] == 1) leaf.length += weights.empty() ? m.characters[c].weight : weights[c];
+      if (m.characters[c].states[t] == 1)
+        leaf.length += weights.empty() ? m.characters[c].weight : weights[c];
     }
     s.Attach(s.root, s.Add(leaf));
   }
@@ -225,7 +233,8 @@ Stemma Trivial(const CharacterMatrix& m, const std::vector<double>& weights) {
 
 }  // namespace
 
-ParsimonyResult Parsimony(const CharacterMatrix& m, const ParsimonyOptions& o, const std::vector<double>& weights) {
+ParsimonyResult Parsimony(const CharacterMatrix& m, const ParsimonyOptions& o,
+                          const std::vector<double>& weights) {
   ParsimonyResult r;
   if (m.taxa.size() < 2) {
     r.stemma = Trivial(m, weights);

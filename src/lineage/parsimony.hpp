@@ -39,10 +39,10 @@ struct ParsimonyOptions {
 
 struct ParsimonyResult {
   Stemma stemma;
-  double length = 0;         ///< weighted length of the best tree (all characters)
-  bool exact = false;        ///< proved optimal by branch-and-bound
+  double length = 0;                ///< weighted length of the best tree (all characters)
+  bool exact = false;               ///< proved optimal by branch-and-bound
   std::int64_t trees_examined = 0;  ///< partial or complete trees evaluated
-  std::string search;        ///< "branch-and-bound" or "stepwise addition + SPR"
+  std::string search;               ///< "branch-and-bound" or "stepwise addition + SPR"
 };
 
 /// The most parsimonious stemma. `weights` (one per character) replaces the

@@ -16,10 +16,14 @@ CopyCandidate Compare(const CharacterMatrix& m, int a, int b, bool& contained) {
   for (const auto& ch : m.characters) {
     const int sa = ch.states[a], sb = ch.states[b];
     if (sa == 1) {
-      if (sb == 1) ++c.exemplar_errors;
-      else if (sb == -1) ++c.unreadable;
-      else if (ch.omission) ++c.filled;
-      else contained = false;
+      if (sb == 1)
+        ++c.exemplar_errors;
+      else if (sb == -1)
+        ++c.unreadable;
+      else if (ch.omission)
+        ++c.filled;
+      else
+        contained = false;
     } else if (sa == 0 && sb == 1) {
       ++c.own_errors;
     }
@@ -33,12 +37,13 @@ std::string CopyText(const CopyCandidate& c) {
     o << c.copy << " and " << c.exemplar << " carry the same " << c.exemplar_errors
       << " errors: one may be a copy of the other, or both of a lost exemplar";
   } else {
-    o << c.copy << " may be a copy of " << c.exemplar << ": " << c.copy << " has all " << c.exemplar_errors
-      << " of " << c.exemplar << "'s errors and " << c.own_errors << " of its own";
+    o << c.copy << " may be a copy of " << c.exemplar << ": " << c.copy << " has all "
+      << c.exemplar_errors << " of " << c.exemplar << "'s errors and " << c.own_errors
+      << " of its own";
   }
   if (c.filled) {
-    o << "; " << c.copy << " fills in " << c.filled << (c.filled == 1 ? " entry " : " entries ") << c.exemplar
-      << " leaves blank";
+    o << "; " << c.copy << " fills in " << c.filled << (c.filled == 1 ? " entry " : " entries ")
+      << c.exemplar << " leaves blank";
   }
   if (c.unreadable) {
     o << " (at " << c.unreadable << " more of " << c.exemplar << "'s errors " << c.copy
@@ -143,7 +148,8 @@ std::vector<Segment> Viterbi(const CharacterMatrix& m, int c) {
 }
 
 // Weighted errors c shares with x and y lacks, over characters [first, last].
-double Evidence(const CharacterMatrix& m, int c, int x, int y, std::size_t first, std::size_t last, int* count) {
+double Evidence(const CharacterMatrix& m, int c, int x, int y, std::size_t first, std::size_t last,
+                int* count) {
   double w = 0;
   int n = 0;
   for (std::size_t i = first; i <= last; ++i) {
@@ -211,10 +217,11 @@ Contamination Describe(const CharacterMatrix& m, int c, const std::vector<Segmen
     seg.first_position = m.characters[first].position;
     seg.last_position = m.characters[last].position;
     Evidence(m, c, s.relative, other, s.first, s.last, &seg.against);
-    text << (i == 0 ? "" : (i + 1 == segs.size() ? " and " : ", ")) << seg.relative << " in rows " << seg.first_row
-         << " to " << seg.last_row;
-    why << (i ? "; " : "") << "rows " << seg.first_row << " to " << seg.last_row << ": shares " << seg.shared
-        << " errors with " << seg.relative << ", " << seg.against << " of them absent from " << m.taxa[other];
+    text << (i == 0 ? "" : (i + 1 == segs.size() ? " and " : ", ")) << seg.relative << " in rows "
+         << seg.first_row << " to " << seg.last_row;
+    why << (i ? "; " : "") << "rows " << seg.first_row << " to " << seg.last_row << ": shares "
+        << seg.shared << " errors with " << seg.relative << ", " << seg.against
+        << " of them absent from " << m.taxa[other];
     out.segments.push_back(std::move(seg));
   }
   out.text = text.str() + " (" + why.str() + "); rows between the stretches cannot be assigned";

@@ -12,8 +12,8 @@ namespace apograph::lineage {
 /// "B may be a copy of A": B carries every error of A that can be read in B,
 /// and errors of its own.
 struct CopyCandidate {
-  std::string copy;      ///< B
-  std::string exemplar;  ///< A
+  std::string copy;         ///< B
+  std::string exemplar;     ///< A
   int exemplar_errors = 0;  ///< A's errors, all found in B
   int own_errors = 0;       ///< B's errors not in A
   int unreadable = 0;       ///< A's errors where B cannot be compared (illegible or another error)
@@ -33,8 +33,8 @@ struct ContaminationSegment {
   std::string relative;
   std::string first_row, last_row;  ///< row labels (arguments) of the stretch
   int first_position = 0, last_position = 0;
-  int shared = 0;       ///< errors shared with the relative in the stretch
-  int against = 0;      ///< of those, errors the other relative(s) lack
+  int shared = 0;   ///< errors shared with the relative in the stretch
+  int against = 0;  ///< of those, errors the other relative(s) lack
 };
 
 struct Contamination {
@@ -47,6 +47,7 @@ struct Contamination {
 /// table(s) and another elsewhere. Each stretch must hold at least
 /// `min_evidence` weighted errors shared with its relative and absent from
 /// the relative of the neighbouring stretch.
-std::vector<Contamination> FindContamination(const CharacterMatrix& matrix, double min_evidence = 2.5);
+std::vector<Contamination> FindContamination(const CharacterMatrix& matrix,
+                                             double min_evidence = 2.5);
 
 }  // namespace apograph::lineage

@@ -68,8 +68,10 @@ GroupComparison CompareGroups(const std::vector<Group>& truth, const std::vector
   GroupComparison c;
   c.truth_groups = static_cast<int>(t.size());
   for (const auto& g : t) {
-    if (f.count(g)) ++c.recovered;
-    else ++c.distance;
+    if (f.count(g))
+      ++c.recovered;
+    else
+      ++c.distance;
   }
   for (const auto& g : f) c.distance += t.count(g) ? 0 : 1;
   return c;
@@ -100,8 +102,10 @@ void WriteNewick(const Stemma& s, int n, std::ostringstream& o) {
     }
     o << ")";
   }
-  if (!node.name.empty()) o << NewickName(node.name);
-  else if (node.support) o << std::lround(*node.support * 100);
+  if (!node.name.empty())
+    o << NewickName(node.name);
+  else if (node.support)
+    o << std::lround(*node.support * 100);
   if (n != s.root) o << ":" << Number(node.length);
 }
 
@@ -135,7 +139,8 @@ std::string ToDot(const Stemma& s, const std::string& title) {
     } else if (node.witness) {
       o << "  " << DotId(n) << " [label=\"" << DotEscape(node.name) << "\", shape=box];\n";
     } else {
-      o << "  " << DotId(n) << " [label=\"\", shape=circle, width=0.12, style=filled, fillcolor=gray];\n";
+      o << "  " << DotId(n)
+        << " [label=\"\", shape=circle, width=0.12, style=filled, fillcolor=gray];\n";
     }
   }
   for (std::size_t n = 0; n < s.nodes.size(); ++n) {
@@ -151,7 +156,8 @@ std::string ToDot(const Stemma& s, const std::string& title) {
 
 namespace {
 
-void WriteText(const Stemma& s, int n, const std::string& prefix, bool last, bool top, std::ostringstream& o) {
+void WriteText(const Stemma& s, int n, const std::string& prefix, bool last, bool top,
+               std::ostringstream& o) {
   const auto& node = s.nodes[n];
   std::string name = node.name.empty() ? "(lost copy)" : node.name;
   if (top && !node.witness) name = node.name.empty() ? kArchetype : node.name;

@@ -28,11 +28,13 @@ Sexagesimal Slip(const Sexagesimal& v, double one_symbol_share, std::mt19937& rn
       if (parsed && !parsed->Identical(v) && parsed->places() == v.places()) return *parsed;
     }
   }
-  const int place = std::uniform_int_distribution<int>(std::max(0, v.places() - 1), v.places())(rng);
+  const int place =
+      std::uniform_int_distribution<int>(std::max(0, v.places() - 1), v.places())(rng);
   const auto unit = PowerOf60(v.places() - place);
   const int amount = std::uniform_int_distribution<int>(2, 9)(rng) * (u(rng) < 0.5 ? -1 : 1);
   Sexagesimal out = Sexagesimal::FromUnits(v.units() + unit * amount, v.places());
-  return out.negative() ? Sexagesimal::FromUnits(v.units() + unit * std::abs(amount), v.places()) : out;
+  return out.negative() ? Sexagesimal::FromUnits(v.units() + unit * std::abs(amount), v.places())
+                        : out;
 }
 
 void AddSlips(SyntheticTradition& t, int node) {
@@ -74,11 +76,13 @@ SyntheticTradition SimulateTradition(const SyntheticOptions& o) {
   }
   t.values.push_back(table);
   for (int k = 0; k < o.lost; ++k) {
-    const int parent = std::uniform_int_distribution<int>(0, static_cast<int>(t.names.size()) - 1)(t.rng);
+    const int parent =
+        std::uniform_int_distribution<int>(0, static_cast<int>(t.names.size()) - 1)(t.rng);
     AddNode(t, "lost" + std::to_string(k + 1), parent, false);
   }
   for (int k = 0; k < o.witnesses; ++k) {
-    const int parent = std::uniform_int_distribution<int>(0, static_cast<int>(t.names.size()) - 1)(t.rng);
+    const int parent =
+        std::uniform_int_distribution<int>(0, static_cast<int>(t.names.size()) - 1)(t.rng);
     AddNode(t, WitnessName(k), parent, true);
   }
   return t;
@@ -88,7 +92,9 @@ int SyntheticTradition::Node(const std::string& name) const {
   return static_cast<int>(std::find(names.begin(), names.end(), name) - names.begin());
 }
 
-int SyntheticTradition::AddCopy(const std::string& name, int exemplar) { return AddNode(*this, name, exemplar, true); }
+int SyntheticTradition::AddCopy(const std::string& name, int exemplar) {
+  return AddNode(*this, name, exemplar, true);
+}
 
 int SyntheticTradition::AddContaminated(const std::string& name, int a, int b, int split) {
   const int id = AddNode(*this, name, a, true);
@@ -132,7 +138,8 @@ std::vector<Transcription> SyntheticTradition::Witnesses() const {
 
 collate::Reference SyntheticTradition::Reference() const {
   const auto table = values[0];
-  return {"the archetype's values", [table](const Sexagesimal& arg, int col) -> std::optional<Sexagesimal> {
+  return {"the archetype's values",
+          [table](const Sexagesimal& arg, int col) -> std::optional<Sexagesimal> {
             const auto r = static_cast<std::size_t>(arg.IntegerPart()) - 1;
             if (r >= table.size()) return std::nullopt;
             return table[r][col];

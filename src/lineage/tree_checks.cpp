@@ -32,7 +32,8 @@ PatternSet Patterns(const CharacterMatrix& m, const std::vector<double>& weights
   return p;
 }
 
-double Free(const std::vector<std::vector<unsigned char>>& kids, std::size_t k, unsigned char& out) {
+double Free(const std::vector<std::vector<unsigned char>>& kids, std::size_t k,
+            unsigned char& out) {
   int zero = 0, one = 0;
   for (const auto& kid : kids) zero += kid[k] & 1, one += (kid[k] >> 1) & 1;
   const int best = std::max(zero, one);
@@ -42,8 +43,9 @@ double Free(const std::vector<std::vector<unsigned char>>& kids, std::size_t k, 
 
 // A witness standing at an inner node: its own readings are the node's
 // states; every child that cannot have them costs a change.
-double FixedNode(const std::vector<std::vector<unsigned char>>& kids, const std::vector<unsigned char>& own,
-                 const PatternSet& p, std::vector<unsigned char>& out) {
+double FixedNode(const std::vector<std::vector<unsigned char>>& kids,
+                 const std::vector<unsigned char>& own, const PatternSet& p,
+                 std::vector<unsigned char>& out) {
   out.assign(p.weight.size(), 3);
   double cost = 0;
   for (std::size_t k = 0; k < p.weight.size(); ++k) {
@@ -118,7 +120,8 @@ double FitchLength(const Stemma& s, const CharacterMatrix& m, const std::vector<
   return Length(s, Patterns(m, weights));
 }
 
-void KeepSupported(Stemma& s, const CharacterMatrix& m, const std::vector<double>& weights, double min_evidence) {
+void KeepSupported(Stemma& s, const CharacterMatrix& m, const std::vector<double>& weights,
+                   double min_evidence) {
   const PatternSet p = Patterns(m, weights);
   const double eps = 1e-9;
   double base = Length(s, p);

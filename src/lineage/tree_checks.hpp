@@ -18,14 +18,16 @@ namespace apograph::lineage {
 
 /// Weighted parsimony length of any rooted tree (root = archetype, no errors).
 /// `weights` replaces the characters' weights when not empty.
-double FitchLength(const Stemma& stemma, const CharacterMatrix& matrix, const std::vector<double>& weights = {});
+double FitchLength(const Stemma& stemma, const CharacterMatrix& matrix,
+                   const std::vector<double>& weights = {});
 
 inline constexpr double kMinGroupEvidence = 1.5;
 
 /// Contracts every lost inner node whose branch is not supported by
 /// `min_evidence` (weight units), then places witnesses without changes of
 /// their own; compacts the stemma.
-void KeepSupported(Stemma& stemma, const CharacterMatrix& matrix, const std::vector<double>& weights = {},
+void KeepSupported(Stemma& stemma, const CharacterMatrix& matrix,
+                   const std::vector<double>& weights = {},
                    double min_evidence = kMinGroupEvidence);
 
 }  // namespace apograph::lineage

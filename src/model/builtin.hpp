@@ -74,15 +74,25 @@ T CosDeg(T x) {
   return -cos((T(180) - r) * kRadian<T>);
 }
 template <typename T>
-T TanDeg(T x) { return SinDeg(x) / CosDeg(x); }
+T TanDeg(T x) {
+  return SinDeg(x) / CosDeg(x);
+}
 template <typename T>
-T AsinDeg(T x) { return asin(x) / kRadian<T>; }
+T AsinDeg(T x) {
+  return asin(x) / kRadian<T>;
+}
 template <typename T>
-T AcosDeg(T x) { return acos(x) / kRadian<T>; }
+T AcosDeg(T x) {
+  return acos(x) / kRadian<T>;
+}
 template <typename T>
-T AtanDeg(T x) { return atan(x) / kRadian<T>; }
+T AtanDeg(T x) {
+  return atan(x) / kRadian<T>;
+}
 template <typename T>
-T Atan2Deg(T y, T x) { return atan2(y, x) / kRadian<T>; }
+T Atan2Deg(T y, T x) {
+  return atan2(y, x) / kRadian<T>;
+}
 
 /// x reduced into [0, m).
 template <typename T>
@@ -103,9 +113,14 @@ class BuiltinModel final : public Model {
   BuiltinModel(std::string name, std::string description, std::string convention,
                std::vector<ParamSpec> params, Formula<double> f, Formula<long double> fl,
                Formula<Dual<1>> f1 = nullptr, Formula<Dual<2>> f2 = nullptr)
-      : name_(std::move(name)), description_(std::move(description)),
-        convention_(std::move(convention)), params_(std::move(params)), f_(f), fl_(fl),
-        f1_(f1), f2_(f2) {}
+      : name_(std::move(name)),
+        description_(std::move(description)),
+        convention_(std::move(convention)),
+        params_(std::move(params)),
+        f_(f),
+        fl_(fl),
+        f1_(f1),
+        f2_(f2) {}
 
   const std::string& name() const override { return name_; }
   const std::string& description() const override { return description_; }

@@ -50,8 +50,8 @@ long double BuiltinModel::EvaluateLong(const std::vector<long double>& p, long d
 
 std::vector<const BuiltinModel*> AllBuiltinModels() {
   std::vector<const BuiltinModel*> out;
-  for (const auto* family : {&TrigModels(), &SolarModels(), &PlanetModels(),
-                             &SphericalModels(), &MeanMotionModels()}) {
+  for (const auto* family :
+       {&TrigModels(), &SolarModels(), &PlanetModels(), &SphericalModels(), &MeanMotionModels()}) {
     out.insert(out.end(), family->begin(), family->end());
   }
   return out;

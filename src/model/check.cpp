@@ -11,24 +11,33 @@ namespace {
 /// Why a cell cannot be compared, or empty.
 std::string SkipReason(const Cell& cell) {
   switch (cell.state) {
-    case CellState::kRead: return cell.value ? "" : "illegible";
-    case CellState::kBlank: return "blank";
-    case CellState::kIllegible: return "illegible";
-    case CellState::kPartial: return "partial";
+    case CellState::kRead:
+      return cell.value ? "" : "illegible";
+    case CellState::kBlank:
+      return "blank";
+    case CellState::kIllegible:
+      return "illegible";
+    case CellState::kPartial:
+      return "partial";
   }
   return "";
 }
 
 void Count(CheckSummary& s, const CheckEntry& e) {
   ++s.entries;
-  if (e.skipped == "blank") ++s.blank;
-  else if (e.skipped == "illegible" || e.skipped == "partial") ++s.illegible;
-  else if (!e.skipped.empty()) ++s.undefined;
+  if (e.skipped == "blank")
+    ++s.blank;
+  else if (e.skipped == "illegible" || e.skipped == "partial")
+    ++s.illegible;
+  else if (!e.skipped.empty())
+    ++s.undefined;
   if (!e.diff_units) return;
   ++s.compared;
   const double d = std::fabs(*e.diff_units);
-  if (d == 0) ++s.exact;
-  else if (d <= 1) ++s.within_one;
+  if (d == 0)
+    ++s.exact;
+  else if (d <= 1)
+    ++s.within_one;
   if (e.flag) ++s.flagged;
   if (d > s.worst || (!s.worst_row && d == s.worst)) {
     s.worst = d;
@@ -38,9 +47,8 @@ void Count(CheckSummary& s, const CheckEntry& e) {
 
 }  // namespace
 
-CheckReport Check(const Transcription& table, const Model& model,
-                  const std::vector<double>& params, const Practice& practice, double tolerance,
-                  int column) {
+CheckReport Check(const Transcription& table, const Model& model, const std::vector<double>& params,
+                  const Practice& practice, double tolerance, int column) {
   if (column < 0 || static_cast<std::size_t>(column) >= table.columns.size()) {
     throw std::invalid_argument("check: no column " + std::to_string(column));
   }
@@ -49,14 +57,23 @@ CheckReport Check(const Transcription& table, const Model& model,
                                 std::to_string(model.params().size()) + " parameters");
   }
   const auto& spec = table.columns[static_cast<std::size_t>(column)];
-  CheckReport r{table.table_id, table.witness.siglum, model.name(), {}, practice,
-                practice.places.value_or(spec.places), tolerance, {}, {}};
-  for (std::size_t k = 0; k < params.size(); ++k) r.params.emplace_back(model.params()[k].name, params[k]);
+  CheckReport r{table.table_id,
+                table.witness.siglum,
+                model.name(),
+                {},
+                practice,
+                practice.places.value_or(spec.places),
+                tolerance,
+                {},
+                {}};
+  for (std::size_t k = 0; k < params.size(); ++k)
+    r.params.emplace_back(model.params()[k].name, params[k]);
   const ColumnRecomputation rc = Recompute(model, params, table, column, practice);
   for (std::size_t i = 0; i < table.rows.size(); ++i) {
     const Row& row = table.rows[i];
     const Cell* cell = static_cast<std::size_t>(column) < row.cells.size()
-                           ? &row.cells[static_cast<std::size_t>(column)] : nullptr;
+                           ? &row.cells[static_cast<std::size_t>(column)]
+                           : nullptr;
     CheckEntry e;
     e.row = i;
     e.arg = row.argument.raw;
@@ -94,10 +111,10 @@ std::vector<double> ParamsWithOverrides(
     if (k < 0) {
       std::string known;
       for (const auto& spec : model.params()) known += (known.empty() ? "" : ", ") + spec.name;
-      throw InputError::ForOption(
-          "--param", ExpectedFound("a parameter of " + model.name() + " (" +
-                                       (known.empty() ? "none" : known) + ")",
-                                   "'" + name + "'"));
+      throw InputError::ForOption("--param",
+                                  ExpectedFound("a parameter of " + model.name() + " (" +
+                                                    (known.empty() ? "none" : known) + ")",
+                                                "'" + name + "'"));
     }
     p[static_cast<std::size_t>(k)] = value;
   }

@@ -18,13 +18,13 @@ namespace apograph::model {
 /// One entry of the checked column.
 struct CheckEntry {
   std::size_t row = 0;
-  std::string arg;                         ///< the argument as written (raw)
-  std::optional<double> arg_value;         ///< the argument the model used
+  std::string arg;                  ///< the argument as written (raw)
+  std::optional<double> arg_value;  ///< the argument the model used
   std::string column;
-  std::string tabulated_raw;               ///< the reading as typed
-  std::optional<Sexagesimal> tabulated;    ///< present when the cell was read in full
+  std::string tabulated_raw;             ///< the reading as typed
+  std::optional<Sexagesimal> tabulated;  ///< present when the cell was read in full
   CellState state = CellState::kRead;
-  double exact = 0;                        ///< model value under the practice, before rounding (NaN: none)
+  double exact = 0;  ///< model value under the practice, before rounding (NaN: none)
   std::optional<Sexagesimal> computed;     ///< after the practice
   std::optional<double> diff_units;        ///< tabulated - computed, in units of the last place
   std::optional<double> exact_diff_units;  ///< tabulated - exact, in units of the last place
@@ -36,15 +36,15 @@ struct CheckEntry {
 
 /// Counts over the checked entries.
 struct CheckSummary {
-  int entries = 0;       ///< rows in the column
-  int compared = 0;      ///< entries with a reading and a model value
-  int exact = 0;         ///< diff 0
-  int within_one = 0;    ///< 0 < |diff| <= 1
-  int flagged = 0;       ///< |diff| > tolerance
+  int entries = 0;     ///< rows in the column
+  int compared = 0;    ///< entries with a reading and a model value
+  int exact = 0;       ///< diff 0
+  int within_one = 0;  ///< 0 < |diff| <= 1
+  int flagged = 0;     ///< |diff| > tolerance
   int blank = 0;
-  int illegible = 0;     ///< illegible or only partly read
-  int undefined = 0;     ///< no argument or the model has no value there
-  double worst = 0;      ///< largest |diff| in units
+  int illegible = 0;  ///< illegible or only partly read
+  int undefined = 0;  ///< no argument or the model has no value there
+  double worst = 0;   ///< largest |diff| in units
   std::optional<std::size_t> worst_row;
 };
 
@@ -67,13 +67,12 @@ struct CheckReport {
 /// 1 flags differences of 2 units and more; 0 flags every difference).
 /// Throws std::invalid_argument when the column does not exist or the
 /// parameter count is wrong.
-CheckReport Check(const Transcription& table, const Model& model,
-                  const std::vector<double>& params, const Practice& practice, double tolerance,
-                  int column);
+CheckReport Check(const Transcription& table, const Model& model, const std::vector<double>& params,
+                  const Practice& practice, double tolerance, int column);
 
 /// The model's parameters with `overrides` (name, value) applied over the
 /// defaults. Throws InputError (option --param) for an unknown name.
-std::vector<double> ParamsWithOverrides(const Model& model,
-                                        const std::vector<std::pair<std::string, double>>& overrides);
+std::vector<double> ParamsWithOverrides(
+    const Model& model, const std::vector<std::pair<std::string, double>>& overrides);
 
 }  // namespace apograph::model

@@ -16,16 +16,42 @@ namespace apograph::model {
 namespace internal {
 
 enum class Op {
-  kConst, kParam, kArg, kArg2, kArgOf, kSelf, kColumn, kNeg, kAdd, kSub, kMul, kDiv, kPow,
-  kSin, kCos, kTan, kAsin, kAcos, kAtan, kAtan2, kSqrt, kAbs, kFloor, kMod, kMin, kMax, kCrd,
-  kRound, kTrunc,
+  kConst,
+  kParam,
+  kArg,
+  kArg2,
+  kArgOf,
+  kSelf,
+  kColumn,
+  kNeg,
+  kAdd,
+  kSub,
+  kMul,
+  kDiv,
+  kPow,
+  kSin,
+  kCos,
+  kTan,
+  kAsin,
+  kAcos,
+  kAtan,
+  kAtan2,
+  kSqrt,
+  kAbs,
+  kFloor,
+  kMod,
+  kMin,
+  kMax,
+  kCrd,
+  kRound,
+  kTrunc,
 };
 
 struct Node {
   Op op = Op::kConst;
-  double value = 0;        ///< constant
-  int index = 0;           ///< parameter index, row offset
-  std::string column;      ///< column name
+  double value = 0;    ///< constant
+  int index = 0;       ///< parameter index, row offset
+  std::string column;  ///< column name
   std::vector<Node> args;
 };
 
@@ -45,19 +71,21 @@ struct FunctionSpec {
 };
 
 const FunctionSpec kFunctions[] = {
-    {"sin", Op::kSin, 1, 1},     {"cos", Op::kCos, 1, 1},     {"tan", Op::kTan, 1, 1},
-    {"asin", Op::kAsin, 1, 1},   {"acos", Op::kAcos, 1, 1},   {"atan", Op::kAtan, 1, 1},
-    {"atan2", Op::kAtan2, 2, 2}, {"sqrt", Op::kSqrt, 1, 1},   {"abs", Op::kAbs, 1, 1},
-    {"floor", Op::kFloor, 1, 1}, {"mod", Op::kMod, 2, 2},     {"min", Op::kMin, 2, -1},
-    {"max", Op::kMax, 2, -1},    {"crd", Op::kCrd, 1, 2},     {"round", Op::kRound, 2, 2},
-    {"trunc", Op::kTrunc, 2, 2}, {"arg", Op::kArgOf, 1, 1},   {"self", Op::kSelf, 1, 1},
+    {"sin", Op::kSin, 1, 1},     {"cos", Op::kCos, 1, 1},   {"tan", Op::kTan, 1, 1},
+    {"asin", Op::kAsin, 1, 1},   {"acos", Op::kAcos, 1, 1}, {"atan", Op::kAtan, 1, 1},
+    {"atan2", Op::kAtan2, 2, 2}, {"sqrt", Op::kSqrt, 1, 1}, {"abs", Op::kAbs, 1, 1},
+    {"floor", Op::kFloor, 1, 1}, {"mod", Op::kMod, 2, 2},   {"min", Op::kMin, 2, -1},
+    {"max", Op::kMax, 2, -1},    {"crd", Op::kCrd, 1, 2},   {"round", Op::kRound, 2, 2},
+    {"trunc", Op::kTrunc, 2, 2}, {"arg", Op::kArgOf, 1, 1}, {"self", Op::kSelf, 1, 1},
 };
 
 /// The first symbol at `offset`, quoted, for "found ...".
 std::string FoundAt(const std::string& text, std::size_t offset) {
   if (offset >= text.size()) return "end of formula";
   auto is_word = [](char c) { return std::isalnum(static_cast<unsigned char>(c)) || c == '_'; };
-  auto is_number = [](char c) { return std::isdigit(static_cast<unsigned char>(c)) || c == ';' || c == ',' || c == '.'; };
+  auto is_number = [](char c) {
+    return std::isdigit(static_cast<unsigned char>(c)) || c == ';' || c == ',' || c == '.';
+  };
   std::size_t end = offset;
   const char c = text[offset];
   if (std::isdigit(static_cast<unsigned char>(c))) {
@@ -113,11 +141,13 @@ class Compiler {
   ParamSpec Param(const internal::ParamDecl& d) {
     if (d.name == "arg" || d.name == "arg2" || FindFunction(d.name)) {
       Fail(source_, text_, d.offset,
-           ExpectedFound("a parameter name other than arg, arg2 and the functions", "'" + d.name + "'"));
+           ExpectedFound("a parameter name other than arg, arg2 and the functions",
+                         "'" + d.name + "'"));
     }
     for (const auto& p : params_) {
       if (p.name == d.name) {
-        Fail(source_, text_, d.offset, ExpectedFound("a new parameter name", "'" + d.name + "' again"));
+        Fail(source_, text_, d.offset,
+             ExpectedFound("a new parameter name", "'" + d.name + "' again"));
       }
     }
     ParamSpec p{d.name, "", d.description, Number(d.value_text, d.value_offset), 0, 0};
@@ -125,8 +155,9 @@ class Compiler {
       p.low = Number(*d.low_text, d.low_offset);
       p.high = Number(*d.high_text, d.high_offset);
       if (p.low > p.default_value || p.default_value > p.high) {
-        Fail(source_, text_, d.low_offset, ExpectedFound("a range around the default " + d.value_text,
-                                                         "'" + *d.low_text + " .. " + *d.high_text + "'"));
+        Fail(source_, text_, d.low_offset,
+             ExpectedFound("a range around the default " + d.value_text,
+                           "'" + *d.low_text + " .. " + *d.high_text + "'"));
       }
     } else {
       // No range given: from half to twice the default (or +-1 around 0).
@@ -140,21 +171,31 @@ class Compiler {
 
   Node Compile(const Expr& e) {
     switch (e.kind) {
-      case Expr::Kind::kNumber: return Node{Op::kConst, Number(e.text, e.offset), 0, "", {}};
-      case Expr::Kind::kName: return Name(e);
-      case Expr::Kind::kCall: return Call(e);
+      case Expr::Kind::kNumber:
+        return Node{Op::kConst, Number(e.text, e.offset), 0, "", {}};
+      case Expr::Kind::kName:
+        return Name(e);
+      case Expr::Kind::kCall:
+        return Call(e);
       case Expr::Kind::kColumn: {
         std::string name = e.text;
         if (name.size() >= 2 && name.front() == '"') name = name.substr(1, name.size() - 2);
-        if (std::find(columns_.begin(), columns_.end(), name) == columns_.end()) columns_.push_back(name);
+        if (std::find(columns_.begin(), columns_.end(), name) == columns_.end())
+          columns_.push_back(name);
         return Node{Op::kColumn, 0, e.row_offset, name, {}};
       }
-      case Expr::Kind::kNeg: return Unary(Op::kNeg, e);
-      case Expr::Kind::kAdd: return Binary(Op::kAdd, e);
-      case Expr::Kind::kSub: return Binary(Op::kSub, e);
-      case Expr::Kind::kMul: return Binary(Op::kMul, e);
-      case Expr::Kind::kDiv: return Binary(Op::kDiv, e);
-      case Expr::Kind::kPow: return Binary(Op::kPow, e);
+      case Expr::Kind::kNeg:
+        return Unary(Op::kNeg, e);
+      case Expr::Kind::kAdd:
+        return Binary(Op::kAdd, e);
+      case Expr::Kind::kSub:
+        return Binary(Op::kSub, e);
+      case Expr::Kind::kMul:
+        return Binary(Op::kMul, e);
+      case Expr::Kind::kDiv:
+        return Binary(Op::kDiv, e);
+      case Expr::Kind::kPow:
+        return Binary(Op::kPow, e);
     }
     return {};
   }
@@ -188,7 +229,9 @@ class Compiler {
       if (params_[i].name == e.text) return Node{Op::kParam, 0, static_cast<int>(i), "", {}};
     }
     if (FindFunction(e.text)) {
-      Fail(source_, text_, e.offset + e.text.size(), ExpectedFound("'(' after " + e.text, FoundAt(text_, NextSymbol(e.offset + e.text.size()))));
+      Fail(source_, text_, e.offset + e.text.size(),
+           ExpectedFound("'(' after " + e.text,
+                         FoundAt(text_, NextSymbol(e.offset + e.text.size()))));
     }
     Fail(source_, text_, e.offset,
          ExpectedFound("a declared parameter, arg, arg2 or a function", "'" + e.text + "'"));
@@ -200,23 +243,28 @@ class Compiler {
   Node Call(const Expr& e) {
     const FunctionSpec* f = FindFunction(e.text);
     if (!f) {
-      Fail(source_, text_, e.offset, ExpectedFound("a function (sin, cos, tan, asin, acos, atan, "
-                                                   "atan2, sqrt, abs, floor, mod, min, max, crd, "
-                                                   "round, trunc, arg, self, col)",
-                                                   "'" + e.text + "'"));
+      Fail(source_, text_, e.offset,
+           ExpectedFound("a function (sin, cos, tan, asin, acos, atan, "
+                         "atan2, sqrt, abs, floor, mod, min, max, crd, "
+                         "round, trunc, arg, self, col)",
+                         "'" + e.text + "'"));
     }
     const int n = static_cast<int>(e.args.size());
     if (n < f->min_args || (f->max_args >= 0 && n > f->max_args)) {
-      std::string want = f->max_args < 0 ? std::to_string(f->min_args) + " or more arguments"
-                         : f->min_args == f->max_args ? std::to_string(f->min_args) + " argument" + (f->min_args > 1 ? "s" : "")
-                         : std::to_string(f->min_args) + " or " + std::to_string(f->max_args) + " arguments";
+      std::string want =
+          f->max_args < 0 ? std::to_string(f->min_args) + " or more arguments"
+          : f->min_args == f->max_args
+              ? std::to_string(f->min_args) + " argument" + (f->min_args > 1 ? "s" : "")
+              : std::to_string(f->min_args) + " or " + std::to_string(f->max_args) + " arguments";
       std::string hint;
       for (const auto& a : e.args) {
         if (a.kind == Expr::Kind::kNumber && a.text.find(',') != std::string::npos) {
-          hint = " (" + a.text + " is one number; put a blank after a comma that separates arguments)";
+          hint =
+              " (" + a.text + " is one number; put a blank after a comma that separates arguments)";
         }
       }
-      Fail(source_, text_, e.offset, ExpectedFound(want + " to " + e.text, std::to_string(n) + hint));
+      Fail(source_, text_, e.offset,
+           ExpectedFound(want + " to " + e.text, std::to_string(n) + hint));
     }
     if (f->op == Op::kArgOf || f->op == Op::kSelf) return RowShift(*f, e);
     Node node{f->op, 0, 0, "", {}};
@@ -229,8 +277,8 @@ class Compiler {
     const bool neg = a.kind == Expr::Kind::kNeg && a.args[0].kind == Expr::Kind::kNumber;
     const Expr& lit = neg ? a.args[0] : a;
     if (lit.kind != Expr::Kind::kNumber || lit.text.find_first_of(".;") != std::string::npos) {
-      Fail(source_, text_, a.offset, ExpectedFound("a whole-number row offset such as 1 or -1",
-                                                   FoundAt(text_, a.offset)));
+      Fail(source_, text_, a.offset,
+           ExpectedFound("a whole-number row offset such as 1 or -1", FoundAt(text_, a.offset)));
     }
     const int k = std::stoi(lit.text);
     return Node{f.op, 0, neg ? -k : k, "", {}};
@@ -248,7 +296,8 @@ double ColumnValue(const RowContext& row, const std::string& column, int shift) 
   const long r = static_cast<long>(row.row) + shift;
   if (c < 0 || r < 0 || r >= static_cast<long>(row.table->rows.size())) return kNaN;
   const auto& cells = row.table->rows[static_cast<std::size_t>(r)].cells;
-  if (static_cast<std::size_t>(c) >= cells.size() || !cells[static_cast<std::size_t>(c)].value) return kNaN;
+  if (static_cast<std::size_t>(c) >= cells.size() || !cells[static_cast<std::size_t>(c)].value)
+    return kNaN;
   return cells[static_cast<std::size_t>(c)].value->ToDouble();
 }
 
@@ -278,13 +327,15 @@ FormulaModel::~FormulaModel() = default;
 
 double FormulaModel::Evaluate(const std::vector<double>& params, const RowContext& row) const {
   if (params.size() != params_.size()) {
-    throw std::invalid_argument("formula " + name_ + ": expected " + std::to_string(params_.size()) +
-                                " parameters, got " + std::to_string(params.size()));
+    throw std::invalid_argument("formula " + name_ + ": expected " +
+                                std::to_string(params_.size()) + " parameters, got " +
+                                std::to_string(params.size()));
   }
   return EvaluateAt(params, row, 0);
 }
 
-double FormulaModel::EvaluateAt(const std::vector<double>& p, const RowContext& row, int depth) const {
+double FormulaModel::EvaluateAt(const std::vector<double>& p, const RowContext& row,
+                                int depth) const {
   using namespace internal;
   struct Eval {
     const FormulaModel& self;
@@ -294,10 +345,14 @@ double FormulaModel::EvaluateAt(const std::vector<double>& p, const RowContext& 
     double operator()(const Node& n) const {
       auto a = [&](std::size_t i) { return (*this)(n.args[i]); };
       switch (n.op) {
-        case Op::kConst: return n.value;
-        case Op::kParam: return p[static_cast<std::size_t>(n.index)];
-        case Op::kArg: return row.arg;
-        case Op::kArg2: return row.arg2.value_or(kNaN);
+        case Op::kConst:
+          return n.value;
+        case Op::kParam:
+          return p[static_cast<std::size_t>(n.index)];
+        case Op::kArg:
+          return row.arg;
+        case Op::kArg2:
+          return row.arg2.value_or(kNaN);
         case Op::kArgOf: {
           auto r = Shifted(row, n.index);
           return r ? r->arg : kNaN;
@@ -307,36 +362,57 @@ double FormulaModel::EvaluateAt(const std::vector<double>& p, const RowContext& 
           // self() inside self() would never end: it has no value there.
           return r && depth == 0 ? self.EvaluateAt(p, *r, depth + 1) : kNaN;
         }
-        case Op::kColumn: return ColumnValue(row, n.column, n.index);
-        case Op::kNeg: return -a(0);
-        case Op::kAdd: return a(0) + a(1);
-        case Op::kSub: return a(0) - a(1);
-        case Op::kMul: return a(0) * a(1);
-        case Op::kDiv: return a(1) == 0 ? kNaN : a(0) / a(1);
-        case Op::kPow: return std::pow(a(0), a(1));
-        case Op::kSin: return SinDeg(a(0));
-        case Op::kCos: return CosDeg(a(0));
-        case Op::kTan: return CosDeg(a(0)) == 0 ? kNaN : TanDeg(a(0));
-        case Op::kAsin: return AsinDeg(a(0));
-        case Op::kAcos: return AcosDeg(a(0));
-        case Op::kAtan: return AtanDeg(a(0));
-        case Op::kAtan2: return Atan2Deg(a(0), a(1));
-        case Op::kSqrt: return std::sqrt(a(0));
-        case Op::kAbs: return std::fabs(a(0));
-        case Op::kFloor: return std::floor(a(0));
-        case Op::kMod: return a(1) == 0 ? kNaN : ReduceModulo(a(0), a(1));
+        case Op::kColumn:
+          return ColumnValue(row, n.column, n.index);
+        case Op::kNeg:
+          return -a(0);
+        case Op::kAdd:
+          return a(0) + a(1);
+        case Op::kSub:
+          return a(0) - a(1);
+        case Op::kMul:
+          return a(0) * a(1);
+        case Op::kDiv:
+          return a(1) == 0 ? kNaN : a(0) / a(1);
+        case Op::kPow:
+          return std::pow(a(0), a(1));
+        case Op::kSin:
+          return SinDeg(a(0));
+        case Op::kCos:
+          return CosDeg(a(0));
+        case Op::kTan:
+          return CosDeg(a(0)) == 0 ? kNaN : TanDeg(a(0));
+        case Op::kAsin:
+          return AsinDeg(a(0));
+        case Op::kAcos:
+          return AcosDeg(a(0));
+        case Op::kAtan:
+          return AtanDeg(a(0));
+        case Op::kAtan2:
+          return Atan2Deg(a(0), a(1));
+        case Op::kSqrt:
+          return std::sqrt(a(0));
+        case Op::kAbs:
+          return std::fabs(a(0));
+        case Op::kFloor:
+          return std::floor(a(0));
+        case Op::kMod:
+          return a(1) == 0 ? kNaN : ReduceModulo(a(0), a(1));
         case Op::kMin:
         case Op::kMax: {
           double v = a(0);
-          for (std::size_t i = 1; i < n.args.size(); ++i) v = n.op == Op::kMin ? std::fmin(v, a(i)) : std::fmax(v, a(i));
+          for (std::size_t i = 1; i < n.args.size(); ++i)
+            v = n.op == Op::kMin ? std::fmin(v, a(i)) : std::fmax(v, a(i));
           return v;
         }
         case Op::kCrd: {
           const double radius = n.args.size() > 1 ? a(1) : 60.0;
           return 2 * radius * std::fabs(SinDeg(a(0) / 2));
         }
-        case Op::kRound: return RoundTo(a(0), a(1), Rounding::kNearest);
-        case Op::kTrunc: return RoundTo(a(0), a(1), Rounding::kTruncate);
+        case Op::kRound:
+          return RoundTo(a(0), a(1), Rounding::kNearest);
+        case Op::kTrunc:
+          return RoundTo(a(0), a(1), Rounding::kTruncate);
       }
       return kNaN;
     }
@@ -367,7 +443,8 @@ std::unique_ptr<FormulaModel> CompileFormula(const std::string& text, const std:
 
 const std::vector<std::string>& FormulaFunctions() {
   static const std::vector<std::string> kAll = {
-      "sin(x) cos(x) tan(x) (degrees)", "asin(x) acos(x) atan(x) atan2(y, x) (degrees)",
+      "sin(x) cos(x) tan(x) (degrees)",
+      "asin(x) acos(x) atan(x) atan2(y, x) (degrees)",
       "sqrt(x) abs(x) floor(x) mod(x, m) min(a, b, ...) max(a, b, ...)",
       "crd(x) = 120 sin(x/2), crd(x, R) = 2R sin(x/2)",
       "round(x, places) trunc(x, places) (sexagesimal places)",

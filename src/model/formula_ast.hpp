@@ -15,10 +15,10 @@ namespace apograph::model::internal {
 struct Expr {
   enum class Kind { kNumber, kName, kCall, kNeg, kAdd, kSub, kMul, kDiv, kPow, kColumn };
   Kind kind = Kind::kNumber;
-  std::string text;         ///< number as written, name, function or column name
-  std::vector<Expr> args;   ///< operands or call arguments
-  int row_offset = 0;       ///< kColumn: 0 this row, +1 next row, -1 previous
-  std::size_t offset = 0;   ///< byte offset in the formula text
+  std::string text;        ///< number as written, name, function or column name
+  std::vector<Expr> args;  ///< operands or call arguments
+  int row_offset = 0;      ///< kColumn: 0 this row, +1 next row, -1 previous
+  std::size_t offset = 0;  ///< byte offset in the formula text
 };
 
 struct ParamDecl {

@@ -124,8 +124,8 @@ auto const decl_end = [](auto& ctx) { Get(ctx).ast.params.push_back(Get(ctx).dec
 using x3::lexeme;
 using x3::lit;
 auto const digits = +x3::char_('0', '9');
-auto const number_body =
-    digits >> -((lit('.') >> digits) | (lit(';') >> digits >> *(lit(',') >> digits)));
+auto const number_body = digits >>
+                         -((lit('.') >> digits) | (lit(';') >> digits >> *(lit(',') >> digits)));
 auto const word = (x3::char_("a-zA-Z") | lit('_')) >> *(x3::char_("a-zA-Z0-9") | lit('_'));
 auto kw(char const* w) { return lexeme[lit(w) >> !(x3::char_("a-zA-Z0-9") | lit('_'))]; }
 
@@ -156,7 +156,8 @@ auto const number_def = x3::raw[lexeme[number_body]][push_number];
 auto const signed_number_def = lexeme[-lit('-') >> number_body];
 auto const param_name_def = x3::raw[lexeme[word]][decl_name];
 auto const column_name_def =
-    x3::raw[lexeme[(x3::char_("a-zA-Z") | lit('_')) >> *(x3::char_("a-zA-Z0-9") | lit('_') | lit('-') | lit('.'))] |
+    x3::raw[lexeme[(x3::char_("a-zA-Z") | lit('_')) >>
+                   *(x3::char_("a-zA-Z0-9") | lit('_') | lit('-') | lit('.'))] |
             lexeme[lit('"') >> +(x3::char_ - '"') >> lit('"')]][col_name];
 auto const row_shift_def = x3::int_[col_row];
 auto const default_value_def = x3::raw[signed_number][decl_value];
@@ -176,17 +177,17 @@ auto const power_def = primary >> -((lit('^') > unary)[make_pow]);
 auto const unary_def = (lit('-') > unary)[negate] | (lit('+') > unary) | power;
 auto const term_def = unary >> *((lit('*') > unary)[make_mul] | (lit('/') > unary)[make_div]);
 auto const expr_def = term >> *((lit('+') > term)[make_add] | (lit('-') > term)[make_sub]);
-auto const decl_def = kw("param")[decl_begin] > param_name > equals > default_value >
-                      -(kw("range") > low_value > dots > high_value) >
-                      -(x3::raw[lexeme[lit('"') >> *(x3::char_ - '"') >> lit('"')]][decl_description]) >
-                      -lit(';') >> x3::eps[decl_end];
+auto const decl_def =
+    kw("param")[decl_begin] > param_name > equals > default_value >
+    -(kw("range") > low_value > dots > high_value) >
+    -(x3::raw[lexeme[lit('"') >> *(x3::char_ - '"') >> lit('"')]][decl_description]) >
+    -lit(';') >> x3::eps[decl_end];
 auto const end_def = x3::eoi;
 auto const formula_def = *decl > expr > end;
 
 BOOST_SPIRIT_DEFINE(number, signed_number, param_name, column_name, row_shift, default_value,
-                    low_value, high_value, rparen, col_rparen,
-                    equals, dots, expr, term, unary, power, primary, colref, call, decl, end,
-                    formula)
+                    low_value, high_value, rparen, col_rparen, equals, dots, expr, term, unary,
+                    power, primary, colref, call, decl, end, formula)
 
 auto const skipper = x3::char_(" \t\r\n") | lexeme[lit('#') >> *(x3::char_ - x3::eol)];
 

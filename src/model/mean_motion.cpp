@@ -31,12 +31,14 @@ Dual<N> MeanMotionDual(const Dual<N>* p, Dual<N> t, Dual<N>) {
   const W r = reduce ? ReduceModulo(v, W(p[2].v)) : v;
   const double turns = reduce ? static_cast<double>(std::round((v - r) / W(p[2].v))) : 0.0;
   Dual<N> out(static_cast<double>(r));
-  for (int i = 0; i < N; ++i) out.d[i] = p[0].d[i] + p[1].d[i] * t.v + p[1].v * t.d[i] - turns * p[2].d[i];
+  for (int i = 0; i < N; ++i)
+    out.d[i] = p[0].d[i] + p[1].d[i] * t.v + p[1].v * t.d[i] - turns * p[2].d[i];
   return out;
 }
 
 /// Every instantiation, the dual numbers by MeanMotionDual.
-#define APOGRAPH_MEAN_MOTION &MeanMotion<double>, &MeanMotion<long double>, &MeanMotionDual<1>, &MeanMotionDual<2>
+#define APOGRAPH_MEAN_MOTION \
+  &MeanMotion<double>, &MeanMotion<long double>, &MeanMotionDual<1>, &MeanMotionDual<2>
 
 ParamSpec Radix() { return {"radix", "deg", "value at argument 0 (the epoch)", 0.0, 0.0, 360.0}; }
 ParamSpec Rate(const char* unit, double def, double high) {

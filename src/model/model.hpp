@@ -18,11 +18,11 @@ namespace apograph::model {
 
 /// One parameter of a model.
 struct ParamSpec {
-  std::string name;         ///< e.g. "e"
-  std::string unit;         ///< e.g. "parts of 60", "deg"
+  std::string name;  ///< e.g. "e"
+  std::string unit;  ///< e.g. "parts of 60", "deg"
   std::string description;
   double default_value = 0;
-  double low = 0;           ///< typical historical range, used as search bounds
+  double low = 0;  ///< typical historical range, used as search bounds
   double high = 0;
 };
 
@@ -115,8 +115,8 @@ std::optional<double> RowArgument(const Transcription& table, std::size_t row);
 
 /// The exact value for one row under `practice`, before the final rounding
 /// (steps 1 and 2 above); NaN where the model is undefined.
-double PracticeValue(const Model& model, const std::vector<double>& params,
-                     const RowContext& row, const Practice& practice, int places);
+double PracticeValue(const Model& model, const std::vector<double>& params, const RowContext& row,
+                     const Practice& practice, int places);
 
 /// PracticeValue and its partial derivatives with respect to
 /// params[wrt[j]] (see Model::EvaluateWithGradient). With rounded nodes the

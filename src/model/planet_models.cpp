@@ -17,11 +17,17 @@ T EpicycleAngle(T r, T d, T g) {
 }
 
 template <typename T>
-T EpicycleMean(const T* p, T g, T) { return EpicycleAngle(p[0], T(60), g); }
+T EpicycleMean(const T* p, T g, T) {
+  return EpicycleAngle(p[0], T(60), g);
+}
 template <typename T>
-T EpicycleGreatest(const T* p, T g, T) { return EpicycleAngle(p[0], T(60) + p[1], g); }
+T EpicycleGreatest(const T* p, T g, T) {
+  return EpicycleAngle(p[0], T(60) + p[1], g);
+}
 template <typename T>
-T EpicycleLeast(const T* p, T g, T) { return EpicycleAngle(p[0], T(60) - p[1], g); }
+T EpicycleLeast(const T* p, T g, T) {
+  return EpicycleAngle(p[0], T(60) - p[1], g);
+}
 
 /// Equation of centre with an equant. The observer O at the origin, the
 /// apsidal line along +x; the deferent's centre D at (e, 0), the equant Q at

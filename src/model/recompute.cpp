@@ -16,8 +16,8 @@ constexpr double kNaN = std::numeric_limits<double>::quiet_NaN();
 constexpr double kNodeSlack = 1e-9;
 
 /// The model's value at a node, brought to the places first if asked.
-double NodeValue(const Model& model, const std::vector<double>& params, RowContext ctx,
-                 double node, const Practice& practice, int places) {
+double NodeValue(const Model& model, const std::vector<double>& params, RowContext ctx, double node,
+                 const Practice& practice, int places) {
   ctx.arg = node;
   const double v = model.Evaluate(params, ctx);
   if (!practice.round_nodes || !std::isfinite(v)) return v;
@@ -80,12 +80,12 @@ std::optional<double> RowArgument(const Transcription& table, std::size_t row) {
   return std::nullopt;
 }
 
-double PracticeValue(const Model& model, const std::vector<double>& params,
-                     const RowContext& row, const Practice& practice, int places) {
+double PracticeValue(const Model& model, const std::vector<double>& params, const RowContext& row,
+                     const Practice& practice, int places) {
   double v = 0;
   const double g = practice.grid;
-  const double lo = g > 0 ? practice.grid_origin + std::floor((row.arg - practice.grid_origin) / g) * g
-                          : row.arg;
+  const double lo =
+      g > 0 ? practice.grid_origin + std::floor((row.arg - practice.grid_origin) / g) * g : row.arg;
   if (g > 0 && std::fabs(row.arg - lo) > kNodeSlack && std::fabs(row.arg - lo - g) > kNodeSlack) {
     const double va = NodeValue(model, params, row, lo, practice, places);
     const double vb = NodeValue(model, params, row, lo + g, practice, places);
@@ -103,9 +103,10 @@ double PracticeValueWithGradient(const Model& model, const std::vector<double>& 
                                  const RowContext& row, const Practice& practice, int places,
                                  const std::vector<int>& wrt, double* gradient) {
   const double g = practice.grid;
-  const double lo = g > 0 ? practice.grid_origin + std::floor((row.arg - practice.grid_origin) / g) * g
-                          : row.arg;
-  const bool between = g > 0 && std::fabs(row.arg - lo) > kNodeSlack && std::fabs(row.arg - lo - g) > kNodeSlack;
+  const double lo =
+      g > 0 ? practice.grid_origin + std::floor((row.arg - practice.grid_origin) / g) * g : row.arg;
+  const bool between =
+      g > 0 && std::fabs(row.arg - lo) > kNodeSlack && std::fabs(row.arg - lo - g) > kNodeSlack;
   if (!between) {
     RowContext at = row;
     if (g > 0) at.arg = std::fabs(row.arg - lo) <= kNodeSlack ? lo : lo + g;

@@ -40,16 +40,14 @@ const BuiltinModel kSolarEccentric(
     "solar-eccentric",
     "q(a) = atan2(e sin a, 60 + e cos a): the eccentric model with eccentricity e on a radius "
     "of 60; greatest equation asin(e/60).",
-    kEquationConvention,
-    {{"e", "parts of 60", "eccentricity of the sun's circle", 2.5, 1.0, 4.0}},
+    kEquationConvention, {{"e", "parts of 60", "eccentricity of the sun's circle", 2.5, 1.0, 4.0}},
     APOGRAPH_FORMULA(SolarEccentric));
 const BuiltinModel kSolarEpicycle(
     "solar-epicycle",
     "The concentric deferent of radius 60 carrying an epicycle of radius r on which the sun "
     "turns against the deferent's sense at the same rate; identical to solar-eccentric with "
     "e = r.",
-    kEquationConvention,
-    {{"r", "parts of 60", "radius of the sun's epicycle", 2.5, 1.0, 4.0}},
+    kEquationConvention, {{"r", "parts of 60", "radius of the sun's epicycle", 2.5, 1.0, 4.0}},
     APOGRAPH_FORMULA(SolarEpicycle));
 
 }  // namespace

@@ -12,7 +12,9 @@ namespace {
 
 /// Signed declination: asin(sin eps sin lambda).
 template <typename T>
-T SignedDeclination(T eps, T lambda) { return AsinDeg(SinDeg(eps) * SinDeg(lambda)); }
+T SignedDeclination(T eps, T lambda) {
+  return AsinDeg(SinDeg(eps) * SinDeg(lambda));
+}
 
 /// Signed ascensional difference asin(tan phi tan delta); NaN where the sun
 /// does not rise or set.
@@ -33,9 +35,13 @@ T RightAscensionOf(T eps, T lambda) {
 }
 
 template <typename T>
-T Declination(const T* p, T lambda, T) { return fabs(SignedDeclination(p[0], lambda)); }
+T Declination(const T* p, T lambda, T) {
+  return fabs(SignedDeclination(p[0], lambda));
+}
 template <typename T>
-T RightAscension(const T* p, T lambda, T) { return RightAscensionOf(p[0], lambda); }
+T RightAscension(const T* p, T lambda, T) {
+  return RightAscensionOf(p[0], lambda);
+}
 template <typename T>
 T AscensionalDifference(const T* p, T lambda, T) {
   return fabs(SignedAscensionalDifference(p[0], p[1], lambda));
@@ -51,8 +57,9 @@ T Daylight(const T* p, T lambda, T) {
 }
 
 ParamSpec Obliquity() {
-  return {"obliquity", "deg", "obliquity of the ecliptic (23;51,20, 23;35, 23;33,30, 24 occur)",
-          23.0 + 35.0 / 60.0, 23.0, 24.2};
+  return {
+      "obliquity",        "deg", "obliquity of the ecliptic (23;51,20, 23;35, 23;33,30, 24 occur)",
+      23.0 + 35.0 / 60.0, 23.0,  24.2};
 }
 ParamSpec Latitude() {
   return {"latitude", "deg", "geographical latitude of the place", 36.0, 0.0, 66.0};

@@ -15,10 +15,14 @@ T Chord(const T* p, T a, T) {
 }
 /// Sin(a) = R sin a.
 template <typename T>
-T Sine(const T* p, T a, T) { return p[0] * SinDeg(a); }
+T Sine(const T* p, T a, T) {
+  return p[0] * SinDeg(a);
+}
 /// Cos(a) = R cos a.
 template <typename T>
-T Cosine(const T* p, T a, T) { return p[0] * CosDeg(a); }
+T Cosine(const T* p, T a, T) {
+  return p[0] * CosDeg(a);
+}
 /// vers(a) = R (1 - cos a), computed as 2R sin^2(a/2) to avoid cancellation
 /// near 0.
 template <typename T>
@@ -43,7 +47,7 @@ T ReversedShadow(const T* p, T h, T) {
 
 ParamSpec Radius(double def) {
   return {"R", "parts", "radius of the circle (60 is usual; 150, 3438 and others occur)",
-          def, 1.0, 3600.0};
+          def, 1.0,     3600.0};
 }
 ParamSpec Gnomon() {
   return {"g", "parts", "length of the gnomon (12 digits and 7 feet are usual)", 12.0, 1.0, 60.0};
@@ -67,13 +71,15 @@ const BuiltinModel kVersedSine(
     "argument: the arc in degrees; vers(360 - a) = vers(a), from 0 to 2R; not displaced.",
     {Radius(60)}, APOGRAPH_FORMULA(VersedSine));
 const BuiltinModel kShadow(
-    "shadow", "u(h) = g cot h, the shadow a gnomon of length g casts on the horizontal plane "
+    "shadow",
+    "u(h) = g cot h, the shadow a gnomon of length g casts on the horizontal plane "
     "when the sun stands at altitude h.",
     "argument: the altitude in degrees; undefined at 0 and 180; signed (negative between 90 "
     "and 180); not displaced.",
     {Gnomon()}, APOGRAPH_FORMULA(Shadow));
 const BuiltinModel kReversedShadow(
-    "reversed-shadow", "v(h) = g tan h, the shadow of a gnomon set at right angles to a "
+    "reversed-shadow",
+    "v(h) = g tan h, the shadow of a gnomon set at right angles to a "
     "vertical wall, at altitude h.",
     "argument: the altitude in degrees; undefined at 90 and 270; signed; not displaced.",
     {Gnomon()}, APOGRAPH_FORMULA(ReversedShadow));
@@ -81,7 +87,7 @@ const BuiltinModel kReversedShadow(
 }  // namespace
 
 const std::vector<const BuiltinModel*>& TrigModels() {
-  static const std::vector<const BuiltinModel*> kAll = {&kChord, &kSine, &kCosine,
+  static const std::vector<const BuiltinModel*> kAll = {&kChord,      &kSine,   &kCosine,
                                                         &kVersedSine, &kShadow, &kReversedShadow};
   return kAll;
 }

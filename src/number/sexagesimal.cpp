@@ -15,8 +15,7 @@ Units Bound(int places) { return Units(Sexagesimal::kIntegerLimit) * PowerOf60(p
 
 void CheckPlaces(int places) {
   if (places < 0 || places > Sexagesimal::kMaxPlaces) {
-    throw std::overflow_error("sexagesimal value: " + std::to_string(places) +
-                              " places (at most " +
+    throw std::overflow_error("sexagesimal value: " + std::to_string(places) + " places (at most " +
                               std::to_string(Sexagesimal::kMaxPlaces) + " are supported)");
   }
 }
@@ -53,8 +52,7 @@ class NumberReader {
   std::optional<std::int64_t> Digits(int max_digits);
   bool Fail(NumberSyntaxError* error, std::string expected);
   bool ReadTradeFractions(std::vector<int>& fractions, NumberSyntaxError* error);
-  bool ReadDegreeForm(std::int64_t integer, std::vector<int>& fractions,
-                      NumberSyntaxError* error);
+  bool ReadDegreeForm(std::int64_t integer, std::vector<int>& fractions, NumberSyntaxError* error);
   bool AcceptMinuteMark() { return Accept("'") || Accept("\u2032"); }
   bool AcceptSecondMark() { return Accept("\"") || Accept("\u2033") || Accept("''"); }
 
@@ -84,7 +82,12 @@ bool NumberReader::Fail(NumberSyntaxError* error, std::string expected) {
       // Quote one UTF-8 character.
       std::size_t len = 1;
       auto c = static_cast<unsigned char>(text_[pos_]);
-      if (c >= 0xF0) len = 4; else if (c >= 0xE0) len = 3; else if (c >= 0xC0) len = 2;
+      if (c >= 0xF0)
+        len = 4;
+      else if (c >= 0xE0)
+        len = 3;
+      else if (c >= 0xC0)
+        len = 2;
       error->found = "'" + std::string(text_.substr(pos_, len)) + "'";
     }
   }
@@ -148,7 +151,8 @@ std::optional<Sexagesimal> NumberReader::Read(NumberSyntaxError* error) {
     }
     if (Accept(";") && !ReadTradeFractions(fractions, error)) return std::nullopt;
   }
-  if (!AtEnd()) return Fail(error, fractions.empty() ? "';' or ','" : "',' or end of number"), std::nullopt;
+  if (!AtEnd())
+    return Fail(error, fractions.empty() ? "';' or ','" : "',' or end of number"), std::nullopt;
   if (fractions.size() > static_cast<std::size_t>(Sexagesimal::kMaxPlaces)) {
     pos_ = first;
     return Fail(error, "at most 12 fractional places"), std::nullopt;
@@ -199,7 +203,8 @@ Sexagesimal Sexagesimal::FromDouble(double value, int places, Rounding rounding)
     throw std::overflow_error("sexagesimal value: not finite or beyond 10^12");
   }
   // Scale in long double so that 5 or 6 places keep every digit of a double.
-  long double scaled = static_cast<long double>(value) * static_cast<long double>(PowerOf60(places));
+  long double scaled =
+      static_cast<long double>(value) * static_cast<long double>(PowerOf60(places));
   long double r = rounding == Rounding::kTruncate ? truncl(scaled) : roundl(scaled);
   return FromUnits(static_cast<Units>(r), places);
 }
@@ -218,7 +223,10 @@ std::optional<Sexagesimal> Sexagesimal::ParseColumns(std::string_view text, int 
     i = 1;
   }
   while (i < text.size()) {
-    if (text[i] == ' ' || text[i] == '\t') { ++i; continue; }
+    if (text[i] == ' ' || text[i] == '\t') {
+      ++i;
+      continue;
+    }
     std::size_t start = i;
     while (i < text.size() && text[i] != ' ' && text[i] != '\t') ++i;
     parts.emplace_back(start, text.substr(start, i - start));
@@ -242,10 +250,12 @@ std::optional<Sexagesimal> Sexagesimal::ParseColumns(std::string_view text, int 
       v = v * 10 + (c - '0');
       if (v >= kIntegerLimit) return fail(col, "an integer part below 10^12", std::string(part));
     }
-    if ((k > 0 || n_integer > 1) && v > 59) return fail(col, "a place from 0 to 59", std::string(part));
+    if ((k > 0 || n_integer > 1) && v > 59)
+      return fail(col, "a place from 0 to 59", std::string(part));
     if (k < n_integer) {
       integer = n_integer > 1 ? integer * 60 + v : v;
-      if (integer >= kIntegerLimit) return fail(col, "an integer part below 10^12", std::string(part));
+      if (integer >= kIntegerLimit)
+        return fail(col, "an integer part below 10^12", std::string(part));
     } else {
       fractions.push_back(static_cast<int>(v));
     }
@@ -257,9 +267,9 @@ Sexagesimal Sexagesimal::ParseOrThrow(std::string_view text) {
   NumberSyntaxError error;
   auto v = Parse(text, &error);
   if (!v) {
-    throw std::invalid_argument("'" + std::string(text) + "' is not a sexagesimal number: expected " +
-                                error.expected + " at column " + std::to_string(error.column + 1) +
-                                ", found " + error.found);
+    throw std::invalid_argument(
+        "'" + std::string(text) + "' is not a sexagesimal number: expected " + error.expected +
+        " at column " + std::to_string(error.column + 1) + ", found " + error.found);
   }
   return *v;
 }
@@ -357,7 +367,10 @@ Sexagesimal Sexagesimal::Divided(std::int64_t divisor, int places, Rounding roun
   } else {
     d *= PowerOf60(places_ - places);
   }
-  if (d < 0) { n = -n; d = -d; }
+  if (d < 0) {
+    n = -n;
+    d = -d;
+  }
   return FromUnits(DivideRounded(n, d, rounding), places);
 }
 
@@ -365,7 +378,8 @@ Sexagesimal Sexagesimal::operator-() const { return Sexagesimal(-units_, places_
 
 Sexagesimal operator+(const Sexagesimal& a, const Sexagesimal& b) {
   const int p = std::max(a.places_, b.places_);
-  return Sexagesimal::FromUnits(a.units_ * PowerOf60(p - a.places_) + b.units_ * PowerOf60(p - b.places_), p);
+  return Sexagesimal::FromUnits(
+      a.units_ * PowerOf60(p - a.places_) + b.units_ * PowerOf60(p - b.places_), p);
 }
 
 Sexagesimal operator-(const Sexagesimal& a, const Sexagesimal& b) { return a + (-b); }

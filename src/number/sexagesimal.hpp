@@ -56,8 +56,7 @@ class Sexagesimal {
   static Sexagesimal FromParts(bool negative, std::int64_t integer,
                                const std::vector<int>& fractions);
   /// The nearest (or truncated) value at `places` places.
-  static Sexagesimal FromDouble(double value, int places,
-                                Rounding rounding = Rounding::kNearest);
+  static Sexagesimal FromDouble(double value, int places, Rounding rounding = Rounding::kNearest);
 
   /// Parses the trade's notation: `2;23,10`, `-0;5`, `1,30;0` (= 90),
   /// `12` and degree forms `2°23'10"` (also with the primes ′ ″).

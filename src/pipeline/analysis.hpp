@@ -85,20 +85,23 @@ struct TableAnalysis {
 
 /// The chain on plain values: `transcriptions` are the witnesses of one
 /// table (at least one). Throws InputError on a bad reference request.
-TableAnalysis AnalyseTranscriptions(std::vector<Transcription> transcriptions, const AnalysisOptions& options = {},
+TableAnalysis AnalyseTranscriptions(std::vector<Transcription> transcriptions,
+                                    const AnalysisOptions& options = {},
                                     const ModelLibrary& library = {});
 
 /// Loads the table's current transcriptions, the saved formulas and the
 /// editor's stored apparatus overrides, and runs AnalyseTranscriptions.
 /// Throws InputError (option --table / --witnesses) when there is no such
 /// table or witness.
-TableAnalysis AnalyseTable(store::Database& db, const std::string& table_id, const AnalysisOptions& options = {});
+TableAnalysis AnalyseTable(store::Database& db, const std::string& table_id,
+                           const AnalysisOptions& options = {});
 
 /// The lineage of a whole work: the error characters of its tables'
 /// analyses joined (lineage::MergeMatrices), then one stemma for all.
 /// More evidence than any one table; a witness lacking a table is unknown
 /// there.
-lineage::LineageReport WorkLineage(const std::vector<TableAnalysis>& tables, const lineage::LineageOptions& options = {});
+lineage::LineageReport WorkLineage(const std::vector<TableAnalysis>& tables,
+                                   const lineage::LineageOptions& options = {});
 
 /// The sigla of each independent branch below the archetype of a stemma
 /// (what the apparatus's lemma choice votes by).

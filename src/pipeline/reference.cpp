@@ -75,8 +75,8 @@ ModelLibrary LoadModelLibrary(store::Database& db) {
 }
 
 std::string DescribePractice(const model::Practice& p, int places) {
-  std::string s = std::string(p.rounding == Rounding::kTruncate ? "truncated" : "rounded") + " to " +
-                  std::to_string(places) + (places == 1 ? " place" : " places");
+  std::string s = std::string(p.rounding == Rounding::kTruncate ? "truncated" : "rounded") +
+                  " to " + std::to_string(places) + (places == 1 ? " place" : " places");
   if (p.grid > 0) {
     s += ", exact every " + Decimal(p.grid);
     if (p.grid_origin != 0) s += " from " + Decimal(p.grid_origin);
@@ -101,7 +101,8 @@ model::ColumnRecomputation ColumnReference::Recompute(const Transcription& witne
   return model::Recompute(*model, params, witness, column, practice);
 }
 
-std::optional<Sexagesimal> ColumnReference::ValueAt(double argument, std::optional<double> arg2) const {
+std::optional<Sexagesimal> ColumnReference::ValueAt(double argument,
+                                                    std::optional<double> arg2) const {
   model::RowContext ctx;
   ctx.arg = argument;
   ctx.arg2 = arg2;
@@ -124,14 +125,17 @@ int ExactEntries(const model::Model& m, const std::vector<double>& params, const
     const auto re = model::Recompute(m, params, t, col, practice);
     for (std::size_t r = 0; r < t.rows.size(); ++r) {
       const Cell& cell = t.rows[r].cells[static_cast<std::size_t>(col)];
-      exact += cell.state == CellState::kRead && cell.value && re.computed[r] && *cell.value == *re.computed[r];
+      exact += cell.state == CellState::kRead && cell.value && re.computed[r] &&
+               *cell.value == *re.computed[r];
     }
   }
   return exact;
 }
 
-std::pair<std::vector<double>, int> RoundParams(const model::Model& m, const std::vector<double>& params,
-                                                const Transcription& t, const std::vector<int>& columns,
+std::pair<std::vector<double>, int> RoundParams(const model::Model& m,
+                                                const std::vector<double>& params,
+                                                const Transcription& t,
+                                                const std::vector<int>& columns,
                                                 const model::Practice& practice) {
   const int target = ExactEntries(m, params, t, columns, practice);
   for (int places = 1; places <= 3; ++places) {
@@ -145,15 +149,18 @@ std::pair<std::vector<double>, int> RoundParams(const model::Model& m, const std
 namespace internal {
 
 /// The explicitly requested model (owned when it is a formula).
-std::shared_ptr<const model::Model> RequestedModel(const ReferenceRequest& r, const ModelLibrary& library) {
+std::shared_ptr<const model::Model> RequestedModel(const ReferenceRequest& r,
+                                                   const ModelLibrary& library) {
   if (!r.formula.empty()) {
-    if (!r.model.empty()) throw InputError::ForOption("--formula", "expected either --model or --formula, found both");
+    if (!r.model.empty())
+      throw InputError::ForOption("--formula", "expected either --model or --formula, found both");
     return std::shared_ptr<const model::Model>(model::CompileFormula(r.formula));
   }
   if (r.model.empty()) return nullptr;
   if (auto m = library.Find(r.model)) return m;
-  throw InputError::ForOption("--model", ExpectedFound("a built-in model or a saved formula (" + library.KnownNames() + ")",
-                                                       "'" + r.model + "'"));
+  throw InputError::ForOption(
+      "--model", ExpectedFound("a built-in model or a saved formula (" + library.KnownNames() + ")",
+                               "'" + r.model + "'"));
 }
 
 }  // namespace internal

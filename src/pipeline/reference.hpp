@@ -54,8 +54,8 @@ ModelLibrary LoadModelLibrary(store::Database& db);
 /// What the editor asked for. Either a model (`model` or `formula`) with
 /// `params` over its defaults and `practice`, or `automatic`.
 struct ReferenceRequest {
-  std::string model;    ///< built-in model or saved formula name
-  std::string formula;  ///< formula text (grammar/formula.ebnf)
+  std::string model;                                   ///< built-in model or saved formula name
+  std::string formula;                                 ///< formula text (grammar/formula.ebnf)
   std::vector<std::pair<std::string, double>> params;  ///< overrides of the defaults
   model::Practice practice;
   /// Identify the model and practice from the entries. With `model` or
@@ -91,8 +91,8 @@ struct ColumnReference {
   /// evidence of its best candidate.
   std::string witness;
   double score = 0;
-  int exact = 0, entries = 0;  ///< entries of that witness reproduced exactly / compared
-  int rounded_places = 0;      ///< places the parameters were brought to (0: not rounded)
+  int exact = 0, entries = 0;     ///< entries of that witness reproduced exactly / compared
+  int rounded_places = 0;         ///< places the parameters were brought to (0: not rounded)
   std::vector<std::string> ties;  ///< identify's notes on near-ties
   /// The estimate before rounding, with standard errors (identified only).
   std::vector<estimate::FittedParam> estimates;
@@ -118,7 +118,8 @@ struct ColumnReference {
   /// table) under the practice, at the practice's places; nullopt where the
   /// model is undefined or needs the table's other cells (a formula reading
   /// col() or a neighbouring row).
-  std::optional<Sexagesimal> ValueAt(double argument, std::optional<double> arg2 = std::nullopt) const;
+  std::optional<Sexagesimal> ValueAt(double argument,
+                                     std::optional<double> arg2 = std::nullopt) const;
 };
 
 /// A parameter value as an editor writes it: the trade's notation when it
@@ -142,13 +143,16 @@ std::vector<ColumnReference> ResolveReferences(const std::vector<Transcription>&
 /// entries of `columns` exactly as `params` themselves. Returns the values
 /// and the places used (0: none of them did; the values are returned as
 /// given). Parameters with a value below 1e-9 stay 0.
-std::pair<std::vector<double>, int> RoundParams(const model::Model& model, const std::vector<double>& params,
-                                                const Transcription& table, const std::vector<int>& columns,
+std::pair<std::vector<double>, int> RoundParams(const model::Model& model,
+                                                const std::vector<double>& params,
+                                                const Transcription& table,
+                                                const std::vector<int>& columns,
                                                 const model::Practice& practice);
 
 /// Entries of `columns` of `table` that `model` at `params` under `practice`
 /// reproduces exactly.
-int ExactEntries(const model::Model& model, const std::vector<double>& params, const Transcription& table,
-                 const std::vector<int>& columns, const model::Practice& practice);
+int ExactEntries(const model::Model& model, const std::vector<double>& params,
+                 const Transcription& table, const std::vector<int>& columns,
+                 const model::Practice& practice);
 
 }  // namespace apograph::pipeline

@@ -15,7 +15,8 @@
 namespace apograph::pipeline {
 
 namespace internal {
-std::shared_ptr<const model::Model> RequestedModel(const ReferenceRequest& r, const ModelLibrary& library);
+std::shared_ptr<const model::Model> RequestedModel(const ReferenceRequest& r,
+                                                   const ModelLibrary& library);
 }
 
 namespace {
@@ -32,8 +33,9 @@ void CheckFormulaColumns(const model::Model& m, const Transcription& t) {
   if (!f) return;
   for (const auto& name : f->columns()) {
     if (t.ColumnIndex(name) < 0) {
-      throw InputError::ForOption("--formula", ExpectedFound("a column of table " + t.table_id + " (" + ColumnList(t) + ")",
-                                                             "col(" + name + ")"));
+      throw InputError::ForOption(
+          "--formula", ExpectedFound("a column of table " + t.table_id + " (" + ColumnList(t) + ")",
+                                     "col(" + name + ")"));
     }
   }
 }
@@ -43,12 +45,14 @@ ColumnReference Base(const Transcription& t, int column, std::shared_ptr<const m
   r.column = column;
   r.column_name = t.columns.at(static_cast<std::size_t>(column)).name;
   r.model = std::move(m);
-  if (dynamic_cast<const model::FormulaModel*>(r.model.get())) r.formula = r.model->description();  // its text
+  if (dynamic_cast<const model::FormulaModel*>(r.model.get()))
+    r.formula = r.model->description();  // its text
   return r;
 }
 
 void Finish(ColumnReference& r, const Transcription& t) {
-  if (!r.practice.places) r.practice.places = t.columns.at(static_cast<std::size_t>(r.column)).places;
+  if (!r.practice.places)
+    r.practice.places = t.columns.at(static_cast<std::size_t>(r.column)).places;
   std::string s = r.model->name();
   const auto& specs = r.model->params();
   for (std::size_t i = 0; i < r.params.size() && i < specs.size(); ++i) {
@@ -57,7 +61,8 @@ void Finish(ColumnReference& r, const Transcription& t) {
   r.description = s + ", " + DescribePractice(r.practice, *r.practice.places);
 }
 
-ColumnReference Given(const Transcription& t, int column, const std::shared_ptr<const model::Model>& m,
+ColumnReference Given(const Transcription& t, int column,
+                      const std::shared_ptr<const model::Model>& m,
                       const ReferenceRequest& request) {
   ColumnReference r = Base(t, column, m);
   r.params = model::ParamsWithOverrides(*m, request.params);
@@ -75,10 +80,12 @@ struct WitnessBest {
   estimate::FitResult fit;
   double score = 0;
   std::vector<std::string> ties;
-  std::optional<estimate::MeanMotionAnalysis> mean_motion;  ///< identify's, for a mean-motion column
+  std::optional<estimate::MeanMotionAnalysis>
+      mean_motion;  ///< identify's, for a mean-motion column
 };
 
-std::optional<WitnessBest> BestOf(const Transcription& t, int column, const std::shared_ptr<const model::Model>& requested,
+std::optional<WitnessBest> BestOf(const Transcription& t, int column,
+                                  const std::shared_ptr<const model::Model>& requested,
                                   const ReferenceRequest& request, const ModelLibrary& library) {
   if (requested && request.practice_given) {  // the editor fixed the practice: fit only
     estimate::FitOptions fo;
@@ -91,7 +98,8 @@ std::optional<WitnessBest> BestOf(const Transcription& t, int column, const std:
   }
   estimate::IdentifyOptions o;
   o.top = 5;
-  if (requested) o.models = {requested.get()};
+  if (requested)
+    o.models = {requested.get()};
   else {
     for (const auto& f : library.formulas) o.extra_models.push_back(f.get());
   }
@@ -129,7 +137,8 @@ void ReduceRadix(const model::Model& m, std::vector<double>& params) {
 std::string HowText(const ColumnReference& r, bool fitted_only) {
   char buf[160];
   std::snprintf(buf, sizeof buf, "%s witness %s (%d of %d entries exact, score %.1f)",
-                fitted_only ? "fitted to" : "identified from", r.witness.c_str(), r.exact, r.entries, r.score);
+                fitted_only ? "fitted to" : "identified from", r.witness.c_str(), r.exact,
+                r.entries, r.score);
   std::string s = buf;
   if (r.rounded_places > 0) {
     s += "; parameters brought to " + std::to_string(r.rounded_places) +
@@ -139,8 +148,8 @@ std::string HowText(const ColumnReference& r, bool fitted_only) {
 }
 
 ColumnReference Identified(const std::vector<const Transcription*>& from, int column,
-                           const std::shared_ptr<const model::Model>& requested, const ReferenceRequest& request,
-                           const ModelLibrary& library) {
+                           const std::shared_ptr<const model::Model>& requested,
+                           const ReferenceRequest& request, const ModelLibrary& library) {
   std::optional<WitnessBest> chosen;
   for (const Transcription* t : from) {
     auto b = BestOf(*t, column, requested, request, library);
@@ -151,9 +160,10 @@ ColumnReference Identified(const std::vector<const Transcription*>& from, int co
   }
   const Transcription& layout = *from.front();
   if (!chosen) {
-    throw InputError::ForOption("--auto", "no model could be identified for column " +
-                                              layout.columns.at(static_cast<std::size_t>(column)).name + " of table " +
-                                              layout.table_id + " (too few readable entries)");
+    throw InputError::ForOption(
+        "--auto", "no model could be identified for column " +
+                      layout.columns.at(static_cast<std::size_t>(column)).name + " of table " +
+                      layout.table_id + " (too few readable entries)");
   }
   ColumnReference r = Base(layout, column, chosen->model);
   r.practice = chosen->fit.practice;
@@ -164,7 +174,8 @@ ColumnReference Identified(const std::vector<const Transcription*>& from, int co
   r.entries = chosen->fit.n;
   r.estimates = chosen->fit.params;
   r.mean_motion = chosen->mean_motion;
-  auto [params, places] = RoundParams(*r.model, chosen->fit.Values(), *chosen->witness, {column}, r.practice);
+  auto [params, places] =
+      RoundParams(*r.model, chosen->fit.Values(), *chosen->witness, {column}, r.practice);
   r.params = std::move(params);
   r.rounded_places = places;
   ReduceRadix(*r.model, r.params);
@@ -174,7 +185,8 @@ ColumnReference Identified(const std::vector<const Transcription*>& from, int co
   return r;
 }
 
-std::vector<const Transcription*> Sources(const std::vector<Transcription>& ws, const std::string& siglum) {
+std::vector<const Transcription*> Sources(const std::vector<Transcription>& ws,
+                                          const std::string& siglum) {
   std::vector<const Transcription*> out;
   for (const auto& w : ws) {
     if (siglum.empty() || w.witness.siglum == siglum) out.push_back(&w);
@@ -182,8 +194,9 @@ std::vector<const Transcription*> Sources(const std::vector<Transcription>& ws, 
   if (out.empty()) {
     std::string known;
     for (const auto& w : ws) known += (known.empty() ? "" : ", ") + w.witness.siglum;
-    throw InputError::ForOption("--witness", ExpectedFound("a witness of table " + ws.front().table_id + " (" + known + ")",
-                                                           "'" + siglum + "'"));
+    throw InputError::ForOption(
+        "--witness", ExpectedFound("a witness of table " + ws.front().table_id + " (" + known + ")",
+                                   "'" + siglum + "'"));
   }
   return out;
 }
@@ -191,19 +204,24 @@ std::vector<const Transcription*> Sources(const std::vector<Transcription>& ws, 
 }  // namespace
 
 std::vector<ColumnReference> ResolveReferences(const std::vector<Transcription>& witnesses,
-                                               const ReferenceRequest& request, const ModelLibrary& library) {
-  if (witnesses.empty()) throw InputError::ForOption("--table", "expected a table with transcriptions, found none");
+                                               const ReferenceRequest& request,
+                                               const ModelLibrary& library) {
+  if (witnesses.empty())
+    throw InputError::ForOption("--table", "expected a table with transcriptions, found none");
   const Transcription& layout = witnesses.front();
   const auto requested = internal::RequestedModel(request, library);
   if (!requested && !request.automatic) {
-    throw InputError::ForOption("--model", "expected --model NAME, --formula TEXT or --auto, found none of them");
+    throw InputError::ForOption(
+        "--model", "expected --model NAME, --formula TEXT or --auto, found none of them");
   }
   if (request.automatic && !request.params.empty()) {
-    throw InputError::ForOption("--param", "expected no --param with --auto (the parameters are estimated)");
+    throw InputError::ForOption("--param",
+                                "expected no --param with --auto (the parameters are estimated)");
   }
   if (request.automatic && request.practice_given && !requested) {
-    throw InputError::ForOption("--auto", "expected --model or --formula with a given practice (--auto alone "
-                                          "identifies the practice too), found only the practice");
+    throw InputError::ForOption("--auto",
+                                "expected --model or --formula with a given practice (--auto alone "
+                                "identifies the practice too), found only the practice");
   }
   if (requested) CheckFormulaColumns(*requested, layout);
   const std::vector<int> columns = estimate::ResolveColumns(layout, request.columns);

@@ -10,7 +10,8 @@ namespace {
 
 /// The reference with its column index moved to `witness`'s own column of
 /// that name; nullopt when the witness lacks the column.
-std::optional<ColumnReference> ForWitness(const ColumnReference& ref, const Transcription& witness) {
+std::optional<ColumnReference> ForWitness(const ColumnReference& ref,
+                                          const Transcription& witness) {
   const int c = witness.ColumnIndex(ref.column_name);
   if (c < 0) return std::nullopt;
   ColumnReference r = ref;
@@ -53,7 +54,8 @@ bool AuthorsDeparture(const collate::CellJudgement& j) { return !j.error && !j.s
 
 /// Calls `f(witness, row, column, judgement)` for every judged cell.
 template <typename F>
-void ForEachJudged(const std::vector<Transcription>& ws, std::map<std::string, collate::JudgementGrid>& grids, F f) {
+void ForEachJudged(const std::vector<Transcription>& ws,
+                   std::map<std::string, collate::JudgementGrid>& grids, F f) {
   for (const auto& w : ws) {
     auto& grid = grids[w.witness.siglum];
     for (std::size_t r = 0; r < grid.size(); ++r) {
@@ -67,60 +69,78 @@ void ForEachJudged(const std::vector<Transcription>& ws, std::map<std::string, c
 /// The author's departures were in the archetype: one read by a single
 /// witness while two or more others read the model's value there is a
 /// copyist's slip of a unit or so (weak evidence of descent).
-void LoneDepartures(const std::vector<Transcription>& ws, std::map<std::string, collate::JudgementGrid>& grids) {
-  std::map<std::string, int> readers, right;  // cell key -> witnesses; place key -> model's readings
-  ForEachJudged(ws, grids, [&](const Transcription& w, std::size_t r, std::size_t c, collate::CellJudgement& j) {
-    if (auto key = CellKey(w, r, c)) ++readers[*key];
-    if (auto place = PlaceKey(w, r, c); place && !j.error && j.slip.empty()) ++right[*place];
-  });
-  ForEachJudged(ws, grids, [&](const Transcription& w, std::size_t r, std::size_t c, collate::CellJudgement& j) {
-    const auto key = CellKey(w, r, c);
-    if (!AuthorsDeparture(j) || !key || readers[*key] > 1 || right[*PlaceKey(w, r, c)] < 2) return;
-    j.error = true;
-    j.common_slip = true;
-    j.slip = "a small departure in this witness only, where the others read the model's value: a copyist's slip (" +
-             j.slip + ")";
-  });
+void LoneDepartures(const std::vector<Transcription>& ws,
+                    std::map<std::string, collate::JudgementGrid>& grids) {
+  std::map<std::string, int> readers,
+      right;  // cell key -> witnesses; place key -> model's readings
+  ForEachJudged(
+      ws, grids,
+      [&](const Transcription& w, std::size_t r, std::size_t c, collate::CellJudgement& j) {
+        if (auto key = CellKey(w, r, c)) ++readers[*key];
+        if (auto place = PlaceKey(w, r, c); place && !j.error && j.slip.empty()) ++right[*place];
+      });
+  ForEachJudged(
+      ws, grids,
+      [&](const Transcription& w, std::size_t r, std::size_t c, collate::CellJudgement& j) {
+        const auto key = CellKey(w, r, c);
+        if (!AuthorsDeparture(j) || !key || readers[*key] > 1 || right[*PlaceKey(w, r, c)] < 2)
+          return;
+        j.error = true;
+        j.common_slip = true;
+        j.slip =
+            "a small departure in this witness only, where the others read the model's value: a "
+            "copyist's slip (" +
+            j.slip + ")";
+      });
 }
 
 /// A reading explained as the author's departure in one witness is his in
 /// every witness that has it: the same value at the same cell cannot be the
 /// author's in one copy and a copyist's slip in another (a slip that lands
 /// on it, such as a repeated neighbour, is the less likely story).
-void UnifyAuthorsReadings(const std::vector<Transcription>& ws, std::map<std::string, collate::JudgementGrid>& grids) {
+void UnifyAuthorsReadings(const std::vector<Transcription>& ws,
+                          std::map<std::string, collate::JudgementGrid>& grids) {
   std::map<std::string, collate::CellJudgement> authors;
-  ForEachJudged(ws, grids, [&](const Transcription& w, std::size_t r, std::size_t c, collate::CellJudgement& j) {
-    if (!AuthorsDeparture(j)) return;
-    if (auto key = CellKey(w, r, c)) authors.emplace(*key, j);
-  });
-  ForEachJudged(ws, grids, [&](const Transcription& w, std::size_t r, std::size_t c, collate::CellJudgement& j) {
-    if (!j.error) return;
-    const auto key = CellKey(w, r, c);
-    auto it = key ? authors.find(*key) : authors.end();
-    if (it != authors.end()) j = it->second;
-  });
+  ForEachJudged(
+      ws, grids,
+      [&](const Transcription& w, std::size_t r, std::size_t c, collate::CellJudgement& j) {
+        if (!AuthorsDeparture(j)) return;
+        if (auto key = CellKey(w, r, c)) authors.emplace(*key, j);
+      });
+  ForEachJudged(
+      ws, grids,
+      [&](const Transcription& w, std::size_t r, std::size_t c, collate::CellJudgement& j) {
+        if (!j.error) return;
+        const auto key = CellKey(w, r, c);
+        auto it = key ? authors.find(*key) : authors.end();
+        if (it != authors.end()) j = it->second;
+      });
 }
 
 }  // namespace
 
 int WitnessFindings::CopyingSlips() const {
-  return static_cast<int>(std::count_if(findings.begin(), findings.end(), [](const deviation::Finding& f) {
-    return deviation::IsCopyingSlip(f.best().cls);
-  }));
+  return static_cast<int>(std::count_if(
+      findings.begin(), findings.end(),
+      [](const deviation::Finding& f) { return deviation::IsCopyingSlip(f.best().cls); }));
 }
 
-int WitnessFindings::Departures() const { return static_cast<int>(findings.size()) - CopyingSlips(); }
+int WitnessFindings::Departures() const {
+  return static_cast<int>(findings.size()) - CopyingSlips();
+}
 
-WitnessFindings ExplainWitness(const Transcription& witness, const std::vector<ColumnReference>& references,
-                               const deviation::NumeralScript& script, const deviation::ExplainOptions& options,
-                               double check_tolerance) {
+WitnessFindings ExplainWitness(const Transcription& witness,
+                               const std::vector<ColumnReference>& references,
+                               const deviation::NumeralScript& script,
+                               const deviation::ExplainOptions& options, double check_tolerance) {
   WitnessFindings out;
   out.siglum = witness.witness.siglum;
   out.script = script.name();
   for (const auto& any : references) {
     const auto ref = ForWitness(any, witness);
     if (!ref) continue;
-    const auto check = model::Check(witness, *ref->model, ref->params, ref->practice, check_tolerance, ref->column);
+    const auto check = model::Check(witness, *ref->model, ref->params, ref->practice,
+                                    check_tolerance, ref->column);
     out.checks.push_back({ref->column, ref->column_name, check.summary});
     const auto re = ref->Recompute(witness);
     const deviation::ColumnValues values{ref->column, re.computed, re.exact};
@@ -133,7 +153,9 @@ WitnessFindings ExplainWitness(const Transcription& witness, const std::vector<C
 collate::JudgementGrid JudgementsFromFindings(const Transcription& witness,
                                               const std::vector<ColumnReference>& references,
                                               const std::vector<deviation::Finding>& findings) {
-  collate::JudgementGrid grid(witness.rows.size(), std::vector<std::optional<collate::CellJudgement>>(witness.columns.size()));
+  collate::JudgementGrid grid(
+      witness.rows.size(),
+      std::vector<std::optional<collate::CellJudgement>>(witness.columns.size()));
   for (const auto& any : references) {
     const auto ref = ForWitness(any, witness);
     if (!ref) continue;
@@ -141,11 +163,14 @@ collate::JudgementGrid JudgementsFromFindings(const Transcription& witness,
     const int places = *ref->practice.places;
     for (std::size_t r = 0; r < witness.rows.size(); ++r) {
       const Cell& cell = witness.rows[r].cells[static_cast<std::size_t>(ref->column)];
-      const bool comparable = (cell.state == CellState::kRead && cell.value) || cell.state == CellState::kBlank;
+      const bool comparable =
+          (cell.state == CellState::kRead && cell.value) || cell.state == CellState::kBlank;
       if (!comparable || !re.computed[r]) continue;
       collate::CellJudgement j;
       j.computed = re.computed[r];
-      if (cell.value) j.units_off = DiffUnits(*cell.value, *re.computed[r], std::max(places, cell.value->places()));
+      if (cell.value)
+        j.units_off =
+            DiffUnits(*cell.value, *re.computed[r], std::max(places, cell.value->places()));
       grid[r][static_cast<std::size_t>(ref->column)] = j;
     }
   }
@@ -165,11 +190,13 @@ collate::JudgementGrid JudgementsFromFindings(const Transcription& witness,
 
 collate::CollateOptions JudgedCollateOptions(const std::vector<Transcription>& witnesses,
                                              const std::vector<ColumnReference>& references,
-                                             const std::vector<WitnessFindings>& findings, double tolerance_units) {
+                                             const std::vector<WitnessFindings>& findings,
+                                             double tolerance_units) {
   collate::CollateOptions o;
   o.tolerance_units = tolerance_units;
   for (std::size_t i = 0; i < witnesses.size() && i < findings.size(); ++i) {
-    o.judgements[witnesses[i].witness.siglum] = JudgementsFromFindings(witnesses[i], references, findings[i].findings);
+    o.judgements[witnesses[i].witness.siglum] =
+        JudgementsFromFindings(witnesses[i], references, findings[i].findings);
   }
   LoneDepartures(witnesses, o.judgements);
   UnifyAuthorsReadings(witnesses, o.judgements);
@@ -200,8 +227,10 @@ collate::CollateOptions JudgedCollateOptions(const std::vector<Transcription>& w
     if (ref.source == ReferenceSource::kIdentified) description += " (" + ref.how + ")";
   }
   o.reference = collate::Reference{
-      description, [by_column, arg2](const Sexagesimal& argument, int column) -> std::optional<Sexagesimal> {
-        if (column < 0 || column >= static_cast<int>(by_column.size()) || !by_column[column]) return std::nullopt;
+      description,
+      [by_column, arg2](const Sexagesimal& argument, int column) -> std::optional<Sexagesimal> {
+        if (column < 0 || column >= static_cast<int>(by_column.size()) || !by_column[column])
+          return std::nullopt;
         return by_column[column]->ValueAt(argument.ToDouble(), arg2[column]);
       }};
   return o;

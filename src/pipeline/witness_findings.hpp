@@ -25,8 +25,8 @@ struct ColumnCheck {
 
 struct WitnessFindings {
   std::string siglum;
-  std::string script;  ///< the numeral script the findings were read in
-  std::vector<ColumnCheck> checks;          ///< one per referenced column the witness has
+  std::string script;                        ///< the numeral script the findings were read in
+  std::vector<ColumnCheck> checks;           ///< one per referenced column the witness has
   std::vector<deviation::Finding> findings;  ///< every column, in column then row order
   /// Findings whose best explanation is a copyist's slip (all but the
   /// author's computational departures), and those departures.
@@ -37,9 +37,11 @@ struct WitnessFindings {
 /// Checks and explains the columns of `witness` that have a reference
 /// (matched by column name, so witnesses may order their columns
 /// differently). `check_tolerance` is the check's flag threshold in units.
-WitnessFindings ExplainWitness(const Transcription& witness, const std::vector<ColumnReference>& references,
+WitnessFindings ExplainWitness(const Transcription& witness,
+                               const std::vector<ColumnReference>& references,
                                const deviation::NumeralScript& script,
-                               const deviation::ExplainOptions& options = {}, double check_tolerance = 1);
+                               const deviation::ExplainOptions& options = {},
+                               double check_tolerance = 1);
 
 /// The collation's judgement of every readable cell (value or blank) of the
 /// referenced columns of `witness`:

@@ -16,7 +16,8 @@ bool Carries(const Reading& r, const std::string& siglum) {
 }
 
 // Votes of the independent branches for each comparable reading.
-std::vector<int> BranchVotes(const collate::CollatedCell& cell, const std::vector<std::vector<std::string>>& branches) {
+std::vector<int> BranchVotes(const collate::CollatedCell& cell,
+                             const std::vector<std::vector<std::string>>& branches) {
   std::vector<int> votes(cell.readings.size(), 0);
   for (const auto& branch : branches) {
     int best = -1, best_n = 0;
@@ -25,15 +26,18 @@ std::vector<int> BranchVotes(const collate::CollatedCell& cell, const std::vecto
       if (!cell.readings[k].Comparable()) continue;
       int n = 0;
       for (const auto& s : branch) n += Carries(cell.readings[k], s) ? 1 : 0;
-      if (n > best_n) best = static_cast<int>(k), best_n = n, tie = false;
-      else if (n == best_n && n > 0) tie = true;
+      if (n > best_n)
+        best = static_cast<int>(k), best_n = n, tie = false;
+      else if (n == best_n && n > 0)
+        tie = true;
     }
     if (best >= 0 && !tie) ++votes[best];
   }
   return votes;
 }
 
-int DefaultLemma(const collate::CollatedCell& cell, const std::vector<std::vector<std::string>>& branches) {
+int DefaultLemma(const collate::CollatedCell& cell,
+                 const std::vector<std::vector<std::string>>& branches) {
   const auto votes = BranchVotes(cell, branches);
   int best = -1;
   auto better = [&](std::size_t a, std::size_t b) {  // is reading a better than b?
@@ -61,12 +65,14 @@ ApparatusEntry Entry(const collate::CollatedCell& cell, int lemma, const Overrid
     chosen = -1;
     const std::string text = Canonical(o->reading);
     for (std::size_t k = 0; k < cell.readings.size(); ++k) {
-      if (cell.readings[k].Comparable() && cell.readings[k].text == text) chosen = static_cast<int>(k);
+      if (cell.readings[k].Comparable() && cell.readings[k].text == text)
+        chosen = static_cast<int>(k);
     }
     e.editor = true;
     e.lemma = text;
     e.emendation = chosen < 0;
-    e.note = o->note.empty() ? (e.emendation ? "emended by the editor" : "adopted by the editor") : o->note;
+    e.note = o->note.empty() ? (e.emendation ? "emended by the editor" : "adopted by the editor")
+                             : o->note;
   }
   if (chosen >= 0) {
     const Reading& r = cell.readings[chosen];
@@ -74,7 +80,8 @@ ApparatusEntry Entry(const collate::CollatedCell& cell, int lemma, const Overrid
     e.lemma_sigla = r.sigla;
     if (!o) {
       e.note = r.error ? "every witness deviates: " + r.why : (cell.Varies() ? r.why : "");
-      if (!r.error && cell.basis == collate::Basis::kUndetermined) e.note = "no model and no majority: undetermined";
+      if (!r.error && cell.basis == collate::Basis::kUndetermined)
+        e.note = "no model and no majority: undetermined";
     }
   } else if (!o) {
     e.note = "no witness can be read here";
@@ -87,7 +94,8 @@ ApparatusEntry Entry(const collate::CollatedCell& cell, int lemma, const Overrid
   return e;
 }
 
-const Override* FindOverride(const std::vector<Override>& os, const Sexagesimal& arg, const std::string& column) {
+const Override* FindOverride(const std::vector<Override>& os, const Sexagesimal& arg,
+                             const std::string& column) {
   for (const auto& o : os) {
     auto v = Sexagesimal::Parse(o.row);
     if (v && *v == arg && o.column == column) return &o;
@@ -98,22 +106,26 @@ const Override* FindOverride(const std::vector<Override>& os, const Sexagesimal&
 void CheckOverrides(const collate::Collation& c, const std::vector<Override>& os) {
   for (const auto& o : os) {
     auto v = Sexagesimal::Parse(o.row);
-    const bool row_ok = v && std::any_of(c.rows.begin(), c.rows.end(), [&](auto& r) { return r.argument == *v; });
+    const bool row_ok =
+        v && std::any_of(c.rows.begin(), c.rows.end(), [&](auto& r) { return r.argument == *v; });
     if (!row_ok) {
-      throw InputError::ForOption("--override", ExpectedFound("the argument of a row of table " + c.table_id,
-                                                              "'" + o.row + "'"));
+      throw InputError::ForOption(
+          "--override",
+          ExpectedFound("the argument of a row of table " + c.table_id, "'" + o.row + "'"));
     }
-    const bool col_ok = std::any_of(c.columns.begin(), c.columns.end(), [&](auto& k) { return k.name == o.column; });
+    const bool col_ok = std::any_of(c.columns.begin(), c.columns.end(),
+                                    [&](auto& k) { return k.name == o.column; });
     if (!col_ok) {
-      throw InputError::ForOption("--override", ExpectedFound("a column of table " + c.table_id,
-                                                              "'" + o.column + "'"));
+      throw InputError::ForOption(
+          "--override", ExpectedFound("a column of table " + c.table_id, "'" + o.column + "'"));
     }
   }
 }
 
 }  // namespace
 
-Apparatus BuildApparatus(const collate::Collation& c, const std::vector<std::vector<std::string>>& branches_in,
+Apparatus BuildApparatus(const collate::Collation& c,
+                         const std::vector<std::vector<std::string>>& branches_in,
                          const std::vector<Override>& overrides) {
   CheckOverrides(c, overrides);
   std::vector<std::vector<std::string>> branches = branches_in;
@@ -145,7 +157,8 @@ std::string XmlId(const std::string& siglum) {
     const bool ok = std::isalnum(ch) || ch == '-' || ch == '_' || ch == '.';
     id += ok ? static_cast<char>(ch) : '_';
   }
-  if (id.empty() || std::isdigit(static_cast<unsigned char>(id[0])) || id[0] == '-' || id[0] == '.') id = "w" + id;
+  if (id.empty() || std::isdigit(static_cast<unsigned char>(id[0])) || id[0] == '-' || id[0] == '.')
+    id = "w" + id;
   return id;
 }
 

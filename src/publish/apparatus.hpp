@@ -59,7 +59,8 @@ struct Apparatus {
 /// branch of the stemma (empty: each witness alone). Throws InputError
 /// (option --override) for an override whose row or column is not in the
 /// table.
-Apparatus BuildApparatus(const collate::Collation& collation, const std::vector<std::vector<std::string>>& branches,
+Apparatus BuildApparatus(const collate::Collation& collation,
+                         const std::vector<std::vector<std::string>>& branches,
                          const std::vector<Override>& overrides);
 
 /// TEI P5: teiHeader with a listWit (library and shelfmark of every

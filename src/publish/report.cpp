@@ -36,8 +36,8 @@ void Witnesses(const pipeline::TableAnalysis& a, std::ostream& out) {
     if (!w.date.empty()) about.push_back(w.date);
     if (!w.script.empty()) about.push_back("numerals: " + w.script);
     const std::string tail = Join(about, "; ");
-    out << "- **" << w.siglum << "** " << Join(parts, ", ") << (tail.empty() ? "" : " (" + tail + ")")
-        << "\n";
+    out << "- **" << w.siglum << "** " << Join(parts, ", ")
+        << (tail.empty() ? "" : " (" + tail + ")") << "\n";
   }
   out << "\n";
 }
@@ -52,7 +52,8 @@ void Estimates(const pipeline::ColumnReference& r, std::ostream& out) {
     std::snprintf(buf, sizeof buf, " (%.6g \u00b1 %.2g)", p.value, p.stderr_);
     parts.push_back(p.name + " = " + estimate::TradeValue(p.value, p.stderr_) + buf);
   }
-  if (!parts.empty()) out << "  estimate from witness " << r.witness << ": " << Join(parts, ", ") << "\n";
+  if (!parts.empty())
+    out << "  estimate from witness " << r.witness << ": " << Join(parts, ", ") << "\n";
   std::istringstream lines(r.attested);
   for (std::string line; std::getline(lines, line);) {
     out << "  - " << line.substr(line.find_first_not_of(' ')) << "\n";
@@ -65,8 +66,8 @@ void MeanMotionVerdict(const pipeline::ColumnReference& r, std::ostream& out) {
   if (!r.mean_motion) return;
   // The simplest account is enough here; `apograph identify` shows every entry.
   const std::string& v = r.mean_motion->verdict;
-  out << "  How the entries were made (witness " << r.witness << "): " << v.substr(0, v.find(" Entry by entry:"))
-      << "\n";
+  out << "  How the entries were made (witness " << r.witness
+      << "): " << v.substr(0, v.find(" Entry by entry:")) << "\n";
 }
 
 void References(const pipeline::TableAnalysis& a, std::ostream& out) {
@@ -75,10 +76,12 @@ void References(const pipeline::TableAnalysis& a, std::ostream& out) {
   for (const auto& r : a.references) {
     out << "- **" << r.column_name << "**: " << r.description << "\n  " << r.how << "\n";
     constexpr std::size_t kTiesShown = 2;
-    for (std::size_t i = 0; i < r.ties.size() && i < kTiesShown; ++i) out << "  - " << r.ties[i] << "\n";
+    for (std::size_t i = 0; i < r.ties.size() && i < kTiesShown; ++i)
+      out << "  - " << r.ties[i] << "\n";
     if (r.ties.size() > kTiesShown) {
-      out << "  - and " << r.ties.size() - kTiesShown << " more near-ties (apograph identify --table " << a.table_id
-          << " --witness " << r.witness << ")\n";
+      out << "  - and " << r.ties.size() - kTiesShown
+          << " more near-ties (apograph identify --table " << a.table_id << " --witness "
+          << r.witness << ")\n";
     }
     Estimates(r, out);
     MeanMotionVerdict(r, out);
@@ -89,8 +92,8 @@ void References(const pipeline::TableAnalysis& a, std::ostream& out) {
 void Checks(const pipeline::TableAnalysis& a, std::ostream& out) {
   out << "### Each witness against the model\n\n";
   Tabular t;
-  t.headers = {"witness", "column", "entries", "exact", "within 1", "flagged", "worst", "slips",
-               "author's"};
+  t.headers = {"witness", "column", "entries", "exact",   "within 1",
+               "flagged", "worst",  "slips",   "author's"};
   t.right_aligned = {false, false, true, true, true, true, true, true, true};
   for (const auto& w : a.witnesses) {
     bool first = true;
@@ -100,7 +103,8 @@ void Checks(const pipeline::TableAnalysis& a, std::ostream& out) {
       t.Add({first ? w.siglum : "", c.column_name, std::to_string(c.summary.compared),
              std::to_string(c.summary.exact), std::to_string(c.summary.within_one),
              std::to_string(c.summary.flagged), worst,
-             first ? std::to_string(w.CopyingSlips()) : "", first ? std::to_string(w.Departures()) : ""});
+             first ? std::to_string(w.CopyingSlips()) : "",
+             first ? std::to_string(w.Departures()) : ""});
       first = false;
     }
   }
@@ -127,8 +131,8 @@ void Deviations(const pipeline::TableAnalysis& a, const ReportOptions& o, std::o
       ++shown;
     }
     if (hidden) {
-      out << "- ... and " << hidden << " more (apograph errors --table " << a.table_id << " --witness "
-          << w.siglum << " --auto)\n";
+      out << "- ... and " << hidden << " more (apograph errors --table " << a.table_id
+          << " --witness " << w.siglum << " --auto)\n";
     }
     out << "\n";
   }
@@ -155,7 +159,8 @@ void Lineage(const lineage::LineageReport& l, std::ostream& out) {
   if (l.undetermined_cells) out << " (" << l.undetermined_cells << " cells left undetermined)";
   out << ". Shared errors are evidence of common descent; shared right readings are not.\n\n";
   for (const auto& r : l.results) {
-    out << "By " << (r.method == lineage::Method::kParsimony ? "maximum parsimony" : "neighbour joining");
+    out << "By "
+        << (r.method == lineage::Method::kParsimony ? "maximum parsimony" : "neighbour joining");
     if (r.parsimony) {
       char buf[64];
       std::snprintf(buf, sizeof buf, " (length %.4g)", r.parsimony->length);
@@ -167,7 +172,8 @@ void Lineage(const lineage::LineageReport& l, std::ostream& out) {
   }
   for (const auto& c : l.copies) out << "- copy? " << c.text << "\n";
   for (const auto& c : l.contamination) out << "- contamination? " << c.text << "\n";
-  if (l.copies.empty() && l.contamination.empty()) out << "- no direct copy and no contamination found\n";
+  if (l.copies.empty() && l.contamination.empty())
+    out << "- no direct copy and no contamination found\n";
   out << "\n";
 }
 
@@ -187,14 +193,14 @@ void ApparatusSummary(const pipeline::TableAnalysis& a, std::ostream& out) {
             a.collation.rows[r].cells[c].computed) {
           model = "; the model gives " + a.collation.rows[r].cells[c].computed->ToString();
         }
-        to_decide.push_back(app.arguments[r].ToString() + " " + app.columns[c].name + ": adopted " + e.lemma +
-                            model + " (" + e.note + ")");
+        to_decide.push_back(app.arguments[r].ToString() + " " + app.columns[c].name + ": adopted " +
+                            e.lemma + model + " (" + e.note + ")");
       }
     }
   }
   out << "### The edited table\n\n"
-      << app.cells.size() << " rows; " << with_variants << " cells with variant readings in the apparatus; "
-      << overrides << " editor's overrides";
+      << app.cells.size() << " rows; " << with_variants
+      << " cells with variant readings in the apparatus; " << overrides << " editor's overrides";
   if (undetermined) out << "; " << undetermined << " cells undetermined (no model, no majority)";
   out << ".\n";
   if (!to_decide.empty()) {

@@ -10,20 +10,25 @@ void Insert(Database& db, const ApparatusDecision& d) {
   auto exists = db.Prepare("SELECT 1 FROM edition_table WHERE id = ?1");
   exists.Bind(1, d.table_id);
   if (!exists.Step()) {
-    throw InputError::ForOption("--table", ExpectedFound("a table in the database", "'" + d.table_id + "'"));
+    throw InputError::ForOption("--table",
+                                ExpectedFound("a table in the database", "'" + d.table_id + "'"));
   }
   auto insert = db.Prepare(
       "INSERT INTO apparatus_decision (table_id, row_argument, column_name, reading, note) "
       "VALUES (?1, ?2, ?3, ?4, ?5)");
   insert.Bind(1, d.table_id).Bind(2, d.row_argument).Bind(3, d.column).Bind(5, d.note);
-  if (d.reading.empty()) insert.BindNull(4);
-  else insert.Bind(4, d.reading);
+  if (d.reading.empty())
+    insert.BindNull(4);
+  else
+    insert.Bind(4, d.reading);
   insert.Run();
 }
 
 }  // namespace
 
-void SaveApparatusDecision(Database& db, const ApparatusDecision& d) { SaveApparatusDecisions(db, {d}); }
+void SaveApparatusDecision(Database& db, const ApparatusDecision& d) {
+  SaveApparatusDecisions(db, {d});
+}
 
 void SaveApparatusDecisions(Database& db, const std::vector<ApparatusDecision>& decisions) {
   Transaction t(db);

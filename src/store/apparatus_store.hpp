@@ -15,9 +15,9 @@ struct ApparatusDecision {
   std::string table_id;
   std::string row_argument;  ///< canonical trade notation ("20", "0;30")
   std::string column;
-  std::string reading;       ///< empty: withdraw the override
+  std::string reading;  ///< empty: withdraw the override
   std::string note;
-  std::string decided_at;    ///< set by the database (UTC, ISO 8601)
+  std::string decided_at;  ///< set by the database (UTC, ISO 8601)
 };
 
 /// Records one decision in its own transaction. Throws InputError when the

@@ -75,14 +75,30 @@ class Reader {
     if (pos_ >= text_.size()) Fail("an escape");
     const char c = text_[pos_++];
     switch (c) {
-      case '"': case '\\': case '/': out += c; return;
-      case 'b': out += '\b'; return;
-      case 'f': out += '\f'; return;
-      case 'n': out += '\n'; return;
-      case 'r': out += '\r'; return;
-      case 't': out += '\t'; return;
-      case 'u': break;
-      default: Fail("an escape");
+      case '"':
+      case '\\':
+      case '/':
+        out += c;
+        return;
+      case 'b':
+        out += '\b';
+        return;
+      case 'f':
+        out += '\f';
+        return;
+      case 'n':
+        out += '\n';
+        return;
+      case 'r':
+        out += '\r';
+        return;
+      case 't':
+        out += '\t';
+        return;
+      case 'u':
+        break;
+      default:
+        Fail("an escape");
     }
     std::uint32_t code = Hex4();
     if (code >= 0xD800 && code < 0xDC00 && text_.substr(pos_, 2) == "\\u") {

@@ -94,8 +94,9 @@ void AppendJsonString(std::string& out, std::string_view text) {
 
 void AppendCellJson(std::string& out, const Cell& c, int column_places, int row_line) {
   char value_text[kValueTextSize];
-  const std::string_view value =
-      c.state == CellState::kRead && c.value ? FormatValue(*c.value, value_text) : std::string_view();
+  const std::string_view value = c.state == CellState::kRead && c.value
+                                     ? FormatValue(*c.value, value_text)
+                                     : std::string_view();
   const bool canonical = !value.empty() && value == c.raw;
   if (canonical && c.places == column_places && c.line == row_line && !HasMarks(c)) {
     AppendPlainCell(out, value, c.column);  // most cells: no escaping needed

@@ -15,7 +15,8 @@ std::string InsertSql(int rows) {
 
 }  // namespace
 
-CellWriter::CellWriter(Database& db) : batch_(db.Prepare(InsertSql(kBatch))), single_(db.Prepare(InsertSql(1))) {}
+CellWriter::CellWriter(Database& db)
+    : batch_(db.Prepare(InsertSql(kBatch))), single_(db.Prepare(InsertSql(1))) {}
 
 void CellWriter::Add(std::int64_t revision, const Transcription& t, std::size_t row) {
   const Row& r = t.rows[row];

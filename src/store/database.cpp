@@ -14,7 +14,8 @@ namespace {
 }  // namespace
 
 Statement::Statement(sqlite3* db, std::string_view sql) : db_(db) {
-  if (sqlite3_prepare_v2(db, sql.data(), static_cast<int>(sql.size()), &stmt_, nullptr) != SQLITE_OK) {
+  if (sqlite3_prepare_v2(db, sql.data(), static_cast<int>(sql.size()), &stmt_, nullptr) !=
+      SQLITE_OK) {
     Fail(db, "preparing '" + std::string(sql.substr(0, 60)) + "'");
   }
 }
@@ -77,13 +78,16 @@ void Statement::Reset() {
   sqlite3_clear_bindings(stmt_);
 }
 
-bool Statement::IsNull(int column) const { return sqlite3_column_type(stmt_, column) == SQLITE_NULL; }
+bool Statement::IsNull(int column) const {
+  return sqlite3_column_type(stmt_, column) == SQLITE_NULL;
+}
 std::int64_t Statement::Int(int column) const { return sqlite3_column_int64(stmt_, column); }
 double Statement::Real(int column) const { return sqlite3_column_double(stmt_, column); }
 
 std::string Statement::Text(int column) const {
   const auto* p = sqlite3_column_text(stmt_, column);
-  return p ? std::string(reinterpret_cast<const char*>(p), static_cast<std::size_t>(sqlite3_column_bytes(stmt_, column)))
+  return p ? std::string(reinterpret_cast<const char*>(p),
+                         static_cast<std::size_t>(sqlite3_column_bytes(stmt_, column)))
            : std::string();
 }
 
@@ -100,7 +104,9 @@ std::optional<std::string> Statement::OptionalText(int column) const {
 }
 
 Database::Database(const std::string& path) : path_(path) {
-  if (sqlite3_open_v2(path.c_str(), &db_, SQLITE_OPEN_READWRITE | SQLITE_OPEN_CREATE | SQLITE_OPEN_NOMUTEX, nullptr) != SQLITE_OK) {
+  if (sqlite3_open_v2(path.c_str(), &db_,
+                      SQLITE_OPEN_READWRITE | SQLITE_OPEN_CREATE | SQLITE_OPEN_NOMUTEX,
+                      nullptr) != SQLITE_OK) {
     std::string msg = db_ ? sqlite3_errmsg(db_) : "out of memory";
     sqlite3_close(db_);
     throw StoreError("cannot open database " + path + ": " + msg);

@@ -34,7 +34,9 @@ class Statement {
   Statement& Bind(int index, double value);
   Statement& Bind(int index, std::string_view value);
   Statement& Bind(int index, const char* value) { return Bind(index, std::string_view(value)); }
-  Statement& Bind(int index, const std::string& value) { return Bind(index, std::string_view(value)); }
+  Statement& Bind(int index, const std::string& value) {
+    return Bind(index, std::string_view(value));
+  }
   Statement& BindNull(int index);
   /// Binds text WITHOUT copying it: `value` must stay valid until the next
   /// Step()/Run()/Reset(). For hot loops that insert many rows.

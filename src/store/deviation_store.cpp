@@ -44,12 +44,18 @@ RecordResult RecordEmendations(Database& db, const std::vector<EmendationRecord>
       "SELECT id FROM emendation WHERE table_id = ?1 AND siglum = ?2 AND revision = ?3 AND "
       "row_index = ?4 AND col = ?5 AND proposed = ?6");
   auto insert = db.Prepare(
-      "INSERT INTO emendation (table_id, siglum, revision, row_index, col, column_name, arg, tabulated, "
+      "INSERT INTO emendation (table_id, siglum, revision, row_index, col, column_name, arg, "
+      "tabulated, "
       "proposed, class, evidence, score, model, finding) "
       "VALUES (?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9, ?10, ?11, ?12, ?13, ?14)");
   std::map<int, std::int64_t> group_head;
   for (const auto& p : proposals) {
-    find.Bind(1, p.table_id).Bind(2, p.siglum).Bind(3, p.revision).Bind(4, p.row).Bind(5, p.column).Bind(6, p.proposed);
+    find.Bind(1, p.table_id)
+        .Bind(2, p.siglum)
+        .Bind(3, p.revision)
+        .Bind(4, p.row)
+        .Bind(5, p.column)
+        .Bind(6, p.proposed);
     const bool exists = find.Step();
     const std::int64_t existing = exists ? find.Int(0) : 0;
     find.Reset();
@@ -60,9 +66,20 @@ RecordResult RecordEmendations(Database& db, const std::vector<EmendationRecord>
     }
     std::optional<std::int64_t> head;
     if (p.group != 0 && group_head.count(p.group)) head = group_head[p.group];
-    insert.Bind(1, p.table_id).Bind(2, p.siglum).Bind(3, p.revision).Bind(4, p.row).Bind(5, p.column)
-        .Bind(6, p.column_name).Bind(7, p.arg).Bind(8, p.tabulated).Bind(9, p.proposed).Bind(10, p.cls)
-        .Bind(11, p.evidence).Bind(12, p.score).Bind(13, p.model).Bind(14, head);
+    insert.Bind(1, p.table_id)
+        .Bind(2, p.siglum)
+        .Bind(3, p.revision)
+        .Bind(4, p.row)
+        .Bind(5, p.column)
+        .Bind(6, p.column_name)
+        .Bind(7, p.arg)
+        .Bind(8, p.tabulated)
+        .Bind(9, p.proposed)
+        .Bind(10, p.cls)
+        .Bind(11, p.evidence)
+        .Bind(12, p.score)
+        .Bind(13, p.model)
+        .Bind(14, head);
     insert.Run();
     if (p.group != 0) group_head.emplace(p.group, db.LastInsertId());
     ++out.added;
@@ -72,9 +89,10 @@ RecordResult RecordEmendations(Database& db, const std::vector<EmendationRecord>
 }
 
 std::vector<EmendationRecord> ListEmendations(Database& db, const EmendationFilter& filter) {
-  auto s = db.Prepare(std::string("SELECT ") + kColumns +
-                      " FROM emendation WHERE (?1 IS NULL OR table_id = ?1) AND (?2 IS NULL OR siglum = ?2) "
-                      "AND (?3 IS NULL OR status = ?3) ORDER BY table_id, siglum, revision, row_index, col, id");
+  auto s = db.Prepare(
+      std::string("SELECT ") + kColumns +
+      " FROM emendation WHERE (?1 IS NULL OR table_id = ?1) AND (?2 IS NULL OR siglum = ?2) "
+      "AND (?3 IS NULL OR status = ?3) ORDER BY table_id, siglum, revision, row_index, col, id");
   s.Bind(1, filter.table_id).Bind(2, filter.siglum).Bind(3, filter.status);
   std::vector<EmendationRecord> out;
   while (s.Step()) out.push_back(Read(s));
@@ -84,7 +102,8 @@ std::vector<EmendationRecord> ListEmendations(Database& db, const EmendationFilt
 EmendationRecord DecideEmendation(Database& db, std::int64_t id, const std::string& status,
                                   const std::string& note) {
   if (status != "accepted" && status != "rejected") {
-    throw InputError::ForOption("status", ExpectedFound("accepted or rejected", "'" + status + "'"));
+    throw InputError::ForOption("status",
+                                ExpectedFound("accepted or rejected", "'" + status + "'"));
   }
   Transaction t(db);
   auto update = db.Prepare(
@@ -95,9 +114,10 @@ EmendationRecord DecideEmendation(Database& db, std::int64_t id, const std::stri
   auto read = db.Prepare(std::string("SELECT ") + kColumns + " FROM emendation WHERE id = ?1");
   read.Bind(1, id);
   if (!read.Step()) {
-    throw InputError::ForOption("apograph emendation", ExpectedFound("the id of a proposed emendation (see "
-                                                                     "apograph emendation list)",
-                                                                     "'" + std::to_string(id) + "'"));
+    throw InputError::ForOption("apograph emendation",
+                                ExpectedFound("the id of a proposed emendation (see "
+                                              "apograph emendation list)",
+                                              "'" + std::to_string(id) + "'"));
   }
   EmendationRecord r = Read(read);
   t.Commit();

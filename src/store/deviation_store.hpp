@@ -18,20 +18,20 @@ struct EmendationRecord {
   std::string table_id;
   std::string siglum;
   int revision = 1;
-  int row = 0;             ///< 0-based row index
-  int column = 0;          ///< 0-based value column
+  int row = 0;     ///< 0-based row index
+  int column = 0;  ///< 0-based value column
   std::string column_name;
   std::string arg;
-  std::string tabulated;   ///< the reading as transcribed
-  std::string proposed;    ///< the proposed original reading, trade notation
-  std::string cls;         ///< explanation class ("confusion", "displaced-run", ...)
+  std::string tabulated;  ///< the reading as transcribed
+  std::string proposed;   ///< the proposed original reading, trade notation
+  std::string cls;        ///< explanation class ("confusion", "displaced-run", ...)
   std::string evidence;
   double score = 0;
-  std::string model;       ///< what the entries were compared with
+  std::string model;  ///< what the entries were compared with
   /// Cells of one finding (a displaced run) share the id of its first
   /// proposal; set by RecordEmendations from `group` below.
   std::optional<std::int64_t> finding;
-  int group = 0;           ///< input only: proposals with the same non-zero group form one finding
+  int group = 0;  ///< input only: proposals with the same non-zero group form one finding
   std::string status = "proposed";  ///< proposed / accepted / rejected
   std::string proposed_at;
   std::optional<std::string> decided_at;

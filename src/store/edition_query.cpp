@@ -29,9 +29,10 @@ RevisionKey FindRevision(Database& db, const std::string& table_id, const std::s
   if (!s.Step()) {
     std::string what = "table '" + table_id + "' of witness '" + siglum + "'";
     if (revision && HasTranscription(db, table_id, siglum)) {
-      throw InputError::ForFile(db.path(), ExpectedFound("a revision of " + what,
-                                                         "no revision " + std::to_string(*revision) +
-                                                             " (see apograph list revisions)"));
+      throw InputError::ForFile(
+          db.path(),
+          ExpectedFound("a revision of " + what, "no revision " + std::to_string(*revision) +
+                                                     " (see apograph list revisions)"));
     }
     throw InputError::ForFile(db.path(), ExpectedFound("a transcription of " + what,
                                                        "none (see apograph list transcriptions)"));
@@ -85,11 +86,14 @@ void LoadLayout(Database& db, std::int64_t revision, Transcription& t) {
 /// Rows in order, each decoded from its JSON (cell_json.hpp); the same
 /// decoding as the view `cell`, which the tests compare with it.
 void LoadCells(Database& db, std::int64_t revision, Transcription& t) {
-  auto s = db.Prepare("SELECT row_index, line, cells FROM cell_row WHERE revision_id = ?1 ORDER BY row_index");
+  auto s = db.Prepare(
+      "SELECT row_index, line, cells FROM cell_row WHERE revision_id = ?1 ORDER BY row_index");
   s.Bind(1, revision);
   while (s.Step()) {
     const auto row = static_cast<std::size_t>(s.Int(0));
-    if (row != t.rows.size()) throw StoreError("revision " + std::to_string(revision) + " lacks row " + std::to_string(t.rows.size()));
+    if (row != t.rows.size())
+      throw StoreError("revision " + std::to_string(revision) + " lacks row " +
+                       std::to_string(t.rows.size()));
     DecodeRowCells(s.TextView(2), t, static_cast<int>(s.Int(1)), t.rows.emplace_back());
   }
 }
@@ -101,8 +105,14 @@ std::vector<std::string> Strings(Statement s) {
 }
 
 RevisionSummary ReadRevisionSummary(const Statement& s) {
-  return {s.Text(0), s.Text(1), static_cast<int>(s.Int(2)), static_cast<int>(s.Int(3)),
-          s.Int(4), s.Int(5), s.Text(6), s.Text(7)};
+  return {s.Text(0),
+          s.Text(1),
+          static_cast<int>(s.Int(2)),
+          static_cast<int>(s.Int(3)),
+          s.Int(4),
+          s.Int(5),
+          s.Text(6),
+          s.Text(7)};
 }
 
 }  // namespace
@@ -158,8 +168,10 @@ std::vector<WorkSummary> ListWorks(Database& db) {
       "SELECT work_id, title, author, tables, witnesses, cells FROM work_summary ORDER BY work_id");
   std::vector<WorkSummary> out;
   while (s.Step()) {
-    out.push_back({{s.Text(0), s.Text(1), s.Text(2)}, static_cast<int>(s.Int(3)),
-                   static_cast<int>(s.Int(4)), s.Int(5)});
+    out.push_back({{s.Text(0), s.Text(1), s.Text(2)},
+                   static_cast<int>(s.Int(3)),
+                   static_cast<int>(s.Int(4)),
+                   s.Int(5)});
   }
   return out;
 }
@@ -171,12 +183,14 @@ std::vector<TableSummary> ListTables(Database& db, const std::optional<std::stri
   s.Bind(1, work_id);
   std::vector<TableSummary> out;
   while (s.Step()) {
-    out.push_back({s.Text(0), s.Text(1), s.Text(2), s.Text(3), static_cast<int>(s.Int(4)), s.Int(5)});
+    out.push_back(
+        {s.Text(0), s.Text(1), s.Text(2), s.Text(3), static_cast<int>(s.Int(4)), s.Int(5)});
   }
   return out;
 }
 
-std::vector<WitnessSummary> ListWitnesses(Database& db, const std::optional<std::string>& table_id) {
+std::vector<WitnessSummary> ListWitnesses(Database& db,
+                                          const std::optional<std::string>& table_id) {
   auto s = db.Prepare(
       "SELECT w.siglum, w.library, w.shelfmark, w.date, w.script, w.tables, w.cells "
       "FROM witness_summary w WHERE ?1 IS NULL OR EXISTS (SELECT 1 FROM transcription_summary x "

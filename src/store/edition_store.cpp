@@ -22,16 +22,18 @@ void CheckName(const Transcription& t, const std::string& what, const std::strin
 
 void CheckPlaces(const Transcription& t, const std::string& name, int places) {
   if (places < 0 || places > Sexagesimal::kMaxPlaces) {
-    throw ErrorAt(t, 0, "expected 0 to " + std::to_string(Sexagesimal::kMaxPlaces) +
-                            " places for '" + name + "', found " + std::to_string(places));
+    throw ErrorAt(t, 0,
+                  "expected 0 to " + std::to_string(Sexagesimal::kMaxPlaces) + " places for '" +
+                      name + "', found " + std::to_string(places));
   }
 }
 
 void CheckCell(const Transcription& t, const Cell& c) {
   if ((c.state == CellState::kRead) != c.value.has_value()) {
-    throw ErrorAt(t, c.line, ExpectedFound("a value exactly when the cell is read",
-                                           "state '" + std::string(ToString(c.state)) + "' for '" +
-                                               c.raw + "'"));
+    throw ErrorAt(
+        t, c.line,
+        ExpectedFound("a value exactly when the cell is read",
+                      "state '" + std::string(ToString(c.state)) + "' for '" + c.raw + "'"));
   }
   if (c.places < 0 || c.places > Sexagesimal::kMaxPlaces || c.line < 0 || c.column < 0) {
     throw ErrorAt(t, c.line, ExpectedFound("a cell with 0 to 12 places", "'" + c.raw + "'"));
@@ -57,8 +59,9 @@ void Validate(const Transcription& t) {
   }
   for (const auto& row : t.rows) {
     if (row.cells.size() != t.columns.size()) {
-      throw ErrorAt(t, row.line, "expected " + std::to_string(t.columns.size()) + " cells, found " +
-                                     std::to_string(row.cells.size()));
+      throw ErrorAt(t, row.line,
+                    "expected " + std::to_string(t.columns.size()) + " cells, found " +
+                        std::to_string(row.cells.size()));
     }
     CheckCell(t, row.argument);
     for (const auto& c : row.cells) CheckCell(t, c);
@@ -91,28 +94,31 @@ Writer::Writer(Database& db)
           "title = CASE WHEN excluded.title <> '' THEN excluded.title ELSE title END, "
           "author = CASE WHEN excluded.author <> '' THEN excluded.author ELSE author END")),
       table_work_(db.Prepare("SELECT work_id FROM edition_table WHERE id = ?1")),
-      table_(db.Prepare(
-          "INSERT INTO edition_table(id, work_id, title, kind) VALUES(?1, ?2, ?3, ?4) "
-          "ON CONFLICT(id) DO UPDATE SET "
-          "title = CASE WHEN excluded.title <> '' THEN excluded.title ELSE title END, "
-          "kind = CASE WHEN excluded.kind <> '' THEN excluded.kind ELSE kind END")),
+      table_(
+          db.Prepare("INSERT INTO edition_table(id, work_id, title, kind) VALUES(?1, ?2, ?3, ?4) "
+                     "ON CONFLICT(id) DO UPDATE SET "
+                     "title = CASE WHEN excluded.title <> '' THEN excluded.title ELSE title END, "
+                     "kind = CASE WHEN excluded.kind <> '' THEN excluded.kind ELSE kind END")),
       witness_(db.Prepare(
           "INSERT INTO witness(siglum, library, shelfmark, date, script, note) "
           "VALUES(?1, ?2, ?3, ?4, ?5, ?6) ON CONFLICT(siglum) DO UPDATE SET "
           "library = CASE WHEN excluded.library <> '' THEN excluded.library ELSE library END, "
-          "shelfmark = CASE WHEN excluded.shelfmark <> '' THEN excluded.shelfmark ELSE shelfmark END, "
+          "shelfmark = CASE WHEN excluded.shelfmark <> '' THEN excluded.shelfmark ELSE shelfmark "
+          "END, "
           "date = CASE WHEN excluded.date <> '' THEN excluded.date ELSE date END, "
           "script = CASE WHEN excluded.script <> '' THEN excluded.script ELSE script END, "
           "note = CASE WHEN excluded.note <> '' THEN excluded.note ELSE note END")),
-      transcription_(db.Prepare(
-          "INSERT OR IGNORE INTO transcription(table_id, siglum) VALUES(?1, ?2)")),
-      transcription_id_(db.Prepare("SELECT id FROM transcription WHERE table_id = ?1 AND siglum = ?2")),
+      transcription_(
+          db.Prepare("INSERT OR IGNORE INTO transcription(table_id, siglum) VALUES(?1, ?2)")),
+      transcription_id_(
+          db.Prepare("SELECT id FROM transcription WHERE table_id = ?1 AND siglum = ?2")),
       current_(db.Prepare("SELECT max(number) FROM revision WHERE transcription_id = ?1")),
       revision_(db.Prepare(
           "INSERT INTO revision(transcription_id, number, source_file, source_text, row_count, "
           "cell_count, work_id, work_title, work_author, table_title, table_kind, library, "
           "shelfmark, witness_date, script, witness_note, folios, hand) "
-          "VALUES(?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9, ?10, ?11, ?12, ?13, ?14, ?15, ?16, ?17, ?18)")),
+          "VALUES(?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9, ?10, ?11, ?12, ?13, ?14, ?15, ?16, ?17, "
+          "?18)")),
       layout_(db.Prepare(
           "INSERT INTO layout_column(revision_id, position, name, unit, places, title, arg2, "
           "start, step) VALUES(?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9)")),
@@ -124,8 +130,9 @@ void Writer::EnsureDescriptions(const Transcription& t) {
   if (table_work_.Step() && table_work_.Text(0) != t.work.id) {
     const std::string owner = table_work_.Text(0);
     table_work_.Reset();
-    throw ErrorAt(t, 0, "expected table '" + t.table_id + "' in work '" + owner +
-                            "' as in the database, found it in work '" + t.work.id + "'");
+    throw ErrorAt(t, 0,
+                  "expected table '" + t.table_id + "' in work '" + owner +
+                      "' as in the database, found it in work '" + t.work.id + "'");
   }
   table_work_.Reset();
   table_.Bind(1, t.table_id).Bind(2, t.work.id).Bind(3, t.table_title).Bind(4, t.kind).Run();
@@ -143,7 +150,8 @@ std::int64_t Writer::EnsureTranscription(const Transcription& t) {
   return id;
 }
 
-std::int64_t Writer::InsertRevision(const Transcription& t, std::int64_t transcription, int number) {
+std::int64_t Writer::InsertRevision(const Transcription& t, std::int64_t transcription,
+                                    int number) {
   auto& s = revision_;
   s.Bind(1, transcription).Bind(2, number).Bind(3, t.source_file).Bind(4, t.source_text);
   s.Bind(5, static_cast<std::int64_t>(t.rows.size()));
@@ -158,8 +166,14 @@ std::int64_t Writer::InsertRevision(const Transcription& t, std::int64_t transcr
 void Writer::InsertArgument(std::int64_t revision, int position, const ArgumentSpec& a) {
   layout_.Bind(1, revision).Bind(2, position).Bind(3, a.name).Bind(4, a.unit);
   layout_.Bind(5, a.places).Bind(6, "").BindNull(7);
-  if (a.start) layout_.Bind(8, a.start->ToString()); else layout_.BindNull(8);
-  if (a.step) layout_.Bind(9, a.step->ToString()); else layout_.BindNull(9);
+  if (a.start)
+    layout_.Bind(8, a.start->ToString());
+  else
+    layout_.BindNull(8);
+  if (a.step)
+    layout_.Bind(9, a.step->ToString());
+  else
+    layout_.BindNull(9);
   layout_.Run();
 }
 
@@ -170,7 +184,10 @@ void Writer::InsertLayout(const Transcription& t, std::int64_t revision) {
     const auto& c = t.columns[i];
     layout_.Bind(1, revision).Bind(2, static_cast<int>(i)).Bind(3, c.name).Bind(4, c.unit);
     layout_.Bind(5, c.places).Bind(6, c.title);
-    if (c.arg2) layout_.Bind(7, c.arg2->ToString()); else layout_.BindNull(7);
+    if (c.arg2)
+      layout_.Bind(7, c.arg2->ToString());
+    else
+      layout_.BindNull(7);
     layout_.BindNull(8).BindNull(9).Run();
   }
 }
@@ -183,8 +200,8 @@ TableImport Writer::Write(const Transcription& t, ImportResult& result) {
   const int current = current_.IsNull(0) ? 0 : static_cast<int>(current_.Int(0));
   current_.Reset();
 
-  TableImport out{t.table_id, t.witness.siglum, t.source_file, current, false,
-                  t.rows.size(), t.CellCount()};
+  TableImport out{t.table_id, t.witness.siglum, t.source_file, current,
+                  false,      t.rows.size(),    t.CellCount()};
   if (current > 0 && Load(db_, t.table_id, t.witness.siglum, current).SameContent(t)) return out;
 
   const std::int64_t revision = InsertRevision(t, transcription, current + 1);
@@ -205,9 +222,10 @@ void CheckUnique(const std::vector<Transcription>& tables) {
   for (const auto& t : tables) {
     auto [it, fresh] = seen.emplace(std::make_pair(t.table_id, t.witness.siglum), &t);
     if (!fresh) {
-      throw ErrorAt(t, 0, "expected each table of a witness once per import, found table '" +
-                              t.table_id + "' of witness '" + t.witness.siglum +
-                              "' again (first in " + it->second->source_file + ")");
+      throw ErrorAt(t, 0,
+                    "expected each table of a witness once per import, found table '" + t.table_id +
+                        "' of witness '" + t.witness.siglum + "' again (first in " +
+                        it->second->source_file + ")");
     }
   }
 }

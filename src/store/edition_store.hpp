@@ -26,8 +26,8 @@ struct TableImport {
   std::string table_id;
   std::string siglum;
   std::string source_file;
-  int revision = 0;       ///< the current revision after the import
-  bool changed = false;   ///< false: identical to the current revision, nothing added
+  int revision = 0;      ///< the current revision after the import
+  bool changed = false;  ///< false: identical to the current revision, nothing added
   std::size_t rows = 0;
   std::size_t cells = 0;  ///< value cells (argument cells not counted)
 };
@@ -71,8 +71,8 @@ bool HasTranscription(Database& db, const std::string& table_id, const std::stri
 struct WorkSummary {
   WorkInfo work;
   int tables = 0;
-  int witnesses = 0;        ///< distinct witnesses with a transcription of one of its tables
-  std::int64_t cells = 0;   ///< current value cells over all its tables and witnesses
+  int witnesses = 0;       ///< distinct witnesses with a transcription of one of its tables
+  std::int64_t cells = 0;  ///< current value cells over all its tables and witnesses
 };
 
 struct TableSummary {

@@ -6,8 +6,10 @@ namespace apograph::store {
 
 std::int64_t AddCatalogEntry(Database& db, const estimate::CatalogEntry& e) {
   Transaction t(db);
-  db.Prepare("INSERT INTO catalog_entry (kind, applies_to, value, value_real, tradition, source, from_memory) "
-             "VALUES (?, ?, ?, ?, ?, ?, ?)")
+  db.Prepare(
+        "INSERT INTO catalog_entry (kind, applies_to, value, value_real, tradition, source, "
+        "from_memory) "
+        "VALUES (?, ?, ?, ?, ?, ?, ?)")
       .Bind(1, e.kind)
       .Bind(2, e.AppliesToText())
       .Bind(3, e.value.ToString())
@@ -23,7 +25,9 @@ std::int64_t AddCatalogEntry(Database& db, const estimate::CatalogEntry& e) {
 
 std::vector<estimate::CatalogEntry> CatalogEntries(Database& db) {
   std::vector<estimate::CatalogEntry> out;
-  auto s = db.Prepare("SELECT id, kind, applies_to, value, tradition, source, from_memory FROM catalog_entry ORDER BY id");
+  auto s = db.Prepare(
+      "SELECT id, kind, applies_to, value, tradition, source, from_memory FROM catalog_entry ORDER "
+      "BY id");
   while (s.Step()) {
     estimate::CatalogEntry e;
     e.kind = s.Text(1);
@@ -42,8 +46,10 @@ namespace {
 
 std::string ParamsJson(const estimate::FitResult& fit) {
   nlohmann::json j = nlohmann::json::object();
-  for (const auto& p : fit.params) j[p.name] = {{"value", p.value}, {"stderr", p.stderr_}, {"fixed", p.fixed}};
-  if (fit.practice.displacement != 0) j["displacement"] = {{"value", fit.practice.displacement}, {"stderr", fit.displacement_stderr}};
+  for (const auto& p : fit.params)
+    j[p.name] = {{"value", p.value}, {"stderr", p.stderr_}, {"fixed", p.fixed}};
+  if (fit.practice.displacement != 0)
+    j["displacement"] = {{"value", fit.practice.displacement}, {"stderr", fit.displacement_stderr}};
   return j.dump();
 }
 
@@ -51,24 +57,43 @@ std::string ParamsJson(const estimate::FitResult& fit) {
 
 void SaveIdentifications(Database& db, const std::vector<IdentifyRecord>& records) {
   Transaction t(db);
-  auto run = db.Prepare("INSERT INTO identify_run (table_id, siglum, revision, column_name, candidates_tried, notes, "
-                        "mean_motion_verdict) VALUES (?, ?, ?, ?, ?, ?, ?)");
-  auto cand = db.Prepare("INSERT INTO identify_candidate (run_id, rank, model, params, practice, score, entries, exact, "
-                         "within1, flagged, robust_scale) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)");
+  auto run = db.Prepare(
+      "INSERT INTO identify_run (table_id, siglum, revision, column_name, candidates_tried, notes, "
+      "mean_motion_verdict) VALUES (?, ?, ?, ?, ?, ?, ?)");
+  auto cand = db.Prepare(
+      "INSERT INTO identify_candidate (run_id, rank, model, params, practice, score, entries, "
+      "exact, "
+      "within1, flagged, robust_scale) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)");
   for (const auto& r : records) {
     const auto& id = r.identification;
     std::string notes;
     for (const auto& n : id.notes) notes += (notes.empty() ? "" : "\n") + n;
-    run.Bind(1, r.table_id).Bind(2, r.siglum).Bind(3, r.revision).Bind(4, r.column).Bind(5, id.candidates_tried)
+    run.Bind(1, r.table_id)
+        .Bind(2, r.siglum)
+        .Bind(3, r.revision)
+        .Bind(4, r.column)
+        .Bind(5, id.candidates_tried)
         .Bind(6, notes);
-    if (id.mean_motion) run.Bind(7, id.mean_motion->verdict); else run.BindNull(7);
+    if (id.mean_motion)
+      run.Bind(7, id.mean_motion->verdict);
+    else
+      run.BindNull(7);
     run.Run();
     const std::int64_t run_id = db.LastInsertId();
     int rank = 0;
     for (const auto& c : id.ranked) {
-      cand.Bind(1, run_id).Bind(2, ++rank).Bind(3, c.model->name()).Bind(4, ParamsJson(c.fit)).Bind(5, c.PracticeText())
-          .Bind(6, c.score).Bind(7, c.fit.n).Bind(8, c.fit.exact).Bind(9, c.fit.within1).Bind(10, c.fit.flagged)
-          .Bind(11, c.fit.robust_scale).Run();
+      cand.Bind(1, run_id)
+          .Bind(2, ++rank)
+          .Bind(3, c.model->name())
+          .Bind(4, ParamsJson(c.fit))
+          .Bind(5, c.PracticeText())
+          .Bind(6, c.score)
+          .Bind(7, c.fit.n)
+          .Bind(8, c.fit.exact)
+          .Bind(9, c.fit.within1)
+          .Bind(10, c.fit.flagged)
+          .Bind(11, c.fit.robust_scale)
+          .Run();
     }
   }
   t.Commit();

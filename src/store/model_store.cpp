@@ -27,9 +27,13 @@ std::int64_t InsertRun(Database& db, const model::CheckReport& r, std::optional<
 }
 
 void InsertParams(Database& db, std::int64_t run, const model::CheckReport& r) {
-  auto s = db.Prepare("INSERT INTO check_param (run_id, position, name, value) VALUES (?1, ?2, ?3, ?4)");
+  auto s =
+      db.Prepare("INSERT INTO check_param (run_id, position, name, value) VALUES (?1, ?2, ?3, ?4)");
   for (std::size_t i = 0; i < r.params.size(); ++i) {
-    s.Bind(1, run).Bind(2, static_cast<int>(i)).Bind(3, r.params[i].first).Bind(4, r.params[i].second);
+    s.Bind(1, run)
+        .Bind(2, static_cast<int>(i))
+        .Bind(3, r.params[i].first)
+        .Bind(4, r.params[i].second);
     s.Run();
   }
 }
@@ -39,17 +43,24 @@ void InsertEntries(Database& db, std::int64_t run, const model::CheckReport& r) 
       "INSERT INTO check_entry (run_id, row_index, arg, tabulated, exact, computed, diff_units, "
       "flag, skipped) VALUES (?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9)");
   for (const auto& e : r.entries) {
-    s.Bind(1, run).Bind(2, static_cast<std::int64_t>(e.row)).Bind(3, e.arg).Bind(4, e.tabulated_raw);
-    if (std::isfinite(e.exact)) s.Bind(5, e.exact); else s.BindNull(5);
-    if (e.computed) s.Bind(6, e.computed->ToString()); else s.BindNull(6);
+    s.Bind(1, run)
+        .Bind(2, static_cast<std::int64_t>(e.row))
+        .Bind(3, e.arg)
+        .Bind(4, e.tabulated_raw);
+    if (std::isfinite(e.exact))
+      s.Bind(5, e.exact);
+    else
+      s.BindNull(5);
+    if (e.computed)
+      s.Bind(6, e.computed->ToString());
+    else
+      s.BindNull(6);
     s.Bind(7, e.diff_units).Bind(8, e.flag ? 1 : 0).Bind(9, e.skipped);
     s.Run();
   }
 }
 
-SavedFormula ReadFormula(Statement& s) {
-  return {s.Text(0), s.Text(1), s.Text(2), s.Text(3)};
-}
+SavedFormula ReadFormula(Statement& s) { return {s.Text(0), s.Text(1), s.Text(2), s.Text(3)}; }
 
 }  // namespace
 

@@ -24,7 +24,8 @@ std::string Tabular::RenderText() const {
   std::vector<std::size_t> width(headers.size(), 0);
   for (std::size_t i = 0; i < headers.size(); ++i) width[i] = DisplayWidth(headers[i]);
   for (const auto& r : rows) {
-    for (std::size_t i = 0; i < r.size() && i < width.size(); ++i) width[i] = std::max(width[i], DisplayWidth(r[i]));
+    for (std::size_t i = 0; i < r.size() && i < width.size(); ++i)
+      width[i] = std::max(width[i], DisplayWidth(r[i]));
   }
   auto line = [&](const std::vector<std::string>& cells) {
     std::string out;

@@ -109,9 +109,12 @@ std::string FoundInReading(std::string_view text, std::size_t at) {
 /// What may follow where the grammar stopped short of the end.
 std::string ExpectedAfter(const NumberScan& scan) {
   switch (scan.form) {
-    case Form::kDegree: return "the end of the reading";
-    case Form::kColumns: return "a blank or the end of the reading";
-    case Form::kTrade: break;
+    case Form::kDegree:
+      return "the end of the reading";
+    case Form::kColumns:
+      return "a blank or the end of the reading";
+    case Form::kTrade:
+      break;
   }
   if (scan.in_fraction) return "',' or the end of the reading";
   if (scan.count > 1) return "',', ';' or the end of the reading";
@@ -142,8 +145,10 @@ NumberScan ScanNumber(std::string_view text, std::size_t base) {
 /// Splits blank-separated places into integer and fractional ones.
 void AssignColumns(NumberScan& scan, std::string_view text, int places, std::size_t base) {
   if (places < 0) {
-    Fail(base, "expected a number in the trade's notation such as 0;4,10 (places separated by "
-               "blanks need the column's places), found '" + std::string(text) + "'");
+    Fail(base,
+         "expected a number in the trade's notation such as 0;4,10 (places separated by "
+         "blanks need the column's places), found '" +
+             std::string(text) + "'");
   }
   if (scan.count < places + 1) {
     Fail(base, "expected " + std::to_string(places + 1) +
@@ -181,15 +186,16 @@ ReadingInfo Evaluate(const NumberScan& scan, std::string_view text, std::size_t 
     const bool leading = !token.fraction && integer_places == 1;
     if (leading && (token.digits > kMaxIntegerDigits ||
                     token.value >= static_cast<std::uint64_t>(Sexagesimal::kIntegerLimit))) {
-      Fail(base + token.offset, "expected an integer part below 10^12, found " + TokenText(text, token));
+      Fail(base + token.offset,
+           "expected an integer part below 10^12, found " + TokenText(text, token));
     }
     if (!leading && token.value > 59) {
       Fail(base + token.offset, "expected a place from 0 to 59, found " + TokenText(text, token));
     }
     units = (i == 0 ? 0 : units * 60) + static_cast<Sexagesimal::Units>(token.value);
     if (!token.fraction && units >= Sexagesimal::kIntegerLimit) {
-      Fail(base + scan.places[0].offset, "expected an integer part below 10^12, found '" +
-                                             std::string(text) + "'");
+      Fail(base + scan.places[0].offset,
+           "expected an integer part below 10^12, found '" + std::string(text) + "'");
     }
   }
   if (unknown) {
@@ -227,8 +233,8 @@ ReadingInfo ParseReading(std::string_view text, int places, std::size_t base) {
 std::string ParseQuoted(std::string_view line, std::size_t& pos) {
   std::string out;
   if (!x3g::Run(line, pos, x3g::kQuoted, out)) {
-    throw LineError{pos, "expected a quoted string such as \"ink faded\", found " +
-                             FoundChar(line, pos)};
+    throw LineError{
+        pos, "expected a quoted string such as \"ink faded\", found " + FoundChar(line, pos)};
   }
   return out;
 }
@@ -270,7 +276,8 @@ void ParseMark(std::string_view line, std::size_t& pos, int places, Cell& cell) 
   const std::string_view kind = line.substr(word_offset, static_cast<std::size_t>(word.size()));
   auto once = [&](bool already) {
     if (already) {
-      Fail(word_offset, "expected each mark once per cell, found a second {" + std::string(kind) + "}");
+      Fail(word_offset,
+           "expected each mark once per cell, found a second {" + std::string(kind) + "}");
     }
   };
   if (kind == "damaged") {
@@ -292,7 +299,8 @@ void ParseMark(std::string_view line, std::size_t& pos, int places, Cell& cell) 
   } else {
     Fail(word_offset,
          "expected a mark (damaged, doubt, margin, interlinear, was READING or note \"TEXT\"), "
-         "found " + FoundToken(line, word_offset));
+         "found " +
+             FoundToken(line, word_offset));
   }
   x3g::Run(line, pos, *x3::char_(" \t") > kMarkClose);
 }
@@ -323,7 +331,8 @@ ReadingInfo ParseCell(std::string_view line, std::size_t& pos, int places, Cell&
     ParseMark(line, pos, places, cell);
   }
   if (pos < line.size() && line[pos] != '|' && line[pos] != '#') {
-    Fail(pos, "expected '|', a mark in braces or the end of the row, found " + FoundToken(line, pos));
+    Fail(pos,
+         "expected '|', a mark in braces or the end of the row, found " + FoundToken(line, pos));
   }
   return info;
 }

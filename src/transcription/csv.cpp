@@ -49,7 +49,8 @@ class CsvReader {
   int PlacesOf(std::size_t column, const Record& header, const std::vector<Record>& records);
   Cell MakeCell(const Field& field, int places, const std::string& where, bool check_places);
   std::string_view LineAt(std::size_t line_start) const;
-  [[noreturn]] void Fail(int line, std::size_t line_start, std::size_t offset, std::string message) const;
+  [[noreturn]] void Fail(int line, std::size_t line_start, std::size_t offset,
+                         std::string message) const;
   [[noreturn]] void Fail(const Field& f, std::size_t extra, std::string message) const {
     Fail(f.line, f.line_start, f.offset + extra, std::move(message));
   }
@@ -67,7 +68,8 @@ std::string_view CsvReader::LineAt(std::size_t line_start) const {
   return line;
 }
 
-void CsvReader::Fail(int line, std::size_t line_start, std::size_t offset, std::string message) const {
+void CsvReader::Fail(int line, std::size_t line_start, std::size_t offset,
+                     std::string message) const {
   Diagnostic d;
   d.where.file = file_;
   d.where.line = line;
@@ -83,7 +85,9 @@ void CsvReader::ReadQuoted(std::size_t& pos, int& line, std::size_t& line_start,
   const std::size_t open_start = line_start;
   const std::size_t open = pos - line_start;
   for (++pos;; ++pos) {
-    if (pos >= text_.size()) Fail(open_line, open_start, open, "expected a closing '\"' for this field, found end of file");
+    if (pos >= text_.size())
+      Fail(open_line, open_start, open,
+           "expected a closing '\"' for this field, found end of file");
     const char c = text_[pos];
     if (c == '"' && pos + 1 < text_.size() && text_[pos + 1] == '"') {
       field.text += '"';
@@ -129,7 +133,8 @@ std::vector<Record> CsvReader::Records() {
       while (pos < text_.size() && text_[pos] != ',' && text_[pos] != '\n' && text_[pos] != '\r') {
         if (text_[pos] == '"') {
           Fail(line, line_start, pos - line_start,
-               "expected a field without '\"' (quote the whole field and double the quote), found '\"'");
+               "expected a field without '\"' (quote the whole field and double the quote), found "
+               "'\"'");
         }
         ++pos;
       }
@@ -171,7 +176,8 @@ void CsvReader::CheckHeader(const Record& header) {
   for (std::size_t i = 0; i < header.size(); ++i) {
     const std::string name = Trimmed(header[i].text);
     if (!IsWord(name)) {
-      Fail(header[i], 0, "expected a column name without blanks, quotes or #{}|=, found '" + name + "'");
+      Fail(header[i], 0,
+           "expected a column name without blanks, quotes or #{}|=, found '" + name + "'");
     }
     for (std::size_t j = 0; j < i; ++j) {
       if (Trimmed(header[j].text) == name) {
@@ -183,17 +189,21 @@ void CsvReader::CheckHeader(const Record& header) {
 
 void CsvReader::CheckOptions(const Record& header) {
   if (!IsWord(options_.table_id)) {
-    throw InputError::ForOption("--table", "expected a table id without blanks, found '" + options_.table_id + "'");
+    throw InputError::ForOption(
+        "--table", "expected a table id without blanks, found '" + options_.table_id + "'");
   }
   if (!IsWord(options_.siglum)) {
-    throw InputError::ForOption("--witness", "expected a siglum without blanks, found '" + options_.siglum + "'");
+    throw InputError::ForOption(
+        "--witness", "expected a siglum without blanks, found '" + options_.siglum + "'");
   }
   if (!options_.work_id.empty() && !IsWord(options_.work_id)) {
-    throw InputError::ForOption("--work", "expected a work id without blanks, found '" + options_.work_id + "'");
+    throw InputError::ForOption(
+        "--work", "expected a work id without blanks, found '" + options_.work_id + "'");
   }
   auto check = [](int places) {
     if (places < 0 || places > Sexagesimal::kMaxPlaces) {
-      throw InputError::ForOption("--places", "expected places from 0 to 12, found " + std::to_string(places));
+      throw InputError::ForOption("--places",
+                                  "expected places from 0 to 12, found " + std::to_string(places));
     }
   };
   if (options_.places) check(*options_.places);
@@ -206,16 +216,19 @@ void CsvReader::CheckOptions(const Record& header) {
       names += (names.empty() ? "" : ", ") + Trimmed(f.text);
     }
     if (!known) {
-      throw InputError::ForOption("--places", "expected a column of the header (" + names + "), found '" + name + "'");
+      throw InputError::ForOption(
+          "--places", "expected a column of the header (" + names + "), found '" + name + "'");
     }
   }
 }
 
 /// The places of a column: given by option, or those of its first reading
 /// (every other reading must agree).
-int CsvReader::PlacesOf(std::size_t column, const Record& header, const std::vector<Record>& records) {
+int CsvReader::PlacesOf(std::size_t column, const Record& header,
+                        const std::vector<Record>& records) {
   const std::string name = Trimmed(header[column].text);
-  if (auto it = options_.column_places.find(name); it != options_.column_places.end()) return it->second;
+  if (auto it = options_.column_places.find(name); it != options_.column_places.end())
+    return it->second;
   if (column > 0 && options_.places) return *options_.places;
   const Field* first = nullptr;
   int places = 0;
@@ -234,9 +247,10 @@ int CsvReader::PlacesOf(std::size_t column, const Record& header, const std::vec
       first = &f;
       places = info.fraction_places;
     } else if (info.fraction_places != places) {
-      Fail(f, lead, "expected " + PlacesWords(places) + " like the first reading of column '" + name +
-                        "' (line " + std::to_string(first->line) + "), found '" + text + "' (" +
-                        PlacesWords(info.fraction_places) + ")");
+      Fail(f, lead,
+           "expected " + PlacesWords(places) + " like the first reading of column '" + name +
+               "' (line " + std::to_string(first->line) + "), found '" + text + "' (" +
+               PlacesWords(info.fraction_places) + ")");
     }
   }
   return places;
@@ -258,8 +272,9 @@ Cell CsvReader::MakeCell(const Field& f, int places, const std::string& where, b
   }
   const bool has_places = info.state == CellState::kRead || info.state == CellState::kPartial;
   if (check_places && has_places && info.fraction_places != places) {
-    Fail(f, lead, "expected a reading with " + PlacesWords(places) + " in " + where + ", found '" +
-                      text + "' (" + PlacesWords(info.fraction_places) + ")");
+    Fail(f, lead,
+         "expected a reading with " + PlacesWords(places) + " in " + where + ", found '" + text +
+             "' (" + PlacesWords(info.fraction_places) + ")");
   }
   cell.state = info.state;
   cell.value = info.value;
@@ -270,7 +285,8 @@ TranscriptionFile CsvReader::Run() {
   if (text_.empty()) throw InputError::ForFile(file_, "expected a CSV file, found an empty file");
   transcription::CheckText(text_, file_);
   const std::vector<Record> records = Records();
-  if (records.empty()) throw InputError::ForFile(file_, "expected a header row, found only empty lines");
+  if (records.empty())
+    throw InputError::ForFile(file_, "expected a header row, found only empty lines");
   const Record& header = records[0];
   CheckHeader(header);
   CheckOptions(header);
@@ -288,14 +304,14 @@ TranscriptionFile CsvReader::Run() {
     const Record& record = records[r];
     if (record.size() < header.size()) {
       const Field& last = record.back();
-      Fail(last, last.text.size(), "expected " + std::to_string(header.size()) +
-                                       " fields (the argument and one per column), found " +
-                                       std::to_string(record.size()));
+      Fail(last, last.text.size(),
+           "expected " + std::to_string(header.size()) +
+               " fields (the argument and one per column), found " + std::to_string(record.size()));
     }
     if (record.size() > header.size()) {
-      Fail(record[header.size()], 0, "expected " + std::to_string(header.size()) +
-                                         " fields (the argument and one per column), found " +
-                                         std::to_string(record.size()));
+      Fail(record[header.size()], 0,
+           "expected " + std::to_string(header.size()) +
+               " fields (the argument and one per column), found " + std::to_string(record.size()));
     }
   }
   std::vector<int> places(header.size());
@@ -311,9 +327,11 @@ TranscriptionFile CsvReader::Run() {
   for (std::size_t r = 1; r < records.size(); ++r) {
     Row row;
     row.line = records[r][0].line;
-    row.argument = MakeCell(records[r][0], places[0], "the argument '" + t.argument.name + "'", true);
+    row.argument =
+        MakeCell(records[r][0], places[0], "the argument '" + t.argument.name + "'", true);
     for (std::size_t c = 1; c < header.size(); ++c) {
-      row.cells.push_back(MakeCell(records[r][c], places[c], "column '" + t.columns[c - 1].name + "'", true));
+      row.cells.push_back(
+          MakeCell(records[r][c], places[c], "column '" + t.columns[c - 1].name + "'", true));
     }
     t.rows.push_back(std::move(row));
   }
@@ -343,7 +361,8 @@ std::string CsvReading(const Cell& cell) {
 
 }  // namespace
 
-TranscriptionFile ReadCsv(std::string_view text, const std::string& file, const CsvOptions& options) {
+TranscriptionFile ReadCsv(std::string_view text, const std::string& file,
+                          const CsvOptions& options) {
   return CsvReader(text, file, options).Run();
 }
 
@@ -353,7 +372,9 @@ TranscriptionFile ReadCsvFile(const std::string& path, const CsvOptions& options
     throw InputError::ForFile(path, "expected a CSV file, found a directory");
   }
   std::ifstream in(path, std::ios::binary);
-  if (!in) throw InputError::ForFile(path, "expected a readable file, found none (missing or not permitted)");
+  if (!in)
+    throw InputError::ForFile(path,
+                              "expected a readable file, found none (missing or not permitted)");
   std::stringstream buffer;
   buffer << in.rdbuf();
   return ReadCsv(buffer.str(), path, options);

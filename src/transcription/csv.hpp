@@ -35,7 +35,8 @@ struct CsvOptions {
 /// Reads CSV text into one Transcription (in TranscriptionFile::tables).
 /// Throws InputError with file, line and column for bad input, or naming
 /// the option (--table, --witness, --places) for bad options.
-TranscriptionFile ReadCsv(std::string_view text, const std::string& file, const CsvOptions& options);
+TranscriptionFile ReadCsv(std::string_view text, const std::string& file,
+                          const CsvOptions& options);
 
 /// Reads a CSV file (unreadable, empty or non-UTF-8 files are InputErrors).
 TranscriptionFile ReadCsvFile(const std::string& path, const CsvOptions& options);

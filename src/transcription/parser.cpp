@@ -18,7 +18,8 @@ namespace apograph {
 namespace transcription {
 namespace {
 
-constexpr const char* kDirectives = "@work, @witness, @table, @argument, @argument2, @column, @rows";
+constexpr const char* kDirectives =
+    "@work, @witness, @table, @argument, @argument2, @column, @rows";
 constexpr std::string_view kByteOrderMark = "\xEF\xBB\xBF";
 
 bool IsBlank(char c) { return c == ' ' || c == '\t'; }
@@ -47,7 +48,8 @@ class Parser {
   void Line(std::string_view line);
   void Directive(std::string_view line, std::size_t at);
   void RowLine(std::string_view line, std::size_t at);
-  void ParseRowCells(std::string_view line, std::size_t pos, Row& row, std::size_t& argument_offset);
+  void ParseRowCells(std::string_view line, std::size_t pos, Row& row,
+                     std::size_t& argument_offset);
   void CheckArgument(const Row& row, std::string_view line, std::size_t offset);
   void OpenTable(const DirectiveAst& d, std::string_view line);
   void CloseTable(const std::string& found);
@@ -129,8 +131,9 @@ TranscriptionFile Parser::Run() {
     pos = newline + 1;
   }
   CloseTable("end of file");
-  std::stable_sort(out_.warnings.begin(), out_.warnings.end(),
-                   [](const Diagnostic& a, const Diagnostic& b) { return a.where.line < b.where.line; });
+  std::stable_sort(
+      out_.warnings.begin(), out_.warnings.end(),
+      [](const Diagnostic& a, const Diagnostic& b) { return a.where.line < b.where.line; });
   if (out_.tables.empty()) {
     throw InputError::ForFile(file_, "expected at least one @table section, found none");
   }
@@ -167,16 +170,17 @@ void Parser::Directive(std::string_view line, std::size_t at) {
     if (k == "column") AddColumn(d, line);
     if (k == "rows") StartRows(d, line);
   } else {
-    Fail(line, at, std::string("expected a directive (") + kDirectives + "), found " +
-                       FoundToken(line, at));
+    Fail(line, at,
+         std::string("expected a directive (") + kDirectives + "), found " + FoundToken(line, at));
   }
 }
 
 void Parser::RequireId(const DirectiveAst& d, std::string_view line, const char* what) {
   if (!d.id.empty()) return;
   const std::size_t at = d.attributes.empty() ? d.end_offset : d.attributes[0].name_offset;
-  Fail(line, at, std::string("expected ") + what + " after @" + d.keyword + ", found " +
-                     (d.attributes.empty() ? FoundChar(line, at) : FoundToken(line, at)));
+  Fail(line, at,
+       std::string("expected ") + what + " after @" + d.keyword + ", found " +
+           (d.attributes.empty() ? FoundChar(line, at) : FoundToken(line, at)));
 }
 
 void Parser::CheckAttributes(const DirectiveAst& d, std::string_view line,
@@ -190,8 +194,8 @@ void Parser::CheckAttributes(const DirectiveAst& d, std::string_view line,
       list += (list.empty() ? "" : ", ") + std::string(name);
     }
     if (!known) {
-      Fail(line, a.name_offset, "expected an attribute of @" + d.keyword + " (" + list +
-                                    "), found " + Quote(a.name));
+      Fail(line, a.name_offset,
+           "expected an attribute of @" + d.keyword + " (" + list + "), found " + Quote(a.name));
     }
     for (std::size_t j = 0; j < i; ++j) {
       if (d.attributes[j].name == a.name) {
@@ -203,11 +207,13 @@ void Parser::CheckAttributes(const DirectiveAst& d, std::string_view line,
 
 int Parser::Places(const AttributeAst& a, std::string_view line) {
   const std::string& v = a.value;
-  const bool digits = !v.empty() && v.size() <= 2 && v.find_first_not_of("0123456789") == std::string::npos;
+  const bool digits =
+      !v.empty() && v.size() <= 2 && v.find_first_not_of("0123456789") == std::string::npos;
   const int n = digits ? std::stoi(v) : -1;
   if (n < 0 || n > Sexagesimal::kMaxPlaces) {
-    Fail(line, a.value_offset, "expected places from 0 to " + std::to_string(Sexagesimal::kMaxPlaces) +
-                                   ", found " + Quote(v));
+    Fail(line, a.value_offset,
+         "expected places from 0 to " + std::to_string(Sexagesimal::kMaxPlaces) + ", found " +
+             Quote(v));
   }
   return n;
 }
@@ -216,8 +222,8 @@ Sexagesimal Parser::Number(const AttributeAst& a, std::string_view line) {
   NumberSyntaxError error;
   auto value = Sexagesimal::Parse(a.value, &error);
   if (!value) {
-    Fail(line, a.value_offset, "expected a number such as 0;30 for " + a.name + "=, found " +
-                                   Quote(a.value));
+    Fail(line, a.value_offset,
+         "expected a number such as 0;30 for " + a.name + "=, found " + Quote(a.value));
   }
   return *value;
 }
@@ -248,8 +254,9 @@ void Parser::SetWitness(const DirectiveAst& d, std::string_view line) {
 
 void Parser::OpenTable(const DirectiveAst& d, std::string_view line) {
   if (!have_work_ || !have_witness_) {
-    Fail(line, d.keyword_offset, std::string("expected ") + (have_work_ ? "@witness" : "@work") +
-                                     " before @table, found '@table'");
+    Fail(line, d.keyword_offset,
+         std::string("expected ") + (have_work_ ? "@witness" : "@work") +
+             " before @table, found '@table'");
   }
   RequireId(d, line, "a table id");
   CheckAttributes(d, line, {"title", "kind", "folios", "hand"});
@@ -278,16 +285,19 @@ void Parser::RequireLayout(const DirectiveAst& d, std::string_view line) {
     Fail(line, d.keyword_offset, "expected @table before @" + d.keyword + ", found " + found);
   }
   if (phase_ == Phase::kRows) {
-    Fail(line, d.keyword_offset, "expected a row, @table, @work or @witness after the rows of table '" +
-                                     table_.table_id + "', found " + found);
+    Fail(line, d.keyword_offset,
+         "expected a row, @table, @work or @witness after the rows of table '" + table_.table_id +
+             "', found " + found);
   }
 }
 
 void Parser::SetArgument(const DirectiveAst& d, std::string_view line, bool second) {
   const bool again = second ? table_.argument2.has_value() : have_argument_;
-  if (again) Fail(line, d.keyword_offset, "expected one @" + d.keyword + " per table, found a second one");
+  if (again)
+    Fail(line, d.keyword_offset, "expected one @" + d.keyword + " per table, found a second one");
   if (second && !table_.columns.empty()) {
-    Fail(line, d.keyword_offset, "expected @argument2 before the @column lines, found '@argument2'");
+    Fail(line, d.keyword_offset,
+         "expected @argument2 before the @column lines, found '@argument2'");
   }
   RequireId(d, line, "an argument name");
   if (second) {
@@ -331,8 +341,9 @@ void Parser::AddColumn(const DirectiveAst& d, std::string_view line) {
     }
   }
   if (table_.argument2 && !column.arg2) {
-    Fail(line, d.end_offset, "expected arg2=VALUE on each column of a table with @argument2, found " +
-                                 FoundChar(line, d.end_offset));
+    Fail(line, d.end_offset,
+         "expected arg2=VALUE on each column of a table with @argument2, found " +
+             FoundChar(line, d.end_offset));
   }
   table_.columns.push_back(std::move(column));
 }
@@ -342,7 +353,8 @@ void Parser::StartRows(const DirectiveAst& d, std::string_view line) {
     const std::size_t at = d.id.empty() ? d.attributes[0].name_offset : d.id_offset;
     Fail(line, at, "expected nothing after @rows, found " + FoundToken(line, at));
   }
-  if (!have_argument_) Fail(line, d.keyword_offset, "expected @argument before @rows, found '@rows'");
+  if (!have_argument_)
+    Fail(line, d.keyword_offset, "expected @argument before @rows, found '@rows'");
   if (table_.columns.empty()) {
     Fail(line, d.keyword_offset, "expected at least one @column before @rows, found '@rows'");
   }
@@ -355,8 +367,9 @@ void Parser::StartRows(const DirectiveAst& d, std::string_view line) {
 void Parser::CloseTable(const std::string& found) {
   if (phase_ == Phase::kOutside) return;
   if (phase_ == Phase::kLayout) {
-    throw InputError(Make(Severity::kError, table_line_, table_line_text_, 0,
-                          "expected a @rows line in table '" + table_.table_id + "', found " + found));
+    throw InputError(
+        Make(Severity::kError, table_line_, table_line_text_, 0,
+             "expected a @rows line in table '" + table_.table_id + "', found " + found));
   }
   if (table_.rows.empty()) {
     throw InputError(Make(Severity::kError, rows_line_, rows_line_text_, 0,
@@ -384,8 +397,8 @@ void Parser::RowLine(std::string_view line, std::size_t at) {
     if (phase_ == Phase::kLayout) {
       Fail(line, at, "expected @rows before the first row, found " + FoundToken(line, at));
     }
-    Fail(line, at, std::string("expected a directive (") + kDirectives + "), found " +
-                       FoundToken(line, at));
+    Fail(line, at,
+         std::string("expected a directive (") + kDirectives + "), found " + FoundToken(line, at));
   }
   Row row;
   row.line = line_no_;
@@ -482,7 +495,8 @@ void Parser::CheckSequence() {
                                        Quote(row.argument.raw) + "; the row is taken as argument " +
                                        in_use->ToString()));
     } else if (written && in_use && expected && *in_use != *expected) {
-      const std::string why = *in_use > *expected ? "a row seems to be missing" : "rows out of order";
+      const std::string why =
+          *in_use > *expected ? "a row seems to be missing" : "rows out of order";
       out_.warnings.push_back(Make(Severity::kWarning, row.line, src.line, src.argument_offset,
                                    "expected argument " + expected->ToString() + ", found " +
                                        Quote(row.argument.raw) + " (" + why + ")"));
@@ -496,7 +510,8 @@ void Parser::CheckSequence() {
 }  // namespace transcription
 
 TranscriptionFile ParseTranscription(std::string_view text, const std::string& file_name) {
-  if (text.empty()) throw InputError::ForFile(file_name, "expected a transcription, found an empty file");
+  if (text.empty())
+    throw InputError::ForFile(file_name, "expected a transcription, found an empty file");
   return transcription::Parser(text, file_name).Run();
 }
 
@@ -506,7 +521,9 @@ TranscriptionFile ReadTranscriptionFile(const std::string& path) {
     throw InputError::ForFile(path, "expected a transcription file, found a directory");
   }
   std::ifstream in(path, std::ios::binary);
-  if (!in) throw InputError::ForFile(path, "expected a readable file, found none (missing or not permitted)");
+  if (!in)
+    throw InputError::ForFile(path,
+                              "expected a readable file, found none (missing or not permitted)");
   std::string text;
   in.seekg(0, std::ios::end);
   const std::streamoff size = in.tellg();

@@ -22,7 +22,8 @@ std::string FoundChar(std::string_view line, std::size_t offset) {
 std::string FoundToken(std::string_view line, std::size_t offset) {
   if (offset >= line.size()) return "end of line";
   std::size_t end = offset;
-  while (end < line.size() && std::string_view(" \t|{}#=").find(line[end]) == std::string_view::npos) {
+  while (end < line.size() &&
+         std::string_view(" \t|{}#=").find(line[end]) == std::string_view::npos) {
     ++end;
   }
   if (end == offset) return FoundChar(line, offset);

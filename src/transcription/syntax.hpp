@@ -56,9 +56,9 @@ struct AttributeAst {
 
 /// A directive line: `@keyword [id] {name=value}`.
 struct DirectiveAst {
-  std::string keyword;  ///< without '@'
+  std::string keyword;             ///< without '@'
   std::size_t keyword_offset = 0;  ///< where '@' stands
-  std::string id;  ///< empty when none was written
+  std::string id;                  ///< empty when none was written
   std::size_t id_offset = 0;
   std::size_t end_offset = 0;  ///< where the directive ends (comment or end of line)
   std::vector<AttributeAst> attributes;
@@ -71,7 +71,7 @@ DirectiveAst ParseDirective(std::string_view line, std::size_t offset);
 struct ReadingInfo {
   CellState state = CellState::kRead;
   std::optional<Sexagesimal> value;  ///< when state == kRead
-  int fraction_places = 0;  ///< places written after the integer part
+  int fraction_places = 0;           ///< places written after the integer part
 };
 
 /// Parses a trimmed, non-empty reading: `_`, `?`, or a number (trade,

@@ -9,8 +9,9 @@ namespace {
 std::string Bare(const std::string& id, const char* what) {
   const bool ok = !id.empty() && id.find_first_of(" \t\r\n\"#{}|=") == std::string::npos;
   if (!ok) {
-    throw InputError::ForFile("transcription", std::string("expected ") + what +
-                                                   " without blanks, quotes or #{}|=, found '" + id + "'");
+    throw InputError::ForFile(
+        "transcription",
+        std::string("expected ") + what + " without blanks, quotes or #{}|=, found '" + id + "'");
   }
   return id;
 }
@@ -74,10 +75,14 @@ void WriteLayout(std::string& out, const Transcription& t) {
 std::string Reading(const Cell& cell) {
   if (!cell.raw.empty()) return cell.raw;
   switch (cell.state) {
-    case CellState::kBlank: return "_";
-    case CellState::kIllegible: return "?";
-    case CellState::kRead: return cell.value ? cell.value->ToString() : "?";
-    case CellState::kPartial: return "?";
+    case CellState::kBlank:
+      return "_";
+    case CellState::kIllegible:
+      return "?";
+    case CellState::kRead:
+      return cell.value ? cell.value->ToString() : "?";
+    case CellState::kPartial:
+      return "?";
   }
   return "?";
 }

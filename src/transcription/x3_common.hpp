@@ -16,8 +16,8 @@ namespace x3 = boost::spirit::x3;
 using Iterator = std::string_view::const_iterator;
 
 /// A quoted string: `"text with \" and \\"`; the attribute is unescaped.
-inline const auto kEscaped =
-    x3::rule<class escaped_id, char>{"\\\" or \\\\ after the backslash"} = x3::char_("\"\\");
+inline const auto kEscaped = x3::rule<class escaped_id, char>{"\\\" or \\\\ after the backslash"} =
+    x3::char_("\"\\");
 inline const auto kClosingQuote = x3::rule<class closing_quote_id>{"a closing '\"'"} = x3::lit('"');
 inline const auto kQuoted = x3::rule<class quoted_id, std::string>{"a quoted string"} =
     x3::lit('"') > *((x3::lit('\\') > kEscaped) | ~x3::char_("\"\\")) > kClosingQuote;

@@ -53,22 +53,27 @@ int main() {
     }
   });
   const auto n_models = model::BuiltinModels().size();
-  std::printf("check, %zu built-in models x 360 entries x %d: %.3f s (%.2f us per entry)\n", n_models, reps,
-              all, 1e6 * all / (reps * 360.0 * n_models));
+  std::printf("check, %zu built-in models x 360 entries x %d: %.3f s (%.2f us per entry)\n",
+              n_models, reps, all, 1e6 * all / (reps * 360.0 * n_models));
   auto f = model::CompileFormula("param e = 2;30\nabs(atan2(e * sin(arg), 60 + e * cos(arg)))");
   const model::Model& b = *model::FindBuiltinModel("solar-eccentric");
   model::Practice grid;
   grid.grid = 6;
   const double builtin = Seconds([&] {
-    for (int k = 0; k < 10 * reps; ++k) flagged += model::Check(t, b, {2.5}, grid, 1, 0).summary.flagged;
+    for (int k = 0; k < 10 * reps; ++k)
+      flagged += model::Check(t, b, {2.5}, grid, 1, 0).summary.flagged;
   });
   const double formula = Seconds([&] {
-    for (int k = 0; k < 10 * reps; ++k) flagged += model::Check(t, *f, {2.5}, grid, 1, 0).summary.flagged;
+    for (int k = 0; k < 10 * reps; ++k)
+      flagged += model::Check(t, *f, {2.5}, grid, 1, 0).summary.flagged;
   });
-  std::printf("solar equation, grid 6, 360 entries x %d: built-in %.3f s, formula %.3f s (%.2f us/entry)\n",
-              10 * reps, builtin, formula, 1e6 * formula / (10 * reps * 360.0));
+  std::printf(
+      "solar equation, grid 6, 360 entries x %d: built-in %.3f s, formula %.3f s (%.2f us/entry)\n",
+      10 * reps, builtin, formula, 1e6 * formula / (10 * reps * 360.0));
   const double compile = Seconds([&] {
-    for (int k = 0; k < 10000; ++k) model::CompileFormula("param e = 2;30\nabs(atan2(e * sin(arg), 60 + e * cos(arg)))");
+    for (int k = 0; k < 10000; ++k)
+      model::CompileFormula("param e = 2;30\nabs(atan2(e * sin(arg), 60 + e * cos(arg)))");
   });
-  std::printf("compile a formula: %.1f us\n(%d flagged, to keep the work)\n", 1e6 * compile / 10000, flagged);
+  std::printf("compile a formula: %.1f us\n(%d flagged, to keep the work)\n", 1e6 * compile / 10000,
+              flagged);
 }

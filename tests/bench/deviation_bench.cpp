@@ -23,12 +23,12 @@ using apograph::testing::Synthetic;
 namespace {
 
 enum Kind { kConf, kTrans, kMoved, kZero, kRep, kRun, kBlank, kIllegible, kKinds };
-const char* kKindNames[] = {"confusion", "transposition", "place moved", "place omitted",
-                            "repetition", "displaced run", "blank", "illegible"};
+const char* kKindNames[] = {"confusion",  "transposition", "place moved", "place omitted",
+                            "repetition", "displaced run", "blank",       "illegible"};
 
 struct Tally {
-  int erroneous = 0, caught = 0, flagged = 0, flagged_real = 0, restored = 0, computational_rows = 0,
-      computational_as_slip = 0, right_class = 0;
+  int erroneous = 0, caught = 0, flagged = 0, flagged_real = 0, restored = 0,
+      computational_rows = 0, computational_as_slip = 0, right_class = 0;
 };
 
 std::vector<std::int64_t> Places(const Sexagesimal& v) {
@@ -48,7 +48,8 @@ std::optional<Sexagesimal> Build(const std::vector<std::int64_t>& d, bool negati
 }
 
 /// A copy of `original` with one symbol confused (the script's own confusions).
-std::optional<Sexagesimal> Confuse(const Sexagesimal& original, const NumeralScript& script, std::mt19937& rng) {
+std::optional<Sexagesimal> Confuse(const Sexagesimal& original, const NumeralScript& script,
+                                   std::mt19937& rng) {
   auto d = Places(original);
   std::uniform_int_distribution<std::size_t> pick_place(0, d.size() - 1);
   for (int attempt = 0; attempt < 10; ++attempt) {
@@ -67,17 +68,19 @@ std::optional<Sexagesimal> Confuse(const Sexagesimal& original, const NumeralScr
   return std::nullopt;
 }
 
-std::optional<Sexagesimal> Inject(Kind kind, const Synthetic& s, std::size_t row, const NumeralScript& script,
-                                  std::mt19937& rng) {
+std::optional<Sexagesimal> Inject(Kind kind, const Synthetic& s, std::size_t row,
+                                  const NumeralScript& script, std::mt19937& rng) {
   const Sexagesimal o = *s.table.rows[row].cells[0].value;
   const bool original_negative = o.negative();
   auto d = Places(o);
   switch (kind) {
-    case kConf: return Confuse(o, script, rng);
+    case kConf:
+      return Confuse(o, script, rng);
     case kTrans:
       for (std::size_t p = d.size(); p-- > 0;) {
         const auto x = d[p];
-        if (x >= 10 && x <= 99 && x % 10 != 0 && x / 10 != x % 10 && (x % 10) * 10 + x / 10 < (p ? 60 : 1000)) {
+        if (x >= 10 && x <= 99 && x % 10 != 0 && x / 10 != x % 10 &&
+            (x % 10) * 10 + x / 10 < (p ? 60 : 1000)) {
           d[p] = (x % 10) * 10 + x / 10;
           return Build(d, original_negative);
         }
@@ -98,8 +101,10 @@ std::optional<Sexagesimal> Inject(Kind kind, const Synthetic& s, std::size_t row
       }
       return std::nullopt;
     }
-    case kRep: return s.table.rows[row - 1].cells[0].value;
-    default: return std::nullopt;
+    case kRep:
+      return s.table.rows[row - 1].cells[0].value;
+    default:
+      return std::nullopt;
   }
 }
 
@@ -112,7 +117,8 @@ void RunTable(Synthetic s, const NumeralScript& script, std::mt19937& rng, Tally
     const int len = 2 + static_cast<int>(rng() % 3);
     const int sign = rng() % 2 ? 1 : -1;
     for (int k = 0; k < len; ++k) {
-      auto v = *s.table.rows[r + k].cells[0].value + Sexagesimal::FromUnits(sign, s.table.columns[0].places);
+      auto v = *s.table.rows[r + k].cells[0].value +
+               Sexagesimal::FromUnits(sign, s.table.columns[0].places);
       s.Set(r + k, v.ToString());
     }
   }
@@ -153,9 +159,12 @@ void RunTable(Synthetic s, const NumeralScript& script, std::mt19937& rng, Tally
   std::map<std::size_t, SlipClass> cls;
   for (const auto& f : findings) {
     for (const auto& c : f.cells) {
-      if (std::getenv("BENCH_DEBUG") && kind_of[c.row] >= 0 && (!c.emendation || !c.emendation->Identical(original[c.row])))
-        std::printf("%s | %s | orig %s\n", kKindNames[kind_of[c.row]], f.Note("A").c_str(), original[c.row].ToString().c_str());
-      const bool changes = !c.emendation || !c.value || !c.emendation->Identical(c.value->Rounded(f.places));
+      if (std::getenv("BENCH_DEBUG") && kind_of[c.row] >= 0 &&
+          (!c.emendation || !c.emendation->Identical(original[c.row])))
+        std::printf("%s | %s | orig %s\n", kKindNames[kind_of[c.row]], f.Note("A").c_str(),
+                    original[c.row].ToString().c_str());
+      const bool changes =
+          !c.emendation || !c.value || !c.emendation->Identical(c.value->Rounded(f.places));
       if (IsCopyingSlip(f.best().cls) && changes) {
         flagged.insert(c.row);
         emendation[c.row] = c.emendation;
@@ -172,16 +181,19 @@ void RunTable(Synthetic s, const NumeralScript& script, std::mt19937& rng, Tally
     }
     if (wrong) ++per_kind[kind_of[r]].first;
     if (!flagged.count(r)) {
-      if (wrong && std::getenv("BENCH_DEBUG")) std::printf("MISSED %s row %zu orig %s copy %s\n", kKindNames[kind_of[r]], r, original[r].ToString().c_str(), s.Get(r).c_str());
+      if (wrong && std::getenv("BENCH_DEBUG"))
+        std::printf("MISSED %s row %zu orig %s copy %s\n", kKindNames[kind_of[r]], r,
+                    original[r].ToString().c_str(), s.Get(r).c_str());
       continue;
     }
     ++t.flagged;
     if (!wrong) continue;
     ++t.flagged_real;
     ++t.caught;
-    static const SlipClass kExpected[] = {SlipClass::kConfusion, SlipClass::kTransposition, SlipClass::kPlace,
-                                          SlipClass::kPlace, SlipClass::kRepetition, SlipClass::kDisplacedRun,
-                                          SlipClass::kBlank, SlipClass::kIllegible};
+    static const SlipClass kExpected[] = {SlipClass::kConfusion,  SlipClass::kTransposition,
+                                          SlipClass::kPlace,      SlipClass::kPlace,
+                                          SlipClass::kRepetition, SlipClass::kDisplacedRun,
+                                          SlipClass::kBlank,      SlipClass::kIllegible};
     t.right_class += cls[r] == kExpected[kind_of[r]];
     const auto& e = emendation[r];
     if (e && e->Identical(original[r])) {
@@ -201,31 +213,37 @@ int main(int argc, char** argv) {
   std::map<int, std::pair<int, int>> per_kind;
   const auto start = std::chrono::steady_clock::now();
   int tables = 0;
-  for (const char* name : {"hindu-arabic", "greek-alphabetic", "hebrew-alphabetic", "arabic-abjad", "roman"}) {
+  for (const char* name :
+       {"hindu-arabic", "greek-alphabetic", "hebrew-alphabetic", "arabic-abjad", "roman"}) {
     const NumeralScript script = FindNumeralScript(name, dir);
     for (int i = 0; i < per_setting; ++i) {
-      RunTable(testing::MakeTable(testing::SolarEquation, 1, 1, 360, 2, name), script, rng, t, per_kind);
+      RunTable(testing::MakeTable(testing::SolarEquation, 1, 1, 360, 2, name), script, rng, t,
+               per_kind);
       RunTable(testing::MakeTable(testing::Chord, 1, 1, 180, 2, name), script, rng, t, per_kind);
-      RunTable(testing::MakeTable(testing::SolarEquation, 1, 1, 180, 1, name), script, rng, t, per_kind);
+      RunTable(testing::MakeTable(testing::SolarEquation, 1, 1, 180, 1, name), script, rng, t,
+               per_kind);
       tables += 3;
     }
   }
-  const double secs = std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
-  std::printf("deviation_bench: %d synthetic tables (solar equation e=2;30 at 1 and 2 places, chords),\n"
-              "5 numeral scripts, %d erroneous entries, %d rows of the author's own departures\n",
-              tables, t.erroneous, t.computational_rows);
-  std::printf("recall of erroneous entries:       %6.2f%% (%d/%d)\n", 100.0 * t.caught / t.erroneous, t.caught,
-              t.erroneous);
-  std::printf("precision of flags:                %6.2f%% (%d/%d)\n", 100.0 * t.flagged_real / t.flagged,
-              t.flagged_real, t.flagged);
+  const double secs =
+      std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
+  std::printf(
+      "deviation_bench: %d synthetic tables (solar equation e=2;30 at 1 and 2 places, chords),\n"
+      "5 numeral scripts, %d erroneous entries, %d rows of the author's own departures\n",
+      tables, t.erroneous, t.computational_rows);
+  std::printf("recall of erroneous entries:       %6.2f%% (%d/%d)\n",
+              100.0 * t.caught / t.erroneous, t.caught, t.erroneous);
+  std::printf("precision of flags:                %6.2f%% (%d/%d)\n",
+              100.0 * t.flagged_real / t.flagged, t.flagged_real, t.flagged);
   std::printf("emendations restoring the original: %6.2f%% (%d/%d flagged erroneous entries)\n",
               100.0 * t.restored / t.caught, t.restored, t.caught);
-  std::printf("class named as injected:            %6.2f%% (%d/%d)\n", 100.0 * t.right_class / t.caught,
-              t.right_class, t.caught);
+  std::printf("class named as injected:            %6.2f%% (%d/%d)\n",
+              100.0 * t.right_class / t.caught, t.right_class, t.caught);
   std::printf("author's departures flagged as slips: %d of %d rows\n", t.computational_as_slip,
               t.computational_rows);
   for (const auto& [k, v] : per_kind) {
-    std::printf("  %-14s %5d entries, %5.1f%% restored\n", kKindNames[k], v.first, 100.0 * v.second / v.first);
+    std::printf("  %-14s %5d entries, %5.1f%% restored\n", kKindNames[k], v.first,
+                100.0 * v.second / v.first);
   }
   std::printf("time: %.2f s\n", secs);
   return 0;

@@ -26,18 +26,27 @@ using Clock = std::chrono::steady_clock;
 
 namespace {
 
-estimate::testing::SyntheticColumn Column(const std::string& model, std::vector<double> params, int places) {
+estimate::testing::SyntheticColumn Column(const std::string& model, std::vector<double> params,
+                                          int places) {
   const model::Model* m = model::FindBuiltinModel(model);
   estimate::testing::SyntheticColumn c;
   c.places = places;
-  c.f = [m, params](double a) { model::RowContext ctx; ctx.arg = a; return m->Evaluate(params, ctx); };
+  c.f = [m, params](double a) {
+    model::RowContext ctx;
+    ctx.arg = a;
+    return m->Evaluate(params, ctx);
+  };
   return c;
 }
 
-double Millis(Clock::time_point a, Clock::time_point b) { return std::chrono::duration<double, std::milli>(b - a).count(); }
+double Millis(Clock::time_point a, Clock::time_point b) {
+  return std::chrono::duration<double, std::milli>(b - a).count();
+}
 /// CPU time of the process since c0 (every thread), ms: steadier than wall
 /// time on a shared machine.
-double CpuMillis(std::clock_t c0) { return 1000.0 * static_cast<double>(std::clock() - c0) / CLOCKS_PER_SEC; }
+double CpuMillis(std::clock_t c0) {
+  return 1000.0 * static_cast<double>(std::clock() - c0) / CLOCKS_PER_SEC;
+}
 
 void BenchFit() {
   auto c = Column("solar-eccentric", {2.08}, 2);
@@ -55,8 +64,9 @@ void BenchFit() {
     for (int i = 0; i < n; ++i) sink += estimate::Fit(m, t, obs, o).params[0].value;
     const double ms = Millis(t0, Clock::now()) / n;
     const double cpu = CpuMillis(c0) / n;
-    std::printf("fit, 1 parameter, 360 entries, %s solver: %.3f ms wall, %.3f ms CPU per fit (e = %.6f)\n",
-                solver == estimate::Solver::kFast ? "fast" : "Ceres", ms, cpu, sink / n);
+    std::printf(
+        "fit, 1 parameter, 360 entries, %s solver: %.3f ms wall, %.3f ms CPU per fit (e = %.6f)\n",
+        solver == estimate::Solver::kFast ? "fast" : "Ceres", ms, cpu, sink / n);
   }
 }
 
@@ -68,12 +78,15 @@ void BenchIdentify() {
   const auto t0 = Clock::now();
   const std::clock_t c0 = std::clock();
   for (int i = 0; i < n; ++i) tried = estimate::Identify(t, 0).candidates_tried;
-  std::printf("identify, 360 entries, every family and practice (%d candidates): %.1f ms wall, %.1f ms CPU\n",
-              tried, Millis(t0, Clock::now()) / n, CpuMillis(c0) / n);
+  std::printf(
+      "identify, 360 entries, every family and practice (%d candidates): %.1f ms wall, %.1f ms "
+      "CPU\n",
+      tried, Millis(t0, Clock::now()) / n, CpuMillis(c0) / n);
 }
 
 Transcription Generated(int i) {
-  static const char* kModels[] = {"solar-eccentric", "declination", "sine", "equant-centre", "lunar-anomaly"};
+  static const char* kModels[] = {"solar-eccentric", "declination", "sine", "equant-centre",
+                                  "lunar-anomaly"};
   static const std::vector<double> kParams[] = {{2.08}, {23.85}, {60}, {6}, {5.25}};
   const int k = i % 5;
   auto c = Column(kModels[k], kParams[k], 2);
@@ -89,7 +102,8 @@ Transcription Generated(int i) {
 }
 
 void BenchAll(int tables) {
-  const std::string path = (std::filesystem::temp_directory_path() / "apograph_estimate_bench.sqlite").string();
+  const std::string path =
+      (std::filesystem::temp_directory_path() / "apograph_estimate_bench.sqlite").string();
   std::filesystem::remove(path);
   {
     store::Database db(path);
@@ -101,13 +115,16 @@ void BenchAll(int tables) {
   cli::Io io{out, err, false, false};
   const auto t0 = Clock::now();
   const std::clock_t c0 = std::clock();
-  const int code = cli::Dispatch({"identify", "--all", "--threads", "2", "--format", "csv", "--db", path}, io);
+  const int code =
+      cli::Dispatch({"identify", "--all", "--threads", "2", "--format", "csv", "--db", path}, io);
   const double s = Millis(t0, Clock::now()) / 1000;
   const double cpu = static_cast<double>(std::clock() - c0) / CLOCKS_PER_SEC;
   int lines = 0;
   for (char ch : out.str()) lines += ch == '\n';
-  std::printf("identify --all, %d tables (90-180 entries), 2 threads: %.1f s wall, %.1f s CPU (exit %d, %d result rows)\n",
-              tables, s, cpu, code, lines - 1);
+  std::printf(
+      "identify --all, %d tables (90-180 entries), 2 threads: %.1f s wall, %.1f s CPU (exit %d, %d "
+      "result rows)\n",
+      tables, s, cpu, code, lines - 1);
   std::filesystem::remove(path);
 }
 

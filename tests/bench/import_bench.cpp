@@ -12,8 +12,8 @@
 // the sqlite3 shell). After the import it also times Load() of one table
 // and, with `scan`, a pass over every cell through the view current_cell.
 #include <chrono>
-#include <ctime>
 #include <cstdio>
+#include <ctime>
 #include <filesystem>
 #include <iostream>
 #include <string>
@@ -49,13 +49,18 @@ void AppendValue(std::string& out, unsigned seed, int places) {
 /// A cell, now and then illegible, blank, partly legible or with marks.
 void AppendCell(std::string& out, unsigned seed, int places) {
   switch (seed % 97) {
-    case 3: out += "?"; return;
-    case 7: out += "_"; return;
+    case 3:
+      out += "?";
+      return;
+    case 7:
+      out += "_";
+      return;
     case 11:  // partly legible: the last place unread
       AppendValue(out, seed, places - 1);
       out += places == 1 ? ";?" : ",?";
       return;
-    default: break;
+    default:
+      break;
   }
   AppendValue(out, seed, places);
   if (seed % 89 == 5) out += " {doubt}";
@@ -73,14 +78,16 @@ std::string WitnessText(int w) {
     out += "@table t" + std::to_string(t) + " title=\"table " + std::to_string(t) + "\"\n";
     out += "@argument arg unit=deg places=0 start=1 step=1\n";
     for (int c = 0; c < kColumns; ++c) {
-      out += "@column c" + std::to_string(c) + " unit=deg places=" + std::to_string(1 + c % 3) + "\n";
+      out +=
+          "@column c" + std::to_string(c) + " unit=deg places=" + std::to_string(1 + c % 3) + "\n";
     }
     out += "@rows\n";
     for (int r = 0; r < kRows; ++r) {
       out += std::to_string(r + 1);
       for (int c = 0; c < kColumns; ++c) {
         out += " | ";
-        AppendCell(out, static_cast<unsigned>((w * 7919 + t * 104729 + r * 31 + c) * 2654435761u), 1 + c % 3);
+        AppendCell(out, static_cast<unsigned>((w * 7919 + t * 104729 + r * 31 + c) * 2654435761u),
+                   1 + c % 3);
       }
       out += '\n';
     }
@@ -149,7 +156,8 @@ int main(int argc, char** argv) {
     scan = scan || std::string(argv[i]) == "scan";
   }
   const std::string db_path =
-      argc > 2 ? argv[2] : (std::filesystem::temp_directory_path() / "apograph-import-bench.sqlite").string();
+      argc > 2 ? argv[2]
+               : (std::filesystem::temp_directory_path() / "apograph-import-bench.sqlite").string();
 
   std::vector<std::string> texts;
   std::size_t bytes = 0;
@@ -161,7 +169,8 @@ int main(int argc, char** argv) {
   const Stamp t0 = Stamp::Now();
   std::vector<apograph::Transcription> tables;
   for (int w = 0; w < witnesses; ++w) {
-    auto file = apograph::ParseTranscription(texts[static_cast<std::size_t>(w)], "W" + std::to_string(w) + ".apo");
+    auto file = apograph::ParseTranscription(texts[static_cast<std::size_t>(w)],
+                                             "W" + std::to_string(w) + ".apo");
     for (auto& t : file.tables) tables.push_back(std::move(t));
   }
   const Stamp t1 = Stamp::Now();
@@ -176,9 +185,10 @@ int main(int argc, char** argv) {
     result = apograph::store::Import(db, tables);
   }  // closing counts: it may write the last pages
   const Stamp t3 = Stamp::Now();
-  std::printf("corpus: %d witnesses, %zu tables, %zu value cells (%zu cells written with "
-              "arguments), %.1f MB of text\n",
-              witnesses, tables.size(), cells, result.cells_written, static_cast<double>(bytes) / 1e6);
+  std::printf(
+      "corpus: %d witnesses, %zu tables, %zu value cells (%zu cells written with "
+      "arguments), %.1f MB of text\n",
+      witnesses, tables.size(), cells, result.cells_written, static_cast<double>(bytes) / 1e6);
   Report("parse", cells, Between(t0, t1));
   Report("store (one transaction)", cells, Between(t2, t3));
   Report("parse + store", cells, Between(t0, t1) + Between(t2, t3));

@@ -42,11 +42,13 @@ void Run(const char* name, int witnesses, int rows, int columns, double goal, in
   const auto cmp = lineage::CompareGroups(t.TrueGroups(), found);
   std::printf("%s: %d witnesses, %d cells, %zu error characters\n", name, witnesses, rows * columns,
               m.characters.size());
-  std::printf("  collation + characters %.3f s; search (%s%s) %.3f s, %lld trees examined; goal %.0f s: %s\n", prep,
-              r.search.c_str(), r.exact ? ", exact" : "", search, static_cast<long long>(r.trees_examined), goal,
-              search < goal ? "met" : "MISSED");
-  std::printf("  groups recovered %d of %d, Robinson-Foulds distance %d\n", cmp.recovered, cmp.truth_groups,
-              cmp.distance);
+  std::printf(
+      "  collation + characters %.3f s; search (%s%s) %.3f s, %lld trees examined; goal %.0f s: "
+      "%s\n",
+      prep, r.search.c_str(), r.exact ? ", exact" : "", search,
+      static_cast<long long>(r.trees_examined), goal, search < goal ? "met" : "MISSED");
+  std::printf("  groups recovered %d of %d, Robinson-Foulds distance %d\n", cmp.recovered,
+              cmp.truth_groups, cmp.distance);
 }
 
 }  // namespace

@@ -4,8 +4,8 @@
 #include <algorithm>
 #include <chrono>
 #include <cstdio>
-#include <ctime>
 #include <cstdlib>
+#include <ctime>
 #include <string>
 
 #include "transcription/parser.hpp"
@@ -55,9 +55,10 @@ int main(int argc, char** argv) {
     best = std::min(best, std::chrono::duration<double>(stop - start).count());
     best_cpu = std::min(best_cpu, static_cast<double>(cpu_stop - cpu_start) / CLOCKS_PER_SEC);
   }
-  std::printf("parsed %zu cells (%.1f MB): wall %.3f s = %.0f cells/s; cpu %.3f s = %.0f cells/s "
-              "(best of 3, freeing included)\n",
-              parsed, static_cast<double>(text.size()) / 1e6, best, static_cast<double>(parsed) / best,
-              best_cpu, static_cast<double>(parsed) / best_cpu);
+  std::printf(
+      "parsed %zu cells (%.1f MB): wall %.3f s = %.0f cells/s; cpu %.3f s = %.0f cells/s "
+      "(best of 3, freeing included)\n",
+      parsed, static_cast<double>(text.size()) / 1e6, best, static_cast<double>(parsed) / best,
+      best_cpu, static_cast<double>(parsed) / best_cpu);
   return 0;
 }

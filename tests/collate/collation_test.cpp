@@ -23,7 +23,8 @@ Cell ValueCell(const std::string& t) {
 
 // A witness of a one-column table "eq" with argument start 10 step 10, rows
 // given as (argument, value) pairs; "?" makes an illegible cell.
-Transcription Witness(const std::string& siglum, const std::vector<std::pair<std::string, std::string>>& rows,
+Transcription Witness(const std::string& siglum,
+                      const std::vector<std::pair<std::string, std::string>>& rows,
                       bool declare = true) {
   Transcription t;
   t.table_id = "T1";
@@ -62,9 +63,9 @@ TEST_CASE("a missing row and a miscopied argument are aligned by argument and ne
   auto coll = collate::Collate({Witness("A", kRight), Witness("B", b), Witness("C", c)});
   REQUIRE(coll.rows.size() == 9);
   CHECK(coll.rows[3].argument == S("40"));
-  CHECK(coll.rows[3].source_row[1] == -1);   // B missing
-  CHECK(coll.rows[4].source_row[1] == 3);    // B's 4th row is 50
-  CHECK(coll.rows[5].source_row[2] == 5);    // C's miscopied row stays at 60
+  CHECK(coll.rows[3].source_row[1] == -1);  // B missing
+  CHECK(coll.rows[4].source_row[1] == 3);   // B's 4th row is 50
+  CHECK(coll.rows[5].source_row[2] == 5);   // C's miscopied row stays at 60
   int missing = 0, miscopied = 0;
   for (const auto& n : coll.notes) {
     if (n.kind == "missing row" && n.siglum == "B" && n.row == 3) ++missing;
@@ -76,10 +77,12 @@ TEST_CASE("a missing row and a miscopied argument are aligned by argument and ne
   CHECK(coll.notes.size() == 2);
 }
 
-TEST_CASE("an extra row is reported and left out of the grid; arguments inferred without declaration") {
+TEST_CASE(
+    "an extra row is reported and left out of the grid; arguments inferred without declaration") {
   auto b = kRight;
   b.insert(b.begin() + 2, {"25", "0;50"});
-  auto coll = collate::Collate({Witness("A", kRight, false), Witness("B", b, false), Witness("C", kRight, false)});
+  auto coll = collate::Collate(
+      {Witness("A", kRight, false), Witness("B", b, false), Witness("C", kRight, false)});
   REQUIRE(coll.rows.size() == 9);
   CHECK(coll.rows[2].argument == S("30"));
   CHECK(coll.rows[2].source_row[1] == 3);
@@ -92,7 +95,8 @@ TEST_CASE("a column slid by a row in one witness is detected by comparison with 
   auto d = kRight;
   // D copies rows 40..70 from the next row (eye slipped), then repeats.
   for (int i = 3; i <= 6; ++i) d[i].second = kRight[i + 1].second;
-  auto coll = collate::Collate({Witness("A", kRight), Witness("B", kRight), Witness("C", kRight), Witness("D", d)});
+  auto coll = collate::Collate(
+      {Witness("A", kRight), Witness("B", kRight), Witness("C", kRight), Witness("D", d)});
   REQUIRE(coll.slides.size() == 1);
   CHECK(coll.slides[0].siglum == "D");
   CHECK(coll.slides[0].first_row == 3);
@@ -138,10 +142,11 @@ TEST_CASE("with a recomputed value readings beyond the tolerance are errors") {
   collate::CollateOptions o;
   // The recomputed solar equation at 20 is 0;39 (Maimonides' table shows 0;40,
   // see published-checks.md section 2; model value 0;39,28 rounds to 0;39).
-  o.reference = collate::Reference{"test model", [](const Sexagesimal& a, int) -> std::optional<Sexagesimal> {
-                                     if (a == S("20")) return S("0;39");
-                                     return std::nullopt;
-                                   }};
+  o.reference =
+      collate::Reference{"test model", [](const Sexagesimal& a, int) -> std::optional<Sexagesimal> {
+                           if (a == S("20")) return S("0;39");
+                           return std::nullopt;
+                         }};
   auto coll = collate::Collate({Witness("A", kRight), Witness("B", b)}, o);
   const auto& cell = coll.rows[1].cells[0];
   CHECK(cell.basis == collate::Basis::kRecomputation);

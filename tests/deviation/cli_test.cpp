@@ -4,10 +4,10 @@
 #include <nlohmann/json.hpp>
 
 #include "../store/store_test_util.hpp"
+#include "cli_runner.hpp"
 #include "store/database.hpp"
 #include "store/edition_store.hpp"
 #include "synthetic.hpp"
-#include "cli_runner.hpp"
 
 using namespace apograph;
 
@@ -41,21 +41,26 @@ std::string MakeDb(const testing::TempDb& file) {
 TEST_CASE("apograph errors explains, records proposals, and exits 1") {
   testing::TempDb file("errors-cli");
   const std::string db = MakeDb(file);
-  auto text = Apograph("errors --table sun --witness A --model solar-eccentric --param e=2.5 " + db);
+  auto text =
+      Apograph("errors --table sun --witness A --model solar-eccentric --param e=2.5 " + db);
   CHECK(text.code == 1);
   INFO(text.out);
-  CHECK(text.out.find("table sun, witness A (hindu-arabic), compared with solar-eccentric e=2.5 (2;30): 2 findings") == 0);
+  CHECK(text.out.find("table sun, witness A (hindu-arabic), compared with solar-eccentric e=2.5 "
+                      "(2;30): 2 findings") == 0);
   CHECK(text.out.find("60 equation: _ A] read ") != std::string::npos);
   CHECK(text.out.find("tens of minutes: 4 read as 5") != std::string::npos);
 
-  auto json = Apograph("errors --table sun --witness A --model solar-eccentric --param 'e=2;30' --format json --no-record " + db);
+  auto json = Apograph(
+      "errors --table sun --witness A --model solar-eccentric --param 'e=2;30' --format json "
+      "--no-record " +
+      db);
   CHECK(json.code == 1);
   auto j = nlohmann::json::parse(json.out);
   CHECK(j["table"] == "sun");
   CHECK(j["witness"] == "A");
   REQUIRE(j["findings"].size() == 2);
-  for (const char* field : {"arg", "column", "tabulated", "computed", "diff_units", "class", "explanation",
-                            "emendation", "score"}) {
+  for (const char* field : {"arg", "column", "tabulated", "computed", "diff_units", "class",
+                            "explanation", "emendation", "score"}) {
     CHECK(j["findings"][0].contains(field));
   }
   CHECK(j["findings"][0]["class"] == "confusion");
@@ -69,7 +74,8 @@ TEST_CASE("apograph errors explains, records proposals, and exits 1") {
   const auto id = l["emendations"][1]["id"].get<long long>();
   auto accept = Apograph("emendation accept " + std::to_string(id) + " --note 'B agrees' " + db);
   CHECK(accept.code == 0);
-  auto accepted = nlohmann::json::parse(Apograph("emendation list --status accepted --format json " + db).out);
+  auto accepted =
+      nlohmann::json::parse(Apograph("emendation list --status accepted --format json " + db).out);
   REQUIRE(accepted["emendations"].size() == 1);
   CHECK(accepted["emendations"][0]["note"] == "B agrees");
   CHECK(Apograph("emendation reject 999 " + db).code == 2);
@@ -78,7 +84,9 @@ TEST_CASE("apograph errors explains, records proposals, and exits 1") {
 TEST_CASE("apograph errors --auto fits the model first") {
   testing::TempDb file("errors-auto");
   const std::string db = MakeDb(file);
-  auto json = Apograph("errors --table sun --witness A --model solar-eccentric --auto --format json --no-record " + db);
+  auto json = Apograph(
+      "errors --table sun --witness A --model solar-eccentric --auto --format json --no-record " +
+      db);
   CHECK(json.code == 1);
   auto j = nlohmann::json::parse(json.out);
   INFO(j["model"].get<std::string>());
@@ -107,6 +115,7 @@ TEST_CASE("bad options are refused with exit 2") {
   CHECK(Apograph("errors --table sun --witness A " + db).code == 2);
   CHECK(Apograph("errors --table sun --witness A --model nonesuch " + db).code == 2);
   CHECK(Apograph("errors --table sun --witness Z --model solar-eccentric " + db).code == 2);
-  CHECK(Apograph("errors --table sun --witness A --model solar-eccentric --param q=1 " + db).code == 2);
+  CHECK(Apograph("errors --table sun --witness A --model solar-eccentric --param q=1 " + db).code ==
+        2);
   CHECK(Apograph("screen --table sun --witness A --db /nonexistent.sqlite").code == 2);
 }

@@ -32,25 +32,32 @@ std::string WithPlace(const Synthetic& s, std::size_t row, int place, int value)
   auto v = *s.table.rows[row].cells[0].value;
   std::vector<int> f = v.FractionDigits();
   std::int64_t i = v.IntegerPart();
-  if (place == 0) i = value; else f[static_cast<std::size_t>(place - 1)] = value;
+  if (place == 0)
+    i = value;
+  else
+    f[static_cast<std::size_t>(place - 1)] = value;
   return Sexagesimal::FromParts(false, i, f).ToString();
 }
 
-std::string Original(const Synthetic& s, std::size_t row) { return s.values.computed[row]->ToString(); }
+std::string Original(const Synthetic& s, std::size_t row) {
+  return s.values.computed[row]->ToString();
+}
 
 /// First row whose place `place` satisfies `pred`.
 template <typename Pred>
 std::size_t FindRow(const Synthetic& s, int place, std::size_t from, Pred pred) {
   for (std::size_t r = from; r < s.table.rows.size(); ++r) {
     auto v = *s.table.rows[r].cells[0].value;
-    const int d = place == 0 ? static_cast<int>(v.IntegerPart()) : v.FractionDigits()[static_cast<std::size_t>(place - 1)];
+    const int d = place == 0 ? static_cast<int>(v.IntegerPart())
+                             : v.FractionDigits()[static_cast<std::size_t>(place - 1)];
     if (pred(d)) return r;
   }
   FAIL("no row fits");
   return 0;
 }
 
-void CheckSingle(const std::vector<Finding>& findings, std::size_t row, SlipClass cls, const std::string& original) {
+void CheckSingle(const std::vector<Finding>& findings, std::size_t row, SlipClass cls,
+                 const std::string& original) {
   const Finding* f = At(findings, row);
   REQUIRE(f != nullptr);
   INFO(f->Note("A"));
@@ -87,10 +94,13 @@ TEST_CASE("each kind of slip injected into a solar equation table is recovered")
   const std::size_t moved = FindRow(s, 1, trans + 5, [](int m) { return m > 9; });
   {
     auto v = *s.table.rows[moved].cells[0].value;
-    s.Set(moved, Sexagesimal::FromParts(false, 0, {static_cast<int>(v.IntegerPart()), v.FractionDigits()[0]}).ToString());
+    s.Set(moved, Sexagesimal::FromParts(false, 0,
+                                        {static_cast<int>(v.IntegerPart()), v.FractionDigits()[0]})
+                     .ToString());
   }
   // Minutes omitted (written as 0).
-  const std::size_t omitted = FindRow(s, 1, moved + 5, [](int m) { return m == 37 || m == 38 || m == 29 || m == 21; });
+  const std::size_t omitted =
+      FindRow(s, 1, moved + 5, [](int m) { return m == 37 || m == 38 || m == 29 || m == 21; });
   s.Set(omitted, WithPlace(s, omitted, 1, 0));
   // Repetition of the entry above.
   const std::size_t rep = omitted + 6;
@@ -114,7 +124,8 @@ TEST_CASE("each kind of slip injected into a solar equation table is recovered")
   CHECK(f->best().evidence.find("tens of minutes: ") == 0);
   CHECK(f->best().evidence.find("from memory") != std::string::npos);
   CHECK(f->best().evidence.find("is within half a unit") != std::string::npos);
-  CHECK(At(findings, moved)->best().evidence.find("degrees written as minutes") != std::string::npos);
+  CHECK(At(findings, moved)->best().evidence.find("degrees written as minutes") !=
+        std::string::npos);
 }
 
 TEST_CASE("places written with two digits: a leading zero transposed or confused") {
@@ -132,8 +143,10 @@ TEST_CASE("places written with two digits: a leading zero transposed or confused
   CheckSingle(findings, trans, SlipClass::kTransposition, Original(s, trans));
   CheckSingle(findings, conf, SlipClass::kConfusion, Original(s, conf));
   CHECK(findings.size() == 2);
-  CHECK(At(findings, trans)->best().evidence.find("minutes: the digits of " + std::to_string(tm) + " transposed to 0" +
-                                                  std::to_string(tm / 10)) == 0);
+  CHECK(At(findings, trans)
+            ->best()
+            .evidence.find("minutes: the digits of " + std::to_string(tm) + " transposed to 0" +
+                           std::to_string(tm / 10)) == 0);
   CHECK(At(findings, conf)->best().evidence.find("tens of seconds: 0 read as 5") == 0);
 }
 

@@ -53,7 +53,8 @@ TEST_CASE("places are written in each script's own way") {
   // Alphabetic numerals: tens letter + units letter (common practice).
   CHECK(FindNumeralScript("greek-alphabetic", kDir).WriteText(43) == "μγ");
   CHECK(FindNumeralScript("greek-alphabetic", kDir).WriteText(0) == "ō");
-  CHECK(FindNumeralScript("hebrew-alphabetic", kDir).WriteText(15) == "טו");  // 9 + 6 (common practice)
+  CHECK(FindNumeralScript("hebrew-alphabetic", kDir).WriteText(15) ==
+        "טו");  // 9 + 6 (common practice)
   CHECK(FindNumeralScript("hebrew-alphabetic", kDir).WriteText(42) == "מב");
   CHECK(FindNumeralScript("hebrew-alphabetic", kDir).WriteText(500) == "תק");
   CHECK(FindNumeralScript("arabic-abjad", kDir).WriteText(60) == "س");
@@ -67,13 +68,13 @@ TEST_CASE("places are written in each script's own way") {
 TEST_CASE("originals reachable by one or two confusions, with weights") {
   const NumeralScript ha = FindNumeralScript("hindu-arabic", kDir);
   auto one = ha.OriginalsOf(45, 60, 1);
-  CHECK(HasOriginal(one, 44));   // 4 read as 5
-  CHECK(HasOriginal(one, 55));   // 5 read as 4 in the tens
-  CHECK(HasOriginal(one, 40));   // 0 read as 5
+  CHECK(HasOriginal(one, 44));  // 4 read as 5
+  CHECK(HasOriginal(one, 55));  // 5 read as 4 in the tens
+  CHECK(HasOriginal(one, 40));  // 0 read as 5
   CHECK_FALSE(HasOriginal(one, 54));
   CHECK_FALSE(HasOriginal(one, 45));
   auto two = ha.OriginalsOf(45, 60, 2);
-  CHECK(HasOriginal(two, 54));   // both digits
+  CHECK(HasOriginal(two, 54));  // both digits
   for (const auto& v : two) {
     CHECK(v.original < 60);
     CHECK(v.weight > 0);
@@ -100,7 +101,8 @@ TEST_CASE("a user-edited confusion set takes effect") {
   }
   CHECK(stock_weight == doctest::Approx(0.6));
 
-  auto tmp = std::filesystem::temp_directory_path() / ("apograph_script_test_" + std::to_string(::getpid()));
+  auto tmp = std::filesystem::temp_directory_path() /
+             ("apograph_script_test_" + std::to_string(::getpid()));
   std::filesystem::create_directories(tmp);
   std::string edited = text;
   edited.replace(edited.find("confuse 4 5 0.6"), 15, "confuse 4 5 0.2");
@@ -141,5 +143,6 @@ TEST_CASE("malformed script files are reported with their position") {
         "                ^");
   CHECK(message("writing positional\nsymbol 1 1\n") ==
         "x.script: error: expected a 'script NAME' line, found none");
-  CHECK(message("script x\nwriting positional\nsymbl 1 1\n").find("x.script:3:1: error: expected script, title") == 0);
+  CHECK(message("script x\nwriting positional\nsymbl 1 1\n")
+            .find("x.script:3:1: error: expected script, title") == 0);
 }

@@ -44,8 +44,8 @@ struct Synthetic {
 
 /// A table of f(first), f(first+step), ... rounded to `places`, copied
 /// faithfully, with the model's values (rounded) and exact values.
-inline Synthetic MakeTable(const std::function<double(double)>& f, int first, int step, int count, int places,
-                           const std::string& script = "hindu-arabic") {
+inline Synthetic MakeTable(const std::function<double(double)>& f, int first, int step, int count,
+                           int places, const std::string& script = "hindu-arabic") {
   Synthetic s;
   s.first = first;
   s.step = step;

@@ -13,7 +13,9 @@ namespace {
 using apograph::testing::RunBinary;
 using apograph::testing::ScratchDir;
 
-bool Has(const std::string& text, const std::string& part) { return text.find(part) != std::string::npos; }
+bool Has(const std::string& text, const std::string& part) {
+  return text.find(part) != std::string::npos;
+}
 
 }  // namespace
 
@@ -25,7 +27,9 @@ TEST_CASE("the demo runs the whole pipeline and finds what the generator did") {
   // Import, with the argument warnings that are evidence (TRUTH: B writes 41
   // for 47 in shadow; D lacks the row 71 of decl).
   CHECK(Has(r.out, "Imported 20 transcriptions (4 tables in 5 witnesses"));
-  CHECK(Has(r.out, "B.apo:336: expected argument 47 (it breaks the sequence of its neighbours), found '41'"));
+  CHECK(Has(
+      r.out,
+      "B.apo:336: expected argument 47 (it breaks the sequence of its neighbours), found '41'"));
   CHECK(Has(r.out, "D.apo:265: expected argument 71, found '72' (a row seems to be missing)"));
   // How each table was computed (TRUTH: the generator's models and practices).
   CHECK(Has(r.out, "declination obliquity = 23;32,40, rounded to 2 places"));
@@ -37,7 +41,8 @@ TEST_CASE("the demo runs the whole pipeline and finds what the generator did") {
   CHECK(Has(r.out, "estimate from witness E: obliquity = 23;32,40"));
   CHECK(Has(r.out, "- attested obliquity = 23;32,30 (Latin tables of the 13th-14th centuries"));
   // A slip and the author's own departure, told apart.
-  CHECK(Has(r.out, "7 declination: 2;47,52 A] read 2;47,25 - seconds: the digits of 25 transposed to 52"));
+  CHECK(Has(r.out,
+            "7 declination: 2;47,52 A] read 2;47,25 - seconds: the digits of 25 transposed to 52"));
   CHECK(Has(r.out, "41 declination: 15;11,33 A] keep (the author's)"));
   // The stemma of the whole work: {A B} and {C D E} with {D E} inside it.
   const auto work = r.out.substr(r.out.find("## Stemma of the work lantern"));
@@ -54,13 +59,15 @@ TEST_CASE("the demo runs the whole pipeline and finds what the generator did") {
   }
   // The full report lists every deviation; the terminal shows a few per witness.
   CHECK(Has(r.out, "more (apograph errors --table"));
-  CHECK_FALSE(Has(apograph::testing::ReadWholeFile(dir / "apograph-demo/decl.md"), "more (apograph errors"));
+  CHECK_FALSE(Has(apograph::testing::ReadWholeFile(dir / "apograph-demo/decl.md"),
+                  "more (apograph errors"));
 
   SUBCASE("a second demo replaces the first one's folder") {
     CHECK(RunBinary("demo", dir.path()).code == 0);
   }
   SUBCASE("report on one table of the demo database") {
-    const auto rep = RunBinary("report --table sun-mm --db apograph-demo/edition.sqlite", dir.path());
+    const auto rep =
+        RunBinary("report --table sun-mm --db apograph-demo/edition.sqlite", dir.path());
     CHECK(rep.code == 0);
     CHECK(Has(rep.out, "## sun-mm: Mean motion of the sun in days"));
     CHECK(Has(rep.out, "Off the pattern, to be explained as slips or as the author's: 19, 24, 28"));
@@ -73,8 +80,10 @@ TEST_CASE("the demo refuses to write into a folder it did not make") {
   { std::ofstream(dir / "mine/notes.txt") << "the editor's notes\n"; }
   const auto r = RunBinary("demo --output mine", dir.path());
   CHECK(r.code == 2);
-  CHECK(r.err == "--output: error: expected an empty folder or one an earlier demo wrote, found 'mine' holding "
-                 "other files\n");
+  CHECK(r.err ==
+        "--output: error: expected an empty folder or one an earlier demo wrote, found 'mine' "
+        "holding "
+        "other files\n");
   CHECK(std::filesystem::exists(dir / "mine/notes.txt"));
 }
 
@@ -85,8 +94,9 @@ TEST_CASE("report needs one of --table and --work, and an existing database") {
   CHECK(r.err == "apograph report: error: expected one of --table or --work, found neither\n");
   r = RunBinary("report --table t --db none.sqlite", dir.path());
   CHECK(r.code == 2);
-  CHECK(r.err == "--db: error: expected an edition database, found no file 'none.sqlite' (create one with "
-                 "apograph init or apograph import)\n");
+  CHECK(r.err ==
+        "--db: error: expected an edition database, found no file 'none.sqlite' (create one with "
+        "apograph init or apograph import)\n");
   CHECK_FALSE(std::filesystem::exists(dir / "none.sqlite"));
   // The same for a command that used to create an empty file on a typo.
   r = RunBinary("identify --table t --witness A --db typo.sqlite", dir.path());

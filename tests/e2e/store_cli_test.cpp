@@ -20,7 +20,9 @@ namespace {
 
 std::string ReadFile(const fs::path& p) { return apograph::testing::ReadWholeFile(p); }
 
-void WriteFile(const fs::path& p, const std::string& text) { std::ofstream(p, std::ios::binary) << text; }
+void WriteFile(const fs::path& p, const std::string& text) {
+  std::ofstream(p, std::ios::binary) << text;
+}
 
 using Result = apograph::testing::CliResult;
 
@@ -63,7 +65,8 @@ TEST_CASE("e2e: import reports new revisions, then unchanged; list counts cells"
   CHECK(r.code <= 1);  // warnings allowed, never an error
   CHECK(r.out.find("new revision") != std::string::npos);
   CHECK(r.out.find(" unchanged ") == std::string::npos);
-  CHECK(r.out.find("3 table(s) into edition.sqlite: 3 new revision(s), 0 unchanged") != std::string::npos);
+  CHECK(r.out.find("3 table(s) into edition.sqlite: 3 new revision(s), 0 unchanged") !=
+        std::string::npos);
   CHECK(fs::exists(s / "edition.sqlite"));
 
   r = s.Run("import '" + kExample + "' --format json");
@@ -79,7 +82,8 @@ TEST_CASE("e2e: import reports new revisions, then unchanged; list counts cells"
   r = s.Run("list tables --format csv");
   CHECK(r.code == 0);
   CHECK(r.out.find("table,work,title,kind,witnesses,cells\r\n") == 0);  // RFC 4180 line ends
-  CHECK(r.out.find("moon-eq,harbour,Equation of the moon,lunar equation,1,20\r\n") != std::string::npos);
+  CHECK(r.out.find("moon-eq,harbour,Equation of the moon,lunar equation,1,20\r\n") !=
+        std::string::npos);
 
   r = s.Run("list witnesses --table moon-eq --format json");
   CHECK(r.code == 0);
@@ -108,7 +112,8 @@ TEST_CASE("e2e: an edited file adds a revision and both revisions export") {
   CHECK(r.out.find("sun-eq,K,1,2,2,2,") != std::string::npos);
   CHECK(r.out.find("sun-eq,K,2,2,2,2,") != std::string::npos);
 
-  CHECK(s.Run("export --table sun-eq --witness K --revision 1").out.find("0;4,10") != std::string::npos);
+  CHECK(s.Run("export --table sun-eq --witness K --revision 1").out.find("0;4,10") !=
+        std::string::npos);
   r = s.Run("export --table sun-eq --witness K");
   CHECK(r.code == 0);
   CHECK(r.out.find("0;4,11 {doubt}") != std::string::npos);
@@ -175,8 +180,8 @@ TEST_CASE("e2e: CSV sheets import with their options") {
   CHECK(j["rows"][1]["cells"][0]["state"] == "illegible");
   CHECK(j["rows"][2]["cells"][0]["state"] == "blank");
 
-  CHECK(s.Run("import --csv sun.csv --table sun-eq").code == 2);           // no --witness
-  CHECK(s.Run("import --table sun-eq --witness K").code == 2);             // no --csv
+  CHECK(s.Run("import --csv sun.csv --table sun-eq").code == 2);  // no --witness
+  CHECK(s.Run("import --table sun-eq --witness K").code == 2);    // no --csv
   r = s.Run("import --csv sun.csv --table t --witness K --places x=1=2");
   CHECK(r.code == 2);
   CHECK(r.err.find("--places") != std::string::npos);
@@ -218,7 +223,8 @@ TEST_CASE("e2e: warnings are shown with positions, the import happens, exit code
             "@column c places=1\n@rows\n1 | 0;1\n1 | 0;2\n");
   auto r = s.Run("import w.apo");
   CHECK(r.code == 1);
-  CHECK(r.err.find("w.apo:8:1: warning: expected each argument once, found '1' again") != std::string::npos);
+  CHECK(r.err.find("w.apo:8:1: warning: expected each argument once, found '1' again") !=
+        std::string::npos);
   CHECK(r.err.find("\n1 | 0;2\n^") != std::string::npos);
   CHECK(r.out.find("new revision") != std::string::npos);
   CHECK(s.Run("list transcriptions --format csv").out.find("t,K,1,1,2,2,") != std::string::npos);

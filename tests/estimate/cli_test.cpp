@@ -10,11 +10,11 @@
 
 #include <nlohmann/json.hpp>
 
+#include "cli_runner.hpp"
 #include "model/model.hpp"
 #include "store/edition_store.hpp"
 #include "store/estimate_store.hpp"
 #include "synthetic.hpp"
-#include "cli_runner.hpp"
 
 namespace apograph::estimate {
 namespace {
@@ -32,14 +32,20 @@ Transcription WithMeta(Transcription t, const std::string& siglum) {
 }
 
 std::string MakeDb() {
-  const std::string path = (std::filesystem::temp_directory_path() / ("apograph_est_cli_" + std::to_string(::getpid()) + ".sqlite")).string();
+  const std::string path = (std::filesystem::temp_directory_path() /
+                            ("apograph_est_cli_" + std::to_string(::getpid()) + ".sqlite"))
+                               .string();
   std::filesystem::remove(path);
   store::Database db(path);
   const model::Model* m = model::FindBuiltinModel("solar-eccentric");
   testing::SyntheticColumn c;
   c.name = "equation";
   c.places = 2;
-  c.f = [m](double a) { model::RowContext ctx; ctx.arg = a; return m->Evaluate({2.0 + 4.0 / 60 + 45.0 / 3600}, ctx); };
+  c.f = [m](double a) {
+    model::RowContext ctx;
+    ctx.arg = a;
+    return m->Evaluate({2.0 + 4.0 / 60 + 45.0 / 3600}, ctx);
+  };
   c.errors = {{40, 600}};
   std::vector<Transcription> tables = {WithMeta(testing::MakeTable("sun", 1, 1, 180, {c}), "A"),
                                        WithMeta(testing::MakeTable("sun", 1, 1, 180, {c}), "B")};
@@ -51,7 +57,8 @@ std::string MakeDb() {
 
 TEST_CASE("cli: fit gives JSON with params, counts, entries and the nearest attested value") {
   const std::string db = MakeDb();
-  const Run r = Apograph("fit --table sun --witness A --model solar-eccentric --format json --db " + db);
+  const Run r =
+      Apograph("fit --table sun --witness A --model solar-eccentric --format json --db " + db);
   CHECK(r.code == 1);  // one entry flagged
   const auto j = nlohmann::json::parse(r.out);
   CHECK(j["model"] == "solar-eccentric");
@@ -69,7 +76,8 @@ TEST_CASE("cli: fit gives JSON with params, counts, entries and the nearest atte
 
 TEST_CASE("cli: fit rejects a bad --fix with the option named") {
   const std::string db = MakeDb();
-  const Run r = Apograph("fit --table sun --witness A --model solar-eccentric --fix q=2 --db " + db);
+  const Run r =
+      Apograph("fit --table sun --witness A --model solar-eccentric --fix q=2 --db " + db);
   CHECK(r.code == 2);
   CHECK(r.err.find("--fix") != std::string::npos);
   const Run r2 = Apograph("fit --table sun --witness A --model no-such-model --db " + db);
@@ -77,7 +85,9 @@ TEST_CASE("cli: fit rejects a bad --fix with the option named") {
   CHECK(r2.err.find("--model") != std::string::npos);
 }
 
-TEST_CASE("cli: identify --all stores one run per column and prints csv without a progress bar when piped") {
+TEST_CASE(
+    "cli: identify --all stores one run per column and prints csv without a progress bar when "
+    "piped") {
   const std::string db = MakeDb();
   const Run r = Apograph("identify --all --format csv --db " + db);
   CHECK(r.code == 0);
@@ -90,8 +100,10 @@ TEST_CASE("cli: identify --all stores one run per column and prints csv without 
 
 TEST_CASE("cli: catalog add stores a row that list shows beside the file's") {
   const std::string db = MakeDb();
-  const Run add = Apograph("catalog add --kind obliquity --applies-to declination:obliquity --value '23;33,30' "
-                           "--tradition 'Tables of Qarmel' --source 'MS Q fol. 3r' --db " + db);
+  const Run add = Apograph(
+      "catalog add --kind obliquity --applies-to declination:obliquity --value '23;33,30' "
+      "--tradition 'Tables of Qarmel' --source 'MS Q fol. 3r' --db " +
+      db);
   CHECK(add.code == 0);
   const Run list = Apograph("catalog list --kind obliquity --format json --db " + db);
   const auto j = nlohmann::json::parse(list.out);
@@ -102,7 +114,8 @@ TEST_CASE("cli: catalog add stores a row that list shows beside the file's") {
   }
   CHECK(from_db);
   CHECK(from_file);
-  const Run bad = Apograph("catalog add --kind obliquity --applies-to declination --value 23 --source x --db " + db);
+  const Run bad = Apograph(
+      "catalog add --kind obliquity --applies-to declination --value 23 --source x --db " + db);
   CHECK(bad.code == 2);
   CHECK(bad.err.find("--applies-to") != std::string::npos);
 }

@@ -15,14 +15,17 @@ double Chord(double a) { return 120.0 * std::sin(a / 2 * std::numbers::pi / 180.
 Transcription ChordTable(bool from_tabulated) {
   Transcription t;
   t.table_id = "chords";
-  t.argument = {"arc", "deg", 1, Sexagesimal::ParseOrThrow("0;30"), Sexagesimal::ParseOrThrow("0;30")};
+  t.argument = {"arc", "deg", 1, Sexagesimal::ParseOrThrow("0;30"),
+                Sexagesimal::ParseOrThrow("0;30")};
   t.columns = {{"chord", "", 2, "", std::nullopt}, {"sixtieths", "", 3, "", std::nullopt}};
   const int n = 300;
   for (int i = 0; i < n; ++i) {
     const double a = 0.5 * (i + 1);
-    const Sexagesimal c0 = Sexagesimal::FromDouble(Chord(a), 2), c1 = Sexagesimal::FromDouble(Chord(a + 0.5), 2);
-    const Sexagesimal six = from_tabulated ? (c1 - c0).Divided(30, 3)
-                                           : Sexagesimal::FromDouble((Chord(a + 0.5) - Chord(a)) / 30, 3);
+    const Sexagesimal c0 = Sexagesimal::FromDouble(Chord(a), 2),
+                      c1 = Sexagesimal::FromDouble(Chord(a + 0.5), 2);
+    const Sexagesimal six = from_tabulated
+                                ? (c1 - c0).Divided(30, 3)
+                                : Sexagesimal::FromDouble((Chord(a + 0.5) - Chord(a)) / 30, 3);
     Row row;
     for (const auto& v : {c0, six}) {
       Cell cell;
@@ -37,7 +40,8 @@ Transcription ChordTable(bool from_tabulated) {
 
 std::vector<std::vector<double>> ExactChords(const Transcription& t) {
   std::vector<std::vector<double>> p(2);
-  for (std::size_t i = 0; i < t.rows.size(); ++i) p[0].push_back(Chord(0.5 * static_cast<double>(i + 1)));
+  for (std::size_t i = 0; i < t.rows.size(); ++i)
+    p[0].push_back(Chord(0.5 * static_cast<double>(i + 1)));
   return p;
 }
 
@@ -76,16 +80,20 @@ TEST_CASE("without precise values the smoothed source still recognises the relat
 // vol. 2 (Oxford, 1921), chapter on trigonometry, worked values of the
 // ancient chord table: the tabulated difference 0;31,24 gives 0;1,2,48.
 TEST_CASE("published sixtieths: one thirtieth of 0;31,24 is 0;1,2,48") {
-  CHECK(Sexagesimal::ParseOrThrow("0;31,24").Divided(30, 3).Identical(Sexagesimal::ParseOrThrow("0;1,2,48")));
+  CHECK(Sexagesimal::ParseOrThrow("0;31,24").Divided(30, 3).Identical(
+      Sexagesimal::ParseOrThrow("0;1,2,48")));
 }
 
 TEST_CASE("a column that is the sum of two others is found") {
   Transcription t;
   t.table_id = "sums";
   t.argument = {"arg", "", 0, Sexagesimal::ParseOrThrow("1"), Sexagesimal::ParseOrThrow("1")};
-  t.columns = {{"a", "", 1, "", std::nullopt}, {"b", "", 1, "", std::nullopt}, {"total", "", 1, "", std::nullopt}};
+  t.columns = {{"a", "", 1, "", std::nullopt},
+               {"b", "", 1, "", std::nullopt},
+               {"total", "", 1, "", std::nullopt}};
   for (int i = 1; i <= 30; ++i) {
-    const Sexagesimal a = Sexagesimal::FromDouble(std::sqrt(i * 7.3), 1), b = Sexagesimal::FromDouble(std::log(i + 2.0) * 11, 1);
+    const Sexagesimal a = Sexagesimal::FromDouble(std::sqrt(i * 7.3), 1),
+                      b = Sexagesimal::FromDouble(std::log(i + 2.0) * 11, 1);
     Row row;
     for (const auto& v : {a, b, a + b}) {
       Cell cell;

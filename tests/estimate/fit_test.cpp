@@ -19,7 +19,8 @@ double SolarEquation(double e, double a) {
   return std::fabs(std::atan2(e * std::sin(r), 60.0 + e * std::cos(r)) * 180.0 / std::numbers::pi);
 }
 
-Transcription SolarTable(double e, std::map<int, int> errors = {}, Rounding rounding = Rounding::kNearest) {
+Transcription SolarTable(double e, std::map<int, int> errors = {},
+                         Rounding rounding = Rounding::kNearest) {
   testing::SyntheticColumn c;
   c.name = "equation";
   c.places = 2;
@@ -49,20 +50,25 @@ TEST_CASE("a clean 360-entry solar table gives back its eccentricity within the 
   CHECK(r.robust_scale < 0.45);
 }
 
-TEST_CASE("a handful of gross copying errors does not move the estimate beyond its standard error") {
+TEST_CASE(
+    "a handful of gross copying errors does not move the estimate beyond its standard error") {
   const double e = 2.0 + 4.0 / 60 + 48.0 / 3600;
   const FitResult clean = Fit(Eccentric(), SolarTable(e), std::vector<int>{}, FitOptions{});
-  const Transcription bad = SolarTable(e, {{10, 600}, {44, -37}, {90, 3600}, {200, 20}, {301, -1200}});
+  const Transcription bad =
+      SolarTable(e, {{10, 600}, {44, -37}, {90, 3600}, {200, 20}, {301, -1200}});
   const FitResult r = Fit(Eccentric(), bad, std::vector<int>{}, FitOptions{});
   CHECK(std::fabs(r.params[0].value - clean.params[0].value) < clean.params[0].stderr_);
   CHECK(std::fabs(r.params[0].value - e) < 3 * r.params[0].stderr_);
   CHECK(r.flagged == 5);
   int flagged_rows = 0;
-  for (const auto& en : r.entries) flagged_rows += en.flag && (en.row == 10 || en.row == 44 || en.row == 90 || en.row == 200 || en.row == 301);
+  for (const auto& en : r.entries)
+    flagged_rows +=
+        en.flag && (en.row == 10 || en.row == 44 || en.row == 90 || en.row == 200 || en.row == 301);
   CHECK(flagged_rows == 5);
 }
 
-TEST_CASE("standard errors are calibrated: over 40 tables the error in standard errors has rms near 1") {
+TEST_CASE(
+    "standard errors are calibrated: over 40 tables the error in standard errors has rms near 1") {
   double sum2 = 0;
   int beyond3 = 0;
   for (int k = 0; k < 40; ++k) {
@@ -70,7 +76,8 @@ TEST_CASE("standard errors are calibrated: over 40 tables the error in standard 
     testing::SyntheticColumn c;
     c.places = 2;
     c.f = [e](double a) { return SolarEquation(e, a); };
-    const FitResult r = Fit(Eccentric(), testing::MakeTable("s", 1, 1, 180, {c}), std::vector<int>{}, FitOptions{});
+    const FitResult r =
+        Fit(Eccentric(), testing::MakeTable("s", 1, 1, 180, {c}), std::vector<int>{}, FitOptions{});
     const double z = (r.params[0].value - e) / r.params[0].stderr_;
     sum2 += z * z;
     beyond3 += std::fabs(z) > 3;
@@ -134,12 +141,15 @@ TEST_CASE("a displaced table: the displacement constant is estimated with the ec
 // Published check. Source: Maimonides, *Mishneh Torah*, Laws of the
 // Sanctification of the New Moon 13:4 (12th century; values as printed in
 // the standard text and in two public English translations, which agree).
-TEST_CASE("published solar equation table: e between 2;4 and 2;6, only the entry at 20 outside half a unit") {
+TEST_CASE(
+    "published solar equation table: e between 2;4 and 2;6, only the entry at 20 outside half a "
+    "unit") {
   const char* values[] = {"0;20", "0;40", "0;58", "1;15", "1;29", "1;41", "1;51", "1;57", "1;59",
                           "1;58", "1;53", "1;45", "1;33", "1;19", "1;1",  "0;42", "0;21", "0;0"};
   Transcription t;
   t.table_id = "equation-of-the-sun";
-  t.argument = {"mean anomaly", "deg", 0, Sexagesimal::ParseOrThrow("10"), Sexagesimal::ParseOrThrow("10")};
+  t.argument = {"mean anomaly", "deg", 0, Sexagesimal::ParseOrThrow("10"),
+                Sexagesimal::ParseOrThrow("10")};
   t.columns.push_back({"equation", "deg", 1, "", std::nullopt});
   for (const char* v : values) {
     Row row;
@@ -175,7 +185,8 @@ TEST_CASE("the summary's quick rounding gives exactly Sexagesimal::FromDouble's 
   for (Rounding r : {Rounding::kNearest, Rounding::kTruncate}) {
     for (int places = 0; places <= 5; ++places) {
       // Ties (x.5 units exactly: dyadic values), negatives, and a spread of others.
-      std::vector<double> values = {0.03125, -0.03125, 2.5, -2.5, 0.5, 1.0 / 3, -7.0 / 3, 59.999999999, 0};
+      std::vector<double> values = {0.03125, -0.03125, 2.5,          -2.5, 0.5,
+                                    1.0 / 3, -7.0 / 3, 59.999999999, 0};
       for (int k = 1; k < 400; ++k) values.push_back(std::sin(k * 0.7) * 90 + k * 1e-7);
       for (double v : values) {
         CAPTURE(v);
@@ -188,7 +199,8 @@ TEST_CASE("the summary's quick rounding gives exactly Sexagesimal::FromDouble's 
     }
   }
   CHECK(compared > 4000);
-  CHECK_FALSE(internal::BroughtUnits(1e11, 5, Rounding::kNearest).has_value());  // beyond 2^52 units
+  CHECK_FALSE(
+      internal::BroughtUnits(1e11, 5, Rounding::kNearest).has_value());  // beyond 2^52 units
 }
 
 }  // namespace apograph::estimate

@@ -10,7 +10,8 @@ namespace apograph::estimate {
 namespace {
 
 /// A column made by a built-in model with given parameters.
-testing::SyntheticColumn FromModel(const std::string& name, std::vector<double> params, int places) {
+testing::SyntheticColumn FromModel(const std::string& name, std::vector<double> params,
+                                   int places) {
   const model::Model* m = model::FindBuiltinModel(name);
   REQUIRE(m != nullptr);
   testing::SyntheticColumn c;
@@ -42,7 +43,8 @@ TEST_CASE("identify puts the true family first and reports the equivalent one as
   CHECK((top == "solar-eccentric" || top == "solar-epicycle"));
   CHECK(id.ranked[0].fit.practice.rounding == Rounding::kNearest);
   CHECK(id.ranked[0].fit.practice.grid == 0);
-  CHECK(std::fabs(id.ranked[0].fit.params[0].value - (2.0 + 10.0 / 60)) < 3 * id.ranked[0].fit.params[0].stderr_);
+  CHECK(std::fabs(id.ranked[0].fit.params[0].value - (2.0 + 10.0 / 60)) <
+        3 * id.ranked[0].fit.params[0].stderr_);
   // The eccentric and the epicycle model are equivalent here: said, not hidden.
   CHECK(Mentions(id, "compute the same value at every entry"));
 }
@@ -116,7 +118,8 @@ TEST_CASE("identify works at one place fewer when the last place is written as 0
   CHECK(std::fabs(id.ranked[0].fit.Value("e") - (2.0 + 10.0 / 60)) < 0.01);
   // The same family at the places as written is tried and ranks lower.
   bool full_lower = false;
-  for (const auto& cand : id.ranked) full_lower = full_lower || (!cand.fit.practice.places && cand.score < id.ranked[0].score);
+  for (const auto& cand : id.ranked)
+    full_lower = full_lower || (!cand.fit.practice.places && cand.score < id.ranked[0].score);
   CHECK(full_lower);
 }
 
@@ -157,7 +160,8 @@ TEST_CASE("the score rewards exact entries and penalises extra parameters") {
 
 namespace apograph::estimate {
 
-TEST_CASE("a degenerate limit of another family with unhistorical parameters is set aside, with a note") {
+TEST_CASE(
+    "a degenerate limit of another family with unhistorical parameters is set aside, with a note") {
   // The ascensional difference with an obliquity near 0 and a latitude near
   // 90 degrees mimics the declination table and, with one more parameter,
   // reproduces about as many entries.
@@ -174,8 +178,9 @@ TEST_CASE("a degenerate limit of another family with unhistorical parameters is 
   REQUIRE(!id.ranked.empty());
   CHECK(id.ranked[0].model->name() == "declination");
   bool noted = false;
-  for (const auto& n : id.notes) noted = noted || (n.find("ascensional-difference") != std::string::npos &&
-                                                   n.find("historical range") != std::string::npos);
+  for (const auto& n : id.notes)
+    noted = noted || (n.find("ascensional-difference") != std::string::npos &&
+                      n.find("historical range") != std::string::npos);
   CHECK(noted);
 }
 

@@ -42,9 +42,17 @@ const MeanMotionEntry& At(const MeanMotionAnalysis& a, double arg) {
 // Sanctification of the New Moon 13:4 (12th century; values as printed in
 // the standard text and in two public English translations, which agree);
 // same source, 12:1 (the sun's mean motion).
-TEST_CASE("published mean-motion table: 1000 and 10000 days are ten times the rounded entry above; 354 unexplained") {
-  const Transcription t = Table({{1, "0;59,8"}, {10, "9;51,23"}, {100, "98;33,53"}, {1000, "265;38,50"},
-                                 {10000, "136;28,20"}, {29, "28;35,1"}, {354, "348;55,15"}}, 2);
+TEST_CASE(
+    "published mean-motion table: 1000 and 10000 days are ten times the rounded entry above; 354 "
+    "unexplained") {
+  const Transcription t = Table({{1, "0;59,8"},
+                                 {10, "9;51,23"},
+                                 {100, "98;33,53"},
+                                 {1000, "265;38,50"},
+                                 {10000, "136;28,20"},
+                                 {29, "28;35,1"},
+                                 {354, "348;55,15"}},
+                                2);
   const MeanMotionAnalysis a = AnalyseMeanMotion(t, 0);
   CHECK_FALSE(a.radix_present);
   CHECK(a.rounding == Rounding::kNearest);
@@ -125,7 +133,8 @@ TEST_CASE("fitting a mean motion to seconds of seconds finds the rate's narrow b
   std::vector<std::pair<int, const char*>> view;
   for (int d = 1; d <= 40; ++d) view.push_back({d, vals[static_cast<std::size_t>(d - 1)].c_str()});
   const Transcription t = Table(view, 3);
-  const FitResult r = Fit(*model::FindBuiltinModel("mean-motion"), t, std::vector<int>{0}, FitOptions{});
+  const FitResult r =
+      Fit(*model::FindBuiltinModel("mean-motion"), t, std::vector<int>{0}, FitOptions{});
   CHECK(r.exact == 39);
   CHECK(std::fabs(r.Value("rate") - daily.ToDouble()) < 1e-7);
 }
@@ -134,7 +143,8 @@ TEST_CASE("a mean motion with a radix at argument 0 wraps past 360 and keeps its
   const Sexagesimal radix = Sexagesimal::ParseOrThrow("280;10,5");
   const Sexagesimal rate = Sexagesimal::ParseOrThrow("13;10,35,1,48");
   std::vector<std::string> vals;
-  for (int d = 0; d <= 60; ++d) vals.push_back((radix + rate * d).Rounded(2).Modulo(360).ToString());
+  for (int d = 0; d <= 60; ++d)
+    vals.push_back((radix + rate * d).Rounded(2).Modulo(360).ToString());
   std::vector<std::pair<int, const char*>> view;
   for (int d = 0; d <= 60; ++d) view.push_back({d, vals[static_cast<std::size_t>(d)].c_str()});
   const MeanMotionAnalysis a = AnalyseMeanMotion(Table(view, 2), 0);

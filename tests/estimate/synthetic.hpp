@@ -18,10 +18,10 @@ struct SyntheticColumn {
   int places = 2;
   std::function<double(double)> f;
   Rounding rounding = Rounding::kNearest;
-  double grid = 0;          ///< interpolation grid (0: none)
-  bool round_nodes = false; ///< nodes brought to `places` before interpolating
-  int written_places = -1;  ///< places as written (zeros appended); -1: `places`
-  double displacement = 0;  ///< constant added
+  double grid = 0;           ///< interpolation grid (0: none)
+  bool round_nodes = false;  ///< nodes brought to `places` before interpolating
+  int written_places = -1;   ///< places as written (zeros appended); -1: `places`
+  double displacement = 0;   ///< constant added
   bool modulo_360 = false;
   std::map<int, int> errors;  ///< row -> units added (gross copying errors)
 };
@@ -53,7 +53,8 @@ inline Transcription MakeTable(const std::string& id, double start, double step,
           const double y = c.f(x);
           return c.round_nodes ? Sexagesimal::FromDouble(y, c.places, c.rounding).ToDouble() : y;
         };
-        if (std::fabs(a - lo) > 1e-9) v = node(lo) + (node(lo + c.grid) - node(lo)) * (a - lo) / c.grid;
+        if (std::fabs(a - lo) > 1e-9)
+          v = node(lo) + (node(lo + c.grid) - node(lo)) * (a - lo) / c.grid;
       }
       v += c.displacement;
       Sexagesimal s = Sexagesimal::FromDouble(v, c.places, c.rounding);

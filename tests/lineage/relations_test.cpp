@@ -25,7 +25,9 @@ TEST_CASE("a copy may fill in an entry its exemplar leaves blank") {
   CHECK(copies[0].exemplar == "A");
   CHECK(copies[0].exemplar_errors == 2);
   CHECK(copies[0].filled == 1);
-  CHECK(copies[0].text == "B may be a copy of A: B has all 2 of A's errors and 1 of its own; B fills in 1 entry A leaves blank");
+  CHECK(copies[0].text ==
+        "B may be a copy of A: B has all 2 of A's errors and 1 of its own; B fills in 1 entry A "
+        "leaves blank");
   // A reading error of A that B lacks (not a blank) refutes the copy.
   m.characters[2].omission = false;
   CHECK(FindCopies(m).empty());

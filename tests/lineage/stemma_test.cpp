@@ -67,7 +67,8 @@ TEST_CASE("neighbour joining on a worked five-taxon example") {
   CHECK(tree.edges[1].length == doctest::Approx(3));
   const auto s = lineage::RootAt(tree, names, 4);
   for (int i = 0; i < 5; ++i) {
-    for (int j = i + 1; j < 5; ++j) CHECK(PathLength(s, names[i], names[j]) == doctest::Approx(d[i][j]));
+    for (int j = i + 1; j < 5; ++j)
+      CHECK(PathLength(s, names[i], names[j]) == doctest::Approx(d[i][j]));
   }
   CHECK(PathLength(s, "c", "e") == doctest::Approx(7));
 }
@@ -123,8 +124,10 @@ TEST_CASE("synthetic traditions of 4 to 12 witnesses: the stemma comes back") {
         if (method == lineage::Method::kParsimony) CHECK(report.results[0].parsimony->exact);
       }
     }
-    INFO("method " << std::string(lineage::ToString(method)) << ": " << recovered << " of " << truth << ", RF " << distance);
-    MESSAGE(std::string(lineage::ToString(method)) << ": " << recovered << " of " << truth << " groups, RF " << distance);
+    INFO("method " << std::string(lineage::ToString(method)) << ": " << recovered << " of " << truth
+                   << ", RF " << distance);
+    MESSAGE(std::string(lineage::ToString(method))
+            << ": " << recovered << " of " << truth << " groups, RF " << distance);
     CHECK(truth > 50);
     CHECK(recovered >= 0.9 * truth);
     CHECK(distance <= truth / 5);
@@ -177,7 +180,8 @@ TEST_CASE("a contaminated witness is flagged with the rows where it changes exem
   REQUIRE(z->segments.size() == 2);
   CHECK((z->segments[0].relative == "P" || z->segments[0].relative == "P2"));
   CHECK((z->segments[1].relative == "R" || z->segments[1].relative == "R2"));
-  const int last_a = std::stoi(z->segments[0].last_row), first_b = std::stoi(z->segments[1].first_row);
+  const int last_a = std::stoi(z->segments[0].last_row),
+            first_b = std::stoi(z->segments[1].first_row);
   CHECK(last_a <= 150);
   CHECK(first_b >= 151);
   CHECK(z->text.find("Z follows ") == 0);

@@ -29,12 +29,27 @@ TEST_CASE("the registry lists every family under stable, unique names") {
       CHECK(p.default_value <= p.high);
     }
   }
-  for (const char* n : {"chord", "sine", "cosine", "versed-sine", "shadow", "reversed-shadow",
-                        "solar-eccentric", "solar-epicycle", "epicycle-anomaly",
-                        "epicycle-anomaly-greatest", "epicycle-anomaly-least", "equant-centre",
-                        "lunar-anomaly", "declination", "right-ascension",
-                        "ascensional-difference", "oblique-ascension", "daylight",
-                        "mean-motion", "mean-motion-months", "mean-motion-years",
+  for (const char* n : {"chord",
+                        "sine",
+                        "cosine",
+                        "versed-sine",
+                        "shadow",
+                        "reversed-shadow",
+                        "solar-eccentric",
+                        "solar-epicycle",
+                        "epicycle-anomaly",
+                        "epicycle-anomaly-greatest",
+                        "epicycle-anomaly-least",
+                        "equant-centre",
+                        "lunar-anomaly",
+                        "declination",
+                        "right-ascension",
+                        "ascensional-difference",
+                        "oblique-ascension",
+                        "daylight",
+                        "mean-motion",
+                        "mean-motion-months",
+                        "mean-motion-years",
                         "mean-motion-collected"}) {
     CHECK_MESSAGE(FindBuiltinModel(n) != nullptr, n);
   }
@@ -75,7 +90,7 @@ TEST_CASE("chords on a diameter of 120, to the second (Heath 1921)") {
   // (2;5,39,26 and 99;29,4,14 to thirds): the ancient table's own
   // inaccuracies, which check must report as one unit, not hide.
   const std::tuple<const char*, const char*, double> kChords[] = {
-      {"0;30", "0;31,25", 0}, {"1", "1;2,50", 0},     {"2", "2;5,40", 1},
+      {"0;30", "0;31,25", 0}, {"1", "1;2,50", 0},    {"2", "2;5,40", 1},
       {"2;30", "2;37,4", 0},  {"112", "99;29,5", 1}, {"120", "103;55,23", 0}};
   for (auto [arc, chord, diff] : kChords) {
     CAPTURE(arc);
@@ -138,7 +153,8 @@ TEST_CASE("facts of the trade (common practice)") {
   // never strays more than asin(43;10/60) = 46.0 degrees from the mean sun.
   const double r = D("43;10");
   double greatest = 0;
-  for (double g = 0; g <= 180; g += 0.01) greatest = std::max(greatest, Eval("epicycle-anomaly", {r}, g));
+  for (double g = 0; g <= 180; g += 0.01)
+    greatest = std::max(greatest, Eval("epicycle-anomaly", {r}, g));
   CHECK(greatest == doctest::Approx(46.0).epsilon(0.001));
   CHECK(greatest <= std::asin(r / 60) * 180 / std::numbers::pi + 1e-12);
 
@@ -175,7 +191,8 @@ TEST_CASE("epicycle and equant models") {
         doctest::Approx(std::asin(r / 63) * 180 / std::numbers::pi).epsilon(1e-6));
   CHECK(greatest("epicycle-anomaly-least") ==
         doctest::Approx(std::asin(r / 57) * 180 / std::numbers::pi).epsilon(1e-6));
-  CHECK(Eval("lunar-anomaly", {5.25}, 90) == doctest::Approx(std::atan(5.25 / 60) * 180 / std::numbers::pi));
+  CHECK(Eval("lunar-anomaly", {5.25}, 90) ==
+        doctest::Approx(std::atan(5.25 / 60) * 180 / std::numbers::pi));
 
   // Equant: zero at apogee and perigee, symmetric; hand-worked at k = 90 with
   // e = 6: C = (12, 0) + t (0, 1), t = sqrt(3600 - 36) = 59.699..., the
@@ -202,7 +219,8 @@ TEST_CASE("spherical astronomy") {
   CHECK(Eval("declination", {eps}, 150) == doctest::Approx(Eval("declination", {eps}, 30)));
   // Hand-worked: sin(delta(30)) = sin(eps)/2.
   CHECK(Eval("declination", {eps}, 30) ==
-        doctest::Approx(std::asin(std::sin(eps * std::numbers::pi / 180) / 2) * 180 / std::numbers::pi));
+        doctest::Approx(std::asin(std::sin(eps * std::numbers::pi / 180) / 2) * 180 /
+                        std::numbers::pi));
   CHECK(Eval("right-ascension", {eps}, 90) == doctest::Approx(90).epsilon(1e-14));
   CHECK(Eval("right-ascension", {eps}, 180) == doctest::Approx(180).epsilon(1e-14));
   CHECK(Eval("right-ascension", {eps}, 360) == doctest::Approx(360).epsilon(1e-14));
@@ -214,8 +232,9 @@ TEST_CASE("spherical astronomy") {
   // At the summer solstice, daylight = 12 + 2 asin(tan phi tan eps)/15 hours;
   // at the winter solstice the complement to 24.
   const double phi = 36;
-  const double d = std::asin(std::tan(phi * std::numbers::pi / 180) *
-                             std::tan(eps * std::numbers::pi / 180)) * 180 / std::numbers::pi;
+  const double d =
+      std::asin(std::tan(phi * std::numbers::pi / 180) * std::tan(eps * std::numbers::pi / 180)) *
+      180 / std::numbers::pi;
   CHECK(Eval("ascensional-difference", {eps, phi}, 90) == doctest::Approx(d));
   CHECK(Eval("daylight", {eps, phi}, 90) == doctest::Approx(12 + 2 * d / 15));
   CHECK(Eval("daylight", {eps, phi}, 270) == doctest::Approx(12 - 2 * d / 15));

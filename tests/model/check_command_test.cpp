@@ -46,8 +46,9 @@ struct DemoDb {
 
 TEST_CASE("check on a demo witness flags exactly the entries beyond tolerance") {
   DemoDb demo;
-  Run r = Apograph(demo.Args({"check", "--table", "sun-eq", "--witness", "A", "--model",
-                              "solar-eccentric", "--param", "e=2;16", "--grid", "6", "--format", "json"}));
+  Run r = Apograph(
+      demo.Args({"check", "--table", "sun-eq", "--witness", "A", "--model", "solar-eccentric",
+                 "--param", "e=2;16", "--grid", "6", "--format", "json"}));
   CHECK(r.err == "");
   CHECK(r.code == 1);
   auto j = nlohmann::json::parse(r.out);
@@ -76,8 +77,9 @@ TEST_CASE("check on a demo witness flags exactly the entries beyond tolerance") 
 
 TEST_CASE("check text output and exit code 0 when nothing is flagged") {
   DemoDb demo;
-  Run r = Apograph(demo.Args({"check", "--table", "decl", "--witness", "A", "--model", "declination",
-                              "--param", "obliquity=23;32,40", "--tolerance", "100000"}));
+  Run r =
+      Apograph(demo.Args({"check", "--table", "decl", "--witness", "A", "--model", "declination",
+                          "--param", "obliquity=23;32,40", "--tolerance", "100000"}));
   CHECK(r.code == 0);
   CHECK(r.out.find("table decl, witness A, column declination: model declination with obliquity = "
                    "23.5444444444 (23;32,40)\n") == 0);
@@ -92,12 +94,13 @@ TEST_CASE("a formula at the command line and a saved formula stand in for the bu
   Run saved = Apograph(demo.Args({"formula", "save", "gnomon", text, "--description", "shadow"}));
   CHECK(saved.code == 0);
   CHECK(saved.out == "saved formula gnomon (1 parameters)\n");
-  Run builtin = Apograph(demo.Args({"check", "--table", "shadow", "--witness", "A", "--model", "shadow",
-                                    "--rounding", "truncate", "--format", "csv"}));
-  Run byname = Apograph(demo.Args({"check", "--table", "shadow", "--witness", "A", "--model", "gnomon",
-                                   "--rounding", "truncate", "--format", "csv"}));
-  Run adhoc = Apograph(demo.Args({"check", "--table", "shadow", "--witness", "A", "--formula",
-                                  "12 * cos(arg) / sin(arg)", "--rounding", "truncate", "--format", "csv"}));
+  Run builtin = Apograph(demo.Args({"check", "--table", "shadow", "--witness", "A", "--model",
+                                    "shadow", "--rounding", "truncate", "--format", "csv"}));
+  Run byname = Apograph(demo.Args({"check", "--table", "shadow", "--witness", "A", "--model",
+                                   "gnomon", "--rounding", "truncate", "--format", "csv"}));
+  Run adhoc = Apograph(
+      demo.Args({"check", "--table", "shadow", "--witness", "A", "--formula",
+                 "12 * cos(arg) / sin(arg)", "--rounding", "truncate", "--format", "csv"}));
   CHECK(builtin.code == 1);  // A's repeated entries at 15, 24 and 41
   CHECK(byname.out == builtin.out);
   CHECK(adhoc.out == builtin.out);
@@ -110,17 +113,21 @@ TEST_CASE("a formula at the command line and a saved formula stand in for the bu
 
 TEST_CASE("check and formula report bad input with exit code 2") {
   DemoDb demo;
-  Run bad = Apograph(demo.Args({"check", "--table", "sun-eq", "--witness", "A", "--formula", "1 + * 2"}));
+  Run bad =
+      Apograph(demo.Args({"check", "--table", "sun-eq", "--witness", "A", "--formula", "1 + * 2"}));
   CHECK(bad.code == 2);
   CHECK(bad.err == "formula:1:5: error: expected an expression, found '*'\n1 + * 2\n    ^\n");
-  Run unknown = Apograph(demo.Args({"check", "--table", "sun-eq", "--witness", "A", "--model", "nope"}));
+  Run unknown =
+      Apograph(demo.Args({"check", "--table", "sun-eq", "--witness", "A", "--model", "nope"}));
   CHECK(unknown.code == 2);
   CHECK(unknown.err.find("--model: error: expected a built-in model or a saved formula") == 0);
-  Run column = Apograph(demo.Args({"check", "--table", "sun-eq", "--witness", "A", "--formula", "col(chord)"}));
+  Run column = Apograph(
+      demo.Args({"check", "--table", "sun-eq", "--witness", "A", "--formula", "col(chord)"}));
   CHECK(column.code == 2);
-  CHECK(column.err == "--formula: error: expected a column of table sun-eq (equation), found col(chord)\n");
-  Run param = Apograph(demo.Args({"check", "--table", "sun-eq", "--witness", "A", "--model", "chord",
-                                  "--param", "R=sixty"}));
+  CHECK(column.err ==
+        "--formula: error: expected a column of table sun-eq (equation), found col(chord)\n");
+  Run param = Apograph(demo.Args(
+      {"check", "--table", "sun-eq", "--witness", "A", "--model", "chord", "--param", "R=sixty"}));
   CHECK(param.err == "--param R: error: expected a number such as 2;4,48 or 2.08, found 'sixty'\n");
   Run save = Apograph(demo.Args({"formula", "save", "chord", "crd(arg)"}));
   CHECK(save.code == 2);

@@ -39,14 +39,15 @@ std::string ErrorOf(const std::string& text) {
 
 TEST_CASE("every example in grammar/examples parses") {
   int n = 0;
-  for (const auto& entry :
-       std::filesystem::directory_iterator(std::string(APOGRAPH_SOURCE_DIR) + "/grammar/examples")) {
+  for (const auto& entry : std::filesystem::directory_iterator(std::string(APOGRAPH_SOURCE_DIR) +
+                                                               "/grammar/examples")) {
     if (entry.path().extension() != ".formula") continue;
     CAPTURE(entry.path().filename().string());
     std::ifstream in(entry.path());
     std::stringstream text;
     text << in.rdbuf();
-    CHECK_NOTHROW(CompileFormula(text.str(), entry.path().stem().string(), entry.path().filename().string()));
+    CHECK_NOTHROW(
+        CompileFormula(text.str(), entry.path().stem().string(), entry.path().filename().string()));
     ++n;
   }
   CHECK(n >= 5);
@@ -131,7 +132,8 @@ TEST_CASE("a derived column checked against its own table flags exactly the misc
   // sixtieth is miscopied (a digit changed): the check must flag it alone.
   std::vector<std::vector<std::string>> rows;
   std::vector<Sexagesimal> chords;
-  for (int k = 1; k <= 41; ++k) chords.push_back(Sexagesimal::FromDouble(120 * std::sin(k * 0.25 * std::numbers::pi / 180), 2));
+  for (int k = 1; k <= 41; ++k)
+    chords.push_back(Sexagesimal::FromDouble(120 * std::sin(k * 0.25 * std::numbers::pi / 180), 2));
   for (int k = 1; k <= 40; ++k) {
     const Sexagesimal arc = Sexagesimal::FromUnits(30 * k, 1);
     const Sexagesimal sixtieth = (chords[k] - chords[k - 1]).Divided(30, 3);
@@ -147,7 +149,7 @@ TEST_CASE("a derived column checked against its own table flags exactly the misc
     if (e.flag) flagged.push_back(e.row);
   }
   CHECK(flagged == std::vector<std::size_t>{16});
-  CHECK(r.summary.exact == 38);       // the last row has no next row
+  CHECK(r.summary.exact == 38);  // the last row has no next row
   CHECK(r.summary.undefined == 1);
   // The chords themselves against the chord formula and the built-in model.
   CheckReport chords_check = Check(t, *CompileFormula("crd(arg)"), {}, Practice{}, 0.0, 0);
@@ -155,11 +157,13 @@ TEST_CASE("a derived column checked against its own table flags exactly the misc
 }
 
 TEST_CASE("self() and arg() reach neighbouring rows") {
-  Transcription t = MakeTable({"sine", "diff"}, 2, {{"30", "30", "0"}, {"31", "0", "0"}, {"32", "0", "0"}});
+  Transcription t =
+      MakeTable({"sine", "diff"}, 2, {{"30", "30", "0"}, {"31", "0", "0"}, {"32", "0", "0"}});
   auto f = CompileFormula("self(1) - self(0) + 0 * arg(1)");
   RowContext row{30, std::nullopt, &t, 0, 1};
   auto g = CompileFormula("60 * sin(arg(1)) - 60 * sin(arg)");
-  CHECK(g->Evaluate({}, row) == doctest::Approx(60 * (std::sin(31 * std::numbers::pi / 180) - 0.5)));
+  CHECK(g->Evaluate({}, row) ==
+        doctest::Approx(60 * (std::sin(31 * std::numbers::pi / 180) - 0.5)));
   row.row = 2;
   row.arg = 32;
   CHECK(std::isnan(g->Evaluate({}, row)));  // no next row
@@ -182,7 +186,8 @@ TEST_CASE("mistyped formulas: positioned errors, word for word") {
   CHECK(ErrorOf("x + 1") ==
         "formula:1:1: error: expected a declared parameter, arg, arg2 or a function, found 'x'\n"
         "x + 1\n^");
-  CHECK(ErrorOf("atan2(1)") == "formula:1:1: error: expected 2 arguments to atan2, found 1\natan2(1)\n^");
+  CHECK(ErrorOf("atan2(1)") ==
+        "formula:1:1: error: expected 2 arguments to atan2, found 1\natan2(1)\n^");
   CHECK(ErrorOf("atan2(1;30,45)") ==
         "formula:1:1: error: expected 2 arguments to atan2, found 1 (1;30,45 is one number; put a "
         "blank after a comma that separates arguments)\natan2(1;30,45)\n^");
@@ -196,13 +201,17 @@ TEST_CASE("mistyped formulas: positioned errors, word for word") {
         "formula:1:7: error: expected a parameter name, found '='\nparam = 3\n      ^");
   CHECK(ErrorOf("frob(1)").rfind("formula:1:1: error: expected a function (sin, cos,", 0) == 0);
   CHECK(ErrorOf("col(chord, x)") ==
-        "formula:1:12: error: expected a row offset such as +1 or -1, found 'x'\ncol(chord, x)\n           ^");
-  CHECK(ErrorOf("sin") == "formula:1:4: error: expected '(' after sin, found end of formula\nsin\n   ^");
+        "formula:1:12: error: expected a row offset such as +1 or -1, found 'x'\ncol(chord, x)\n   "
+        "        ^");
+  CHECK(ErrorOf("sin") ==
+        "formula:1:4: error: expected '(' after sin, found end of formula\nsin\n   ^");
   CHECK(ErrorOf("param e = 2 param e = 3 e") ==
-        "formula:1:19: error: expected a new parameter name, found 'e' again\nparam e = 2 param e = 3 e\n                  ^");
+        "formula:1:19: error: expected a new parameter name, found 'e' again\nparam e = 2 param e "
+        "= 3 e\n                  ^");
   CHECK(ErrorOf("") == "formula:1:1: error: expected an expression, found end of formula");
   CHECK(ErrorOf("arg(0.5)") ==
-        "formula:1:5: error: expected a whole-number row offset such as 1 or -1, found '0.5'\narg(0.5)\n    ^");
+        "formula:1:5: error: expected a whole-number row offset such as 1 or -1, found "
+        "'0.5'\narg(0.5)\n    ^");
 }
 
 }  // namespace

@@ -16,7 +16,8 @@ using internal::AllBuiltinModels;
 using internal::BuiltinModel;
 
 /// d f / d p_i by central differences in long double (step 1e-6 relative).
-double Central(const BuiltinModel& m, std::vector<double> p, std::size_t i, double arg, double arg2) {
+double Central(const BuiltinModel& m, std::vector<double> p, std::size_t i, double arg,
+               double arg2) {
   std::vector<long double> pl(p.begin(), p.end());
   const long double h = 1e-6L * std::max(std::fabs(pl[i]), 1.0L);
   pl[i] += h;

@@ -43,9 +43,9 @@ std::vector<std::vector<double>> ParamSets(const BuiltinModel& m) {
 }
 
 std::vector<double> HardArguments() {
-  std::vector<double> a = {0,      1e-9,   1e-6,  0.5,    1,       45,     89.999999,
-                           90,     90.0001, 92.39, 135,    179.999999, 180, 180.000001,
-                           269.9999, 270,  359.999999, 360, 360.5,  720,    1000,   9999.5};
+  std::vector<double> a = {0,          1e-9,  1e-6,  0.5,        1,    45,         89.999999, 90,
+                           90.0001,    92.39, 135,   179.999999, 180,  180.000001, 269.9999,  270,
+                           359.999999, 360,   360.5, 720,        1000, 9999.5};
   for (double x = 0; x <= 360; x += 1.0 / 7) a.push_back(x);
   return a;
 }
@@ -71,7 +71,8 @@ Measured Compare(const BuiltinModel& m, const std::vector<double>& p, double arg
   long double diff = std::fabs(static_cast<long double>(d) - l);
   // A mean motion just below the modulus in one precision may be just above
   // 0 in the other: the same position.
-  if (m.ParamIndex("modulus") >= 0 && p.back() > 0) diff = std::min(diff, std::fabs(diff - p.back()));
+  if (m.ParamIndex("modulus") >= 0 && p.back() > 0)
+    diff = std::min(diff, std::fabs(diff - p.back()));
   out.worst_rel = static_cast<double>(diff / std::max(1.0L, std::fabs(l)));
   return out;
 }

@@ -63,6 +63,7 @@ TEST_CASE("interpolation grid: exact at the nodes, linear between, then rounded"
     double Evaluate(const std::vector<double>&, const RowContext& row) const override {
       return row.arg * row.arg / 7;
     }
+
    private:
     std::string name_ = "square";
     std::vector<ParamSpec> params_;
@@ -71,11 +72,11 @@ TEST_CASE("interpolation grid: exact at the nodes, linear between, then rounded"
   Practice p;
   p.grid = 6;
   auto r = Recompute(square, {}, t, 0, p);
-  CHECK(r.exact[6] == doctest::Approx(36.0 / 7));       // a node: exact
+  CHECK(r.exact[6] == doctest::Approx(36.0 / 7));  // a node: exact
   CHECK(r.exact[12] == doctest::Approx(144.0 / 7));
-  CHECK(r.exact[3] == doctest::Approx(18.0 / 7));        // half way between 0 and 36/7
+  CHECK(r.exact[3] == doctest::Approx(18.0 / 7));  // half way between 0 and 36/7
   CHECK(r.exact[9] == doctest::Approx((36.0 + 144.0) / 14));
-  CHECK(*r.computed[3] == S("2;34"));                    // 2.571428.. = 2;34,17
+  CHECK(*r.computed[3] == S("2;34"));  // 2.571428.. = 2;34,17
   // Rounded nodes: 36/7 = 5;8,34 -> 5;9 and 144/7 = 20;34,17 -> 20;34 at one
   // place; between them at 9 the mean of the rounded nodes 12;51,30 -> 12;52,
   // while from exact nodes 12;51,26 -> 12;51.
@@ -194,7 +195,8 @@ TEST_CASE("the demo witness A: the solar equation checked with the author's prac
   CHECK(r.summary.blank == 1);
   CHECK(r.summary.exact == 180 - 1 - 2 - 2);
   // Without the grid the interpolation shows as many small differences.
-  CheckReport plain = Check(t, *FindBuiltinModel("solar-eccentric"), {D("2;16")}, Practice{}, 1.0, 0);
+  CheckReport plain =
+      Check(t, *FindBuiltinModel("solar-eccentric"), {D("2;16")}, Practice{}, 1.0, 0);
   CHECK(plain.summary.exact < r.summary.exact - 50);
 }
 

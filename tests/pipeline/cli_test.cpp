@@ -6,8 +6,8 @@
 #include <nlohmann/json.hpp>
 
 #include "../store/store_test_util.hpp"
-#include "cli_runner.hpp"
 #include "cli/command.hpp"
+#include "cli_runner.hpp"
 #include "store/edition_store.hpp"
 #include "transcription/parser.hpp"
 
@@ -24,7 +24,8 @@ struct DemoDb {
     store::Database db(file.path());
     std::vector<Transcription> all;
     for (const char* s : {"A", "B", "C", "D", "E"}) {
-      auto parsed = ReadTranscriptionFile(std::string(APOGRAPH_SOURCE_DIR) + "/corpora/demo/" + s + ".apo");
+      auto parsed =
+          ReadTranscriptionFile(std::string(APOGRAPH_SOURCE_DIR) + "/corpora/demo/" + s + ".apo");
       all.insert(all.end(), parsed.tables.begin(), parsed.tables.end());
     }
     store::Import(db, all);
@@ -42,15 +43,16 @@ DemoDb& Demo() {
 }
 
 TEST_CASE("errors --auto uses the identified model and practice (grid 6) and finds D's slips") {
-  Run r = Apograph(Demo().Args({"errors", "--table", "sun-eq", "--witness", "D", "--auto", "--no-record",
-                                "--format", "json"}));
+  Run r = Apograph(Demo().Args({"errors", "--table", "sun-eq", "--witness", "D", "--auto",
+                                "--no-record", "--format", "json"}));
   INFO(r.err);
   CHECK(r.code == 1);
   auto j = nlohmann::json::parse(r.out);
   const std::string model = j["model"];
   INFO(model);
   // solar-eccentric e, solar-epicycle r or epicycle-anomaly r: equivalent, tied
-  CHECK(model.find("=2.26667 (2;16) (fitted, rounded to 1 place; entries rounded to 2 places, exact every 6 and "
+  CHECK(model.find("=2.26667 (2;16) (fitted, rounded to 1 place; entries rounded to 2 places, "
+                   "exact every 6 and "
                    "linear between)") != std::string::npos);
   REQUIRE(j["references"].size() == 1);
   CHECK(j["references"][0]["practice"]["grid"] == 6);
@@ -63,24 +65,28 @@ TEST_CASE("errors --auto uses the identified model and practice (grid 6) and fin
 }
 
 TEST_CASE("check --auto and the shared practice options") {
-  Run given = Apograph(Demo().Args({"check", "--table", "decl", "--witness", "B", "--model", "declination",
-                                    "--param", "obliquity=23;32,40", "--format", "csv"}));
-  Run identified = Apograph(Demo().Args({"check", "--table", "decl", "--witness", "B", "--auto", "--format", "csv"}));
+  Run given =
+      Apograph(Demo().Args({"check", "--table", "decl", "--witness", "B", "--model", "declination",
+                            "--param", "obliquity=23;32,40", "--format", "csv"}));
+  Run identified = Apograph(
+      Demo().Args({"check", "--table", "decl", "--witness", "B", "--auto", "--format", "csv"}));
   CHECK(given.code == 1);
   CHECK(identified.out == given.out);
   Run text = Apograph(Demo().Args({"check", "--table", "decl", "--witness", "B", "--auto"}));
   CHECK(text.out.rfind("reference: identified from witness B", 0) == 0);
-  Run both = Apograph(Demo().Args({"check", "--table", "decl", "--witness", "B", "--auto", "--param", "obliquity=23"}));
+  Run both = Apograph(Demo().Args(
+      {"check", "--table", "decl", "--witness", "B", "--auto", "--param", "obliquity=23"}));
   CHECK(both.code == 2);
   CHECK(both.err.find("--param: error: expected no --param with --auto") == 0);
-  Run practice = Apograph(Demo().Args({"errors", "--table", "decl", "--witness", "B", "--auto", "--grid", "6"}));
+  Run practice = Apograph(
+      Demo().Args({"errors", "--table", "decl", "--witness", "B", "--auto", "--grid", "6"}));
   CHECK(practice.code == 2);
   CHECK(practice.err.find("--auto: error:") == 0);
 }
 
 TEST_CASE("collate with a model judges readings by the explained deviations") {
-  Run r = Apograph(Demo().Args({"collate", "--table", "sun-eq", "--model", "solar-eccentric", "--param", "e=2;16",
-                                "--grid", "6", "--format", "json"}));
+  Run r = Apograph(Demo().Args({"collate", "--table", "sun-eq", "--model", "solar-eccentric",
+                                "--param", "e=2;16", "--grid", "6", "--format", "json"}));
   CHECK(r.code == 1);
   auto j = nlohmann::json::parse(r.out);
   int judged = 0, other = 0;
@@ -110,7 +116,8 @@ TEST_CASE("stemma --auto over one table names B as a copy of A") {
 TEST_CASE("apparatus --auto adopts the model's reading where the majority carries alpha's slip") {
   // TRUTH.md: alpha (lost) read 0;27,43 for 0;21,43 at 10, inherited by C, D
   // and E; A and B keep the author's reading. By majority the slip wins.
-  Run judged = Apograph(Demo().Args({"apparatus", "--table", "sun-eq", "--auto", "--format", "csv"}));
+  Run judged =
+      Apograph(Demo().Args({"apparatus", "--table", "sun-eq", "--auto", "--format", "csv"}));
   CHECK(judged.code == 0);
   CHECK(judged.out.find("\n10,equation,\"0;21,43\",A B,,\"0;27,43 C D E\"") != std::string::npos);
   Run majority = Apograph(Demo().Args({"apparatus", "--table", "sun-eq", "--format", "csv"}));

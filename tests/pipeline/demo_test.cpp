@@ -28,7 +28,8 @@ struct DemoCorpus {
   DemoCorpus() {
     std::vector<Transcription> all;
     for (const char* s : {"A", "B", "C", "D", "E"}) {
-      auto parsed = ReadTranscriptionFile(std::string(APOGRAPH_SOURCE_DIR) + "/corpora/demo/" + s + ".apo");
+      auto parsed =
+          ReadTranscriptionFile(std::string(APOGRAPH_SOURCE_DIR) + "/corpora/demo/" + s + ".apo");
       all.insert(all.end(), parsed.tables.begin(), parsed.tables.end());
     }
     store::Import(db, all);
@@ -83,7 +84,8 @@ const deviation::FindingCell* CellAt(const deviation::Finding& f, int arg) {
 }
 
 /// The parameter value in the trade's notation at `places` places, exact.
-bool ParamIs(const pipeline::ColumnReference& r, const std::string& name, const std::string& value) {
+bool ParamIs(const pipeline::ColumnReference& r, const std::string& name,
+             const std::string& value) {
   const int k = r.model->ParamIndex(name);
   if (k < 0) return false;
   const Sexagesimal want = Sexagesimal::ParseOrThrow(value);
@@ -105,7 +107,8 @@ TEST_CASE("the demo tables' references are the author's models and practices (TR
     const auto& t = demo.Table("sun-eq").transcriptions.at(0);
     model::Practice grid6;
     grid6.grid = 6;
-    const auto eccentric = model::Recompute(*model::FindBuiltinModel("solar-eccentric"), {2 + 16.0 / 60}, t, 0, grid6);
+    const auto eccentric =
+        model::Recompute(*model::FindBuiltinModel("solar-eccentric"), {2 + 16.0 / 60}, t, 0, grid6);
     const auto chosen = r.Recompute(t);
     for (std::size_t row = 0; row < t.rows.size(); ++row) {
       CAPTURE(row);
@@ -117,7 +120,8 @@ TEST_CASE("the demo tables' references are the author's models and practices (TR
     CHECK(r.practice.rounding == Rounding::kNearest);
     CHECK(r.practice.places == 2);
     CHECK(r.source == pipeline::ReferenceSource::kIdentified);
-    CHECK(r.description.find("2;16, rounded to 2 places, exact every 6 and linear between") != std::string::npos);
+    CHECK(r.description.find("2;16, rounded to 2 places, exact every 6 and linear between") !=
+          std::string::npos);
   }
   SUBCASE("decl: declination, obliquity 23;32,40, rounded") {
     const auto& r = demo.Table("decl").references.at(0);
@@ -151,7 +155,8 @@ TEST_CASE("witness D of sun-eq: every copying slip of D, beta and alpha is found
   const auto& findings = d->findings;
   std::vector<Slip> lineage;
   for (const auto& slip : TruthSlips()) {
-    if (slip.table == "sun-eq" && (slip.who == "D" || slip.who == "beta" || slip.who == "alpha")) lineage.push_back(slip);
+    if (slip.table == "sun-eq" && (slip.who == "D" || slip.who == "beta" || slip.who == "alpha"))
+      lineage.push_back(slip);
   }
   // Two slips in neighbouring rows interact (D's run at 7-9 copies alpha's
   // slip at 10 into 9): there the class may be the other slip's.

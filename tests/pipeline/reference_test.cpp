@@ -44,7 +44,8 @@ TEST_CASE("a given reference and an identified one describe themselves") {
   given.params = {{"e", 2.5}};
   given.practice.grid = 6;
   const auto g = ResolveReferences({s.table}, given).at(0);
-  CHECK(g.description == "solar-eccentric e = 2;30, rounded to 2 places, exact every 6 and linear between");
+  CHECK(g.description ==
+        "solar-eccentric e = 2;30, rounded to 2 places, exact every 6 and linear between");
   CHECK(g.how == "given");
   CHECK(g.ModelText() == "solar-eccentric e=2.5 (2;30)");
 
@@ -55,7 +56,8 @@ TEST_CASE("a given reference and an identified one describe themselves") {
   CHECK(a.source == ReferenceSource::kIdentified);
   CHECK(a.params.at(0) == doctest::Approx(2.5).epsilon(1e-15));
   CHECK(a.exact == 90);
-  CHECK(a.how == "identified from witness A (90 of 90 entries exact, score " + a.how.substr(a.how.find("score ") + 6));
+  CHECK(a.how == "identified from witness A (90 of 90 entries exact, score " +
+                     a.how.substr(a.how.find("score ") + 6));
   CHECK(a.how.find("parameters brought to 1 sexagesimal place") != std::string::npos);
 
   ReferenceRequest bad = given;
@@ -67,12 +69,14 @@ TEST_CASE("a given reference and an identified one describe themselves") {
 
 TEST_CASE("judgements: slips are errors, the author's departures are not, look-alikes are common") {
   auto s = Table();
-  const auto conf = s.Row(30);   // tens of seconds 4 <-> 5 or the like: one symbol
-  const auto far = s.Row(50);    // a distinctive error: minutes and seconds changed
+  const auto conf = s.Row(30);  // tens of seconds 4 <-> 5 or the like: one symbol
+  const auto far = s.Row(50);   // a distinctive error: minutes and seconds changed
   const auto blank = s.Row(70);
   const auto original = *s.table.rows[conf].cells[0].value;
   const auto digits = original.FractionDigits();
-  s.Set(conf, Sexagesimal::FromParts(false, original.IntegerPart(), {digits[0], (digits[1] + 10) % 60}).ToString());
+  s.Set(conf,
+        Sexagesimal::FromParts(false, original.IntegerPart(), {digits[0], (digits[1] + 10) % 60})
+            .ToString());
   s.Set(far, "0;0,1");
   s.Set(blank, "_");
   ReferenceRequest r;
@@ -116,7 +120,8 @@ TEST_CASE("judgements: a departure the author's practice explains is a right rea
   r.model = "solar-eccentric";
   r.params = {{"e", 2.5}};
   const auto refs = ResolveReferences({s.table}, r);
-  const auto found = ExplainWitness(s.table, refs, deviation::FindNumeralScript("hindu-arabic", kScripts));
+  const auto found =
+      ExplainWitness(s.table, refs, deviation::FindNumeralScript("hindu-arabic", kScripts));
   REQUIRE(found.findings.size() == 1);
   INFO(found.findings[0].Note("A"));
   REQUIRE(found.findings[0].best().cls == deviation::SlipClass::kComputational);

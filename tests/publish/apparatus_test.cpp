@@ -12,11 +12,11 @@
 #include <tinyxml2.h>
 #endif
 
+#include "../store/store_test_util.hpp"
 #include "collate/collation.hpp"
 #include "lineage/synthetic.hpp"
 #include "store/apparatus_store.hpp"
 #include "store/edition_store.hpp"
-#include "../store/store_test_util.hpp"
 
 namespace collate = apograph::collate;
 namespace publish = apograph::publish;
@@ -98,20 +98,26 @@ TEST_CASE("TEI P5 output is well formed and carries app, lem, rdg and listWit") 
   auto* root = doc.RootElement();
   CHECK(std::string(root->Name()) == "TEI");
   CHECK(std::string(root->Attribute("xmlns")) == "http://www.tei-c.org/ns/1.0");
-  auto* list = root->FirstChildElement("teiHeader")->FirstChildElement("fileDesc")->FirstChildElement("sourceDesc")
+  auto* list = root->FirstChildElement("teiHeader")
+                   ->FirstChildElement("fileDesc")
+                   ->FirstChildElement("sourceDesc")
                    ->FirstChildElement("listWit");
   REQUIRE(list);
   int witnesses = 0;
-  for (auto* w = list->FirstChildElement("witness"); w; w = w->NextSiblingElement("witness")) ++witnesses;
+  for (auto* w = list->FirstChildElement("witness"); w; w = w->NextSiblingElement("witness"))
+    ++witnesses;
   CHECK(witnesses == 5);
-  CHECK(std::string(list->FirstChildElement("witness")->FirstChildElement("idno")->GetText()) == "Cod. A <7>");
-  auto* table = root->FirstChildElement("text")->FirstChildElement("body")->FirstChildElement("table");
+  CHECK(std::string(list->FirstChildElement("witness")->FirstChildElement("idno")->GetText()) ==
+        "Cod. A <7>");
+  auto* table =
+      root->FirstChildElement("text")->FirstChildElement("body")->FirstChildElement("table");
   REQUIRE(table);
   int apps = 0, rows = 0;
   std::string wit_b;
   for (auto* row = table->FirstChildElement("row"); row; row = row->NextSiblingElement("row")) {
     ++rows;
-    for (auto* cell = row->FirstChildElement("cell"); cell; cell = cell->NextSiblingElement("cell")) {
+    for (auto* cell = row->FirstChildElement("cell"); cell;
+         cell = cell->NextSiblingElement("cell")) {
       if (auto* app = cell->FirstChildElement("app")) {
         ++apps;
         REQUIRE(app->FirstChildElement("lem"));
@@ -140,10 +146,13 @@ TEST_CASE("LaTeX output: a document with the table and its apparatus notes") {
   CHECK(tex.find("\\textsuperscript{4}") == std::string::npos);
   CHECK(tex.rfind("\\end{document}\n") == tex.size() - 15);
   if (std::system("command -v pdflatex > /dev/null 2>&1") == 0) {
-    const auto dir = std::filesystem::temp_directory_path() / ("apograph-latex-test-" + std::to_string(::getpid()));
+    const auto dir = std::filesystem::temp_directory_path() /
+                     ("apograph-latex-test-" + std::to_string(::getpid()));
     std::filesystem::create_directories(dir);
     std::ofstream(dir / "t.tex") << tex;
-    const std::string cmd = "cd '" + dir.string() + "' && pdflatex -interaction=nonstopmode -halt-on-error t.tex > /dev/null 2>&1";
+    const std::string cmd =
+        "cd '" + dir.string() +
+        "' && pdflatex -interaction=nonstopmode -halt-on-error t.tex > /dev/null 2>&1";
     CHECK(std::system(cmd.c_str()) == 0);
     CHECK(std::filesystem::exists(dir / "t.pdf"));
     std::filesystem::remove_all(dir);
@@ -166,7 +175,8 @@ TEST_CASE("an editor's override is stored, applied, and withdrawn (round trip)")
     apograph::store::Database db(tmp.path());
     apograph::store::Import(db, ws);
     const std::string adopted = ws[1].rows[2].cells[0].value->ToString();  // B's reading at row 3
-    apograph::store::SaveApparatusDecision(db, {"T1", "3", "c1", adopted, "B and C preserve the author's slip", ""});
+    apograph::store::SaveApparatusDecision(
+        db, {"T1", "3", "c1", adopted, "B and C preserve the author's slip", ""});
     apograph::store::SaveApparatusDecision(db, {"T1", "5", "c1", "9;9", "", ""});
   }
   apograph::store::Database db(tmp.path());
@@ -187,7 +197,10 @@ TEST_CASE("an editor's override is stored, applied, and withdrawn (round trip)")
   saved = apograph::store::LoadApparatusOverrides(db, "T1");
   REQUIRE(saved.size() == 1);
   CHECK(saved[0].row_argument == "5");
-  CHECK_THROWS_AS(apograph::store::SaveApparatusDecision(db, {"T9", "3", "c1", "1", "", ""}), apograph::InputError);
-  CHECK_THROWS_AS(publish::BuildApparatus(collate::Collate(ws), {}, {{"99", "c1", "1", ""}}), apograph::InputError);
-  CHECK_THROWS_AS(publish::BuildApparatus(collate::Collate(ws), {}, {{"3", "nope", "1", ""}}), apograph::InputError);
+  CHECK_THROWS_AS(apograph::store::SaveApparatusDecision(db, {"T9", "3", "c1", "1", "", ""}),
+                  apograph::InputError);
+  CHECK_THROWS_AS(publish::BuildApparatus(collate::Collate(ws), {}, {{"99", "c1", "1", ""}}),
+                  apograph::InputError);
+  CHECK_THROWS_AS(publish::BuildApparatus(collate::Collate(ws), {}, {{"3", "nope", "1", ""}}),
+                  apograph::InputError);
 }

@@ -4,10 +4,10 @@
 #include <nlohmann/json.hpp>
 #include <string>
 
-#include "lineage/synthetic.hpp"
-#include "store/edition_store.hpp"
 #include "../store/store_test_util.hpp"
 #include "cli_runner.hpp"
+#include "lineage/synthetic.hpp"
+#include "store/edition_store.hpp"
 
 namespace {
 
@@ -62,7 +62,8 @@ TEST_CASE("collate, stemma and apparatus from the command line") {
   CHECK(bad.code == 2);
   CHECK(bad.out.find("--override") != std::string::npos);
 
-  auto tei = Apograph("apparatus --table T1 --format tei --override '2:c1=7;7' --note 'editor test'" + db);
+  auto tei =
+      Apograph("apparatus --table T1 --format tei --override '2:c1=7;7' --note 'editor test'" + db);
   CHECK(tei.code == 0);
   CHECK(tei.out.find("<lem type=\"emendation\">7;7</lem>") != std::string::npos);
   auto text = Apograph("apparatus --table T1" + db);  // the override stays

@@ -86,9 +86,9 @@ TEST_CASE("a row of cells the program cannot read is a store error, not a crash"
   TempDb file("badrow");
   Database db(file.path());
   store::Import(db, {MakeTranscription("sun-eq", "K", 1)});
-  for (const char* cells : {R"([["1",1],["0;1,2",6]])",                        // a cell short
-                            R"([["1",1],["0;1,2",6],["0;1,2",18],["1",2]])",   // a cell too many
-                            R"([["1",1],["0;x",6],["0;1,2",18]])",             // not a value
+  for (const char* cells : {R"([["1",1],["0;1,2",6]])",                       // a cell short
+                            R"([["1",1],["0;1,2",6],["0;1,2",18],["1",2]])",  // a cell too many
+                            R"([["1",1],["0;x",6],["0;1,2",18]])",            // not a value
                             R"([["1",1],["?",6,{"state":"smudged"}],["0;1,2",18]])",
                             R"([["1",1],["?",6,{"colour":"red"}],["0;1,2",18]])",
                             R"([["1",1],["?",6,{"state":"illegible","value":"1"}],["0;1,2",18]])",
@@ -96,7 +96,7 @@ TEST_CASE("a row of cells the program cannot read is a store error, not a crash"
                             R"([["1",1],["0;1,2",6,{"places":13}],["0;1,2",18]])",
                             R"([["1",-1],["0;1,2",6],["0;1,2",18]])",
                             R"([["1",1],["0;1,2",6,{"line":-3}],["0;1,2",18]])",
-                            R"([["1",1],["0;1,2",6],["0;1,2\u00"]])",       // not JSON
+                            R"([["1",1],["0;1,2",6],["0;1,2\u00"]])",  // not JSON
                             R"([["1",1],["0;1,2",6],["0;1,2",18]] ])"}) {
     const std::string text = cells;
     CAPTURE(text);
@@ -105,7 +105,8 @@ TEST_CASE("a row of cells the program cannot read is a store error, not a crash"
   }
   // Not an array: the database refuses it.
   CHECK_THROWS_AS(db.Execute(R"(UPDATE cell_row SET cells = '{"raw":"1"}')"), store::StoreError);
-  db.Execute(R"(UPDATE cell_row SET cells = '[ ["1" , 1] , ["0;1,2",6,{ }], ["\u0030;1,2",18] ] ')");
+  db.Execute(
+      R"(UPDATE cell_row SET cells = '[ ["1" , 1] , ["0;1,2",6,{ }], ["\u0030;1,2",18] ] ')");
   const auto back = store::Load(db, "sun-eq", "K");
   CHECK(back.rows[0].cells[1].raw == "0;1,2");
 }

@@ -36,7 +36,8 @@ TEST_CASE("emendations are recorded once, listed, and decided by the editor") {
   testing::TempDb file("deviation");
   Database db(file.path());
   Import(db, {testing::MakeTranscription("solar", "A")});
-  auto first = RecordEmendations(db, {Proposal(3, "0;44"), Proposal(5, "0;50", 1), Proposal(6, "0;52", 1)});
+  auto first =
+      RecordEmendations(db, {Proposal(3, "0;44"), Proposal(5, "0;50", 1), Proposal(6, "0;52", 1)});
   CHECK(first.added == 3);
   auto again = RecordEmendations(db, {Proposal(3, "0;44")});
   CHECK(again.added == 0);

@@ -41,14 +41,18 @@ TEST_CASE("migrations are applied once and recorded in user_version") {
 
 TEST_CASE("a database newer than the program is refused") {
   TempDb file("newer");
-  { Database db(file.path()); db.Execute("PRAGMA user_version = 999"); }
+  {
+    Database db(file.path());
+    db.Execute("PRAGMA user_version = 999");
+  }
   CHECK_THROWS_AS(Database(file.path()), StoreError);
 }
 
 TEST_CASE("values are written exactly as Sexagesimal::ToString writes them") {
   char buffer[store::kValueTextSize];
   for (const char* text : {"0", "2;23,10", "-0;5", "0;0,7", "90;0", "1,30;0,0", "59;59,59,59,59,59",
-                           "-123456789012;0,0,0,0,0,0,0,0,0,0,0,1", "999999999999;59,59,59,59,59,59,59,59,59,59,59,59"}) {
+                           "-123456789012;0,0,0,0,0,0,0,0,0,0,0,1",
+                           "999999999999;59,59,59,59,59,59,59,59,59,59,59,59"}) {
     const auto v = Sexagesimal::ParseOrThrow(text);
     CHECK(store::FormatValue(v, buffer) == v.ToString());
   }
@@ -132,7 +136,10 @@ TEST_CASE("re-importing an edited transcription keeps both revisions") {
 
 TEST_CASE("an error in the second table leaves the database byte for byte unchanged") {
   TempDb file("fail");
-  { Database db(file.path()); store::Import(db, {MakeTranscription("sun-eq", "K")}); }
+  {
+    Database db(file.path());
+    store::Import(db, {MakeTranscription("sun-eq", "K")});
+  }
   const std::string before = file.Bytes();
   REQUIRE_FALSE(before.empty());
 
@@ -151,8 +158,9 @@ TEST_CASE("an error in the second table leaves the database byte for byte unchan
   }
   SUBCASE("the same table of a witness twice in one import") {
     Database db(file.path());
-    CHECK_THROWS_AS(store::Import(db, {MakeTranscription("moon", "K"), MakeTranscription("moon", "K")}),
-                    InputError);
+    CHECK_THROWS_AS(
+        store::Import(db, {MakeTranscription("moon", "K"), MakeTranscription("moon", "K")}),
+        InputError);
   }
   CHECK(file.Bytes() == before);
 }
@@ -162,18 +170,21 @@ TEST_CASE("CHECK and foreign key constraints reject bad rows") {
   Database db(file.path());
   store::Import(db, {MakeTranscription("sun-eq", "K", 2)});
   const std::string rows = "INSERT INTO cell_row(revision_id, row_index, line, cells) VALUES ";
-  CHECK_NOTHROW(db.Execute(rows + R"((1, 50, 1, '[["1",1],["1",3],["?",5,{"state":"illegible"}]]'))"));
+  CHECK_NOTHROW(
+      db.Execute(rows + R"((1, 50, 1, '[["1",1],["1",3],["?",5,{"state":"illegible"}]]'))"));
   CHECK_THROWS_AS(db.Execute(rows + R"((1, 51, 1, '{"raw":"1"}'))"), StoreError);  // not an array
   CHECK_THROWS_AS(db.Execute(rows + "(1, -1, 1, '[]')"), StoreError);
   CHECK_THROWS_AS(db.Execute(rows + "(1, 53, -1, '[]')"), StoreError);
   CHECK_THROWS_AS(db.Execute(rows + "(99, 0, 1, '[]')"), StoreError);  // no such revision
   CHECK_THROWS_AS(db.Execute(rows + "(1, 0, 1, '[]')"), StoreError);   // the row is there already
   // Cells are written by the import only: `cell` and `cell_mark` are views.
-  CHECK_THROWS_AS(db.Execute("INSERT INTO cell(revision_id, row_index, col, raw) VALUES(1, 60, 0, '1')"),
-                  StoreError);
+  CHECK_THROWS_AS(
+      db.Execute("INSERT INTO cell(revision_id, row_index, col, raw) VALUES(1, 60, 0, '1')"),
+      StoreError);
   CHECK_THROWS_AS(db.Execute("DELETE FROM cell_mark"), StoreError);
-  CHECK_THROWS_AS(db.Execute("INSERT INTO revision(transcription_id, number, work_id) VALUES(1, 0, 'w')"),
-                  StoreError);
+  CHECK_THROWS_AS(
+      db.Execute("INSERT INTO revision(transcription_id, number, work_id) VALUES(1, 0, 'w')"),
+      StoreError);
   CHECK_THROWS_AS(db.Execute("INSERT INTO edition_table(id, work_id) VALUES('t', 'no-such-work')"),
                   StoreError);
   CHECK_THROWS_AS(db.Execute("INSERT INTO witness(siglum) VALUES('')"), StoreError);
@@ -249,9 +260,9 @@ TEST_CASE("cells written otherwise than canonically keep raw text, value, places
   odd.state = CellState::kIllegible;
   odd.note = "l\xC3\xA4sst \"sich\" nicht lesen\n";
   odd.corrected_from = "0;1,\\2";
-  odd.places = 3;   // not the places of its column
-  odd.line = 40;    // not the line of its row
-  odd.column = 0;   // unknown
+  odd.places = 3;  // not the places of its column
+  odd.line = 40;   // not the line of its row
+  odd.column = 0;  // unknown
   t.rows[1].argument.doubtful = true;
   t.rows[1].argument.addition = apograph::Addition::kInterlinear;
   t.rows[2].cells[1].damaged = true;

@@ -35,15 +35,22 @@ std::string Content(Database& db) {
   dump("SELECT id, title, author FROM work ORDER BY id", 3);
   dump("SELECT id, work_id, title, kind FROM edition_table ORDER BY id", 4);
   dump("SELECT siglum, library, shelfmark, date, script, note FROM witness ORDER BY siglum", 6);
-  dump("SELECT table_id, siglum, number, row_count, cell_count, work_id, work_title, work_author, "
-       "table_title, table_kind, library, shelfmark, witness_date, script, witness_note, folios, "
-       "hand FROM current_revision ORDER BY table_id, siglum", 17);
-  dump("SELECT r.table_id, r.siglum, lc.position, lc.name, lc.unit, lc.places, lc.title, lc.arg2, "
-       "lc.start, lc.step FROM layout_column lc "
-       "JOIN current_revision r ON r.id = lc.revision_id ORDER BY 1, 2, 3", 10);
-  dump("SELECT table_id, siglum, row_index, col, column_name, raw, value, value_real, places, state, "
-       "damaged, doubtful, addition, corrected_from, note FROM current_cell "
-       "ORDER BY table_id, siglum, row_index, col", 15);
+  dump(
+      "SELECT table_id, siglum, number, row_count, cell_count, work_id, work_title, work_author, "
+      "table_title, table_kind, library, shelfmark, witness_date, script, witness_note, folios, "
+      "hand FROM current_revision ORDER BY table_id, siglum",
+      17);
+  dump(
+      "SELECT r.table_id, r.siglum, lc.position, lc.name, lc.unit, lc.places, lc.title, lc.arg2, "
+      "lc.start, lc.step FROM layout_column lc "
+      "JOIN current_revision r ON r.id = lc.revision_id ORDER BY 1, 2, 3",
+      10);
+  dump(
+      "SELECT table_id, siglum, row_index, col, column_name, raw, value, value_real, places, "
+      "state, "
+      "damaged, doubtful, addition, corrected_from, note FROM current_cell "
+      "ORDER BY table_id, siglum, row_index, col",
+      15);
   return out;
 }
 

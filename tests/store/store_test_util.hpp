@@ -2,6 +2,7 @@
 // Helpers for the store tests: a temporary database file and transcriptions
 // built in code.
 
+#include <unistd.h>
 #include <algorithm>
 #include <cstdio>
 #include <filesystem>
@@ -9,7 +10,6 @@
 #include <iterator>
 #include <string>
 #include <vector>
-#include <unistd.h>
 
 #include "edition/transcription.hpp"
 
@@ -30,7 +30,6 @@ inline std::vector<std::string> ProjectFiles() {
   std::sort(files.begin(), files.end());
   return files;
 }
-
 
 /// A fresh database path in the temp folder, removed (with its journal files)
 /// at the end of the test.
@@ -55,7 +54,8 @@ class TempDb {
 
  private:
   void Remove() {
-    for (const char* suffix : {"", "-wal", "-shm", "-journal"}) std::remove((path_ + suffix).c_str());
+    for (const char* suffix : {"", "-wal", "-shm", "-journal"})
+      std::remove((path_ + suffix).c_str());
   }
   std::string path_;
 };
@@ -82,8 +82,10 @@ inline Transcription MakeTranscription(const std::string& table_id, const std::s
   t.witness = {siglum, "Nordhafen, Town Library", "Cod. 112", "c. 1420", "hindu-arabic", "a note"};
   t.folios = "12r-13v";
   t.hand = "main hand";
-  t.argument = {"anomaly", "deg", 0, Sexagesimal::ParseOrThrow("1"), Sexagesimal::ParseOrThrow("1")};
-  t.columns = {{"equation", "deg", 2, "equation", std::nullopt}, {"diff", "deg", 2, "", std::nullopt}};
+  t.argument = {"anomaly", "deg", 0, Sexagesimal::ParseOrThrow("1"),
+                Sexagesimal::ParseOrThrow("1")};
+  t.columns = {{"equation", "deg", 2, "equation", std::nullopt},
+               {"diff", "deg", 2, "", std::nullopt}};
   t.source_file = table_id + "-" + siglum + ".apo";
   t.source_text = "@table " + table_id + "\n";
   for (int i = 0; i < rows; ++i) {
@@ -91,7 +93,8 @@ inline Transcription MakeTranscription(const std::string& table_id, const std::s
     Row r;
     r.line = line;
     r.argument = ReadCell(std::to_string(i + 1), 0, line, 1);
-    r.cells.push_back(ReadCell("0;" + std::to_string(2 * i % 60) + "," + std::to_string(5 * i % 60), 2, line, 6));
+    r.cells.push_back(
+        ReadCell("0;" + std::to_string(2 * i % 60) + "," + std::to_string(5 * i % 60), 2, line, 6));
     r.cells.push_back(ReadCell("0;2," + std::to_string(i % 60), 2, line, 18));
     t.rows.push_back(r);
   }

@@ -54,12 +54,14 @@ TEST_CASE("reading a file: missing file, directory and empty file are input erro
   const std::string missing = std::string(APOGRAPH_SOURCE_DIR) + "/tests/bad/no-such-file.apo";
   CHECK_THROWS_WITH_AS(apograph::ReadTranscriptionFile(missing),
                        (missing + ": error: expected a readable file, found none (missing or "
-                                  "not permitted)").c_str(),
+                                  "not permitted)")
+                           .c_str(),
                        apograph::InputError);
   const std::string folder = std::string(APOGRAPH_SOURCE_DIR) + "/tests/bad";
-  CHECK_THROWS_WITH_AS(apograph::ReadTranscriptionFile(folder),
-                       (folder + ": error: expected a transcription file, found a directory").c_str(),
-                       apograph::InputError);
+  CHECK_THROWS_WITH_AS(
+      apograph::ReadTranscriptionFile(folder),
+      (folder + ": error: expected a transcription file, found a directory").c_str(),
+      apograph::InputError);
   const std::string empty = folder + "/empty.apo";
   CHECK_THROWS_WITH_AS(apograph::ReadTranscriptionFile(empty),
                        (empty + ": error: expected a transcription, found an empty file").c_str(),

@@ -78,7 +78,8 @@ TEST_CASE("CSV options: work id, places by option allow blank-separated places")
 
 TEST_CASE("CSV errors are positioned") {
   CHECK(ErrorOf("a,e\n1,\"0;4,10\"\n2,\"0;4\"\n") ==
-        "k.csv:3:4: error: expected 2 fractional places like the first reading of column 'e' (line 2), "
+        "k.csv:3:4: error: expected 2 fractional places like the first reading of column 'e' (line "
+        "2), "
         "found '0;4' (1 fractional place)\n"
         "2,\"0;4\"\n"
         "   ^");
@@ -99,7 +100,8 @@ TEST_CASE("CSV errors are positioned") {
         "1,\"0;4\n"
         "  ^");
   CHECK(ErrorOf("a,e\n1,0;4\"x\n") ==
-        "k.csv:2:6: error: expected a field without '\"' (quote the whole field and double the quote), "
+        "k.csv:2:6: error: expected a field without '\"' (quote the whole field and double the "
+        "quote), "
         "found '\"'\n"
         "1,0;4\"x\n"
         "     ^");
@@ -108,16 +110,19 @@ TEST_CASE("CSV errors are positioned") {
         "1,x\n"
         "  ^");
   CHECK(ErrorOf("a\n1\n") ==
-        "k.csv:1:2: error: expected a header naming the argument and at least one column, found 1 field\n"
+        "k.csv:1:2: error: expected a header naming the argument and at least one column, found 1 "
+        "field\n"
         "a\n"
         " ^");
   CHECK(ErrorOf("") == "k.csv: error: expected a CSV file, found an empty file");
   auto bad = Options();
   bad.table_id = "two words";
-  CHECK(ErrorOf("a,e\n1,2\n", bad) == "--table: error: expected a table id without blanks, found 'two words'");
+  CHECK(ErrorOf("a,e\n1,2\n", bad) ==
+        "--table: error: expected a table id without blanks, found 'two words'");
   bad = Options();
   bad.column_places["x"] = 2;
-  CHECK(ErrorOf("a,e\n1,2\n", bad) == "--places: error: expected a column of the header (a, e), found 'x'");
+  CHECK(ErrorOf("a,e\n1,2\n", bad) ==
+        "--places: error: expected a column of the header (a, e), found 'x'");
 }
 
 TEST_CASE("WriteCsv quotes readings with commas and reads back to the same cells") {

@@ -12,8 +12,8 @@ namespace {
 
 std::vector<std::filesystem::path> Examples() {
   std::vector<std::filesystem::path> files;
-  for (const auto& entry :
-       std::filesystem::directory_iterator(std::string(APOGRAPH_SOURCE_DIR) + "/grammar/examples")) {
+  for (const auto& entry : std::filesystem::directory_iterator(std::string(APOGRAPH_SOURCE_DIR) +
+                                                               "/grammar/examples")) {
     if (entry.path().extension() == ".apo") files.push_back(entry.path());
   }
   std::sort(files.begin(), files.end());

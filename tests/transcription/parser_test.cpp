@@ -78,7 +78,8 @@ TEST_CASE("readings: trade notation, blank-separated places, degree form, states
                           "8 | 0 ? 10\n"
                           "9 | ?\n"
                           "10 | _\n"
-                          "11 | \xE2\x88\x92" "0;5,0\n");
+                          "11 | \xE2\x88\x92"
+                          "0;5,0\n");
   const auto& rows = file.tables.at(0).rows;
   REQUIRE(rows.size() == 11);
   auto cell = [&](int i) { return rows.at(static_cast<std::size_t>(i)).cells.at(0); };
@@ -149,17 +150,19 @@ TEST_CASE("a grid table keeps its column argument and arg2 values") {
 }
 
 TEST_CASE("several tables and witnesses in one file, with their own source text") {
-  const std::string text = std::string(kHeader) +
-                           "# first\n@table a\n@argument x\n@column c\n@rows\n1 | 2\n# inside\n2 | 3\n"
-                           "# belongs to no table\n"
-                           "@witness L\n@table a\n@argument x\n@column c\n@rows\n1 | 2\n";
+  const std::string text =
+      std::string(kHeader) +
+      "# first\n@table a\n@argument x\n@column c\n@rows\n1 | 2\n# inside\n2 | 3\n"
+      "# belongs to no table\n"
+      "@witness L\n@table a\n@argument x\n@column c\n@rows\n1 | 2\n";
   const auto file = Parse(text);
   REQUIRE(file.tables.size() == 2);
   CHECK(file.tables[0].witness.siglum == "K");
   CHECK(file.tables[1].witness.siglum == "L");
   CHECK(file.tables[1].witness.library.empty());  // a new @witness starts afresh
   CHECK(file.tables[1].work.id == "harbour");     // the work carries over
-  CHECK(file.tables[0].source_text == "@table a\n@argument x\n@column c\n@rows\n1 | 2\n# inside\n2 | 3");
+  CHECK(file.tables[0].source_text ==
+        "@table a\n@argument x\n@column c\n@rows\n1 | 2\n# inside\n2 | 3");
   CHECK(file.tables[1].source_text == "@table a\n@argument x\n@column c\n@rows\n1 | 2");
 }
 
@@ -167,7 +170,8 @@ TEST_CASE("provenance: lines and columns are 1-based, columns count characters")
   const auto file = Parse(std::string(kHeader) +
                           "@table t title=\"\xC3\xA9t\xC3\xA9\"\n@argument a\n@column c places=1\n"
                           "@column d places=1\n@rows\n"
-                          "  1 | 2\xC2\xB0" "30' | 0;5 # \xC3\xA9\n");
+                          "  1 | 2\xC2\xB0"
+                          "30' | 0;5 # \xC3\xA9\n");
   const auto& row = file.tables.at(0).rows.at(0);
   CHECK(row.line == 8);
   CHECK(row.argument.line == 8);
@@ -178,8 +182,9 @@ TEST_CASE("provenance: lines and columns are 1-based, columns count characters")
 }
 
 TEST_CASE("CR LF line ends and a byte order mark are accepted") {
-  const auto file = Parse("\xEF\xBB\xBF@work w\r\n@witness K\r\n@table t\r\n@argument a\r\n"
-                          "@column c\r\n@rows\r\n1 | 2\r\n");
+  const auto file = Parse(
+      "\xEF\xBB\xBF@work w\r\n@witness K\r\n@table t\r\n@argument a\r\n"
+      "@column c\r\n@rows\r\n1 | 2\r\n");
   CHECK(file.tables.at(0).rows.at(0).cells.at(0).raw == "2");
   CHECK(file.tables.at(0).work.id == "w");
 }
@@ -206,14 +211,16 @@ TEST_CASE("arguments that repeat or break the declared step are warnings, rows k
 }
 
 TEST_CASE("values at the limits of exact numbers are errors or skipped checks, never crashes") {
-  const std::string layout = std::string(kHeader) + "@table t\n@argument a start=999999999999 step=999999999999\n"
-                                                    "@column c\n@rows\n";
+  const std::string layout = std::string(kHeader) +
+                             "@table t\n@argument a start=999999999999 step=999999999999\n"
+                             "@column c\n@rows\n";
   const auto file = Parse(layout + "1 | 2\n2 | 3\n3 | 4\n");  // start + 2 * step overflows
   CHECK(file.tables.at(0).rows.size() == 3);
   try {
     ParseTranscription(layout + "1 | 1000000000000\n", "t.apo");
     FAIL("no error");
   } catch (const apograph::InputError& e) {
-    CHECK(e.diagnostics().front().message == "expected an integer part below 10^12, found '1000000000000'");
+    CHECK(e.diagnostics().front().message ==
+          "expected an integer part below 10^12, found '1000000000000'");
   }
 }

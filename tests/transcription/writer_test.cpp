@@ -29,8 +29,8 @@ void CheckRoundTrip(const std::vector<apograph::Transcription>& tables) {
 
 TEST_CASE("every grammar example survives write and re-parse") {
   std::vector<std::filesystem::path> files;
-  for (const auto& entry :
-       std::filesystem::directory_iterator(std::string(APOGRAPH_SOURCE_DIR) + "/grammar/examples")) {
+  for (const auto& entry : std::filesystem::directory_iterator(std::string(APOGRAPH_SOURCE_DIR) +
+                                                               "/grammar/examples")) {
     if (entry.path().extension() == ".apo") files.push_back(entry.path());
   }
   std::sort(files.begin(), files.end());
@@ -43,7 +43,8 @@ TEST_CASE("every grammar example survives write and re-parse") {
 
 TEST_CASE("the writer keeps marks, states and metadata, and escapes quotes") {
   const auto file = apograph::ParseTranscription(
-      "@work w title=\"a \\\"b\\\" \\\\ c\"\n@witness K\n@table t\n@argument a places=1 start=0;30 step=0;30\n"
+      "@work w title=\"a \\\"b\\\" \\\\ c\"\n@witness K\n@table t\n@argument a places=1 start=0;30 "
+      "step=0;30\n"
       "@column c places=2\n@rows\n"
       "0;30 | 0;1,? {was 0;1,2} {damaged} {doubt} {interlinear} {note \"said \\\"so\\\"\"}\n",
       "t.apo");
