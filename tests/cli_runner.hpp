@@ -13,6 +13,7 @@
 #include <vector>
 
 #include "cli/command.hpp"
+#include "test_paths.hpp"
 
 namespace apograph::testing {
 

@@ -12,6 +12,7 @@
 #include "publish/report.hpp"
 #include "store/database.hpp"
 #include "store/edition_store.hpp"
+#include "support/data_dir.hpp"
 #include "support/input_error.hpp"
 #include "transcription/parser.hpp"
 
@@ -113,7 +114,7 @@ int RunDemo(const std::vector<std::string>& args, Io& io) {
   std::size_t findings = 6;
   po::options_description options("options");
   options.add_options()("corpus",
-                        po::value(&corpus)->default_value(std::string(APOGRAPH_DATA_DIR) + "/demo"),
+                        po::value(&corpus)->default_value(DataDir() + "/demo"),
                         "folder of the demo transcriptions")(
       "output", po::value(&output)->default_value("apograph-demo"),
       "folder for the database and files")("findings", po::value(&findings)->default_value(6),

@@ -6,6 +6,7 @@
 #include <map>
 #include <sstream>
 
+#include "support/data_dir.hpp"
 #include "support/input_error.hpp"
 
 namespace apograph::deviation {
@@ -234,7 +235,7 @@ NumeralScript LoadNumeralScript(const std::string& path) {
 
 std::string DefaultScriptDir() {
   if (const char* env = std::getenv("APOGRAPH_SCRIPTS"); env && *env) return env;
-  return std::string(APOGRAPH_DATA_DIR) + "/scripts";
+  return DataDir() + "/scripts";
 }
 
 NumeralScript FindNumeralScript(const std::string& name, const std::string& dir) {

@@ -7,6 +7,7 @@
 #include <limits>
 #include <sstream>
 
+#include "support/data_dir.hpp"
 #include "support/input_error.hpp"
 
 namespace apograph::estimate {
@@ -25,8 +26,7 @@ std::string CatalogEntry::AppliesToText() const {
 }
 
 std::string DefaultCatalogPath() {
-  const char* env = std::getenv("APOGRAPH_DATA");
-  return std::string(env && *env ? env : APOGRAPH_DATA_DIR) + "/catalog/parameters.tsv";
+  return DataDir() + "/catalog/parameters.tsv";
 }
 
 std::optional<std::vector<std::pair<std::string, std::string>>> ParseAppliesTo(

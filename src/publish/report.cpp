@@ -16,13 +16,6 @@ std::string Join(const std::vector<std::string>& items, const std::string& separ
   return out;
 }
 
-std::string Indent(const std::string& text, const std::string& prefix) {
-  std::string out;
-  std::istringstream in(text);
-  for (std::string line; std::getline(in, line);) out += prefix + line + "\n";
-  return out;
-}
-
 void Witnesses(const pipeline::TableAnalysis& a, std::ostream& out) {
   out << "Witnesses:\n";
   for (const auto& t : a.transcriptions) {

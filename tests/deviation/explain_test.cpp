@@ -4,6 +4,7 @@
 
 #include "deviation/numeral_script.hpp"
 #include "synthetic.hpp"
+#include "test_paths.hpp"
 
 using namespace apograph;
 using namespace apograph::deviation;

@@ -10,6 +10,7 @@
 #include <unistd.h>
 
 #include "support/input_error.hpp"
+#include "test_paths.hpp"
 
 using apograph::InputError;
 using namespace apograph::deviation;

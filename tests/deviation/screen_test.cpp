@@ -3,6 +3,7 @@
 #include <doctest/doctest.h>
 
 #include "synthetic.hpp"
+#include "test_paths.hpp"
 
 using namespace apograph;
 using namespace apograph::deviation;

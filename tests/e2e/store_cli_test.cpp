@@ -13,6 +13,7 @@
 #include <nlohmann/json.hpp>
 
 #include "cli_runner.hpp"
+#include "test_paths.hpp"
 
 namespace fs = std::filesystem;
 

@@ -10,6 +10,7 @@
 #include "store/edition_store.hpp"
 #include "store/model_store.hpp"
 #include "transcription/parser.hpp"
+#include "test_paths.hpp"
 
 namespace apograph {
 namespace {

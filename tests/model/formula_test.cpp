@@ -13,6 +13,7 @@
 #include "model/formula.hpp"
 #include "model_test_support.hpp"
 #include "support/input_error.hpp"
+#include "test_paths.hpp"
 
 namespace apograph::model {
 namespace {

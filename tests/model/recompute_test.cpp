@@ -10,6 +10,7 @@
 #include "model/check.hpp"
 #include "model_test_support.hpp"
 #include "support/input_error.hpp"
+#include "test_paths.hpp"
 
 namespace apograph::model {
 namespace {

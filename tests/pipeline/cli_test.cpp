@@ -10,6 +10,7 @@
 #include "cli_runner.hpp"
 #include "store/edition_store.hpp"
 #include "transcription/parser.hpp"
+#include "test_paths.hpp"
 
 namespace apograph {
 namespace {

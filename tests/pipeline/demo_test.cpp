@@ -15,6 +15,7 @@
 #include "pipeline/analysis.hpp"
 #include "store/edition_store.hpp"
 #include "transcription/parser.hpp"
+#include "test_paths.hpp"
 
 namespace apograph {
 namespace {

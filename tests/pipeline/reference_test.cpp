@@ -8,6 +8,7 @@
 #include "deviation/numeral_script.hpp"
 #include "pipeline/witness_findings.hpp"
 #include "support/input_error.hpp"
+#include "test_paths.hpp"
 
 namespace apograph::pipeline {
 namespace {

@@ -12,6 +12,7 @@
 #include <vector>
 
 #include "edition/transcription.hpp"
+#include "test_paths.hpp"
 
 namespace apograph::testing {
 

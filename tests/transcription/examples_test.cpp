@@ -7,6 +7,7 @@
 #include <sstream>
 
 #include "transcription/parser.hpp"
+#include "test_paths.hpp"
 
 namespace {
 

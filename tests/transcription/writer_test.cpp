@@ -7,6 +7,7 @@
 #include <filesystem>
 
 #include "transcription/parser.hpp"
+#include "test_paths.hpp"
 
 namespace {
 
