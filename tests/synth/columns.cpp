@@ -289,7 +289,8 @@ void MaybeDifference(TableKey& t, Rng& rng, const TableOptions& o) {
 }
 
 void MaybeUnexplained(TableKey& t, Rng& rng, const TableOptions& o) {
-  if (t.family == Family::kMeanMotion || !rng.Chance(o.share_unexplained_column)) return;
+  if (t.family == Family::kMeanMotion || t.argument2 || !rng.Chance(o.share_unexplained_column))
+    return;
   const Function f = DrawFunction(Family::kUnexplained, rng, o);
   ColumnKey c = ModelColumn({"auxiliary", "", "auxiliary"}, f, DrawPlaces(f, rng), Practice{});
   c.role = ColumnKey::Role::kUnexplained;
