@@ -71,6 +71,7 @@ nlohmann::ordered_json TranscriptionJson(const Transcription& t, int revision) {
         {"shelfmark", t.witness.shelfmark},
         {"date", t.witness.date},
         {"script", t.witness.script},
+        {"kind", ToString(t.witness.Kind())},
         {"note", t.witness.note}}},
       {"folios", t.folios},
       {"hand", t.hand},

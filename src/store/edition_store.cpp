@@ -100,14 +100,15 @@ Writer::Writer(Database& db)
                      "title = CASE WHEN excluded.title <> '' THEN excluded.title ELSE title END, "
                      "kind = CASE WHEN excluded.kind <> '' THEN excluded.kind ELSE kind END")),
       witness_(db.Prepare(
-          "INSERT INTO witness(siglum, library, shelfmark, date, script, note) "
-          "VALUES(?1, ?2, ?3, ?4, ?5, ?6) ON CONFLICT(siglum) DO UPDATE SET "
+          "INSERT INTO witness(siglum, library, shelfmark, date, script, note, kind) "
+          "VALUES(?1, ?2, ?3, ?4, ?5, ?6, ?7) ON CONFLICT(siglum) DO UPDATE SET "
           "library = CASE WHEN excluded.library <> '' THEN excluded.library ELSE library END, "
           "shelfmark = CASE WHEN excluded.shelfmark <> '' THEN excluded.shelfmark ELSE shelfmark "
           "END, "
           "date = CASE WHEN excluded.date <> '' THEN excluded.date ELSE date END, "
           "script = CASE WHEN excluded.script <> '' THEN excluded.script ELSE script END, "
-          "note = CASE WHEN excluded.note <> '' THEN excluded.note ELSE note END")),
+          "note = CASE WHEN excluded.note <> '' THEN excluded.note ELSE note END, "
+          "kind = CASE WHEN excluded.kind <> '' THEN excluded.kind ELSE kind END")),
       transcription_(
           db.Prepare("INSERT OR IGNORE INTO transcription(table_id, siglum) VALUES(?1, ?2)")),
       transcription_id_(
@@ -116,9 +117,9 @@ Writer::Writer(Database& db)
       revision_(db.Prepare(
           "INSERT INTO revision(transcription_id, number, source_file, source_text, row_count, "
           "cell_count, work_id, work_title, work_author, table_title, table_kind, library, "
-          "shelfmark, witness_date, script, witness_note, folios, hand) "
+          "shelfmark, witness_date, script, witness_note, folios, hand, witness_kind) "
           "VALUES(?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9, ?10, ?11, ?12, ?13, ?14, ?15, ?16, ?17, "
-          "?18)")),
+          "?18, ?19)")),
       layout_(db.Prepare(
           "INSERT INTO layout_column(revision_id, position, name, unit, places, title, arg2, "
           "start, step) VALUES(?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9)")),
@@ -138,7 +139,7 @@ void Writer::EnsureDescriptions(const Transcription& t) {
   table_.Bind(1, t.table_id).Bind(2, t.work.id).Bind(3, t.table_title).Bind(4, t.kind).Run();
   const auto& w = t.witness;
   witness_.Bind(1, w.siglum).Bind(2, w.library).Bind(3, w.shelfmark).Bind(4, w.date);
-  witness_.Bind(5, w.script).Bind(6, w.note).Run();
+  witness_.Bind(5, w.script).Bind(6, w.note).Bind(7, w.kind).Run();
 }
 
 std::int64_t Writer::EnsureTranscription(const Transcription& t) {
@@ -159,7 +160,7 @@ std::int64_t Writer::InsertRevision(const Transcription& t, std::int64_t transcr
   s.Bind(7, t.work.id).Bind(8, t.work.title).Bind(9, t.work.author);
   s.Bind(10, t.table_title).Bind(11, t.kind).Bind(12, t.witness.library);
   s.Bind(13, t.witness.shelfmark).Bind(14, t.witness.date).Bind(15, t.witness.script);
-  s.Bind(16, t.witness.note).Bind(17, t.folios).Bind(18, t.hand).Run();
+  s.Bind(16, t.witness.note).Bind(17, t.folios).Bind(18, t.hand).Bind(19, t.witness.kind).Run();
   return db_.LastInsertId();
 }
 

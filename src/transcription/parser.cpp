@@ -239,7 +239,7 @@ void Parser::SetWork(const DirectiveAst& d, std::string_view line) {
 
 void Parser::SetWitness(const DirectiveAst& d, std::string_view line) {
   RequireId(d, line, "a siglum");
-  CheckAttributes(d, line, {"library", "shelfmark", "date", "script", "note"});
+  CheckAttributes(d, line, {"library", "shelfmark", "date", "script", "note", "kind"});
   witness_ = WitnessInfo{};
   witness_.siglum = d.id;
   for (const auto& a : d.attributes) {
@@ -248,6 +248,20 @@ void Parser::SetWitness(const DirectiveAst& d, std::string_view line) {
     if (a.name == "date") witness_.date = a.value;
     if (a.name == "script") witness_.script = a.value;
     if (a.name == "note") witness_.note = a.value;
+    if (a.name == "kind") {
+      if (!WitnessKindFromString(a.value)) {
+        Fail(line, a.value_offset,
+             "expected kind=manuscript, print or modern-edition, found " + Quote(a.value));
+      }
+      witness_.kind = a.value;
+    }
+    if (a.name == "date" && !a.value.empty() && !ParseWitnessDate(a.value)) {
+      out_.warnings.push_back(Make(Severity::kWarning, line_no_, line, a.value_offset,
+                                   "expected a date such as 1461, c. 1420, 1450-1475 or late 15th "
+                                   "century, found " +
+                                       Quote(a.value) +
+                                       "; kept as written, but no date order is inferred from it"));
+    }
   }
   have_witness_ = true;
 }

@@ -42,6 +42,7 @@ void WriteWitness(std::string& out, const WitnessInfo& witness) {
   Attribute(out, "date", witness.date);
   Attribute(out, "script", witness.script);
   Attribute(out, "note", witness.note);
+  Attribute(out, "kind", witness.kind);
   out += '\n';
 }
 
