@@ -8,6 +8,7 @@
 #include <map>
 #include <set>
 
+#include "edition/witness_date.hpp"
 #include "synth/tradition_json.hpp"
 #include "test_support.hpp"
 #include "transcription/parser.hpp"
@@ -70,6 +71,11 @@ TEST_CASE("synth tradition: dates agree with the tree and the catalogue text cov
       CHECK(n.date.from <= n.date.year);
       CHECK(n.date.year <= n.date.to);
       CHECK_FALSE(n.date.text.empty());
+      // The project's reading of the catalogue date allows the true year.
+      const auto range = apograph::ParseWitnessDate(n.date.text);
+      REQUIRE(range.has_value());
+      CHECK(range->earliest <= n.date.year);
+      CHECK(n.date.year <= range->latest);
     }
   }
 }
