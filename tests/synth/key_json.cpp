@@ -77,6 +77,15 @@ json Departures(const ColumnKey& c, const ArgumentKey& a) {
   return out;
 }
 
+// Whether a run of positions goes backwards somewhere (a planet's
+// retrogradation), from the exact values.
+bool Regresses(const ColumnKey& c) {
+  for (std::size_t i = 1; i < c.exact.size(); ++i) {
+    if (std::remainder(c.exact[i] - c.exact[i - 1], 360.0) < 0) return true;
+  }
+  return false;
+}
+
 json Equivalents(const ColumnKey& c) {
   json out = json::array();
   for (const auto& e : EquivalentModels(c)) {
@@ -137,6 +146,9 @@ json ToJson(const ColumnKey& c, const ArgumentKey& a) {
   }
   if (c.derived) out["derived"] = Derived(*c.derived);
   if (c.mean_motion) out["mean_motion"] = MeanMotion(*c.mean_motion);
+  if (c.function.family == Family::kPlanetPosition && c.function.variant == "longitude") {
+    out["regresses"] = Regresses(c);
+  }
   return out;
 }
 

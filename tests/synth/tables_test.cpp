@@ -184,6 +184,18 @@ TEST_CASE("synth table: mean motions by every construction, irregular lists amon
   Near(static_cast<double>(irregular) / kSeeds, 0.65 * o.share_irregular_mean_motion, 0.08);
 }
 
+TEST_CASE("synth table: planets on their epicycles progress and, in most draws, regress") {
+  int regress = 0;
+  synth::TableOptions o;
+  o.family = synth::Family::kPlanetPosition;
+  for (std::uint64_t seed = 1; seed <= kSeeds; ++seed) {
+    const auto key = synth::ToJson(synth::DrawTable(seed, o).key);
+    regress += key["columns"][0]["regresses"].get<bool>() ? 1 : 0;
+  }
+  CHECK(regress > kSeeds / 2);
+  CHECK(regress < kSeeds);
+}
+
 TEST_CASE("synth table: displaced columns are never negative, magnitudes carry a rubric") {
   int displaced = 0, magnitude = 0;
   for (std::uint64_t seed = 1; seed <= kSeeds; ++seed) {

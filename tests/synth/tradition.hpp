@@ -147,4 +147,17 @@ struct Group {
 };
 std::vector<Group> Groups(const Tradition& tradition);
 
+/// A slip still visible in a witness's transcription, with the node that
+/// made it (the witness itself, a lost or surviving ancestor, a second
+/// exemplar, or the witness's text recognition).
+struct VisibleSlip {
+  Slip slip;
+  std::string by;
+};
+/// The slips of a witness's ancestry (exemplars and second exemplars) and
+/// its own, whose reading it still shows (or whose row it still lacks or
+/// repeats). Every cell where a witness without correctors in its ancestry
+/// differs from the author's table is one of these (tested).
+std::vector<VisibleSlip> VisibleSlips(const Tradition& tradition, int node);
+
 }  // namespace apograph::synth

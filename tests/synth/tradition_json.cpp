@@ -46,6 +46,17 @@ json Slips(const std::vector<Slip>& slips) {
   return out;
 }
 
+json Visible(const Tradition& t, const Node& n) {
+  json out = json::array();
+  if (!n.surviving) return out;
+  for (const auto& v : VisibleSlips(t, t.Find(n.name))) {
+    json s = ToJson(v.slip);
+    s["by"] = v.by;
+    out.push_back(s);
+  }
+  return out;
+}
+
 json NodeJson(const Tradition& t, const Node& n) {
   return {{"name", n.name},
           {"surviving", n.surviving},
@@ -65,7 +76,8 @@ json NodeJson(const Tradition& t, const Node& n) {
           {"contamination", ContaminationJson(t, n)},
           {"slips", Slips(n.slips)},
           {"recognition", Slips(n.recognition)},
-          {"corrections", Corrections(n)}};
+          {"corrections", Corrections(n)},
+          {"errors", Visible(t, n)}};
 }
 
 json Summary(const Tradition& t) {

@@ -108,3 +108,84 @@ std::vector<Group> Groups(const Tradition& t) {
 }
 
 }  // namespace apograph::synth
+
+namespace apograph::synth {
+namespace {
+
+// The node and every node its text came from (exemplars, second exemplars).
+std::vector<int> Sources(const Tradition& t, int node) {
+  std::set<int> seen;
+  std::vector<int> stack = {node};
+  while (!stack.empty()) {
+    const int n = stack.back();
+    stack.pop_back();
+    if (n < 0 || !seen.insert(n).second) continue;
+    const Node& x = t.nodes[static_cast<std::size_t>(n)];
+    stack.push_back(x.parent);
+    if (x.contamination) stack.push_back(x.contamination->second);
+  }
+  std::vector<int> out(seen.begin(), seen.end());
+  std::stable_sort(out.begin(), out.end(), [&](int a, int b) {
+    return t.nodes[static_cast<std::size_t>(a)].date.year <
+           t.nodes[static_cast<std::size_t>(b)].date.year;
+  });
+  return out;
+}
+
+using Key = std::tuple<std::string, int, std::string>;
+
+std::map<Key, std::string> ReadingsOf(const std::vector<TableText>& text,
+                                      std::map<std::pair<std::string, int>, int>* rows) {
+  std::map<Key, std::string> out;
+  for (const auto& table : text) {
+    for (std::size_t i = 0; i < table.text.rows.size(); ++i) {
+      const Row& row = table.text.rows[i];
+      const std::string& id = table.text.table_id;
+      if (rows) ++(*rows)[{id, table.origin[i]}];
+      out.emplace(Key{id, table.origin[i], "@argument"}, row.argument.raw);
+      for (std::size_t c = 0; c < row.cells.size(); ++c)
+        out.emplace(Key{id, table.origin[i], table.text.columns[c].name}, row.cells[c].raw);
+    }
+  }
+  return out;
+}
+
+bool Shows(const Slip& s, const std::map<Key, std::string>& mine,
+           const std::map<Key, std::string>& author,
+           const std::map<std::pair<std::string, int>, int>& rows) {
+  const auto count = rows.find({s.table, s.origin_row});
+  const int n = count == rows.end() ? 0 : count->second;
+  if (s.slip == SlipClass::kRowOmitted) return n == 0;
+  if (s.slip == SlipClass::kRowDuplicated) return n >= 2;
+  const Key key{s.table, s.origin_row, s.column};
+  const auto it = mine.find(key);
+  return it != mine.end() && it->second == s.after && it->second != author.at(key);
+}
+
+}  // namespace
+
+std::vector<VisibleSlip> VisibleSlips(const Tradition& t, int node) {
+  const Node& w = t.nodes[static_cast<std::size_t>(node)];
+  std::map<std::pair<std::string, int>, int> rows;
+  const auto mine = ReadingsOf(w.surviving ? w.transcribed : w.text, &rows);
+  const auto author = ReadingsOf(t.nodes[0].text, nullptr);
+  std::map<Key, VisibleSlip> found;  // later slips at a cell replace earlier ones
+  for (int n : Sources(t, node)) {
+    const Node& x = t.nodes[static_cast<std::size_t>(n)];
+    std::vector<const Slip*> slips;
+    for (const auto& s : x.slips) slips.push_back(&s);
+    if (n == node) {
+      for (const auto& s : x.recognition) slips.push_back(&s);
+    }
+    for (const Slip* s : slips) {
+      if (!Shows(*s, mine, author, rows)) continue;
+      const std::string column = s->slip == SlipClass::kRowDuplicated ? "+dup" : s->column;
+      found[Key{s->table, s->origin_row, column}] = VisibleSlip{*s, x.name};
+    }
+  }
+  std::vector<VisibleSlip> out;
+  for (auto& [key, v] : found) out.push_back(std::move(v));
+  return out;
+}
+
+}  // namespace apograph::synth

@@ -5,6 +5,7 @@
 #include <doctest/doctest.h>
 
 #include <cmath>
+#include <functional>
 #include <map>
 #include <set>
 
@@ -112,10 +113,41 @@ TEST_CASE("synth tradition: every witness's transcription parses") {
       const auto parsed =
           apograph::ParseTranscription(apograph::WriteTranscription(tables), "w.apo");
       REQUIRE(parsed.tables.size() == tables.size());
-      for (std::size_t k = 0; k < tables.size(); ++k)
+      for (std::size_t k = 0; k < tables.size(); ++k) {
         CHECK(parsed.tables[k].SameContent(tables[k]));
+        CHECK(std::string(apograph::ToString(parsed.tables[k].witness.Kind())) ==
+              synth::WitnessKindName(N(t, i).kind));
+      }
     }
   }
+}
+
+TEST_CASE("synth tradition: every difference from the author's table is a visible keyed slip") {
+  int checked = 0;
+  for (std::uint64_t seed = 1; seed <= 60; ++seed) {
+    const synth::Tradition t = synth::DrawTradition(seed, {});
+    const auto author = Cells(t.nodes[0].text[0]);
+    for (int i : t.Surviving()) {
+      // Correctors change entries without a slip: leave out witnesses with one among their sources.
+      std::function<bool(int)> corrected = [&](int n) {
+        if (n < 0) return false;
+        const auto& x = N(t, n);
+        return x.corrector != synth::CorrectorMode::kNone || corrected(x.parent) ||
+               (x.contamination && corrected(x.contamination->second));
+      };
+      if (corrected(i)) continue;
+      std::set<std::pair<int, std::string>> visible;
+      for (const auto& v : synth::VisibleSlips(t, i)) {
+        if (v.slip.table == "t1") visible.insert({v.slip.origin_row, v.slip.column});
+      }
+      for (const auto& [where, reading] : Cells(N(t, i).transcribed[0])) {
+        if (reading == author.at(where)) continue;
+        CHECK(visible.count(where));
+        ++checked;
+      }
+    }
+  }
+  CHECK(checked > 1000);
 }
 
 TEST_CASE("synth tradition: the key's tree, groups and copies agree with the nodes") {

@@ -181,8 +181,13 @@ std::vector<Transcription> Tradition::WitnessTables(int index) const {
   for (const auto& table : n.surviving ? n.transcribed : n.text) {
     Transcription t = table.text;
     t.work = work;
-    t.witness = {n.name, n.library, n.shelfmark, n.date.text, ApographScriptName(n.hand.script),
-                 ""};
+    t.witness = {n.name,
+                 n.library,
+                 n.shelfmark,
+                 n.date.text,
+                 ApographScriptName(n.hand.script),
+                 "",
+                 WitnessKindName(n.kind)};
     if (n.kind == WitnessKind::kModernEdition) t.witness.note = "modern edition (invented)";
     if (n.digitised)
       t.witness.note +=
