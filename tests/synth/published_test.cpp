@@ -145,3 +145,27 @@ TEST_CASE("synth epicycle facts of the trade") {
   CHECK(Sexagesimal::FromDouble(best, 1) == S("2;23"));
   CHECK(at == doctest::Approx(92.4).epsilon(0.001));
 }
+
+TEST_CASE("synth spherical and equant formulas against recalled table values") {
+  const auto p = [](const char* role, const char* text) {
+    return synth::MakeParameter(role, text, "round");
+  };
+  const synth::Function ra{synth::Family::kRightAscension, "", {p("obliquity", "23;51,20")}};
+  const synth::Function oa{
+      synth::Family::kObliqueAscension, "", {p("obliquity", "23;51,20"), p("latitude", "36")}};
+  // from memory: the ancient tables give 27;50 for the right ascension of
+  // 30 degrees and 19;12 for its oblique ascension at latitude 36.
+  CHECK(Rounded(ra, 30, 1) == S("27;50"));
+  CHECK(Rounded(oa, 30, 1) == S("19;12"));
+  // common practice: the right ascension equals the longitude at the
+  // equinoxes and solstices.
+  for (double l : {0.0, 90.0, 180.0, 270.0, 360.0})
+    CHECK(synth::Evaluate(ra, l) == doctest::Approx(l));
+  // from memory: an equant with e = 6 (the usual figure for Mars) gives a
+  // greatest equation of centre of about 11;25.
+  const synth::Function mars{
+      synth::Family::kEquationOfCentre, "equant", {p("radius", "60"), p("eccentricity", "6")}};
+  double greatest = 0;
+  for (double k = 0; k < 360; k += 0.01) greatest = std::max(greatest, synth::Evaluate(mars, k));
+  CHECK(Sexagesimal::FromDouble(greatest, 1) == S("11;25"));
+}
