@@ -174,7 +174,9 @@ void CsvReader::ReadQuoted(Field& field) {
 bool CsvReader::NextRecord(std::vector<Field>& record) {
   record.clear();
   unquoted_.clear();
-  while (pos_ < text_.size()) {
+  bool after_delimiter = false;  // a delimiter at the very end still opens a field
+  while (pos_ < text_.size() || after_delimiter) {
+    after_delimiter = false;
     Field& field = record.emplace_back();
     field.line = line_;
     field.line_start = line_start_;
@@ -199,6 +201,7 @@ bool CsvReader::NextRecord(std::vector<Field>& record) {
     }
     if (pos_ < text_.size() && text_[pos_] == delimiter_) {
       ++pos_;
+      after_delimiter = true;
       continue;
     }
     if (pos_ < text_.size() && text_[pos_] == '\r') ++pos_;

@@ -37,7 +37,7 @@ nlohmann::json Export(const Scratch& s, const std::string& table, const std::str
 TEST_CASE("e2e: many sheets in one import, table ids from the file names, attributes once") {
   Scratch s;
   WriteFile(s / "sun-eq.csv", "anomaly,equation\n1,\"0;2,5\"\n2,\"0;4,10\"\n");
-  WriteFile(s / "decl.csv", "arg;decl\n0.5;\"0;12\"\n1;\"0;24\"\n1;30;\"0;36\"\n");
+  WriteFile(s / "decl.csv", "arg;decl\n0.5;\"0;12\"\n1;\"0;24\"\n\"1;30\";\"0;36\"\n");
   WriteFile(s / "mean-sun.csv", "days,motion\n1,\"0;59,8\"\n10,\"9;51,20\"\n100,\"98;33,20\"\n");
   auto r = s.Run(
       "import --db ed.sqlite --csv sun-eq.csv decl.csv mean-sun.csv --witness K --work lantern "
@@ -87,10 +87,10 @@ TEST_CASE("e2e: a manifest names the sheets with what they cannot say") {
   r = s.Run("import --db ed.sqlite --manifest bad.sheets");
   CHECK(r.code == 2);
   CHECK(r.err ==
-        "bad.sheets:2:21: error: expected an attribute of @table in a sheet manifest (sheet, "
+        "bad.sheets:2:22: error: expected an attribute of @table in a sheet manifest (sheet, "
         "title, kind, folios, hand, delimiter, join), found 'colour'\n"
         "@table t sheet=x.csv colour=red\n"
-        "                    ^\n");
+        "                     ^\n");
 }
 
 TEST_CASE("e2e: one bad sheet of many writes nothing; names are checked at once") {

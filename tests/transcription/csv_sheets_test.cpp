@@ -197,3 +197,10 @@ TEST_CASE("a line beyond the limit is refused and echoed cut short") {
             0) == 0);
   CHECK(error.size() < 400);
 }
+
+TEST_CASE("a delimiter at the very end of a sheet opens one last empty field") {
+  const auto file = ReadCsv("a,e\n1,", "k.csv", Options());
+  const auto& t = file.tables.at(0);
+  REQUIRE(t.rows.size() == 1);
+  CHECK(t.rows[0].cells.at(0).state == CellState::kBlank);
+}
