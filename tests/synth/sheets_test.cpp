@@ -138,8 +138,8 @@ TEST_CASE(
     for (const auto& table : t.WitnessTables(w)) {
       const synth::Sheet sheet = synth::WriteSheet(table, synth::SheetStyle{}, rng);
       apograph::CsvOptions options;
-      options.table_id = table.table_id;
-      options.siglum = "A";
+      options.head.table_id = table.table_id;
+      options.head.witness.siglum = "A";
       for (const auto& c : table.columns) options.column_places[c.name] = c.places;
       options.column_places[table.argument.name] = table.argument.places;
       const auto read = apograph::ReadCsv(sheet.text, "sheet.csv", options);
