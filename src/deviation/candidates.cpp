@@ -1,9 +1,10 @@
-// Candidate explanations of one deviant cell: symbol confusions, transposed
-// digits, places omitted/added/moved, repetition of a neighbour.
-#include "deviation/explain_internal.hpp"
-
+// Candidate explanations of one deviant cell: symbol confusions (listed in
+// the script, or not), transposed digits, places omitted/added/moved,
+// repetition of a neighbour. Each with its likelihood (see scoring.hpp).
 #include <algorithm>
 #include <cmath>
+
+#include "deviation/explain_internal.hpp"
 
 namespace apograph::deviation::internal {
 namespace {
@@ -29,13 +30,25 @@ struct PlaceChange {
   PlaceVariant variant;
 };
 
-Explanation ConfusionExplanation(const CellContext& c, const Sexagesimal& reading,
-                                 const std::vector<PlaceChange>& changes, const Digits& copy) {
-  double weight = 1;
+/// The chance of a path of listed confusions among a confusion's outcomes:
+/// which symbol of the entry (1 / symbols), the pair's weight against the
+/// script's mean, and a second slip in the same entry counted as one.
+double PathChance(const CellContext& c, const std::vector<ConfusionStep>& steps) {
+  const double mean = c.script->MeanConfusionWeight();
+  double chance = 1.0 / c.symbols;
+  for (std::size_t i = 0; i < steps.size(); ++i)
+    chance *= std::min(1.0, steps[i].weight / mean) * (i > 0 ? kSecondSlip : 1);
+  return chance;
+}
+
+std::optional<Candidate> ConfusionCandidate(const CellContext& c, const Sexagesimal& reading,
+                                            const std::vector<PlaceChange>& changes,
+                                            const Digits& copy) {
+  const auto fit = c.Fit(reading);
+  if (!fit) return std::nullopt;
   std::string words;
   std::vector<ConfusionStep> all;
   for (const auto& ch : changes) {
-    weight *= ch.variant.weight;
     const int from = static_cast<int>(copy.d[ch.place]);
     words +=
         (words.empty() ? "" : "; ") +
@@ -43,12 +56,13 @@ Explanation ConfusionExplanation(const CellContext& c, const Sexagesimal& readin
         ": " + Seq(ch.variant.steps, *c.script);
     all.insert(all.end(), ch.variant.steps.begin(), ch.variant.steps.end());
   }
-  Explanation e;
+  Candidate out;
+  Explanation& e = out.explanation;
   e.cls = SlipClass::kConfusion;
-  e.score = kPriorConfusion * weight * c.Closeness(reading);
   e.emendation = reading;
   e.evidence = words + " (" + SourceWords(all, *c.script) + "); " + c.ModelClause(reading);
-  return e;
+  out.likelihood = c.SlipLikelihood(kShareConfusion, PathChance(c, all), *fit);
+  return out;
 }
 
 /// Fractional places in a positional script are two-digit positions: a copy
@@ -83,10 +97,22 @@ void AddLeadingZeroVariants(const CellContext& c, int written,
   }
 }
 
+void Add(std::vector<Candidate>& out, std::optional<Candidate> c) {
+  if (c) out.push_back(std::move(*c));
+}
+
 }  // namespace
 
-std::vector<Explanation> ConfusionCandidates(const CellContext& c) {
-  std::vector<Explanation> out;
+std::vector<std::string> PlaceSymbols(const NumeralScript& script, std::int64_t value, int place) {
+  if (value < 0 || value >= 1000) return {};
+  auto symbols = script.Write(static_cast<int>(value));
+  if (script.writing() == Writing::kPositional && place >= 1 && value < 10)
+    symbols.insert(symbols.begin(), script.Write(0).front());
+  return symbols;
+}
+
+std::vector<Candidate> ConfusionCandidates(const CellContext& c) {
+  std::vector<Candidate> out;
   const Digits copy = ToDigits(c.tabulated, c.places);
   const int steps = std::max(1, c.options->max_confusions);
   std::vector<std::vector<PlaceVariant>> per_place;
@@ -100,9 +126,7 @@ std::vector<Explanation> ConfusionCandidates(const CellContext& c) {
     for (const auto& v : per_place[p]) {
       Digits d = copy;
       d.d[p] = v.original;
-      auto reading = FromDigits(d);
-      if (reading && c.Reaches(*reading))
-        out.push_back(ConfusionExplanation(c, *reading, {{p, v}}, copy));
+      if (auto reading = FromDigits(d)) Add(out, ConfusionCandidate(c, *reading, {{p, v}}, copy));
     }
   }
   if (c.options->max_confusions < 2) return out;
@@ -116,10 +140,8 @@ std::vector<Explanation> ConfusionCandidates(const CellContext& c) {
           Digits d = copy;
           d.d[p] = vp.original;
           d.d[q] = vq.original;
-          auto reading = FromDigits(d);
-          if (reading && c.Reaches(*reading)) {
-            out.push_back(ConfusionExplanation(c, *reading, {{p, vp}, {q, vq}}, copy));
-          }
+          if (auto reading = FromDigits(d))
+            Add(out, ConfusionCandidate(c, *reading, {{p, vp}, {q, vq}}, copy));
         }
       }
     }
@@ -127,8 +149,70 @@ std::vector<Explanation> ConfusionCandidates(const CellContext& c) {
   return out;
 }
 
-std::vector<Explanation> TranspositionCandidates(const CellContext& c) {
-  std::vector<Explanation> out;
+namespace {
+
+/// The one symbol by which two writings of a place differ: a substitution,
+/// or a symbol dropped or added; nullopt when they differ otherwise.
+std::optional<ConfusionStep> OneSymbol(const std::vector<std::string>& intended,
+                                       const std::vector<std::string>& written) {
+  if (intended.size() == written.size()) {
+    std::optional<ConfusionStep> step;
+    for (std::size_t i = 0; i < intended.size(); ++i) {
+      if (intended[i] == written[i]) continue;
+      if (step) return std::nullopt;
+      step = ConfusionStep{intended[i], written[i], 0, ConfusionSource::kFromMemory};
+    }
+    return step;
+  }
+  const bool dropped = intended.size() == written.size() + 1;
+  if (!dropped && written.size() != intended.size() + 1) return std::nullopt;
+  const auto& longer = dropped ? intended : written;
+  const auto& shorter = dropped ? written : intended;
+  for (std::size_t i = 0; i < longer.size(); ++i) {
+    auto rest = longer;
+    rest.erase(rest.begin() + static_cast<std::ptrdiff_t>(i));
+    if (rest == shorter) {
+      return dropped ? ConfusionStep{longer[i], "", 0, ConfusionSource::kFromMemory}
+                     : ConfusionStep{"", longer[i], 0, ConfusionSource::kFromMemory};
+    }
+  }
+  return std::nullopt;
+}
+
+}  // namespace
+
+std::vector<Candidate> UnlistedCandidates(const CellContext& c) {
+  const Sexagesimal& target = c.Expected();
+  const Digits copy = ToDigits(c.tabulated, c.places), want = ToDigits(target, c.places);
+  if (copy.negative != want.negative || copy.d.size() != want.d.size()) return {};
+  std::optional<std::size_t> place;
+  for (std::size_t p = 0; p < copy.d.size(); ++p) {
+    if (copy.d[p] == want.d[p]) continue;
+    if (place) return {};
+    place = p;
+  }
+  if (!place) return {};
+  const int p = static_cast<int>(*place);
+  const auto step = OneSymbol(PlaceSymbols(*c.script, want.d[*place], p),
+                              PlaceSymbols(*c.script, copy.d[*place], p));
+  if (!step || c.script->ListedWeight(step->intended, step->written) > 0) return {};
+  const auto fit = c.Fit(target);
+  if (!fit) return {};
+  Candidate out;
+  Explanation& e = out.explanation;
+  e.cls = SlipClass::kConfusion;
+  e.emendation = target;
+  e.evidence = DigitPlaceWords(*c.script, static_cast<int>(want.d[*place]),
+                               static_cast<int>(copy.d[*place]), p, c.unit) +
+               ": " + StepWords(*step, *c.script) + " (a slip of one symbol that " +
+               c.script->title() + " does not list among its confusions); " + c.ModelClause(target);
+  const double change = 1.0 / c.symbols / std::max(1, c.script->SlotSize() - 1);
+  out.likelihood = c.SlipLikelihood(kShareUnlisted, change, *fit);
+  return {out};
+}
+
+std::vector<Candidate> TranspositionCandidates(const CellContext& c) {
+  std::vector<Candidate> out;
   const Digits copy = ToDigits(c.tabulated, c.places);
   for (std::size_t p = 0; p < copy.d.size(); ++p) {
     const std::int64_t v = copy.d[p];
@@ -138,11 +222,13 @@ std::vector<Explanation> TranspositionCandidates(const CellContext& c) {
     Digits d = copy;
     d.d[p] = (v % 10) * 10 + v / 10;
     auto reading = FromDigits(d);
-    if (!reading || !c.Reaches(*reading)) continue;
+    if (!reading) continue;
+    const auto fit = c.Fit(*reading);
+    if (!fit) continue;
     const bool positional = c.script->writing() == Writing::kPositional;
-    Explanation e;
+    Candidate cand;
+    Explanation& e = cand.explanation;
     e.cls = SlipClass::kTransposition;
-    e.score = (positional ? kPriorTransposition : kPriorTranspositionOther) * c.Closeness(*reading);
     e.emendation = reading;
     auto two = [&](std::int64_t x) {
       std::string t = std::to_string(x);
@@ -153,43 +239,47 @@ std::vector<Explanation> TranspositionCandidates(const CellContext& c) {
                  " transposed to " + two(v) + (padded ? " (read " + std::to_string(v) + ")" : "") +
                  (positional ? "" : " (a slip of digits, unusual in " + c.script->title() + ")") +
                  "; " + c.ModelClause(*reading);
-    out.push_back(std::move(e));
+    const double share = positional ? kShareTransposition : kShareTranspositionOther;
+    cand.likelihood = c.SlipLikelihood(share, 1.0 / copy.d.size(), *fit);
+    out.push_back(std::move(cand));
   }
   return out;
 }
 
 namespace {
 
-void AddPlace(const CellContext& c, std::vector<Explanation>& out, const Digits& d, double prior,
+void AddPlace(const CellContext& c, std::vector<Candidate>& out, const Digits& d, double share,
               const std::string& words) {
   auto reading = FromDigits(d);
-  if (!reading || !c.Reaches(*reading) || reading->Identical(c.tabulated)) return;
-  Explanation e;
-  e.cls = SlipClass::kPlace;
-  e.score = prior * c.Closeness(*reading);
-  e.emendation = reading;
-  e.evidence = words + "; " + c.ModelClause(*reading);
-  out.push_back(std::move(e));
+  if (!reading || reading->Identical(c.tabulated)) return;
+  const auto fit = c.Fit(*reading);
+  if (!fit) return;
+  Candidate cand;
+  cand.explanation.cls = SlipClass::kPlace;
+  cand.explanation.emendation = reading;
+  cand.explanation.evidence = words + "; " + c.ModelClause(*reading);
+  cand.likelihood = c.SlipLikelihood(share, 1.0 / d.d.size(), *fit);
+  out.push_back(std::move(cand));
 }
 
 std::string Supplied(const CellContext& c, std::size_t place, std::int64_t value) {
   return "the lost " + PlaceName(static_cast<int>(place), c.unit) + " (" + std::to_string(value) +
-         ") supplied from the model";
+         ") supplied from " + (c.tradition_reading ? "the other witnesses" : "the model");
 }
 
 }  // namespace
 
-std::vector<Explanation> PlaceCandidates(const CellContext& c) {
-  std::vector<Explanation> out;
+std::vector<Candidate> PlaceCandidates(const CellContext& c) {
+  std::vector<Candidate> out;
   const Digits copy = ToDigits(c.tabulated, c.places);
-  const Digits model = ToDigits(c.model_reading, c.places);
+  const Digits model = ToDigits(c.Expected(), c.places);
   const std::size_t n = copy.d.size();
   if (n < 2 || model.d.size() != n) return out;
   for (std::size_t p = 0; p < n; ++p) {  // a place left empty (written as zero)
     if (copy.d[p] != 0 || model.d[p] == 0) continue;
     Digits d = copy;
     d.d[p] = model.d[p];
-    AddPlace(c, out, d, kPriorPlaceOmitted,
+    AddPlace(c, out, d, kSharePlaceOmitted,
              PlaceName(static_cast<int>(p), c.unit) + " omitted (written as 0); " +
                  Supplied(c, p, model.d[p]));
   }
@@ -198,7 +288,7 @@ std::vector<Explanation> PlaceCandidates(const CellContext& c) {
     Digits up = copy;
     up.d.insert(up.d.begin() + static_cast<std::ptrdiff_t>(p), model.d[p]);
     up.d.pop_back();
-    AddPlace(c, out, up, kPriorPlaceMoved,
+    AddPlace(c, out, up, kSharePlaceMoved,
              PlaceName(static_cast<int>(p), c.unit) +
                  " omitted and the following places moved up (" +
                  PlaceName(static_cast<int>(p + 1), c.unit) + " written as " +
@@ -209,7 +299,7 @@ std::vector<Explanation> PlaceCandidates(const CellContext& c) {
       down.d.erase(down.d.begin() + static_cast<std::ptrdiff_t>(p));
       down.d.push_back(model.d[n - 1]);
       const bool doubled = copy.d[p] != 0;
-      AddPlace(c, out, down, doubled ? kPriorPlaceAdded : kPriorPlaceMoved,
+      AddPlace(c, out, down, doubled ? kSharePlaceDoubled : kSharePlaceMoved,
                (doubled ? PlaceName(static_cast<int>(p), c.unit) +
                               " written twice, pushing the following places down"
                         : PlaceName(static_cast<int>(p), c.unit) + " written as " +
@@ -221,22 +311,36 @@ std::vector<Explanation> PlaceCandidates(const CellContext& c) {
   return out;
 }
 
-std::vector<Explanation> RepetitionCandidates(const CellContext& c) {
-  std::vector<Explanation> out;
+namespace {
+
+/// A neighbour's reading, when it is itself right (within the author's
+/// departure): a wrong neighbour does not vouch for a repetition.
+std::optional<Sexagesimal> RightNeighbour(const CellContext& c, std::ptrdiff_t offset) {
+  const std::ptrdiff_t j = static_cast<std::ptrdiff_t>(c.row) + offset;
+  if (c.deviant && j >= 0 && j < static_cast<std::ptrdiff_t>(c.deviant->size()) &&
+      (*c.deviant)[static_cast<std::size_t>(j)])
+    return std::nullopt;
+  return c.Neighbour(offset);
+}
+
+}  // namespace
+
+std::vector<Candidate> RepetitionCandidates(const CellContext& c) {
+  std::vector<Candidate> out;
   const Digits copy = ToDigits(c.tabulated, c.places);
-  const Digits model = ToDigits(c.model_reading, c.places);
+  const Digits model = ToDigits(c.Expected(), c.places);
   for (std::ptrdiff_t off : {-1, 1}) {
-    auto n = c.Neighbour(off);
+    auto n = RightNeighbour(c, off);
     if (!n) continue;
     const std::string where = off < 0 ? "the entry above" : "the entry below";
-    if (n->Rounded(c.places) == c.tabulated) {
-      Explanation e;
-      e.cls = SlipClass::kRepetition;
-      e.score = kPriorRepetition;
-      e.emendation = c.model_reading;
-      e.evidence =
-          "repeats " + where + " (" + n->ToString() + "); " + c.ModelClause(c.model_reading);
-      out.push_back(std::move(e));
+    if (AtPlaces(*n, c.places) == c.tabulated) {
+      Candidate cand;
+      cand.explanation.cls = SlipClass::kRepetition;
+      cand.explanation.emendation = c.Expected();
+      cand.explanation.evidence =
+          "repeats " + where + " (" + n->ToString() + "); " + c.ModelClause(c.Expected());
+      cand.likelihood = c.SlipLikelihood(kShareRepetition, 0.5, *c.Fit(c.Expected()));
+      out.push_back(std::move(cand));
       continue;
     }
     const Digits nd = ToDigits(*n, c.places);
@@ -245,18 +349,20 @@ std::vector<Explanation> RepetitionCandidates(const CellContext& c) {
       Digits d = copy;
       d.d[p] = model.d[p];
       auto reading = FromDigits(d);
-      if (!reading || !c.Reaches(*reading)) continue;
-      Explanation e;
-      e.cls = SlipClass::kRepetition;
-      // A place agreeing with a neighbour's by chance is likely when the
-      // departure is as small as an author's: weigh it down then.
-      const bool small = std::fabs(c.diff) <= c.options->computational_units + 1e-9;
-      e.score = kPriorPlaceRepeated * c.Closeness(*reading) * (small ? 0.5 : 1.0);
-      e.emendation = reading;
-      e.evidence = PlaceName(static_cast<int>(p), c.unit) + " " + std::to_string(copy.d[p]) +
-                   " repeated from " + where + " (" + n->ToString() + "), the model's " +
-                   std::to_string(model.d[p]) + " restored; " + c.ModelClause(*reading);
-      out.push_back(std::move(e));
+      if (!reading) continue;
+      const auto fit = c.Fit(*reading);
+      if (!fit) continue;
+      Candidate cand;
+      cand.explanation.cls = SlipClass::kRepetition;
+      cand.explanation.emendation = reading;
+      cand.explanation.evidence =
+          PlaceName(static_cast<int>(p), c.unit) + " " + std::to_string(copy.d[p]) +
+          " repeated from " + where + " (" + n->ToString() + "), the " +
+          (c.tradition_reading ? "other witnesses' " : "model's ") + std::to_string(model.d[p]) +
+          " restored; " + c.ModelClause(*reading);
+      cand.likelihood =
+          c.SlipLikelihood(kSharePlaceRepeated, 0.5 / static_cast<double>(copy.d.size()), *fit);
+      out.push_back(std::move(cand));
     }
   }
   return out;

@@ -73,7 +73,7 @@ Finding RunFinding(const RunScan& s, const RunCandidate& run) {
       cell.emendation = s.Value(static_cast<std::size_t>(from))->Rounded(s.places);
     } else if (s.values.computed[r]) {
       const auto& c = *s.values.computed[r];
-      cell.emendation = c.places() <= s.places ? c.Extended(s.places) : c.Rounded(s.places);
+      cell.emendation = AtPlaces(c, s.places);
       ++supplied;
     }
     if (s.Deviant(r)) {
@@ -92,6 +92,8 @@ Finding RunFinding(const RunScan& s, const RunCandidate& run) {
   const std::size_t to_last = run.last + static_cast<std::size_t>(run.shift);
   Explanation e;
   e.cls = SlipClass::kDisplacedRun;
+  // Judgement: two rows that match their neighbours' model values could be
+  // chance in a slowly changing column; each further row makes it less so.
   e.score = std::min(0.97, 0.8 + 0.05 * (run.deviant - 2));
   e.emendation = first.emendation;
   e.evidence = "the entries of " + first.arg + " to " + last.arg + " are the model's values of " +
@@ -106,7 +108,7 @@ Finding RunFinding(const RunScan& s, const RunCandidate& run) {
   if (small && high - low < 1 - 1e-9) {
     Explanation comp;
     comp.cls = SlipClass::kComputational;
-    comp.score = 0.85;
+    comp.score = 0.85;  // judgement: the author's run is the likelier story (see above)
     comp.evidence =
         "every entry of " + first.arg + " to " + last.arg + " departs from the model by at most " +
         std::to_string(static_cast<int>(s.options.computational_units)) +
@@ -125,11 +127,10 @@ Finding RunFinding(const RunScan& s, const RunCandidate& run) {
 }  // namespace
 
 std::vector<Finding> DisplacedRuns(const Transcription& table, const ColumnValues& values,
-                                   const NumeralScript& script, const ExplainOptions& options,
-                                   const DiffColumn& diffs, std::vector<bool>& claimed) {
-  (void)script;
+                                   const ExplainOptions& options, const ColumnContext& column,
+                                   std::vector<bool>& claimed) {
   const int places = table.columns[static_cast<std::size_t>(values.column)].places;
-  RunScan scan{table, values, options, diffs, places};
+  RunScan scan{table, values, options, column.diffs, places};
   std::vector<RunCandidate> candidates;
   for (int k = 1; k <= options.max_shift; ++k) {
     scan.Collect(k, candidates);

@@ -15,6 +15,8 @@
 #include <string_view>
 #include <vector>
 
+#include "edition/transcription.hpp"
+
 namespace apograph::deviation {
 
 /// How the symbols of a place combine.
@@ -79,6 +81,19 @@ class NumeralScript {
   /// lists that confusion.
   std::vector<PlaceVariant> OriginalsOf(int copy, int limit, int max_steps = 1) const;
 
+  /// The weight of the listed confusion writing `written` where `intended`
+  /// was meant (either may be "" for a dropped or added symbol); 0 when the
+  /// script does not list it.
+  double ListedWeight(const std::string& intended, const std::string& written) const;
+  /// The mean, over the script's symbols, of the total weight of the
+  /// confusions that start from a symbol: what a listed confusion's weight is
+  /// measured against when its likelihood is computed.
+  double MeanConfusionWeight() const;
+  /// How many symbols may stand in one slot of a written place (10 digits;
+  /// the 9 letters of one rank in an additive script; the Roman symbols):
+  /// a slip outside the lists is one of `SlotSize() - 1` wrong symbols.
+  int SlotSize() const;
+
  private:
   friend NumeralScript ParseNumeralScript(std::string_view, const std::string&);
   void BuildReadings();
@@ -129,6 +144,17 @@ std::string DefaultScriptDir();
 /// Loads `<dir>/<name>.script`; an empty name means hindu-arabic. InputError
 /// names the option `--scripts`/the witness's script when the file is missing.
 NumeralScript FindNumeralScript(const std::string& name,
+                                const std::string& dir = DefaultScriptDir());
+
+/// The script a witness's slips are read in: the one it declares; but a
+/// print or a modern edition that declares Hindu-Arabic digits, or nothing,
+/// is read in `printed` (a typesetter's and a recognition program's slips
+/// are not a scribe's); a manuscript that declares nothing, in hindu-arabic.
+/// Example: {kind "print", script ""} -> "printed".
+std::string ScriptNameFor(const WitnessInfo& witness);
+
+/// FindNumeralScript(ScriptNameFor(witness), dir).
+NumeralScript FindWitnessScript(const WitnessInfo& witness,
                                 const std::string& dir = DefaultScriptDir());
 
 }  // namespace apograph::deviation

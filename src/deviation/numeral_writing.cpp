@@ -159,4 +159,33 @@ std::vector<PlaceVariant> NumeralScript::OriginalsOf(int copy, int limit, int ma
   return out;
 }
 
+double NumeralScript::ListedWeight(const std::string& intended, const std::string& written) const {
+  double best = 0;
+  for (const auto& c : confusions_) {
+    if (c.intended == intended && c.written == written) best = std::max(best, c.weight);
+  }
+  return best;
+}
+
+double NumeralScript::MeanConfusionWeight() const {
+  double total = 0;
+  for (const auto& c : confusions_) total += c.weight;
+  const bool zero_declared = std::any_of(symbols_.begin(), symbols_.end(),
+                                         [&](const Symbol& s) { return s.glyph == zero_; });
+  const std::size_t symbols = symbols_.size() + (zero_.empty() || zero_declared ? 0 : 1);
+  return symbols == 0 || total == 0 ? 1 : total / static_cast<double>(symbols);
+}
+
+int NumeralScript::SlotSize() const {
+  switch (writing_) {
+    case Writing::kPositional:
+      return 10;
+    case Writing::kAdditive:
+      return 9;
+    case Writing::kRoman:
+      break;
+  }
+  return static_cast<int>(symbols_.size());
+}
+
 }  // namespace apograph::deviation
