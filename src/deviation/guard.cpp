@@ -32,7 +32,7 @@ ReferenceVerdict GuardReference(int compared, int flagged, const GuardOptions& o
   char limit[16];
   std::snprintf(limit, sizeof limit, "%.0f%%", 100 * v.limit);
   v.why = std::string("the reference does not explain this column: ") + share +
-          (consensus ? " deviate from it in most witnesses alike"
+          (consensus ? " deviate from it in every witness"
                      : " deviate from it beyond the author's usual departure") +
           ", more than " + limit +
           ", which is a wrong model, parameters or practice rather than a copy's slips; no "

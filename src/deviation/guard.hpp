@@ -7,9 +7,9 @@
 /// Two tests, each with its stated share:
 ///  - one witness: the share of its compared entries that its findings flag
 ///    (copying slips and unexplained deviations, blanks left out);
-///  - the tradition: the share of rows that more than half of the witnesses
-///    flag alike (slips are a copy's own, so few rows are flagged in most
-///    witnesses at once unless the reference misses them all).
+///  - the tradition: the share of rows that every witness flags (a copy's
+///    slips, even those of a lost ancestor, are in some witnesses only; a
+///    row flagged in all is an archetype's error or the reference's).
 ///
 ///     const auto verdict = deviation::GuardReference(compared, flagged, {});
 ///     if (!verdict.explains) std::cout << verdict.why;
@@ -27,9 +27,9 @@ struct GuardOptions {
   /// deviations are the reference's.
   double witness_share = 0.3;
   int min_cells = 4;  ///< judgement: fewer flagged entries prove nothing
-  /// Judgement: rows deviating in most witnesses alike are archetype errors
-  /// when the reference is right, a few percent at most; beyond 15%, the
-  /// reference misses the table.
+  /// Judgement: rows flagged in every witness are archetype errors when the
+  /// reference is right, a few percent at most; beyond 15%, the reference
+  /// misses the table.
   double consensus_share = 0.15;
   int min_rows = 3;  ///< judgement, as min_cells
 };
