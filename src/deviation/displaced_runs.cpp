@@ -19,20 +19,32 @@ struct RunScan {
   const Transcription& table;
   const ColumnValues& values;
   const ExplainOptions& options;
+  const ColumnContext& column;
   const DiffColumn& diffs;
   int places;
 
   const std::optional<Sexagesimal>& Value(std::size_t r) const {
     return table.rows[r].cells[static_cast<std::size_t>(values.column)].value;
   }
+  /// The copy's reading is the other witnesses' too.
+  bool AsOthers(std::size_t r) const {
+    return column.consensus[r] && Value(r) && AtPlaces(*Value(r), places) == *column.consensus[r];
+  }
+  /// The others agree on another reading.
+  bool Contradicted(std::size_t r) const {
+    return column.consensus[r] && Value(r) && AtPlaces(*Value(r), places) != *column.consensus[r];
+  }
   bool Deviant(std::size_t r) const {
-    return std::isfinite(diffs.diff[r]) && std::fabs(diffs.diff[r]) > options.tolerance + 1e-9;
+    return std::isfinite(diffs.diff[r]) && std::fabs(diffs.diff[r]) > options.tolerance + 1e-9 &&
+           !AsOthers(r);
   }
   bool Match(std::size_t r, int k) const {
     const std::ptrdiff_t j = static_cast<std::ptrdiff_t>(r) + k;
     if (j < 0 || j >= static_cast<std::ptrdiff_t>(values.computed.size())) return false;
     const auto& c = values.computed[static_cast<std::size_t>(j)];
     if (!std::isfinite(diffs.diff[r]) || !c) return false;
+    const auto& others = column.consensus[static_cast<std::size_t>(j)];
+    if (others && AtPlaces(*Value(r), places) == *others) return true;
     return std::fabs(DiffUnits(*Value(r), *c, places)) <= options.tolerance + 1e-9;
   }
   void Collect(int k, std::vector<RunCandidate>& out) const {
@@ -71,9 +83,8 @@ Finding RunFinding(const RunScan& s, const RunCandidate& run) {
     if (from >= static_cast<std::ptrdiff_t>(run.first) &&
         from <= static_cast<std::ptrdiff_t>(run.last)) {
       cell.emendation = s.Value(static_cast<std::size_t>(from))->Rounded(s.places);
-    } else if (s.values.computed[r]) {
-      const auto& c = *s.values.computed[r];
-      cell.emendation = AtPlaces(c, s.places);
+    } else if (auto original = s.column.Original(r, s.values, s.options, s.places)) {
+      cell.emendation = original;
       ++supplied;
     }
     if (s.Deviant(r)) {
@@ -81,6 +92,7 @@ Finding RunFinding(const RunScan& s, const RunCandidate& run) {
       low = std::min(low, d);
       high = std::max(high, d);
       small = small && std::fabs(d) <= s.options.computational_units + 1e-9;
+      small = small && !s.Contradicted(r);  // the others read otherwise: not the author's
       const int sg = d > 0 ? 1 : -1;
       if (sign == 0) sign = sg;
       small = small && sg == sign;
@@ -130,7 +142,7 @@ std::vector<Finding> DisplacedRuns(const Transcription& table, const ColumnValue
                                    const ExplainOptions& options, const ColumnContext& column,
                                    std::vector<bool>& claimed) {
   const int places = table.columns[static_cast<std::size_t>(values.column)].places;
-  RunScan scan{table, values, options, column.diffs, places};
+  RunScan scan{table, values, options, column, column.diffs, places};
   std::vector<RunCandidate> candidates;
   for (int k = 1; k <= options.max_shift; ++k) {
     scan.Collect(k, candidates);

@@ -102,9 +102,16 @@ struct ColumnContext {
   double slip_rate = kSlipRatePrior;
   /// Rows departing beyond the author's typical departure.
   std::vector<bool> deviant;
-  /// Per row, the reading the tradition agrees on when it differs from this
-  /// copy's and lies within the author's departure of the model.
+  /// Per row, the reading the other witnesses agree on (more than half of
+  /// them), at the column's places, when they have one.
+  std::vector<std::optional<Sexagesimal>> consensus;
+  /// Per row, that reading when it differs from this copy's and lies within
+  /// the author's departure of the model: the original most likely had it.
   std::vector<std::optional<Sexagesimal>> tradition_reading;
+  /// The original's most likely reading of a row: the tradition's when it
+  /// lies within the author's departure of the model, else the model's.
+  std::optional<Sexagesimal> Original(std::size_t row, const ColumnValues& values,
+                                      const ExplainOptions& options, int places) const;
 };
 ColumnContext MeasureColumn(const Transcription& table, const ColumnValues& values,
                             const ExplainOptions& options, int places);

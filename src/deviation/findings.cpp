@@ -79,6 +79,7 @@ ColumnContext MeasureColumn(const Transcription& table, const ColumnValues& valu
   const std::size_t n = table.rows.size();
   out.deviant.assign(n, false);
   out.tradition_reading.assign(n, std::nullopt);
+  out.consensus.assign(n, std::nullopt);
   int compared = 0, deviant = 0;
   for (std::size_t r = 0; r < n; ++r) {
     const double d = out.diffs.diff[r];
@@ -90,6 +91,7 @@ ColumnContext MeasureColumn(const Transcription& table, const ColumnValues& valu
     const TraditionCell* t = TraditionAt(values, r);
     if (!t || !t->consensus || r >= values.computed.size() || !values.computed[r]) continue;
     const Sexagesimal consensus = AtPlaces(*t->consensus, places);
+    out.consensus[r] = consensus;
     const Cell& cell = CellAt(table, r, values.column);
     if (cell.value && AtPlaces(*cell.value, places) == consensus) continue;
     const int k = UnitsOff(DiffUnits(consensus, *values.computed[r], places), options.tolerance);
@@ -97,6 +99,18 @@ ColumnContext MeasureColumn(const Transcription& table, const ColumnValues& valu
   }
   out.slip_rate = std::min(kSlipRateCeiling, Shrunk(deviant, compared, kSlipRatePrior));
   return out;
+}
+
+std::optional<Sexagesimal> ColumnContext::Original(std::size_t row, const ColumnValues& values,
+                                                   const ExplainOptions& options,
+                                                   int places) const {
+  if (row >= values.computed.size() || !values.computed[row]) return std::nullopt;
+  if (consensus[row]) {
+    const int k =
+        UnitsOff(DiffUnits(*consensus[row], *values.computed[row], places), options.tolerance);
+    if (k <= author.typical) return consensus[row];
+  }
+  return AtPlaces(*values.computed[row], places);
 }
 
 CellContext MakeContext(const Transcription& table, const ColumnValues& values,
