@@ -1,6 +1,6 @@
-// Candidate explanations of one deviant cell: symbol confusions (listed in
-// the script, or not), transposed digits, places omitted/added/moved,
-// repetition of a neighbour. Each with its likelihood (see scoring.hpp).
+// Candidate explanations of one deviant cell: transposed digits or places,
+// places omitted/added/moved, repetition of a neighbour (symbol slips are in
+// symbol_slips.cpp). Each with its likelihood (see scoring.hpp).
 #include <algorithm>
 #include <cmath>
 
@@ -9,96 +9,10 @@
 namespace apograph::deviation::internal {
 namespace {
 
-int Limit(std::size_t place) { return place == 0 ? 1000 : 60; }
-
-std::string Seq(const std::vector<ConfusionStep>& steps, const NumeralScript& script) {
-  std::string out;
-  for (const auto& s : steps) out += (out.empty() ? "" : ", then ") + StepWords(s, script);
-  return out;
-}
-
-std::string SourceWords(const std::vector<ConfusionStep>& steps, const NumeralScript& script) {
-  bool memory = std::any_of(steps.begin(), steps.end(), [](const ConfusionStep& s) {
-    return s.source == ConfusionSource::kFromMemory;
-  });
-  return std::string(steps.size() > 1 ? "confusions" : "a confusion") + " of " + script.title() +
-         (memory ? ", listed from memory" : ", common practice");
-}
-
-struct PlaceChange {
-  std::size_t place;
-  PlaceVariant variant;
-};
-
-/// The chance of a path of listed confusions among a confusion's outcomes:
-/// which symbol of the entry (1 / symbols), the pair's weight against the
-/// script's mean, and a second slip in the same entry counted as one.
-double PathChance(const CellContext& c, const std::vector<ConfusionStep>& steps) {
-  const double mean = c.script->MeanConfusionWeight();
-  double chance = 1.0 / c.symbols;
-  for (std::size_t i = 0; i < steps.size(); ++i)
-    chance *= std::min(1.0, steps[i].weight / mean) * (i > 0 ? kSecondSlip : 1);
-  return chance;
-}
-
-std::optional<Candidate> ConfusionCandidate(const CellContext& c, const Sexagesimal& reading,
-                                            const std::vector<PlaceChange>& changes,
-                                            const Digits& copy) {
-  const auto fit = c.Fit(reading);
-  if (!fit) return std::nullopt;
-  std::string words;
-  std::vector<ConfusionStep> all;
-  for (const auto& ch : changes) {
-    const int from = static_cast<int>(copy.d[ch.place]);
-    words +=
-        (words.empty() ? "" : "; ") +
-        DigitPlaceWords(*c.script, ch.variant.original, from, static_cast<int>(ch.place), c.unit) +
-        ": " + Seq(ch.variant.steps, *c.script);
-    all.insert(all.end(), ch.variant.steps.begin(), ch.variant.steps.end());
-  }
-  Candidate out;
-  Explanation& e = out.explanation;
-  e.cls = SlipClass::kConfusion;
-  e.emendation = reading;
-  e.evidence = words + " (" + SourceWords(all, *c.script) + "); " + c.ModelClause(reading);
-  out.likelihood = c.SlipLikelihood(kShareConfusion, PathChance(c, all), *fit);
-  return out;
-}
-
 /// Fractional places in a positional script are two-digit positions: a copy
-/// may show 51 where 01 was meant (0 read as 5) and 1 where 51 was (5 read
-/// as 0), the leading zero being a symbol like any other.
+/// may show 4 (04) where 40 was meant.
 bool TwoDigitPlace(const CellContext& c, std::size_t place) {
   return c.script->writing() == Writing::kPositional && place >= 1;
-}
-
-void AddLeadingZeroVariants(const CellContext& c, int written,
-                            std::vector<PlaceVariant>& variants) {
-  const std::string zero = "0";
-  for (const auto& conf : c.script->confusions()) {
-    PlaceVariant v;
-    if (written >= 10 && conf.intended == zero && conf.written == std::to_string(written / 10)) {
-      v.original = written % 10;  // the tens digit stood for a leading zero
-    } else if (written < 10 && conf.written == zero && conf.intended.size() == 1 &&
-               conf.intended[0] >= '1' && conf.intended[0] <= '5') {
-      v.original =
-          (conf.intended[0] - '0') * 10 + written;  // the leading zero stood for a tens digit
-    } else {
-      continue;
-    }
-    v.weight = conf.weight;
-    v.steps = {{conf.intended, conf.written, conf.weight, conf.source}};
-    auto same = std::find_if(variants.begin(), variants.end(),
-                             [&](const PlaceVariant& o) { return o.original == v.original; });
-    if (same == variants.end())
-      variants.push_back(v);
-    else if (same->weight < v.weight)
-      *same = v;
-  }
-}
-
-void Add(std::vector<Candidate>& out, std::optional<Candidate> c) {
-  if (c) out.push_back(std::move(*c));
 }
 
 }  // namespace
@@ -109,106 +23,6 @@ std::vector<std::string> PlaceSymbols(const NumeralScript& script, std::int64_t 
   if (script.writing() == Writing::kPositional && place >= 1 && value < 10)
     symbols.insert(symbols.begin(), script.Write(0).front());
   return symbols;
-}
-
-std::vector<Candidate> ConfusionCandidates(const CellContext& c) {
-  std::vector<Candidate> out;
-  const Digits copy = ToDigits(c.tabulated, c.places);
-  const int steps = std::max(1, c.options->max_confusions);
-  std::vector<std::vector<PlaceVariant>> per_place;
-  for (std::size_t p = 0; p < copy.d.size(); ++p) {
-    const int written = static_cast<int>(copy.d[p]);
-    per_place.push_back(written < 1000 ? c.script->OriginalsOf(written, Limit(p), steps)
-                                       : std::vector<PlaceVariant>{});
-    if (TwoDigitPlace(c, p) && written < 60) AddLeadingZeroVariants(c, written, per_place.back());
-  }
-  for (std::size_t p = 0; p < copy.d.size(); ++p) {
-    for (const auto& v : per_place[p]) {
-      Digits d = copy;
-      d.d[p] = v.original;
-      if (auto reading = FromDigits(d)) Add(out, ConfusionCandidate(c, *reading, {{p, v}}, copy));
-    }
-  }
-  if (c.options->max_confusions < 2) return out;
-  // One confusion in each of two places.
-  for (std::size_t p = 0; p < copy.d.size(); ++p) {
-    for (std::size_t q = p + 1; q < copy.d.size(); ++q) {
-      for (const auto& vp : per_place[p]) {
-        if (vp.steps.size() != 1) continue;
-        for (const auto& vq : per_place[q]) {
-          if (vq.steps.size() != 1) continue;
-          Digits d = copy;
-          d.d[p] = vp.original;
-          d.d[q] = vq.original;
-          if (auto reading = FromDigits(d))
-            Add(out, ConfusionCandidate(c, *reading, {{p, vp}, {q, vq}}, copy));
-        }
-      }
-    }
-  }
-  return out;
-}
-
-namespace {
-
-/// The one symbol by which two writings of a place differ: a substitution,
-/// or a symbol dropped or added; nullopt when they differ otherwise.
-std::optional<ConfusionStep> OneSymbol(const std::vector<std::string>& intended,
-                                       const std::vector<std::string>& written) {
-  if (intended.size() == written.size()) {
-    std::optional<ConfusionStep> step;
-    for (std::size_t i = 0; i < intended.size(); ++i) {
-      if (intended[i] == written[i]) continue;
-      if (step) return std::nullopt;
-      step = ConfusionStep{intended[i], written[i], 0, ConfusionSource::kFromMemory};
-    }
-    return step;
-  }
-  const bool dropped = intended.size() == written.size() + 1;
-  if (!dropped && written.size() != intended.size() + 1) return std::nullopt;
-  const auto& longer = dropped ? intended : written;
-  const auto& shorter = dropped ? written : intended;
-  for (std::size_t i = 0; i < longer.size(); ++i) {
-    auto rest = longer;
-    rest.erase(rest.begin() + static_cast<std::ptrdiff_t>(i));
-    if (rest == shorter) {
-      return dropped ? ConfusionStep{longer[i], "", 0, ConfusionSource::kFromMemory}
-                     : ConfusionStep{"", longer[i], 0, ConfusionSource::kFromMemory};
-    }
-  }
-  return std::nullopt;
-}
-
-}  // namespace
-
-std::vector<Candidate> UnlistedCandidates(const CellContext& c) {
-  const Sexagesimal& target = c.Expected();
-  const Digits copy = ToDigits(c.tabulated, c.places), want = ToDigits(target, c.places);
-  if (copy.negative != want.negative || copy.d.size() != want.d.size()) return {};
-  std::optional<std::size_t> place;
-  for (std::size_t p = 0; p < copy.d.size(); ++p) {
-    if (copy.d[p] == want.d[p]) continue;
-    if (place) return {};
-    place = p;
-  }
-  if (!place) return {};
-  const int p = static_cast<int>(*place);
-  const auto step = OneSymbol(PlaceSymbols(*c.script, want.d[*place], p),
-                              PlaceSymbols(*c.script, copy.d[*place], p));
-  if (!step || c.script->ListedWeight(step->intended, step->written) > 0) return {};
-  const auto fit = c.Fit(target);
-  if (!fit) return {};
-  Candidate out;
-  Explanation& e = out.explanation;
-  e.cls = SlipClass::kConfusion;
-  e.emendation = target;
-  e.evidence = DigitPlaceWords(*c.script, static_cast<int>(want.d[*place]),
-                               static_cast<int>(copy.d[*place]), p, c.unit) +
-               ": " + StepWords(*step, *c.script) + " (a slip of one symbol that " +
-               c.script->title() + " does not list among its confusions); " + c.ModelClause(target);
-  const double change = 1.0 / c.symbols / std::max(1, c.script->SlotSize() - 1);
-  out.likelihood = c.SlipLikelihood(kShareUnlisted, change, *fit);
-  return {out};
 }
 
 std::vector<Candidate> TranspositionCandidates(const CellContext& c) {
@@ -241,6 +55,24 @@ std::vector<Candidate> TranspositionCandidates(const CellContext& c) {
                  "; " + c.ModelClause(*reading);
     const double share = positional ? kShareTransposition : kShareTranspositionOther;
     cand.likelihood = c.SlipLikelihood(share, 1.0 / copy.d.size(), *fit);
+    out.push_back(std::move(cand));
+  }
+  // Two neighbouring places swapped (0;13,41 for 0;41,13), in any script.
+  for (std::size_t p = 0; p + 1 < copy.d.size(); ++p) {
+    if (copy.d[p] == copy.d[p + 1]) continue;
+    Digits d = copy;
+    std::swap(d.d[p], d.d[p + 1]);
+    auto reading = FromDigits(d);
+    if (!reading) continue;
+    const auto fit = c.Fit(*reading);
+    if (!fit) continue;
+    Candidate cand;
+    cand.explanation.cls = SlipClass::kTransposition;
+    cand.explanation.emendation = reading;
+    cand.explanation.evidence = "the " + PlaceName(static_cast<int>(p), c.unit) + " and the " +
+                                PlaceName(static_cast<int>(p + 1), c.unit) + " swapped; " +
+                                c.ModelClause(*reading);
+    cand.likelihood = c.SlipLikelihood(kSharePlacesSwapped, 1.0 / copy.d.size(), *fit);
     out.push_back(std::move(cand));
   }
   return out;
@@ -288,7 +120,9 @@ std::vector<Candidate> PlaceCandidates(const CellContext& c) {
     Digits up = copy;
     up.d.insert(up.d.begin() + static_cast<std::ptrdiff_t>(p), model.d[p]);
     up.d.pop_back();
-    AddPlace(c, out, up, kSharePlaceMoved,
+    // The last place is left empty by the move: anything else written there
+    // is a coincidence the story does not explain.
+    AddPlace(c, out, up, kSharePlaceMoved * (copy.d[n - 1] == 0 ? 1 : kUnexplainedPlace),
              PlaceName(static_cast<int>(p), c.unit) +
                  " omitted and the following places moved up (" +
                  PlaceName(static_cast<int>(p + 1), c.unit) + " written as " +

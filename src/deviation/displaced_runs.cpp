@@ -34,9 +34,11 @@ struct RunScan {
   bool Contradicted(std::size_t r) const {
     return column.consensus[r] && Value(r) && AtPlaces(*Value(r), places) != *column.consensus[r];
   }
+  /// Off the model; a small departure the others read too is the author's.
   bool Deviant(std::size_t r) const {
-    return std::isfinite(diffs.diff[r]) && std::fabs(diffs.diff[r]) > options.tolerance + 1e-9 &&
-           !AsOthers(r);
+    if (!std::isfinite(diffs.diff[r])) return false;
+    const int k = UnitsOff(diffs.diff[r], options.tolerance);
+    return k > 0 && !(AsOthers(r) && k <= column.author.typical);
   }
   bool Match(std::size_t r, int k) const {
     const std::ptrdiff_t j = static_cast<std::ptrdiff_t>(r) + k;
@@ -45,7 +47,15 @@ struct RunScan {
     if (!std::isfinite(diffs.diff[r]) || !c) return false;
     const auto& others = column.consensus[static_cast<std::size_t>(j)];
     if (others && AtPlaces(*Value(r), places) == *others) return true;
-    return std::fabs(DiffUnits(*Value(r), *c, places)) <= options.tolerance + 1e-9;
+    const double off = std::fabs(DiffUnits(*Value(r), *c, places));
+    if (off <= options.tolerance + 1e-9) return true;
+    // The author's departure at row j (up to computational_units): near
+    // enough when the rows differ by much more than it (judgement: five
+    // times), so the slide still shows.
+    const auto& own = values.computed[r];
+    const double step = own ? std::fabs(DiffUnits(*c, *own, places)) : 0;
+    const double departure = std::floor(options.computational_units);
+    return off <= options.tolerance + departure + 1e-9 && step >= 5 * (departure + 1);
   }
   void Collect(int k, std::vector<RunCandidate>& out) const {
     const std::size_t n = table.rows.size();

@@ -75,9 +75,9 @@ int UnitsOff(double diff, double tolerance) {
 
 std::optional<double> CellContext::Fit(const Sexagesimal& reading) const {
   double against = 1;
-  if (tradition_reading) {
+  if (tradition_reading) {  // each witness reading otherwise would have had to change it
     if (reading == *tradition_reading) return 1.0;
-    against = kAgainstTradition;
+    against = std::pow(kCorrection, std::clamp(tradition ? tradition->agree : 1, 1, 3));
   }
   const double dist = DiffUnits(reading, computed, places);
   const int k = UnitsOff(dist, options->tolerance);
@@ -94,6 +94,7 @@ std::optional<double> CellContext::Fit(const Sexagesimal& reading) const {
 std::string CellContext::ModelClause(const Sexagesimal& reading) const {
   const std::string model = ModelText(computed, exact, places);
   if (tradition_reading && reading == *tradition_reading) {
+    if (reading == model_reading) return "the other witnesses and the model (" + model + ") agree";
     return "the other witnesses read " + reading.ToString() +
            " (the author's departure from the model's " + model + ")";
   }
@@ -162,14 +163,25 @@ std::vector<Explanation> Ranked(std::vector<Candidate> all, double total) {
   return out;
 }
 
+/// A copy that reads the model's value where every other witness (two or
+/// more) reads the author's departure: its reading is its own, a slip that
+/// lands on the model's value. A modern edition may have recomputed it.
+bool AgainstTradition(const Transcription& table, const ColumnValues& values,
+                      const internal::ColumnContext& column, std::size_t row) {
+  if (!column.tradition_reading[row] || row >= values.tradition.size()) return false;
+  const TraditionCell& t = values.tradition[row];
+  return t.witnesses >= 2 && t.agree == t.witnesses &&
+         table.witness.Kind() != WitnessKind::kModernEdition;
+}
+
 }  // namespace
 
 namespace internal {
 
 Finding SingleFinding(const CellContext& c, const ColumnValues& values) {
   std::vector<Candidate> all;
-  for (auto* gen : {ConfusionCandidates, UnlistedCandidates, TranspositionCandidates,
-                    PlaceCandidates, RepetitionCandidates}) {
+  for (auto* gen :
+       {ConfusionCandidates, TranspositionCandidates, PlaceCandidates, RepetitionCandidates}) {
     auto found = gen(c);
     all.insert(all.end(), found.begin(), found.end());
   }
@@ -190,7 +202,14 @@ Finding SingleFinding(const CellContext& c, const ColumnValues& values) {
 }  // namespace internal
 
 std::vector<Finding> ExplainColumn(const Transcription& table, const ColumnValues& values,
-                                   const NumeralScript& script, const ExplainOptions& options) {
+                                   const NumeralScript& script, const ExplainOptions& options,
+                                   const std::vector<const NumeralScript*>& tradition_scripts) {
+  std::vector<const NumeralScript*> others;
+  for (const auto* s : tradition_scripts) {
+    const bool seen = std::any_of(others.begin(), others.end(),
+                                  [&](const NumeralScript* o) { return o->name() == s->name(); });
+    if (s && s->name() != script.name() && !seen) others.push_back(s);
+  }
   const std::size_t col = static_cast<std::size_t>(values.column);
   const int places = table.columns.at(col).places;
   const internal::ColumnContext column = internal::MeasureColumn(table, values, options, places);
@@ -206,8 +225,12 @@ std::vector<Finding> ExplainColumn(const Transcription& table, const ColumnValue
       continue;
     }
     const double d = column.diffs.diff[r];
-    if (!std::isfinite(d) || internal::UnitsOff(d, options.tolerance) == 0) continue;
-    const auto c = internal::MakeContext(table, values, script, options, column, r, places);
+    if (!std::isfinite(d)) continue;
+    if (internal::UnitsOff(d, options.tolerance) == 0 &&
+        !AgainstTradition(table, values, column, r))
+      continue;
+    auto c = internal::MakeContext(table, values, script, options, column, r, places);
+    c.other_scripts = &others;
     out.push_back(internal::SingleFinding(c, values));
   }
   internal::MergeComputationalRuns(out);

@@ -62,14 +62,14 @@ bool IsCopyingSlip(SlipClass cls);
 
 /// What the other witnesses of the table read at one cell (the tradition's
 /// view, filled by the caller; see pipeline::ExplainTradition). Modern
-/// editions that read the model's value there are left out: they may have
-/// recomputed it.
+/// editions are left out: they may have recomputed the table.
 struct TraditionCell {
   int witnesses = 0;  ///< other witnesses with a reading at this cell
   int same = 0;       ///< of them, reading this witness's value
   int model = 0;      ///< of them, reading the model's reading
   /// The reading more than half of them share (at the column's places).
   std::optional<Sexagesimal> consensus;
+  int agree = 0;  ///< of them, reading the consensus
 };
 
 /// The model's values for one column, row by row (same length as the table).
@@ -129,9 +129,13 @@ struct Finding {
   std::string Note(const std::string& siglum) const;
 };
 
-/// Explains the deviations of one column, in row order.
+/// Explains the deviations of one column, in row order. `tradition_scripts`:
+/// the numeral scripts other witnesses of the tradition write; a slip may have
+/// been made by an ancestor writing one of them and inherited (their listed
+/// confusions are tried too, weighed down).
 std::vector<Finding> ExplainColumn(const Transcription& table, const ColumnValues& values,
-                                   const NumeralScript& script, const ExplainOptions& options = {});
+                                   const NumeralScript& script, const ExplainOptions& options = {},
+                                   const std::vector<const NumeralScript*>& tradition_scripts = {});
 
 /// Name of fractional place p of a column (0 -> "degrees" or "units" by the
 /// column's unit, 1 -> "minutes", 2 -> "seconds", 3 -> "thirds", ...).

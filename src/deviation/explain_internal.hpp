@@ -56,7 +56,11 @@ struct CellContext {
   double slip_rate = 0;           // the copy's share of entries beyond the author's departure
   int symbols = 1;                // symbols written in the copy's entry
   bool shared_neighbour = false;  // a neighbour departs the same way, within the author's departure
+  bool shared = false;            // every other witness reads this copy's value
   const std::vector<bool>* deviant = nullptr;  // rows beyond the author's departure
+  /// Other scripts of the tradition, whose listed confusions an ancestor may
+  /// have made (may be null).
+  const std::vector<const NumeralScript*>* other_scripts = nullptr;
 
   /// The reading the original most likely had: the tradition's, else the model's.
   const Sexagesimal& Expected() const {
@@ -77,9 +81,9 @@ struct CellContext {
   }
 };
 
+/// Symbol slips: the script's listed confusions (one or two), or one symbol
+/// changed, dropped or added outside the lists (symbol_slips.cpp).
 std::vector<Candidate> ConfusionCandidates(const CellContext& c);
-/// A symbol changed into one that the script does not pair with it.
-std::vector<Candidate> UnlistedCandidates(const CellContext& c);
 std::vector<Candidate> TranspositionCandidates(const CellContext& c);
 std::vector<Candidate> PlaceCandidates(const CellContext& c);
 std::vector<Candidate> RepetitionCandidates(const CellContext& c);
@@ -100,8 +104,15 @@ struct ColumnContext {
   DiffColumn diffs;
   AuthorProfile author;
   double slip_rate = kSlipRatePrior;
-  /// Rows departing beyond the author's typical departure.
+  /// Rows departing beyond the author's typical departure (and not read
+  /// so by every other witness within computational_units).
   std::vector<bool> deviant;
+  /// Rows whose reading the other witnesses read too (all but perhaps one in
+  /// four: a corrector, or a slip of its own).
+  std::vector<bool> shared;
+  /// Rows whose reading every other witness (two or more) contradicts with
+  /// one reading of their own.
+  std::vector<bool> contradicted;
   /// Per row, the reading the other witnesses agree on (more than half of
   /// them), at the column's places, when they have one.
   std::vector<std::optional<Sexagesimal>> consensus;

@@ -78,24 +78,35 @@ ColumnContext MeasureColumn(const Transcription& table, const ColumnValues& valu
   out.author = MeasureAuthor(values, options, out.diffs, places);
   const std::size_t n = table.rows.size();
   out.deviant.assign(n, false);
+  out.shared.assign(n, false);
+  out.contradicted.assign(n, false);
   out.tradition_reading.assign(n, std::nullopt);
   out.consensus.assign(n, std::nullopt);
   int compared = 0, deviant = 0;
   for (std::size_t r = 0; r < n; ++r) {
+    const TraditionCell* t = TraditionAt(values, r);
+    // Shared: by every other witness but perhaps one in four (a corrector,
+    // or a slip of its own there); judgement.
+    out.shared[r] = t && t->same > 0 && 4 * t->same >= 3 * t->witnesses;
+    out.contradicted[r] =
+        t && t->consensus && t->witnesses >= 2 && t->agree == t->witnesses && t->same == 0;
     const double d = out.diffs.diff[r];
     if (std::isfinite(d)) {
       ++compared;
-      out.deviant[r] = UnitsOff(d, options.tolerance) > out.author.typical;
+      const int k = UnitsOff(d, options.tolerance);
+      // A departure every other witness reads too stays the author's up to
+      // computational_units, whatever the column's habit.
+      out.deviant[r] = k > out.author.typical &&
+                       !(out.shared[r] && k <= std::floor(options.computational_units));
       deviant += out.deviant[r];
     }
-    const TraditionCell* t = TraditionAt(values, r);
     if (!t || !t->consensus || r >= values.computed.size() || !values.computed[r]) continue;
     const Sexagesimal consensus = AtPlaces(*t->consensus, places);
     out.consensus[r] = consensus;
     const Cell& cell = CellAt(table, r, values.column);
     if (cell.value && AtPlaces(*cell.value, places) == consensus) continue;
     const int k = UnitsOff(DiffUnits(consensus, *values.computed[r], places), options.tolerance);
-    if (k > 0 && k <= out.author.typical) out.tradition_reading[r] = consensus;
+    if (k <= out.author.typical) out.tradition_reading[r] = consensus;
   }
   out.slip_rate = std::min(kSlipRateCeiling, Shrunk(deviant, compared, kSlipRatePrior));
   return out;
@@ -135,6 +146,7 @@ CellContext MakeContext(const Transcription& table, const ColumnValues& values,
   c.diff = column.diffs.diff[row];
   c.slip_rate = column.slip_rate;
   c.deviant = &column.deviant;
+  c.shared = column.shared[row];
   const Digits digits = ToDigits(c.tabulated, places);
   c.symbols = 0;
   for (std::size_t p = 0; p < digits.d.size(); ++p) {
@@ -184,15 +196,17 @@ Finding NewFinding(const Transcription& table, const ColumnValues& values, int p
 namespace {
 
 std::string TraditionWords(const TraditionCell& t) {
-  return std::to_string(t.same) + " of the " + std::to_string(t.witnesses) + " other witness" +
-         (t.witnesses == 1 ? "" : "es");
+  return t.witnesses == 1 ? "the other witness"
+                          : "every other witness (" + std::to_string(t.witnesses) + ")";
 }
 
 }  // namespace
 
 std::optional<Candidate> AuthorCandidate(const CellContext& c) {
   const int k = UnitsOff(c.diff, c.options->tolerance);
-  if (k < 1 || k > c.author->typical) return std::nullopt;
+  const bool size =
+      k <= c.author->typical || (c.shared && k <= std::floor(c.options->computational_units));
+  if (k < 1 || !size) return std::nullopt;
   double likelihood = c.author->Rate(k) / 2;  // one sign of the two
   const bool boundary =
       std::isfinite(c.exact) && k == 1 &&
@@ -200,10 +214,11 @@ std::optional<Candidate> AuthorCandidate(const CellContext& c) {
   if (boundary) likelihood *= kBoundaryFactor;
   if (c.shared_neighbour) likelihood *= kNeighbourFactor;
   const TraditionCell* t = c.tradition;
-  const bool shared = t && t->consensus && AtPlaces(*t->consensus, c.places) == c.tabulated;
-  const bool against = t && t->consensus && !shared;
+  const bool shared = c.shared;
+  const bool against = t && !shared && t->model > 0;
   if (shared) likelihood *= kTraditionSharesFactor;
-  if (against) likelihood *= kTraditionAgainstFactor;
+  if (against)
+    likelihood *= std::pow(k == 1 ? kCorrectionOneUnit : kCorrectionLarger, std::min(t->model, 2));
   Candidate out;
   Explanation& e = out.explanation;
   e.cls = SlipClass::kComputational;
@@ -214,10 +229,9 @@ std::optional<Candidate> AuthorCandidate(const CellContext& c) {
                  " too: the author's computation, not a copyist's slip; " + model +
                  "; keep the reading";
   } else if (against) {
-    e.evidence = "perhaps the author's " + what.substr(2) + ", though " +
-                 std::to_string(t->witnesses - t->same) + " of the " +
-                 std::to_string(t->witnesses) + " other witnesses read " +
-                 AtPlaces(*t->consensus, c.places).ToString() + "; " + model;
+    e.evidence = "perhaps the author's " + what.substr(2) + ", though " + std::to_string(t->model) +
+                 " of the " + std::to_string(t->witnesses) + " other witnesses read the model's " +
+                 c.model_reading.ToString() + "; " + model;
   } else if (c.shared_neighbour) {
     e.evidence = what +
                  ", shared by a neighbouring entry: the author's computation, not a copyist's "

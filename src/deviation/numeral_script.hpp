@@ -73,6 +73,22 @@ class NumeralScript {
   std::string WriteText(int value) const;
   /// The value of a written place, when it is a regular writing of one.
   std::optional<int> Read(const std::vector<std::string>& symbols) const;
+  /// Every regular way of writing `value`: Write(value), and for Roman
+  /// numerals also the additive form many hands use (19 as XVIIII beside
+  /// XIX).
+  std::vector<std::vector<std::string>> Writings(int value) const;
+  /// The value a reader takes from any sequence of the script's symbols,
+  /// regular or not: digits read positionally, letters summed, Roman symbols
+  /// summed with a smaller one before a larger one subtracted. So a slip that
+  /// leaves an irregular writing is still read (Hebrew כח 28 with its כ read
+  /// as ב gives בח, read 10). nullopt for an unknown symbol or nothing.
+  std::optional<int> ValueOf(const std::vector<std::string>& symbols) const;
+  /// The symbols' values summed (how some readers take an irregular Roman
+  /// writing such as "ic" for 101); nullopt for an unknown symbol, nothing, or
+  /// a positional script.
+  std::optional<int> SumOf(const std::vector<std::string>& symbols) const;
+  /// Every symbol of the script (the zero sign included).
+  std::vector<std::string> Glyphs() const;
 
   /// The originals from which a copy reading `copy` is reached by one (or, with
   /// max_steps = 2, two) confusions, with values in [0, limit). Each original
@@ -89,9 +105,9 @@ class NumeralScript {
   /// confusions that start from a symbol: what a listed confusion's weight is
   /// measured against when its likelihood is computed.
   double MeanConfusionWeight() const;
-  /// How many symbols may stand in one slot of a written place (10 digits;
-  /// the 9 letters of one rank in an additive script; the Roman symbols):
-  /// a slip outside the lists is one of `SlotSize() - 1` wrong symbols.
+  /// How many symbols may stand in one slot of a written place (every
+  /// symbol of the script): a slip outside the lists is one of
+  /// `SlotSize() - 1` wrong symbols.
   int SlotSize() const;
 
  private:

@@ -22,6 +22,7 @@ namespace apograph::deviation::internal {
 constexpr double kShareConfusion = 0.40;
 constexpr double kShareUnlisted = 0.15;
 constexpr double kShareTransposition = 0.08;       // positional scripts
+constexpr double kSharePlacesSwapped = 0.03;       // two neighbouring places swapped
 constexpr double kShareTranspositionOther = 0.01;  // a slip of digits, unusual elsewhere
 constexpr double kSharePlaceOmitted = 0.05;        // a place left empty (read as 0)
 constexpr double kSharePlaceMoved = 0.05;          // places moved up or down by one
@@ -37,6 +38,21 @@ constexpr double kOtherOutcome = 1e-3;
 // Judgement: a second independent slip in the same entry, relative to the
 // first (two confusions in one entry are far rarer than one).
 constexpr double kSecondSlip = 0.05;
+// A place a story leaves unexplained (written where the story says nothing
+// was): the chance of that value among the 60 a place takes.
+constexpr double kUnexplainedPlace = 1.0 / 60;
+// Judgement: a copyist correcting an entry against computation where the
+// author departed (or changing a reading the other witnesses keep); each
+// witness that reads otherwise would have had to do it. A checker leaves a
+// one-unit difference alone (it is within his own rounding), so correcting
+// one is far rarer than correcting a larger one.
+constexpr double kCorrection = 0.05;
+constexpr double kCorrectionOneUnit = 0.01;
+constexpr double kCorrectionLarger = 0.3;
+// Judgement: a slip inherited from an ancestor written in another numeral
+// script of the tradition (the scripts the other witnesses write), relative
+// to one in the witness's own script; listed confusions only.
+constexpr double kOtherScript = 0.2;
 // Judgement: the stories not thought of, as a likelihood beside the others
 // (times the copy's slip rate): keeps a lone weak story from scoring 1.
 constexpr double kOtherStories = 2e-3;
@@ -69,16 +85,11 @@ constexpr double kAuthorTwoUnitsShare = 0.01;
 // lies near the rounding boundary (within 0.75 unit of the reading), where a
 // neighbour departs the same way (the author's departures come in smooth
 // runs), where the other witnesses read the same value (more than half of
-// them), and where they read the model's value (the others would all have
-// had to correct the author).
+// them); where some read the model's value, each of them would have had to
+// correct the author (kCorrection, below, once per witness).
 constexpr double kBoundaryFactor = 5;
 constexpr double kNeighbourFactor = 10;
 constexpr double kTraditionSharesFactor = 50;
-constexpr double kTraditionAgainstFactor = 0.01;
-// Judgement: where the other witnesses agree on a reading near the model, a
-// reading that lands on the model's value instead is this much less likely
-// to be the original.
-constexpr double kAgainstTradition = 0.1;
 
 /// The author's departures from the model, measured on one column.
 struct AuthorProfile {

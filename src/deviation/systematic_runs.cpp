@@ -12,11 +12,13 @@
 namespace apograph::deviation::internal {
 namespace {
 
-// Judgement: three consecutive rows changed the same way are not chance
-// (two could be two independent slips of one kind).
-constexpr int kMinRows = 3;
+// Judgement: two consecutive rows changed the same way, each beyond the
+// author's departure, are one slip repeated rather than two slips that happen
+// to agree (slips touch a few percent of the entries, one kind of place slip
+// a tenth of those).
+constexpr int kMinRows = 2;
 
-enum class Pattern { kEmpty, kHeld, kUp, kDown, kDoubled, kOffset };
+enum class Pattern { kLeading, kEmpty, kHeld, kUp, kDown, kDoubled, kOffset };
 
 struct Transform {
   Pattern pattern = Pattern::kEmpty;
@@ -36,6 +38,16 @@ std::optional<Sexagesimal> Restore(const Transform& t, const Sexagesimal& c, con
   const std::size_t n = d.d.size(), p = t.place;
   if (n < 2 || want.d.size() != n || p >= n) return std::nullopt;
   switch (t.pattern) {
+    case Pattern::kLeading: {  // the first place that is not 0 left empty
+      const auto lead = std::find_if(want.d.begin(), want.d.end(), [](auto v) { return v != 0; });
+      if (lead == want.d.end()) return std::nullopt;
+      const auto q = static_cast<std::size_t>(lead - want.d.begin());
+      for (std::size_t j = 0; j <= q; ++j) {
+        if (d.d[j] != 0) return std::nullopt;
+      }
+      d.d[q] = want.d[q];
+      break;
+    }
     case Pattern::kEmpty:
     case Pattern::kHeld:
       if (d.d[p] != (t.pattern == Pattern::kEmpty ? 0 : t.value)) return std::nullopt;
@@ -102,6 +114,7 @@ struct Scan {
     const auto copy = Copy(r);
     if (!copy) return out;
     const Digits d = ToDigits(*copy, places);
+    if (Fits({Pattern::kLeading, 0, 0}, r)) out.push_back({Pattern::kLeading, 0, 0});
     for (std::size_t p = 0; p < d.d.size(); ++p) {
       for (Pattern pattern :
            {Pattern::kEmpty, Pattern::kHeld, Pattern::kUp, Pattern::kDown, Pattern::kDoubled}) {
@@ -112,7 +125,10 @@ struct Scan {
     }
     const auto units =
         static_cast<std::int64_t>(std::llround(DiffUnits(*copy, Expected(r), places)));
-    if (std::llabs(units) > column.author.typical) out.push_back({Pattern::kOffset, 0, units});
+    // A constant error: beyond the author's departure, or within it where the
+    // other witnesses read otherwise (then it is not the author's).
+    if (units != 0 && (std::llabs(units) > column.author.typical || column.contradicted[r]))
+      out.push_back({Pattern::kOffset, 0, units});
     return out;
   }
   Run Grow(const Transform& t, std::size_t seed, const std::vector<bool>& claimed) const {
@@ -123,7 +139,9 @@ struct Scan {
     for (std::size_t r = run.first; r <= run.last; ++r) {
       if (*Fits(t, r) == *Copy(r)) continue;
       run.changed.push_back(r);
-      run.deviant += column.deviant[r];
+      // A row counts when beyond the author's departure, or off the reading
+      // the other witnesses agree on.
+      run.deviant += column.deviant[r] || column.contradicted[r];
     }
     if (!run.changed.empty()) {
       run.first = run.changed.front();
@@ -144,6 +162,9 @@ std::string Describe(const Run& run, const Finding& f, const std::string& unit, 
   const std::string next = PlaceName(static_cast<int>(t.place + 1), unit);
   const std::string from = tradition ? "the other witnesses" : "the model";
   switch (t.pattern) {
+    case Pattern::kLeading:
+      return "the leading place left empty (written as 0) in " + Span(f) +
+             ": one slip repeated row after row; each entry's leading place supplied from " + from;
     case Pattern::kEmpty:
       return "the " + place + " left empty (written as 0) in " + Span(f) +
              ": one slip repeated row after row; each entry's " + place + " supplied from " + from;
@@ -210,7 +231,7 @@ std::vector<Finding> SystematicRuns(const Transcription& table, const ColumnValu
   const Scan scan{table, values, options, column, places};
   std::vector<Run> runs;
   for (std::size_t r = 0; r < table.rows.size(); ++r) {
-    if (claimed[r] || !column.deviant[r]) continue;
+    if (claimed[r] || (!column.deviant[r] && !column.contradicted[r])) continue;
     for (const auto& t : scan.Seeds(r)) {
       const bool grown = std::any_of(runs.begin(), runs.end(), [&](const Run& o) {
         return o.transform == t && o.first <= r && r <= o.last;

@@ -68,11 +68,11 @@ void FillTradition(ColumnRun& run, const std::vector<ColumnRun>& all,
       if (other.witness == run.witness || other.ref.column_name != run.ref.column_name) continue;
       auto it = other.rows.find(arg);
       if (it == other.rows.end()) continue;
+      // A modern edition is no evidence of the author's text: it may have
+      // recomputed the table (and not with the reference's model).
+      if (ws[other.witness]->witness.Kind() == WitnessKind::kModernEdition) continue;
       const auto v = ReadValue(*ws[other.witness], it->second, other.ref.column, run.places);
       if (!v) continue;
-      // A modern edition reading the model's value may have recomputed it.
-      if (ws[other.witness]->witness.Kind() == WitnessKind::kModernEdition && model && *v == *model)
-        continue;
       ++cell.witnesses;
       cell.same += own && *v == *own;
       cell.model += model && *v == *model;
@@ -80,7 +80,10 @@ void FillTradition(ColumnRun& run, const std::vector<ColumnRun>& all,
       ++entry.first;
     }
     for (const auto& [text, entry] : tally) {
-      if (2 * entry.first > cell.witnesses) cell.consensus = entry.second;
+      if (2 * entry.first > cell.witnesses) {
+        cell.consensus = entry.second;
+        cell.agree = entry.first;
+      }
     }
     run.values.tradition[r] = cell;
   }
@@ -155,7 +158,9 @@ std::vector<WitnessFindings> Explain(const std::vector<const Transcription*>& ws
   }
   for (auto& run : runs) {
     const Transcription& t = *ws[run.witness];
-    run.found = deviation::ExplainColumn(t, run.values, *scripts[run.witness], options);
+    run.found = deviation::ExplainColumn(
+        t, run.values, *scripts[run.witness], options,
+        tradition ? scripts : std::vector<const deviation::NumeralScript*>{});
     run.verdict = deviation::GuardReference(
         Compared(run, t), deviation::FlaggedCells(run.found, run.ref.column), guard);
   }
