@@ -32,6 +32,9 @@ void PrintRow(const std::string& name, const testing::GradeCounts& c, bool preci
   else
     std::printf(" %9s", "-");
   std::printf(" %8.1f%% %8.1f%%\n", Share(c.right_class, c.caught), Share(c.restored, c.caught));
+  if (std::getenv("BENCH_RAW"))  // counts, to sum runs over several seed ranges
+    std::printf("raw|%s|%ld|%ld|%ld|%ld|%ld\n", name.c_str(), c.erroneous, c.caught, c.flagged,
+                c.right_class, c.restored);
 }
 
 void Header(const char* what) {
