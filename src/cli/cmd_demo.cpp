@@ -134,6 +134,7 @@ int RunDemo(const std::vector<std::string>& args, Io& io) {
   ReportRequest request;
   request.output_dir = dir.string();
   request.report.max_findings = findings;
+  request.editor = pipeline::DefaultEditor();
   WriteWorkReports(db, tables.front().work.id, request, io);
   io.out << "Files in " << dir.string()
          << "/: the edition database, one report per table (*.md, every\n"

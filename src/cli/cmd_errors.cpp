@@ -12,6 +12,7 @@
 #include "deviation/explain.hpp"
 #include "deviation/numeral_script.hpp"
 #include "model/model.hpp"
+#include "pipeline/decisions.hpp"
 #include "pipeline/reference.hpp"
 #include "pipeline/witness_findings.hpp"
 #include "store/deviation_store.hpp"
@@ -291,7 +292,7 @@ int RunErrors(const std::vector<std::string>& args, Io& io) {
   if (!o.no_record) {
     auto proposals = Proposals(t, CurrentRevision(db, o), ModelText(refs, t), findings);
     if (!proposals.empty()) {
-      const auto r = store::RecordEmendations(db, proposals);
+      const auto r = pipeline::RecordProposals(db, proposals);
       io.err << "recorded " << r.added << " new proposed emendation" << (r.added == 1 ? "" : "s")
              << " in " << o.db
              << (r.kept ? " (" + std::to_string(r.kept) + " already recorded)" : "") << "\n";
