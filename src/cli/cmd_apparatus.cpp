@@ -9,10 +9,10 @@
 
 #include "cli/collate_input.hpp"
 #include "lineage/lineage.hpp"
-#include "pipeline/analysis.hpp"
-#include "publish/apparatus.hpp"
 #include "lineage/parsimony.hpp"
+#include "pipeline/analysis.hpp"
 #include "pipeline/decisions.hpp"
+#include "publish/apparatus.hpp"
 #include "support/input_error.hpp"
 
 namespace apograph::cli {
@@ -104,7 +104,8 @@ int RunApparatus(const std::vector<std::string>& args, Io& io) {
   CheckChoice("--format", format, {"text", "tei", "latex", "csv"});
   const std::string who = pipeline::DefaultEditor(editor);
   std::vector<pipeline::DecisionRequest> pending;
-  for (const auto& o : overrides) pending.push_back(ParseDecision("--override", o, true, request.table));
+  for (const auto& o : overrides)
+    pending.push_back(ParseDecision("--override", o, true, request.table));
   for (const auto& w : withdrawals)
     pending.push_back(ParseDecision("--withdraw", w, false, request.table));
   for (auto& p : pending) p.editor = who, p.note = note;

@@ -113,11 +113,15 @@ json CellJson(const pipeline::FindingState& f, const pipeline::FindingCell& c) {
 }
 
 json EditedJson(const pipeline::EditedCellDecision& e) {
-  return {{"table", e.table_id},    {"arg", e.arg},
-          {"column", e.column},     {"reading", e.reading},
+  return {{"table", e.table_id},
+          {"arg", e.arg},
+          {"column", e.column},
+          {"reading", e.reading},
           {"action", pipeline::ToString(e.decision.action)},
-          {"decision", e.decision.id}, {"editor", e.decision.editor},
-          {"decided_at", e.decision.decided_at}, {"note", e.decision.note},
+          {"decision", e.decision.id},
+          {"editor", e.decision.editor},
+          {"decided_at", e.decision.decided_at},
+          {"note", e.decision.note},
           {"state", e.state}};
 }
 
@@ -128,7 +132,8 @@ std::string Args(const pipeline::FindingState& f) {
 
 std::string Readings(const pipeline::FindingState& f, bool proposed) {
   std::string out;
-  for (const auto& c : f.cells) out += (out.empty() ? "" : " ") + (proposed ? c.proposed : c.tabulated);
+  for (const auto& c : f.cells)
+    out += (out.empty() ? "" : " ") + (proposed ? c.proposed : c.tabulated);
   return out;
 }
 
@@ -176,7 +181,7 @@ int List(store::Database& db, const EmendationOptions& o, Io& io) {
     return kOk;
   }
   Tabular tab;
-  tab.headers = {"id",       "table", "witness", "rev",   "arg",   "column",  "tabulated",
+  tab.headers = {"id",       "table", "witness", "rev",   "arg",     "column",  "tabulated",
                  "proposed", "class", "score",   "state", "decided", "evidence"};
   for (const auto& x : findings) {
     char score[16];
@@ -215,8 +220,8 @@ int Log(store::Database& db, const EmendationOptions& o, Io& io) {
                          ? "emendation " + std::to_string(*d.finding) + " (" + d.witness + ")"
                          : d.arg + ":" + d.column + " = " + d.reading;
     if (d.withdrawn_by) on += " [withdrawn by " + std::to_string(*d.withdrawn_by) + "]";
-    tab.Add({std::to_string(d.id), d.table_id, pipeline::ToString(d.action), d.editor,
-             d.decided_at, on, d.note});
+    tab.Add({std::to_string(d.id), d.table_id, pipeline::ToString(d.action), d.editor, d.decided_at,
+             on, d.note});
   }
   io.out << (ParseFormat(o.format) == Format::kCsv ? tab.RenderCsv() : tab.RenderText());
   return kOk;
@@ -241,9 +246,9 @@ pipeline::DecisionRequest Request(const EmendationOptions& o, const po::variable
   if (vm.count("id")) r.target.emendation = o.id;
   if (vm.count("decision")) r.target.decision = o.decision;
   r.target.table_id = o.table;
-  const bool on_cell = r.action == pipeline::Action::kOverride ||
-                       r.action == pipeline::Action::kConjecture ||
-                       (r.action == pipeline::Action::kUndo && !vm.count("id") && !vm.count("decision"));
+  const bool on_cell =
+      r.action == pipeline::Action::kOverride || r.action == pipeline::Action::kConjecture ||
+      (r.action == pipeline::Action::kUndo && !vm.count("id") && !vm.count("decision"));
   if (on_cell) {
     if (o.table.empty() || o.cell.empty())
       throw InputError::ForOption("apograph emendation " + o.action,
@@ -272,7 +277,9 @@ void PrintDecision(const pipeline::Decision& d, const EmendationOptions& o, Io& 
   if (d.finding) io.out << ", emendation " << *d.finding << " of " << d.witness;
   if (!d.reading.empty()) io.out << ", " << d.arg << " " << d.column << " = " << d.reading;
   if (d.undoes) io.out << ", withdrawing decision " << *d.undoes;
-  for (const auto& c : d.cells) io.out << "\n  " << c.arg << " " << c.column << ": " << c.reading << " " << c.witness << "] " << c.proposed;
+  for (const auto& c : d.cells)
+    io.out << "\n  " << c.arg << " " << c.column << ": " << c.reading << " " << c.witness << "] "
+           << c.proposed;
   io.out << (d.note.empty() ? "" : "\n  note: " + d.note) << "\n";
 }
 

@@ -12,7 +12,8 @@
 namespace apograph::cli {
 
 extern const char kReportUsage[] =
-    "usage: apograph report (--table ID | --work ID) [--findings N] [--output DIR] [--editor NAME]\n"
+    "usage: apograph report (--table ID | --work ID) [--findings N] [--output DIR] [--editor "
+    "NAME]\n"
     "                       [--db FILE]\n"
     "\n"
     "Runs the pipeline on the table (or on every table of the work) and prints\n"

@@ -285,12 +285,14 @@ std::string CallerWhy(const Reading& r, const CellJudgement& j) {
   if (!j.decision.empty()) return "the editor (" + j.editor + ") " + j.decision;
   const std::string slip = SlipWords(j);
   if (j.error) {
-    const std::string kind = j.cause.empty() ? "a copyist's slip" : "a copyist's slip (" + j.cause + ")";
+    const std::string kind =
+        j.cause.empty() ? "a copyist's slip" : "a copyist's slip (" + j.cause + ")";
     return slip.empty() ? kind : kind + ": " + slip;
   }
   if (!slip.empty()) return "the author's own value: " + slip;
   if (j.computed && r.value && r.value->Identical(*j.computed)) return "agrees with recomputation";
-  if (j.computed) return "agrees with recomputation within its rounding (" + j.computed->ToString() + ")";
+  if (j.computed)
+    return "agrees with recomputation within its rounding (" + j.computed->ToString() + ")";
   return "not judged an error";
 }
 

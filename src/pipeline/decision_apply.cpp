@@ -50,8 +50,10 @@ void ApplyOnEditedCell(const EditedCellDecision& e, const Transcription& t,
   const auto row = rows.find(e.arg);
   const int column = t.ColumnIndex(e.column);
   if (row == rows.end() || column < 0) return;
-  const Cell& cell = t.rows[static_cast<std::size_t>(row->second)].cells[static_cast<std::size_t>(column)];
-  const bool comparable = (cell.state == CellState::kRead && cell.value) || cell.state == CellState::kBlank;
+  const Cell& cell =
+      t.rows[static_cast<std::size_t>(row->second)].cells[static_cast<std::size_t>(column)];
+  const bool comparable =
+      (cell.state == CellState::kRead && cell.value) || cell.state == CellState::kBlank;
   if (!comparable) return;
   const auto adopted = Sexagesimal::Parse(e.reading);
   const bool right = adopted && cell.value && cell.value->Identical(*adopted);
@@ -67,8 +69,8 @@ void ApplyOnEditedCell(const EditedCellDecision& e, const Transcription& t,
     j->emendation = adopted;
   }
   const std::string what = e.decision.action == Action::kConjecture ? "conjectured " : "adopted ";
-  j->decision = WithNote(right ? what + "this reading" : what + e.reading + " instead",
-                         e.decision.note);
+  j->decision =
+      WithNote(right ? what + "this reading" : what + e.reading + " instead", e.decision.note);
 }
 
 std::map<std::string, int> RowsByArgument(const Transcription& t) {

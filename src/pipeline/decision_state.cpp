@@ -295,7 +295,8 @@ void DecisionContext::RefreshMirrors(const std::optional<std::string>& witness) 
     const std::optional<std::string> at =
         f.decision ? std::optional<std::string>(f.decision->decided_at) : std::nullopt;
     const std::string note = f.decision ? f.decision->note : "";
-    for (const auto& c : f.cells) store::MirrorEmendationStatus(db_, c.emendation, status, at, note);
+    for (const auto& c : f.cells)
+      store::MirrorEmendationStatus(db_, c.emendation, status, at, note);
   }
 }
 

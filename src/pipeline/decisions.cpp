@@ -32,8 +32,8 @@ const char* ToString(Action action) {
 }
 
 std::optional<Action> ActionFromString(const std::string& text) {
-  for (auto a : {Action::kAccept, Action::kReject, Action::kOverride, Action::kConjecture,
-                 Action::kUndo}) {
+  for (auto a :
+       {Action::kAccept, Action::kReject, Action::kOverride, Action::kConjecture, Action::kUndo}) {
     if (text == ToString(a)) return a;
   }
   return std::nullopt;
@@ -71,10 +71,10 @@ void CheckExpected(const std::string& actual, const std::optional<std::string>& 
              in_force->decided_at + ")";
   }
   throw StaleDecision(
-      InputError::ForOption("--expect", ExpectedFound(what + " in the state you saw (" +
-                                                          Quoted(*expected) + ")",
-                                                      found + ": it changed meanwhile; list again "
-                                                              "and decide on what is there now"))
+      InputError::ForOption(
+          "--expect", ExpectedFound(what + " in the state you saw (" + Quoted(*expected) + ")",
+                                    found + ": it changed meanwhile; list again "
+                                            "and decide on what is there now"))
           .diagnostics());
 }
 
@@ -104,9 +104,9 @@ Decision DecideFinding(store::Database& db, const DecisionRequest& r) {
   const FindingState f = FindingOf(cx, e);
   CheckExpected(f.state, r.expected_state, "emendation " + std::to_string(e.id), f.decision);
   if (f.status == FindingStatus::kSuperseded) {
-    throw InputError::ForOption(kCommand, ExpectedFound("a current proposal",
-                                                        "emendation " + std::to_string(e.id) +
-                                                            ", superseded (" + f.review + ")"));
+    throw InputError::ForOption(
+        kCommand, ExpectedFound("a current proposal", "emendation " + std::to_string(e.id) +
+                                                          ", superseded (" + f.review + ")"));
   }
   store::DecisionRow row;
   row.table_id = e.table_id;
@@ -144,8 +144,8 @@ EditedTarget CheckCell(const DecisionContext& cx, const DecisionTarget& t) {
     row = row || cx.RowAt(siglum, *arg).has_value();
   }
   if (!column) {
-    throw InputError::ForOption(
-        t.option, ExpectedFound("a column of table " + t.table_id, Quoted(t.column)));
+    throw InputError::ForOption(t.option,
+                                ExpectedFound("a column of table " + t.table_id, Quoted(t.column)));
   }
   if (!row) {
     throw InputError::ForOption(
@@ -162,7 +162,8 @@ void CheckConjecture(const DecisionContext& cx, const EditedTarget& cell,
     const auto row = cx.RowAt(siglum, cell.arg);
     const int c = tr.ColumnIndex(cell.column);
     if (!row || c < 0) continue;
-    const auto& v = tr.rows[static_cast<std::size_t>(*row)].cells[static_cast<std::size_t>(c)].value;
+    const auto& v =
+        tr.rows[static_cast<std::size_t>(*row)].cells[static_cast<std::size_t>(c)].value;
     if (v && v->Identical(reading)) carriers += (carriers.empty() ? "" : " ") + siglum;
   }
   if (!carriers.empty()) {
@@ -216,13 +217,14 @@ UndoTarget FindUndoTarget(DecisionContext& cx, const DecisionRequest& r,
     const auto* row = cx.Find(*r.target.decision);
     const std::string what = "decision " + std::to_string(*r.target.decision);
     if (!row || row->action == "undo") {
-      throw InputError::ForOption(kCommand, ExpectedFound("the id of a decision (see apograph "
-                                                          "emendation log)",
-                                                          Quoted(std::to_string(*r.target.decision))));
+      throw InputError::ForOption(kCommand,
+                                  ExpectedFound("the id of a decision (see apograph "
+                                                "emendation log)",
+                                                Quoted(std::to_string(*r.target.decision))));
     }
     const auto by = cx.WithdrawnBy(row->id);
-    return {by ? nullptr : row,
-            (by ? "withdrawn:" : row->action + ":") + std::to_string(row->id), what};
+    return {by ? nullptr : row, (by ? "withdrawn:" : row->action + ":") + std::to_string(row->id),
+            what};
   }
   if (e) {
     const FindingState f = FindingOf(cx, *e);
@@ -231,7 +233,8 @@ UndoTarget FindUndoTarget(DecisionContext& cx, const DecisionRequest& r,
   }
   const EditedTarget cell = CheckCell(cx, r.target);
   const auto [state, in_force] = CellState(cx, cell);
-  return {in_force ? cx.Find(in_force->id) : nullptr, state, "cell " + cell.arg + ":" + cell.column};
+  return {in_force ? cx.Find(in_force->id) : nullptr, state,
+          "cell " + cell.arg + ":" + cell.column};
 }
 
 Decision Undo(store::Database& db, const DecisionRequest& r) {
@@ -251,7 +254,8 @@ Decision Undo(store::Database& db, const DecisionRequest& r) {
       target.row ? std::optional<Decision>(internal::ToDecision(*target.row)) : std::nullopt;
   CheckExpected(target.state, r.expected_state, target.what, in_force);
   if (!target.row)
-    throw InputError::ForOption(kCommand, ExpectedFound("a decision to undo", target.what + " has none in force"));
+    throw InputError::ForOption(
+        kCommand, ExpectedFound("a decision to undo", target.what + " has none in force"));
   store::DecisionRow row;
   row.table_id = table;
   row.action = "undo";
@@ -292,8 +296,8 @@ std::vector<FindingState> ListFindings(store::Database& db, const FindingFilter&
   for (const auto& t : tables) {
     DecisionContext cx(db, t);
     for (auto& f : cx.EvaluateAll(filter.witness)) {
-      const bool wanted = filter.status ? f.status == *filter.status
-                                        : f.status != FindingStatus::kSuperseded;
+      const bool wanted =
+          filter.status ? f.status == *filter.status : f.status != FindingStatus::kSuperseded;
       if (wanted) out.push_back(std::move(f));
     }
   }

@@ -156,8 +156,8 @@ ApparatusEntry Entry(const CellInput& in) {
   for (std::size_t k = 0; k < in.cell.readings.size(); ++k) {
     if (static_cast<int>(k) == chosen) continue;
     const Reading& r = in.cell.readings[k];
-    e.variants.push_back({r.text, r.sigla, r.kind, r.error, r.cause, internal::VariantWhy(r),
-                          r.editor});
+    e.variants.push_back(
+        {r.text, r.sigla, r.kind, r.error, r.cause, internal::VariantWhy(r), r.editor});
   }
   return e;
 }
@@ -271,8 +271,9 @@ Apparatus BuildApparatus(const collate::Collation& c, const ApparatusOptions& op
     for (const auto& w : c.witnesses) branches.push_back({w.siglum});
   }
   const auto ts = InWitnessOrder(c, options.transcriptions);
-  Apparatus a{c.table_id,        c.table_title, c.work, c.witnesses, {}, options.editors,
-              c.reference_description, c.argument, c.columns, {},  {},  {}};
+  Apparatus a{
+      c.table_id, c.table_title, c.work, c.witnesses, {}, options.editors, c.reference_description,
+      c.argument, c.columns,     {},     {},          {}};
   for (const auto& t : ts) a.folios.push_back(t.folios);
   for (std::size_t r = 0; r < c.rows.size(); ++r) {
     const auto& row = c.rows[r];

@@ -102,9 +102,9 @@ struct Apparatus {
   std::string reference;             ///< what the readings were recomputed from
   ArgumentSpec argument;
   std::vector<ColumnSpec> columns;
-  std::vector<Sexagesimal> arguments;                    ///< per row
+  std::vector<Sexagesimal> arguments;                      ///< per row
   std::vector<std::vector<ArgumentVariant>> arg_variants;  ///< per row
-  std::vector<std::vector<ApparatusEntry>> cells;        ///< [row][column]
+  std::vector<std::vector<ApparatusEntry>> cells;          ///< [row][column]
   /// The title, or the table id when none was imported.
   std::string Title() const { return table_title.empty() ? table_id : table_title; }
 };

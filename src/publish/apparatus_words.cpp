@@ -45,8 +45,9 @@ std::string EditorReason(LemmaSource source, const std::string& editor, const st
 }
 
 std::string AcceptedReason(const collate::Reading& accepted, bool in_a_witness) {
-  std::string out = in_a_witness ? "confirmed by " + accepted.editor + ", who accepted it as the "
-                                                                       "emendation of " +
+  std::string out = in_a_witness ? "confirmed by " + accepted.editor +
+                                       ", who accepted it as the "
+                                       "emendation of " +
                                        Sigla(accepted.sigla) + "'s " + accepted.text
                                  : "emendation of " + Sigla(accepted.sigla) + "'s " +
                                        accepted.text + " accepted by " + accepted.editor;
@@ -78,10 +79,9 @@ std::string DeviatesReason(const collate::Collation& c, const collate::CollatedC
     if (r.Comparable()) legible.insert(legible.end(), r.sigla.begin(), r.sigla.end());
   }
   const std::string from = cell.computed ? " from recomputation" : "";
-  std::string out = legible.size() == c.witnesses.size()
-                        ? "every witness deviates" + from
-                        : "every witness that can be read here (" + Sigla(legible) +
-                              ") deviates" + from;
+  std::string out = legible.size() == c.witnesses.size() ? "every witness deviates" + from
+                                                         : "every witness that can be read here (" +
+                                                               Sigla(legible) + ") deviates" + from;
   if (!restored) return out + "; no restoration differs from them";
   return out + ": restored by recomputation, a conjecture for the editor to confirm";
 }

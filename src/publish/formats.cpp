@@ -16,7 +16,8 @@ std::string Same(const std::string& s) { return s; }
 void WitnessRows(const Apparatus& a, Tabular& t) {
   for (std::size_t k = 0; k < a.witnesses.size(); ++k) {
     const std::string folios = k < a.folios.size() ? a.folios[k] : "";
-    t.Add({"", "", "witness", "", a.witnesses[k].siglum, "", "", "", internal::WitnessLine(a.witnesses[k], folios), "", "", ""});
+    t.Add({"", "", "witness", "", a.witnesses[k].siglum, "", "", "",
+           internal::WitnessLine(a.witnesses[k], folios), "", "", ""});
   }
 }
 

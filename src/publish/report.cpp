@@ -139,8 +139,11 @@ std::string DecisionWords(const pipeline::TableAnalysis& a, const std::string& s
   const auto cells = FoundCells(*t, f);
   std::string out;
   if (const auto* w = a.decisions.At(siglum, f.column_name, cells.front().arg)) {
+    const auto& first = f.cells.front().emendation;
+    const bool same = first && first->ToString() == w->cell.proposed;
     out = w->decision.action == pipeline::Action::kAccept
-              ? " - accepted (" + w->cell.proposed + ") by " + Who(w->decision)
+              ? " - accepted by " + Who(w->decision) +
+                    (same ? "" : " (adopting " + w->cell.proposed + ")")
               : " - rejected by " + Who(w->decision) + "; the reading is kept";
   } else {
     out = " - undecided";

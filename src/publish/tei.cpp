@@ -158,7 +158,8 @@ void LabelCell(const Apparatus& a, std::size_t r, std::ostringstream& o) {
   o << "<cell role=\"label\"><app><lem>" << arg << "</lem>";
   for (const auto& v : a.arg_variants[r])
     o << "<rdg wit=\"" << Wit(v.sigla) << "\">" << Xml(v.text) << "</rdg>";
-  o << "<note>argument miswritten: the row stands for " << arg << " by its place among its "
+  o << "<note>argument miswritten: the row stands for " << arg
+    << " by its place among its "
        "neighbours</note>";
   o << "</app></cell>";
 }

@@ -93,8 +93,8 @@ std::optional<std::string> LoadDecisionTable(Database& db, std::int64_t id) {
 }
 
 std::vector<std::string> TablesWithDecisions(Database& db) {
-  auto s = db.Prepare(
-      "SELECT table_id FROM decision UNION SELECT table_id FROM emendation ORDER BY 1");
+  auto s =
+      db.Prepare("SELECT table_id FROM decision UNION SELECT table_id FROM emendation ORDER BY 1");
   std::vector<std::string> out;
   while (s.Step()) out.push_back(s.Text(0));
   return out;
@@ -105,7 +105,9 @@ void MirrorEmendationStatus(Database& db, std::int64_t emendation_id, const std:
   auto s = db.Prepare(
       "UPDATE emendation SET status = ?2, decided_at = ?3, editor_note = ?4 WHERE id = ?1 AND "
       "(status <> ?2 OR decided_at IS NOT ?3 OR editor_note <> ?4)");
-  s.Bind(1, emendation_id).Bind(2, status).Bind(3, status == "proposed" ? std::nullopt : decided_at);
+  s.Bind(1, emendation_id)
+      .Bind(2, status)
+      .Bind(3, status == "proposed" ? std::nullopt : decided_at);
   s.Bind(4, note).Run();
 }
 

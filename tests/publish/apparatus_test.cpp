@@ -44,15 +44,16 @@ std::vector<apograph::Transcription> Tradition() {
   ws[4].rows[6].cells[0].state = apograph::CellState::kIllegible;
   ws[4].rows[6].cells[0].value.reset();
   ws[4].rows[6].cells[0].raw = "?";
-  ws[0].rows[1].cells[0].addition = apograph::Addition::kMargin;   // A: row 2 in the margin
-  ws[2].rows[3].cells[0].corrected_from = "1;1";                   // C: row 4 corrected
+  ws[0].rows[1].cells[0].addition = apograph::Addition::kMargin;  // A: row 2 in the margin
+  ws[2].rows[3].cells[0].corrected_from = "1;1";                  // C: row 4 corrected
   ws[3].rows[5].argument.raw = "9";                               // D: row 6's argument miswritten
   ws[3].rows[5].argument.value = Sexagesimal::ParseOrThrow("9");
   for (auto& w : ws) w.folios = "3r-4v";
   return ws;
 }
 
-publish::Apparatus Build(const collate::Collation& c, const std::vector<apograph::Transcription>* ts,
+publish::Apparatus Build(const collate::Collation& c,
+                         const std::vector<apograph::Transcription>* ts,
                          std::vector<std::vector<std::string>> branches = {},
                          std::vector<publish::Override> overrides = {}) {
   publish::ApparatusOptions o;
@@ -134,12 +135,10 @@ std::vector<apograph::Transcription> AllWrong() {
 collate::Collation Judged(const std::vector<apograph::Transcription>& ws) {
   const auto right = Tradition();
   collate::CollateOptions o;
-  o.reference = collate::Reference{"the archetype", [right](const Sexagesimal& arg, int) {
-                                      return right[0].rows[static_cast<std::size_t>(
-                                                               arg.ToDouble() - 1)]
-                                          .cells[0]
-                                          .value;
-                                    }};
+  o.reference = collate::Reference{
+      "the archetype", [right](const Sexagesimal& arg, int) {
+        return right[0].rows[static_cast<std::size_t>(arg.ToDouble() - 1)].cells[0].value;
+      }};
   return collate::Collate(ws, o);
 }
 
@@ -172,8 +171,9 @@ TEST_CASE("where every witness errs the restoration is the lemma, marked a conje
   CHECK(apograph::testing::TeiChecker().Check(tei) == std::vector<std::string>{});
   CHECK(publish::ToText(a).find(e.lemma + " conj. (every witness deviates") != std::string::npos);
   // An editor's override wins; one in no witness is the editor's emendation.
-  const auto o = Build(c, &ws, {}, {{"9", "c1", "9;9", "recomputed", false, "A. Editor"},
-                                    {"3", "c1", ws[1].rows[2].cells[0].raw, "", false, "A. Editor"}});
+  const auto o = Build(c, &ws, {},
+                       {{"9", "c1", "9;9", "recomputed", false, "A. Editor"},
+                        {"3", "c1", ws[1].rows[2].cells[0].raw, "", false, "A. Editor"}});
   CHECK(o.cells[8][0].source == publish::LemmaSource::kEmendation);
   CHECK(o.cells[8][0].resp == "A. Editor");
   CHECK(o.cells[8][0].reason == "emended by A. Editor: recomputed");
@@ -182,7 +182,8 @@ TEST_CASE("where every witness errs the restoration is the lemma, marked a conje
   const auto conj = Build(c, &ws, {}, {{"9", "c1", "9;9", "", true, "A. Editor"}});
   CHECK(conj.cells[8][0].source == publish::LemmaSource::kConjecture);
   const std::string tei2 = publish::ToTei(conj);
-  CHECK(tei2.find("<lem type=\"conjecture\" resp=\"#ed-A._Editor\">9;9</lem>") != std::string::npos);
+  CHECK(tei2.find("<lem type=\"conjecture\" resp=\"#ed-A._Editor\">9;9</lem>") !=
+        std::string::npos);
   CHECK(apograph::testing::TeiChecker().Check(tei2) == std::vector<std::string>{});
   CHECK_THROWS_AS(Build(c, &ws, {}, {{"99", "c1", "1", ""}}), apograph::InputError);
   CHECK_THROWS_AS(Build(c, &ws, {}, {{"3", "nope", "1", ""}}), apograph::InputError);
@@ -197,7 +198,9 @@ TEST_CASE("TEI P5 output passes the content rules and carries app, lem, rdg, wit
   tinyxml2::XMLDocument doc;
   REQUIRE(doc.Parse(tei.c_str()) == tinyxml2::XML_SUCCESS);
   auto* root = doc.RootElement();
-  auto* title = root->FirstChildElement("teiHeader")->FirstChildElement("fileDesc")->FirstChildElement("titleStmt");
+  auto* title = root->FirstChildElement("teiHeader")
+                    ->FirstChildElement("fileDesc")
+                    ->FirstChildElement("titleStmt");
   REQUIRE(title->FirstChildElement("editor"));
   CHECK(std::string(title->FirstChildElement("editor")->GetText()) == "A. Editor");
   auto* list = root->FirstChildElement("teiHeader")
@@ -218,8 +221,9 @@ TEST_CASE("TEI P5 output passes the content rules and carries app, lem, rdg, wit
   CHECK(tei.find("<rdg wit=\"#E\" type=\"illegible\"><gap reason=\"illegible\"/></rdg>") !=
         std::string::npos);
   // A broken document is caught by the checker.
-  CHECK_FALSE(checker.Check("<TEI xmlns=\"http://www.tei-c.org/ns/1.0\"><text><app><lem/></app>"
-                            "</text></TEI>")
+  CHECK_FALSE(checker
+                  .Check("<TEI xmlns=\"http://www.tei-c.org/ns/1.0\"><text><app><lem/></app>"
+                         "</text></TEI>")
                   .empty());
   std::string dangling = tei;
   dangling.replace(dangling.find("wit=\"#B #C\""), 11, "wit=\"#Q\"");
@@ -228,7 +232,8 @@ TEST_CASE("TEI P5 output passes the content rules and carries app, lem, rdg, wit
   CHECK(publish::XmlId("P 1") == "P_1");
 }
 
-TEST_CASE("LaTeX: numbers aligned by place, apparatus keyed by argument, a document or a fragment") {
+TEST_CASE(
+    "LaTeX: numbers aligned by place, apparatus keyed by argument, a document or a fragment") {
   const auto ws = Tradition();
   const auto a = Build(collate::Collate(ws), &ws);
   const std::string tex = publish::ToLatex(a);
@@ -243,7 +248,9 @@ TEST_CASE("LaTeX: numbers aligned by place, apparatus keyed by argument, a docum
   CHECK(fragment.find("\\documentclass") == std::string::npos);
   CHECK(fragment.find("\\begin{document}") == std::string::npos);
   if (!apograph::testing::HaveLatexTools()) {
-    MESSAGE("skipped: pdflatex or pdffonts not on PATH (Debian: texlive-latex-base lmodern poppler-utils)");
+    MESSAGE(
+        "skipped: pdflatex or pdffonts not on PATH (Debian: texlive-latex-base lmodern "
+        "poppler-utils)");
     return;
   }
   const auto doc = apograph::testing::CompileLatex(tex);
@@ -268,9 +275,12 @@ std::vector<std::vector<std::string>> Records(const std::string& csv) {
   for (std::size_t i = 0; i < csv.size(); ++i) {
     const char ch = csv[i];
     if (quoted) {
-      if (ch == '"' && i + 1 < csv.size() && csv[i + 1] == '"') field += '"', ++i;
-      else if (ch == '"') quoted = false;
-      else field += ch;
+      if (ch == '"' && i + 1 < csv.size() && csv[i + 1] == '"')
+        field += '"', ++i;
+      else if (ch == '"')
+        quoted = false;
+      else
+        field += ch;
     } else if (ch == '"') {
       quoted = true;
     } else if (ch == ',') {
@@ -310,7 +320,8 @@ TEST_CASE("CSV: long form, one row per reading, quoted as RFC 4180 needs") {
   // and a delimiter for some spreadsheets) or a line break is quoted.
   for (const auto& r : records) {
     for (const auto& f : r) {
-      if (f.find_first_of(",;\"\n") != std::string::npos) CHECK(csv.find("\"" + f) != std::string::npos);
+      if (f.find_first_of(",;\"\n") != std::string::npos)
+        CHECK(csv.find("\"" + f) != std::string::npos);
     }
   }
   CHECK(csv.find(",\"Bibliotheca Inventa & Co, Cod. A <7>, fols. 3r-4v\",") != std::string::npos);

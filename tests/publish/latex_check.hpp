@@ -15,7 +15,8 @@
 namespace apograph::testing {
 
 inline bool HaveLatexTools() {
-  return std::system("command -v pdflatex > /dev/null 2>&1 && command -v pdffonts > /dev/null 2>&1") == 0;
+  return std::system(
+             "command -v pdflatex > /dev/null 2>&1 && command -v pdffonts > /dev/null 2>&1") == 0;
 }
 
 struct LatexResult {
@@ -25,15 +26,16 @@ struct LatexResult {
 };
 
 /// Compiles `main` (a whole document) with the files given beside it.
-inline LatexResult CompileLatex(const std::string& main,
-                                const std::vector<std::pair<std::string, std::string>>& files = {}) {
+inline LatexResult CompileLatex(
+    const std::string& main, const std::vector<std::pair<std::string, std::string>>& files = {}) {
   ScratchDir dir("latex");
   std::ofstream(dir / "main.tex") << main;
   for (const auto& [name, text] : files) std::ofstream(dir / name) << text;
   const std::string cd = "cd '" + dir.path().string() + "' && ";
   LatexResult r;
   r.compiled = std::system((cd + "pdflatex -interaction=nonstopmode -halt-on-error main.tex > "
-                                 "pdflatex.out 2>&1").c_str()) == 0 &&
+                                 "pdflatex.out 2>&1")
+                               .c_str()) == 0 &&
                std::filesystem::exists(dir / "main.pdf");
   if (!r.compiled) {
     const std::string log = ReadWholeFile(dir / "pdflatex.out");

@@ -28,7 +28,8 @@ class TeiChecker {
     const auto* root = doc.RootElement();
     if (Name(root) != "TEI") Fail("the root is not TEI");
     const char* ns = root->Attribute("xmlns");
-    if (!ns || std::string(ns) != "http://www.tei-c.org/ns/1.0") Fail("TEI lacks the TEI namespace");
+    if (!ns || std::string(ns) != "http://www.tei-c.org/ns/1.0")
+      Fail("TEI lacks the TEI namespace");
     ExpectChildren(root, {"teiHeader", "text"});
     CollectIds(root);
     Header(root->FirstChildElement("teiHeader"));
@@ -102,8 +103,10 @@ class TeiChecker {
          r = r->NextSiblingElement("respStmt")) {
       const auto rk = Children(r);
       const bool resp = std::count(rk.begin(), rk.end(), "resp") >= 1;
-      const bool who = std::count(rk.begin(), rk.end(), "name") + std::count(rk.begin(), rk.end(), "persName") +
-                           std::count(rk.begin(), rk.end(), "orgName") >= 1;
+      const bool who = std::count(rk.begin(), rk.end(), "name") +
+                           std::count(rk.begin(), rk.end(), "persName") +
+                           std::count(rk.begin(), rk.end(), "orgName") >=
+                       1;
       if (!resp || !who) Fail("respStmt needs resp and a name");
     }
   }
