@@ -1,6 +1,7 @@
 // apograph emendation: the findings apograph errors proposed and the
 // editor's decisions on them and on the edited table's cells. All the
 // deciding is pipeline/decisions.hpp's; this file reads options and prints.
+#include <cmath>
 #include <cstdio>
 #include <filesystem>
 #include <ostream>
@@ -97,7 +98,7 @@ json CellJson(const pipeline::FindingState& f, const pipeline::FindingCell& c) {
           {"proposed", c.proposed},
           {"class", f.cls},
           {"evidence", f.evidence},
-          {"score", f.score},
+          {"score", std::round(f.score * 100) / 100},
           {"model", f.model},
           {"status", pipeline::ToString(f.status)},
           {"state", f.state},
