@@ -99,14 +99,18 @@ CREATE VIEW decision_log AS
   LEFT JOIN decision_cell c ON c.decision_id = d.id
   ORDER BY d.id DESC;
 
--- Existing decisions move in (their editor was not recorded).
+-- Existing decisions move in (their editor was not recorded): one per
+-- finding, as its latest decided proposal says, covering its decided cells.
 INSERT INTO decision (table_id, action, finding, siglum, revision, argument, column_name, editor,
                       decided_at, note)
   SELECT e.table_id, CASE e.status WHEN 'accepted' THEN 'accept' ELSE 'reject' END,
          coalesce(e.finding, e.id), e.siglum, e.revision, e.arg, e.column_name,
          'unknown (decided before schema 010)', e.decided_at, e.editor_note
   FROM emendation e
-  WHERE e.status <> 'proposed' AND e.finding IS NULL;
+  WHERE e.status <> 'proposed'
+    AND e.id = (SELECT max(x.id) FROM emendation x
+                WHERE coalesce(x.finding, x.id) = coalesce(e.finding, e.id)
+                  AND x.status <> 'proposed');
 INSERT INTO decision_cell (decision_id, siglum, column_name, argument, reading, proposed)
   SELECT d.id, e.siglum, e.column_name, e.arg, e.tabulated, e.proposed
   FROM emendation e
