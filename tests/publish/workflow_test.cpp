@@ -17,6 +17,7 @@
 #include <string>
 
 #include "cli_runner.hpp"
+#include "json_schema.hpp"
 #include "latex_check.hpp"
 #include "number/sexagesimal.hpp"
 #include "tei_rules.hpp"
@@ -101,7 +102,9 @@ class Session {
     return o;
   }
   nlohmann::json List(const std::string& args = "") {
-    return nlohmann::json::parse(Run("emendation list --format json " + args).out);
+    const auto j = nlohmann::json::parse(Run("emendation list --format json " + args).out);
+    CHECK(schemas_.Validate("emendation-list.json", j) == std::vector<std::string>{});
+    return j;
   }
   /// The finding id of D's proposal at an argument.
   long long FindingAt(const std::string& arg) {
@@ -124,6 +127,7 @@ class Session {
 
  private:
   ScratchDir dir_{"workflow"};
+  apograph::testing::JsonSchemas schemas_;
 };
 
 bool Has(const std::string& text, const std::string& what) {
@@ -181,6 +185,14 @@ TEST_CASE("a witness through reject, accept, override, conjecture, undo and a ne
   CHECK(Has(o.csv,
             "\n15,sine,variant,\"15;13,45\",D,value,0,,\"kept by Ann Editor, who rejected "
             "the proposed emendation\",,,Ann Editor\r\n"));
+  // Collation and stemma read the decision too: D's reading is no error.
+  const auto collated =
+      nlohmann::json::parse(s.Run("collate --table sines --auto --format json").out);
+  const auto& cell15 = collated["rows"][4]["cells"][0];
+  REQUIRE(collated["rows"][4]["arg"] == "15");
+  CHECK(cell15["basis"] == "editor");
+  for (const auto& r : cell15["readings"]) CHECK(r["error"] == false);
+  CHECK(s.Run("stemma --table sines --auto --format json").code <= 1);
 
   // 2. Accept the displaced run by the id of its second cell: one decision
   // covers all three cells.
@@ -240,7 +252,9 @@ TEST_CASE("a witness through reject, accept, override, conjecture, undo and a ne
   CHECK(Has(o.csv,
             "\n27,sine,lemma,\"27;14,22\",A C D,value,0,,agrees with "
             "recomputation,,witnesses,\r\n"));
-  const auto log = nlohmann::json::parse(s.Run("emendation log --format json").out)["decisions"];
+  const auto log_json = nlohmann::json::parse(s.Run("emendation log --format json").out);
+  CHECK(apograph::testing::JsonSchemas().Validate("emendation-log.json", log_json).empty());
+  const auto log = log_json["decisions"];
   REQUIRE(log.size() == 5);
   CHECK(log[0]["action"] == "undo");
   CHECK(log[0]["editor"] == "Ann Editor");
