@@ -76,6 +76,9 @@ DecisionContext::DecisionContext(store::Database& db, const std::string& table_i
   for (const auto& d : rows_) {
     if (d.undoes) undone_[*d.undoes] = d.id;
   }
+  for (const auto& d : rows_) {
+    if (d.action != "undo" && !undone_.count(d.id)) in_force_.push_back(&d);
+  }
   const auto loaded = given ? std::vector<Transcription>{} : store::LoadTable(db, table_id);
   for (const auto& t : given ? *given : loaded) {
     auto& rows = row_of_[t.witness.siglum];
@@ -105,12 +108,11 @@ std::optional<std::string> DecisionContext::ReadingAt(const std::string& siglum,
   return t.rows[static_cast<std::size_t>(*row)].cells[static_cast<std::size_t>(c)].raw;
 }
 
-std::vector<const DecisionRow*> DecisionContext::InForce() const {
-  std::vector<const DecisionRow*> out;
-  for (const auto& d : rows_) {
-    if (d.action != "undo" && !undone_.count(d.id)) out.push_back(&d);
-  }
-  return out;
+int DecisionContext::CurrentRevision(const std::string& siglum) {
+  auto it = current_revision_.find(siglum);
+  if (it == current_revision_.end())
+    it = current_revision_.emplace(siglum, store::CurrentRevision(db_, table_id_, siglum)).first;
+  return it->second;
 }
 
 const DecisionRow* DecisionContext::Find(std::int64_t id) const {
@@ -129,7 +131,7 @@ std::optional<std::int64_t> DecisionContext::WithdrawnBy(std::int64_t id) const 
 std::string DecisionContext::ArgumentOf(const store::EmendationRecord& e) {
   const auto cur = current_.find(e.siglum);
   const Transcription* t = nullptr;
-  if (cur != current_.end() && store::CurrentRevision(db_, table_id_, e.siglum) == e.revision) {
+  if (cur != current_.end() && CurrentRevision(e.siglum) == e.revision) {
     t = &cur->second;
   } else {
     auto key = std::make_pair(e.siglum, e.revision);
@@ -228,7 +230,7 @@ FindingState DecisionContext::Evaluate(const std::vector<store::EmendationRecord
   f.table_id = e.table_id;
   f.witness = e.siglum;
   f.revision = e.revision;
-  f.current_revision = store::CurrentRevision(db_, table_id_, e.siglum);
+  f.current_revision = CurrentRevision(e.siglum);
   f.column = e.column_name;
   f.cls = e.cls;
   f.evidence = e.evidence;

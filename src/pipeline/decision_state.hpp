@@ -39,7 +39,7 @@ class DecisionContext {
                                        const std::string& arg) const;
 
   /// Decisions not withdrawn (undo rows excluded), oldest first.
-  std::vector<const store::DecisionRow*> InForce() const;
+  const std::vector<const store::DecisionRow*>& InForce() const { return in_force_; }
   /// A decision by id, or nullptr.
   const store::DecisionRow* Find(std::int64_t id) const;
   std::optional<std::int64_t> WithdrawnBy(std::int64_t id) const;
@@ -57,6 +57,7 @@ class DecisionContext {
 
  private:
   std::string ArgumentOf(const store::EmendationRecord& e);
+  int CurrentRevision(const std::string& siglum);
   FindingCell MakeCell(const store::EmendationRecord& e);
   const store::DecisionRow* Match(const std::string& siglum, const std::string& column,
                                   const FindingCell& c) const;
@@ -68,7 +69,9 @@ class DecisionContext {
   std::string table_id_;
   std::vector<store::DecisionRow> rows_;
   std::map<std::int64_t, std::int64_t> undone_;  // decision -> the undo withdrawing it
+  std::vector<const store::DecisionRow*> in_force_;
   std::map<std::string, Transcription> current_;
+  std::map<std::string, int> current_revision_;               // siglum -> number
   std::map<std::string, std::map<std::string, int>> row_of_;  // siglum -> argument -> row
   std::map<std::pair<std::string, int>, Transcription> revisions_;
 };

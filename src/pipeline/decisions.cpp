@@ -4,6 +4,7 @@
 #include <pwd.h>
 #include <unistd.h>
 
+#include <algorithm>
 #include <cstdlib>
 #include <set>
 
@@ -103,10 +104,14 @@ Decision DecideFinding(store::Database& db, const DecisionRequest& r) {
   DecisionContext cx(db, e.table_id);
   const FindingState f = FindingOf(cx, e);
   CheckExpected(f.state, r.expected_state, "emendation " + std::to_string(e.id), f.decision);
-  if (f.status == FindingStatus::kSuperseded) {
+  const bool changed = std::any_of(f.cells.begin(), f.cells.end(),
+                                   [](const FindingCell& c) { return c.now.has_value(); });
+  if (f.status == FindingStatus::kSuperseded || changed) {
     throw InputError::ForOption(
-        kCommand, ExpectedFound("a current proposal", "emendation " + std::to_string(e.id) +
-                                                          ", superseded (" + f.review + ")"));
+        kCommand, ExpectedFound("a proposal for the readings transcribed now",
+                                "emendation " + std::to_string(e.id) + ", " + f.review +
+                                    " (run apograph errors on the current revision and decide "
+                                    "its proposal, or undo the earlier decision)"));
   }
   store::DecisionRow row;
   row.table_id = e.table_id;

@@ -69,7 +69,11 @@ std::string ToText(const Apparatus& a) {
     o << "  " << a.witnesses[k].siglum << "  "
       << internal::WitnessLine(a.witnesses[k], k < a.folios.size() ? a.folios[k] : "") << "\n";
   }
-  if (!a.editors.empty()) o << "Edited by " << Sigla(a.editors) << "\n";
+  if (!a.editors.empty()) {
+    o << "Edited by";
+    for (std::size_t k = 0; k < a.editors.size(); ++k) o << (k ? ", " : " ") << a.editors[k];
+    o << "\n";
+  }
   o << "\n" << t.RenderText() << "\nApparatus\n";
   int n = 0;
   for (std::size_t r = 0; r < a.arguments.size(); ++r) {

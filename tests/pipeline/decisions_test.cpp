@@ -163,6 +163,9 @@ TEST_CASE("a new revision: decisions carry over where the reading holds, review 
   const auto changed = fx.Finding(run.id);
   CHECK(changed.status == FindingStatus::kReview);
   CHECK(changed.review.find("revision 2 reads 0;16,41") != std::string::npos);
+  // Deciding it again on the old readings is refused: decide the new
+  // proposal, or undo.
+  CHECK_THROWS_AS(pipeline::Decide(fx.db, fx.Request(Action::kReject, run.id)), InputError);
   const auto tables =
       pipeline::LoadTableDecisions(fx.db, "solar", store::LoadTable(fx.db, "solar"));
   int applying = 0, to_review = 0;
