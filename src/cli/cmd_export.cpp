@@ -56,7 +56,8 @@ nlohmann::ordered_json ArgumentJson(const ArgumentSpec& a) {
           {"unit", a.unit},
           {"places", a.places},
           {"start", ValueJson(a.start)},
-          {"step", ValueJson(a.step)}};
+          {"step", ValueJson(a.step)},
+          {"listed", a.listed}};
 }
 
 nlohmann::ordered_json TranscriptionJson(const Transcription& t, int revision) {
@@ -72,6 +73,7 @@ nlohmann::ordered_json TranscriptionJson(const Transcription& t, int revision) {
       {"shelfmark", t.witness.shelfmark},
       {"date", t.witness.date},
       {"script", t.witness.script},
+      {"witness_kind", ToString(t.witness.Kind())},
       {"witness_note", t.witness.note},
       {"folios", t.folios},
       {"hand", t.hand},
