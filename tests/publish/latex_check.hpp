@@ -2,7 +2,9 @@
 // Compiles LaTeX with pdflatex and asks pdffonts which fonts the PDF uses:
 // a publisher wants vector fonts (Type 1, TrueType, OpenType), never the
 // bitmaps of Type 3. Needs pdflatex and pdffonts on PATH (Debian:
-// texlive-latex-base, lmodern, poppler-utils); the caller skips otherwise.
+// texlive-latex-base, lmodern, poppler-utils); the caller skips otherwise,
+// unless APOGRAPH_REQUIRE_LATEX is set (CI sets it, so that a machine without
+// TeX fails instead of passing untested).
 #include <unistd.h>
 
 #include <cstdlib>
@@ -10,13 +12,23 @@
 #include <fstream>
 #include <string>
 
+#include <doctest/doctest.h>
+
 #include "cli_runner.hpp"
 
 namespace apograph::testing {
 
+/// True when pdflatex and pdffonts are on PATH. False: the caller skips,
+/// unless APOGRAPH_REQUIRE_LATEX is set, where the test fails here.
 inline bool HaveLatexTools() {
-  return std::system(
-             "command -v pdflatex > /dev/null 2>&1 && command -v pdffonts > /dev/null 2>&1") == 0;
+  const bool have =
+      std::system("command -v pdflatex > /dev/null 2>&1 && command -v pdffonts > /dev/null 2>&1") ==
+      0;
+  const char* require = std::getenv("APOGRAPH_REQUIRE_LATEX");
+  REQUIRE_MESSAGE((have || !require || !*require),
+                  "APOGRAPH_REQUIRE_LATEX is set but pdflatex or pdffonts is not on PATH (Debian: "
+                  "texlive-latex-base lmodern poppler-utils)");
+  return have;
 }
 
 struct LatexResult {
