@@ -2,35 +2,42 @@
 // the editor's overrides of adopted readings.
 #include "cli/command.hpp"
 
+#include <algorithm>
 #include <filesystem>
 #include <fstream>
 #include <ostream>
 
 #include "cli/collate_input.hpp"
 #include "lineage/lineage.hpp"
+#include "lineage/parsimony.hpp"
 #include "pipeline/analysis.hpp"
+#include "pipeline/decisions.hpp"
 #include "publish/apparatus.hpp"
-#include "store/apparatus_store.hpp"
 #include "support/input_error.hpp"
 
 namespace apograph::cli {
 
 extern const char kApparatusUsage[] =
-    "usage: apograph apparatus --table ID [--format tei|latex|csv|text] [--output FILE]\n"
+    "usage: apograph apparatus --table ID [--format tei|latex|csv|text] [--fragment] [--output "
+    "FILE]\n"
     "                          [--override ROW:COLUMN=READING]... [--withdraw ROW:COLUMN]... "
     "[--note TEXT]\n"
-    "                          [--witnesses A,B,...] [--db FILE]\n"
+    "                          [--editor NAME] [--witnesses A,B,...] [--db FILE]\n"
     "                          [(--model NAME | --formula TEXT) [--param N=V]... [practice "
     "options] | --auto]\n\n"
-    "Writes the edited table: for every cell the adopted reading (the reading of most\n"
-    "independent branches of the parsimony stemma that is not an error; an editor's\n"
-    "override wins) and the variant readings with their sigla.\n"
+    "Writes the edited table: for every cell the adopted reading (the editor's override or\n"
+    "conjecture, else a reading the editor accepted as an emendation, else the reading of\n"
+    "most independent branches of the parsimony stemma that is not an error; where every\n"
+    "witness errs, the restoration by recomputation marked as a conjecture) and the other\n"
+    "readings with their sigla and the cause of each error, the editorial marks of the\n"
+    "transcriptions, miswritten arguments and each witness's folios. --fragment writes\n"
+    "LaTeX to \\input into a book (no preamble); the document mode uses vector fonts.\n"
     "--override records the editor's reading for a cell (ROW is the row's argument,\n"
-    "COLUMN the column's name); --withdraw removes an override; --note gives the reason\n"
-    "(for every override of this call). Decisions are kept in the database with their\n"
-    "history (table apparatus_decision, view apparatus_override).\n"
+    "COLUMN the column's name) and --withdraw withdraws it, as apograph emendation\n"
+    "override and undo do; --note gives the reason (for every decision of this call),\n"
+    "--editor who decides (else APOGRAPH_EDITOR, else the login name).\n"
     "Which readings are errors: see apograph collate --help (--auto or a model judges\n"
-    "them by the explained deviations).\n\n"
+    "them by the explained deviations); the editor's decisions take precedence.\n\n"
     "example: apograph apparatus --table decl --override '46:declination=16;41,57' --note \"all "
     "witnesses err\"\n"
     "         apograph apparatus --table sun-eq --auto --format tei --output sun-eq.xml";
@@ -38,9 +45,8 @@ extern const char kApparatusUsage[] =
 namespace {
 
 // ROW:COLUMN[=READING]: the row is everything before the last ':' of the left side.
-store::ApparatusDecision ParseDecision(const std::string& option, const std::string& text,
-                                       bool with_reading, const std::string& table,
-                                       const std::string& note) {
+pipeline::DecisionRequest ParseDecision(const std::string& option, const std::string& text,
+                                        bool with_reading, const std::string& table) {
   const auto eq = text.find('=');
   const std::string cell = with_reading ? text.substr(0, eq) : text;
   const auto colon = cell.rfind(':');
@@ -51,38 +57,25 @@ store::ApparatusDecision ParseDecision(const std::string& option, const std::str
         option,
         ExpectedFound(with_reading ? "ROW:COLUMN=READING" : "ROW:COLUMN", "'" + text + "'"));
   }
-  const std::string row = cell.substr(0, colon);
-  auto v = Sexagesimal::Parse(row);
-  if (!v)
-    throw InputError::ForOption(option,
-                                ExpectedFound("a row argument in trade notation", "'" + row + "'"));
-  return {
-      table, v->ToString(), cell.substr(colon + 1), with_reading ? text.substr(eq + 1) : "", note,
-      ""};
+  pipeline::DecisionRequest r;
+  r.action = with_reading ? pipeline::Action::kOverride : pipeline::Action::kUndo;
+  r.target.table_id = table;
+  r.target.arg = cell.substr(0, colon);
+  r.target.column = cell.substr(colon + 1);
+  r.target.option = option;
+  if (with_reading) r.reading = text.substr(eq + 1);
+  return r;
 }
 
 std::vector<std::vector<std::string>> Branches(const collate::Collation& c) {
   return pipeline::Branches(lineage::Parsimony(lineage::BuildErrorCharacters(c)).stemma);
 }
 
-std::vector<publish::Override> Overrides(const std::vector<store::ApparatusDecision>& ds) {
-  std::vector<publish::Override> out;
-  for (const auto& d : ds) {
-    if (!d.reading.empty()) out.push_back({d.row_argument, d.column, d.reading, d.note});
-  }
-  return out;
-}
-
-// Pending decisions applied over the stored ones (for validation before writing).
-std::vector<store::ApparatusDecision> Merged(std::vector<store::ApparatusDecision> stored,
-                                             const std::vector<store::ApparatusDecision>& pending) {
-  for (const auto& p : pending) {
-    std::erase_if(stored, [&](const auto& s) {
-      return s.row_argument == p.row_argument && s.column == p.column;
-    });
-    stored.push_back(p);
-  }
-  return stored;
+std::string Render(const publish::Apparatus& a, const std::string& format, bool fragment) {
+  if (format == "tei") return publish::ToTei(a);
+  if (format == "latex") return publish::ToLatex(a, {fragment});
+  if (format == "csv") return publish::ToCsv(a);
+  return publish::ToText(a);
 }
 
 }  // namespace
@@ -90,15 +83,18 @@ std::vector<store::ApparatusDecision> Merged(std::vector<store::ApparatusDecisio
 int RunApparatus(const std::vector<std::string>& args, Io& io) {
   po::options_description options("options");
   CollateRequest request;
-  std::string format, db_path, output, note;
+  std::string format, db_path, output, note, editor;
+  bool fragment = false;
   std::vector<std::string> overrides, withdrawals;
   options.add_options()("table", po::value(&request.table)->required(), "table id")(
       "output", po::value(&output), "write to this file instead of standard output")(
+      "fragment", po::bool_switch(&fragment), "LaTeX to \\input into a book (no preamble)")(
       "override", po::value(&overrides)->composing(),
       "ROW:COLUMN=READING: the editor's reading (repeatable)")(
       "withdraw", po::value(&withdrawals)->composing(),
       "ROW:COLUMN: withdraw an override (repeatable)")(
-      "note", po::value(&note), "the editor's reason for the overrides of this call");
+      "note", po::value(&note), "the editor's reason for the decisions of this call")(
+      "editor", po::value(&editor), "who decides (default: APOGRAPH_EDITOR, else the login name)");
   AddCollateOptions(options, request);
   AddFormatOption(options, format, {"text", "tei", "latex", "csv"});
   AddDbOption(options, db_path);
@@ -106,22 +102,24 @@ int RunApparatus(const std::vector<std::string>& args, Io& io) {
   if (ParseOptions(FindCommand("apparatus"), args, options, vm, io)) return kOk;
   FinishCollateRequest(request, vm);
   CheckChoice("--format", format, {"text", "tei", "latex", "csv"});
-  store::Database db = OpenEdition(db_path);
-  const auto collation = CollateFromDb(db, request);
-  std::vector<store::ApparatusDecision> pending;
+  const std::string who = pipeline::DefaultEditor(editor);
+  std::vector<pipeline::DecisionRequest> pending;
   for (const auto& o : overrides)
-    pending.push_back(ParseDecision("--override", o, true, request.table, note));
+    pending.push_back(ParseDecision("--override", o, true, request.table));
   for (const auto& w : withdrawals)
-    pending.push_back(ParseDecision("--withdraw", w, false, request.table, note));
-  const auto decisions = Merged(store::LoadApparatusOverrides(db, request.table), pending);
-  // Built before anything is written: a bad row or column stops here.
-  const auto apparatus =
-      publish::BuildApparatus(collation, Branches(collation), Overrides(decisions));
-  if (!pending.empty()) store::SaveApparatusDecisions(db, pending);
-  std::string text = format == "tei"     ? publish::ToTei(apparatus)
-                     : format == "latex" ? publish::ToLatex(apparatus)
-                     : format == "csv"   ? publish::ToCsv(apparatus)
-                                         : publish::ToText(apparatus);
+    pending.push_back(ParseDecision("--withdraw", w, false, request.table));
+  for (auto& p : pending) p.editor = who, p.note = note;
+  store::Database db = OpenEdition(db_path);
+  if (!pending.empty()) pipeline::DecideAll(db, pending);  // checked, then written at once
+  const auto table = CollateTableFromDb(db, request);
+  publish::ApparatusOptions ao;
+  ao.branches = Branches(table.collation);
+  ao.overrides = publish::OverridesFrom(table.decisions);
+  ao.transcriptions = &table.transcriptions;
+  ao.editors = table.decisions.Editors();
+  if (std::find(ao.editors.begin(), ao.editors.end(), who) == ao.editors.end())
+    ao.editors.insert(ao.editors.begin(), who);
+  const std::string text = Render(publish::BuildApparatus(table.collation, ao), format, fragment);
   if (output.empty()) {
     io.out << text;
   } else {

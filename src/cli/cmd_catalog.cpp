@@ -62,7 +62,7 @@ int List(const std::vector<estimate::CatalogEntry>& all, const std::string& kind
                  {"origin", e.origin}});
   }
   if (format == Format::kJson)
-    io.out << j.dump(2) << "\n";
+    io.out << nlohmann::json{{"catalog", j}}.dump(2) << "\n";
   else if (format == Format::kCsv)
     io.out << tab.RenderCsv();
   else

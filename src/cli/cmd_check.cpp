@@ -121,8 +121,16 @@ void PrintText(const model::CheckReport& r, const CheckOptions& o, Io& io) {
   io.out << "\n\n" << EntryTable(r, o.flagged_only).RenderText() << "\n" << SummaryLine(r) << "\n";
 }
 
-nlohmann::json ToJson(const model::CheckReport& r, std::optional<int> revision,
-                      const std::optional<std::string>& formula, std::int64_t run) {
+/// The argument a row stands for, in trade notation (the JSON `arg`).
+nlohmann::json ArgInUse(const Transcription& t, std::size_t row) {
+  if (row >= t.rows.size()) return nullptr;
+  const auto arg = t.ArgumentInUse(row);
+  return arg ? nlohmann::json(arg->ToString()) : nlohmann::json(nullptr);
+}
+
+nlohmann::json ToJson(const model::CheckReport& r, const Transcription& t,
+                      std::optional<int> revision, const std::optional<std::string>& formula,
+                      std::int64_t run) {
   using nlohmann::json;
   json params = json::object();
   for (const auto& [name, value] : r.params) params[name] = value;
@@ -130,27 +138,29 @@ nlohmann::json ToJson(const model::CheckReport& r, std::optional<int> revision,
   for (const auto& e : r.entries) {
     entries.push_back(
         {{"row", e.row + 1},
-         {"arg", e.arg},
+         {"arg", ArgInUse(t, e.row)},
+         {"written_arg", e.arg},
          {"column", e.column},
          {"tabulated", e.tabulated ? e.tabulated->ToString() : e.tabulated_raw},
          {"computed", e.computed ? json(e.computed->ToString()) : json(nullptr)},
-         {"exact", std::isfinite(e.exact) ? json(e.exact) : json(nullptr)},
+         {"exact_value", std::isfinite(e.exact) ? json(e.exact) : json(nullptr)},
          {"diff_units", e.diff_units ? json(*e.diff_units) : json(nullptr)},
          {"exact_diff_units", e.exact_diff_units ? json(*e.exact_diff_units) : json(nullptr)},
          {"flag", e.flag},
          {"skipped", e.skipped}});
   }
   const auto& s = r.summary;
-  json summary = {{"entries", s.entries},
-                  {"compared", s.compared},
-                  {"exact", s.exact},
-                  {"within_one", s.within_one},
-                  {"flagged", s.flagged},
-                  {"blank", s.blank},
-                  {"illegible", s.illegible},
-                  {"undefined", s.undefined},
-                  {"worst", s.worst},
-                  {"worst_arg", s.worst_row ? json(r.entries[*s.worst_row].arg) : json(nullptr)}};
+  json summary = {
+      {"entries", s.entries},
+      {"compared", s.compared},
+      {"exact", s.exact},
+      {"within_one", s.within_one},
+      {"flagged", s.flagged},
+      {"blank", s.blank},
+      {"illegible", s.illegible},
+      {"undefined", s.undefined},
+      {"worst", s.worst},
+      {"worst_arg", s.worst_row ? ArgInUse(t, r.entries[*s.worst_row].row) : json(nullptr)}};
   const auto& p = r.practice;
   return {{"table", r.table},
           {"witness", r.witness},
@@ -218,7 +228,7 @@ int RunCheck(const std::vector<std::string>& args, Io& io) {
   const std::int64_t run = store::SaveCheckRun(db, r, stored_revision, formula_text);
   switch (ParseFormat(o.format)) {
     case Format::kJson:
-      io.out << ToJson(r, stored_revision, formula_text, run).dump(2) << "\n";
+      io.out << ToJson(r, t, stored_revision, formula_text, run).dump(2) << "\n";
       break;
     case Format::kCsv:
       io.out << EntryTable(r, o.flagged_only).RenderCsv();

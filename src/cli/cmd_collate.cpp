@@ -64,7 +64,7 @@ void PrintText(const collate::Collation& c, std::ostream& out) {
   for (const auto& n : c.notes) out << "  " << n.siglum << ": " << n.kind << ": " << n.text << "\n";
   for (const auto& s : c.slides) out << "  " << s.siglum << ": slid column: " << s.text << "\n";
   Tabular t;
-  t.headers = {"argument", "column", "computed", "basis", "readings (* error)"};
+  t.headers = {"arg", "column", "computed", "basis", "readings (* error)"};
   for (const auto& row : c.rows) {
     for (const auto& cell : row.cells) {
       t.Add({row.argument.ToString(), c.columns[cell.column].name,
@@ -77,8 +77,8 @@ void PrintText(const collate::Collation& c, std::ostream& out) {
 
 void PrintCsv(const collate::Collation& c, std::ostream& out) {
   Tabular t;
-  t.headers = {"argument", "column",    "reading", "sigla", "kind",
-               "error",    "units_off", "basis",   "why"};
+  t.headers = {"arg",   "column",     "reading", "witnesses", "kind",
+               "error", "diff_units", "basis",   "why"};
   for (const auto& row : c.rows) {
     for (const auto& cell : row.cells) {
       for (const auto& r : cell.readings) {
@@ -93,6 +93,21 @@ void PrintCsv(const collate::Collation& c, std::ostream& out) {
   out << t.RenderCsv();
 }
 
+nlohmann::json ReadingJson(const collate::Reading& r) {
+  using nlohmann::json;
+  const json diff = r.units_off ? json(*r.units_off) : json(nullptr);
+  return {{"text", r.text},
+          {"kind", collate::ToString(r.kind)},
+          {"witnesses", r.sigla},
+          {"sigla", r.sigla},  // deprecated alias of witnesses (README 0.1)
+          {"error", r.error},
+          {"diff_units", diff},
+          {"units_off", diff},  // deprecated alias of diff_units (README 0.1)
+          {"cause", r.cause.empty() ? json(nullptr) : json(r.cause)},
+          {"editor", r.editor.empty() ? json(nullptr) : json(r.editor)},
+          {"why", r.why}};
+}
+
 nlohmann::json ToJson(const collate::Collation& c) {
   using nlohmann::json;
   json j = {{"table", c.table_id},
@@ -102,19 +117,20 @@ nlohmann::json ToJson(const collate::Collation& c) {
   for (const auto& w : c.witnesses) j["witnesses"].push_back(w.siglum);
   j["notes"] = json::array();
   for (const auto& n : c.notes) {
-    j["notes"].push_back({{"siglum", n.siglum},
-                          {"kind", n.kind},
-                          {"source_row", n.source_row},
-                          {"line", n.line},
-                          {"argument", n.row >= 0 ? c.rows[n.row].argument.ToString() : ""},
-                          {"text", n.text}});
+    j["notes"].push_back(
+        {{"witness", n.siglum},
+         {"kind", n.kind},
+         {"row", n.source_row >= 0 ? json(n.source_row + 1) : json(nullptr)},
+         {"line", n.line},
+         {"arg", n.row >= 0 ? json(c.rows[n.row].argument.ToString()) : json(nullptr)},
+         {"text", n.text}});
   }
   j["slides"] = json::array();
   for (const auto& s : c.slides) {
-    j["slides"].push_back({{"siglum", s.siglum},
+    j["slides"].push_back({{"witness", s.siglum},
                            {"column", c.columns[s.column].name},
-                           {"first", c.rows[s.first_row].argument.ToString()},
-                           {"last", c.rows[s.last_row].argument.ToString()},
+                           {"arg", c.rows[s.first_row].argument.ToString()},
+                           {"arg_end", c.rows[s.last_row].argument.ToString()},
                            {"offset", s.offset},
                            {"text", s.text}});
   }
@@ -123,21 +139,14 @@ nlohmann::json ToJson(const collate::Collation& c) {
     json cells = json::array();
     for (const auto& cell : row.cells) {
       json readings = json::array();
-      for (const auto& r : cell.readings) {
-        readings.push_back({{"text", r.text},
-                            {"kind", collate::ToString(r.kind)},
-                            {"sigla", r.sigla},
-                            {"error", r.error},
-                            {"units_off", r.units_off ? json(*r.units_off) : json(nullptr)},
-                            {"why", r.why}});
-      }
+      for (const auto& r : cell.readings) readings.push_back(ReadingJson(r));
       cells.push_back(
           {{"column", c.columns[cell.column].name},
            {"computed", cell.computed ? json(cell.computed->ToString()) : json(nullptr)},
            {"basis", collate::ToString(cell.basis)},
            {"readings", readings}});
     }
-    j["rows"].push_back({{"argument", row.argument.ToString()}, {"cells", cells}});
+    j["rows"].push_back({{"arg", row.argument.ToString()}, {"cells", cells}});
   }
   return j;
 }

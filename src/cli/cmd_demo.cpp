@@ -113,8 +113,7 @@ int RunDemo(const std::vector<std::string>& args, Io& io) {
   std::string corpus, output;
   std::size_t findings = 6;
   po::options_description options("options");
-  options.add_options()("corpus",
-                        po::value(&corpus)->default_value(DataDir() + "/demo"),
+  options.add_options()("corpus", po::value(&corpus)->default_value(DataDir() + "/demo"),
                         "folder of the demo transcriptions")(
       "output", po::value(&output)->default_value("apograph-demo"),
       "folder for the database and files")("findings", po::value(&findings)->default_value(6),
@@ -134,6 +133,7 @@ int RunDemo(const std::vector<std::string>& args, Io& io) {
   ReportRequest request;
   request.output_dir = dir.string();
   request.report.max_findings = findings;
+  request.editor = pipeline::DefaultEditor();
   WriteWorkReports(db, tables.front().work.id, request, io);
   io.out << "Files in " << dir.string()
          << "/: the edition database, one report per table (*.md, every\n"

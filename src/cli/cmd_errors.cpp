@@ -13,6 +13,7 @@
 #include "deviation/explain.hpp"
 #include "deviation/numeral_script.hpp"
 #include "model/model.hpp"
+#include "pipeline/decisions.hpp"
 #include "pipeline/reference.hpp"
 #include "pipeline/witness_findings.hpp"
 #include "store/deviation_store.hpp"
@@ -124,9 +125,17 @@ nlohmann::json Reading(const std::optional<Sexagesimal>& v) {
   return v->ToString();
 }
 
-nlohmann::json FindingJson(const deviation::Finding& f) {
+/// The argument a row stands for (the JSON `arg`), in trade notation.
+std::string ArgInUse(const Transcription& t, std::size_t row, const std::string& written) {
+  const auto arg = row < t.rows.size() ? t.ArgumentInUse(row) : std::nullopt;
+  return arg ? arg->ToString() : written;
+}
+
+nlohmann::json FindingJson(const deviation::Finding& f, const Transcription& t) {
   const auto& c = f.cells.front();
-  nlohmann::json j = {{"arg", c.arg},
+  nlohmann::json j = {{"row", c.row + 1},
+                      {"arg", ArgInUse(t, c.row, c.arg)},
+                      {"written_arg", c.arg},
                       {"column", f.column_name},
                       {"tabulated", c.tabulated},
                       {"computed", Reading(c.computed)},
@@ -135,11 +144,12 @@ nlohmann::json FindingJson(const deviation::Finding& f) {
                       {"explanation", f.best().evidence},
                       {"emendation", Reading(c.emendation)},
                       {"score", std::round(f.best().score * 100) / 100}};
-  j["arg_end"] = f.cells.back().arg;
+  j["arg_end"] = ArgInUse(t, f.cells.back().row, f.cells.back().arg);
   j["cells"] = nlohmann::json::array();
   for (const auto& cell : f.cells) {
     j["cells"].push_back({{"row", cell.row + 1},
-                          {"arg", cell.arg},
+                          {"arg", ArgInUse(t, cell.row, cell.arg)},
+                          {"written_arg", cell.arg},
                           {"tabulated", cell.tabulated},
                           {"computed", Reading(cell.computed)},
                           {"diff_units", Units(cell.diff_units)},
@@ -219,7 +229,7 @@ void Print(const ErrorsOptions& o, const Transcription& t,
     j["references"] = nlohmann::json::array();
     for (const auto& r : refs) j["references"].push_back(ReferenceJson(r));
     j["findings"] = nlohmann::json::array();
-    for (const auto& f : findings) j["findings"].push_back(FindingJson(f));
+    for (const auto& f : findings) j["findings"].push_back(FindingJson(f, t));
     j["verdicts"] = nlohmann::json::array();
     for (const auto& v : explained.verdicts) j["verdicts"].push_back(VerdictJson(v));
     io.out << j.dump(2) << "\n";
@@ -345,7 +355,7 @@ int RunErrors(const std::vector<std::string>& args, Io& io) {
   if (!o.no_record) {
     auto proposals = Proposals(t, CurrentRevision(db, o), ModelText(refs, t), findings);
     if (!proposals.empty()) {
-      const auto r = store::RecordEmendations(db, proposals);
+      const auto r = pipeline::RecordProposals(db, proposals);
       io.err << "recorded " << r.added << " new proposed emendation" << (r.added == 1 ? "" : "s")
              << " in " << o.db
              << (r.kept ? " (" + std::to_string(r.kept) + " already recorded)" : "") << "\n";

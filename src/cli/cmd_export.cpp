@@ -48,7 +48,7 @@ nlohmann::ordered_json CellJson(const Cell& c) {
                                               : nlohmann::ordered_json(nullptr)},
           {"note", c.note},
           {"line", c.line},
-          {"column", c.column}};
+          {"source_column", c.column}};  // `column` names a value column elsewhere
 }
 
 nlohmann::ordered_json ArgumentJson(const ArgumentSpec& a) {
@@ -65,15 +65,16 @@ nlohmann::ordered_json TranscriptionJson(const Transcription& t, int revision) {
       {"table", t.table_id},
       {"title", t.table_title},
       {"kind", t.kind},
-      {"work", {{"id", t.work.id}, {"title", t.work.title}, {"author", t.work.author}}},
-      {"witness",
-       {{"siglum", t.witness.siglum},
-        {"library", t.witness.library},
-        {"shelfmark", t.witness.shelfmark},
-        {"date", t.witness.date},
-        {"script", t.witness.script},
-        {"kind", ToString(t.witness.Kind())},
-        {"note", t.witness.note}}},
+      {"work", t.work.id},
+      {"work_title", t.work.title},
+      {"work_author", t.work.author},
+      {"witness", t.witness.siglum},
+      {"library", t.witness.library},
+      {"shelfmark", t.witness.shelfmark},
+      {"date", t.witness.date},
+      {"script", t.witness.script},
+      {"witness_kind", ToString(t.witness.Kind())},
+      {"witness_note", t.witness.note},
       {"folios", t.folios},
       {"hand", t.hand},
       {"revision", revision},

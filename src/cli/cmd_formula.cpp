@@ -50,7 +50,7 @@ nlohmann::json ModelJson(const model::Model& m, const std::string& kind, const s
           {"kind", kind},
           {"description", kind == "builtin" ? m.description() : text},
           {"convention", m.convention()},
-          {"params", params}};
+          {"parameters", params}};  // definitions; `params` holds values elsewhere
 }
 
 void CheckName(const std::string& name) {
@@ -100,7 +100,7 @@ int List(store::Database* db, bool builtin, Format format, Io& io) {
     }
   }
   if (format == Format::kJson)
-    io.out << out.dump(2) << "\n";
+    io.out << nlohmann::json{{"models", out}}.dump(2) << "\n";
   else if (format == Format::kCsv)
     io.out << t.RenderCsv();
   else
@@ -129,7 +129,8 @@ int Show(store::Database* db, const std::vector<std::string>& pos, Format format
         "formula show", ExpectedFound("a built-in model or a saved formula", "'" + pos[1] + "'"));
   if (format == Format::kJson) {
     auto j = ModelJson(*m, kind, text);
-    if (kind == "formula") j["text"] = text, j["description"] = description;
+    j["text"] = kind == "formula" ? nlohmann::json(text) : nlohmann::json(nullptr);
+    if (kind == "formula") j["description"] = description;
     io.out << j.dump(2) << "\n";
     return kOk;
   }

@@ -101,9 +101,9 @@ int RevisionOf(store::Database& db, const std::string& table, const std::string&
 int PrintAll(const std::vector<Job>& jobs, const std::vector<estimate::CatalogEntry>& catalog,
              Format format, Io& io) {
   if (format == Format::kJson) {
-    nlohmann::json j = nlohmann::json::array();
+    nlohmann::json j = {{"identifications", nlohmann::json::array()}};
     for (const auto& job : jobs)
-      j.push_back(estimate::IdentificationJson(job.result, job.table, catalog));
+      j["identifications"].push_back(estimate::IdentificationJson(job.result, job.table, catalog));
     io.out << j.dump(2) << "\n";
     return kOk;
   }
@@ -197,7 +197,7 @@ int RunIdentify(const std::vector<std::string>& args, Io& io) {
       }
       j.push_back(one);
     }
-    io.out << (j.size() == 1 ? j[0] : j).dump(2) << "\n";
+    io.out << nlohmann::json{{"identifications", j}}.dump(2) << "\n";  // one per column
   } else {
     for (const auto& job : jobs)
       io.out << estimate::IdentificationText(job.result, job.table, catalog) << "\n";

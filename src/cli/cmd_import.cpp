@@ -170,7 +170,8 @@ void PrintJson(const ImportOptions& o, const TranscriptionFile& input,
   for (const auto& t : result.tables) {
     j["tables"].push_back({{"file", t.source_file},
                            {"table", t.table_id},
-                           {"siglum", t.siglum},
+                           {"witness", t.siglum},
+                           {"siglum", t.siglum},  // deprecated alias of witness (README 0.1)
                            {"status", t.changed ? "new revision" : "unchanged"},
                            {"revision", t.revision},
                            {"rows", t.rows},
@@ -180,7 +181,7 @@ void PrintJson(const ImportOptions& o, const TranscriptionFile& input,
   for (const auto& w : input.warnings) {
     j["warnings"].push_back({{"file", w.where.file},
                              {"line", w.where.line},
-                             {"column", w.where.column},
+                             {"source_column", w.where.column},
                              {"message", w.message}});
   }
   j["cells_written"] = result.cells_written;

@@ -73,13 +73,13 @@ Listing Tables(store::Database& db, const Opt& work) {
 
 Listing Witnesses(store::Database& db, const Opt& table) {
   Listing l;
-  l.tab.headers = {"siglum", "library", "shelfmark", "date", "kind", "script", "tables", "cells"};
+  l.tab.headers = {"witness", "library", "shelfmark", "date", "kind", "script", "tables", "cells"};
   l.tab.right_aligned = {false, false, false, false, false, false, true, true};
   for (const auto& s : store::ListWitnesses(db, table)) {
     const auto& w = s.witness;
     l.tab.Add({w.siglum, w.library, w.shelfmark, w.date, ToString(w.Kind()), w.script, N(s.tables),
                N(s.cells)});
-    l.items.push_back({{"siglum", w.siglum},
+    l.items.push_back({{"witness", w.siglum},
                        {"library", w.library},
                        {"shelfmark", w.shelfmark},
                        {"date", w.date},
@@ -101,7 +101,7 @@ Listing Revisions(const std::vector<store::RevisionSummary>& list, const Opt& wi
     l.tab.Add({r.table_id, r.siglum, N(r.number), N(r.revisions), N(r.rows), N(r.cells),
                r.imported_at, r.source_file});
     l.items.push_back({{"table", r.table_id},
-                       {"siglum", r.siglum},
+                       {"witness", r.siglum},
                        {"revision", r.number},
                        {"revisions", r.revisions},
                        {"rows", r.rows},

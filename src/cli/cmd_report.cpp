@@ -5,13 +5,16 @@
 #include <ostream>
 
 #include "cli/report_output.hpp"
+#include "pipeline/decisions.hpp"
 #include "store/edition_store.hpp"
 #include "support/input_error.hpp"
 
 namespace apograph::cli {
 
 extern const char kReportUsage[] =
-    "usage: apograph report (--table ID | --work ID) [--findings N] [--output DIR] [--db FILE]\n"
+    "usage: apograph report (--table ID | --work ID) [--findings N] [--output DIR] [--editor "
+    "NAME]\n"
+    "                       [--db FILE]\n"
     "\n"
     "Runs the pipeline on the table (or on every table of the work) and prints\n"
     "the editor's report, in Markdown: the witnesses; how the table was computed\n"
@@ -19,9 +22,13 @@ extern const char kReportUsage[] =
     "with near-ties); each witness against the model; every deviation explained as\n"
     "a copyist's slip or the author's own computation, with the proposed reading;\n"
     "the stemma with candidate copies and contamination; the cells where every\n"
-    "witness deviates. For a work, the stemma argued from all its tables follows.\n"
+    "witness deviates, with the editor's decisions (accepted, rejected, overridden,\n"
+    "conjectured, and those to review after a new revision). For a work, the stemma\n"
+    "argued from all its tables follows.\n"
     "--output also writes, per table, the full report, the apparatus (TEI, LaTeX,\n"
-    "CSV) and the stemma (Newick, DOT, SVG when Graphviz is installed).\n"
+    "CSV) and the stemma (Newick, DOT, SVG when Graphviz is installed); the apparatus\n"
+    "names the editor (--editor, else APOGRAPH_EDITOR, else the login name) beside\n"
+    "everyone whose decisions it shows.\n"
     "All findings are suggestions with their evidence: the editor decides.\n"
     "\n"
     "examples:\n"
@@ -29,13 +36,14 @@ extern const char kReportUsage[] =
     "  apograph report --work lantern --findings 10 --output lantern-edition";
 
 int RunReport(const std::vector<std::string>& args, Io& io) {
-  std::string table, work, output, db_path;
+  std::string table, work, output, db_path, editor;
   std::size_t findings = 0;
   po::options_description options("options");
   options.add_options()("table", po::value(&table), "the table to report on")(
       "work", po::value(&work), "report on every table of this work")(
       "findings", po::value(&findings)->default_value(0), "deviations shown per witness (0: all)")(
-      "output", po::value(&output), "folder for the files (created if missing)");
+      "output", po::value(&output), "folder for the files (created if missing)")(
+      "editor", po::value(&editor), "the editor named in the apparatus files");
   AddDbOption(options, db_path);
   po::variables_map vm;
   if (ParseOptions(FindCommand("report"), args, options, vm, io)) return kOk;
@@ -48,6 +56,7 @@ int RunReport(const std::vector<std::string>& args, Io& io) {
   ReportRequest request;
   request.output_dir = output;
   request.report.max_findings = findings;
+  if (!output.empty()) request.editor = pipeline::DefaultEditor(editor);
   if (!output.empty()) std::filesystem::create_directories(output);
   if (!table.empty()) {
     ReportTable(db, table, request, io);

@@ -41,10 +41,12 @@ std::string Fixed(double v, const char* fmt) {
   return buf;
 }
 
-nlohmann::json SuspectJson(const deviation::Suspect& s) {
+nlohmann::json SuspectJson(const deviation::Suspect& s, const Transcription& t) {
+  const auto arg = s.row < t.rows.size() ? t.ArgumentInUse(s.row) : std::nullopt;
   nlohmann::json j = {
       {"row", s.row + 1},
-      {"arg", s.arg},
+      {"arg", arg ? arg->ToString() : s.arg},
+      {"written_arg", s.arg},
       {"column", s.column_name},
       {"tabulated", s.tabulated},
       {"expected", s.expected ? nlohmann::json(s.expected->ToString()) : nlohmann::json(nullptr)},
@@ -112,7 +114,7 @@ int RunScreen(const std::vector<std::string>& args, Io& io) {
     nlohmann::json j = {{"table", t.table_id},
                         {"witness", t.witness.siglum},
                         {"suspects", nlohmann::json::array()}};
-    for (const auto& s : suspects) j["suspects"].push_back(SuspectJson(s));
+    for (const auto& s : suspects) j["suspects"].push_back(SuspectJson(s, t));
     io.out << j.dump(2) << "\n";
   } else {
     Tabular tab;

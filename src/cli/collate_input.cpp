@@ -55,6 +55,10 @@ void FinishCollateRequest(CollateRequest& r, const po::variables_map& vm) {
 }
 
 collate::Collation CollateFromDb(store::Database& db, const CollateRequest& r) {
+  return CollateTableFromDb(db, r).collation;
+}
+
+CollatedTable CollateTableFromDb(store::Database& db, const CollateRequest& r) {
   auto all = store::LoadTable(db, r.table);
   if (all.empty()) {
     throw InputError::ForOption("--table",
@@ -77,7 +81,12 @@ collate::Collation CollateFromDb(store::Database& db, const CollateRequest& r) {
   collate::CollateOptions options;
   options.tolerance_units = r.tolerance;
   if (!r.reference.Empty()) options = JudgedOptions(db, chosen, r);
-  return collate::Collate(chosen, options);
+  CollatedTable out;
+  out.decisions = pipeline::LoadTableDecisions(db, r.table, chosen);
+  pipeline::ApplyDecisions(out.decisions, chosen, options);
+  out.collation = collate::Collate(chosen, options);
+  out.transcriptions = std::move(chosen);
+  return out;
 }
 
 }  // namespace apograph::cli

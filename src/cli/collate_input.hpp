@@ -10,6 +10,7 @@
 #include "cli/command.hpp"
 #include "cli/reference_options.hpp"
 #include "collate/collation.hpp"
+#include "pipeline/decisions.hpp"
 #include "pipeline/reference.hpp"
 #include "store/database.hpp"
 
@@ -33,7 +34,16 @@ void AddCollateOptions(po::options_description& options, CollateRequest& request
 /// Checks the model options once parsed.
 void FinishCollateRequest(CollateRequest& request, const po::variables_map& vm);
 
-/// Loads the table's current transcriptions (those named) and collates them.
+/// A table's transcriptions collated, with the editor's decisions applied.
+struct CollatedTable {
+  std::vector<Transcription> transcriptions;
+  pipeline::TableDecisions decisions;
+  collate::Collation collation;
+};
+
+/// Loads the table's current transcriptions (those named) and the editor's
+/// decisions, and collates them.
+CollatedTable CollateTableFromDb(store::Database& db, const CollateRequest& request);
 collate::Collation CollateFromDb(store::Database& db, const CollateRequest& request);
 
 }  // namespace apograph::cli

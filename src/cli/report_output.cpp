@@ -47,9 +47,10 @@ void WriteTableFiles(const fs::path& dir, const pipeline::TableAnalysis& a,
   publish::ReportOptions full = request.report;
   full.max_findings = 0;
   WriteFile(dir / (a.table_id + ".md"), publish::TableReport(a, full));
-  WriteFile(dir / (a.table_id + ".tei.xml"), publish::ToTei(a.apparatus));
-  WriteFile(dir / (a.table_id + ".tex"), publish::ToLatex(a.apparatus));
-  WriteFile(dir / (a.table_id + ".csv"), publish::ToCsv(a.apparatus));
+  const publish::Apparatus apparatus = publish::BuildApparatus(a, request.editor);
+  WriteFile(dir / (a.table_id + ".tei.xml"), publish::ToTei(apparatus));
+  WriteFile(dir / (a.table_id + ".tex"), publish::ToLatex(apparatus));
+  WriteFile(dir / (a.table_id + ".csv"), publish::ToCsv(apparatus));
   WriteStemma(dir, a.table_id + ".stemma", a.table_title, a.lineage);
 }
 

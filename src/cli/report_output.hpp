@@ -15,6 +15,7 @@ struct ReportRequest {
   /// Folder for the files (full report, apparatus, stemmata); empty: none.
   std::string output_dir;
   publish::ReportOptions report;  ///< for what is printed
+  std::string editor;             ///< named in the apparatus files beside those who decided
   pipeline::AnalysisOptions analysis;
 };
 

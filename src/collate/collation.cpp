@@ -13,6 +13,8 @@ const char* ToString(Basis basis) {
   switch (basis) {
     case Basis::kCaller:
       return "judgement";
+    case Basis::kEditor:
+      return "editor";
     case Basis::kRecomputation:
       return "recomputation";
     case Basis::kMajority:
@@ -272,13 +274,38 @@ std::string Fmt(double x) {
   return o.str();
 }
 
+// The caller's slip text without its class repeated ("unexplained: unexplained: ...").
+std::string SlipWords(const CellJudgement& j) {
+  const std::string prefix = j.cause + ": ";
+  if (!j.cause.empty() && j.slip.rfind(prefix, 0) == 0) return j.slip.substr(prefix.size());
+  return j.slip;
+}
+
+std::string CallerWhy(const Reading& r, const CellJudgement& j) {
+  if (!j.decision.empty()) return "the editor (" + j.editor + ") " + j.decision;
+  const std::string slip = SlipWords(j);
+  if (j.error) {
+    const std::string kind =
+        j.cause.empty() ? "a copyist's slip" : "a copyist's slip (" + j.cause + ")";
+    return slip.empty() ? kind : kind + ": " + slip;
+  }
+  if (!slip.empty()) return "the author's own value: " + slip;
+  if (j.computed && r.value && r.value->Identical(*j.computed)) return "agrees with recomputation";
+  if (j.computed)
+    return "agrees with recomputation within its rounding (" + j.computed->ToString() + ")";
+  return "not judged an error";
+}
+
 void JudgeByCaller(Reading& r, const CellJudgement& j) {
   r.error = j.error;
   if (j.computed && r.value) r.units_off = j.units_off;
   r.slip = j.slip;
+  r.cause = j.cause;
   r.common_slip = j.common_slip;
-  r.why = j.error ? (j.slip.empty() ? "judged an error" : "judged an error: " + j.slip)
-                  : "judged right";
+  r.emendation = j.emendation;
+  r.editor = j.editor;
+  r.decision = j.decision;
+  r.why = CallerWhy(r, j);
 }
 
 void JudgeByReference(Reading& r, const Sexagesimal& computed, int places, double tolerance) {
@@ -320,6 +347,11 @@ void GroupReadings(std::vector<Reading>& flat, CollatedCell& cell) {
       cell.readings.push_back(std::move(r));
     } else {
       same->sigla.push_back(r.sigla.front());
+      if (same->editor.empty() && !r.editor.empty()) {  // the editor's word is the evidence shown
+        same->editor = r.editor;
+        same->decision = r.decision;
+        same->why = r.why;
+      }
     }
   }
   std::stable_sort(cell.readings.begin(), cell.readings.end(),
@@ -335,7 +367,7 @@ CollatedCell BuildCell(const Context& cx, int j, int c) {
   const auto& row = cx.out.rows[j];
   if (cx.options.reference) cell.computed = cx.options.reference->value(row.argument, c);
   std::vector<Reading> flat;
-  bool any_caller = false;
+  bool any_caller = false, any_editor = false;
   for (std::size_t wi = 0; wi < cx.ws.size(); ++wi) {
     const auto& w = cx.ws[wi];
     const int src = row.source_row[wi];
@@ -354,13 +386,16 @@ CollatedCell BuildCell(const Context& cx, int j, int c) {
         own_col < static_cast<int>(jt->second[src].size()) && jt->second[src][own_col]) {
       JudgeByCaller(r, *jt->second[src][own_col]);
       any_caller = true;
+      any_editor = any_editor || !r.editor.empty();
     } else if (r.Comparable() && cell.computed) {
       JudgeByReference(r, *cell.computed, cx.out.columns[c].places, cx.options.tolerance_units);
     }
     flat.push_back(std::move(r));
   }
   GroupReadings(flat, cell);
-  if (any_caller)
+  if (any_editor)
+    cell.basis = Basis::kEditor;
+  else if (any_caller)
     cell.basis = Basis::kCaller;
   else if (cell.computed)
     cell.basis = Basis::kRecomputation;

@@ -27,6 +27,7 @@ namespace apograph::collate {
 /// On what ground a cell's readings were called right or wrong.
 enum class Basis {
   kCaller,         ///< the caller's judgement (e.g. explained deviations)
+  kEditor,         ///< the editor's recorded decision on at least one reading
   kRecomputation,  ///< distance from a recomputed value beyond the tolerance
   kMajority,       ///< no model: a minority reading against a clear majority
   kUndetermined,   ///< no model and no clear majority: no reading is marked
@@ -42,6 +43,16 @@ struct CellJudgement {
   /// A slip copyists make independently (look-alike symbols of the script,
   /// an off-by-one in the last place): weak evidence of common descent.
   bool common_slip = false;
+  /// The slip class by its stable name ("confusion", "displaced-run"; see
+  /// deviation::ToString(SlipClass)); empty when the reading is right. For
+  /// an author's departure, "computational".
+  std::string cause;
+  /// The reading the explanation restores (the proposed emendation).
+  std::optional<Sexagesimal> emendation;
+  /// Set when the editor decided this judgement: who, and what in words
+  /// ("accepted the emendation to 2;4,1: B agrees").
+  std::string editor;
+  std::string decision;
 };
 
 /// One witness's judgements, indexed [row of its transcription][column].
@@ -82,9 +93,13 @@ struct Reading {
   std::vector<std::string> sigla;  ///< in the collation's witness order
   bool error = false;
   std::optional<double> units_off;  ///< from the recomputed value, when known
-  std::string slip;                 ///< slip class from the caller, if any
+  std::string slip;                 ///< the caller's slip explanation, if any
+  std::string cause;                ///< the caller's slip class (CellJudgement::cause)
   bool common_slip = false;
-  std::string why;  ///< the evidence in words
+  std::optional<Sexagesimal> emendation;  ///< the reading the explanation restores
+  std::string editor;                     ///< who decided this judgement (empty: the tool)
+  std::string decision;                   ///< the editor's decision in words
+  std::string why;                        ///< the evidence in plain words
   /// Legible readings take part in comparison (values and blanks).
   bool Comparable() const { return kind == ReadingKind::kValue || kind == ReadingKind::kBlank; }
 };

@@ -43,7 +43,15 @@ nlohmann::json AttestedJson(const FitResult& fit, const std::vector<CatalogEntry
   return out;
 }
 
+/// The values used, name -> value (the JSON `params` of every command).
 nlohmann::json ParamsJson(const FitResult& fit) {
+  nlohmann::json out = nlohmann::json::object();
+  for (const auto& p : fit.params) out[p.name] = p.value;
+  return out;
+}
+
+/// The estimates with their standard errors (the JSON `estimates`).
+nlohmann::json EstimatesJson(const FitResult& fit) {
   nlohmann::json out = nlohmann::json::object();
   for (const auto& p : fit.params) {
     out[p.name] = {{"value", p.value},
@@ -52,6 +60,23 @@ nlohmann::json ParamsJson(const FitResult& fit) {
                    {"trade", TradeValue(p.value, p.stderr_)}};
   }
   return out;
+}
+
+nlohmann::json PracticeJson(const model::Practice& p) {
+  return {{"rounding", p.rounding == Rounding::kTruncate ? "truncate" : "nearest"},
+          {"places", p.places ? nlohmann::json(*p.places) : nlohmann::json(nullptr)},
+          {"grid", p.grid},
+          {"grid_origin", p.grid_origin},
+          {"round_nodes", p.round_nodes},
+          {"displacement", p.displacement}};
+}
+
+/// A row's argument in trade notation: the one the row stands for.
+std::string ArgText(const Transcription& t, std::size_t row, double arg) {
+  if (row < t.rows.size()) {
+    if (auto a = t.ArgumentInUse(row)) return a->ToString();
+  }
+  return Sexagesimal::FromDouble(arg, t.argument.places).ToString();
 }
 
 }  // namespace
@@ -86,16 +111,13 @@ nlohmann::json FitJson(const FitResult& fit, const Transcription& t,
   j["witness"] = t.witness.siglum;
   j["model"] = fit.model;
   const auto& p = fit.practice;
-  j["practice"] = {{"rounding", p.rounding == Rounding::kTruncate ? "truncate" : "nearest"},
-                   {"places", p.places ? nlohmann::json(*p.places) : nlohmann::json(nullptr)},
-                   {"grid", p.grid},
-                   {"grid_origin", p.grid_origin},
-                   {"round_nodes", p.round_nodes},
-                   {"displacement", p.displacement},
-                   {"displacement_stderr", fit.displacement_stderr}};
+  j["practice"] = PracticeJson(p);
+  j["practice"]["displacement_stderr"] = fit.displacement_stderr;
   j["params"] = ParamsJson(fit);
+  j["estimates"] = EstimatesJson(fit);
   j["exact"] = fit.exact;
-  j["within1"] = fit.within1;
+  j["within_one"] = fit.within1;
+  j["within1"] = fit.within1;  // deprecated alias of within_one (README 0.1)
   j["flagged"] = fit.flagged;
   j["n"] = fit.n;
   j["robust_scale"] = fit.robust_scale;
@@ -103,7 +125,8 @@ nlohmann::json FitJson(const FitResult& fit, const Transcription& t,
   j["iterations"] = fit.iterations;
   nlohmann::json entries = nlohmann::json::array();
   for (const auto& e : fit.entries) {
-    entries.push_back({{"arg", e.arg},
+    entries.push_back({{"row", e.row + 1},
+                       {"arg", ArgText(t, e.row, e.arg)},
                        {"column", ColumnName(t, e.column)},
                        {"tabulated", e.tabulated.ToString()},
                        {"computed", e.computed ? nlohmann::json(e.computed->ToString())
@@ -116,6 +139,15 @@ nlohmann::json FitJson(const FitResult& fit, const Transcription& t,
   j["attested"] = AttestedJson(fit, catalog);
   return j;
 }
+
+namespace {
+
+std::vector<std::size_t> FromRows(std::vector<std::size_t> rows) {
+  for (auto& r : rows) ++r;  // 1-based, as every `row` in JSON
+  return rows;
+}
+
+}  // namespace
 
 nlohmann::json MeanMotionJson(const MeanMotionAnalysis& a) {
   nlohmann::json j;
@@ -136,13 +168,14 @@ nlohmann::json MeanMotionJson(const MeanMotionAnalysis& a) {
   nlohmann::json entries = nlohmann::json::array();
   for (const auto& e : a.entries) {
     entries.push_back(
-        {{"arg", e.arg},
+        {{"row", e.row + 1},
+         {"arg", Sexagesimal::FromDouble(e.arg, 0).ToString()},  // whole arguments only
          {"tabulated", e.value.ToString()},
          {"turns", e.turns},
          {"origin", ToString(e.origin)},
          {"direct", e.direct ? nlohmann::json(e.direct->ToString()) : nlohmann::json(nullptr)},
          {"direct_diff_units", e.direct_diff_units},
-         {"from_rows", e.from},
+         {"from_rows", FromRows(e.from)},
          {"evidence", e.evidence}});
   }
   j["entries"] = entries;
@@ -161,13 +194,16 @@ nlohmann::json IdentificationJson(const Identification& id, const Transcription&
   for (const auto& c : id.ranked) {
     list.push_back({{"rank", ++rank},
                     {"model", c.model->name()},
-                    {"practice", c.PracticeText()},
+                    {"practice", PracticeJson(c.fit.practice)},
+                    {"practice_text", c.PracticeText()},
                     {"score", c.score},
                     {"log_likelihood", c.log_likelihood},
                     {"penalised_parameters", c.penalised_parameters},
                     {"params", ParamsJson(c.fit)},
+                    {"estimates", EstimatesJson(c.fit)},
                     {"exact", c.fit.exact},
-                    {"within1", c.fit.within1},
+                    {"within_one", c.fit.within1},
+                    {"within1", c.fit.within1},  // deprecated alias of within_one
                     {"flagged", c.fit.flagged},
                     {"n", c.fit.n},
                     {"robust_scale", c.fit.robust_scale},

@@ -99,7 +99,7 @@ nlohmann::json ToJson(const LineageReport& r) {
     }
     if (res.parsimony) {
       j["length"] = res.parsimony->length;
-      j["exact"] = res.parsimony->exact;
+      j["exact_search"] = res.parsimony->exact;  // `exact` counts entries elsewhere
       j["search"] = res.parsimony->search;
     }
     out["results"].push_back(j);

@@ -5,7 +5,6 @@
 #include "deviation/numeral_script.hpp"
 #include "estimate/report.hpp"
 #include "lineage/parsimony.hpp"
-#include "store/apparatus_store.hpp"
 #include "store/edition_store.hpp"
 #include "store/estimate_store.hpp"
 #include "support/input_error.hpp"
@@ -31,15 +30,14 @@ std::vector<Transcription> Chosen(std::vector<Transcription> all,
   return out;
 }
 
-/// The parsimony stemma when the report has one, else a parsimony search now.
-lineage::Stemma ParsimonyStemma(const TableAnalysis& a) {
-  for (const auto& r : a.lineage.results) {
-    if (r.method == lineage::Method::kParsimony) return r.stemma;
-  }
-  return lineage::Parsimony(a.characters).stemma;
-}
-
 }  // namespace
+
+std::vector<std::vector<std::string>> ParsimonyBranches(const TableAnalysis& a) {
+  for (const auto& r : a.lineage.results) {
+    if (r.method == lineage::Method::kParsimony) return Branches(r.stemma);
+  }
+  return Branches(lineage::Parsimony(a.characters).stemma);
+}
 
 const WitnessFindings* TableAnalysis::FindingsOf(const std::string& siglum) const {
   for (const auto& w : witnesses) {
@@ -77,13 +75,13 @@ TableAnalysis AnalyseTranscriptions(std::vector<Transcription> transcriptions,
       options.scripts_dir.empty() ? deviation::DefaultScriptDir() : options.scripts_dir;
   a.witnesses = ExplainTradition(a.transcriptions, a.references, dir, options.explain,
                                  options.check_tolerance, options.guard);
-  a.collation = collate::Collate(
-      a.transcriptions,
-      JudgedCollateOptions(a.transcriptions, a.references, a.witnesses, options.collate_tolerance));
+  auto judged =
+      JudgedCollateOptions(a.transcriptions, a.references, a.witnesses, options.collate_tolerance);
+  a.decisions = options.decisions;
+  ApplyDecisions(a.decisions, a.transcriptions, judged);
+  a.collation = collate::Collate(a.transcriptions, judged);
   a.characters = lineage::BuildErrorCharacters(a.collation);
   a.lineage = lineage::AnalyseLineage(a.characters, options.lineage);
-  a.apparatus =
-      publish::BuildApparatus(a.collation, Branches(ParsimonyStemma(a)), options.overrides);
   return a;
 }
 
@@ -102,11 +100,9 @@ TableAnalysis AnalyseTable(store::Database& db, const std::string& table_id,
                                 ExpectedFound("a table with transcriptions", "'" + table_id + "'"));
   }
   AnalysisOptions o = options;
-  for (const auto& d : store::LoadApparatusOverrides(db, table_id)) {
-    if (!d.reading.empty()) o.overrides.push_back({d.row_argument, d.column, d.reading, d.note});
-  }
-  TableAnalysis a = AnalyseTranscriptions(Chosen(std::move(all), options.witnesses, table_id), o,
-                                          LoadModelLibrary(db));
+  auto chosen = Chosen(std::move(all), options.witnesses, table_id);
+  o.decisions = LoadTableDecisions(db, table_id, chosen);
+  TableAnalysis a = AnalyseTranscriptions(std::move(chosen), o, LoadModelLibrary(db));
   const auto catalog = store::LoadCatalog(db);
   for (auto& r : a.references) {
     if (r.estimates.empty()) continue;

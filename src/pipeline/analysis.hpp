@@ -3,16 +3,16 @@
 /// explain each column, what every witness's deviations are (copyist's
 /// slips versus the author's own departures), the collation judged by
 /// those explanations, the stemma with copies and contamination, and the
-/// edited table with its apparatus. This is what `apograph demo` and a
-/// report render; every stage's own value is kept, so a renderer can show
-/// as much evidence as it likes.
+/// editor's decisions that bear on them. This is what `apograph demo` and a
+/// report render (publish::BuildApparatus(analysis) makes the edited table);
+/// every stage's own value is kept, so a renderer can show as much evidence
+/// as it likes.
 ///
 ///     store::Database db("edition.sqlite");
 ///     pipeline::TableAnalysis a = pipeline::AnalyseTable(db, "sun-eq");
 ///     for (const auto& ref : a.references) std::cout << ref.description << "\n";
 ///     for (const auto& w : a.witnesses) ...   // w.findings, w.checks
 ///     lineage::ToNewick(a.lineage.results[0].stemma);
-///     publish::ToTei(a.apparatus);
 
 #include <string>
 #include <vector>
@@ -22,13 +22,9 @@
 #include "edition/transcription.hpp"
 #include "lineage/characters.hpp"
 #include "lineage/lineage.hpp"
+#include "pipeline/decisions.hpp"
 #include "pipeline/reference.hpp"
 #include "pipeline/witness_findings.hpp"
-#include "publish/apparatus.hpp"
-
-namespace apograph::store {
-class Database;
-}
 
 namespace apograph::pipeline {
 
@@ -47,9 +43,9 @@ struct AnalysisOptions {
   double collate_tolerance = 1;        ///< used only where a cell has no judgement
   lineage::LineageOptions lineage;     ///< methods (parsimony by default), bootstrap
   std::string scripts_dir;             ///< numeral scripts; empty: deviation::DefaultScriptDir()
-  /// The editor's overrides of adopted readings (AnalyseTable with a
-  /// database adds the stored ones).
-  std::vector<publish::Override> overrides;
+  /// The editor's decisions, applied to the collation's judgements
+  /// (AnalyseTable loads the stored ones).
+  TableDecisions decisions;
 };
 
 /// Everything found about one table. Field by field:
@@ -68,16 +64,17 @@ struct TableAnalysis {
   std::vector<WitnessFindings> witnesses;
   /// The witnesses aligned and every reading judged by the findings
   /// (Basis::kCaller): the author's departures are right readings, slips
-  /// are errors, common slips weigh less.
+  /// are errors, common slips weigh less; the editor's decisions take
+  /// precedence (Basis::kEditor).
   collate::Collation collation;
   /// The error characters the stemma is argued from.
   lineage::CharacterMatrix characters;
   /// Stemmata (per method), groups with support, candidate direct copies,
   /// contaminated witnesses.
   lineage::LineageReport lineage;
-  /// The edited table and its apparatus (lemma by the branches of the
-  /// parsimony stemma, or by witness count without one).
-  publish::Apparatus apparatus;
+  /// The editor's decisions in force, matched to the transcriptions (those
+  /// whose reading changed since are kept with applies = false).
+  TableDecisions decisions;
 
   /// The findings of one witness, or nullptr.
   const WitnessFindings* FindingsOf(const std::string& siglum) const;
@@ -92,7 +89,7 @@ TableAnalysis AnalyseTranscriptions(std::vector<Transcription> transcriptions,
                                     const ModelLibrary& library = {});
 
 /// Loads the table's current transcriptions, the saved formulas and the
-/// editor's stored apparatus overrides, and runs AnalyseTranscriptions.
+/// editor's decisions, and runs AnalyseTranscriptions.
 /// Throws InputError (option --table / --witnesses) when there is no such
 /// table or witness.
 TableAnalysis AnalyseTable(store::Database& db, const std::string& table_id,
@@ -108,5 +105,8 @@ lineage::LineageReport WorkLineage(const std::vector<TableAnalysis>& tables,
 /// The sigla of each independent branch below the archetype of a stemma
 /// (what the apparatus's lemma choice votes by).
 std::vector<std::vector<std::string>> Branches(const lineage::Stemma& stemma);
+/// The branches of the analysis's parsimony stemma (searched now when the
+/// analysis ran without one).
+std::vector<std::vector<std::string>> ParsimonyBranches(const TableAnalysis& analysis);
 
 }  // namespace apograph::pipeline

@@ -80,6 +80,8 @@ void LoneDepartures(const std::vector<Transcription>& ws,
           return;
         j.error = true;
         j.common_slip = true;
+        j.cause = "lone-departure";
+        j.emendation = j.computed;
         j.slip =
             "a small departure in this witness only, where the others read the model's value: a "
             "copyist's slip (" +
@@ -165,8 +167,10 @@ collate::JudgementGrid JudgementsFromFindings(const Transcription& witness,
       auto& j = grid[cell.row][static_cast<std::size_t>(f.column)];
       if (!j) continue;  // illegible or partial: the collation does not compare it
       j->error = slip;
-      j->slip = std::string(deviation::ToString(f.best().cls)) + ": " + f.best().evidence;
+      j->slip = f.best().evidence;
+      j->cause = deviation::ToString(f.best().cls);
       j->common_slip = slip && CommonSlip(f, cell);
+      if (slip) j->emendation = cell.emendation;
     }
   }
   return grid;

@@ -100,8 +100,9 @@ std::vector<DeparturePattern> AuthorsDepartures(const std::vector<WitnessFinding
 /// The collation's judgement of every readable cell (value or blank) of the
 /// referenced columns of `witness`:
 ///  - no finding: right (error false), with the recomputed value;
-///  - a copyist's slip or an unexplained deviation: an error, the slip in
-///    words from the best explanation ("transposition: ...");
+///  - a copyist's slip or an unexplained deviation: an error, with the best
+///    explanation's evidence as `slip`, its class as `cause` and its
+///    proposed reading as `emendation`;
 ///  - the author's computational departure: NOT an error. Every witness
 ///    inherits it from the archetype, so it says nothing about descent;
 ///  - common_slip (weak evidence of descent, since copyists make it

@@ -1,10 +1,12 @@
 #include "publish/report.hpp"
 
 #include <cstdio>
+#include <set>
 #include <sstream>
 
 #include "estimate/report.hpp"
 #include "lineage/stemma.hpp"
+#include "publish/apparatus.hpp"
 #include "support/tabular.hpp"
 
 namespace apograph::publish {
@@ -134,6 +136,61 @@ void Refused(const pipeline::WitnessFindings& w, std::ostream& out) {
   }
 }
 
+/// The arguments and current readings of a finding's cells in the witness.
+struct FoundCell {
+  std::string arg;
+  std::string reading;
+};
+
+std::vector<FoundCell> FoundCells(const Transcription& t, const deviation::Finding& f) {
+  std::vector<FoundCell> out;
+  for (const auto& c : f.cells) {
+    const auto arg = t.ArgumentInUse(c.row);
+    out.push_back({arg ? arg->ToString() : c.arg, c.tabulated});
+  }
+  return out;
+}
+
+std::string Who(const pipeline::Decision& d) {
+  std::string out = d.editor + " on " + d.decided_at.substr(0, 10);
+  return d.note.empty() ? out : out + ": " + d.note;
+}
+
+/// What the editor decided about a finding, in words (" - accepted by ...").
+std::string DecisionWords(const pipeline::TableAnalysis& a, const std::string& siglum,
+                          const deviation::Finding& f) {
+  const Transcription* t = nullptr;
+  for (const auto& x : a.transcriptions) {
+    if (x.witness.siglum == siglum) t = &x;
+  }
+  if (!t) return "";
+  const auto cells = FoundCells(*t, f);
+  std::string out;
+  if (const auto* w = a.decisions.At(siglum, f.column_name, cells.front().arg)) {
+    const auto& first = f.cells.front().emendation;
+    const bool same = first && first->ToString() == w->cell.proposed;
+    out = w->decision.action == pipeline::Action::kAccept
+              ? " - accepted by " + Who(w->decision) +
+                    (same ? "" : " (adopting " + w->cell.proposed + ")")
+              : " - rejected by " + Who(w->decision) + "; the reading is kept";
+  } else {
+    out = " - undecided";
+    for (const auto& w : a.decisions.witness_cells) {
+      if (w.applies || w.cell.witness != siglum || w.cell.column != f.column_name ||
+          w.cell.arg != cells.front().arg)
+        continue;
+      out = " - review: " + std::string(pipeline::ToString(w.decision.action)) + "ed by " +
+            Who(w.decision) + " when " + siglum + " read " + w.cell.reading + "; it now reads " +
+            (w.now.empty() ? "nothing" : w.now);
+    }
+  }
+  if (const auto* e = a.decisions.EditedAt(cells.front().arg, f.column_name)) {
+    out += "; the edited text reads " + e->reading + " (" + pipeline::ToString(e->decision.action) +
+           " by " + Who(e->decision) + ")";
+  }
+  return out;
+}
+
 void Deviations(const pipeline::TableAnalysis& a, const ReportOptions& o, std::ostream& out) {
   out << "### Deviations explained (suggestions: the editor decides)\n\n";
   AuthorsPattern(a, out);
@@ -150,7 +207,7 @@ void Deviations(const pipeline::TableAnalysis& a, const ReportOptions& o, std::o
         ++hidden;
         continue;
       }
-      out << "- " << f.Note(w.siglum) << "\n";
+      out << "- " << f.Note(w.siglum) << (departure ? "" : DecisionWords(a, w.siglum, f)) << "\n";
       ++shown;
     }
     if (hidden) {
@@ -200,37 +257,64 @@ void Lineage(const lineage::LineageReport& l, std::ostream& out) {
   out << "\n";
 }
 
+std::string CellName(const Apparatus& app, std::size_t r, std::size_t c) {
+  return app.arguments[r].ToString() + " " + app.columns[c].name;
+}
+
+/// The editor's decisions in force, counted.
+void DecisionSummary(const pipeline::TableDecisions& d, std::ostream& out) {
+  int accepted = 0, rejected = 0, overrides = 0, conjectures = 0;
+  std::set<std::int64_t> seen;
+  for (const auto& w : d.witness_cells) {
+    if (!w.applies || !seen.insert(w.decision.id).second) continue;
+    (w.decision.action == pipeline::Action::kAccept ? accepted : rejected)++;
+  }
+  for (const auto& e : d.edited_cells)
+    (e.decision.action == pipeline::Action::kConjecture ? conjectures : overrides)++;
+  out << "The editor's decisions in force: " << accepted << " emendations accepted, " << rejected
+      << " rejected, " << overrides << " readings adopted, " << conjectures << " conjectures";
+  const auto editors = d.Editors();
+  if (!editors.empty()) out << " (by " << Join(editors, ", ") << ")";
+  out << ".\n";
+  for (const auto& w : d.witness_cells) {
+    if (w.applies) continue;
+    out << "- review: decision " << w.decision.id << " (" << pipeline::ToString(w.decision.action)
+        << " by " << Who(w.decision) << ") on " << w.cell.witness << " " << w.cell.arg << " "
+        << w.cell.column << " was made when it read " << w.cell.reading << "; it now reads "
+        << (w.now.empty() ? "nothing" : w.now) << "\n";
+  }
+}
+
 void ApparatusSummary(const pipeline::TableAnalysis& a, std::ostream& out) {
-  int with_variants = 0, overrides = 0, undetermined = 0;
-  std::vector<std::string> to_decide;
-  const auto& app = a.apparatus;
+  const Apparatus app = BuildApparatus(a);
+  int with_variants = 0, editorial = 0, undetermined = 0;
+  std::vector<std::string> restored, deviating;
   for (std::size_t r = 0; r < app.cells.size(); ++r) {
     for (std::size_t c = 0; c < app.cells[r].size(); ++c) {
       const ApparatusEntry& e = app.cells[r][c];
       with_variants += e.HasVariants();
-      overrides += e.editor;
-      undetermined += e.note.rfind("no model and no majority", 0) == 0;
-      if (e.note.rfind("every witness deviates", 0) == 0) {
-        std::string model;
-        if (r < a.collation.rows.size() && c < a.collation.rows[r].cells.size() &&
-            a.collation.rows[r].cells[c].computed) {
-          model = "; the model gives " + a.collation.rows[r].cells[c].computed->ToString();
-        }
-        to_decide.push_back(app.arguments[r].ToString() + " " + app.columns[c].name + ": adopted " +
-                            e.lemma + model + " (" + e.note + ")");
-      }
+      editorial += e.Editorial();
+      undetermined += e.reason.rfind("no model and no majority", 0) == 0;
+      if (e.source == LemmaSource::kRestored)
+        restored.push_back(CellName(app, r, c) + ": " + e.lemma + " (" + e.reason + ")");
+      if (e.lemma_error)
+        deviating.push_back(CellName(app, r, c) + ": adopted " + e.lemma + " (" + e.reason + ")");
     }
   }
   out << "### The edited table\n\n"
       << app.cells.size() << " rows; " << with_variants
-      << " cells with variant readings in the apparatus; " << overrides << " editor's overrides";
+      << " cells with variant readings in the apparatus; " << editorial
+      << " readings decided by the editor";
   if (undetermined) out << "; " << undetermined << " cells undetermined (no model, no majority)";
   out << ".\n";
-  if (!to_decide.empty()) {
-    out << "Cells where every witness deviates from the model (an archetype error or the author's "
-           "own value: the editor decides, apograph apparatus --override):\n";
-    for (const auto& line : to_decide) out << "- " << line << "\n";
+  DecisionSummary(a.decisions, out);
+  if (!restored.empty()) {
+    out << "Conjectures restored by recomputation where every witness deviates (the editor "
+           "confirms with apograph emendation conjecture, or adopts a reading with apograph "
+           "emendation override):\n";
+    for (const auto& line : restored) out << "- " << line << "\n";
   }
+  for (const auto& line : deviating) out << "- " << line << "\n";
   out << "\n";
 }
 
@@ -238,7 +322,7 @@ void ApparatusSummary(const pipeline::TableAnalysis& a, std::ostream& out) {
 
 std::string TableReport(const pipeline::TableAnalysis& a, const ReportOptions& o) {
   std::ostringstream out;
-  out << "## " << a.table_id << ": " << a.table_title;
+  out << "## " << a.table_id << (a.table_title.empty() ? "" : ": " + a.table_title);
   if (!a.work.title.empty()) out << " (" << a.work.title << ")";
   out << "\n\n";
   Witnesses(a, out);

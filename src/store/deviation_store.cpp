@@ -2,8 +2,6 @@
 
 #include <map>
 
-#include "support/input_error.hpp"
-
 namespace apograph::store {
 namespace {
 
@@ -38,8 +36,14 @@ EmendationRecord Read(const Statement& s) {
 }  // namespace
 
 RecordResult RecordEmendations(Database& db, const std::vector<EmendationRecord>& proposals) {
-  RecordResult out;
   Transaction t(db);
+  const RecordResult out = InsertEmendations(db, proposals);
+  t.Commit();
+  return out;
+}
+
+RecordResult InsertEmendations(Database& db, const std::vector<EmendationRecord>& proposals) {
+  RecordResult out;
   auto find = db.Prepare(
       "SELECT id FROM emendation WHERE table_id = ?1 AND siglum = ?2 AND revision = ?3 AND "
       "row_index = ?4 AND col = ?5 AND proposed = ?6");
@@ -84,7 +88,6 @@ RecordResult RecordEmendations(Database& db, const std::vector<EmendationRecord>
     if (p.group != 0) group_head.emplace(p.group, db.LastInsertId());
     ++out.added;
   }
-  t.Commit();
   return out;
 }
 
@@ -99,29 +102,11 @@ std::vector<EmendationRecord> ListEmendations(Database& db, const EmendationFilt
   return out;
 }
 
-EmendationRecord DecideEmendation(Database& db, std::int64_t id, const std::string& status,
-                                  const std::string& note) {
-  if (status != "accepted" && status != "rejected") {
-    throw InputError::ForOption("status",
-                                ExpectedFound("accepted or rejected", "'" + status + "'"));
-  }
-  Transaction t(db);
-  auto update = db.Prepare(
-      "UPDATE emendation SET status = ?2, editor_note = ?3, "
-      "decided_at = strftime('%Y-%m-%dT%H:%M:%SZ', 'now') WHERE id = ?1");
-  update.Bind(1, id).Bind(2, status).Bind(3, note);
-  update.Run();
+std::optional<EmendationRecord> FindEmendation(Database& db, std::int64_t id) {
   auto read = db.Prepare(std::string("SELECT ") + kColumns + " FROM emendation WHERE id = ?1");
   read.Bind(1, id);
-  if (!read.Step()) {
-    throw InputError::ForOption("apograph emendation",
-                                ExpectedFound("the id of a proposed emendation (see "
-                                              "apograph emendation list)",
-                                              "'" + std::to_string(id) + "'"));
-  }
-  EmendationRecord r = Read(read);
-  t.Commit();
-  return r;
+  if (!read.Step()) return std::nullopt;
+  return Read(read);
 }
 
 }  // namespace apograph::store

@@ -1,7 +1,7 @@
 #pragma once
 /// The deviation stage's tables (schema/004_deviation.sql) as plain values:
-/// record the emendations `apograph errors` proposes, list them, and record
-/// the editor's decision on each.
+/// record the emendations `apograph errors` proposes and list them. The
+/// editor's decisions on them are pipeline/decisions.hpp's (schema 010).
 
 #include <cstdint>
 #include <optional>
@@ -32,7 +32,9 @@ struct EmendationRecord {
   /// proposal; set by RecordEmendations from `group` below.
   std::optional<std::int64_t> finding;
   int group = 0;  ///< input only: proposals with the same non-zero group form one finding
-  std::string status = "proposed";  ///< proposed / accepted / rejected
+  /// proposed / accepted / rejected: a copy of the decision in force, kept
+  /// in step by pipeline/decisions.hpp for schema 004's views.
+  std::string status = "proposed";
   std::string proposed_at;
   std::optional<std::string> decided_at;
   std::string editor_note;
@@ -46,6 +48,8 @@ struct RecordResult {
 /// Records proposals in one transaction. A proposal already recorded for the
 /// same cell, revision and reading is kept as it is, with any decision.
 RecordResult RecordEmendations(Database& db, const std::vector<EmendationRecord>& proposals);
+/// The same inside the caller's transaction.
+RecordResult InsertEmendations(Database& db, const std::vector<EmendationRecord>& proposals);
 
 struct EmendationFilter {
   std::optional<std::string> table_id;
@@ -56,11 +60,7 @@ struct EmendationFilter {
 /// Proposals in table, witness, revision, row, column order.
 std::vector<EmendationRecord> ListEmendations(Database& db, const EmendationFilter& filter = {});
 
-/// The editor accepts or rejects proposal `id` (status "accepted" or
-/// "rejected"), with an optional note; the time is recorded. A later decision
-/// replaces an earlier one. Throws InputError (option `id`) when there is no
-/// such proposal.
-EmendationRecord DecideEmendation(Database& db, std::int64_t id, const std::string& status,
-                                  const std::string& note);
+/// One proposal by id, or nullopt.
+std::optional<EmendationRecord> FindEmendation(Database& db, std::int64_t id);
 
 }  // namespace apograph::store

@@ -5,6 +5,7 @@
 
 #include "edition/names.hpp"
 #include "store/cell_writer.hpp"
+#include "store/decision_store.hpp"
 
 namespace apograph::store {
 namespace {
@@ -314,6 +315,7 @@ TableImport Writer::Write(const Transcription& t, ImportResult& result) {
   const std::int64_t before = cells_.written();
   for (std::size_t r = 0; r < t.rows.size(); ++r) cells_.Add(revision, t, r);
   cells_.Flush();
+  RecordRowArguments(db_, revision, t);  // what the views call a row's argument
   result.cells_written += static_cast<std::size_t>(cells_.written() - before);
   out.revision = current + 1;
   out.changed = true;

@@ -11,7 +11,9 @@ std::size_t DisplayWidth(const std::string& text) {
 }
 
 std::string CsvField(const std::string& field) {
-  if (field.find_first_of(",\"\n\r") == std::string::npos) return field;
+  const bool blank_end = !field.empty() && (field.front() == ' ' || field.front() == '\t' ||
+                                            field.back() == ' ' || field.back() == '\t');
+  if (field.find_first_of(",;\"\n\r") == std::string::npos && !blank_end) return field;
   std::string out = "\"";
   for (char c : field) {
     if (c == '"') out += '"';

@@ -21,7 +21,10 @@ struct Tabular {
   std::string RenderCsv() const;
 };
 
-/// Quotes a field for CSV when it needs it.
+/// Quotes a field for CSV (RFC 4180) when it holds a comma, a quote or a
+/// line break, and also a semicolon (the trade's separator, and the
+/// delimiter of spreadsheets in many locales) or blanks at either end
+/// (which some readers trim). The one CSV quoter of the project.
 std::string CsvField(const std::string& field);
 /// Width of a UTF-8 string in code points (for alignment).
 std::size_t DisplayWidth(const std::string& text);

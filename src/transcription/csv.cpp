@@ -11,6 +11,7 @@
 
 #include "edition/names.hpp"
 #include "support/input_error.hpp"
+#include "support/tabular.hpp"
 #include "transcription/csv_layout.hpp"
 #include "transcription/syntax.hpp"
 
@@ -527,18 +528,6 @@ TranscriptionFile CsvReader::Run() {
   TranscriptionFile out;
   out.tables.push_back(std::move(t));
   return out;
-}
-
-std::string CsvField(const std::string& text) {
-  const bool quote = text.find_first_of(",;\"\r\n") != std::string::npos ||
-                     (!text.empty() && (IsBlank(text.front()) || IsBlank(text.back())));
-  if (!quote) return text;
-  std::string out = "\"";
-  for (char c : text) {
-    if (c == '"') out += '"';
-    out += c;
-  }
-  return out + "\"";
 }
 
 std::string CsvReading(const Cell& cell) {

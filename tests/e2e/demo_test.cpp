@@ -7,6 +7,8 @@
 #include <string>
 
 #include "cli_runner.hpp"
+#include "publish/latex_check.hpp"
+#include "publish/tei_rules.hpp"
 
 namespace {
 
@@ -61,6 +63,32 @@ TEST_CASE("the demo runs the whole pipeline and finds what the generator did") {
   CHECK(Has(r.out, "more (apograph errors --table"));
   CHECK_FALSE(Has(apograph::testing::ReadWholeFile(dir / "apograph-demo/decl.md"),
                   "more (apograph errors"));
+
+  // The apparatus shows the transcriptions' editorial marks (TRUTH.md lists
+  // them) and, where every witness errs (decl 46: A, B and E carry A's
+  // eye-skip, C and D alpha's slip), the restoration as a conjecture.
+  const std::string decl_tei = apograph::testing::ReadWholeFile(dir / "apograph-demo/decl.tei.xml");
+  CHECK(Has(decl_tei, "<lem type=\"conjecture\">16;41,57</lem>"));
+  CHECK(Has(decl_tei, "<witDetail wit=\"#A\" type=\"margin\">in the margin</witDetail>"));
+  CHECK(apograph::testing::TeiChecker().Check(decl_tei) == std::vector<std::string>{});
+  const std::string decl_tex = apograph::testing::ReadWholeFile(dir / "apograph-demo/decl.tex");
+  CHECK(Has(decl_tex, "\\textbf{46}\\quad 16;41,57 \\textit{conj.} (every witness deviates"));
+  const std::string sun_eq = apograph::testing::ReadWholeFile(dir / "apograph-demo/sun-eq.csv");
+  CHECK(Has(sun_eq, ",\"C: corrected from 2;0,59\","));
+  CHECK(Has(sun_eq, ",D: the support is damaged,"));
+  const std::string sun_mm = apograph::testing::ReadWholeFile(dir / "apograph-demo/sun-mm.tex");
+  CHECK(Has(sun_mm, "E: the reading is doubtful"));
+  CHECK(Has(sun_mm, "D: ink faded, reading from the offset"));
+  CHECK(Has(apograph::testing::ReadWholeFile(dir / "apograph-demo/shadow.tei.xml"),
+            "<witDetail wit=\"#B\" type=\"interlinear\">"));
+  CHECK(Has(r.out, "- 46 declination: 16;41,57 (every witness deviates from recomputation"));
+  if (apograph::testing::HaveLatexTools()) {
+    const auto pdf = apograph::testing::CompileLatex(decl_tex);
+    REQUIRE_MESSAGE(pdf.compiled, pdf.log);
+    CHECK(pdf.fonts.find("Type 3") == std::string::npos);
+  } else {
+    MESSAGE("LaTeX not compiled: pdflatex or pdffonts not on PATH");
+  }
 
   SUBCASE("a second demo replaces the first one's folder") {
     CHECK(RunBinary("demo", dir.path()).code == 0);

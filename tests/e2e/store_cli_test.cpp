@@ -76,7 +76,8 @@ TEST_CASE("e2e: import reports new revisions, then unchanged; list counts cells"
   REQUIRE(j["tables"].size() == 1);
   CHECK(j["tables"][0]["status"] == "unchanged");
   CHECK(j["tables"][0]["table"] == "moon-eq");
-  CHECK(j["tables"][0]["siglum"] == "M");
+  CHECK(j["tables"][0]["witness"] == "M");
+  CHECK(j["tables"][0]["siglum"] == "M");  // the deprecated alias
   CHECK(j["tables"][0]["cells"] == 20);
   CHECK(j["cells_written"] == 0);
 
@@ -90,7 +91,7 @@ TEST_CASE("e2e: import reports new revisions, then unchanged; list counts cells"
   CHECK(r.code == 0);
   const auto w = nlohmann::json::parse(r.out);
   REQUIRE(w["witnesses"].size() == 1);
-  CHECK(w["witnesses"][0]["siglum"] == "M");
+  CHECK(w["witnesses"][0]["witness"] == "M");
   CHECK(w["witnesses"][0]["shelfmark"] == "Cod. 305");
 
   r = s.Run("list works");
@@ -176,7 +177,8 @@ TEST_CASE("e2e: CSV sheets import with their options") {
   CHECK(r.out.find("new revision") != std::string::npos);
   r = s.Run("export --table sun-eq --witness K --format json");
   const auto j = nlohmann::json::parse(r.out);
-  CHECK(j["witness"]["script"] == "hindu-arabic");
+  CHECK(j["witness"] == "K");
+  CHECK(j["script"] == "hindu-arabic");
   CHECK(j["columns"][0]["places"] == 2);
   CHECK(j["rows"][1]["cells"][0]["state"] == "illegible");
   CHECK(j["rows"][2]["cells"][0]["state"] == "blank");

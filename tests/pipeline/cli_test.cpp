@@ -9,8 +9,8 @@
 #include "cli/command.hpp"
 #include "cli_runner.hpp"
 #include "store/edition_store.hpp"
-#include "transcription/parser.hpp"
 #include "test_paths.hpp"
+#include "transcription/parser.hpp"
 
 namespace apograph {
 namespace {
@@ -120,11 +120,15 @@ TEST_CASE("apparatus --auto adopts the model's reading where the majority carrie
   Run judged =
       Apograph(Demo().Args({"apparatus", "--table", "sun-eq", "--auto", "--format", "csv"}));
   CHECK(judged.code == 0);
-  CHECK(judged.out.find("\n10,equation,\"0;21,43\",A B,,\"0;27,43 C D E\"") != std::string::npos);
+  CHECK(judged.out.find("\n10,equation,lemma,\"0;21,43\",A B,value,0,,") != std::string::npos);
+  CHECK(judged.out.find("\n10,equation,variant,\"0;27,43\",C D E,value,1,confusion,") !=
+        std::string::npos);
   Run majority = Apograph(Demo().Args({"apparatus", "--table", "sun-eq", "--format", "csv"}));
-  CHECK(majority.out.find("\n10,equation,\"0;27,43\",C D E,") != std::string::npos);
+  CHECK(majority.out.find("\n10,equation,lemma,\"0;27,43\",C D E,") != std::string::npos);
   // The author's own departure at 97 (shared by all) is the lemma, with no variant.
-  CHECK(judged.out.find("\n97,equation,\"2;9,21\",A B C D E,,,") != std::string::npos);
+  CHECK(judged.out.find("\n97,equation,lemma,\"2;9,21\",A B C D E,value,0,,,,witnesses,") !=
+        std::string::npos);
+  CHECK(judged.out.find("\n97,equation,variant,") == std::string::npos);
 }
 
 }  // namespace

@@ -1,0 +1,161 @@
+// The apparatus as LaTeX: a document, or a fragment to \input into a book.
+#include <sstream>
+
+#include "publish/apparatus.hpp"
+#include "publish/apparatus_words.hpp"
+#include "support/tabular.hpp"
+
+namespace apograph::publish {
+namespace {
+
+std::string Tex(const std::string& t) {
+  std::string o;
+  for (char ch : t) {
+    switch (ch) {
+      case '\\':
+        o += "\\textbackslash{}";
+        break;
+      case '&':
+      case '%':
+      case '$':
+      case '#':
+      case '_':
+      case '{':
+      case '}':
+        o += std::string("\\") + ch;
+        break;
+      case '~':
+        o += "\\textasciitilde{}";
+        break;
+      case '^':
+        o += "\\textasciicircum{}";
+        break;
+      default:
+        o += ch;
+    }
+  }
+  return o;
+}
+
+/// One LaTeX column per sexagesimal place: "r@{;}r@{,}r" for two places.
+std::string PlaceColumns(int places) {
+  std::string spec = "r";
+  for (int p = 1; p <= places; ++p) spec += std::string(p == 1 ? "@{;}" : "@{,}") + "r";
+  return spec;
+}
+
+/// The places of a value written at exactly the column's places, or empty.
+std::vector<std::string> Places(const std::string& text, int places) {
+  auto v = Sexagesimal::Parse(text);
+  if (!v || v->places() != places) return {};
+  const std::string s = v->ToString();
+  const auto semi = s.find(';');
+  std::vector<std::string> out{s.substr(0, semi)};
+  if (semi == std::string::npos) return places == 0 ? out : std::vector<std::string>{};
+  std::stringstream rest(s.substr(semi + 1));
+  for (std::string part; std::getline(rest, part, ',');) out.push_back(part);
+  return out.size() == static_cast<std::size_t>(places) + 1 ? out : std::vector<std::string>{};
+}
+
+std::string Spanning(int places, const std::string& align, const std::string& body) {
+  return "\\multicolumn{" + std::to_string(places + 1) + "}{" + align + "}{" + body + "}";
+}
+
+/// A column's heading centred over its places without widening them (the
+/// places would spread apart otherwise); a long heading takes its width.
+std::string Heading(const ColumnSpec& c) {
+  const std::string title = Tex(c.title.empty() ? c.name : c.title);
+  // Judgement: about three characters per place fit over the numbers, with the 2em gaps.
+  const bool fits = DisplayWidth(title) <= static_cast<std::size_t>(6 + 3 * (c.places + 1));
+  return Spanning(c.places, "c", fits ? "\\makebox[0pt]{" + title + "}" : title);
+}
+
+std::string TableCell(const ApparatusEntry& e, int places) {
+  if (e.source == LemmaSource::kNone) return Spanning(places, "c", "--");
+  if (e.source == LemmaSource::kSupplied)
+    return Spanning(places, "r", "$\\langle$" + Tex(e.lemma) + "$\\rangle$");
+  const auto parts = Places(e.lemma, places);
+  if (parts.empty()) return Spanning(places, "r", Tex(e.lemma));
+  std::string out;
+  for (std::size_t i = 0; i < parts.size(); ++i) out += (i ? " & " : "") + Tex(parts[i]);
+  return out;
+}
+
+void Witnesses(const Apparatus& a, std::ostringstream& o) {
+  o << "\\noindent Witnesses: ";
+  for (std::size_t k = 0; k < a.witnesses.size(); ++k) {
+    const auto& w = a.witnesses[k];
+    const std::string folios = k < a.folios.size() ? a.folios[k] : "";
+    o << (k ? "; " : "") << "\\textbf{" << Tex(w.siglum) << "} "
+      << Tex(internal::WitnessLine(w, folios));
+  }
+  o << ".";
+  if (!a.editors.empty()) {
+    o << " Edited by ";
+    for (std::size_t k = 0; k < a.editors.size(); ++k) o << (k ? ", " : "") << Tex(a.editors[k]);
+    o << ".";
+  }
+  o << "\\par\\medskip\n\n";
+}
+
+void Table(const Apparatus& a, std::ostringstream& o) {
+  o << "\\begin{longtable}{r";
+  for (const auto& c : a.columns) o << "@{\\hspace{2em}}" << PlaceColumns(c.places);
+  o << "}\n\\hline\n" << Tex(a.argument.name);
+  for (const auto& c : a.columns) o << " & " << Heading(c);
+  o << " \\\\\n\\hline\n\\endhead\n";
+  for (std::size_t r = 0; r < a.arguments.size(); ++r) {
+    o << Tex(a.arguments[r].ToString());
+    for (std::size_t c = 0; c < a.columns.size(); ++c)
+      o << " & " << TableCell(a.cells[r][c], a.columns[c].places);
+    o << " \\\\\n";
+  }
+  o << "\\hline\n\\end{longtable}\n\n";
+}
+
+void Notes(const Apparatus& a, std::ostringstream& o) {
+  int n = 0;
+  for (std::size_t r = 0; r < a.arguments.size(); ++r) {
+    const std::string arg = Tex(a.arguments[r].ToString());
+    if (r < a.arg_variants.size()) {
+      for (const auto& v : a.arg_variants[r]) {
+        o << "\\noindent\\textbf{" << arg << "} \\textit{arg.}] " << Tex(v.text) << " "
+          << Tex(internal::Sigla(v.sigla)) << "\\par\n";
+        ++n;
+      }
+    }
+    for (std::size_t c = 0; c < a.columns.size(); ++c) {
+      const auto& e = a.cells[r][c];
+      if (!e.NeedsNote()) continue;
+      o << "\\noindent\\textbf{" << Tex(internal::NoteKey(a, r, c)) << "}\\quad "
+        << internal::NoteBody(e, Tex, "\\textit{", "}") << "\\par\n";
+      ++n;
+    }
+  }
+  if (n == 0) o << "\\noindent No variants.\\par\n";
+}
+
+}  // namespace
+
+std::string ToLatex(const Apparatus& a, const LatexOptions& options) {
+  std::ostringstream o;
+  o << "% Generated by apograph from the edition database. Do not edit; regenerate.\n";
+  if (options.fragment) {
+    o << "% A fragment for \\input: the book's preamble needs \\usepackage{longtable}\n"
+      << "% (and \\usepackage[T1]{fontenc}\\usepackage{lmodern} for vector fonts).\n";
+  } else {
+    o << "\\documentclass[11pt]{article}\n\\usepackage[T1]{fontenc}\n\\usepackage{lmodern}\n"
+      << "\\usepackage[utf8]{inputenc}\n\\usepackage{longtable}\n\\begin{document}\n"
+      << "\\section*{" << Tex(a.Title()) << "}\n\n";
+  }
+  Witnesses(a, o);
+  Table(a, o);
+  o << (options.fragment ? "\\noindent\\textit{Apparatus}\\par\n" : "\\subsection*{Apparatus}\n")
+    << "\\begin{small}\n";
+  Notes(a, o);
+  o << "\\end{small}\n";
+  if (!options.fragment) o << "\\end{document}\n";
+  return o.str();
+}
+
+}  // namespace apograph::publish
