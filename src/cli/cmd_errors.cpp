@@ -223,7 +223,7 @@ void Print(const ErrorsOptions& o, const Transcription& t,
                         {"witness", t.witness.siglum},
                         {"script", t.witness.script},
                         {"numeral_script", explained.script},
-                        {"kind", ToString(t.witness.Kind())},
+                        {"witness_kind", ToString(t.witness.Kind())},
                         {"model", model},
                         {"tolerance", o.tolerance}};
     j["references"] = nlohmann::json::array();
