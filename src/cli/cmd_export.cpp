@@ -56,7 +56,8 @@ nlohmann::ordered_json ArgumentJson(const ArgumentSpec& a) {
           {"unit", a.unit},
           {"places", a.places},
           {"start", ValueJson(a.start)},
-          {"step", ValueJson(a.step)}};
+          {"step", ValueJson(a.step)},
+          {"listed", a.listed}};
 }
 
 nlohmann::ordered_json TranscriptionJson(const Transcription& t, int revision) {

@@ -52,6 +52,9 @@ struct Cell {
   bool SameContent(const Cell& other) const;
 };
 
+/// How `@argument ... step=list` is written (see ArgumentSpec::listed).
+inline constexpr const char* kListedStep = "list";
+
 /// The argument of a table (the row argument, or the column argument of a
 /// double-argument table).
 struct ArgumentSpec {
@@ -60,6 +63,10 @@ struct ArgumentSpec {
   int places = 0;
   std::optional<Sexagesimal> start;  ///< expected first argument
   std::optional<Sexagesimal> step;   ///< expected step between rows
+  /// Declared as an explicit list (`step=list`): irregular arguments (a mean
+  /// motion by 1, 2, ... 10, 20, ... days) taken as written; no step is
+  /// inferred from them and no row is expected between them.
+  bool listed = false;
   bool operator==(const ArgumentSpec&) const = default;
 };
 

@@ -68,14 +68,18 @@ void LoadMetadata(Database& db, std::int64_t revision, Transcription& t) {
 
 void LoadLayout(Database& db, std::int64_t revision, Transcription& t) {
   auto s = db.Prepare(
-      "SELECT position, name, unit, places, title, arg2, start, step FROM layout_column "
+      "SELECT position, name, unit, places, title, arg2, start, step, listed FROM layout_column "
       "WHERE revision_id = ?1 ORDER BY position");
   s.Bind(1, revision);
   while (s.Step()) {
     const auto position = s.Int(0);
     if (position < 0) {
-      ArgumentSpec a{s.Text(1), s.Text(2), static_cast<int>(s.Int(3)),
-                     ValueFromText(s.OptionalText(6)), ValueFromText(s.OptionalText(7))};
+      ArgumentSpec a{s.Text(1),
+                     s.Text(2),
+                     static_cast<int>(s.Int(3)),
+                     ValueFromText(s.OptionalText(6)),
+                     ValueFromText(s.OptionalText(7)),
+                     s.Int(8) != 0};
       (position == -1 ? t.argument : t.argument2.emplace()) = std::move(a);
     } else {
       t.columns.push_back({s.Text(1), s.Text(2), static_cast<int>(s.Int(3)), s.Text(4),
