@@ -232,7 +232,14 @@ LineageReport AnalyseLineage(const CharacterMatrix& m, const LineageOptions& o) 
       if (ch.direction == Direction::kTree) ch.direction = Direction::kNone;
     }
   }
-  r.contamination = FindContamination(oriented);
+  std::vector<Contamination> suspected;
+  r.contamination = FindContamination(oriented, kMinContaminationEvidence, &suspected);
+  for (const auto& c : suspected) {
+    Undecide(r, "witness",
+             "contamination? " + c.text + "; too little to call it (weight " +
+                 Number(c.secondary_evidence) + " on the weaker side, " +
+                 Number(kMinContaminationEvidence) + " needed)");
+  }
   const CharacterMatrix unmixed = MaskSecondaryExemplar(m, r.contamination);
   // 3: correctors, once the contaminated witnesses follow one exemplar.
   r.corrections = FindCorrections(unmixed);

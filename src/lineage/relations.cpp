@@ -281,7 +281,8 @@ bool Holds(const CharacterMatrix& m, int c, int d) {
 
 }  // namespace
 
-std::vector<Contamination> FindContamination(const CharacterMatrix& m, double min_evidence) {
+std::vector<Contamination> FindContamination(const CharacterMatrix& m, double min_evidence,
+                                             std::vector<Contamination>* suspected) {
   std::vector<Contamination> found;
   std::vector<int> who;
   std::vector<PairEvidence> pairs;
@@ -289,7 +290,14 @@ std::vector<Contamination> FindContamination(const CharacterMatrix& m, double mi
   for (int c = 0; c < static_cast<int>(m.taxa.size()); ++c) {
     const auto e = ErrorsOf(m, c);
     const PairEvidence p = BestPair(m, c, e);
-    if (p.Score() < min_evidence) continue;
+    if (p.Score() < min_evidence) {
+      if (suspected && p.Score() >= std::min(min_evidence, kSuspectedContaminationEvidence)) {
+        Contamination weak;
+        Describe(m, c, e, p, weak);
+        suspected->push_back(std::move(weak));
+      }
+      continue;
+    }
     Contamination out;
     Describe(m, c, e, p, out);
     found.push_back(std::move(out));

@@ -85,8 +85,17 @@ struct Contamination {
 /// distinctive error or three common slips on each side.
 inline constexpr double kMinContaminationEvidence = 3;
 
+/// Weight (each side, two errors or more) from which a mixture below
+/// kMinContaminationEvidence is still worth telling the editor as
+/// undecided: two common slips on each side (judgement: two coincidences
+/// on a tree are not rare enough to call it, but the editor should look).
+inline constexpr double kSuspectedContaminationEvidence = 2;
+
+/// `suspected` (when given) receives the witnesses that meet the criterion
+/// at kSuspectedContaminationEvidence but not at `min_evidence`.
 std::vector<Contamination> FindContamination(const CharacterMatrix& oriented,
-                                             double min_evidence = kMinContaminationEvidence);
+                                             double min_evidence = kMinContaminationEvidence,
+                                             std::vector<Contamination>* suspected = nullptr);
 
 /// The matrix with each contaminated witness made unknown where it follows
 /// its secondary relative (each character goes with the nearest stretch),
