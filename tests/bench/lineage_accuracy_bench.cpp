@@ -7,7 +7,7 @@
 // undirected characters).
 // Each draw is lineage::DrawTradition with seed first_seed + k (4 to 15
 // witnesses, lost copies, copies of surviving witnesses, contamination,
-// correctors, modern editions; see src/lineage/synthetic_tradition.hpp);
+// correctors, modern editions; see tests/synth/lineage_tradition.hpp);
 // the same seeds are drawn a second time with no contamination to measure
 // false alarms. Goals (issue 11): marked groups recovered >= 90%; normalised
 // Robinson-Foulds within 0.05 of the best tree the surviving readings allow;
@@ -22,8 +22,8 @@
 #include "collate/collation.hpp"
 #include "lineage/characters.hpp"
 #include "lineage/lineage.hpp"
-#include "lineage/synthetic_tradition.hpp"
 #include "pipeline/analysis.hpp"
+#include "synth/lineage_tradition.hpp"
 
 namespace lineage = apograph::lineage;
 namespace collate = apograph::collate;

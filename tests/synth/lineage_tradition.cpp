@@ -1,4 +1,4 @@
-#include "lineage/synthetic_tradition.hpp"
+#include "synth/lineage_tradition.hpp"
 
 #include <algorithm>
 #include <cmath>

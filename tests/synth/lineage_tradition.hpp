@@ -11,6 +11,11 @@
 /// confusion list of this file, not from corpora/scripts (which the
 /// explainer reads), plus slips outside any list. Nothing historical.
 ///
+/// The lineage stage's own, smaller generator (written before the shared
+/// traditions of tradition.hpp); kept for its benchmark, whose scoring
+/// reads its key (lineage_accuracy_bench). New lineage tests should draw
+/// from tradition.hpp.
+///
 ///     lineage::DrawOptions o;
 ///     o.seed = 7;
 ///     lineage::TraditionDraw t = lineage::DrawTradition(o);
