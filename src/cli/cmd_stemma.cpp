@@ -9,6 +9,7 @@
 #include "cli/collate_input.hpp"
 #include "cli/report_output.hpp"
 #include "lineage/lineage.hpp"
+#include "lineage/lineage_text.hpp"
 #include "store/edition_store.hpp"
 #include "support/input_error.hpp"
 
@@ -58,33 +59,6 @@ lineage::CharacterMatrix Characters(store::Database& db, const std::string& tabl
   return lineage::MergeMatrices(parts);
 }
 
-void PrintText(const lineage::LineageReport& r, std::ostream& out) {
-  out << r.witnesses.size() << " witnesses, " << r.characters << " error characters";
-  if (r.undetermined_cells)
-    out << " (" << r.undetermined_cells << " cells without a majority left out)";
-  out << "\n";
-  for (const auto& res : r.results) {
-    out << "\nstemma by "
-        << (res.method == lineage::Method::kParsimony ? "maximum parsimony" : "neighbour joining");
-    if (res.parsimony) {
-      out << " (" << res.parsimony->search << (res.parsimony->exact ? ", exact" : "") << "; length "
-          << res.parsimony->length << ")";
-    }
-    out << ":\n" << lineage::ToText(res.stemma) << "groups:\n";
-    for (const auto& g : res.groups) {
-      out << "  {";
-      for (std::size_t k = 0; k < g.witnesses.size(); ++k) out << (k ? " " : "") << g.witnesses[k];
-      out << "}  errors " << g.length;
-      if (g.support) out << "  support " << static_cast<int>(*g.support * 100 + 0.5) << "%";
-      out << "\n";
-    }
-    if (res.groups.empty()) out << "  (none supported)\n";
-  }
-  for (const auto& c : r.copies) out << "\n" << c.text;
-  for (const auto& c : r.contamination) out << "\n" << c.text;
-  if (!r.copies.empty() || !r.contamination.empty()) out << "\n";
-}
-
 }  // namespace
 
 int RunStemma(const std::vector<std::string>& args, Io& io) {
@@ -118,18 +92,16 @@ int RunStemma(const std::vector<std::string>& args, Io& io) {
     lo.methods = {lineage::Method::kParsimony, lineage::Method::kNeighbourJoining};
   store::Database db = OpenEdition(db_path);
   const auto report = lineage::AnalyseLineage(Characters(db, table, work, request), lo);
-  const std::string title = table.empty() ? "work " + work : "table " + table;
   if (format == "json") {
     io.out << lineage::ToJson(report).dump(2) << "\n";
   } else if (format == "newick") {
     for (const auto& res : report.results) io.out << lineage::ToNewick(res.stemma) << "\n";
   } else if (format == "dot") {
-    for (const auto& res : report.results)
-      io.out << lineage::ToDot(res.stemma, title + " (" + lineage::ToString(res.method) + ")");
+    for (std::size_t k = 0; k < report.results.size(); ++k) io.out << lineage::ToDot(report, k);
   } else {
-    PrintText(report, io.out);
+    io.out << lineage::DescribeLineage(report);
   }
-  if (!svg.empty() && !RenderSvg(lineage::ToDot(report.results.front().stemma, title), svg)) {
+  if (!svg.empty() && !RenderSvg(lineage::ToDot(report), svg)) {
     throw InputError::ForOption("--svg",
                                 "expected Graphviz 'dot' on PATH to render SVG, found none");
   }

@@ -5,7 +5,7 @@
 #include <fstream>
 #include <ostream>
 
-#include "lineage/stemma.hpp"
+#include "lineage/lineage_text.hpp"
 #include "publish/apparatus.hpp"
 #include "store/edition_store.hpp"
 
@@ -32,12 +32,11 @@ std::string ShellQuote(const std::string& s) {
   return out + "'";
 }
 
-void WriteStemma(const fs::path& dir, const std::string& stem, const std::string& title,
+void WriteStemma(const fs::path& dir, const std::string& stem,
                  const lineage::LineageReport& lineage) {
   if (lineage.results.empty()) return;
-  const auto& stemma = lineage.results.front().stemma;
-  WriteFile(dir / (stem + ".nwk"), lineage::ToNewick(stemma) + "\n");
-  const std::string dot = lineage::ToDot(stemma, title);
+  WriteFile(dir / (stem + ".nwk"), lineage::ToNewick(lineage.results.front().stemma) + "\n");
+  const std::string dot = lineage::ToDot(lineage);
   WriteFile(dir / (stem + ".dot"), dot);
   RenderSvg(dot, (dir / (stem + ".svg")).string());
 }
@@ -51,7 +50,7 @@ void WriteTableFiles(const fs::path& dir, const pipeline::TableAnalysis& a,
   WriteFile(dir / (a.table_id + ".tei.xml"), publish::ToTei(apparatus));
   WriteFile(dir / (a.table_id + ".tex"), publish::ToLatex(apparatus));
   WriteFile(dir / (a.table_id + ".csv"), publish::ToCsv(apparatus));
-  WriteStemma(dir, a.table_id + ".stemma", a.table_title, a.lineage);
+  WriteStemma(dir, a.table_id + ".stemma", a.lineage);
 }
 
 }  // namespace
@@ -87,7 +86,7 @@ void WriteWorkReports(store::Database& db, const std::string& work_id, const Rep
   if (!request.output_dir.empty()) {
     const fs::path dir(request.output_dir);
     WriteFile(dir / (work_id + ".stemma.md"), text);
-    WriteStemma(dir, work_id + ".stemma", "stemma of " + work_id, lineage);
+    WriteStemma(dir, work_id + ".stemma", lineage);
   }
 }
 

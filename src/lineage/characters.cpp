@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 #include <map>
+#include <optional>
 #include <tuple>
 
 namespace apograph::lineage {
@@ -57,13 +58,17 @@ double ErrorWeight(const collate::Reading& r, const std::string& right, std::str
 
 namespace {
 
-// The right reading of a cell in words: a reading not marked as an error, or
-// the recomputed value.
-std::string RightText(const collate::CollatedCell& cell) {
-  for (const auto& r : cell.readings) {
-    if (r.Comparable() && !r.error) return r.text;
-  }
-  return cell.computed ? cell.computed->ToString() : "";
+int Legible(const std::vector<const collate::Reading*>& rs) {
+  int n = 0;
+  for (const auto* r : rs) n += static_cast<int>(r->sigla.size());
+  return n;
+}
+
+// Distance in units of the last place between two value readings, when both
+// are values.
+std::optional<double> UnitsBetween(const collate::Reading& a, const collate::Reading& b) {
+  if (!a.value || !b.value) return std::nullopt;
+  return DiffUnits(*a.value, *b.value, std::max(a.value->places(), b.value->places()));
 }
 
 // A witness without the slide reads the run's rows right; with an error
@@ -93,6 +98,7 @@ void AddSlideCharacters(const collate::Collation& c, CharacterMatrix& m) {
     ch.position = first;
     ch.weight = 3;
     ch.weight_reason = "a run of a column slid by a row";
+    ch.direction = c.reference_description.empty() ? Direction::kMajority : Direction::kModel;
     for (const auto& w : c.witnesses) {
       const bool has = std::find(sigla.begin(), sigla.end(), w.siglum) != sigla.end();
       ch.states.push_back(has ? 1 : (ReadsRunRight(c, w.siglum, col, first, last) ? 0 : -1));
@@ -101,49 +107,229 @@ void AddSlideCharacters(const collate::Collation& c, CharacterMatrix& m) {
   }
 }
 
+// The comparable readings of a cell (values and blanks) by witnesses whose
+// cell is not part of a slid run (the slide is its own character).
+struct CellReadings {
+  std::vector<collate::Reading> readings;
+  std::vector<const collate::Reading*> all, right, wrong;
+};
+
+CellReadings Readings(const collate::Collation& c, int j, const collate::CollatedCell& cell) {
+  CellReadings out;
+  for (const auto& r : cell.readings) {
+    if (!r.Comparable()) continue;
+    collate::Reading kept = r;
+    kept.sigla.clear();
+    for (const auto& s : r.sigla) {
+      if (!c.SlideAt(s, j, cell.column)) kept.sigla.push_back(s);
+    }
+    if (kept.sigla.empty()) continue;
+    // The same reading judged differently in two witnesses is one reading
+    // here (the judgement of the first, most witnesses, stands).
+    auto same = std::find_if(out.readings.begin(), out.readings.end(), [&](const auto& x) {
+      return x.kind == kept.kind && x.text == kept.text;
+    });
+    if (same == out.readings.end())
+      out.readings.push_back(std::move(kept));
+    else
+      same->sigla.insert(same->sigla.end(), kept.sigla.begin(), kept.sigla.end());
+  }
+  for (const auto& r : out.readings) {
+    out.all.push_back(&r);
+    (r.error ? out.wrong : out.right).push_back(&r);
+  }
+  return out;
+}
+
+// One character: `carrier` in state 1, `base` in state 0, every other
+// comparable reading unknown (its own change may have been made on this one).
+Character MakeCharacter(const collate::Collation& c, int j, const collate::CollatedCell& cell,
+                        const collate::Reading& carrier, const collate::Reading* base) {
+  Character ch;
+  ch.row_label = c.rows[j].argument.ToString();
+  ch.label = c.table_id + " " + ch.row_label + " " + c.columns[cell.column].name + ": " +
+             carrier.text + (base ? " (" + base->text + ")" : "");
+  ch.block = c.table_id + " " + ch.row_label;
+  ch.position = j;
+  ch.omission = carrier.kind == collate::ReadingKind::kBlank;
+  for (const auto& w : c.witnesses) {
+    const collate::Reading* mine = nullptr;
+    for (const auto& r : carrier.sigla) mine = r == w.siglum ? &carrier : mine;
+    for (const auto& r : base ? base->sigla : std::vector<std::string>{})
+      mine = r == w.siglum ? base : mine;
+    ch.states.push_back(mine == &carrier ? 1 : (mine == base && base ? 0 : -1));
+  }
+  return ch;
+}
+
+// Whether a value reading repeats an entry of the row above or below in the
+// same column (as some witness reads it there).
+bool RepeatsNeighbour(const collate::Collation& c, int j, int column, const collate::Reading& r) {
+  if (r.kind != collate::ReadingKind::kValue) return false;
+  for (int k : {j - 1, j + 1}) {
+    if (k < 0 || k >= static_cast<int>(c.rows.size())) continue;
+    for (const auto& x : c.rows[k].cells[column].readings) {
+      if (x.kind == collate::ReadingKind::kValue && x.text == r.text) return true;
+    }
+  }
+  return false;
+}
+
+void Weigh(Character& ch, const collate::Reading& carrier, const collate::Reading* base,
+           std::optional<double> units_off) {
+  collate::Reading r = carrier;
+  if (units_off) r.units_off = units_off;
+  ch.weight = ErrorWeight(r, base ? base->text : "", &ch.weight_reason);
+  const auto between = base ? UnitsBetween(carrier, *base) : std::nullopt;
+  ch.one_unit = between && std::fabs(*between) <= 1.0 + 1e-9;
+}
+
+// Weigh, and a repeated neighbour weighs as a common slip (the eye falls on
+// the line above or below: copyists do it independently, and it lands on
+// the same value whoever makes it).
+void Weigh(Character& ch, const collate::Collation& c, int j, int column,
+           const collate::Reading& carrier, const collate::Reading* base,
+           std::optional<double> units_off) {
+  Weigh(ch, carrier, base, units_off);
+  if (ch.weight > 1 && RepeatsNeighbour(c, j, column, carrier)) {
+    ch.weight = 1;
+    ch.weight_reason = "repeats a neighbouring entry: a common slip";
+  }
+}
+
+bool Recomputed(const collate::Reading& r) { return r.units_off && std::fabs(*r.units_off) < 1e-9; }
+
+// Right readings that differ among themselves (all within the tolerance of
+// the model). When most witnesses read the recomputed value, it is the
+// base and the others' readings are directed characters. Otherwise most
+// keep another right reading (as a rule the author's own departure of a
+// unit) and the recomputed value is a correction, evidence of nothing but
+// the recomputing: its readers are counted (CharacterMatrix::recomputed)
+// and left unknown; the other right readings still split the witnesses.
+void RoundingCharacters(const collate::Collation& c, int j, const collate::CollatedCell& cell,
+                        const CellReadings& rs, CharacterMatrix& m) {
+  if (rs.right.size() < 2) return;
+  const collate::Reading* recomputed = nullptr;
+  for (const auto* r : rs.right) recomputed = Recomputed(*r) ? r : recomputed;
+  const bool model_base =
+      recomputed && 2 * static_cast<int>(recomputed->sigla.size()) > Legible(rs.all);
+  const collate::Reading* base = recomputed;
+  if (!model_base) {
+    base = nullptr;
+    for (const auto* r : rs.right) base = !base && r != recomputed ? r : base;
+  }
+  // Where two thirds of the witnesses or more keep another right reading,
+  // that reading was the archetype's (as a rule the author's own): reading
+  // the recomputed value there is a correction.
+  const bool kept =
+      !recomputed || 3 * static_cast<int>(recomputed->sigla.size()) <= Legible(rs.all);
+  if (!model_base && kept) {
+    for (std::size_t t = 0; t < c.witnesses.size(); ++t) {
+      const auto& s = c.witnesses[t].siglum;
+      for (const auto* r : rs.right) {
+        if (std::find(r->sigla.begin(), r->sigla.end(), s) == r->sigla.end()) continue;
+        ++m.departure_cells[t];
+        if (r == recomputed) ++m.recomputed[t];
+      }
+    }
+  }
+  for (const auto* r : rs.right) {
+    if (r == base || (r == recomputed && !model_base)) continue;
+    Character ch = MakeCharacter(c, j, cell, *r, base);
+    Weigh(ch, c, j, cell.column, *r, base, UnitsBetween(*r, *base));
+    ch.base_is_right = model_base;
+    ch.carrier_is_right = true;
+    ch.direction = model_base ? Direction::kModel : Direction::kNone;
+    m.characters.push_back(std::move(ch));
+  }
+}
+
+// Judged by a model: every error against a right reading; right readings
+// that differ among themselves (RoundingCharacters).
+void JudgedCharacters(const collate::Collation& c, int j, const collate::CollatedCell& cell,
+                      const CellReadings& rs, CharacterMatrix& m) {
+  const collate::Reading* base = rs.right.front();  // most witnesses first
+  for (const auto* r : rs.right) base = Recomputed(*r) ? r : base;
+  for (const auto* e : rs.wrong) {
+    Character ch = MakeCharacter(c, j, cell, *e, base);
+    for (std::size_t k = 0; k < ch.states.size(); ++k) {
+      for (const auto* r : rs.right) {  // every right reading is state 0 for an error
+        if (std::find(r->sigla.begin(), r->sigla.end(), c.witnesses[k].siglum) != r->sigla.end())
+          ch.states[k] = 0;
+      }
+    }
+    Weigh(ch, c, j, cell.column, *e, base, e->units_off);
+    ch.base_is_right = true;
+    ch.direction = Direction::kModel;
+    m.characters.push_back(std::move(ch));
+  }
+  RoundingCharacters(c, j, cell, rs, m);
+}
+
+// No model (or every reading wrong): the most frequent reading is the base.
+void UnjudgedCharacters(const collate::Collation& c, int j, const collate::CollatedCell& cell,
+                        const CellReadings& rs, CharacterMatrix& m) {
+  const int legible = Legible(rs.all);
+  const collate::Reading* base = rs.all.front();
+  const bool majority = 2 * static_cast<int>(base->sigla.size()) > legible;
+  if (!majority) ++m.undetermined_cells;
+  for (const auto* r : rs.all) {
+    if (r == base) continue;
+    Character ch = MakeCharacter(c, j, cell, *r, base);
+    Weigh(ch, c, j, cell.column, *r, base, UnitsBetween(*r, *base));
+    ch.direction = majority ? Direction::kMajority : Direction::kNone;
+    m.characters.push_back(std::move(ch));
+  }
+}
+
 void AddCellCharacters(const collate::Collation& c, int j, const collate::CollatedCell& cell,
                        CharacterMatrix& m) {
-  const std::string right = RightText(cell);
-  for (const auto& r : cell.readings) {
-    if (!r.Comparable() || !r.error) continue;
-    Character ch;
-    ch.row_label = c.rows[j].argument.ToString();
-    ch.label = c.table_id + " " + ch.row_label + " " + c.columns[cell.column].name + ": " + r.text +
-               (right.empty() ? "" : " (" + right + ")");
-    ch.block = c.table_id + " " + ch.row_label;
-    ch.position = j;
-    ch.weight = ErrorWeight(r, right, &ch.weight_reason);
-    ch.omission = r.kind == collate::ReadingKind::kBlank;
-    for (const auto& w : c.witnesses) {
-      const collate::Reading* mine = cell.ReadingOf(w.siglum);
-      signed char s = -1;
-      if (c.SlideAt(w.siglum, j, cell.column))
-        s = -1;  // counted once as the slide
-      else if (mine == &r)
-        s = 1;
-      else if (mine && mine->Comparable())
-        s = mine->error ? -1 : 0;  // another error may hide this one
-      ch.states.push_back(s);
-    }
-    if (std::count(ch.states.begin(), ch.states.end(), 1) > 0)
-      m.characters.push_back(std::move(ch));
-  }
+  CellReadings rs = Readings(c, j, cell);
+  if (rs.all.size() < 2) return;
+  std::stable_sort(rs.all.begin(), rs.all.end(),
+                   [](auto* a, auto* b) { return a->sigla.size() > b->sigla.size(); });
+  std::stable_sort(rs.right.begin(), rs.right.end(),
+                   [](auto* a, auto* b) { return a->sigla.size() > b->sigla.size(); });
+  const bool judged =
+      cell.basis == collate::Basis::kCaller || cell.basis == collate::Basis::kRecomputation;
+  if (judged && !rs.right.empty())
+    JudgedCharacters(c, j, cell, rs, m);
+  else
+    UnjudgedCharacters(c, j, cell, rs, m);
 }
 
 }  // namespace
 
-CharacterMatrix BuildErrorCharacters(const collate::Collation& c) {
+const char* ToString(Direction d) {
+  switch (d) {
+    case Direction::kModel:
+      return "model";
+    case Direction::kMajority:
+      return "majority";
+    case Direction::kTree:
+      return "tree";
+    case Direction::kNone:
+      return "none";
+  }
+  return "?";
+}
+
+int CharacterMatrix::TaxonIndex(const std::string& siglum) const {
+  const auto it = std::find(taxa.begin(), taxa.end(), siglum);
+  return it == taxa.end() ? -1 : static_cast<int>(it - taxa.begin());
+}
+
+CharacterMatrix BuildCharacters(const collate::Collation& c) {
   CharacterMatrix m;
   for (const auto& w : c.witnesses) m.taxa.push_back(w.siglum);
+  m.witnesses = c.witnesses;
+  m.recomputed.assign(m.taxa.size(), 0);
+  m.departure_cells.assign(m.taxa.size(), 0);
+  m.title = c.work.title.empty() ? c.table_title : c.work.title;
   AddSlideCharacters(c, m);
   for (std::size_t j = 0; j < c.rows.size(); ++j) {
     for (const auto& cell : c.rows[j].cells) {
-      if (!cell.Varies()) continue;
-      if (cell.basis == collate::Basis::kUndetermined) {
-        ++m.undetermined_cells;
-        continue;
-      }
-      AddCellCharacters(c, static_cast<int>(j), cell, m);
+      if (cell.Varies()) AddCellCharacters(c, static_cast<int>(j), cell, m);
     }
   }
   std::stable_sort(m.characters.begin(), m.characters.end(),
@@ -154,8 +340,20 @@ CharacterMatrix BuildErrorCharacters(const collate::Collation& c) {
 CharacterMatrix MergeMatrices(const std::vector<CharacterMatrix>& parts) {
   CharacterMatrix m;
   for (const auto& p : parts) {
-    for (const auto& t : p.taxa) {
-      if (std::find(m.taxa.begin(), m.taxa.end(), t) == m.taxa.end()) m.taxa.push_back(t);
+    if (m.title.empty()) m.title = p.title;
+    for (std::size_t k = 0; k < p.taxa.size(); ++k) {
+      if (m.TaxonIndex(p.taxa[k]) >= 0) continue;
+      m.taxa.push_back(p.taxa[k]);
+      m.witnesses.push_back(k < p.witnesses.size() ? p.witnesses[k] : WitnessInfo{p.taxa[k]});
+    }
+  }
+  m.recomputed.assign(m.taxa.size(), 0);
+  m.departure_cells.assign(m.taxa.size(), 0);
+  for (const auto& p : parts) {
+    for (std::size_t k = 0; k < p.taxa.size(); ++k) {
+      const int at = m.TaxonIndex(p.taxa[k]);
+      if (k < p.recomputed.size()) m.recomputed[at] += p.recomputed[k];
+      if (k < p.departure_cells.size()) m.departure_cells[at] += p.departure_cells[k];
     }
   }
   int offset = 0;

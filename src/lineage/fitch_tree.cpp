@@ -157,7 +157,14 @@ void FitchTree::RecomputeAll() {
 std::vector<std::int64_t> FitchTree::BranchLengths() const {
   std::vector<std::int64_t> length(parent_.size(), 0);
   std::vector<std::uint64_t> final_state(parent_.size() * p_.words, 0);
-  for (int w = 0; w < p_.words; ++w) final_state[w] = One(0)[w] & ~Zero(0)[w];
+  // The archetype's state where it is known; where it is not (undirected
+  // characters), the state its child holds, 0 when either.
+  const int top = RootChild();
+  for (int w = 0; w < p_.words; ++w) {
+    const std::uint64_t open = One(0)[w] & Zero(0)[w];
+    const std::uint64_t child_one = top >= 0 ? One(top)[w] & ~Zero(top)[w] : 0;
+    final_state[w] = (One(0)[w] & ~Zero(0)[w]) | (open & child_one);
+  }
   for (int n : Branches()) {
     const int p = parent_[n];
     for (int w = 0; w < p_.words; ++w) {

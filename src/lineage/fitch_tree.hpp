@@ -16,7 +16,7 @@ struct Patterns {
   int count = 0;
   int words = 0;
   std::vector<std::uint64_t> zero, one;  ///< [taxon * words + word]
-  std::vector<std::int64_t> weight;      ///< per pattern, integer (quarter units)
+  std::vector<std::int64_t> weight;      ///< per pattern, integer (1/1024 units)
 };
 
 class FitchTree {

@@ -1,8 +1,13 @@
 #include "lineage/lineage.hpp"
 
+#include <algorithm>
+#include <cmath>
 #include <random>
+#include <sstream>
 
+#include "lineage/ancestral.hpp"
 #include "lineage/neighbour_joining.hpp"
+#include "lineage/tree_checks.hpp"
 
 namespace apograph::lineage {
 
@@ -10,15 +15,16 @@ const char* ToString(Method method) {
   return method == Method::kNeighbourJoining ? "nj" : "parsimony";
 }
 
-namespace {
-
-Stemma RunMethod(const CharacterMatrix& m, Method method, const std::vector<double>& weights,
-                 const ParsimonyOptions& p) {
-  if (method == Method::kNeighbourJoining) return NeighbourJoiningStemma(m, weights);
-  return Parsimony(m, p, weights).stemma;
+Stemma BuildStemma(const CharacterMatrix& m, Method method, const std::vector<double>& weights,
+                   const ParsimonyOptions& p) {
+  Stemma s = method == Method::kNeighbourJoining ? NeighbourJoiningStemma(m, weights)
+                                                 : Parsimony(m, p, weights).stemma;
+  if (!CountRootEvidence(m).Directed()) {
+    RootAtMidpoint(s);
+    KeepSupported(s, m, weights);
+  }
+  return s;
 }
-
-}  // namespace
 
 std::map<Group, double> Bootstrap(const CharacterMatrix& m, Method method, int replicates,
                                   unsigned seed, const ParsimonyOptions& parsimony) {
@@ -43,7 +49,7 @@ std::map<Group, double> Bootstrap(const CharacterMatrix& m, Method method, int r
     std::vector<double> weights(m.characters.size());
     for (std::size_t c = 0; c < m.characters.size(); ++c)
       weights[c] = m.characters[c].weight * drawn[block_of[c]];
-    const Stemma s = RunMethod(m, method, weights, fast);
+    const Stemma s = BuildStemma(m, method, weights, fast);
     for (const auto& [g, node] : s.Groups()) support[g] += 1.0 / replicates;
   }
   return support;
@@ -56,30 +62,210 @@ void AnnotateSupport(Stemma& s, const std::map<Group, double>& support) {
   }
 }
 
+namespace {
+
+int NodeOf(const Stemma& s, const std::string& name) {
+  for (std::size_t n = 0; n < s.nodes.size(); ++n) {
+    if (s.nodes[n].witness && s.nodes[n].name == name && s.nodes[n].parent >= 0)
+      return static_cast<int>(n);
+  }
+  return -1;
+}
+
+void Detach(Stemma& s, int n) {
+  auto& siblings = s.nodes[s.nodes[n].parent].children;
+  siblings.erase(std::find(siblings.begin(), siblings.end(), n));
+  s.nodes[n].parent = -1;
+}
+
+// A direct copy stands beside its exemplar in the stemma (or below it):
+// a lost copy between them, with readings the exemplar lacks, makes the
+// relation indirect.
+std::vector<CopyCandidate> Adjacent(const Stemma& s, std::vector<CopyCandidate> copies) {
+  std::erase_if(copies, [&](const CopyCandidate& c) {
+    const int a = NodeOf(s, c.exemplar), b = NodeOf(s, c.copy);
+    if (a < 0 || b < 0) return true;
+    const int pa = s.nodes[a].parent, pb = s.nodes[b].parent;
+    return !(pb == a || pa == pb || pa == b);
+  });
+  return copies;
+}
+
+// A surviving exemplar is drawn above its copy: the copy, found beside it,
+// moves below it; a lost node left with the exemplar alone gives way to it.
+void PlaceExemplars(Stemma& s, const std::vector<CopyCandidate>& copies) {
+  for (const auto& c : copies) {
+    if (c.twins) continue;
+    const int a = NodeOf(s, c.exemplar), b = NodeOf(s, c.copy);
+    if (a < 0 || b < 0 || s.nodes[a].parent != s.nodes[b].parent) continue;
+    const int lost = s.nodes[a].parent;
+    Detach(s, b);
+    s.Attach(a, b);
+    if (lost != s.root && !s.nodes[lost].witness && s.nodes[lost].children.size() == 1) {
+      const int up = s.nodes[lost].parent;
+      s.nodes[a].length += s.nodes[lost].length;
+      Detach(s, a);
+      Detach(s, lost);
+      s.Attach(up, a);
+    }
+  }
+  s.Compact();
+}
+
+bool Informative(const Character& ch) {
+  const auto ones = std::count(ch.states.begin(), ch.states.end(), 1);
+  const auto zeros = std::count(ch.states.begin(), ch.states.end(), 0) + (ch.Directed() ? 1 : 0);
+  return ones >= 2 && zeros >= 2;
+}
+
+std::string GroupName(const Group& g) {
+  std::string out = "{";
+  for (std::size_t k = 0; k < g.size(); ++k) out += (k ? " " : "") + g[k];
+  return out + "}";
+}
+
+std::string Number(double x) {
+  std::ostringstream o;
+  o << std::round(x * 100) / 100;
+  return o.str();
+}
+
+MethodResult RunMethod(const CharacterMatrix& m, Method method, const LineageOptions& o) {
+  MethodResult res;
+  res.method = method;
+  if (method == Method::kParsimony) {
+    res.parsimony = Parsimony(m, o.parsimony);
+    res.stemma = res.parsimony->stemma;
+    res.parsimony->stemma = Stemma{};
+    if (!CountRootEvidence(m).Directed()) {
+      RootAtMidpoint(res.stemma);
+      KeepSupported(res.stemma, m);
+    }
+  } else {
+    res.stemma = BuildStemma(m, method, {}, o.parsimony);
+  }
+  return res;
+}
+
+void DescribeGroups(const CharacterMatrix& m, const LineageOptions& o, MethodResult& res) {
+  if (o.bootstrap > 0)
+    AnnotateSupport(res.stemma, Bootstrap(m, res.method, o.bootstrap, o.seed, o.parsimony));
+  const CharacterMatrix oriented = Orient(m, res.stemma);
+  const AncestralStates states = Reconstruct(res.stemma, oriented);
+  for (const auto& [g, node] : res.stemma.Groups()) {
+    const GroupEvidence e = EvidenceFor(res.stemma, node, oriented, states);
+    res.groups.push_back({g, res.stemma.nodes[node].support, res.stemma.nodes[node].length,
+                          e.characters, e.conflicting, e.conflict_weight});
+  }
+}
+
+void Undecide(LineageReport& r, std::string what, std::string text) {
+  r.undecided.push_back({std::move(what), std::move(text)});
+}
+
+void EvidenceNotes(const CharacterMatrix& m, LineageReport& r) {
+  double informative = 0;
+  int count = 0;
+  std::vector<bool> placed(m.taxa.size(), false);
+  for (const auto& ch : m.characters) {
+    if (ch.tie_break || !Informative(ch)) continue;
+    informative += ch.weight, ++count;
+    for (std::size_t t = 0; t < m.taxa.size(); ++t) placed[t] = placed[t] || ch.states[t] == 1;
+  }
+  if (m.taxa.size() >= 3 && informative < 2 * kMinGroupEvidence) {
+    Undecide(r, "evidence",
+             "too little evidence to decide a stemma: " + std::to_string(count) +
+                 " characters shared by two or more witnesses (weight " + Number(informative) +
+                 "); the tree below is what they allow, not a finding");
+  }
+  if (!r.root.Directed()) {
+    Undecide(r, "root",
+             "no reading could be called the archetype's (no model and no clear majority at "
+             "the cells that group witnesses): the tree was found unrooted and rooted at the "
+             "midpoint of its longest path; where the root stands is a convention, not evidence");
+  }
+  for (std::size_t t = 0; t < m.taxa.size() && m.taxa.size() >= 3; ++t) {
+    if (!placed[t])
+      Undecide(r, "witness",
+               m.taxa[t] +
+                   " shares no reading with another witness that the rest lack: its "
+                   "place in the stemma is undecided");
+  }
+}
+
+void GroupNotes(LineageReport& r) {
+  if (r.results.empty()) return;
+  for (const auto& g : r.results.front().groups) {
+    const double support = g.length;
+    if (g.conflict_weight >= support && g.conflicting > 0) {
+      Undecide(r, "group",
+               GroupName(g.witnesses) + " rests on " + std::to_string(g.characters) +
+                   " characters (weight " + Number(support) + ") while " +
+                   std::to_string(g.conflicting) + " (weight " + Number(g.conflict_weight) +
+                   ") contradict it: the evidence conflicts");
+    } else if (g.support && *g.support < 0.5) {
+      Undecide(r, "group",
+               GroupName(g.witnesses) + " appears in only " +
+                   std::to_string(std::lround(*g.support * 100)) + "% of the bootstrap replicates");
+    }
+  }
+}
+
+}  // namespace
+
 LineageReport AnalyseLineage(const CharacterMatrix& m, const LineageOptions& o) {
   LineageReport r;
+  r.title = m.title;
   r.witnesses = m.taxa;
+  r.witness_info = m.witnesses;
   r.characters = static_cast<int>(m.characters.size());
   r.undetermined_cells = m.undetermined_cells;
+  r.root = CountRootEvidence(m);
+  r.bootstrap = o.bootstrap;
+  const Method first = o.methods.empty() ? Method::kParsimony : o.methods.front();
+  // 1-2: correctors set aside, a first stemma; contamination read off it.
+  const CharacterMatrix corrected = MaskCorrections(m, FindCorrections(m));
+  const Stemma s0 = BuildStemma(corrected, first, {}, o.parsimony);
+  CharacterMatrix oriented = Orient(corrected, s0);
+  if (!r.root.Directed()) {  // a midpoint root orients nothing reliably
+    for (auto& ch : oriented.characters) {
+      if (ch.direction == Direction::kTree) ch.direction = Direction::kNone;
+    }
+  }
+  std::vector<Contamination> suspected;
+  r.contamination = FindContamination(oriented, kMinContaminationEvidence, &suspected);
+  for (const auto& c : suspected) {
+    Undecide(r, "witness",
+             "contamination? " + c.text + "; too little to call it (weight " +
+                 Number(c.secondary_evidence) + " on the weaker side, " +
+                 Number(kMinContaminationEvidence) + " needed)");
+  }
+  const CharacterMatrix unmixed = MaskSecondaryExemplar(m, r.contamination);
+  // 3: correctors, once the contaminated witnesses follow one exemplar.
+  r.corrections = FindCorrections(unmixed);
+  const CharacterMatrix masked = MaskCorrections(unmixed, r.corrections);
+  // 4: the stemmata.
   for (Method method : o.methods) {
-    MethodResult res;
-    res.method = method;
-    if (method == Method::kParsimony) {
-      res.parsimony = Parsimony(m, o.parsimony);
-      res.stemma = res.parsimony->stemma;
-      res.parsimony->stemma = Stemma{};
-    } else {
-      res.stemma = NeighbourJoiningStemma(m);
-    }
-    if (o.bootstrap > 0)
-      AnnotateSupport(res.stemma, Bootstrap(m, method, o.bootstrap, o.seed, o.parsimony));
-    for (const auto& [g, node] : res.stemma.Groups()) {
-      res.groups.push_back({g, res.stemma.nodes[node].support, res.stemma.nodes[node].length});
-    }
+    MethodResult res = RunMethod(masked, method, o);
     r.results.push_back(std::move(res));
   }
-  r.copies = FindCopies(m);
-  r.contamination = FindContamination(m);
+  // 5: copies, then the exemplars drawn above them.
+  std::vector<std::string> correctors;
+  for (const auto& c : r.corrections) correctors.push_back(c.witness);
+  if (!r.results.empty()) {
+    const CharacterMatrix final_oriented = Orient(unmixed, r.results.front().stemma);
+    r.copies = Adjacent(r.results.front().stemma, FindCopies(final_oriented, correctors));
+    for (const auto& text : CopiesRefusedByDates(final_oriented)) Undecide(r, "copy", text);
+  }
+  for (auto& res : r.results) {
+    PlaceExemplars(res.stemma, r.copies);
+    DescribeGroups(masked, o, res);
+  }
+  EvidenceNotes(masked, r);
+  GroupNotes(r);
+  for (const auto& c : r.copies) {
+    if (c.twins) Undecide(r, "copy", c.text + "; the dates do not tell which");
+  }
   return r;
 }
 
@@ -95,7 +281,9 @@ nlohmann::json ToJson(const LineageReport& r) {
     for (const auto& g : res.groups) {
       j["groups"].push_back({{"witnesses", g.witnesses},
                              {"support", g.support ? json(*g.support) : json(nullptr)},
-                             {"length", g.length}});
+                             {"length", g.length},
+                             {"characters", g.characters},
+                             {"conflicting", g.conflicting}});
     }
     if (res.parsimony) {
       j["length"] = res.parsimony->length;
@@ -107,6 +295,15 @@ nlohmann::json ToJson(const LineageReport& r) {
   if (!out["results"].empty()) {  // the first method's tree at the top level too
     for (const char* key : {"method", "newick", "groups"}) out[key] = out["results"][0][key];
   }
+  out["support"] = {{"basis", r.bootstrap > 0 ? "bootstrap" : "characters"},
+                    {"replicates", r.bootstrap}};
+  out["root"] = {{"basis", r.root.Basis()},
+                 {"model", r.root.model},
+                 {"majority", r.root.majority},
+                 {"undirected", r.root.undirected}};
+  out["undecided"] = json::array();
+  for (const auto& u : r.undecided)
+    out["undecided"].push_back({{"what", u.what}, {"text", u.text}});
   out["copies"] = json::array();
   for (const auto& c : r.copies) {
     out["copies"].push_back({{"copy", c.copy},
@@ -115,7 +312,9 @@ nlohmann::json ToJson(const LineageReport& r) {
                              {"own_errors", c.own_errors},
                              {"unreadable", c.unreadable},
                              {"filled", c.filled},
+                             {"corrected", c.corrected},
                              {"twins", c.twins},
+                             {"dated", c.dated},
                              {"text", c.text}});
   }
   out["contamination"] = json::array();
@@ -128,7 +327,20 @@ nlohmann::json ToJson(const LineageReport& r) {
                       {"shared", s.shared},
                       {"against", s.against}});
     }
-    out["contamination"].push_back({{"witness", c.witness}, {"text", c.text}, {"segments", segs}});
+    out["contamination"].push_back({{"witness", c.witness},
+                                    {"primary", c.primary},
+                                    {"secondary", c.secondary},
+                                    {"text", c.text},
+                                    {"segments", segs},
+                                    {"inherited_by", c.inherited_by}});
+  }
+  out["corrections"] = json::array();
+  for (const auto& c : r.corrections) {
+    out["corrections"].push_back({{"witness", c.witness},
+                                  {"corrected", c.corrected},
+                                  {"kept", c.kept},
+                                  {"relatives", c.relatives},
+                                  {"text", c.text}});
   }
   return out;
 }

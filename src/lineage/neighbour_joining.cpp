@@ -18,7 +18,9 @@ DistanceMatrix ErrorDistances(const CharacterMatrix& m, const std::vector<double
     const double w = weights.empty() ? ch.weight : weights[c];
     if (w <= 0) continue;
     total += w;
-    auto state = [&](std::size_t i) -> int { return i + 1 == n ? 0 : ch.states[i]; };
+    auto state = [&](std::size_t i) -> int {
+      return i + 1 == n ? (ch.Directed() ? 0 : -1) : ch.states[i];
+    };
     for (std::size_t i = 0; i < n; ++i) {
       const int si = state(i);
       if (si < 0) continue;

@@ -11,7 +11,8 @@ namespace apograph::lineage {
 
 using DistanceMatrix = std::vector<std::vector<double>>;
 
-/// Distances between the taxa and, last, the archetype (no errors):
+/// Distances between the taxa and, last, the archetype (the base reading of
+/// every directed character; unknown for undirected ones):
 /// d(i,j) = sum of the weights of the characters where i and j differ,
 /// scaled by (total weight / weight of the characters both can be read in).
 /// For two witnesses and one error that is |E_i| + |E_j| - 2 |E_i and E_j|:

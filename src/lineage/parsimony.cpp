@@ -16,9 +16,10 @@ namespace {
 using internal::FitchTree;
 using internal::Patterns;
 
-constexpr double kWeightScale = 4;  // weights are kept as integers of quarter units
+constexpr double kWeightScale = 1024;  // weights are kept as integers of 1/1024 units
 
-// Taxon 0 is the archetype (state 0 everywhere); taxon i+1 is matrix taxon i.
+// Taxon 0 is the archetype (state 0 where the character is directed, either
+// state where it is not); taxon i+1 is matrix taxon i.
 struct Compressed {
   Patterns informative;
   Patterns all;
@@ -56,7 +57,7 @@ Compressed Compress(const CharacterMatrix& m, const std::vector<double>& weights
     const double w = weights.empty() ? m.characters[c].weight : weights[c];
     const auto iw = static_cast<std::int64_t>(std::llround(w * kWeightScale));
     if (iw <= 0) continue;
-    std::vector<signed char> s(taxa, 0);
+    std::vector<signed char> s(taxa, m.characters[c].Directed() ? 0 : -1);
     std::copy(m.characters[c].states.begin(), m.characters[c].states.end(), s.begin() + 1);
     merged[s] += iw;
   }
@@ -67,7 +68,7 @@ Compressed Compress(const CharacterMatrix& m, const std::vector<double>& weights
     const auto ones = std::count(s.begin(), s.end(), 1), zeros = std::count(s.begin(), s.end(), 0);
     if (ones >= 2 && zeros >= 2)
       informative.emplace_back(s, w);
-    else if (ones >= 1)
+    else if (ones >= 1 && zeros >= 1)
       out.constant += w;
   }
   out.informative = Pack(informative, taxa);
@@ -150,19 +151,24 @@ struct BranchAndBound {
   std::unique_ptr<FitchTree> best_tree;
   std::int64_t examined = 0;
 
+  // A character that does not vary among the taxa placed so far (and the
+  // archetype) but varies once all are placed costs at least one more step.
   void Bounds() {
     bound.assign(order.size() + 1, 0);
     for (std::size_t k = 0; k <= order.size(); ++k) {
       for (int c = 0; c < p.count; ++c) {
         const std::uint64_t bit = 1ULL << (c % 64);
-        auto definite_one = [&](int t) {
-          return !(p.zero[static_cast<std::size_t>(t) * p.words + c / 64] & bit);
+        auto definite = [&](int t, int state) {
+          const auto& other = state == 1 ? p.zero : p.one;
+          return !(other[static_cast<std::size_t>(t) * p.words + c / 64] & bit);
         };
-        bool placed = definite_one(0), later = false;
+        bool placed0 = definite(0, 0), placed1 = definite(0, 1), all0 = placed0, all1 = placed1;
         for (std::size_t i = 0; i < order.size(); ++i) {
-          (i < k ? placed : later) |= definite_one(order[i]);
+          const bool d0 = definite(order[i], 0), d1 = definite(order[i], 1);
+          if (i < k) placed0 |= d0, placed1 |= d1;
+          all0 |= d0, all1 |= d1;
         }
-        if (!placed && later) bound[k] += p.weight[c];
+        if (!(placed0 && placed1) && all0 && all1) bound[k] += p.weight[c];
       }
     }
   }

@@ -1,19 +1,47 @@
 #include "lineage/relations.hpp"
 
 #include <algorithm>
-#include <limits>
+#include <cmath>
+#include <optional>
 #include <sstream>
 
 namespace apograph::lineage {
 
 namespace {
 
-CopyCandidate Compare(const CharacterMatrix& m, int a, int b, bool& contained) {
+bool Usable(const Character& ch) { return ch.Directed() && ch.weight > 0 && !ch.tie_break; }
+
+// Whether b cannot be a copy of a because of the dates or the kinds.
+bool Anachronism(const CharacterMatrix& m, int a, int b) {
+  if (m.witnesses.size() != m.taxa.size()) return false;
+  const WitnessInfo &wa = m.witnesses[a], &wb = m.witnesses[b];
+  const auto da = wa.Dates(), db = wb.Dates();
+  if (da && db && db->WhollyBefore(*da)) return true;
+  return wa.Kind() == WitnessKind::kModernEdition && wb.Kind() != WitnessKind::kModernEdition;
+}
+
+// Whether a's dates lie wholly before b's.
+bool Older(const CharacterMatrix& m, int a, int b) {
+  if (m.witnesses.size() != m.taxa.size()) return false;
+  const auto da = m.witnesses[a].Dates(), db = m.witnesses[b].Dates();
+  return da && db && da->WhollyBefore(*db);
+}
+
+std::string DateOf(const CharacterMatrix& m, int t) {
+  return m.witnesses.size() == m.taxa.size() ? m.witnesses[t].date : "";
+}
+
+// `strong`: the exemplar's errors found in the copy that are more than a
+// unit off (one-unit differences arise independently too often to show a copy).
+CopyCandidate Compare(const CharacterMatrix& m, int a, int b, bool corrector, bool& contained,
+                      int& strong) {
+  int weak = 0;
   CopyCandidate c;
   c.exemplar = m.taxa[a];
   c.copy = m.taxa[b];
   contained = true;
   for (const auto& ch : m.characters) {
+    if (!Usable(ch)) continue;
     const int sa = ch.states[a], sb = ch.states[b];
     if (sa == 1) {
       if (sb == 1)
@@ -22,24 +50,35 @@ CopyCandidate Compare(const CharacterMatrix& m, int a, int b, bool& contained) {
         ++c.unreadable;
       else if (ch.omission)
         ++c.filled;
+      else if (corrector && ch.base_is_right)
+        ++c.corrected;
       else
         contained = false;
     } else if (sa == 0 && sb == 1) {
       ++c.own_errors;
     }
+    if (sa == 1 && sb == 1 && ch.one_unit) ++weak;
   }
+  strong = c.exemplar_errors - weak;
   return c;
 }
 
-std::string CopyText(const CopyCandidate& c) {
+std::string CopyText(const CharacterMatrix& m, const CopyCandidate& c) {
   std::ostringstream o;
   if (c.twins) {
     o << c.copy << " and " << c.exemplar << " carry the same " << c.exemplar_errors
       << " errors: one may be a copy of the other, or both of a lost exemplar";
+  } else if (c.dated) {
+    o << c.copy << " may be a copy of " << c.exemplar << ": they carry the same "
+      << c.exemplar_errors << " errors and " << c.exemplar << " is the older";
   } else {
     o << c.copy << " may be a copy of " << c.exemplar << ": " << c.copy << " has all "
       << c.exemplar_errors << " of " << c.exemplar << "'s errors and " << c.own_errors
       << " of its own";
+  }
+  if (c.corrected) {
+    o << "; " << c.copy << " reads the recomputed value at " << c.corrected << " of them (it "
+      << "corrects against the model)";
   }
   if (c.filled) {
     o << "; " << c.copy << " fills in " << c.filled << (c.filled == 1 ? " entry " : " entries ")
@@ -49,29 +88,45 @@ std::string CopyText(const CopyCandidate& c) {
     o << " (at " << c.unreadable << " more of " << c.exemplar << "'s errors " << c.copy
       << " cannot be compared: illegible there, or with an error of its own)";
   }
+  const std::string da = DateOf(m, m.TaxonIndex(c.exemplar)), db = DateOf(m, m.TaxonIndex(c.copy));
+  if (!da.empty() && !db.empty())
+    o << " [dates: " << c.exemplar << " " << da << ", " << c.copy << " " << db << "]";
   return o.str();
 }
 
 }  // namespace
 
-std::vector<CopyCandidate> FindCopies(const CharacterMatrix& m, int min_errors) {
+std::vector<CopyCandidate> FindCopies(const CharacterMatrix& m,
+                                      const std::vector<std::string>& correctors, int min_errors) {
   std::vector<CopyCandidate> out;
   const int n = static_cast<int>(m.taxa.size());
   for (int b = 0; b < n; ++b) {
+    const bool corrector =
+        std::find(correctors.begin(), correctors.end(), m.taxa[b]) != correctors.end();
     std::optional<CopyCandidate> best;
     for (int a = 0; a < n; ++a) {
-      if (a == b) continue;
+      if (a == b || Anachronism(m, a, b)) continue;
       bool contained = false;
-      CopyCandidate c = Compare(m, a, b, contained);
-      if (!contained || c.exemplar_errors < min_errors) continue;
+      int strong = 0;
+      CopyCandidate c = Compare(m, a, b, corrector, contained, strong);
+      if (!contained || strong < min_errors) continue;
       if (c.own_errors == 0) {
-        c.twins = true;
-        if (a < b) continue;  // reported once, from the other side
+        bool back = false;  // does a hold all of b's errors too?
+        int ignored = 0;
+        Compare(m, b, a, false, back, ignored);
+        if (back && Older(m, a, b)) {
+          c.dated = true;
+        } else if (back && !Older(m, b, a)) {
+          c.twins = true;
+        }
       }
       if (!best || c.exemplar_errors > best->exemplar_errors) best = c;
     }
+    // Twins are reported once, from the side of the first; a witness
+    // whose closest relative is its twin is no candidate copy of another.
+    if (best && best->twins && m.TaxonIndex(best->exemplar) < b) continue;
     if (best) {
-      best->text = CopyText(*best);
+      best->text = CopyText(m, *best);
       out.push_back(*best);
     }
   }
@@ -81,162 +136,228 @@ std::vector<CopyCandidate> FindCopies(const CharacterMatrix& m, int min_errors) 
   return out;
 }
 
+std::vector<std::string> CopiesRefusedByDates(const CharacterMatrix& m, int min_errors) {
+  std::vector<std::string> out;
+  const int n = static_cast<int>(m.taxa.size());
+  for (int b = 0; b < n; ++b) {
+    for (int a = 0; a < n; ++a) {
+      if (a == b || !Anachronism(m, a, b)) continue;
+      bool contained = false;
+      int strong = 0;
+      const CopyCandidate c = Compare(m, a, b, false, contained, strong);
+      if (!contained || strong < min_errors || c.own_errors == 0) continue;
+      out.push_back(m.taxa[b] + " holds all " + std::to_string(c.exemplar_errors) + " of " +
+                    m.taxa[a] + "'s errors, but cannot be its copy: " + m.taxa[b] + " (" +
+                    m.witnesses[b].date + ", " + m.witnesses[b].kind + ") is older than " +
+                    m.taxa[a] + " (" + m.witnesses[a].date + ", " + m.witnesses[a].kind +
+                    "); both may descend from a lost exemplar");
+    }
+  }
+  return out;
+}
+
 namespace {
 
-constexpr double kSwitchPenalty = 4;  // in weight units: a change of exemplar must pay for itself
+bool Evidence(const Character& ch) { return Usable(ch) && !ch.one_unit && ch.weight >= 1; }
 
-// Agreement of witness c with relative x on one character.
-double Score(const Character& ch, int c, int x) {
-  const int sc = ch.states[c], sx = ch.states[x];
-  if (sc < 0 || sx < 0 || (sc == 0 && sx == 0)) return 0;
-  return sc == sx ? ch.weight : -ch.weight;
+// C's errors in usable characters (indices). Errors in neighbouring rows
+// carried by the same witnesses count once (one slip of the eye can spoil
+// two rows).
+std::vector<std::size_t> ErrorsOf(const CharacterMatrix& m, int c) {
+  std::vector<std::size_t> out;
+  for (std::size_t k = 0; k < m.characters.size(); ++k) {
+    const Character& ch = m.characters[k];
+    if (!Evidence(ch) || ch.states[c] != 1) continue;
+    if (!out.empty()) {
+      const Character& last = m.characters[out.back()];
+      if (ch.position - last.position <= 1 && ch.states == last.states) continue;
+    }
+    out.push_back(k);
+  }
+  return out;
 }
 
-struct Segment {
-  int relative;
-  std::size_t first, last;  // indices into the character list
+// Witnesses holding every one of C's errors where they can be read (two or
+// more): its descendants.
+std::vector<bool> Descendants(const CharacterMatrix& m, int c, const std::vector<std::size_t>& e) {
+  std::vector<bool> out(m.taxa.size(), false);
+  for (std::size_t x = 0; x < m.taxa.size(); ++x) {
+    int held = 0;
+    bool all = static_cast<int>(x) != c;
+    for (std::size_t k : e) {
+      all = all && m.characters[k].states[x] != 0;
+      held += m.characters[k].states[x] == 1 ? 1 : 0;
+    }
+    out[x] = all && held >= 2;
+  }
+  return out;
+}
+
+struct Side {
+  double weight = 0;
+  int count = 0;
 };
 
-// A witness that carries every error of c (two or more) probably descends
-// from c; it cannot have been c's exemplar, so it is no candidate.
-std::vector<bool> Excluded(const CharacterMatrix& m, int c) {
-  std::vector<bool> out(m.taxa.size(), false);
-  out[c] = true;
-  for (std::size_t x = 0; x < m.taxa.size(); ++x) {
-    int mine = 0, missed = 0;
-    for (const auto& ch : m.characters) {
-      if (ch.states[c] != 1) continue;
-      ++mine;
-      missed += ch.states[x] == 0 ? 1 : 0;
-    }
-    if (mine >= 2 && missed == 0) out[x] = true;
+struct PairEvidence {
+  int x = -1, y = -1;
+  Side with_x, with_y;  // C with x against y; C with y against x
+  double Score() const {
+    return with_x.count >= 2 && with_y.count >= 2 ? std::min(with_x.weight, with_y.weight) : 0;
   }
-  return out;
-}
+};
 
-std::vector<Segment> Viterbi(const CharacterMatrix& m, int c) {
+PairEvidence BestPair(const CharacterMatrix& m, int c, const std::vector<std::size_t>& e) {
+  const auto below = Descendants(m, c, e);
   const int n = static_cast<int>(m.taxa.size());
-  const std::size_t k = m.characters.size();
-  const std::vector<bool> excluded = Excluded(m, c);
-  std::vector<double> dp(n, 0);
-  std::vector<std::vector<int>> from(k, std::vector<int>(n, -1));
+  PairEvidence best;
   for (int x = 0; x < n; ++x) {
-    if (excluded[x]) dp[x] = -std::numeric_limits<double>::infinity();
-  }
-  if (std::count(excluded.begin(), excluded.end(), false) < 2) return {};
-  for (std::size_t i = 0; i < k; ++i) {
-    const int lead = static_cast<int>(std::max_element(dp.begin(), dp.end()) - dp.begin());
-    std::vector<double> next(n, -std::numeric_limits<double>::infinity());
-    for (int x = 0; x < n; ++x) {
-      if (excluded[x]) continue;
-      const bool stay = dp[x] >= dp[lead] - kSwitchPenalty;
-      next[x] = (stay ? dp[x] : dp[lead] - kSwitchPenalty) + Score(m.characters[i], c, x);
-      from[i][x] = stay ? x : lead;
-    }
-    dp = std::move(next);
-  }
-  std::vector<Segment> segs;
-  if (k == 0) return segs;
-  int x = static_cast<int>(std::max_element(dp.begin(), dp.end()) - dp.begin());
-  for (std::size_t i = k; i-- > 0;) {
-    if (segs.empty() || segs.back().relative != x) segs.push_back({x, i, i});
-    segs.back().first = i;
-    x = from[i][x];
-  }
-  std::reverse(segs.begin(), segs.end());
-  return segs;
-}
-
-// Weighted errors c shares with x and y lacks, over characters [first, last].
-double Evidence(const CharacterMatrix& m, int c, int x, int y, std::size_t first, std::size_t last,
-                int* count) {
-  double w = 0;
-  int n = 0;
-  for (std::size_t i = first; i <= last; ++i) {
-    const auto& s = m.characters[i].states;
-    if (s[c] == 1 && s[x] == 1 && s[y] == 0) w += m.characters[i].weight, ++n;
-  }
-  if (count) *count = n;
-  return w;
-}
-
-// Merges neighbouring stretches until each is backed by its own evidence.
-void Validate(const CharacterMatrix& m, int c, std::vector<Segment>& segs, double min_evidence) {
-  bool changed = true;
-  while (changed && segs.size() > 1) {
-    changed = false;
-    for (std::size_t i = 0; i + 1 < segs.size(); ++i) {
-      Segment &a = segs[i], &b = segs[i + 1];
-      const double ea = Evidence(m, c, a.relative, b.relative, a.first, a.last, nullptr);
-      const double eb = Evidence(m, c, b.relative, a.relative, b.first, b.last, nullptr);
-      if (ea >= min_evidence && eb >= min_evidence) continue;
-      // Keep the relative that fits the joined stretch better.
-      double sa = 0, sb = 0;
-      for (std::size_t k = a.first; k <= b.last; ++k) {
-        sa += Score(m.characters[k], c, a.relative);
-        sb += Score(m.characters[k], c, b.relative);
+    if (x == c || below[x]) continue;
+    for (int y = x + 1; y < n; ++y) {
+      if (y == c || below[y]) continue;
+      PairEvidence p{x, y, {}, {}};
+      for (std::size_t k : e) {
+        const auto& s = m.characters[k].states;
+        const double w = m.characters[k].weight;
+        if (s[x] == 1 && s[y] == 0) p.with_x.weight += w, ++p.with_x.count;
+        if (s[y] == 1 && s[x] == 0) p.with_y.weight += w, ++p.with_y.count;
       }
-      a.relative = sa >= sb ? a.relative : b.relative;
-      a.last = b.last;
-      segs.erase(segs.begin() + i + 1);
-      changed = true;
-      break;
-    }
-    for (std::size_t i = 0; i + 1 < segs.size(); ++i) {  // neighbours now equal
-      if (segs[i].relative == segs[i + 1].relative) {
-        segs[i].last = segs[i + 1].last;
-        segs.erase(segs.begin() + i + 1);
-        changed = true;
-        break;
-      }
+      if (p.Score() > best.Score()) best = p;
     }
   }
+  return best;
 }
 
-Contamination Describe(const CharacterMatrix& m, int c, const std::vector<Segment>& segs) {
-  Contamination out;
+void Describe(const CharacterMatrix& m, int c, const std::vector<std::size_t>& e,
+              const PairEvidence& p, Contamination& out) {
+  const bool x_first = p.with_x.weight >= p.with_y.weight;
   out.witness = m.taxa[c];
-  std::ostringstream text, why;
-  text << out.witness << " follows ";
-  for (std::size_t i = 0; i < segs.size(); ++i) {
-    const Segment& s = segs[i];
-    const int other = segs[i == 0 ? 1 : i - 1].relative;
-    ContaminationSegment seg;
-    seg.relative = m.taxa[s.relative];
-    // The stretch is reported from its first to its last shared error.
-    std::size_t first = s.last, last = s.first;
-    for (std::size_t k = s.first; k <= s.last; ++k) {
-      if (m.characters[k].states[c] != 1 || m.characters[k].states[s.relative] != 1) continue;
-      ++seg.shared;
-      first = std::min(first, k);
-      last = std::max(last, k);
+  out.primary = m.taxa[x_first ? p.x : p.y];
+  out.secondary = m.taxa[x_first ? p.y : p.x];
+  out.primary_evidence = x_first ? p.with_x.weight : p.with_y.weight;
+  out.secondary_evidence = x_first ? p.with_y.weight : p.with_x.weight;
+  for (std::size_t k : e) {  // e is in table order
+    const auto& s = m.characters[k].states;
+    int side = -1;
+    if (s[p.x] == 1 && s[p.y] == 0) side = p.x;
+    if (s[p.y] == 1 && s[p.x] == 0) side = p.y;
+    if (side < 0) continue;
+    if (out.segments.empty() || out.segments.back().relative != m.taxa[side]) {
+      ContaminationSegment seg;
+      seg.relative = m.taxa[side];
+      seg.first_row = m.characters[k].row_label;
+      seg.first_position = m.characters[k].position;
+      out.segments.push_back(seg);
     }
-    if (seg.shared == 0) first = s.first, last = s.last;
-    seg.first_row = m.characters[first].row_label;
-    seg.last_row = m.characters[last].row_label;
-    seg.first_position = m.characters[first].position;
-    seg.last_position = m.characters[last].position;
-    Evidence(m, c, s.relative, other, s.first, s.last, &seg.against);
-    text << (i == 0 ? "" : (i + 1 == segs.size() ? " and " : ", ")) << seg.relative << " in rows "
-         << seg.first_row << " to " << seg.last_row;
-    why << (i ? "; " : "") << "rows " << seg.first_row << " to " << seg.last_row << ": shares "
-        << seg.shared << " errors with " << seg.relative << ", " << seg.against
-        << " of them absent from " << m.taxa[other];
-    out.segments.push_back(std::move(seg));
+    auto& seg = out.segments.back();
+    seg.last_row = m.characters[k].row_label;
+    seg.last_position = m.characters[k].position;
+    ++seg.shared;
+    ++seg.against;
   }
-  out.text = text.str() + " (" + why.str() + "); rows between the stretches cannot be assigned";
-  return out;
+  std::ostringstream text;
+  text << out.witness << " follows ";
+  for (std::size_t i = 0; i < out.segments.size(); ++i) {
+    const auto& seg = out.segments[i];
+    text << (i == 0 ? "" : (i + 1 == out.segments.size() ? " and " : ", ")) << seg.relative
+         << " in rows " << seg.first_row
+         << (seg.first_row == seg.last_row ? "" : " to " + seg.last_row);
+  }
+  text << " (" << out.witness << " shares " << p.with_x.count << " errors with " << m.taxa[p.x]
+       << " that " << m.taxa[p.y] << " lacks, and " << p.with_y.count << " with " << m.taxa[p.y]
+       << " that " << m.taxa[p.x] << " lacks; copied along one line it could share only one of "
+       << "these sets); rows between the stretches cannot be assigned";
+  out.text = text.str();
+}
+
+// Whether every one of d's evidence errors is also c's (c descends from d).
+bool Holds(const CharacterMatrix& m, int c, int d) {
+  const auto e = ErrorsOf(m, d);
+  if (e.size() < 2) return false;
+  for (std::size_t k : e) {
+    if (m.characters[k].states[c] != 1) return false;
+  }
+  return true;
 }
 
 }  // namespace
 
-std::vector<Contamination> FindContamination(const CharacterMatrix& m, double min_evidence) {
-  std::vector<Contamination> out;
-  if (m.taxa.size() < 3) return out;
+std::vector<Contamination> FindContamination(const CharacterMatrix& m, double min_evidence,
+                                             std::vector<Contamination>* suspected) {
+  std::vector<Contamination> found;
+  std::vector<int> who;
+  std::vector<PairEvidence> pairs;
+  if (m.taxa.size() < 3) return found;
   for (int c = 0; c < static_cast<int>(m.taxa.size()); ++c) {
-    auto segs = Viterbi(m, c);
-    Validate(m, c, segs, min_evidence);
-    if (segs.size() >= 2) out.push_back(Describe(m, c, segs));
+    const auto e = ErrorsOf(m, c);
+    const PairEvidence p = BestPair(m, c, e);
+    if (p.Score() < min_evidence) {
+      if (suspected && p.Score() >= std::min(min_evidence, kSuspectedContaminationEvidence)) {
+        Contamination weak;
+        Describe(m, c, e, p, weak);
+        suspected->push_back(std::move(weak));
+      }
+      continue;
+    }
+    Contamination out;
+    Describe(m, c, e, p, out);
+    found.push_back(std::move(out));
+    who.push_back(c);
+    pairs.push_back(p);
+  }
+  // Two witnesses that name each other: the one copied from both lines
+  // shows the stronger mixture; the other is one of its exemplars (it
+  // shares its own errors with its copy).
+  std::vector<bool> drop(found.size(), false);
+  for (std::size_t i = 0; i < found.size(); ++i) {
+    for (std::size_t j = 0; j < found.size(); ++j) {
+      const bool names = pairs[i].x == who[j] || pairs[i].y == who[j];
+      const bool named = pairs[j].x == who[i] || pairs[j].y == who[i];
+      if (i != j && names && named && pairs[i].Score() < pairs[j].Score()) drop[i] = true;
+    }
+  }
+  for (std::size_t i = found.size(); i-- > 0;) {
+    if (!drop[i]) continue;
+    found.erase(found.begin() + static_cast<long>(i));
+    who.erase(who.begin() + static_cast<long>(i));
+    pairs.erase(pairs.begin() + static_cast<long>(i));
+  }
+  std::vector<Contamination> kept;
+  for (std::size_t i = 0; i < found.size(); ++i) {
+    int from = -1;
+    for (std::size_t j = 0; j < found.size(); ++j) {
+      if (i != j && Holds(m, who[i], who[j])) from = static_cast<int>(j);
+    }
+    if (from >= 0 && !Holds(m, who[from], who[i])) {
+      found[from].inherited_by.push_back(found[i].witness);
+      continue;
+    }
+    kept.push_back(found[i]);
+  }
+  for (auto& k : kept) {  // inherited_by was filled on `found`
+    for (const auto& f : found) {
+      if (f.witness == k.witness) k.inherited_by = f.inherited_by;
+    }
+  }
+  return kept;
+}
+
+CharacterMatrix MaskSecondaryExemplar(const CharacterMatrix& m,
+                                      const std::vector<Contamination>& cs) {
+  CharacterMatrix out = m;
+  for (const auto& c : cs) {
+    const int t = m.TaxonIndex(c.witness);
+    if (t < 0 || c.segments.empty()) continue;
+    for (auto& ch : out.characters) {
+      const ContaminationSegment* nearest = nullptr;
+      int gap = 0;
+      for (const auto& seg : c.segments) {
+        const int d = ch.position < seg.first_position  ? seg.first_position - ch.position
+                      : ch.position > seg.last_position ? ch.position - seg.last_position
+                                                        : 0;
+        if (!nearest || d < gap) nearest = &seg, gap = d;
+      }
+      if (nearest->relative == c.secondary) ch.states[t] = -1;
+    }
   }
   return out;
 }

@@ -92,17 +92,21 @@ std::string NewickName(const std::string& name) {
   return q + "'";
 }
 
+// A witness standing at an inner node (a surviving exemplar) is written as
+// a leaf of length 0 beside its copies, so that every witness is a leaf.
 void WriteNewick(const Stemma& s, int n, std::ostringstream& o) {
   const auto& node = s.nodes[n];
+  const bool inner_witness = node.witness && !node.children.empty();
   if (!node.children.empty()) {
     o << "(";
     for (std::size_t i = 0; i < node.children.size(); ++i) {
       if (i) o << ",";
       WriteNewick(s, node.children[i], o);
     }
+    if (inner_witness) o << "," << NewickName(node.name) << ":0";
     o << ")";
   }
-  if (!node.name.empty())
+  if (!node.name.empty() && !inner_witness)
     o << NewickName(node.name);
   else if (node.support)
     o << std::lround(*node.support * 100);
@@ -117,7 +121,43 @@ std::string DotEscape(const std::string& t) {
   return o;
 }
 
+// Nodes reachable from the root, parents first.
+std::vector<int> Preorder(const Stemma& s) {
+  std::vector<int> out, stack;
+  if (s.root >= 0) stack.push_back(s.root);
+  while (!stack.empty()) {
+    const int n = stack.back();
+    stack.pop_back();
+    out.push_back(n);
+    for (auto it = s.nodes[n].children.rbegin(); it != s.nodes[n].children.rend(); ++it)
+      stack.push_back(*it);
+  }
+  return out;
+}
+
 }  // namespace
+
+std::vector<std::string> NodeLabels(const Stemma& s) {
+  // Editors name lost copies with Greek letters, the archetype omega.
+  static const char* const kGreek[] = {"α", "β", "γ", "δ", "ε", "ζ", "η", "θ", "ι", "κ", "λ", "μ",
+                                       "ν", "ξ", "ο", "π", "ρ", "σ", "τ", "υ", "φ", "χ", "ψ"};
+  constexpr int kLetters = sizeof kGreek / sizeof kGreek[0];
+  std::vector<std::string> out(s.nodes.size());
+  int next = 0;
+  for (int n : Preorder(s)) {
+    const auto& node = s.nodes[n];
+    if (node.witness) {
+      out[n] = node.name;
+    } else if (n == s.root) {
+      out[n] = "ω";
+    } else {
+      out[n] = kGreek[next % kLetters];
+      if (next >= kLetters) out[n] += std::to_string(next / kLetters + 1);
+      ++next;
+    }
+  }
+  return out;
+}
 
 std::string ToNewick(const Stemma& s) {
   std::ostringstream o;
@@ -126,29 +166,32 @@ std::string ToNewick(const Stemma& s) {
   return o.str();
 }
 
-std::string ToDot(const Stemma& s, const std::string& title) {
+std::string ToDot(const Stemma& s, const std::string& title, const std::vector<DashedEdge>& extra) {
+  const auto labels = NodeLabels(s);
   std::ostringstream o;
   o << "digraph stemma {\n  label=\"" << DotEscape(title) << "\";\n  labelloc=t;\n"
     << "  node [fontname=\"serif\"];\n  edge [arrowhead=none, fontsize=10];\n";
-  for (std::size_t n = 0; n < s.nodes.size(); ++n) {
+  for (int n : Preorder(s)) {
     const auto& node = s.nodes[n];
-    if (node.parent < 0 && static_cast<int>(n) != s.root) continue;
-    if (static_cast<int>(n) == s.root && !node.witness) {
-      o << "  " << DotId(n) << " [label=\"" << DotEscape(node.name.empty() ? kArchetype : node.name)
-        << "\", shape=plaintext, fontname=\"serif italic\"];\n";
-    } else if (node.witness) {
+    if (node.witness) {
       o << "  " << DotId(n) << " [label=\"" << DotEscape(node.name) << "\", shape=box];\n";
     } else {
-      o << "  " << DotId(n)
-        << " [label=\"\", shape=circle, width=0.12, style=filled, fillcolor=gray];\n";
+      const std::string label = n == s.root ? labels[n] + " (archetype)" : labels[n];
+      o << "  " << DotId(n) << " [label=\"" << DotEscape(label)
+        << "\", shape=plaintext, fontname=\"serif italic\"];\n";
     }
   }
-  for (std::size_t n = 0; n < s.nodes.size(); ++n) {
+  for (int n : Preorder(s)) {
     const auto& node = s.nodes[n];
     if (node.parent < 0) continue;
     std::string label = Number(node.length);
     if (node.support) label += " (" + std::to_string(std::lround(*node.support * 100)) + "%)";
     o << "  " << DotId(node.parent) << " -> " << DotId(n) << " [label=\"" << label << "\"];\n";
+  }
+  for (const auto& e : extra) {
+    if (e.from < 0 || e.to < 0) continue;
+    o << "  " << DotId(e.from) << " -> " << DotId(e.to)
+      << " [style=dashed, constraint=false, label=\"" << DotEscape(e.label) << "\"];\n";
   }
   o << "}\n";
   return o.str();
@@ -156,18 +199,18 @@ std::string ToDot(const Stemma& s, const std::string& title) {
 
 namespace {
 
-void WriteText(const Stemma& s, int n, const std::string& prefix, bool last, bool top,
-               std::ostringstream& o) {
+void WriteText(const Stemma& s, const std::vector<std::string>& labels, int n,
+               const std::string& prefix, bool last, bool top, std::ostringstream& o) {
   const auto& node = s.nodes[n];
-  std::string name = node.name.empty() ? "(lost copy)" : node.name;
-  if (top && !node.witness) name = node.name.empty() ? kArchetype : node.name;
+  std::string name = node.witness ? node.name : labels[n] + " (lost)";
+  if (top && !node.witness) name = kArchetype;
   o << prefix << (top ? "" : (last ? "`-- " : "|-- ")) << name;
   if (!top) o << "  [" << Number(node.length) << "]";
   if (node.support) o << "  support " << std::lround(*node.support * 100) << "%";
   o << "\n";
   const std::string next = top ? "" : prefix + (last ? "    " : "|   ");
   for (std::size_t i = 0; i < node.children.size(); ++i) {
-    WriteText(s, node.children[i], next, i + 1 == node.children.size(), false, o);
+    WriteText(s, labels, node.children[i], next, i + 1 == node.children.size(), false, o);
   }
 }
 
@@ -175,8 +218,15 @@ void WriteText(const Stemma& s, int n, const std::string& prefix, bool last, boo
 
 std::string ToText(const Stemma& s) {
   std::ostringstream o;
-  if (s.root >= 0) WriteText(s, s.root, "", true, true, o);
+  if (s.root >= 0) WriteText(s, NodeLabels(s), s.root, "", true, true, o);
   return o.str();
+}
+
+int FindWitness(const Stemma& s, const std::string& siglum) {
+  for (std::size_t n = 0; n < s.nodes.size(); ++n) {
+    if (s.nodes[n].witness && s.nodes[n].name == siglum) return static_cast<int>(n);
+  }
+  return -1;
 }
 
 }  // namespace apograph::lineage

@@ -49,12 +49,31 @@ struct GroupComparison {
 GroupComparison CompareGroups(const std::vector<Group>& truth, const std::vector<Group>& found);
 
 /// Newick with branch lengths; lost copies unnamed; support (percent) as the
-/// label of lost inner nodes when known. Example: `((A:2,B:1)95:3,C:4)archetype;`
+/// label of lost inner nodes when known; every witness is a leaf (a
+/// surviving exemplar drawn above its copies is written as a leaf of length
+/// 0 beside them), so that general phylogenetics tools read it.
+/// Example: `((A:2,B:1)95:3,C:4)archetype;`, `((B:2,A:0)A:3,C:1)archetype;`
+/// is written `((B:2,A:0):3,C:1)archetype;`.
 std::string ToNewick(const Stemma& stemma);
-/// Graphviz DOT: witnesses as boxes, lost copies as small circles, support
-/// and errors on the edges.
-std::string ToDot(const Stemma& stemma, const std::string& title);
-/// An indented drawing for the terminal.
+
+/// How editors label the nodes: witnesses by siglum, lost copies by Greek
+/// letters (alpha, beta, ... in preorder), the archetype omega. Per node.
+std::vector<std::string> NodeLabels(const Stemma& stemma);
+
+/// A dashed line in the drawing (contamination: from the second exemplar).
+struct DashedEdge {
+  int from = -1, to = -1;  ///< nodes
+  std::string label;
+};
+
+/// Graphviz DOT: witnesses as boxes, lost copies as Greek letters, the
+/// archetype as omega, errors (and support) on the edges; `extra` dashed.
+std::string ToDot(const Stemma& stemma, const std::string& title,
+                  const std::vector<DashedEdge>& extra = {});
+/// An indented drawing for the terminal (lost copies by their Greek letters).
 std::string ToText(const Stemma& stemma);
+
+/// The node of a witness, or -1.
+int FindWitness(const Stemma& stemma, const std::string& siglum);
 
 }  // namespace apograph::lineage

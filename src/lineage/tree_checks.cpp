@@ -11,20 +11,23 @@ namespace {
 struct PatternSet {
   std::map<std::string, int> taxon;
   std::vector<std::vector<unsigned char>> by_taxon;  // [taxon][pattern]
+  std::vector<unsigned char> root;                   // the archetype: state 0 (directed) or either
   std::vector<double> weight;
 };
 
 PatternSet Patterns(const CharacterMatrix& m, const std::vector<double>& weights) {
-  std::map<std::vector<signed char>, double> merged;
+  std::map<std::pair<bool, std::vector<signed char>>, double> merged;
   for (std::size_t c = 0; c < m.characters.size(); ++c) {
     const double w = weights.empty() ? m.characters[c].weight : weights[c];
-    if (w > 0) merged[m.characters[c].states] += w;
+    if (w > 0) merged[{m.characters[c].Directed(), m.characters[c].states}] += w;
   }
   PatternSet p;
   p.by_taxon.assign(m.taxa.size(), {});
   for (std::size_t t = 0; t < m.taxa.size(); ++t) p.taxon[m.taxa[t]] = static_cast<int>(t);
-  for (const auto& [states, w] : merged) {
+  for (const auto& [key, w] : merged) {
+    const auto& [directed, states] = key;
     p.weight.push_back(w);
+    p.root.push_back(directed ? 1 : 3);
     for (std::size_t t = 0; t < m.taxa.size(); ++t) {
       p.by_taxon[t].push_back(states[t] == 1 ? 2 : (states[t] == 0 ? 1 : 3));
     }
@@ -79,7 +82,7 @@ double Node(const Stemma& s, int n, const PatternSet& p, std::vector<unsigned ch
       return cost + FixedNode(kids, p.by_taxon[it->second], p, out);
     }
   } else if (n == s.root) {
-    kids.emplace_back(p.weight.size(), 1);  // the archetype: no errors
+    kids.push_back(p.root);  // the archetype: the base reading where it is known
   }
   out.assign(p.weight.size(), 3);
   if (kids.empty()) return cost;
@@ -114,6 +117,81 @@ void Promote(Stemma& s, int k) {
   s.nodes[k].parent = -1;
 }
 
+// Whether witness k may stand at its lost parent, above the others there:
+// not a modern edition above older kinds, not later than any of them, and
+// legible at most of the readings that arose below that node (a witness
+// whose readings were set aside has nothing to show it is their exemplar).
+bool MayStandAbove(const Stemma& s, const CharacterMatrix& m, int k) {
+  const int t = m.TaxonIndex(s.nodes[k].name);
+  if (t < 0) return false;
+  const bool info = m.witnesses.size() == m.taxa.size();
+  const int parent = s.nodes[k].parent;
+  std::vector<int> others;
+  for (const auto& name : s.Below(parent)) {
+    const int o = m.TaxonIndex(name);
+    if (o < 0 || o == t) continue;
+    others.push_back(o);
+    if (!info) continue;
+    const auto& w = m.witnesses[t];
+    const auto& x = m.witnesses[o];
+    if (w.Kind() == WitnessKind::kModernEdition && x.Kind() != WitnessKind::kModernEdition)
+      return false;
+    const auto dw = w.Dates(), dx = x.Dates();
+    if (dw && dx && dx->WhollyBefore(*dw)) return false;
+  }
+  int below = 0, legible = 0;
+  for (const auto& ch : m.characters) {
+    bool arose = false;
+    for (int o : others) arose = arose || ch.states[o] == 1;
+    if (!arose) continue;
+    ++below;
+    legible += ch.states[t] >= 0 ? 1 : 0;
+  }
+  return 2 * legible >= below;
+}
+
+bool InSubtree(const Stemma& s, int root, int n) {
+  for (int x = n; x >= 0; x = s.nodes[x].parent) {
+    if (x == root) return true;
+  }
+  return false;
+}
+
+void Move(Stemma& s, int n, int target) {
+  const int old = s.nodes[n].parent;
+  auto& siblings = s.nodes[old].children;
+  siblings.erase(std::find(siblings.begin(), siblings.end(), n));
+  s.Attach(target, n);
+  if (old != s.root && !s.nodes[old].witness && s.nodes[old].children.size() == 1)
+    Contract(s, old);  // a lost copy with one line left adds nothing
+}
+
+// Contracting a weak group leaves its members where it stood; a witness or
+// a group may fit better under another lost copy (or the archetype). Each
+// is moved where the tree gets shortest, until nothing improves.
+void Regraft(Stemma& s, const PatternSet& p, double& base) {
+  const double eps = 1e-9;
+  for (int round = 0; round < 4; ++round) {
+    double best = base;
+    int best_n = -1, best_target = -1;
+    for (int n = 0; n < static_cast<int>(s.nodes.size()); ++n) {
+      if (n == s.root || s.nodes[n].parent < 0) continue;
+      for (int t = 0; t < static_cast<int>(s.nodes.size()); ++t) {
+        const bool lost = t == s.root || !s.nodes[t].witness;
+        if (!lost || (s.nodes[t].parent < 0 && t != s.root)) continue;
+        if (t == s.nodes[n].parent || InSubtree(s, n, t)) continue;
+        Stemma trial = s;
+        Move(trial, n, t);
+        const double len = Length(trial, p);
+        if (len < best - eps) best = len, best_n = n, best_target = t;
+      }
+    }
+    if (best_n < 0) return;
+    Move(s, best_n, best_target);
+    base = best;
+  }
+}
+
 }  // namespace
 
 double FitchLength(const Stemma& s, const CharacterMatrix& m, const std::vector<double>& weights) {
@@ -125,19 +203,32 @@ void KeepSupported(Stemma& s, const CharacterMatrix& m, const std::vector<double
   const PatternSet p = Patterns(m, weights);
   const double eps = 1e-9;
   double base = Length(s, p);
-  for (int n = 0; n < static_cast<int>(s.nodes.size()); ++n) {
-    const auto& node = s.nodes[n];
-    if (n == s.root || node.witness || node.parent < 0 || node.children.empty()) continue;
-    Stemma trial = s;
-    Contract(trial, n);
-    const double len = Length(trial, p);
-    if (len < base + min_evidence - eps) s = std::move(trial), base = len;
+  // The least supported group goes first, one at a time: contracting a
+  // group inside another first would make the outer one look weaker than
+  // it is.
+  for (;;) {
+    int best = -1;
+    double best_len = 0;
+    Stemma best_trial;
+    for (int n = 0; n < static_cast<int>(s.nodes.size()); ++n) {
+      const auto& node = s.nodes[n];
+      if (n == s.root || node.witness || node.parent < 0 || node.children.empty()) continue;
+      Stemma trial = s;
+      Contract(trial, n);
+      const double len = Length(trial, p);
+      if (len < base + min_evidence - eps && (best < 0 || len < best_len))
+        best = n, best_len = len, best_trial = std::move(trial);
+    }
+    if (best < 0) break;
+    s = std::move(best_trial);
+    base = best_len;
   }
+  Regraft(s, p, base);
   for (int n = 0; n < static_cast<int>(s.nodes.size()); ++n) {
     const auto& node = s.nodes[n];
     if (n == s.root || node.witness || node.parent < 0 || !node.name.empty()) continue;
     for (int k : node.children) {
-      if (!s.nodes[k].witness || !s.nodes[k].children.empty()) continue;
+      if (!s.nodes[k].witness || !s.nodes[k].children.empty() || !MayStandAbove(s, m, k)) continue;
       Stemma trial = s;
       Promote(trial, k);
       const double len = Length(trial, p);

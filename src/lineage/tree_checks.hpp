@@ -5,9 +5,11 @@
 /// would make the tree longer under parsimony (Fitch's count, extended to
 /// nodes with more than two children) by at least `kMinGroupEvidence`: two
 /// common slips or one distinctive error. A group resting on a single slip
-/// that copyists make independently is not kept. A witness that adds no change of its
-/// own to the tree is drawn at the place of its lost parent: it may be the
-/// exemplar of its group.
+/// that copyists make independently is not kept. A witness that adds no
+/// change of its own to the tree is drawn at the place of its lost parent:
+/// it may be the exemplar of its group, unless its kind or date forbid it
+/// (a modern edition above manuscripts, a witness later than another in
+/// the group) or it cannot be read at most of the readings that arose below.
 
 #include <vector>
 
@@ -21,6 +23,8 @@ namespace apograph::lineage {
 double FitchLength(const Stemma& stemma, const CharacterMatrix& matrix,
                    const std::vector<double>& weights = {});
 
+/// Judgement: two common slips, or one distinctive error, but not one
+/// common slip alone nor two one-unit differences.
 inline constexpr double kMinGroupEvidence = 1.5;
 
 /// Contracts every lost inner node whose branch is not supported by

@@ -5,6 +5,7 @@
 #include <sstream>
 
 #include "estimate/report.hpp"
+#include "lineage/lineage_text.hpp"
 #include "lineage/stemma.hpp"
 #include "publish/apparatus.hpp"
 #include "support/tabular.hpp"
@@ -218,43 +219,8 @@ void Deviations(const pipeline::TableAnalysis& a, const ReportOptions& o, std::o
   }
 }
 
-std::string GroupText(const lineage::GroupInfo& g) {
-  std::vector<std::string> sigla(g.witnesses.begin(), g.witnesses.end());
-  char buf[96];
-  std::snprintf(buf, sizeof buf, "errors on its branch %.3g", g.length);
-  std::string out = "{" + Join(sigla, " ") + "}  " + buf;
-  if (g.support) {
-    std::snprintf(buf, sizeof buf, ", bootstrap support %.0f%%", *g.support * 100);
-    out += buf;
-  }
-  return out;
-}
-
 void Lineage(const lineage::LineageReport& l, std::ostream& out) {
-  if (l.results.empty()) {
-    out << "No stemma: fewer than three witnesses or no shared errors.\n\n";
-    return;
-  }
-  out << l.witnesses.size() << " witnesses, " << l.characters << " error characters";
-  if (l.undetermined_cells) out << " (" << l.undetermined_cells << " cells left undetermined)";
-  out << ". Shared errors are evidence of common descent; shared right readings are not.\n\n";
-  for (const auto& r : l.results) {
-    out << "By "
-        << (r.method == lineage::Method::kParsimony ? "maximum parsimony" : "neighbour joining");
-    if (r.parsimony) {
-      char buf[64];
-      std::snprintf(buf, sizeof buf, " (length %.4g)", r.parsimony->length);
-      out << buf;
-    }
-    out << ":\n\n```\n" << lineage::ToText(r.stemma) << "```\n";
-    for (const auto& g : r.groups) out << "- group " << GroupText(g) << "\n";
-    out << "- Newick: `" << lineage::ToNewick(r.stemma) << "`\n\n";
-  }
-  for (const auto& c : l.copies) out << "- copy? " << c.text << "\n";
-  for (const auto& c : l.contamination) out << "- contamination? " << c.text << "\n";
-  if (l.copies.empty() && l.contamination.empty())
-    out << "- no direct copy and no contamination found\n";
-  out << "\n";
+  out << lineage::DescribeLineage(l, {.markdown = true}) << "\n";
 }
 
 std::string CellName(const Apparatus& app, std::size_t r, std::size_t c) {
@@ -337,7 +303,9 @@ std::string TableReport(const pipeline::TableAnalysis& a, const ReportOptions& o
 
 std::string WorkLineageReport(const std::string& work_id, const lineage::LineageReport& lineage) {
   std::ostringstream out;
-  out << "## Stemma of the work " << work_id << " (all its tables together)\n\n";
+  out << "## Stemma of the work " << work_id;
+  if (!lineage.title.empty()) out << ", " << lineage.title;
+  out << " (all its tables together)\n\n";
   Lineage(lineage, out);
   return out.str();
 }

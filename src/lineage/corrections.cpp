@@ -1,0 +1,190 @@
+#include "lineage/corrections.hpp"
+
+#include <algorithm>
+#include <optional>
+#include <sstream>
+
+namespace apograph::lineage {
+namespace {
+
+bool RightReading(const Character& ch, int t) { return ch.base_is_right && ch.states[t] == 0; }
+
+bool Placing(const Character& ch) {
+  return ch.direction == Direction::kModel && !ch.one_unit && ch.weight >= 1 && !ch.tie_break;
+}
+
+// The other witnesses carrying character k.
+std::vector<int> Carriers(const Character& ch, int except) {
+  std::vector<int> out;
+  for (std::size_t t = 0; t < ch.states.size(); ++t) {
+    if (ch.states[t] == 1 && static_cast<int>(t) != except) out.push_back(static_cast<int>(t));
+  }
+  return out;
+}
+
+// Whether the error `k` (carriers `carriers`) arose above the shared error
+// `l` of W: another carrier of l carries k (l arose inside k's group; its
+// carriers that lack k descend from W, or corrected too), and so does a
+// witness that can be read at l and lacks it (k's group is the larger one).
+bool Encloses(const Character& l, const std::vector<int>& l_others,
+              const std::vector<int>& carriers) {
+  bool inside = false, larger = false;
+  for (int x : carriers) {
+    inside = inside || std::binary_search(l_others.begin(), l_others.end(), x);
+    larger = larger || l.states[x] == 0;
+  }
+  return inside && larger;
+}
+
+Correction Examine(const CharacterMatrix& m, int w) {
+  Correction c;
+  c.witness = m.taxa[w];
+  std::vector<const Character*> placing;  // W's shared errors
+  std::vector<std::vector<int>> others;   // their other carriers
+  std::vector<bool> relative(m.taxa.size(), false);
+  for (const auto& ch : m.characters) {
+    if (!Placing(ch) || ch.states[w] != 1) continue;
+    auto o = Carriers(ch, w);
+    if (o.empty()) continue;
+    ++c.kept;
+    placing.push_back(&ch);
+    others.push_back(std::move(o));
+  }
+  for (const auto& ch : m.characters) {
+    if (!Placing(ch) || !RightReading(ch, w)) continue;
+    const auto carriers = Carriers(ch, w);
+    double inside = 0;
+    int count = 0;
+    bool before = false, after = false;
+    for (std::size_t l = 0; l < placing.size(); ++l) {
+      if (!Encloses(*placing[l], others[l], carriers)) continue;
+      inside += placing[l]->weight, ++count;
+      before = before || placing[l]->position <= ch.position;
+      after = after || placing[l]->position >= ch.position;
+    }
+    if (inside < kMinPlacingWeight || count < 2 || !before || !after) continue;
+    ++c.corrected, c.weight += ch.weight;
+    for (int t : carriers) relative[t] = true;
+  }
+  for (std::size_t t = 0; t < m.taxa.size(); ++t) {
+    if (relative[t]) c.relatives.push_back(m.taxa[t]);
+  }
+  return c;
+}
+
+bool Corrects(const Correction& c) {
+  return c.corrected >= kMinCorrections && c.weight >= kMinCorrectionWeight;
+}
+
+bool Recomputes(const Correction& c) {
+  return c.recomputed >= kMinRecomputed && 4 * c.recomputed >= 3 * c.departures;
+}
+
+std::string Text(const Correction& c) {
+  std::ostringstream o;
+  if (Corrects(c)) {
+    o << c.witness << " corrects " << c.corrected << " entries that its group (";
+    for (std::size_t i = 0; i < c.relatives.size(); ++i) o << (i ? " " : "") << c.relatives[i];
+    o << ") has wrong: it shares " << c.kept << " errors with the group, yet reads the model's "
+      << "value there";
+  }
+  if (Recomputes(c)) {
+    o << (Corrects(c) ? "; it" : c.witness) << " reads the recomputed value at " << c.recomputed
+      << " of the " << c.departures << " entries where the others keep a value a unit off (the "
+      << "author's own): it recomputed the table";
+  }
+  if (!Corrects(c) && !Recomputes(c)) {
+    o << c.witness << " is a modern edition: modern editors correct against the model, so its "
+      << "agreement with the model is taken as theirs";
+    if (c.corrected) o << " (it reads right " << c.corrected << " errors of its group)";
+  }
+  o << ". Later correction is not descent: its right readings are set aside and it is placed by "
+       "its errors";
+  return o.str();
+}
+
+}  // namespace
+
+std::vector<Correction> FindCorrections(const CharacterMatrix& m) {
+  std::vector<Correction> out;
+  if (m.taxa.size() < 3) return out;
+  // Recomputing witnesses first; then correctors one at a time, the
+  // strongest first, each set aside before the next is looked for (a
+  // corrector's right readings make its relatives look like correctors).
+  CharacterMatrix current = m;
+  for (int w = 0; w < static_cast<int>(m.taxa.size()); ++w) {
+    Correction c;
+    c.witness = m.taxa[w];
+    if (static_cast<std::size_t>(w) < m.recomputed.size()) {
+      c.recomputed = m.recomputed[w];
+      c.departures = m.departure_cells[w];
+    }
+    c.modern_edition =
+        m.witnesses.size() == m.taxa.size() && m.witnesses[w].Kind() == WitnessKind::kModernEdition;
+    if (Recomputes(c) || c.modern_edition) out.push_back(std::move(c));
+  }
+  current = MaskCorrections(m, out);
+  for (;;) {
+    std::optional<Correction> best;
+    for (int w = 0; w < static_cast<int>(m.taxa.size()); ++w) {
+      const bool done = std::any_of(out.begin(), out.end(),
+                                    [&](const Correction& c) { return c.witness == m.taxa[w]; });
+      if (done) continue;
+      Correction c = Examine(current, w);
+      if (Corrects(c) && (!best || c.weight > best->weight)) best = std::move(c);
+    }
+    if (!best) break;
+    current = MaskCorrections(current, {*best});
+    out.push_back(std::move(*best));
+  }
+  for (auto& c : out) {
+    const int w = m.TaxonIndex(c.witness);
+    if (!Corrects(c)) {  // a recomputing witness: its corrections counted for the report
+      const Correction e = Examine(current, w);
+      c.corrected = e.corrected, c.weight = e.weight, c.kept = e.kept, c.relatives = e.relatives;
+    }
+    if (static_cast<std::size_t>(w) < m.recomputed.size()) {
+      c.recomputed = m.recomputed[w];
+      c.departures = m.departure_cells[w];
+    }
+    c.text = Text(c);
+  }
+  return out;
+}
+
+CharacterMatrix MaskCorrections(const CharacterMatrix& m, const std::vector<Correction>& cs) {
+  CharacterMatrix out = m;
+  std::vector<bool> corrector(m.taxa.size(), false);
+  for (const auto& c : cs) {
+    const int t = m.TaxonIndex(c.witness);
+    if (t >= 0) corrector[t] = true;
+  }
+  // A rounding difference only correctors carry is their own recomputing;
+  // one a copyist carries too came down from an exemplar (a slip of a unit
+  // that no recomputation shows), and stays.
+  for (auto& ch : out.characters) {
+    if (!ch.carrier_is_right) continue;
+    bool own = true;
+    for (std::size_t t = 0; t < ch.states.size(); ++t)
+      own = own && (ch.states[t] != 1 || corrector[t]);
+    if (!own) continue;
+    for (auto& x : ch.states) x = x == 1 ? -1 : x;
+  }
+  for (const auto& c : cs) {
+    const int t = m.TaxonIndex(c.witness);
+    if (t < 0) continue;
+    std::vector<Character> ties;
+    for (auto& ch : out.characters) {
+      if (!RightReading(ch, t)) continue;
+      ties.push_back(ch);
+      ties.back().weight = ch.weight * kCorrectorTieBreak;
+      ties.back().tie_break = true;
+      ch.weight *= 1 - kCorrectorTieBreak;
+      ch.states[t] = -1;
+    }
+    out.characters.insert(out.characters.end(), ties.begin(), ties.end());
+  }
+  return out;
+}
+
+}  // namespace apograph::lineage

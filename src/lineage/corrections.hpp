@@ -1,0 +1,85 @@
+#pragma once
+/// Later correction is not descent. A careful copyist or a modern editor
+/// who recomputed the table reads the model's value where his exemplar
+/// erred: he shares right readings with unrelated witnesses, and on a tree
+/// those readings pull him away from his relatives.
+///
+/// The criterion: witness W reads right (the model's value) an error k
+/// whose carriers include another carrier of errors l that W does carry,
+/// and also a witness that lacks l: on a tree, k's group then holds l's
+/// group, W among them (l puts it there), and yet W lacks k (the other
+/// carriers of l that lack k descend from W, or corrected too). The errors
+/// l must be two or more, of weight kMinPlacingWeight together. Copied
+/// without correction, W would carry k; it lacks such an error only by a
+/// slip that restores the value, or where independent slips made the l
+/// look shared. A witness with at least
+/// kMinCorrections such errors (weight kMinCorrectionWeight) corrects
+/// against the model.
+///
+/// A witness that recomputed the table shows it another way too: where
+/// two thirds of the witnesses or more keep another value within a unit
+/// (the author's own, as a rule), it reads the recomputed value
+/// (CharacterMatrix::recomputed). At kMinRecomputed such entries, three
+/// quarters or more of those where it can be read, it is called a
+/// recomputing witness.
+///
+/// A modern edition is taken to have corrected against the model unless
+/// it is seen to keep its exemplar's errors: modern editors correct, and
+/// their recomputed values and rounding are their own (a faithful
+/// edition loses little: it is still placed by the errors it keeps).
+///
+/// Either way its right readings are set aside (they are not evidence of
+/// its descent), and so are the rounding differences from the other right
+/// readings that only such witnesses carry (a recomputation reaches them by
+/// itself; a difference of a unit that a copyist carries too was inherited).
+
+#include <string>
+#include <vector>
+
+#include "lineage/characters.hpp"
+
+namespace apograph::lineage {
+
+struct Correction {
+  std::string witness;
+  int corrected = 0;   ///< errors of its group it reads right
+  double weight = 0;   ///< their weight
+  int kept = 0;        ///< errors it shares with its group
+  int recomputed = 0;  ///< entries where it reads the recomputed value, most another right one
+  int departures = 0;  ///< entries of that kind where it can be read
+  bool modern_edition = false;         ///< set aside as a modern edition
+  std::vector<std::string> relatives;  ///< the witnesses that share those errors
+  std::string text;  ///< "D corrects 14 entries that its group (A B C) has wrong ..."
+};
+
+/// Corrections from which a witness is called a corrector: judgement,
+/// checked on the lineage benchmark's draws (tests/bench/lineage_accuracy_bench.cpp).
+inline constexpr int kMinCorrections = 3;
+inline constexpr double kMinCorrectionWeight = 3;
+/// Entries read as recomputed (see above): judgement, checked on the
+/// benchmark (a copyist's slip of a unit in a large group leaves the others
+/// reading the recomputed value by chance, two or three times at most).
+inline constexpr int kMinRecomputed = 4;
+/// Weight of the shared errors (two or more) that put a witness inside a
+/// group (judgement: more than one common slip, which two copyists may make
+/// independently).
+inline constexpr double kMinPlacingWeight = 2;
+
+/// Witnesses that correct against the model (only characters whose base
+/// reading the model calls right count).
+std::vector<Correction> FindCorrections(const CharacterMatrix& matrix);
+
+/// What is left of a corrector's right reading as evidence: enough to
+/// choose, among the places its errors allow equally, the one its right
+/// readings contradict least (judgement: 1/128, so that even fifty of them
+/// weigh less than one common slip it kept).
+inline constexpr double kCorrectorTieBreak = 1.0 / 128;
+
+/// The matrix with each corrector's right readings set aside: made unknown,
+/// and kept only as a tie-break (a copy of the character at
+/// kCorrectorTieBreak of its weight, marked Character::tie_break); rounding
+/// differences that only correctors carry made unknown.
+CharacterMatrix MaskCorrections(const CharacterMatrix& matrix,
+                                const std::vector<Correction>& corrections);
+
+}  // namespace apograph::lineage
