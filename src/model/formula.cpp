@@ -331,7 +331,7 @@ double FormulaModel::Evaluate(const std::vector<double>& params, const RowContex
                                 std::to_string(params_.size()) + " parameters, got " +
                                 std::to_string(params.size()));
   }
-  return EvaluateAt(params, row, 0);
+  return ApplySign(EvaluateAt(params, row, 0), ResolvedSign(row.sign));
 }
 
 double FormulaModel::EvaluateAt(const std::vector<double>& p, const RowContext& row,
@@ -436,6 +436,14 @@ std::unique_ptr<FormulaModel> CompileFormula(const std::string& text, const std:
   m->text_ = text;
   m->convention_ = "a user formula: the argument is used as the table gives it";
   m->params_ = std::move(c.params());
+  // The formula language's convention for a mean motion's parameters.
+  for (auto& p : m->params_) {
+    if (p.name == "radix") p.role = ParamRole::kRadix;
+    if (p.name == "rate") p.role = ParamRole::kRate;
+    if (p.name == "modulus") p.role = ParamRole::kModulus;
+  }
+  if (m->ParamIndex(ParamRole::kRate) >= 0 && m->ParamIndex(ParamRole::kModulus) >= 0)
+    m->traits_.kind = ModelKind::kMeanMotion;
   m->columns_ = std::move(c.columns());
   m->body_ = std::make_unique<Node>(std::move(body));
   return m;
