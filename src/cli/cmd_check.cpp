@@ -207,8 +207,7 @@ int RunCheck(const std::vector<std::string>& args, Io& io) {
   if (t.columns.empty())
     throw InputError::ForOption("--table", ExpectedFound("a table with value columns", "none"));
   request.columns = {o.column.empty() ? t.columns.front().name : o.column};
-  const auto ref =
-      pipeline::ResolveReferences({t}, request, pipeline::LoadModelLibrary(db)).front();
+  const auto ref = pipeline::ResolveReferences({t}, request, LoadModels(db, io)).front();
   const model::CheckReport r =
       model::Check(t, *ref.model, ref.params, ref.practice, tolerance, ref.column);
   const std::optional<std::string> formula_text =

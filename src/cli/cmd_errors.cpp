@@ -8,9 +8,11 @@
 #include <nlohmann/json.hpp>
 
 #include "cli/command.hpp"
+#include "cli/estimate_options.hpp"
 #include "cli/reference_options.hpp"
 #include "deviation/explain.hpp"
 #include "deviation/numeral_script.hpp"
+#include "estimate/notation.hpp"
 #include "model/model.hpp"
 #include "pipeline/reference.hpp"
 #include "pipeline/witness_findings.hpp"
@@ -75,10 +77,10 @@ std::string ModelText(const pipeline::ColumnReference& r, const Transcription& t
       SpecialPractice(r, t) ? pipeline::DescribePractice(r.practice, *r.practice.places) : "";
   if (r.source == pipeline::ReferenceSource::kGiven)
     return practice.empty() ? out : out + " (" + practice + ")";
-  std::string how = "fitted";
-  if (r.rounded_places > 0) {
-    how += ", rounded to " + std::to_string(r.rounded_places) +
-           (r.rounded_places == 1 ? " place" : " places");
+  std::string how = r.derived.empty() ? "fitted" : "identified";
+  for (const auto& a : r.adopted) {
+    how +=
+        ", " + a.param + " = " + estimate::NumberText(a.value, 6) + " adopted (" + a.source + ")";
   }
   if (!practice.empty()) how += "; entries " + practice;
   return out + " (" + how + ")";
@@ -282,7 +284,7 @@ int RunErrors(const std::vector<std::string>& args, Io& io) {
   std::erase_if(witnesses,
                 [&](const Transcription& w) { return w.witness.siglum == t.witness.siglum; });
   witnesses.insert(witnesses.begin(), t);
-  const auto refs = pipeline::ResolveReferences(witnesses, request, pipeline::LoadModelLibrary(db));
+  const auto refs = pipeline::ResolveReferences(witnesses, request, LoadModels(db, io));
   const deviation::NumeralScript script = deviation::FindNumeralScript(t.witness.script, o.scripts);
   deviation::ExplainOptions eo;
   eo.tolerance = o.tolerance;

@@ -101,14 +101,23 @@ int RunFit(const std::vector<std::string>& args, Io& io) {
   CheckChoice("--format", a.format, {"text", "json"});
   CheckChoice("--solver", a.solver, {"fast", "ceres"});
   store::Database db = OpenEdition(a.db);
-  std::unique_ptr<model::Model> holder;
-  const model::Model& m = FindModelOrThrow(a.model, db, holder);
+  const pipeline::ModelLibrary library = LoadModels(db, io);
+  const auto model = library.FindOrThrow(a.model, "--model");
+  const model::Model& m = *model;
   const estimate::FitOptions options = Options(a, m);
   const Transcription t = store::Load(db, a.table, a.witness);
   const std::vector<int> columns = estimate::ResolveColumns(t, a.columns);
-  const auto catalog = store::LoadCatalog(db);
-  const estimate::FitResult fit = estimate::Fit(m, t, columns, options);
-  const bool mm = m.ParamIndex("modulus") >= 0 && columns.size() == 1;
+  const auto& catalog = library.catalog;
+  const auto obs = estimate::CollectObservations(t, columns);
+  if (obs.empty()) {
+    throw InputError::ForOption(
+        "--witness", ExpectedFound("a witness with readable entries in the columns fitted",
+                                   "'" + a.witness +
+                                       "', whose cells there are all blank, "
+                                       "illegible or partly read"));
+  }
+  const estimate::FitResult fit = estimate::Fit(m, t, obs, options);
+  const bool mm = m.traits().kind == model::ModelKind::kMeanMotion && columns.size() == 1;
   if (a.format == "json") {
     auto j = estimate::FitJson(fit, t, catalog);
     if (mm) j["mean_motion"] = estimate::MeanMotionJson(estimate::AnalyseMeanMotion(t, columns[0]));

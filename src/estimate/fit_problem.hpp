@@ -41,9 +41,12 @@ class FitProblem {
   double Value(std::size_t i, const double* x);
   /// The residual of entry i when the model's value (as from Value) is v.
   double ResidualOf(std::size_t i, double v) const;
-  /// Parameters never estimated unless the user frees them by --start:
-  /// "modulus" of the mean-motion models (a convention, not a quantity).
-  static bool IsStructural(const std::string& name) { return name == "modulus"; }
+  /// Parameters never estimated unless the user frees them by --start: the
+  /// modulus of the mean-motion and position models (a convention, not a
+  /// quantity).
+  static bool IsStructural(const model::ParamSpec& spec) {
+    return spec.role == model::ParamRole::kModulus;
+  }
   /// Full model parameter vector for a free vector.
   const std::vector<double>& Expand(const double* x);
   double Displacement(const double* x) const;
