@@ -56,7 +56,8 @@ nlohmann::ordered_json ArgumentJson(const ArgumentSpec& a) {
           {"unit", a.unit},
           {"places", a.places},
           {"start", ValueJson(a.start)},
-          {"step", ValueJson(a.step)}};
+          {"step", ValueJson(a.step)},
+          {"listed", a.listed}};
 }
 
 nlohmann::ordered_json TranscriptionJson(const Transcription& t, int revision) {
@@ -71,6 +72,7 @@ nlohmann::ordered_json TranscriptionJson(const Transcription& t, int revision) {
         {"shelfmark", t.witness.shelfmark},
         {"date", t.witness.date},
         {"script", t.witness.script},
+        {"kind", ToString(t.witness.Kind())},
         {"note", t.witness.note}}},
       {"folios", t.folios},
       {"hand", t.hand},

@@ -3,36 +3,50 @@
 #include "cli/command.hpp"
 
 #include <ostream>
+#include <stdexcept>
 
 #include <nlohmann/json.hpp>
 
 #include "store/edition_store.hpp"
+#include "support/data_dir.hpp"
 #include "support/tabular.hpp"
 #include "transcription/csv.hpp"
 #include "transcription/parser.hpp"
+#include "transcription/sheet_manifest.hpp"
 
 namespace apograph::cli {
 
 extern const char kImportUsage[] =
-    "usage: apograph import FILE... [--db FILE] [--format text|csv|json]\n"
-    "       apograph import --csv FILE --table ID --witness SIGLUM [--work ID]\n"
-    "                       [--script NAME] [--places N] [--places COLUMN=N]...\n"
+    "usage: apograph import FILE... [--db FILE] [--format text|csv|json] [--wait SECONDS]\n"
+    "       apograph import --csv SHEET... --witness SIGLUM [--table ID] [attributes] [sheet "
+    "options]\n"
+    "       apograph import --manifest FILE [sheet options]\n"
     "\n"
     "Reads every file first; only when all of them are free of errors are\n"
-    "their tables written, in one transaction. A table whose content differs\n"
-    "from its current revision gets a new revision (the earlier ones stay);\n"
-    "an unchanged table adds nothing. On any error nothing is written and the\n"
-    "exit code is 2. Warnings (duplicate or out-of-step arguments) are shown\n"
-    "with their positions and give exit code 1.\n"
+    "their tables written, in ONE transaction for the whole job (never half\n"
+    "written). A table whose content differs from its current revision gets a\n"
+    "new revision (the earlier ones stay); an unchanged table adds nothing. On\n"
+    "any error nothing is written and the exit code is 2. Warnings (duplicate\n"
+    "or out-of-step arguments, a witness's or table's attribute changed by\n"
+    "this import) are shown with their positions and give exit code 1.\n"
     "\n"
     "A CSV sheet holds one witness's table: a header row naming the argument\n"
     "and the value columns, then one row per entry in trade notation (empty =\n"
-    "blank, ? = illegible). Places are read off the cells unless --places\n"
-    "gives them (N for every value column, COLUMN=N for one).\n"
+    "blank, ? = illegible). The delimiter (',', ';' or TAB) is read off the\n"
+    "header unless --delimiter gives it. Arguments may be decimals (88.5) or\n"
+    "have fewer places than others (1 beside 1;30): they are normalised, the\n"
+    "written form kept. Places are read off the cells unless --places gives\n"
+    "them (N for every value column, COLUMN=N for one). Columns holding the\n"
+    "degrees, minutes and seconds of one value are joined with --join\n"
+    "'NAME=D+M+S'; a sheet that looks like that is refused until you --join or\n"
+    "--keep-columns. Several sheets take their table ids from their file\n"
+    "names; a manifest names each sheet with its attributes (see README).\n"
     "\n"
     "examples:\n"
     "  apograph import corpora/demo/*.apo --db harbour.sqlite\n"
-    "  apograph import --csv sun.csv --table sun-eq --witness K --script hindu-arabic";
+    "  apograph import --csv sun.csv --table sun-eq --witness K --script hindu-arabic\n"
+    "  apograph import --csv sheets/*.csv --witness K --date 'c. 1420' --kind manuscript\n"
+    "  apograph import --manifest sheets/K.sheets --join 'decl=d+m+s'";
 
 namespace {
 
@@ -40,12 +54,14 @@ struct ImportOptions {
   std::string db;
   std::string format;
   std::vector<std::string> files;
-  std::string csv;
-  std::string table;
-  std::string witness;
-  std::string work;
-  std::string script;
-  std::vector<std::string> places;
+  std::vector<std::string> csv;
+  std::string manifest;
+  std::string wait;
+  std::string scripts;
+  CsvOptions sheet;  ///< head: ids and attributes from the options
+  std::string step, start, delimiter;
+  std::vector<std::string> places, joins;
+  std::size_t max_file_mb = 0, max_line_kb = 0;
 };
 
 int ParsePlaces(const std::string& text, const std::string& whole) {
@@ -53,7 +69,9 @@ int ParsePlaces(const std::string& text, const std::string& whole) {
   int n = -1;
   try {
     n = std::stoi(text, &used);
-  } catch (const std::exception&) {
+  } catch (const std::invalid_argument&) {
+    used = 0;
+  } catch (const std::out_of_range&) {
     used = 0;
   }
   if (used != text.size() || n < 0 || n > Sexagesimal::kMaxPlaces) {
@@ -63,16 +81,16 @@ int ParsePlaces(const std::string& text, const std::string& whole) {
   return n;
 }
 
-CsvOptions MakeCsvOptions(const ImportOptions& o) {
-  if (o.table.empty())
-    throw InputError::ForOption("--table", "expected the table id of the CSV sheet, found none");
-  if (o.witness.empty())
-    throw InputError::ForOption("--witness", "expected the siglum of the CSV sheet, found none");
-  CsvOptions c;
-  c.table_id = o.table;
-  c.siglum = o.witness;
-  c.work_id = o.work;
-  c.script = o.script;
+Sexagesimal ParseNumberOption(const std::string& option, const std::string& text) {
+  auto v = Sexagesimal::Parse(text);
+  if (!v)
+    throw InputError::ForOption(option, ExpectedFound("a number such as 0;30", "'" + text + "'"));
+  return *v;
+}
+
+/// The options that shape how every sheet is read (places, joins, delimiter).
+void SheetOptions(ImportOptions& o) {
+  CsvOptions& c = o.sheet;
   for (const auto& p : o.places) {
     const auto eq = p.find('=');
     if (eq == std::string::npos) {
@@ -83,28 +101,63 @@ CsvOptions MakeCsvOptions(const ImportOptions& o) {
       c.column_places[p.substr(0, eq)] = ParsePlaces(p.substr(eq + 1), p);
     }
   }
-  return c;
+  for (const auto& j : o.joins) c.joins.push_back(ParseColumnJoin(j, "--join"));
+  if (!o.delimiter.empty()) {
+    CheckChoice("--delimiter", o.delimiter, {",", ";", "tab"});
+    c.delimiter = o.delimiter == "tab" ? '\t' : o.delimiter[0];
+  }
+  if (o.step == kListedStep) {
+    c.head.argument.listed = true;
+  } else if (!o.step.empty()) {
+    c.head.argument.step = ParseNumberOption("--step", o.step);
+  }
+  if (!o.start.empty()) {
+    if (c.head.argument.listed)
+      throw InputError::ForOption("--start", "expected no --start with --step list, found one");
+    c.head.argument.start = ParseNumberOption("--start", o.start);
+  }
+  if (o.max_file_mb > 0) c.read.max_file_bytes = o.max_file_mb << 20;
+  if (o.max_line_kb > 0) c.read.max_line_bytes = o.max_line_kb << 10;
+  if (!o.scripts.empty()) c.read.scripts = ScriptNames(o.scripts);
+}
+
+/// True when an option that describes a sheet's table or witness was given.
+bool GivesAttributes(const ImportOptions& o) {
+  const Transcription& h = o.sheet.head;
+  const WitnessInfo& w = h.witness;
+  return !h.table_id.empty() || !w.siglum.empty() || !h.work.id.empty() || !h.work.title.empty() ||
+         !w.script.empty() || !w.library.empty() || !w.shelfmark.empty() || !w.date.empty() ||
+         !w.kind.empty() || !w.note.empty() || !h.table_title.empty() || !h.kind.empty() ||
+         !h.folios.empty() || !h.hand.empty() || !o.step.empty() || !o.start.empty();
 }
 
 /// Reads every input; throws on the first error, before anything is written.
-TranscriptionFile ReadAll(const ImportOptions& o) {
+TranscriptionFile ReadAll(ImportOptions& o) {
+  SheetOptions(o);
   TranscriptionFile all;
   auto take = [&all](TranscriptionFile f) {
     for (auto& t : f.tables) all.tables.push_back(std::move(t));
     for (auto& w : f.warnings) all.warnings.push_back(std::move(w));
   };
-  for (const auto& f : o.files) take(ReadTranscriptionFile(f));
+  for (const auto& f : o.files) take(ReadTranscriptionFile(f, o.sheet.read));
+  if (!o.manifest.empty() && GivesAttributes(o)) {
+    throw InputError::ForOption("--manifest",
+                                "expected the attributes in the manifest, found them given as "
+                                "options too (give them in one place)");
+  }
+  if (!o.manifest.empty()) take(ReadSheets(ReadSheetManifest(o.manifest, o.sheet)));
   if (!o.csv.empty()) {
-    take(ReadCsvFile(o.csv, MakeCsvOptions(o)));
-  } else if (!o.table.empty() || !o.witness.empty() || !o.places.empty() || !o.work.empty() ||
-             !o.script.empty()) {
+    if (o.sheet.head.witness.siglum.empty())
+      throw InputError::ForOption("--witness", "expected the siglum of the CSV sheets, found none");
+    take(ReadSheets(SheetsFromFiles(o.csv, o.sheet)));
+  } else if (o.manifest.empty() && GivesAttributes(o)) {
     throw InputError::ForOption(
-        "--csv", "expected a CSV file for --table/--witness/--work/--script/--places, found none");
+        "--csv", "expected CSV sheets for the table and witness options, found none");
   }
   if (all.tables.empty()) {
-    throw InputError::ForOption(
-        "apograph import",
-        "expected at least one FILE or --csv FILE, found none (see apograph import --help)");
+    throw InputError::ForOption("apograph import",
+                                "expected at least one FILE, --csv SHEET or --manifest FILE, "
+                                "found none (see apograph import --help)");
   }
   return all;
 }
@@ -154,6 +207,42 @@ void PrintTable(const ImportOptions& o, const store::ImportResult& result, Forma
          << result.cells_written << " cells written (argument cells included)\n";
 }
 
+void AddSheetOptions(po::options_description& options, ImportOptions& o) {
+  Transcription& h = o.sheet.head;
+  WitnessInfo& w = h.witness;
+  options.add_options()("csv", po::value(&o.csv)->multitoken()->composing(),
+                        "CSV sheet(s), each one witness's table")(
+      "manifest", po::value(&o.manifest), "a sheet manifest naming sheets and their attributes")(
+      "table", po::value(&h.table_id), "CSV: the table id (one sheet; default: the file name)")(
+      "witness", po::value(&w.siglum), "CSV: the witness's siglum")(
+      "work", po::value(&h.work.id), "CSV: the work id (default: the table id)")(
+      "work-title", po::value(&h.work.title), "CSV: the work's title")(
+      "library", po::value(&w.library), "CSV: the witness's library")(
+      "shelfmark", po::value(&w.shelfmark), "CSV: the witness's shelfmark")(
+      "date", po::value(&w.date), "CSV: the witness's date (1461, c. 1420, 1450-1475 ...)")(
+      "script", po::value(&w.script), "CSV: the witness's numeral script")(
+      "kind", po::value(&w.kind), "CSV: manuscript, print or modern-edition")(
+      "title", po::value(&h.table_title), "CSV: the table's title")(
+      "table-kind", po::value(&h.kind), "CSV: what the table tabulates (free text)")(
+      "folios", po::value(&h.folios), "CSV: the folios of the table in the witness")(
+      "hand", po::value(&h.hand), "CSV: the hand")(
+      "step", po::value(&o.step), "CSV: the argument's step, or 'list' (taken as written)")(
+      "start", po::value(&o.start), "CSV: the argument's first value")(
+      "places", po::value(&o.places)->composing(), "CSV: N (every value column) or COLUMN=N")(
+      "delimiter", po::value(&o.delimiter), "CSV: ',', ';' or tab (default: read off the header)")(
+      "join", po::value(&o.joins)->composing(), "CSV: NAME=D+M[+S] joins columns into one value")(
+      "keep-columns", po::bool_switch(&o.sheet.keep_columns),
+      "CSV: keep degree/minute/second columns apart");
+}
+
+void AddLimitOptions(po::options_description& options, ImportOptions& o) {
+  options.add_options()("max-file-mb", po::value(&o.max_file_mb),
+                        "largest file read, in MB (default 512)")(
+      "max-line-kb", po::value(&o.max_line_kb), "longest line read, in KB (default 1024)")(
+      "scripts", po::value(&o.scripts), "folder of the numeral scripts witnesses may name")(
+      "wait", po::value(&o.wait), "seconds to wait for another process writing (default 5)");
+}
+
 }  // namespace
 
 int RunImport(const std::vector<std::string>& args, Io& io) {
@@ -162,23 +251,21 @@ int RunImport(const std::vector<std::string>& args, Io& io) {
   AddDbOption(options, o.db);
   AddFormatOption(options, o.format, {"text", "csv", "json"});
   options.add_options()("file", po::value(&o.files)->composing(),
-                        "transcription file(s) (also positional)")(
-      "csv", po::value(&o.csv), "a CSV sheet holding one witness's table")(
-      "table", po::value(&o.table), "CSV: the table id")("witness", po::value(&o.witness),
-                                                         "CSV: the witness's siglum")(
-      "work", po::value(&o.work), "CSV: the work id (default: the table id)")(
-      "script", po::value(&o.script), "CSV: the witness's numeral script")(
-      "places", po::value(&o.places)->composing(), "CSV: N (every value column) or COLUMN=N");
+                        "transcription file(s) (also positional)");
+  AddSheetOptions(options, o);
+  AddLimitOptions(options, o);
   po::positional_options_description positional;
   positional.add("file", -1);
   po::variables_map vm;
   if (ParseOptions(FindCommand("import"), args, options, vm, io, &positional)) return kOk;
   CheckChoice("--format", o.format, {"text", "csv", "json"});
+  if (!o.wait.empty()) SetWait(o.wait);
 
-  const TranscriptionFile input = ReadAll(o);
-  for (const auto& w : input.warnings) io.err << w.Render() << "\n";
+  TranscriptionFile input = ReadAll(o);
   store::Database db(o.db);
   const store::ImportResult result = store::Import(db, input.tables);
+  for (const auto& w : result.warnings) input.warnings.push_back(w);
+  for (const auto& w : input.warnings) io.err << w.Render() << "\n";
   const Format format = ParseFormat(o.format);
   if (format == Format::kJson) {
     PrintJson(o, input, result, io);

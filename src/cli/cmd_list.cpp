@@ -73,15 +73,17 @@ Listing Tables(store::Database& db, const Opt& work) {
 
 Listing Witnesses(store::Database& db, const Opt& table) {
   Listing l;
-  l.tab.headers = {"siglum", "library", "shelfmark", "date", "script", "tables", "cells"};
-  l.tab.right_aligned = {false, false, false, false, false, true, true};
+  l.tab.headers = {"siglum", "library", "shelfmark", "date", "kind", "script", "tables", "cells"};
+  l.tab.right_aligned = {false, false, false, false, false, false, true, true};
   for (const auto& s : store::ListWitnesses(db, table)) {
     const auto& w = s.witness;
-    l.tab.Add({w.siglum, w.library, w.shelfmark, w.date, w.script, N(s.tables), N(s.cells)});
+    l.tab.Add({w.siglum, w.library, w.shelfmark, w.date, ToString(w.Kind()), w.script, N(s.tables),
+               N(s.cells)});
     l.items.push_back({{"siglum", w.siglum},
                        {"library", w.library},
                        {"shelfmark", w.shelfmark},
                        {"date", w.date},
+                       {"kind", ToString(w.Kind())},
                        {"script", w.script},
                        {"tables", s.tables},
                        {"cells", s.cells}});

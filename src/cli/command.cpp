@@ -2,6 +2,7 @@
 
 #include <filesystem>
 #include <iostream>
+#include <stdexcept>
 
 #include "store/database.hpp"
 #include "support/input_error.hpp"
@@ -18,6 +19,8 @@ void PrintOverview(std::ostream& out) {
     name.resize(12, ' ');
     out << "  " << name << c.summary << "\n";
   }
+  out << "\nglobal option (before the command): --wait SECONDS  how long to wait for another\n"
+         "  process writing to the database (default 5)\n";
   out << "\nexit codes: 0 success, 1 success with findings to look at,\n"
          "            2 bad input or usage (nothing written), 3 database or internal error\n";
 }
@@ -87,6 +90,26 @@ store::Database OpenEdition(const std::string& path) {
   return store::Database(path);
 }
 
+void SetWait(const std::string& seconds) {
+  std::size_t used = 0;
+  double s = -1;
+  try {
+    s = std::stod(seconds, &used);
+  } catch (const std::invalid_argument&) {
+    used = 0;
+  } catch (const std::out_of_range&) {
+    used = 0;
+  }
+  constexpr double kMaxWait = 86400;  // a day: beyond that a wait is a mistake (judgement)
+  if (seconds.empty() || used != seconds.size() || !(s >= 0 && s <= kMaxWait)) {
+    throw InputError::ForOption(
+        "--wait", ExpectedFound("seconds from 0 to 86400 (how long to wait for another process "
+                                "writing to the database)",
+                                "'" + seconds + "'"));
+  }
+  store::SetBusyTimeout(static_cast<int>(s * 1000));
+}
+
 Format ParseFormat(const std::string& value) {
   if (value == "csv") return Format::kCsv;
   if (value == "json") return Format::kJson;
@@ -103,6 +126,11 @@ int Dispatch(const std::vector<std::string>& args, Io& io) {
     return kOk;
   }
   try {
+    if (args[0] == "--wait") {  // global: apograph --wait SECONDS COMMAND ...
+      SetWait(args.size() > 1 ? args[1] : "");
+      if (args.size() < 3) throw InputError::ForOption("--wait", "expected a command after it");
+      return Dispatch(std::vector<std::string>(args.begin() + 2, args.end()), io);
+    }
     const Command& command = FindCommand(args[0]);
     return command.run(std::vector<std::string>(args.begin() + 1, args.end()), io);
   } catch (const InputError& e) {

@@ -71,6 +71,10 @@ void CheckChoice(const std::string& option, const std::string& value,
                  const std::vector<std::string>& allowed);
 Format ParseFormat(const std::string& value);
 
+/// Sets how long every database opened from now on waits for another
+/// process's lock (`--wait SECONDS`, 0 to 86400); InputError naming --wait.
+void SetWait(const std::string& seconds);
+
 /// Finds a command by name (for handlers that print their own usage).
 const Command& FindCommand(const std::string& name);
 

@@ -24,8 +24,8 @@ extern const char kReportUsage[];
 const std::vector<Command>& Commands() {
   static const std::vector<Command> kCommands = {
       {"init", "Create or migrate an edition database", kInitUsage, RunInit},
-      {"import", "Import a transcription file or a CSV sheet into the database", kImportUsage,
-       RunImport},
+      {"import", "Import transcriptions and CSV sheets (one or many) into the database",
+       kImportUsage, RunImport},
       {"export", "Write a witness's table back as a transcription, CSV or JSON", kExportUsage,
        RunExport},
       {"list", "List works, tables and witnesses with cell counts", kListUsage, RunList},

@@ -52,9 +52,13 @@ UnitsKey Key(const Sexagesimal& v, int places) { return {v.Extended(places).unit
 
 Sexagesimal FromKey(const UnitsKey& k) { return Sexagesimal::FromUnits(k.first, k.second); }
 
-// Start and step from declarations, else from what the witnesses show.
+// Start and step from declarations, else from what the witnesses show;
+// none for arguments declared as a list (`step=list`: taken as written).
 std::optional<std::pair<Sexagesimal, Sexagesimal>> StartAndStep(
     const std::vector<const Transcription*>& ws, int places) {
+  for (const auto* w : ws) {
+    if (w->argument.listed) return std::nullopt;
+  }
   std::map<std::pair<UnitsKey, UnitsKey>, int> declared;
   for (const auto* w : ws) {
     if (w->argument.start && w->argument.step && !w->argument.step->is_zero()) {
@@ -117,8 +121,20 @@ std::vector<Sexagesimal> InferGrid(const std::vector<const Transcription*>& ws) 
       if (it != seen.end() && it->second >= quorum) quorum_last = k;
     }
     if (quorum_last >= 0) last = quorum_last;
-    for (std::int64_t k = 0; k <= last; ++k) grid.push_back(start + step * k);
-    return grid;
+    std::size_t unread = 0;
+    for (std::int64_t k = 0; k <= last; ++k) {
+      grid.push_back(start + step * k);
+      unread += !seen.count(Key(grid.back(), places));
+    }
+    // A step the witnesses seem to show but that leaves a quarter of its
+    // rows unread by any of them is not the table's: irregular arguments
+    // (1, 2, ... 9, 10, 20, ... days) are taken as written instead of
+    // inventing the rows between them (judgement: a real gap of that size
+    // in every witness at once would be a lacuna the editor sees anyway).
+    const bool declared =
+        std::any_of(ws.begin(), ws.end(), [](const Transcription* w) { return w->argument.step; });
+    if (declared || unread * 4 <= grid.size()) return grid;
+    grid.clear();
   }
   for (const auto& [k, n] : seen) {
     if (n >= quorum) grid.push_back(FromKey(k));

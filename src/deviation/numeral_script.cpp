@@ -6,6 +6,7 @@
 #include <map>
 #include <sstream>
 
+#include "edition/names.hpp"
 #include "support/data_dir.hpp"
 #include "support/input_error.hpp"
 
@@ -240,6 +241,9 @@ std::string DefaultScriptDir() {
 
 NumeralScript FindNumeralScript(const std::string& name, const std::string& dir) {
   const std::string n = name.empty() ? "hindu-arabic" : name;
+  if (!IsSafeId(n)) {  // a database written before import checked names: never leave `dir`
+    throw InputError::ForFile(dir, "expected a numeral script name, found " + QuotedText(n));
+  }
   const std::string path = dir + "/" + n + ".script";
   if (!std::ifstream(path)) {
     throw InputError::ForFile(

@@ -44,6 +44,31 @@ std::optional<Addition> AdditionFromString(const std::string& text) {
   return std::nullopt;
 }
 
+const char* ToString(WitnessKind kind) {
+  switch (kind) {
+    case WitnessKind::kManuscript:
+      return "manuscript";
+    case WitnessKind::kPrint:
+      return "print";
+    case WitnessKind::kModernEdition:
+      return "modern-edition";
+  }
+  return "manuscript";
+}
+
+std::optional<WitnessKind> WitnessKindFromString(const std::string& text) {
+  for (auto k : {WitnessKind::kManuscript, WitnessKind::kPrint, WitnessKind::kModernEdition}) {
+    if (text == ToString(k)) return k;
+  }
+  return std::nullopt;
+}
+
+WitnessKind WitnessInfo::Kind() const {
+  return WitnessKindFromString(kind).value_or(WitnessKind::kManuscript);
+}
+
+std::optional<YearRange> WitnessInfo::Dates() const { return ParseWitnessDate(date); }
+
 bool Cell::SameContent(const Cell& o) const {
   const bool same_value =
       value.has_value() == o.value.has_value() && (!value || value->Identical(*o.value));

@@ -11,6 +11,7 @@
 #include <string>
 #include <vector>
 
+#include "edition/witness_date.hpp"
 #include "number/sexagesimal.hpp"
 #include "support/input_error.hpp"
 
@@ -51,6 +52,9 @@ struct Cell {
   bool SameContent(const Cell& other) const;
 };
 
+/// How `@argument ... step=list` is written (see ArgumentSpec::listed).
+inline constexpr const char* kListedStep = "list";
+
 /// The argument of a table (the row argument, or the column argument of a
 /// double-argument table).
 struct ArgumentSpec {
@@ -59,6 +63,10 @@ struct ArgumentSpec {
   int places = 0;
   std::optional<Sexagesimal> start;  ///< expected first argument
   std::optional<Sexagesimal> step;   ///< expected step between rows
+  /// Declared as an explicit list (`step=list`): irregular arguments (a mean
+  /// motion by 1, 2, ... 10, 20, ... days) taken as written; no step is
+  /// inferred from them and no row is expected between them.
+  bool listed = false;
   bool operator==(const ArgumentSpec&) const = default;
 };
 
@@ -88,14 +96,30 @@ struct WorkInfo {
   bool operator==(const WorkInfo&) const = default;
 };
 
+/// What kind of object a witness is: it decides which slips are likely (a
+/// scribe's, a typesetter's) and whether it may have been recomputed.
+enum class WitnessKind : std::uint8_t {
+  kManuscript,     ///< copied by hand (the default)
+  kPrint,          ///< an early printed edition
+  kModernEdition,  ///< a modern (often recomputed) edition
+};
+const char* ToString(WitnessKind kind);  ///< "manuscript", "print", "modern-edition"
+std::optional<WitnessKind> WitnessKindFromString(const std::string& text);
+
 struct WitnessInfo {
   std::string siglum;
   std::string library;
   std::string shelfmark;
-  std::string date;
+  std::string date;    ///< as the catalogue writes it ("c. 1420"); see Dates()
   std::string script;  ///< numeral script, by the name of its file under corpora/scripts
   std::string note;
+  std::string kind;  ///< "manuscript", "print" or "modern-edition"; empty: not declared
   bool operator==(const WitnessInfo&) const = default;
+
+  /// The declared kind, a manuscript when none was declared.
+  WitnessKind Kind() const;
+  /// The years `date` allows, or nullopt when it is empty or not understood.
+  std::optional<YearRange> Dates() const;
 };
 
 /// One witness's copy of one table.

@@ -2,16 +2,37 @@
 
 #include <sqlite3.h>
 
+#include <algorithm>
+#include <atomic>
+
 #include "store/schema.hpp"
 
 namespace apograph::store {
 namespace {
 
+std::atomic<int> busy_timeout_ms{5000};
+
+/// SQLite's message, or for a lock held by someone else what to do about it.
+std::string Reason(sqlite3* db, int code) {
+  if (!db) return "out of memory";
+  const int primary = code & 0xFF;
+  if (primary == SQLITE_BUSY || primary == SQLITE_LOCKED) {
+    const int ms = busy_timeout_ms.load();
+    return std::string(sqlite3_errmsg(db)) + ": another process is using the database (" +
+           "waited " + std::to_string(ms / 1000) + "." + std::to_string(ms % 1000 / 100) +
+           " s); retry when it has finished, or wait longer with --wait SECONDS";
+  }
+  return sqlite3_errmsg(db);
+}
+
 [[noreturn]] void Fail(sqlite3* db, const std::string& what) {
-  throw StoreError(what + ": " + (db ? sqlite3_errmsg(db) : "out of memory"));
+  throw StoreError(what + ": " + Reason(db, db ? sqlite3_extended_errcode(db) : SQLITE_NOMEM));
 }
 
 }  // namespace
+
+void SetBusyTimeout(int milliseconds) { busy_timeout_ms.store(std::max(0, milliseconds)); }
+int BusyTimeout() { return busy_timeout_ms.load(); }
 
 Statement::Statement(sqlite3* db, std::string_view sql) : db_(db) {
   if (sqlite3_prepare_v2(db, sql.data(), static_cast<int>(sql.size()), &stmt_, nullptr) !=
@@ -66,7 +87,7 @@ void Statement::Run() {
 void Statement::RunKeepBindings() {
   const int rc = sqlite3_step(stmt_);
   if (rc != SQLITE_DONE && rc != SQLITE_ROW) {
-    std::string msg = sqlite3_errmsg(db_);
+    std::string msg = Reason(db_, sqlite3_extended_errcode(db_));
     sqlite3_reset(stmt_);
     throw StoreError("running statement: " + msg);
   }
@@ -122,7 +143,7 @@ Database::Database(const std::string& path) : path_(path) {
 }
 
 void Database::Configure() {
-  sqlite3_busy_timeout(db_, 5000);
+  sqlite3_busy_timeout(db_, busy_timeout_ms.load());
   Execute("PRAGMA foreign_keys = ON");
   // Up to 32 MiB of page cache (memory only, safe): a large import then
   // keeps its working pages instead of spilling them mid-transaction. The
@@ -143,7 +164,10 @@ Statement Database::Prepare(std::string_view sql) { return Statement(db_, sql); 
 void Database::Execute(std::string_view sql) {
   char* err = nullptr;
   if (sqlite3_exec(db_, std::string(sql).c_str(), nullptr, nullptr, &err) != SQLITE_OK) {
-    std::string msg = err ? err : "unknown error";
+    const int primary = sqlite3_extended_errcode(db_) & 0xFF;
+    std::string msg = primary == SQLITE_BUSY || primary == SQLITE_LOCKED
+                          ? Reason(db_, sqlite3_extended_errcode(db_))
+                          : (err ? err : "unknown error");
     sqlite3_free(err);
     throw StoreError("database " + path_ + ": " + msg);
   }

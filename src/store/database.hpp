@@ -20,6 +20,14 @@ class StoreError : public std::runtime_error {
   using std::runtime_error::runtime_error;
 };
 
+/// How long a connection waits for another process's lock on the file
+/// before it fails (milliseconds). 5,000 unless set, for every Database
+/// opened after the call (`apograph --wait SECONDS`, `import --wait`).
+/// Judgement: long enough for another command's commit, short enough that a
+/// forgotten writer does not hang a script.
+void SetBusyTimeout(int milliseconds);
+int BusyTimeout();
+
 /// One prepared statement; bind by 1-based index, step, read columns.
 class Statement {
  public:

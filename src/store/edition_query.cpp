@@ -44,7 +44,7 @@ void LoadMetadata(Database& db, std::int64_t revision, Transcription& t) {
   auto s = db.Prepare(
       "SELECT t.table_id, t.siglum, r.source_file, r.source_text, r.work_id, r.work_title, "
       "r.work_author, r.table_title, r.table_kind, r.library, r.shelfmark, r.witness_date, "
-      "r.script, r.witness_note, r.folios, r.hand, r.row_count "
+      "r.script, r.witness_note, r.folios, r.hand, r.row_count, r.witness_kind "
       "FROM revision r JOIN transcription t ON t.id = r.transcription_id WHERE r.id = ?1");
   s.Bind(1, revision);
   if (!s.Step()) throw StoreError("revision " + std::to_string(revision) + " vanished");
@@ -63,18 +63,23 @@ void LoadMetadata(Database& db, std::int64_t revision, Transcription& t) {
   t.folios = s.Text(14);
   t.hand = s.Text(15);
   t.rows.reserve(static_cast<std::size_t>(s.Int(16)));
+  t.witness.kind = s.Text(17);
 }
 
 void LoadLayout(Database& db, std::int64_t revision, Transcription& t) {
   auto s = db.Prepare(
-      "SELECT position, name, unit, places, title, arg2, start, step FROM layout_column "
+      "SELECT position, name, unit, places, title, arg2, start, step, listed FROM layout_column "
       "WHERE revision_id = ?1 ORDER BY position");
   s.Bind(1, revision);
   while (s.Step()) {
     const auto position = s.Int(0);
     if (position < 0) {
-      ArgumentSpec a{s.Text(1), s.Text(2), static_cast<int>(s.Int(3)),
-                     ValueFromText(s.OptionalText(6)), ValueFromText(s.OptionalText(7))};
+      ArgumentSpec a{s.Text(1),
+                     s.Text(2),
+                     static_cast<int>(s.Int(3)),
+                     ValueFromText(s.OptionalText(6)),
+                     ValueFromText(s.OptionalText(7)),
+                     s.Int(8) != 0};
       (position == -1 ? t.argument : t.argument2.emplace()) = std::move(a);
     } else {
       t.columns.push_back({s.Text(1), s.Text(2), static_cast<int>(s.Int(3)), s.Text(4),
@@ -192,13 +197,13 @@ std::vector<TableSummary> ListTables(Database& db, const std::optional<std::stri
 std::vector<WitnessSummary> ListWitnesses(Database& db,
                                           const std::optional<std::string>& table_id) {
   auto s = db.Prepare(
-      "SELECT w.siglum, w.library, w.shelfmark, w.date, w.script, w.tables, w.cells "
+      "SELECT w.siglum, w.library, w.shelfmark, w.date, w.script, w.tables, w.cells, w.kind "
       "FROM witness_summary w WHERE ?1 IS NULL OR EXISTS (SELECT 1 FROM transcription_summary x "
       "WHERE x.siglum = w.siglum AND x.table_id = ?1) ORDER BY w.siglum");
   s.Bind(1, table_id);
   std::vector<WitnessSummary> out;
   while (s.Step()) {
-    WitnessInfo w{s.Text(0), s.Text(1), s.Text(2), s.Text(3), s.Text(4), ""};
+    WitnessInfo w{s.Text(0), s.Text(1), s.Text(2), s.Text(3), s.Text(4), "", s.Text(7)};
     out.push_back({std::move(w), static_cast<int>(s.Int(5)), s.Int(6)});
   }
   return out;

@@ -3,6 +3,7 @@
 #include <map>
 #include <utility>
 
+#include "edition/names.hpp"
 #include "store/cell_writer.hpp"
 
 namespace apograph::store {
@@ -18,6 +19,14 @@ InputError ErrorAt(const Transcription& t, int line, const std::string& message)
 
 void CheckName(const Transcription& t, const std::string& what, const std::string& value) {
   if (value.empty()) throw ErrorAt(t, 0, "expected " + what + ", found an empty name");
+}
+
+/// Ids become parts of file names later (reports, apparatus): see names.hpp.
+void CheckId(const Transcription& t, const std::string& what, const std::string& value) {
+  CheckName(t, what, value);
+  if (!IsSafeId(value)) {
+    throw ErrorAt(t, 0, "expected " + what + " of " + kSafeIdRule + ", found " + QuotedText(value));
+  }
 }
 
 void CheckPlaces(const Transcription& t, const std::string& name, int places) {
@@ -43,9 +52,12 @@ void CheckCell(const Transcription& t, const Cell& c) {
 /// What the database cannot check by itself (it would report a constraint
 /// error without a position): names, places, cells per row.
 void Validate(const Transcription& t) {
-  CheckName(t, "a work id", t.work.id);
-  CheckName(t, "a table id", t.table_id);
-  CheckName(t, "a witness siglum", t.witness.siglum);
+  CheckId(t, "a work id", t.work.id);
+  CheckId(t, "a table id", t.table_id);
+  CheckId(t, "a witness siglum", t.witness.siglum);
+  if (!t.witness.script.empty() && !IsSafeId(t.witness.script)) {
+    throw ErrorAt(t, 0, "expected a numeral script name, found " + QuotedText(t.witness.script));
+  }
   CheckName(t, "an argument name", t.argument.name);
   CheckPlaces(t, t.argument.name, t.argument.places);
   if (t.argument2) {
@@ -68,6 +80,28 @@ void Validate(const Transcription& t) {
   }
 }
 
+/// The descriptive attributes shared by every transcription of a work,
+/// table or witness (folios and hand belong to one copy and are not here).
+struct Description {
+  WorkInfo work;
+  std::string table_title;
+  std::string table_kind;
+  WitnessInfo witness;
+
+  explicit Description(const Transcription& t)
+      : work(t.work), table_title(t.table_title), table_kind(t.kind), witness(t.witness) {}
+  bool Matches(const Transcription& t) const {
+    return work == t.work && table_title == t.table_title && table_kind == t.kind &&
+           witness == t.witness;
+  }
+  void CopyTo(Transcription& t) const {
+    t.work = work;
+    t.table_title = table_title;
+    t.kind = table_kind;
+    t.witness = witness;
+  }
+};
+
 /// The prepared statements of one import, reused for every table and cell.
 class Writer {
  public:
@@ -75,15 +109,18 @@ class Writer {
   TableImport Write(const Transcription& t, ImportResult& result);
 
  private:
-  void EnsureDescriptions(const Transcription& t);
+  Description Reconcile(const Transcription& t, std::vector<Diagnostic>& warnings);
+  void EnsureDescriptions(const Transcription& t, const Description& d);
   std::int64_t EnsureTranscription(const Transcription& t);
-  std::int64_t InsertRevision(const Transcription& t, std::int64_t transcription, int number);
+  std::int64_t InsertRevision(const Transcription& t, const Description& d,
+                              std::int64_t transcription, int number);
   void InsertLayout(const Transcription& t, std::int64_t revision);
   void InsertArgument(std::int64_t revision, int position, const ArgumentSpec& a);
 
   Database& db_;
   Statement work_, table_work_, table_, witness_, transcription_, transcription_id_;
   Statement current_, revision_, layout_;
+  Statement stored_work_, stored_table_, stored_witness_;
   CellWriter cells_;
 };
 
@@ -100,14 +137,15 @@ Writer::Writer(Database& db)
                      "title = CASE WHEN excluded.title <> '' THEN excluded.title ELSE title END, "
                      "kind = CASE WHEN excluded.kind <> '' THEN excluded.kind ELSE kind END")),
       witness_(db.Prepare(
-          "INSERT INTO witness(siglum, library, shelfmark, date, script, note) "
-          "VALUES(?1, ?2, ?3, ?4, ?5, ?6) ON CONFLICT(siglum) DO UPDATE SET "
+          "INSERT INTO witness(siglum, library, shelfmark, date, script, note, kind) "
+          "VALUES(?1, ?2, ?3, ?4, ?5, ?6, ?7) ON CONFLICT(siglum) DO UPDATE SET "
           "library = CASE WHEN excluded.library <> '' THEN excluded.library ELSE library END, "
           "shelfmark = CASE WHEN excluded.shelfmark <> '' THEN excluded.shelfmark ELSE shelfmark "
           "END, "
           "date = CASE WHEN excluded.date <> '' THEN excluded.date ELSE date END, "
           "script = CASE WHEN excluded.script <> '' THEN excluded.script ELSE script END, "
-          "note = CASE WHEN excluded.note <> '' THEN excluded.note ELSE note END")),
+          "note = CASE WHEN excluded.note <> '' THEN excluded.note ELSE note END, "
+          "kind = CASE WHEN excluded.kind <> '' THEN excluded.kind ELSE kind END")),
       transcription_(
           db.Prepare("INSERT OR IGNORE INTO transcription(table_id, siglum) VALUES(?1, ?2)")),
       transcription_id_(
@@ -116,16 +154,72 @@ Writer::Writer(Database& db)
       revision_(db.Prepare(
           "INSERT INTO revision(transcription_id, number, source_file, source_text, row_count, "
           "cell_count, work_id, work_title, work_author, table_title, table_kind, library, "
-          "shelfmark, witness_date, script, witness_note, folios, hand) "
+          "shelfmark, witness_date, script, witness_note, folios, hand, witness_kind) "
           "VALUES(?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9, ?10, ?11, ?12, ?13, ?14, ?15, ?16, ?17, "
-          "?18)")),
+          "?18, ?19)")),
       layout_(db.Prepare(
           "INSERT INTO layout_column(revision_id, position, name, unit, places, title, arg2, "
-          "start, step) VALUES(?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9)")),
+          "start, step, listed) VALUES(?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9, ?10)")),
+      stored_work_(db.Prepare("SELECT title, author FROM work WHERE id = ?1")),
+      stored_table_(db.Prepare("SELECT title, kind FROM edition_table WHERE id = ?1")),
+      stored_witness_(db.Prepare(
+          "SELECT library, shelfmark, date, script, note, kind FROM witness WHERE siglum = ?1")),
       cells_(db) {}
 
-void Writer::EnsureDescriptions(const Transcription& t) {
-  work_.Bind(1, t.work.id).Bind(2, t.work.title).Bind(3, t.work.author).Run();
+namespace {
+
+/// One attribute: an empty imported value takes the stored one; a different
+/// non-empty one is a change, said as a warning.
+void Merge(const Transcription& t, const std::string& owner, const char* name,
+           std::string& imported, const std::string& stored, std::vector<Diagnostic>& warnings) {
+  if (imported.empty()) {
+    imported = stored;
+  } else if (!stored.empty() && stored != imported) {
+    Diagnostic d;
+    d.severity = Severity::kWarning;
+    d.where.file = t.source_file;
+    d.message = owner + ": " + name + " changed from " + QuotedText(stored) + " to " +
+                QuotedText(imported) + " (earlier revisions keep the earlier value)";
+    warnings.push_back(std::move(d));
+  }
+}
+
+}  // namespace
+
+Description Writer::Reconcile(const Transcription& t, std::vector<Diagnostic>& warnings) {
+  Description d(t);
+  stored_work_.Bind(1, t.work.id);
+  if (stored_work_.Step()) {
+    const std::string owner = "work '" + t.work.id + "'";
+    Merge(t, owner, "title", d.work.title, stored_work_.Text(0), warnings);
+    Merge(t, owner, "author", d.work.author, stored_work_.Text(1), warnings);
+  }
+  stored_work_.Reset();
+  stored_table_.Bind(1, t.table_id);
+  if (stored_table_.Step()) {
+    const std::string owner = "table '" + t.table_id + "'";
+    Merge(t, owner, "title", d.table_title, stored_table_.Text(0), warnings);
+    Merge(t, owner, "kind", d.table_kind, stored_table_.Text(1), warnings);
+  }
+  stored_table_.Reset();
+  auto& s = stored_witness_;
+  s.Bind(1, t.witness.siglum);
+  if (s.Step()) {
+    const std::string owner = "witness '" + t.witness.siglum + "'";
+    WitnessInfo& w = d.witness;
+    Merge(t, owner, "library", w.library, s.Text(0), warnings);
+    Merge(t, owner, "shelfmark", w.shelfmark, s.Text(1), warnings);
+    Merge(t, owner, "date", w.date, s.Text(2), warnings);
+    Merge(t, owner, "script", w.script, s.Text(3), warnings);
+    Merge(t, owner, "note", w.note, s.Text(4), warnings);
+    Merge(t, owner, "kind", w.kind, s.Text(5), warnings);
+  }
+  s.Reset();
+  return d;
+}
+
+void Writer::EnsureDescriptions(const Transcription& t, const Description& d) {
+  work_.Bind(1, t.work.id).Bind(2, d.work.title).Bind(3, d.work.author).Run();
   table_work_.Bind(1, t.table_id);
   if (table_work_.Step() && table_work_.Text(0) != t.work.id) {
     const std::string owner = table_work_.Text(0);
@@ -135,10 +229,10 @@ void Writer::EnsureDescriptions(const Transcription& t) {
                       "' as in the database, found it in work '" + t.work.id + "'");
   }
   table_work_.Reset();
-  table_.Bind(1, t.table_id).Bind(2, t.work.id).Bind(3, t.table_title).Bind(4, t.kind).Run();
-  const auto& w = t.witness;
+  table_.Bind(1, t.table_id).Bind(2, t.work.id).Bind(3, d.table_title).Bind(4, d.table_kind).Run();
+  const auto& w = d.witness;
   witness_.Bind(1, w.siglum).Bind(2, w.library).Bind(3, w.shelfmark).Bind(4, w.date);
-  witness_.Bind(5, w.script).Bind(6, w.note).Run();
+  witness_.Bind(5, w.script).Bind(6, w.note).Bind(7, w.kind).Run();
 }
 
 std::int64_t Writer::EnsureTranscription(const Transcription& t) {
@@ -150,16 +244,17 @@ std::int64_t Writer::EnsureTranscription(const Transcription& t) {
   return id;
 }
 
-std::int64_t Writer::InsertRevision(const Transcription& t, std::int64_t transcription,
-                                    int number) {
+std::int64_t Writer::InsertRevision(const Transcription& t, const Description& d,
+                                    std::int64_t transcription, int number) {
   auto& s = revision_;
+  const WitnessInfo& w = d.witness;
   s.Bind(1, transcription).Bind(2, number).Bind(3, t.source_file).Bind(4, t.source_text);
   s.Bind(5, static_cast<std::int64_t>(t.rows.size()));
   s.Bind(6, static_cast<std::int64_t>(t.CellCount()));
-  s.Bind(7, t.work.id).Bind(8, t.work.title).Bind(9, t.work.author);
-  s.Bind(10, t.table_title).Bind(11, t.kind).Bind(12, t.witness.library);
-  s.Bind(13, t.witness.shelfmark).Bind(14, t.witness.date).Bind(15, t.witness.script);
-  s.Bind(16, t.witness.note).Bind(17, t.folios).Bind(18, t.hand).Run();
+  s.Bind(7, t.work.id).Bind(8, d.work.title).Bind(9, d.work.author);
+  s.Bind(10, d.table_title).Bind(11, d.table_kind).Bind(12, w.library);
+  s.Bind(13, w.shelfmark).Bind(14, w.date).Bind(15, w.script);
+  s.Bind(16, w.note).Bind(17, t.folios).Bind(18, t.hand).Bind(19, w.kind).Run();
   return db_.LastInsertId();
 }
 
@@ -174,7 +269,7 @@ void Writer::InsertArgument(std::int64_t revision, int position, const ArgumentS
     layout_.Bind(9, a.step->ToString());
   else
     layout_.BindNull(9);
-  layout_.Run();
+  layout_.Bind(10, a.listed ? 1 : 0).Run();
 }
 
 void Writer::InsertLayout(const Transcription& t, std::int64_t revision) {
@@ -188,12 +283,22 @@ void Writer::InsertLayout(const Transcription& t, std::int64_t revision) {
       layout_.Bind(7, c.arg2->ToString());
     else
       layout_.BindNull(7);
-    layout_.BindNull(8).BindNull(9).Run();
+    layout_.BindNull(8).BindNull(9).Bind(10, 0).Run();
   }
 }
 
+/// True when the current revision holds `t` with the description `d`.
+bool Unchanged(Database& db, const Transcription& t, const Description& d, int current) {
+  if (current == 0) return false;
+  Transcription stored = Load(db, t.table_id, t.witness.siglum, current);
+  if (!d.Matches(stored)) return false;
+  Description(t).CopyTo(stored);  // the rest compares with t as imported
+  return stored.SameContent(t);
+}
+
 TableImport Writer::Write(const Transcription& t, ImportResult& result) {
-  EnsureDescriptions(t);
+  const Description d = Reconcile(t, result.warnings);
+  EnsureDescriptions(t, d);
   const std::int64_t transcription = EnsureTranscription(t);
   current_.Bind(1, transcription);
   current_.Step();
@@ -202,9 +307,9 @@ TableImport Writer::Write(const Transcription& t, ImportResult& result) {
 
   TableImport out{t.table_id, t.witness.siglum, t.source_file, current,
                   false,      t.rows.size(),    t.CellCount()};
-  if (current > 0 && Load(db_, t.table_id, t.witness.siglum, current).SameContent(t)) return out;
+  if (Unchanged(db_, t, d, current)) return out;
 
-  const std::int64_t revision = InsertRevision(t, transcription, current + 1);
+  const std::int64_t revision = InsertRevision(t, d, transcription, current + 1);
   InsertLayout(t, revision);
   const std::int64_t before = cells_.written();
   for (std::size_t r = 0; r < t.rows.size(); ++r) cells_.Add(revision, t, r);

@@ -35,6 +35,10 @@ struct TableImport {
 struct ImportResult {
   std::vector<TableImport> tables;  ///< in the order given
   std::size_t cells_written = 0;    ///< value and argument cells actually inserted
+  /// A work's, table's or witness's attribute that this import changed
+  /// (library, date, script, title ...): said once per change, naming the
+  /// file that brought it.
+  std::vector<Diagnostic> warnings;
 };
 
 /// Imports every transcription in ONE transaction: on any error (an
@@ -42,7 +46,11 @@ struct ImportResult {
 /// nothing is written. Checks that each row has one cell per column, that a
 /// table keeps its work, and that no (table, witness) pair occurs twice in
 /// one import. Descriptive rows (work, table, witness) take the latest
-/// non-empty values.
+/// non-empty values: an attribute not given (empty) keeps the value in the
+/// database, and the transcription's new revision records it too (so a CSV
+/// sheet imported again without its witness's date is unchanged); a value
+/// that differs from the one stored replaces it with a warning in
+/// ImportResult::warnings, and the transcription gets a new revision.
 ImportResult Import(Database& db, const std::vector<Transcription>& tables);
 
 /// Reconstructs one witness's copy of a table: the current revision, or

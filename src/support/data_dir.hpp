@@ -3,6 +3,7 @@
 /// is found.
 
 #include <string>
+#include <vector>
 
 namespace apograph {
 
@@ -10,5 +11,13 @@ namespace apograph {
 /// Defined in one translation unit only, so that the rest of the library
 /// compiles identically wherever the source tree sits.
 std::string DataDir();
+
+/// The folder of the numeral scripts: `APOGRAPH_SCRIPTS` when set, else
+/// `DataDir()/scripts`.
+std::string ScriptDir();
+
+/// The names of the numeral scripts in `dir` (files NAME.script), sorted;
+/// what a witness may declare as `script=`.
+std::vector<std::string> ScriptNames(const std::string& dir = ScriptDir());
 
 }  // namespace apograph

@@ -10,8 +10,10 @@
 /// Lines and columns are 1-based; columns count characters (UTF-8 code
 /// points), so the caret stands under the right symbol.
 
+#include <cstddef>
 #include <stdexcept>
 #include <string>
+#include <string_view>
 #include <vector>
 
 namespace apograph {
@@ -59,5 +61,16 @@ class InputError : public std::runtime_error {
 /// "expected X, found Y" with Y quoted unless it is a description such as
 /// "end of line".
 std::string ExpectedFound(const std::string& expected, const std::string& found);
+
+/// Longest line echoed under a message, in bytes: a longer one is shown as
+/// a window around the column with "..." for what is left out (judgement:
+/// a terminal line or two; the position is in the headline anyway).
+inline constexpr std::size_t kEchoedLineBytes = 160;
+/// Longest text quoted whole in a message ("found '...'"), in bytes.
+inline constexpr std::size_t kQuotedTextBytes = 60;
+
+/// `'text'`, or its first kQuotedTextBytes bytes (whole UTF-8 sequences)
+/// followed by `...' (N bytes)` when longer.
+std::string QuotedText(std::string_view text);
 
 }  // namespace apograph

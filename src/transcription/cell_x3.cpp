@@ -147,8 +147,8 @@ void AssignColumns(NumberScan& scan, std::string_view text, int places, std::siz
   if (places < 0) {
     Fail(base,
          "expected a number in the trade's notation such as 0;4,10 (places separated by "
-         "blanks need the column's places), found '" +
-             std::string(text) + "'");
+         "blanks need the column's places), found " +
+             QuotedText(text));
   }
   if (scan.count < places + 1) {
     Fail(base, "expected " + std::to_string(places + 1) +
@@ -159,7 +159,7 @@ void AssignColumns(NumberScan& scan, std::string_view text, int places, std::siz
 }
 
 std::string TokenText(std::string_view text, const PlaceToken& token) {
-  return "'" + std::string(text.substr(token.offset, token.digits)) + "'";
+  return QuotedText(text.substr(token.offset, token.digits));
 }
 
 /// Checks every place and builds the exact value.
@@ -195,7 +195,7 @@ ReadingInfo Evaluate(const NumberScan& scan, std::string_view text, std::size_t 
     units = (i == 0 ? 0 : units * 60) + static_cast<Sexagesimal::Units>(token.value);
     if (!token.fraction && units >= Sexagesimal::kIntegerLimit) {
       Fail(base + scan.places[0].offset,
-           "expected an integer part below 10^12, found '" + std::string(text) + "'");
+           "expected an integer part below 10^12, found " + QuotedText(text));
     }
   }
   if (unknown) {
@@ -308,7 +308,7 @@ void ParseMark(std::string_view line, std::size_t& pos, int places, Cell& cell) 
 }  // namespace
 
 ReadingInfo ParseCell(std::string_view line, std::size_t& pos, int places, Cell& cell,
-                      std::size_t& reading_offset) {
+                      std::size_t& reading_offset, bool argument) {
   SkipBlanks(line, pos);
   const std::size_t start = pos;
   const std::size_t end = CellEnd(line, pos);
@@ -319,7 +319,8 @@ ReadingInfo ParseCell(std::string_view line, std::size_t& pos, int places, Cell&
                     FoundChar(line, start));
   }
   const std::string_view text = line.substr(start, last - start);
-  ReadingInfo info = ParseReading(text, places, start);
+  ReadingInfo info =
+      argument ? ParseArgumentReading(text, places, start) : ParseReading(text, places, start);
   cell.raw.assign(text.data(), text.size());
   cell.state = info.state;
   cell.value = info.value;

@@ -12,6 +12,8 @@
 #include <iterator>
 #include <unordered_map>
 
+#include "edition/names.hpp"
+#include "support/data_dir.hpp"
 #include "transcription/syntax.hpp"
 
 namespace apograph {
@@ -24,7 +26,15 @@ constexpr std::string_view kByteOrderMark = "\xEF\xBB\xBF";
 
 bool IsBlank(char c) { return c == ' ' || c == '\t'; }
 
-std::string Quote(std::string_view s) { return "'" + std::string(s) + "'"; }
+std::string Quote(std::string_view s) { return QuotedText(s); }
+
+/// An argument as written, with its value in the table's notation when it
+/// was written otherwise (`'88.5' (88;30)`).
+std::string ArgumentText(const Cell& a) {
+  std::string out = Quote(a.raw);
+  if (a.value && a.value->ToString() != a.raw) out += " (" + a.value->ToString() + ")";
+  return out;
+}
 
 std::string PlacesWords(int n) {
   return std::to_string(n) + (n == 1 ? " fractional place" : " fractional places");
@@ -41,7 +51,8 @@ struct UnitsHash {
 
 class Parser {
  public:
-  Parser(std::string_view text, const std::string& file) : text_(text), file_(file) {}
+  Parser(std::string_view text, const std::string& file, const ReadOptions& options)
+      : text_(text), file_(file), options_(options) {}
   TranscriptionFile Run();
 
  private:
@@ -61,6 +72,8 @@ class Parser {
   void RequireLayout(const DirectiveAst& d, std::string_view line);
 
   void RequireId(const DirectiveAst& d, std::string_view line, const char* what);
+  void RequireSafeId(const DirectiveAst& d, std::string_view line, const char* what);
+  void CheckScript(const AttributeAst& a, std::string_view line);
   void CheckAttributes(const DirectiveAst& d, std::string_view line,
                        std::initializer_list<std::string_view> allowed);
   int Places(const AttributeAst& a, std::string_view line);
@@ -77,6 +90,7 @@ class Parser {
 
   std::string_view text_;
   const std::string& file_;
+  const ReadOptions& options_;
   int line_no_ = 0;
   std::size_t line_start_ = 0;
   TranscriptionFile out_;
@@ -117,7 +131,7 @@ Diagnostic Parser::Make(Severity severity, int line_no, std::string_view line, s
 }
 
 TranscriptionFile Parser::Run() {
-  CheckText(text_, file_);
+  CheckText(text_, file_, options_.max_line_bytes);
   std::size_t pos = text_.substr(0, 3) == kByteOrderMark ? 3 : 0;
   for (;;) {
     const std::size_t newline = text_.find('\n', pos);
@@ -183,6 +197,19 @@ void Parser::RequireId(const DirectiveAst& d, std::string_view line, const char*
            (d.attributes.empty() ? FoundChar(line, at) : FoundToken(line, at)));
 }
 
+void Parser::RequireSafeId(const DirectiveAst& d, std::string_view line, const char* what) {
+  RequireId(d, line, what);
+  if (!IsSafeId(d.id)) {
+    Fail(line, d.id_offset,
+         std::string("expected ") + what + " of " + kSafeIdRule + ", found " + QuotedText(d.id));
+  }
+}
+
+void Parser::CheckScript(const AttributeAst& a, std::string_view line) {
+  const std::string problem = CheckScriptName(a.value, options_);
+  if (!problem.empty()) Fail(line, a.value_offset, problem);
+}
+
 void Parser::CheckAttributes(const DirectiveAst& d, std::string_view line,
                              std::initializer_list<std::string_view> allowed) {
   for (std::size_t i = 0; i < d.attributes.size(); ++i) {
@@ -229,7 +256,7 @@ Sexagesimal Parser::Number(const AttributeAst& a, std::string_view line) {
 }
 
 void Parser::SetWork(const DirectiveAst& d, std::string_view line) {
-  RequireId(d, line, "a work id");
+  RequireSafeId(d, line, "a work id");
   CheckAttributes(d, line, {"title", "author"});
   work_ = WorkInfo{};
   work_.id = d.id;
@@ -238,16 +265,33 @@ void Parser::SetWork(const DirectiveAst& d, std::string_view line) {
 }
 
 void Parser::SetWitness(const DirectiveAst& d, std::string_view line) {
-  RequireId(d, line, "a siglum");
-  CheckAttributes(d, line, {"library", "shelfmark", "date", "script", "note"});
+  RequireSafeId(d, line, "a siglum");
+  CheckAttributes(d, line, {"library", "shelfmark", "date", "script", "note", "kind"});
   witness_ = WitnessInfo{};
   witness_.siglum = d.id;
   for (const auto& a : d.attributes) {
     if (a.name == "library") witness_.library = a.value;
     if (a.name == "shelfmark") witness_.shelfmark = a.value;
     if (a.name == "date") witness_.date = a.value;
-    if (a.name == "script") witness_.script = a.value;
+    if (a.name == "script") {
+      CheckScript(a, line);
+      witness_.script = a.value;
+    }
     if (a.name == "note") witness_.note = a.value;
+    if (a.name == "kind") {
+      if (!WitnessKindFromString(a.value)) {
+        Fail(line, a.value_offset,
+             "expected kind=manuscript, print or modern-edition, found " + Quote(a.value));
+      }
+      witness_.kind = a.value;
+    }
+    if (a.name == "date" && !a.value.empty() && !ParseWitnessDate(a.value)) {
+      out_.warnings.push_back(Make(Severity::kWarning, line_no_, line, a.value_offset,
+                                   "expected a date such as 1461, c. 1420, 1450-1475 or late 15th "
+                                   "century, found " +
+                                       Quote(a.value) +
+                                       "; kept as written, but no date order is inferred from it"));
+    }
   }
   have_witness_ = true;
 }
@@ -258,7 +302,7 @@ void Parser::OpenTable(const DirectiveAst& d, std::string_view line) {
          std::string("expected ") + (have_work_ ? "@witness" : "@work") +
              " before @table, found '@table'");
   }
-  RequireId(d, line, "a table id");
+  RequireSafeId(d, line, "a table id");
   CheckAttributes(d, line, {"title", "kind", "folios", "hand"});
   table_ = Transcription{};
   table_.work = work_;
@@ -311,7 +355,17 @@ void Parser::SetArgument(const DirectiveAst& d, std::string_view line, bool seco
     if (a.name == "unit") spec.unit = a.value;
     if (a.name == "places") spec.places = Places(a, line);
     if (a.name == "start") spec.start = Number(a, line);
-    if (a.name == "step") spec.step = Number(a, line);
+    if (a.name == "step" && a.value == kListedStep) spec.listed = true;
+    if (a.name == "step" && a.value != kListedStep) spec.step = Number(a, line);
+  }
+  if (spec.listed && spec.start) {
+    for (const auto& a : d.attributes) {
+      if (a.name == "start") {
+        Fail(line, a.name_offset,
+             "expected no start= for arguments declared step=list (they are taken as written), "
+             "found 'start'");
+      }
+    }
   }
   if (second) {
     table_.argument2 = spec;
@@ -429,7 +483,7 @@ void Parser::ParseRowCells(std::string_view line, std::size_t pos, Row& row,
     const int places = is_argument ? table_.argument.places : table_.columns[n - 1].places;
     Cell& cell = is_argument ? row.argument : row.cells.emplace_back();
     std::size_t offset = 0;
-    const ReadingInfo info = ParseCell(line, pos, places, cell, offset);
+    const ReadingInfo info = ParseCell(line, pos, places, cell, offset, is_argument);
     cell.places = places;
     cell.line = line_no_;
     cell.column = columns.At(offset);
@@ -460,7 +514,7 @@ void Parser::CheckArgument(const Row& row, std::string_view line, std::size_t of
   auto [it, inserted] = seen_arguments_.emplace(a.value->units(), line_no_);
   if (!inserted) {
     out_.warnings.push_back(Make(Severity::kWarning, line_no_, line, offset,
-                                 "expected each argument once, found " + Quote(a.raw) +
+                                 "expected each argument once, found " + ArgumentText(a) +
                                      " again (first in line " + std::to_string(it->second) + ")"));
   }
 }
@@ -492,14 +546,14 @@ void Parser::CheckSequence() {
       out_.warnings.push_back(Make(Severity::kWarning, row.line, src.line, src.argument_offset,
                                    "expected argument " + in_use->ToString() +
                                        " (it breaks the sequence of its neighbours), found " +
-                                       Quote(row.argument.raw) + "; the row is taken as argument " +
-                                       in_use->ToString()));
+                                       ArgumentText(row.argument) +
+                                       "; the row is taken as argument " + in_use->ToString()));
     } else if (written && in_use && expected && *in_use != *expected) {
       const std::string why =
           *in_use > *expected ? "a row seems to be missing" : "rows out of order";
       out_.warnings.push_back(Make(Severity::kWarning, row.line, src.line, src.argument_offset,
                                    "expected argument " + expected->ToString() + ", found " +
-                                       Quote(row.argument.raw) + " (" + why + ")"));
+                                       ArgumentText(row.argument) + " (" + why + ")"));
     }
     previous = in_use ? in_use : expected;
   }
@@ -509,34 +563,65 @@ void Parser::CheckSequence() {
 }  // namespace
 }  // namespace transcription
 
-TranscriptionFile ParseTranscription(std::string_view text, const std::string& file_name) {
-  if (text.empty())
-    throw InputError::ForFile(file_name, "expected a transcription, found an empty file");
-  return transcription::Parser(text, file_name).Run();
+std::string CheckScriptName(const std::string& name, const ReadOptions& options) {
+  const std::vector<std::string> found = options.scripts ? *options.scripts : ScriptNames();
+  if (IsSafeId(name) && std::find(found.begin(), found.end(), name) != found.end()) return "";
+  std::string list;
+  for (const auto& s : found) list += (list.empty() ? "" : ", ") + s;
+  return "expected a numeral script (" + (list.empty() ? std::string("none found") : list) +
+         "), found " + QuotedText(name);
 }
 
-TranscriptionFile ReadTranscriptionFile(const std::string& path) {
+TranscriptionFile ParseTranscription(std::string_view text, const std::string& file_name,
+                                     const ReadOptions& options) {
+  if (text.empty()) {
+    Diagnostic d;
+    d.where = {file_name, 1, 1, ""};
+    d.message = "expected a transcription, found an empty file";
+    throw InputError(d);
+  }
+  return transcription::Parser(text, file_name, options).Run();
+}
+
+namespace {
+
+std::string SizeWords(std::size_t bytes) {
+  if (bytes >= (std::size_t{1} << 20) && bytes % (std::size_t{1} << 20) == 0)
+    return std::to_string(bytes >> 20) + " MB";
+  return std::to_string(bytes) + " bytes";
+}
+
+}  // namespace
+
+std::string ReadTextFile(const std::string& path, std::size_t max_bytes, const std::string& what) {
   std::error_code ec;
   if (std::filesystem::is_directory(path, ec)) {
-    throw InputError::ForFile(path, "expected a transcription file, found a directory");
+    throw InputError::ForFile(path, "expected " + what + ", found a directory");
   }
   std::ifstream in(path, std::ios::binary);
   if (!in)
     throw InputError::ForFile(path,
                               "expected a readable file, found none (missing or not permitted)");
+  // Read in chunks up to the limit: a device (/dev/zero) has no size to ask.
   std::string text;
-  in.seekg(0, std::ios::end);
-  const std::streamoff size = in.tellg();
-  in.seekg(0, std::ios::beg);
-  if (size > 0) {
-    text.resize(static_cast<std::size_t>(size));
-    in.read(text.data(), size);
-    text.resize(static_cast<std::size_t>(in.gcount()));
-  } else {
-    text.assign(std::istreambuf_iterator<char>(in), std::istreambuf_iterator<char>());
+  constexpr std::size_t kChunk = std::size_t{1} << 20;
+  while (in) {
+    const std::size_t at = text.size();
+    text.resize(at + kChunk);
+    in.read(text.data() + at, static_cast<std::streamsize>(kChunk));
+    text.resize(at + static_cast<std::size_t>(in.gcount()));
+    if (text.size() > max_bytes) {
+      throw InputError::ForFile(path, "expected " + what + " of at most " + SizeWords(max_bytes) +
+                                          ", found more (raise the limit with --max-file-mb)");
+    }
   }
   if (in.bad()) throw InputError::ForFile(path, "expected a readable file, found a read error");
-  return ParseTranscription(text, path);
+  return text;
+}
+
+TranscriptionFile ReadTranscriptionFile(const std::string& path, const ReadOptions& options) {
+  const std::string text = ReadTextFile(path, options.max_file_bytes, "a transcription file");
+  return ParseTranscription(text, path, options);
 }
 
 }  // namespace apograph

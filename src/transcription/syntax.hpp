@@ -29,9 +29,11 @@ std::string FoundChar(std::string_view line, std::size_t offset);
 std::string FoundToken(std::string_view line, std::size_t offset);
 
 /// Checks that `text` is UTF-8 without NUL or control characters other than
-/// TAB, LF and the CR of CR LF. Throws InputError at the first bad byte
-/// (line and column in code points).
-void CheckText(std::string_view text, const std::string& file);
+/// TAB, LF and the CR of CR LF, and that no line is longer than
+/// `max_line_bytes`. Throws InputError at the first bad byte (line and
+/// column in code points), or at the line that is too long.
+void CheckText(std::string_view text, const std::string& file,
+               std::size_t max_line_bytes = std::size_t{1} << 20);
 
 /// Converts byte offsets of one line into 1-based columns in code points,
 /// cheaply when asked in increasing order.
@@ -81,13 +83,21 @@ struct ReadingInfo {
 /// line, for error positions. Throws LineError.
 ReadingInfo ParseReading(std::string_view text, int places, std::size_t base);
 
+/// Parses the reading of an argument cell. Besides ParseReading's forms it
+/// takes a decimal (`88.5` is 88;30: every decimal fraction is an exact
+/// sexagesimal one) and fewer places than the argument's (`1` in an argument
+/// of 1 place is 1;0), as sheets and modern editions write arguments; the
+/// value is then given the argument's places (when `places` >= 0) and
+/// fraction_places reports them. Throws LineError.
+ReadingInfo ParseArgumentReading(std::string_view text, int places, std::size_t base);
+
 /// Parses one cell of a row starting at `pos` (blanks allowed): its reading
 /// and marks, up to '|', '#' or the end of the line, where `pos` is left.
 /// Fills raw, state, value and marks of `cell`; returns the reading's
-/// fraction places. `reading_offset` receives where the reading starts.
-/// Throws LineError.
+/// fraction places. An `argument` cell is read by ParseArgumentReading. `reading_offset` receives
+/// where the reading starts. Throws LineError.
 ReadingInfo ParseCell(std::string_view line, std::size_t& pos, int places, Cell& cell,
-                      std::size_t& reading_offset);
+                      std::size_t& reading_offset, bool argument = false);
 
 /// Parses a quoted string at `pos` ('"'), unescaping \" and \\; `pos` is
 /// left after the closing quote. Throws LineError.

@@ -1,6 +1,7 @@
 // Checks that a transcription is text: UTF-8, no NUL, no control characters.
 #include "transcription/syntax.hpp"
 
+#include <algorithm>
 #include <cstdio>
 
 #include "support/input_error.hpp"
@@ -28,6 +29,8 @@ std::size_t ValidSequence(std::string_view text, std::size_t i) {
   return 0;
 }
 
+constexpr std::size_t kShownBytes = 200;
+
 std::string Hex(unsigned value, int digits) {
   char buffer[16];
   std::snprintf(buffer, sizeof buffer, "%0*X", digits, value);
@@ -51,11 +54,26 @@ std::string Describe(unsigned char c) {
   ColumnCounter counter(prefix);
   d.where.column = counter.At(prefix.size());
   // Binary junk can make one very long "line": then only the position is given.
-  constexpr std::size_t kShown = 200;
-  if (prefix.size() <= kShown) {
+  if (prefix.size() <= kShownBytes) {
     d.where.line_text = std::string(prefix) + "\xEF\xBF\xBD";  // U+FFFD stands for the bad byte
   }
   d.message = Describe(static_cast<unsigned char>(text[bad]));
+  throw InputError(d);
+}
+
+[[noreturn]] void TooLong(std::string_view text, std::size_t line_start, int line,
+                          const std::string& file, std::size_t max_line_bytes) {
+  Diagnostic d;
+  d.where.file = file;
+  d.where.line = line;
+  d.where.column = 1;
+  std::size_t end = text.find('\n', line_start);
+  if (end == std::string_view::npos) end = text.size();
+  // Only the start is echoed (Render cuts it to a window anyway).
+  d.where.line_text = std::string(text.substr(line_start, std::min(end - line_start, kShownBytes)));
+  d.message = "expected a line of at most " + std::to_string(max_line_bytes) +
+              " bytes, found one of " + std::to_string(end - line_start) +
+              " (raise the limit with --max-line-kb)";
   throw InputError(d);
 }
 
@@ -73,7 +91,7 @@ int ColumnCounter::At(std::size_t offset) {
   return column_;
 }
 
-void CheckText(std::string_view text, const std::string& file) {
+void CheckText(std::string_view text, const std::string& file, std::size_t max_line_bytes) {
   int line = 1;
   std::size_t line_start = 0;
   const std::size_t n = text.size();
@@ -84,6 +102,7 @@ void CheckText(std::string_view text, const std::string& file) {
       continue;
     }
     if (c == '\n') {
+      if (i - line_start > max_line_bytes) TooLong(text, line_start, line, file, max_line_bytes);
       ++line;
       line_start = ++i;
       continue;
@@ -96,6 +115,7 @@ void CheckText(std::string_view text, const std::string& file) {
     if (len == 0) Reject(text, i, line_start, line, file);
     i += len;
   }
+  if (n - line_start > max_line_bytes) TooLong(text, line_start, line, file, max_line_bytes);
 }
 
 }  // namespace apograph::transcription

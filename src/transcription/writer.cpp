@@ -42,6 +42,7 @@ void WriteWitness(std::string& out, const WitnessInfo& witness) {
   Attribute(out, "date", witness.date);
   Attribute(out, "script", witness.script);
   Attribute(out, "note", witness.note);
+  Attribute(out, "kind", witness.kind);
   out += '\n';
 }
 
@@ -56,6 +57,7 @@ void WriteLayout(std::string& out, const Transcription& t) {
   out += " places=" + std::to_string(t.argument.places);
   NumberAttribute(out, "start", t.argument.start);
   NumberAttribute(out, "step", t.argument.step);
+  if (t.argument.listed) out += std::string(" step=") + kListedStep;
   out += '\n';
   if (t.argument2) {
     out += "@argument2 " + Bare(t.argument2->name, "an argument name");

@@ -229,7 +229,7 @@ TEST_CASE("lists count tables, witnesses, cells and revisions") {
   CHECK_FALSE(store::HasTranscription(db, "moon", "K"));
 }
 
-TEST_CASE("descriptions keep the latest non-empty values; each revision keeps its own") {
+TEST_CASE("descriptions keep the latest non-empty values; a revision records them as merged") {
   TempDb file("describe");
   Database db(file.path());
   Transcription t = MakeTranscription("sun-eq", "K", 3);
@@ -241,8 +241,9 @@ TEST_CASE("descriptions keep the latest non-empty values; each revision keeps it
   auto w = store::ListWitnesses(db);
   REQUIRE(w.size() == 1);
   CHECK(w[0].witness.library == "Nordhafen, Town Library");
-  CHECK(store::Load(db, "sun-eq", "K").witness.library.empty());
-  CHECK(store::Load(db, "sun-eq", "K", 1).witness.library == "Nordhafen, Town Library");
+  // Not given is not cleared: the new revision records the stored library.
+  CHECK(store::Load(db, "sun-eq", "K").witness.library == "Nordhafen, Town Library");
+  CHECK(store::CurrentRevision(db, "sun-eq", "K") == 2);
 }
 
 TEST_CASE("cells written otherwise than canonically keep raw text, value, places, line and marks") {

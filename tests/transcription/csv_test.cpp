@@ -15,9 +15,9 @@ namespace {
 
 CsvOptions Options() {
   CsvOptions o;
-  o.table_id = "sun-eq";
-  o.siglum = "K";
-  o.script = "hindu-arabic";
+  o.head.table_id = "sun-eq";
+  o.head.witness.siglum = "K";
+  o.head.witness.script = "hindu-arabic";
   return o;
 }
 
@@ -66,7 +66,7 @@ TEST_CASE("a CSV sheet becomes one transcription; places come from the cells") {
 
 TEST_CASE("CSV options: work id, places by option allow blank-separated places") {
   auto options = Options();
-  options.work_id = "harbour";
+  options.head.work.id = "harbour";
   options.places = 2;
   options.column_places["n"] = 1;
   const auto file = ReadCsv("n,e\n0;30,0 4 10\n", "k.csv", options);
@@ -114,11 +114,12 @@ TEST_CASE("CSV errors are positioned") {
         "field\n"
         "a\n"
         " ^");
-  CHECK(ErrorOf("") == "k.csv: error: expected a CSV file, found an empty file");
+  CHECK(ErrorOf("") == "k.csv:1:1: error: expected a CSV sheet, found an empty file");
   auto bad = Options();
-  bad.table_id = "two words";
+  bad.head.table_id = "two words";
   CHECK(ErrorOf("a,e\n1,2\n", bad) ==
-        "--table: error: expected a table id without blanks, found 'two words'");
+        "--table: error: expected a table id of letters, digits, '-', '_' or '.' (starting with a "
+        "letter or digit, no '..', at most 64 characters), found 'two words'");
   bad = Options();
   bad.column_places["x"] = 2;
   CHECK(ErrorOf("a,e\n1,2\n", bad) ==
