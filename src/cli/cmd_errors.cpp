@@ -46,7 +46,8 @@ extern const char kErrorsUsage[] =
     "coarsest sexagesimal values that reproduce as many; with --model (or --formula)\n"
     "only that model is tried, and with practice options too only its parameters are\n"
     "fitted. Practice options: --rounding nearest|truncate, --places N, --grid G\n"
-    "[--grid-origin O] [--round-nodes], --displacement D. Exit 1 when there are findings.\n"
+    "[--grid-origin O] [--round-nodes], --displacement D, --sign signed|negated|magnitude.\n"
+    "Exit 1 when there are findings.\n"
     "\n"
     "example: apograph errors --table sun-eq --witness D --model solar-eccentric --param 'e=2;16' "
     "--grid 6\n"
@@ -99,6 +100,17 @@ nlohmann::json ReferenceJson(const pipeline::ColumnReference& r) {
   for (std::size_t i = 0; i < r.params.size() && i < r.model->params().size(); ++i)
     params[r.model->params()[i].name] = r.params[i];
   const auto& p = r.practice;
+  nlohmann::json adopted = nlohmann::json::array();
+  for (const auto& a : r.adopted) {
+    adopted.push_back({{"param", a.param},
+                       {"value", a.value},
+                       {"fitted", a.fitted},
+                       {"stderr", std::isfinite(a.stderr_) ? nlohmann::json(a.stderr_) : nullptr},
+                       {"source", a.source}});
+  }
+  nlohmann::json variants = nlohmann::json::array();
+  for (const auto& v : r.variants)
+    variants.push_back({{"followers", v.followers}, {"description", v.description}});
   return {{"column", r.column_name},
           {"model", r.model->name()},
           {"params", params},
@@ -108,11 +120,17 @@ nlohmann::json ReferenceJson(const pipeline::ColumnReference& r) {
             {"grid", p.grid},
             {"grid_origin", p.grid_origin},
             {"round_nodes", p.round_nodes},
-            {"displacement", p.displacement}}},
+            {"displacement", p.displacement},
+            {"sign", model::ToString(r.model->ResolvedSign(p.sign))}}},
           {"description", r.description},
           {"source", pipeline::ToString(r.source)},
           {"witness", r.witness.empty() ? nlohmann::json(nullptr) : nlohmann::json(r.witness)},
-          {"how", r.how}};
+          {"how", r.how},
+          {"explains", r.explains},
+          {"verdict", r.verdict},
+          {"derived", r.derived},
+          {"adopted", adopted},
+          {"variants", variants}};
 }
 
 nlohmann::json Units(double d) {

@@ -64,7 +64,8 @@ std::optional<Sexagesimal> OnEntries(const Values& s, const Values* s2, std::siz
   std::optional<Sexagesimal> x;
   if (r.kind == Kind::kDifference) {
     const auto span = Span(i, r.rows, s.size());
-    if (span && s[span->first] && s[span->second]) x = *s[span->second] - *s[span->first];
+    if (span && s[span->first] && s[span->second])
+      x = r.Wrapped(*s[span->second] - *s[span->first]);
   } else if (s[i] && (*s2)[i]) {
     x = r.kind == Kind::kSum ? std::optional(*s[i] + *(*s2)[i]) : Product(*s[i], *(*s2)[i]);
   }
@@ -79,7 +80,7 @@ std::optional<double> OnExact(const std::vector<double>& p, const std::vector<do
   if (r.kind == Kind::kDifference) {
     const auto span = Span(i, r.rows, p.size());
     if (!span) return std::nullopt;
-    x = p[span->second] - p[span->first];
+    x = r.Wrapped(p[span->second] - p[span->first]);
   } else {
     x = r.kind == Kind::kSum ? p[i] + (*p2)[i] : p[i] * (*p2)[i];
   }
@@ -201,6 +202,25 @@ Columns Read(const Transcription& table, const DerivedInputs* inputs) {
   return cols;
 }
 
+/// Entries of positions: all in [0, 360), and some step between
+/// neighbours crosses the turn (a jump of more than half a turn).
+bool Angular(const Values& v) {
+  std::optional<Sexagesimal> last;
+  bool jump = false;
+  const Sexagesimal zero, turn = Sexagesimal::FromUnits(360, 0),
+                          half = Sexagesimal::FromUnits(180, 0);
+  for (const auto& x : v) {
+    if (!x) continue;
+    if (*x < zero || !(*x < turn)) return false;
+    if (last) {
+      const Sexagesimal d = *x > *last ? *x - *last : *last - *x;
+      jump = jump || d > half;
+    }
+    last = x;
+  }
+  return jump;
+}
+
 double StepOf(const Transcription& table) {
   if (table.argument.step) return table.argument.step->ToDouble();
   std::vector<double> args;
@@ -260,9 +280,14 @@ std::vector<DerivedColumn> DetectDerivedColumns(const Transcription& table,
     };
     for (int s = 0; s < ncol; ++s) {
       if (s == c) continue;
+      const bool angular = Angular(cols.tabulated[static_cast<std::size_t>(s)]);
       for (const auto& r : relations) {
         if (r.kind == Kind::kDifference) {
           consider(s, -1, r);
+          if (!angular) continue;
+          DerivedRelation w = r;
+          w.wrap_360 = true;
+          consider(s, -1, w);
           continue;
         }
         for (int s2 = s + 1; s2 < ncol; ++s2) {

@@ -38,6 +38,18 @@ const char* ToString(DerivedBasis basis) {
   return "rounded entries";
 }
 
+Sexagesimal DerivedRelation::Wrapped(const Sexagesimal& x) const {
+  if (!wrap_360) return x;
+  const Sexagesimal r = x.Modulo(360);
+  return r > Sexagesimal::FromUnits(180, 0) ? r - Sexagesimal::FromUnits(360, 0) : r;
+}
+
+double DerivedRelation::Wrapped(double x) const {
+  if (!wrap_360) return x;
+  x -= 360 * std::floor(x / 360);
+  return x > 180 ? x - 360 : x;
+}
+
 std::string DerivedRelation::Text(const std::string& source, const std::string& other) const {
   const std::string f = Fraction(multiplier, divisor);
   switch (kind) {
@@ -51,7 +63,8 @@ std::string DerivedRelation::Text(const std::string& source, const std::string& 
   const int k = rows > 0 ? rows : -rows;
   const std::string span = k == 1 ? (rows > 0 ? "the next row" : "the previous row")
                                   : std::to_string(k) + " rows " + (rows > 0 ? "ahead" : "behind");
-  return f + "the difference " + (rows > 0 ? "to " : "from ") + span + " of " + source;
+  return f + "the difference " + (rows > 0 ? "to " : "from ") + span + " of " + source +
+         (wrap_360 ? " (within half a turn)" : "");
 }
 
 DerivedModel::DerivedModel(std::string name, DerivedRelation relation, DerivedBasis basis,
@@ -118,9 +131,10 @@ double DerivedModel::Evaluate(const std::vector<double>&, const model::RowContex
     const model::RowContext& lo = relation_.rows > 0 ? row : *there;
     const model::RowContext& hi = relation_.rows > 0 ? *there : row;
     const DerivedSource& s = sources_.at(0);
-    if (basis_ == DerivedBasis::kExact) return (Exact(s, hi) - Exact(s, lo)) * scale;
+    if (basis_ == DerivedBasis::kExact)
+      return relation_.Wrapped(Exact(s, hi) - Exact(s, lo)) * scale;
     const auto a = Entry(s, lo), b = Entry(s, hi);
-    if (a && b) x = *b - *a;
+    if (a && b) x = relation_.Wrapped(*b - *a);
   } else {
     const DerivedSource& s = sources_.at(0);
     const DerivedSource& t = sources_.at(1);

@@ -50,6 +50,12 @@ struct DerivedRelation {
   int rows = 1;
   int multiplier = 1;  ///< the result times multiplier / divisor
   int divisor = 1;
+  /// Differences of positions: brought into (-180, 180] (a motion across
+  /// the turn from 359 to 1 is 2, not -358).
+  bool wrap_360 = false;
+  /// `x` (a difference) brought into (-180, 180] when wrap_360 is set.
+  Sexagesimal Wrapped(const Sexagesimal& x) const;
+  double Wrapped(double x) const;
   /// "1/30 of the difference to the next row of chord", "the sum of mean
   /// and equation".
   std::string Text(const std::string& source, const std::string& other = "") const;

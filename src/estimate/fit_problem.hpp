@@ -55,6 +55,8 @@ class FitProblem {
   int places(std::size_t i) const { return entries_[i].places; }
   /// Residuals wrap modulo 360.
   bool modulo() const { return modulo_; }
+  /// The practice (without the displacement, which is added separately).
+  const model::Practice& practice() const { return practice_; }
 
  private:
   struct Entry {

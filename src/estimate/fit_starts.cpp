@@ -245,13 +245,15 @@ void SetNamed(const model::Model& m, const FitProblem& p, std::vector<double>& x
   }
 }
 
-/// The rate in anomaly whose harmonic, with the mean motion's line, leaves
-/// the smallest residual (phase steps of 20 degrees over the span).
-double BestAnomalyRate(const std::vector<double>& t, const std::vector<double>& u, double t0,
-                       double high) {
+/// The frequency (deg per unit of the argument) in [low, high] whose
+/// harmonic, with a straight line, leaves the smallest residual (steps of
+/// at most 20 degrees of phase over the span).
+double BestFrequency(const std::vector<double>& t, const std::vector<double>& u, double t0,
+                     double low, double high) {
   const double span = std::max(t.back() - t.front(), 1.0);
+  const double step = std::min(20.0 / span, std::max((high - low) / 50, 1e-6));
   double best = 0, best_rss = INFINITY;
-  for (double f = 20.0 / span; f <= high; f += 20.0 / span) {
+  for (double f = std::max(low, step); f <= high; f += step) {
     double rss = 0;
     const auto c = LeastSquares(
         t, u, 4,
@@ -264,6 +266,44 @@ double BestAnomalyRate(const std::vector<double>& t, const std::vector<double>& 
   return best;
 }
 
+/// What a table of positions' model has, by role.
+struct PositionShape {
+  bool trend = false;        ///< a mean motion in longitude (kRate)
+  bool centre = false;       ///< an apogee: the equation of centre at the mean motion's rate
+  bool anomaly = false;      ///< a motion in anomaly (kAnomalyRate)
+  double low = 0, high = 0;  ///< the rate in anomaly's range
+};
+
+PositionShape ShapeOf(const model::Model& m, const FitProblem& p, std::size_t free) {
+  PositionShape s;
+  s.trend = FreeIndex(m, p, model::ParamRole::kRate, free) >= 0;
+  s.centre = FreeIndex(m, p, model::ParamRole::kApogee, free) >= 0;
+  s.anomaly = FreeIndex(m, p, model::ParamRole::kAnomalyRate, free) >= 0;
+  const int a = m.ParamIndex(model::ParamRole::kAnomalyRate);
+  if (a >= 0) {
+    s.low = m.params()[static_cast<std::size_t>(a)].low;
+    s.high = m.params()[static_cast<std::size_t>(a)].high;
+  }
+  return s;
+}
+
+/// The anomaly's harmonic read as an epicycle (or an equation by date):
+/// the radius (or eccentricity), and the anomaly at the epoch; for
+/// magnitudes, the harmonic at twice the rate, two phases 180 apart.
+std::vector<std::pair<double, double>> AnomalyStarts(double a, double b, bool magnitude) {
+  if (!magnitude) {
+    const auto [r, g0] = Harmonic(a, b);
+    return {{r, Wrap360(g0)}};
+  }
+  // |E sin g| ~ 2E/pi - (4E/3pi) cos 2g: the harmonic A cos(F t - psi) with
+  // 2 g0 + 180 = -psi.
+  const double amplitude = std::hypot(a, b) * 3 * std::numbers::pi / 4;
+  const double psi = std::atan2(a, b) / kDeg;
+  const double g0 = Wrap360((-psi - 180) / 2);
+  const double r = 60 * std::sin(std::min(amplitude, 80.0) * kDeg);
+  return {{r, g0}, {r, Wrap360(g0 + 180)}};
+}
+
 }  // namespace
 
 std::vector<std::vector<double>> PositionStarts(const model::Model& model,
@@ -273,26 +313,29 @@ std::vector<std::vector<double>> PositionStarts(const model::Model& model,
   if (model.traits().kind != model::ModelKind::kPosition || obs.size() < 8) return {};
   std::vector<double> t, u;
   Unwrapped(obs, t, u);
+  const model::SignForm sign = model.ResolvedSign(problem.practice().sign);
+  if (sign == model::SignForm::kNegated)
+    for (double& v : u) v = -v;
+  const bool magnitude = sign == model::SignForm::kMagnitude;
+  const PositionShape shape = ShapeOf(model, problem, x0.size());
   const double t0 = t.front();
   double rss = 0;
   const auto line = LeastSquares(
       t, u, 2, [&](double x, double* r) { r[0] = 1, r[1] = x - t0; }, &rss);
   if (line.empty()) return {};
-  const double rate = line[1];
-  const bool anomaly = FreeIndex(model, problem, model::ParamRole::kAnomalyRate, x0.size()) >= 0;
-  const int rate_index = model.ParamIndex(model::ParamRole::kAnomalyRate);
-  const double high =
-      rate_index >= 0 ? model.params()[static_cast<std::size_t>(rate_index)].high : 0.0;
-  const double f = anomaly ? BestAnomalyRate(t, u, t0, high) : 0;
-  // Line, the harmonic at the rate in longitude (eccentricity, apogee) and,
-  // for a planet, the harmonic at the rate in anomaly (the epicycle).
-  const int k = anomaly ? 6 : 4;
+  const double rate = shape.trend ? line[1] : 0;
+  const double m = magnitude ? 2 : 1;
+  const double f = shape.anomaly ? BestFrequency(t, u, t0, m * shape.low, m * shape.high) : 0;
+  // Line, the harmonic at the rate in longitude (eccentricity, apogee) and
+  // the harmonic at the rate in anomaly (the epicycle, or the equation).
+  const int k = 2 + (shape.centre ? 2 : 0) + (shape.anomaly ? 2 : 0);
   const auto c = LeastSquares(
       t, u, k,
       [&](double x, double* r) {
         r[0] = 1, r[1] = x - t0;
-        r[2] = std::sin(rate * x * kDeg), r[3] = std::cos(rate * x * kDeg);
-        if (k == 6) r[4] = std::sin(f * x * kDeg), r[5] = std::cos(f * x * kDeg);
+        int j = 2;
+        if (shape.centre) r[j++] = std::sin(rate * x * kDeg), r[j++] = std::cos(rate * x * kDeg);
+        if (shape.anomaly) r[j++] = std::sin(f * x * kDeg), r[j++] = std::cos(f * x * kDeg);
       },
       &rss);
   if (c.empty()) return {};
@@ -300,18 +343,26 @@ std::vector<std::vector<double>> PositionStarts(const model::Model& model,
   const double radix = Wrap360(c[0] - c[1] * t0);
   SetRole(model, problem, x, model::ParamRole::kRate, c[1]);
   SetRole(model, problem, x, model::ParamRole::kRadix, radix);
-  // The equation of centre: -(e/60) sin(m - A) in radians, with m = rate t
-  // + radix: a sin(rate t) + b cos(rate t) = -E sin(rate t + radix - A).
-  const auto [e, phase] = Harmonic(-c[2], -c[3]);
-  SetNamed(model, problem, x, "e", std::max(e, 0.1));
-  SetRole(model, problem, x, model::ParamRole::kApogee, Wrap360(radix - phase));
-  if (anomaly) {  // the epicycle: +(r/60) sin(g), g = f t + anomaly-radix
-    const auto [r, g0] = Harmonic(c[4], c[5]);
-    SetNamed(model, problem, x, "r", std::max(r, 1.0));
-    SetRole(model, problem, x, model::ParamRole::kAnomalyRate, f);
-    SetRole(model, problem, x, model::ParamRole::kAnomalyRadix, Wrap360(g0));
+  int j = 2;
+  if (shape.centre) {
+    // The equation of centre: -(e/60) sin(m - A) in radians, with m = rate t
+    // + radix: a sin(rate t) + b cos(rate t) = -E sin(rate t + radix - A).
+    const auto [e, phase] = Harmonic(-c[j], -c[j + 1]);
+    SetNamed(model, problem, x, "e", std::max(e, 0.1));
+    SetRole(model, problem, x, model::ParamRole::kApogee, Wrap360(radix - phase));
+    j += 2;
   }
-  return {x};
+  if (!shape.anomaly) return {x};
+  // The epicycle (or the equation by date): +(r/60) sin(g), g = f t + g0.
+  std::vector<std::vector<double>> out;
+  for (const auto& [r, g0] : AnomalyStarts(c[j], c[j + 1], magnitude)) {
+    std::vector<double> y = x;
+    SetNamed(model, problem, y, shape.trend ? "r" : "e", std::max(r, 1.0));
+    SetRole(model, problem, y, model::ParamRole::kAnomalyRate, f / m);
+    SetRole(model, problem, y, model::ParamRole::kAnomalyRadix, g0);
+    out.push_back(std::move(y));
+  }
+  return out;
 }
 
 }  // namespace apograph::estimate::internal

@@ -104,12 +104,16 @@ std::vector<std::pair<model::SignForm, bool>> Forms(const model::Model& m, const
                                                     const ColumnFacts& f,
                                                     const IdentifyOptions& options) {
   using model::SignForm;
-  if (m.traits().kind != model::ModelKind::kFunction) return {{SignForm::kConventional, false}};
-  const bool disp = options.try_displacement;
+  const bool function = m.traits().kind == model::ModelKind::kFunction;
+  const bool disp = options.try_displacement && function;
   if (!m.traits().signed_values) {
     if (disp) return {{SignForm::kConventional, false}, {SignForm::kConventional, true}};
     return {{SignForm::kConventional, false}};
   }
+  // A quantity by date has no orientation at the defaults (its phase is
+  // estimated): both signs are tried.
+  if (!function && f.has_negative) return {{SignForm::kSigned, false}, {SignForm::kNegated, false}};
+  if (!function) return {{SignForm::kMagnitude, false}};
   const SignForm oriented = Orientation(m, t, f.sub);
   if (f.has_negative) return {{oriented, false}};
   // Where the model never goes negative over these arguments its signed
@@ -336,6 +340,7 @@ double Score(const FitResult& fit, int penalised, double* log_likelihood) {
 }
 
 std::vector<double> CandidateGrids(const Transcription& table) {
+  if (table.argument.listed) return {};  // an explicit list of arguments has no grid
   std::vector<double> args;
   for (std::size_t r = 0; r < table.rows.size(); ++r) {
     if (auto a = model::RowArgument(table, r)) args.push_back(*a);

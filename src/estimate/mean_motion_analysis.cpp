@@ -6,6 +6,7 @@
 #include <sstream>
 #include <unordered_map>
 
+#include "estimate/notation.hpp"
 #include "estimate/observations.hpp"
 #include "support/input_error.hpp"
 
@@ -46,11 +47,8 @@ Real Wrap360(Real x) {
 
 std::string Fmt(const Sexagesimal& s) { return s.ToString(); }
 
-std::string Arg(Real a) {
-  std::ostringstream o;
-  o << static_cast<double>(a);
-  return o.str();
-}
+/// An argument in the trade's notation (0;30, not 0.5).
+std::string Arg(Real a) { return NumberText(static_cast<double>(a)); }
 
 /// Restores whole turns by argument and sets radix and rate estimates.
 void Unwrap(std::vector<Item>& items, Real radix, Real rate,

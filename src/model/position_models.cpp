@@ -50,6 +50,16 @@ T TrueSun(const T* p, T t, T) {
   return Reduced(m - q, p[0], p[1], t, p[4]);
 }
 
+/// The solar equation by date: q(a) = atan2(e sin a, 60 + e cos a) at the
+/// mean anomaly a = anomaly-radix + anomaly-rate t of day t (the column of
+/// equations beside a table of the mean and the true sun); positive while
+/// the anomaly is in its first half (the correction is then subtracted).
+template <typename T>
+T SolarEquationByDate(const T* p, T t, T) {
+  const T a = MeanLongitude(p[0], p[1], t);
+  return Atan2Deg(p[2] * SinDeg(a), T(60) + p[2] * CosDeg(a));
+}
+
 /// Planet on an epicycle: the deferent (radius 60) has its centre D at
 /// distance e from the observer toward the apogee A; the epicycle's centre
 /// C = D + 60 (cos m, sin m) moves uniformly (mean longitude m = radix +
@@ -106,6 +116,21 @@ const BuiltinModel kTrueSun(
      Modulus()},
     PositionTraits({"true sun", "sun", "solar"}), APOGRAPH_FORMULA(TrueSun));
 
+const BuiltinModel kSolarEquationByDate(
+    "solar-equation-by-date",
+    "q(t) = atan2(e sin a, 60 + e cos a), a = anomaly-radix + anomaly-rate t the sun's mean "
+    "anomaly on day t: the equation of the eccentric model by date.",
+    "argument: days (or the unit the rate is given per) since the epoch; signed: positive "
+    "while the anomaly is between 0 and 180 (the correction is then subtracted); tables print "
+    "it signed, negated (as the correction) or as magnitudes with a rubric; not displaced.",
+    {{"anomaly-radix", "deg", "the sun's mean anomaly at the epoch", 0.0, 0.0, 360.0,
+      ParamRole::kAnomalyRadix},
+     {"anomaly-rate", "deg/day", "motion in anomaly per day", kSunPerDay, 0.9, 1.1,
+      ParamRole::kAnomalyRate},
+     {"e", "parts of 60", "eccentricity of the sun's circle", 2.5, 1.0, 4.0}},
+    {ModelKind::kPosition, true, SignForm::kSigned, {"equation", "sun", "solar"}, {}},
+    APOGRAPH_FORMULA(SolarEquationByDate));
+
 const BuiltinModel kPlanetPosition(
     "planet-position",
     "The direction of a planet on an epicycle of radius r whose centre moves on a deferent of "
@@ -127,7 +152,8 @@ const BuiltinModel kPlanetPosition(
 }  // namespace
 
 const std::vector<const BuiltinModel*>& PositionModels() {
-  static const std::vector<const BuiltinModel*> kAll = {&kTrueSun, &kPlanetPosition};
+  static const std::vector<const BuiltinModel*> kAll = {&kTrueSun, &kSolarEquationByDate,
+                                                        &kPlanetPosition};
   return kAll;
 }
 

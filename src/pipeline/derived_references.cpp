@@ -157,14 +157,16 @@ ColumnReference Reference(const ColumnReference& base, const Computation& c, con
   return r;
 }
 
-/// The computations of `f` counted on every witness, best total first.
+/// The computations of `f` counted on every witness, in order of
+/// preference: the author's (from rounded entries), from exact values, from
+/// each witness's own entries.
 std::vector<Computation> Computations(const Found& f, const std::vector<ColumnReference>& refs,
                                       const ColumnReference& base,
                                       const std::vector<const Transcription*>& ws) {
   bool modelled = false;
   const auto sources = Sources(f, refs, modelled);
   std::vector<Computation> out;
-  for (DerivedBasis b : {DerivedBasis::kRounded, DerivedBasis::kOwnEntries, DerivedBasis::kExact}) {
+  for (DerivedBasis b : {DerivedBasis::kRounded, DerivedBasis::kExact, DerivedBasis::kOwnEntries}) {
     if (b != DerivedBasis::kOwnEntries && !modelled) continue;
     Computation c{b,
                   std::make_shared<estimate::DerivedModel>("derived", f.d.spec, b, sources,
@@ -181,46 +183,53 @@ std::vector<Computation> Computations(const Found& f, const std::vector<ColumnRe
     }
     out.push_back(std::move(c));
   }
-  std::stable_sort(out.begin(), out.end(),
-                   [](const Computation& a, const Computation& b) { return a.exact > b.exact; });
   return out;
 }
 
-/// The derived reference for `f`, with variants for the witnesses that
-/// follow another computation; nullopt when the model identified explains
-/// more.
+/// The computation witness i follows: the first (the preferred) unless
+/// another reproduces clearly more of its entries exactly
+/// (kVariantEntries, kVariantShare).
+std::size_t Follows(const std::vector<Computation>& all, std::size_t i) {
+  std::size_t best = 0;
+  for (std::size_t k = 1; k < all.size(); ++k) {
+    const Counts& base = all[best].per_witness[i];
+    const int margin = std::max(kVariantEntries, static_cast<int>(kVariantShare * base.n));
+    if (all[k].per_witness[i].exact >= base.exact + margin) best = k;
+  }
+  return best;
+}
+
+/// The derived reference for `f` (the computation most witnesses follow),
+/// with a variant for each other computation some witness follows; nullopt
+/// when the model identified explains more.
 std::optional<ColumnReference> Derived(const Found& f, const std::vector<ColumnReference>& refs,
                                        const ColumnReference& identified,
                                        const std::vector<const Transcription*>& ws) {
   const auto all = Computations(f, refs, identified, ws);
   if (all.empty()) return std::nullopt;
-  const Computation& main = all.front();
-  // Compared on the witness the model was identified from.
+  std::vector<std::size_t> follows(ws.size());
+  std::vector<int> votes(all.size(), 0);
+  for (std::size_t i = 0; i < ws.size(); ++i) ++votes[follows[i] = Follows(all, i)];
+  const std::size_t main = static_cast<std::size_t>(std::max_element(votes.begin(), votes.end()) -
+                                                    votes.begin());  // ties: the preferred
+  // Compared with the model on the witness the model was identified from.
   std::size_t at = 0;
   for (std::size_t i = 0; i < ws.size(); ++i) {
     if (ws[i]->witness.siglum == identified.witness) at = i;
   }
-  if (identified.explains && main.per_witness[at].within1 < identified.within_one)
-    return std::nullopt;
-  ColumnReference r = Reference(identified, main, f, main.per_witness[at], ws[at]->witness.siglum);
-  for (std::size_t i = 0; i < ws.size(); ++i) {
-    const Counts& own = main.per_witness[i];
-    const Computation* better = nullptr;
-    for (const auto& c : all) {
-      const int margin = std::max(kVariantEntries, static_cast<int>(kVariantShare * own.n));
-      if (&c != &main && c.per_witness[i].exact >= own.exact + margin &&
-          (!better || c.per_witness[i].exact > better->per_witness[i].exact))
-        better = &c;
+  const Counts& here = all[main].per_witness[at];
+  if (identified.explains && here.within1 < identified.within_one) return std::nullopt;
+  ColumnReference r = Reference(identified, all[main], f, here, ws[at]->witness.siglum);
+  for (std::size_t k = 0; k < all.size(); ++k) {
+    if (k == main || votes[k] == 0) continue;
+    std::size_t first = 0;
+    while (follows[first] != k) ++first;
+    ColumnReference v =
+        Reference(identified, all[k], f, all[k].per_witness[first], ws[first]->witness.siglum);
+    for (std::size_t i = 0; i < ws.size(); ++i) {
+      if (follows[i] == k) v.followers.push_back(ws[i]->witness.siglum);
     }
-    if (!better) continue;
-    auto v = std::find_if(r.variants.begin(), r.variants.end(),
-                          [&](const ColumnReference& x) { return x.model == better->model; });
-    if (v == r.variants.end()) {
-      r.variants.push_back(
-          Reference(identified, *better, f, better->per_witness[i], ws[i]->witness.siglum));
-      v = r.variants.end() - 1;
-    }
-    v->followers.push_back(ws[i]->witness.siglum);
+    r.variants.push_back(std::move(v));
   }
   return r;
 }
