@@ -73,6 +73,7 @@ struct Evidence {
   bool in_range = true;   ///< every free parameter within its historical range
   std::string attested;   ///< "r = 5;15 (2nd-century ...)" near an estimate
   int free = 0;
+  double width = 0;  ///< summed widths of the free parameters' historical ranges
   int order = 0;
 };
 
@@ -93,8 +94,11 @@ Evidence Weigh(const Candidate& c, const Transcription& table,
     const auto& p = c.fit.params[j];
     if (p.fixed) continue;
     ++e.free;
+    e.width += specs[j].high - specs[j].low;
     e.in_range = e.in_range && p.value >= specs[j].low && p.value <= specs[j].high;
-    if (!catalog || !e.attested.empty()) continue;
+    // A value the entries cannot separate is arbitrary: its nearness to an
+    // attested value says nothing.
+    if (!catalog || !e.attested.empty() || !p.separable) continue;
     for (const auto& m :
          NearestAttested(*catalog, c.model->name(), p.name, p.value, p.stderr_, 1)) {
       const bool near = std::isfinite(m.distance_se) && p.stderr_ > 0
@@ -109,13 +113,16 @@ Evidence Weigh(const Candidate& c, const Transcription& table,
 }
 
 /// The member the evidence names: the table's kind, then the historical
-/// ranges, then an attested value, then the simpler model, then the
-/// registry's order.
+/// ranges, then an attested value, then the simpler model, then the more
+/// specific model (narrower historical ranges that still hold the
+/// estimates: a moon's epicycle rather than any epicycle; judgement), then
+/// the registry's order.
 bool Before(const Evidence& a, const Evidence& b) {
   if (a.kind_word.empty() != b.kind_word.empty()) return !a.kind_word.empty();
   if (a.in_range != b.in_range) return a.in_range;
   if (a.attested.empty() != b.attested.empty()) return !a.attested.empty();
   if (a.free != b.free) return a.free < b.free;
+  if (a.in_range && a.width != b.width) return a.width < b.width;
   return a.order < b.order;
 }
 
@@ -136,6 +143,11 @@ std::string NamingText(const Evidence& shown, const std::vector<Evidence>& other
     s += "the simpler model (" + std::to_string(shown.free) + " parameter" +
          (shown.free == 1 ? "" : "s") + " against " + std::to_string(rival.free) +
          ") explains as much";
+  } else if (shown.in_range && shown.width < rival.width) {
+    if (!shown.kind_word.empty())
+      s += "the table's kind, title or argument says \"" + shown.kind_word + "\", and ";
+    s +=
+        "its historical ranges, narrower than " + rival.c->model->name() + "'s, hold the estimates";
   } else {
     s += "nothing in the table's kind, the historical ranges or the attested values tells "
          "them apart; the first in the list of models is shown";

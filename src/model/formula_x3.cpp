@@ -87,7 +87,7 @@ auto const open_frame = [](auto& ctx) {
   b.frames.push_back({Text(ctx), Start(ctx), b.stack.size(), false});
 };
 auto const mark_call = [](auto& ctx) {
-  Get(ctx).Enter(x3::_where(ctx).begin());
+  Get(ctx).Enter(std::prev(x3::_where(ctx).begin()));
   Get(ctx).frames.back().call = true;
 };
 auto const close_frame = [](auto& ctx) {
@@ -100,7 +100,7 @@ auto const close_frame = [](auto& ctx) {
   b.stack.resize(f.base);
   b.Push(std::move(e), f.offset);
 };
-auto const enter = [](auto& ctx) { Get(ctx).Enter(x3::_where(ctx).begin()); };
+auto const enter = [](auto& ctx) { Get(ctx).Enter(std::prev(x3::_where(ctx).begin())); };
 auto const leave = [](auto& ctx) { Get(ctx).Leave(); };
 auto const col_begin = [](auto& ctx) { Get(ctx).row_offset = 0; };
 auto const col_name = [](auto& ctx) {

@@ -93,8 +93,10 @@ TEST_CASE("fit on a witness with no readable entry: a clear refusal, no crash") 
   const auto r = apograph::testing::RunInProcess(
       {"fit", "--table", "t", "--witness", "B", "--model", "sine", "--db", file.path()});
   CHECK(r.code == 2);
-  CHECK(r.err.find("--witness: expected a witness with readable entries in the columns fitted, "
-                   "found 'B', whose cells there are all blank, illegible or partly read") !=
+  CAPTURE(r.err);
+  CHECK(r.err.find(
+            "--witness: error: expected a witness with readable entries in the columns fitted, "
+            "found 'B', whose cells there are all blank, illegible or partly read") !=
         std::string::npos);
   // The library's own answer: no entry, the defaults, not converged.
   const Transcription b = [&] {
@@ -130,9 +132,12 @@ TEST_CASE("one model lookup, one message for an unknown model") {
   const auto errors =
       apograph::testing::RunInProcess({"errors", "--table", "t", "--witness", "A", "--model",
                                        "bogus", "--no-record", "--db", file.path()});
+  CAPTURE(fit.err);
+  CAPTURE(errors.err);
   CHECK(fit.code == 2);
   CHECK(errors.code == 2);
-  const std::string want = "--model: expected a built-in model or a saved formula (chord, sine, ";
+  const std::string want =
+      "--model: error: expected a built-in model or a saved formula (chord, sine, ";
   CHECK(fit.err.find(want) != std::string::npos);
   CHECK(errors.err.find(want) != std::string::npos);
   CHECK(fit.err.find("found 'bogus'") != std::string::npos);

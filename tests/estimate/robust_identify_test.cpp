@@ -227,6 +227,7 @@ TEST_CASE("equivalent models are one explanation, named by the table's kind and 
   t.kind = "equation of the moon's anomaly";
   Identification id = Run(t);
   REQUIRE(!id.ranked.empty());
+  CAPTURE(id.ranked[0].naming);
   CHECK(id.ranked[0].model->name() == "lunar-anomaly");
   CHECK(id.ranked[0].equivalents.size() >= 2);
   CHECK(id.ranked[0].naming.find("says \"moon\"") != std::string::npos);
@@ -273,6 +274,7 @@ TEST_CASE("parameters the entries cannot separate: the combination, never an err
   // Among every model, the simpler equivalent is preferred.
   const Identification id = Run(t);
   REQUIRE(!id.ranked.empty());
+  CAPTURE(id.ranked[0].model->name());
   CHECK(id.ranked[0].model->params().size() == 1);
 }
 
@@ -329,9 +331,12 @@ TEST_CASE("notes and texts write arguments as the table does") {
   FitOptions o;
   const FitResult fit = Fit(*model::FindBuiltinModel("sine"), t, std::vector<int>{}, o);
   const std::string text = FitText(fit, t, {}, true);
+  CAPTURE(text);
   CHECK(text.find("88;30") != std::string::npos);
   CHECK(text.find("88.5") == std::string::npos);
-  CHECK(text.find("R = 60") != std::string::npos);
+  // The fit (no adoption here) in the table's notation, the decimal beside.
+  CHECK(text.find("R = 59;59,59,59") != std::string::npos);
+  CHECK(text.find("(59.9999") != std::string::npos);
 }
 
 }  // namespace apograph::estimate
