@@ -67,7 +67,10 @@ std::optional<Sexagesimal> OnEntries(const Values& s, const Values* s2, std::siz
     if (span && s[span->first] && s[span->second])
       x = r.Wrapped(*s[span->second] - *s[span->first]);
   } else if (s[i] && (*s2)[i]) {
-    x = r.kind == Kind::kSum ? std::optional(*s[i] + *(*s2)[i]) : Product(*s[i], *(*s2)[i]);
+    x = r.kind == Kind::kSum
+            ? std::optional(r.other_sign < 0 ? *s[i] - *(*s2)[i] : *s[i] + *(*s2)[i])
+            : Product(*s[i], *(*s2)[i]);
+    if (x) x = r.Wrapped(*x);
   }
   if (!x) return std::nullopt;
   return (*x * r.multiplier).Divided(r.divisor, places, rounding);
@@ -82,7 +85,7 @@ std::optional<double> OnExact(const std::vector<double>& p, const std::vector<do
     if (!span) return std::nullopt;
     x = r.Wrapped(p[span->second] - p[span->first]);
   } else {
-    x = r.kind == Kind::kSum ? p[i] + (*p2)[i] : p[i] * (*p2)[i];
+    x = r.Wrapped(r.kind == Kind::kSum ? p[i] + r.other_sign * (*p2)[i] : p[i] * (*p2)[i]);
   }
   if (!std::isfinite(x)) return std::nullopt;
   return x * r.multiplier / r.divisor;
@@ -93,6 +96,10 @@ struct Columns {
   std::vector<Values> tabulated;
   std::vector<Values> rounded;               ///< empty where unknown
   std::vector<std::vector<double>> precise;  ///< given or smoothed
+  /// What a sum adds: the signed values where the column prints magnitudes
+  /// (DerivedInputs), else the same as rounded and precise.
+  std::vector<Values> rounded_signed;
+  std::vector<std::vector<double>> precise_signed;
 };
 
 /// Scores one relation for target c from sources s (and s2); fills `d` and
@@ -102,11 +109,14 @@ bool Test(const Transcription& t, const Columns& cols, int c, int s, int s2,
   const Values& target = cols.tabulated[static_cast<std::size_t>(c)];
   const Values& src = cols.tabulated[static_cast<std::size_t>(s)];
   const Values* src2 = s2 >= 0 ? &cols.tabulated[static_cast<std::size_t>(s2)] : nullptr;
-  const Values& rnd = cols.rounded[static_cast<std::size_t>(s)];
-  const Values* rnd2 = s2 >= 0 ? &cols.rounded[static_cast<std::size_t>(s2)] : nullptr;
+  const bool sum = r.kind != Kind::kDifference;
+  const auto& rounded = sum ? cols.rounded_signed : cols.rounded;
+  const auto& precise = sum ? cols.precise_signed : cols.precise;
+  const Values& rnd = rounded[static_cast<std::size_t>(s)];
+  const Values* rnd2 = s2 >= 0 ? &rounded[static_cast<std::size_t>(s2)] : nullptr;
   const bool have_rounded = !rnd.empty() && (!rnd2 || !rnd2->empty());
-  const auto& pre = cols.precise[static_cast<std::size_t>(s)];
-  const auto* pre2 = s2 >= 0 ? &cols.precise[static_cast<std::size_t>(s2)] : nullptr;
+  const auto& pre = precise[static_cast<std::size_t>(s)];
+  const auto* pre2 = s2 >= 0 ? &precise[static_cast<std::size_t>(s2)] : nullptr;
   const int places = t.columns[static_cast<std::size_t>(c)].places;
   d = {};
   for (std::size_t i = 0; i < t.rows.size(); ++i) {
@@ -198,6 +208,12 @@ Columns Read(const Transcription& table, const DerivedInputs* inputs) {
     const bool exact = inputs && s < inputs->exact.size() && !inputs->exact[s].empty();
     cols.precise[s] = exact ? inputs->exact[s] : Smoothed(cols.tabulated[s]);
     if (inputs && s < inputs->rounded.size()) cols.rounded[s] = inputs->rounded[s];
+    const bool signed_exact =
+        inputs && s < inputs->exact_signed.size() && !inputs->exact_signed[s].empty();
+    cols.precise_signed.push_back(signed_exact ? inputs->exact_signed[s] : cols.precise[s]);
+    const bool signed_rounded =
+        inputs && s < inputs->rounded_signed.size() && !inputs->rounded_signed[s].empty();
+    cols.rounded_signed.push_back(signed_rounded ? inputs->rounded_signed[s] : cols.rounded[s]);
   }
   return cols;
 }
@@ -291,7 +307,20 @@ std::vector<DerivedColumn> DetectDerivedColumns(const Transcription& table,
           continue;
         }
         for (int s2 = s + 1; s2 < ncol; ++s2) {
-          if (s2 != c) consider(s, s2, r);
+          if (s2 == c) continue;
+          consider(s, s2, r);
+          if (r.kind != Kind::kSum) continue;
+          DerivedRelation w = r;
+          w.other_sign = -1;  // true = mean minus the geometric equation
+          consider(s, s2, w);
+          // A sum of positions (true = mean + equation) is written within
+          // the turn.
+          if (!(angular || Angular(cols.tabulated[static_cast<std::size_t>(c)]))) continue;
+          for (int sign : {1, -1}) {
+            w.other_sign = sign;
+            w.wrap_360 = true;
+            consider(s, s2, w);
+          }
         }
       }
     }

@@ -53,6 +53,10 @@ struct DerivedColumn {
 struct DerivedInputs {
   std::vector<std::vector<double>> exact;                        ///< NaN where undefined
   std::vector<std::vector<std::optional<Sexagesimal>>> rounded;  ///< as the author tabulated
+  /// For sums: the signed exact and rounded values of columns that print
+  /// magnitudes (empty where the same as exact and rounded).
+  std::vector<std::vector<double>> exact_signed;
+  std::vector<std::vector<std::optional<Sexagesimal>>> rounded_signed;
 };
 
 /// Finds derived columns. `inputs` (optional) gives exact and rounded

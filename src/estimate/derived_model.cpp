@@ -41,12 +41,14 @@ const char* ToString(DerivedBasis basis) {
 Sexagesimal DerivedRelation::Wrapped(const Sexagesimal& x) const {
   if (!wrap_360) return x;
   const Sexagesimal r = x.Modulo(360);
+  if (kind != Kind::kDifference) return r;
   return r > Sexagesimal::FromUnits(180, 0) ? r - Sexagesimal::FromUnits(360, 0) : r;
 }
 
 double DerivedRelation::Wrapped(double x) const {
   if (!wrap_360) return x;
   x -= 360 * std::floor(x / 360);
+  if (kind != Kind::kDifference) return x;
   return x > 180 ? x - 360 : x;
 }
 
@@ -54,7 +56,10 @@ std::string DerivedRelation::Text(const std::string& source, const std::string& 
   const std::string f = Fraction(multiplier, divisor);
   switch (kind) {
     case Kind::kSum:
-      return f + "the sum of " + source + " and " + other;
+      return f +
+             (other_sign < 0 ? source + " minus " + other
+                             : "the sum of " + source + " and " + other) +
+             (wrap_360 ? " (within the turn)" : "");
     case Kind::kProduct:
       return f + "the product of " + source + " and " + other;
     case Kind::kDifference:
@@ -101,7 +106,13 @@ double DerivedModel::Exact(const DerivedSource& s, const model::RowContext& at) 
   model::RowContext ctx = at;
   ctx.column = at.table ? at.table->ColumnIndex(s.column) : -1;
   ctx.sign = model::SignForm::kConventional;
-  return model::PracticeValue(*s.model, s.params, ctx, s.practice, s.practice.places.value_or(0));
+  model::Practice p = s.practice;
+  // A sum adds the signed quantity, also where the column prints its
+  // magnitude and a rubric gives the sign.
+  if (relation_.kind != DerivedRelation::Kind::kDifference &&
+      s.model->ResolvedSign(p.sign) == model::SignForm::kMagnitude)
+    p.sign = model::SignForm::kSigned;
+  return model::PracticeValue(*s.model, s.params, ctx, p, p.places.value_or(0));
 }
 
 std::optional<Sexagesimal> DerivedModel::Entry(const DerivedSource& s,
@@ -140,10 +151,15 @@ double DerivedModel::Evaluate(const std::vector<double>&, const model::RowContex
     const DerivedSource& t = sources_.at(1);
     if (basis_ == DerivedBasis::kExact) {
       const double a = Exact(s, row), b = Exact(t, row);
-      return (relation_.kind == Kind::kSum ? a + b : a * b) * scale;
+      return relation_.Wrapped(relation_.kind == Kind::kSum ? a + relation_.other_sign * b
+                                                            : a * b) *
+             scale;
     }
     const auto a = Entry(s, row), b = Entry(t, row);
-    if (a && b) x = relation_.kind == Kind::kSum ? std::optional(*a + *b) : Product(*a, *b);
+    if (a && b)
+      x = relation_.kind == Kind::kSum ? std::optional(relation_.other_sign < 0 ? *a - *b : *a + *b)
+                                       : Product(*a, *b);
+    if (x) x = relation_.Wrapped(*x);
   }
   if (!x) return kNaN;
   const Sexagesimal scaled = *x * relation_.multiplier;

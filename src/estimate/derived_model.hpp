@@ -50,10 +50,16 @@ struct DerivedRelation {
   int rows = 1;
   int multiplier = 1;  ///< the result times multiplier / divisor
   int divisor = 1;
+  /// Sum: the first column plus this times the second (-1: true = mean
+  /// minus an equation whose geometric sign is the opposite of the
+  /// correction's).
+  int other_sign = 1;
   /// Differences of positions: brought into (-180, 180] (a motion across
-  /// the turn from 359 to 1 is 2, not -358).
+  /// the turn from 359 to 1 is 2, not -358); sums of positions (true =
+  /// mean + equation): brought into [0, 360), as a position is written.
   bool wrap_360 = false;
-  /// `x` (a difference) brought into (-180, 180] when wrap_360 is set.
+  /// `x` brought into (-180, 180] (a difference) or [0, 360) (a sum or
+  /// product) when wrap_360 is set.
   Sexagesimal Wrapped(const Sexagesimal& x) const;
   double Wrapped(double x) const;
   /// "1/30 of the difference to the next row of chord", "the sum of mean

@@ -125,7 +125,11 @@ const BuiltinModel kSolarEquationByDate(
     "it signed, negated (as the correction) or as magnitudes with a rubric; not displaced.",
     {{"anomaly-radix", "deg", "the sun's mean anomaly at the epoch", 0.0, 0.0, 360.0,
       ParamRole::kAnomalyRadix},
-     {"anomaly-rate", "deg/day", "motion in anomaly per day", kSunPerDay, 0.9, 1.1,
+     // The range: any daily mean motion, the slowest planet's to the moon's
+     // (13;10 deg/day), since a column of equations by date beside a mean
+     // motion of another body on a simple eccentric has the same form
+     // (judgement; the sun's range alone set such columns aside).
+     {"anomaly-rate", "deg/day", "motion in anomaly per day", kSunPerDay, 0.0, 14.0,
       ParamRole::kAnomalyRate},
      {"e", "parts of 60", "eccentricity of the sun's circle", 2.5, 1.0, 4.0}},
     {ModelKind::kPosition, true, SignForm::kSigned, {"equation", "sun", "solar"}, {}},

@@ -27,12 +27,20 @@ estimate::DerivedInputs Inputs(const Transcription& w, const std::vector<ColumnR
   estimate::DerivedInputs in;
   in.exact.resize(w.columns.size());
   in.rounded.resize(w.columns.size());
+  in.exact_signed.resize(w.columns.size());
+  in.rounded_signed.resize(w.columns.size());
   for (const auto& r : refs) {
     const int c = w.ColumnIndex(r.column_name);
     if (c < 0 || !r.explains || !r.derived.empty()) continue;
     const auto re = model::Recompute(*r.model, r.params, w, c, r.practice);
     in.exact[static_cast<std::size_t>(c)] = re.exact;
     in.rounded[static_cast<std::size_t>(c)] = re.computed;
+    if (r.model->ResolvedSign(r.practice.sign) != model::SignForm::kMagnitude) continue;
+    model::Practice p = r.practice;  // a sum adds the signed quantity
+    p.sign = model::SignForm::kSigned;
+    const auto signed_re = model::Recompute(*r.model, r.params, w, c, p);
+    in.exact_signed[static_cast<std::size_t>(c)] = signed_re.exact;
+    in.rounded_signed[static_cast<std::size_t>(c)] = signed_re.computed;
   }
   return in;
 }
@@ -234,6 +242,21 @@ std::optional<ColumnReference> Derived(const Found& f, const std::vector<ColumnR
   return r;
 }
 
+/// `f` makes its column from a column that is itself made from f's column
+/// (true = mean + equation, equation = true - mean): the entries cannot
+/// say which was computed first; the column written after its sources is
+/// taken as the derived one (judgement: tables write a sum after its terms).
+bool Circular(const Found& f, const std::map<std::string, Found>& found, const Transcription& t) {
+  for (const std::string& source : {f.source, f.other}) {
+    auto it = found.find(source);
+    if (source.empty() || it == found.end()) continue;
+    const Found& g = it->second;
+    if (g.source != f.target && g.other != f.target) continue;
+    if (t.ColumnIndex(f.target) < t.ColumnIndex(g.target)) return true;
+  }
+  return false;
+}
+
 }  // namespace
 
 void AddDerivedReferences(const std::vector<const Transcription*>& witnesses,
@@ -241,6 +264,7 @@ void AddDerivedReferences(const std::vector<const Transcription*>& witnesses,
   if (witnesses.empty()) return;
   const auto found = Detect(witnesses, references);
   for (const auto& [name, f] : found) {
+    if (Circular(f, found, *witnesses.front())) continue;
     auto it = std::find_if(references.begin(), references.end(),
                            [&](const ColumnReference& r) { return r.column_name == name; });
     if (it == references.end()) continue;

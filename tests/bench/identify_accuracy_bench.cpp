@@ -1,6 +1,7 @@
 // Accuracy of identification and estimation on the shared generator
 // (tests/synth), built with -DAPOGRAPH_BENCH=ON:
 //   ./build-bench/identify_accuracy_bench [draws=300] [first_seed=1] [max_rate=0.2]
+// (BENCH_VERBOSE=1: every column's reference; BENCH_SEEDS=a,b: those draws only)
 //
 // Each draw: an author's table of one family (synth::DrawTable, families in
 // turn, every other option at the generator's defaults: round, attested and
@@ -204,8 +205,14 @@ int main(int argc, char** argv) {
   std::map<std::string, Tally> rows;
   std::map<double, Tally> by_rate;
   const std::clock_t c0 = std::clock();
+  // BENCH_SEEDS=76,152: only those draws (each with the family it has in
+  // the full run from first_seed), to look at failures one at a time.
+  const char* only = std::getenv("BENCH_SEEDS");
   for (int i = 0; i < draws; ++i) {
     const std::uint64_t seed = first + static_cast<std::uint64_t>(i);
+    if (only && ("," + std::string(only) + ",").find("," + std::to_string(seed) + ",") ==
+                    std::string::npos)
+      continue;
     synth::TableOptions options;
     options.family = families[static_cast<std::size_t>(i) % families.size()];
     synth::Rng rng(seed);
