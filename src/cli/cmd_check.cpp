@@ -27,7 +27,8 @@ extern const char kCheckUsage[] =
     "usage: apograph check --table ID --witness SIGLUM (--model NAME | --formula TEXT | --auto)\n"
     "                      [--param NAME=VALUE]... [--column NAME] [--rounding nearest|truncate]\n"
     "                      [--places N] [--grid G [--grid-origin O] [--round-nodes]]\n"
-    "                      [--displacement D] [--tolerance U] [--revision N] [--flagged-only]\n"
+    "                      [--displacement D] [--sign signed|negated|magnitude]\n"
+    "                      [--tolerance U] [--revision N] [--flagged-only]\n"
     "                      [--format text|csv|json] [--db FILE]\n\n"
     "Recomputes every entry of the column and lists: the argument and reading as written,\n"
     "the value after the practice, the exact value, the difference in units of the last\n"
@@ -217,8 +218,7 @@ int RunCheck(const std::vector<std::string>& args, Io& io) {
   if (t.columns.empty())
     throw InputError::ForOption("--table", ExpectedFound("a table with value columns", "none"));
   request.columns = {o.column.empty() ? t.columns.front().name : o.column};
-  const auto ref =
-      pipeline::ResolveReferences({t}, request, pipeline::LoadModelLibrary(db)).front();
+  const auto ref = pipeline::ResolveReferences({t}, request, LoadModels(db, io)).front();
   const model::CheckReport r =
       model::Check(t, *ref.model, ref.params, ref.practice, tolerance, ref.column);
   const std::optional<std::string> formula_text =

@@ -9,9 +9,11 @@
 #include <nlohmann/json.hpp>
 
 #include "cli/command.hpp"
+#include "cli/estimate_options.hpp"
 #include "cli/reference_options.hpp"
 #include "deviation/explain.hpp"
 #include "deviation/numeral_script.hpp"
+#include "estimate/notation.hpp"
 #include "model/model.hpp"
 #include "pipeline/decisions.hpp"
 #include "pipeline/reference.hpp"
@@ -46,7 +48,8 @@ extern const char kErrorsUsage[] =
     "coarsest sexagesimal values that reproduce as many; with --model (or --formula)\n"
     "only that model is tried, and with practice options too only its parameters are\n"
     "fitted. Practice options: --rounding nearest|truncate, --places N, --grid G\n"
-    "[--grid-origin O] [--round-nodes], --displacement D. Exit 1 when there are findings.\n"
+    "[--grid-origin O] [--round-nodes], --displacement D, --sign signed|negated|magnitude.\n"
+    "Exit 1 when there are findings.\n"
     "\n"
     "example: apograph errors --table sun-eq --witness D --model solar-eccentric --param 'e=2;16' "
     "--grid 6\n"
@@ -77,10 +80,10 @@ std::string ModelText(const pipeline::ColumnReference& r, const Transcription& t
       SpecialPractice(r, t) ? pipeline::DescribePractice(r.practice, *r.practice.places) : "";
   if (r.source == pipeline::ReferenceSource::kGiven)
     return practice.empty() ? out : out + " (" + practice + ")";
-  std::string how = "fitted";
-  if (r.rounded_places > 0) {
-    how += ", rounded to " + std::to_string(r.rounded_places) +
-           (r.rounded_places == 1 ? " place" : " places");
+  std::string how = r.derived.empty() ? "fitted" : "identified";
+  for (const auto& a : r.adopted) {
+    how +=
+        ", " + a.param + " = " + estimate::NumberText(a.value, 6) + " adopted (" + a.source + ")";
   }
   if (!practice.empty()) how += "; entries " + practice;
   return out + " (" + how + ")";
@@ -99,6 +102,17 @@ nlohmann::json ReferenceJson(const pipeline::ColumnReference& r) {
   for (std::size_t i = 0; i < r.params.size() && i < r.model->params().size(); ++i)
     params[r.model->params()[i].name] = r.params[i];
   const auto& p = r.practice;
+  nlohmann::json adopted = nlohmann::json::array();
+  for (const auto& a : r.adopted) {
+    adopted.push_back({{"param", a.param},
+                       {"value", a.value},
+                       {"fitted", a.fitted},
+                       {"stderr", std::isfinite(a.stderr_) ? nlohmann::json(a.stderr_) : nullptr},
+                       {"source", a.source}});
+  }
+  nlohmann::json variants = nlohmann::json::array();
+  for (const auto& v : r.variants)
+    variants.push_back({{"followers", v.followers}, {"description", v.description}});
   return {{"column", r.column_name},
           {"model", r.model->name()},
           {"params", params},
@@ -108,11 +122,17 @@ nlohmann::json ReferenceJson(const pipeline::ColumnReference& r) {
             {"grid", p.grid},
             {"grid_origin", p.grid_origin},
             {"round_nodes", p.round_nodes},
-            {"displacement", p.displacement}}},
+            {"displacement", p.displacement},
+            {"sign", model::ToString(r.model->ResolvedSign(p.sign))}}},
           {"description", r.description},
           {"source", pipeline::ToString(r.source)},
           {"witness", r.witness.empty() ? nlohmann::json(nullptr) : nlohmann::json(r.witness)},
-          {"how", r.how}};
+          {"how", r.how},
+          {"explains", r.explains},
+          {"verdict", r.verdict},
+          {"derived", r.derived},
+          {"adopted", adopted},
+          {"variants", variants}};
 }
 
 nlohmann::json Units(double d) {
@@ -344,9 +364,8 @@ int RunErrors(const std::vector<std::string>& args, Io& io) {
   std::erase_if(witnesses,
                 [&](const Transcription& w) { return w.witness.siglum == t.witness.siglum; });
   witnesses.insert(witnesses.begin(), t);
-  const auto refs =
-      pipeline::ResolveReferences(request.automatic ? witnesses : std::vector<Transcription>{t},
-                                  request, pipeline::LoadModelLibrary(db));
+  const auto refs = pipeline::ResolveReferences(
+      request.automatic ? witnesses : std::vector<Transcription>{t}, request, LoadModels(db, io));
   deviation::ExplainOptions eo;
   eo.tolerance = o.tolerance;
   const auto explained = pipeline::ExplainTradition(witnesses, refs, o.scripts, eo).front();

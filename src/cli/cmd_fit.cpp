@@ -4,6 +4,7 @@
 #include <ostream>
 
 #include "cli/estimate_options.hpp"
+#include "cli/reference_options.hpp"
 #include "estimate/fit.hpp"
 #include "estimate/mean_motion_analysis.hpp"
 #include "estimate/report.hpp"
@@ -17,6 +18,7 @@ extern const char kFitUsage[] =
     "usage: apograph fit --table ID --witness SIGLUM --model NAME [--column NAME]...\n"
     "                    [--fix NAME=VALUE]... [--rounding nearest|truncate] [--places N]\n"
     "                    [--grid G [--grid-origin X] [--round-nodes]] [--displacement VALUE|fit]\n"
+    "                    [--sign signed|negated|magnitude|conventional]\n"
     "                    [--tolerance UNITS] [--solver fast|ceres] [--all-entries]\n"
     "                    [--format text|json] [--db FILE]\n\n"
     "Estimates the model's free parameters by robust least squares (Cauchy loss, scale one\n"
@@ -32,6 +34,7 @@ namespace {
 
 struct FitArgs {
   std::string table, witness, model, rounding, displacement, format, db, solver;
+  std::string sign = "conventional";
   std::vector<std::string> columns, fixes;
   int places = -1;
   double grid = 0, grid_origin = 0, tolerance = 1.0;
@@ -50,6 +53,7 @@ estimate::FitOptions Options(const FitArgs& a, const model::Model& m) {
   o.practice.grid = a.grid;
   o.practice.grid_origin = a.grid_origin;
   o.practice.round_nodes = a.round_nodes;
+  o.practice.sign = ParseSign(a.sign);
   if (a.displacement == "fit")
     o.fit_displacement = true;
   else if (!a.displacement.empty())
@@ -89,6 +93,8 @@ int RunFit(const std::vector<std::string>& args, Io& io) {
       "grid nodes were rounded before interpolating")(
       "displacement", po::value(&a.displacement),
       "constant added to every entry, or 'fit' to estimate it")(
+      "sign", po::value(&a.sign)->default_value("conventional"),
+      "signed, negated, magnitude or conventional (the model's convention)")(
       "tolerance", po::value(&a.tolerance)->default_value(1.0),
       "flag entries more than this many units away")(
       "solver", po::value(&a.solver)->default_value("fast"), "fast or ceres (reference)")(
@@ -101,14 +107,23 @@ int RunFit(const std::vector<std::string>& args, Io& io) {
   CheckChoice("--format", a.format, {"text", "json"});
   CheckChoice("--solver", a.solver, {"fast", "ceres"});
   store::Database db = OpenEdition(a.db);
-  std::unique_ptr<model::Model> holder;
-  const model::Model& m = FindModelOrThrow(a.model, db, holder);
+  const pipeline::ModelLibrary library = LoadModels(db, io);
+  const auto model = library.FindOrThrow(a.model, "--model");
+  const model::Model& m = *model;
   const estimate::FitOptions options = Options(a, m);
   const Transcription t = store::Load(db, a.table, a.witness);
   const std::vector<int> columns = estimate::ResolveColumns(t, a.columns);
-  const auto catalog = store::LoadCatalog(db);
-  const estimate::FitResult fit = estimate::Fit(m, t, columns, options);
-  const bool mm = m.ParamIndex("modulus") >= 0 && columns.size() == 1;
+  const auto& catalog = library.catalog;
+  const auto obs = estimate::CollectObservations(t, columns);
+  if (obs.empty()) {
+    throw InputError::ForOption(
+        "--witness", ExpectedFound("a witness with readable entries in the columns fitted",
+                                   "'" + a.witness +
+                                       "', whose cells there are all blank, "
+                                       "illegible or partly read"));
+  }
+  const estimate::FitResult fit = estimate::Fit(m, t, obs, options);
+  const bool mm = m.traits().kind == model::ModelKind::kMeanMotion && columns.size() == 1;
   if (a.format == "json") {
     auto j = estimate::FitJson(fit, t, catalog);
     if (mm) j["mean_motion"] = estimate::MeanMotionJson(estimate::AnalyseMeanMotion(t, columns[0]));

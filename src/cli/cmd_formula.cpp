@@ -95,8 +95,14 @@ int List(store::Database* db, bool builtin, Format format, Io& io) {
   }
   if (db) {
     for (const auto& f : store::ListFormulas(*db)) {
-      add(*model::CompileFormula(f.text, f.name, "formula " + f.name), "formula",
-          f.description.empty() ? f.text : f.description);
+      try {
+        add(*model::CompileFormula(f.text, f.name, "formula " + f.name), "formula",
+            f.description.empty() ? f.text : f.description);
+      } catch (const InputError& e) {  // saved by an older version: listed with the reason
+        const std::string why = "does not compile: " + e.diagnostics().front().message;
+        t.Add({f.name, "formula", "-", why});
+        out.push_back({{"name", f.name}, {"kind", "formula"}, {"error", why}});
+      }
     }
   }
   if (format == Format::kJson)

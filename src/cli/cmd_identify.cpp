@@ -158,9 +158,10 @@ int RunIdentify(const std::vector<std::string>& args, Io& io) {
   estimate::IdentifyOptions options;
   options.top = top;
   store::Database database = OpenEdition(db);
-  const auto catalog = store::LoadCatalog(database);
-  const auto formulas = SavedFormulaModels(database);
-  for (const auto& f : formulas) options.extra_models.push_back(f.get());
+  const pipeline::ModelLibrary library = LoadModels(database, io);
+  const auto& catalog = library.catalog;
+  options.extra_models = library.FormulaPointers();
+  options.catalog = &catalog;
   std::vector<Job> jobs;
   std::vector<store::RevisionSummary> which;
   if (all)

@@ -3,9 +3,8 @@
 #include <cmath>
 #include <cstdlib>
 
-#include "model/formula.hpp"
-#include "store/estimate_store.hpp"
-#include "store/model_store.hpp"
+#include <ostream>
+
 #include "support/input_error.hpp"
 
 namespace apograph::cli {
@@ -19,30 +18,10 @@ double ParseNumber(const std::string& option, const std::string& text) {
                               ExpectedFound("a number such as 2;4,48 or 2.08", "'" + text + "'"));
 }
 
-const model::Model& FindModelOrThrow(const std::string& name, store::Database& db,
-                                     std::unique_ptr<model::Model>& holder) {
-  if (const model::Model* m = model::FindBuiltinModel(name)) return *m;
-  if (auto saved = store::FindFormula(db, name)) {
-    holder = model::CompileFormula(saved->text, saved->name, "formula " + saved->name);
-    return *holder;
-  }
-  std::string known;
-  for (const auto* m : model::BuiltinModels()) known += (known.empty() ? "" : ", ") + m->name();
-  for (const auto& f : store::ListFormulas(db)) known += ", " + f.name;
-  throw InputError::ForOption("--model",
-                              ExpectedFound("a model or saved formula (" + known + ")", name));
-}
-
-std::vector<std::unique_ptr<model::Model>> SavedFormulaModels(store::Database& db) {
-  std::vector<std::unique_ptr<model::Model>> out;
-  for (const auto& f : store::ListFormulas(db)) {
-    try {
-      out.push_back(model::CompileFormula(f.text, f.name, "formula " + f.name));
-    } catch (const InputError&) {
-      // A saved formula that no longer compiles is skipped (formula show says why).
-    }
-  }
-  return out;
+pipeline::ModelLibrary LoadModels(store::Database& db, Io& io) {
+  pipeline::ModelLibrary lib = pipeline::LoadModelLibrary(db);
+  for (const auto& s : lib.skipped) io.err << "warning: " << s << "\n";
+  return lib;
 }
 
 }  // namespace apograph::cli

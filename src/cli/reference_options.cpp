@@ -19,7 +19,10 @@ void AddReferenceOptions(po::options_description& d, ReferenceArgs& a,
       "grid-origin", po::value(&a.grid_origin)->default_value("0"), "argument of the first node")(
       "round-nodes", po::bool_switch(&a.round_nodes), "round the node values before interpolating")(
       "displacement", po::value(&a.displacement)->default_value("0"),
-      "constant added before rounding");
+      "constant added before rounding")(
+      "sign", po::value(&a.sign)->default_value("conventional"),
+      "how negative values are printed: signed, negated, magnitude or conventional (the "
+      "model's convention)");
   if (!auto_help.empty()) d.add_options()("auto", po::bool_switch(&a.automatic), auto_help.c_str());
 }
 
@@ -35,6 +38,15 @@ std::vector<std::pair<std::string, double>> ParseParams(const std::vector<std::s
                      ParseNumber("--param " + item.substr(0, eq), item.substr(eq + 1)));
   }
   return out;
+}
+
+model::SignForm ParseSign(const std::string& text) {
+  const auto form = model::SignFormFromString(text);
+  if (!form) {
+    throw InputError::ForOption(
+        "--sign", ExpectedFound("signed, negated, magnitude or conventional", "'" + text + "'"));
+  }
+  return *form;
 }
 
 namespace {
@@ -62,6 +74,7 @@ model::Practice ParsePractice(const ReferenceArgs& a) {
   p.grid_origin = ParseNumber("--grid-origin", a.grid_origin);
   p.round_nodes = a.round_nodes;
   p.displacement = ParseNumber("--displacement", a.displacement);
+  p.sign = ParseSign(a.sign);
   return p;
 }
 
@@ -78,7 +91,7 @@ pipeline::ReferenceRequest ToReferenceRequest(const ReferenceArgs& a, const po::
   r.practice = ParsePractice(a);
   r.automatic = a.automatic;
   for (const char* o :
-       {"rounding", "places", "grid", "grid-origin", "round-nodes", "displacement"}) {
+       {"rounding", "places", "grid", "grid-origin", "round-nodes", "displacement", "sign"}) {
     if (Given(vm, o) && !(std::string(o) == "round-nodes" && !a.round_nodes))
       r.practice_given = true;
   }

@@ -2,7 +2,7 @@
 // The model and practice options shared by check, errors, collate, stemma
 // and apparatus (internal to the CLI): --model NAME | --formula TEXT,
 // --param NAME=VALUE..., --rounding, --places, --grid, --grid-origin,
-// --round-nodes, --displacement, and --auto.
+// --round-nodes, --displacement, --sign, and --auto.
 
 #include <string>
 #include <utility>
@@ -19,6 +19,7 @@ struct ReferenceArgs {
   std::string rounding = "nearest";
   int places = -1;
   std::string grid = "0", grid_origin = "0", displacement = "0";
+  std::string sign = "conventional";
   bool round_nodes = false;
   bool automatic = false;
 };
@@ -26,6 +27,9 @@ struct ReferenceArgs {
 /// Adds the options; --auto only when `auto_help` is not empty (its help text).
 void AddReferenceOptions(po::options_description& options, ReferenceArgs& args,
                          const std::string& auto_help = "");
+
+/// "signed", "negated", "magnitude" or "conventional"; InputError naming --sign.
+model::SignForm ParseSign(const std::string& text);
 
 /// NAME=VALUE items; values in the trade's notation or decimal. InputError
 /// naming `--param` (or `--param NAME` for a bad value).

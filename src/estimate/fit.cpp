@@ -5,7 +5,9 @@
 #include <limits>
 #include <stdexcept>
 
+#include "estimate/fit_covariance.hpp"
 #include "estimate/fit_solver.hpp"
+#include "estimate/fit_starts.hpp"
 
 namespace apograph::estimate {
 
@@ -82,28 +84,70 @@ void Summarise(internal::FitProblem& problem, const std::vector<Observation>& ob
   result.robust_scale = internal::RobustScale(residuals);
 }
 
+/// The combinations the model names whose parameters are all free and not
+/// separable, with their values and errors (delta method on the
+/// pseudo-inverse covariance, by central differences).
+void Combinations(const model::Model& model, internal::FitProblem& problem,
+                  const std::vector<double>& x, const internal::Covariance& cov, double scale,
+                  FitResult& result) {
+  const int k = static_cast<int>(x.size());
+  for (const auto& c : model.traits().combinations) {
+    bool involved = false;
+    for (const auto& p : result.params) {
+      for (const auto& name : c.params) involved = involved || (p.name == name && !p.separable);
+    }
+    if (!involved || !c.value) continue;
+    std::vector<double> full = problem.Expand(x.data());
+    DeterminedCombination d{c.params, c.text, c.value(full.data()), 0};
+    std::vector<double> g(static_cast<std::size_t>(k), 0.0);
+    for (int j = 0; j < k; ++j) {
+      const int m = problem.ModelIndex(j);
+      if (m < 0) continue;
+      const double h = 1e-6 * std::max(std::fabs(full[m]), 1.0);
+      std::vector<double> up = full, down = full;
+      up[m] += h;
+      down[m] -= h;
+      g[j] = (c.value(up.data()) - c.value(down.data())) / (2 * h);
+    }
+    double var = 0;
+    for (int i = 0; i < k; ++i)
+      for (int j = 0; j < k; ++j) var += g[i] * cov.matrix[i * k + j] * g[j];
+    d.stderr_ = std::sqrt(std::max(var, 0.0)) * scale;
+    result.combinations.push_back(d);
+  }
+  problem.Expand(x.data());
+}
+
+/// Parameters with standard errors from the normal matrix at the optimum
+/// (scaled by `scale`, units); parameters the entries cannot separate get
+/// NaN and the model's combinations are reported instead.
 void FillParams(const model::Model& model, internal::FitProblem& problem,
                 const internal::SolveOutcome& s, double scale, FitResult& result) {
   const auto& specs = model.params();
   const auto& full = problem.Expand(s.x.data());
   result.params.clear();
   for (std::size_t j = 0; j < specs.size(); ++j) {
-    result.params.push_back({specs[j].name, specs[j].unit, full[j], 0, true});
+    result.params.push_back({specs[j].name, specs[j].unit, full[j], 0, true, true});
   }
   const int k = problem.num_free();
+  const internal::Covariance cov = internal::CovarianceOf(s.normal, k);
+  const double nan = std::numeric_limits<double>::quiet_NaN();
   for (int j = 0; j < k; ++j) {
-    const double var = s.covariance.empty() ? std::numeric_limits<double>::quiet_NaN()
-                                            : s.covariance[static_cast<std::size_t>(j * k + j)];
+    const bool known = !cov.matrix.empty() && cov.separable[static_cast<std::size_t>(j)];
+    const double var = known ? cov.matrix[static_cast<std::size_t>(j * k + j)] : nan;
     const double se = std::sqrt(std::max(var, 0.0)) * scale;
     const int m = problem.ModelIndex(j);
     if (m >= 0) {
-      result.params[static_cast<std::size_t>(m)].fixed = false;
-      result.params[static_cast<std::size_t>(m)].stderr_ = se;
+      auto& p = result.params[static_cast<std::size_t>(m)];
+      p.fixed = false;
+      p.separable = known;
+      p.stderr_ = known ? se : nan;
     } else {
-      result.displacement_stderr = se;
+      result.displacement_stderr = known ? se : nan;
     }
   }
   result.free_parameters = k;
+  if (cov.degenerate && !cov.matrix.empty()) Combinations(model, problem, s.x, cov, scale, result);
 }
 
 /// Every start solved in full (the reference solver); the best.
@@ -134,48 +178,6 @@ bool SameOptimum(const std::vector<double>& x, const internal::SolveOutcome& s, 
 /// The fast solver: every start brought near its optimum on a subsample,
 /// then refined on every entry unless it came to an optimum already refined
 /// (several grid starts usually share one basin).
-/// A start for a mean motion read off the entries themselves. Its cost
-/// modulo 360 has a basin far narrower than any grid over the rate's range
-/// (at 3 places, 1e-6 deg a day is 9 units after 40 days), so the grid alone
-/// misses it. The rate: the median of the local rates between neighbouring
-/// entries (each step taken modulo 360, as a table never advances a whole
-/// turn between rows); the radix: the median of entry - rate x argument.
-/// Empty when the model has no free rate or there are too few entries.
-std::vector<double> MeanMotionStart(const model::Model& model, internal::FitProblem& problem,
-                                    const std::vector<Observation>& obs, std::vector<double> x) {
-  int rate = -1, radix = -1;
-  for (int j = 0; j < static_cast<int>(x.size()); ++j) {
-    const int m = problem.ModelIndex(j);
-    if (m >= 0 && model.params()[static_cast<std::size_t>(m)].name == "rate") rate = j;
-    if (m >= 0 && model.params()[static_cast<std::size_t>(m)].name == "radix") radix = j;
-  }
-  if (rate < 0 || obs.size() < 3) return {};
-  std::vector<double> rates;
-  for (std::size_t i = 1; i < obs.size(); ++i) {
-    const double da = obs[i].arg - obs[i - 1].arg;
-    if (obs[i].column != obs[i - 1].column || !(da > 0)) continue;
-    const double dv =
-        std::fmod(obs[i].value.ToDouble() - obs[i - 1].value.ToDouble() + 720.0, 360.0);
-    rates.push_back(dv / da);
-  }
-  if (rates.size() < 2) return {};
-  std::nth_element(rates.begin(), rates.begin() + static_cast<std::ptrdiff_t>(rates.size() / 2),
-                   rates.end());
-  x[static_cast<std::size_t>(rate)] = rates[rates.size() / 2];
-  if (radix >= 0) {
-    std::vector<double> radices;
-    for (const auto& o : obs) {
-      radices.push_back(std::fmod(
-          o.value.ToDouble() - x[static_cast<std::size_t>(rate)] * o.arg + 3600.0 * 360.0, 360.0));
-    }
-    std::nth_element(radices.begin(),
-                     radices.begin() + static_cast<std::ptrdiff_t>(radices.size() / 2),
-                     radices.end());
-    x[static_cast<std::size_t>(radix)] = radices[radices.size() / 2];
-  }
-  return x;
-}
-
 internal::SolveOutcome SolveDistinct(internal::FitProblem& problem,
                                      const std::vector<std::vector<double>>& starts,
                                      const FitOptions& options) {
@@ -231,47 +233,147 @@ void Polish(internal::FitProblem& problem, double loss_scale, internal::SolveOut
   }
 }
 
+/// Angles the values depend on only modulo 360 (a radix when the values
+/// are reduced, an apogee, an anomaly's radix) brought into [0, 360), so
+/// that equal explanations show equal numbers.
+void CanonicalAngles(const model::Model& model, const internal::FitProblem& problem,
+                     const FitOptions& options, std::vector<double>& x) {
+  for (int j = 0; j < static_cast<int>(x.size()); ++j) {
+    const int m = problem.ModelIndex(j);
+    if (m < 0) continue;
+    const auto role = model.params()[static_cast<std::size_t>(m)].role;
+    const bool periodic = role == model::ParamRole::kApogee ||
+                          role == model::ParamRole::kAnomalyRadix ||
+                          (role == model::ParamRole::kRadix && options.modulo_360);
+    if (!periodic) continue;
+    double& v = x[static_cast<std::size_t>(j)];
+    v = std::fmod(v, 360.0);
+    if (v < 0) v += 360;
+  }
+}
+
+/// The options with what the model implies: a model reduced modulo a circle
+/// (a positive modulus) is compared modulo 360. Throws for a fixed
+/// parameter the model does not have.
+FitOptions Prepared(const model::Model& model, const FitOptions& given) {
+  FitOptions options = given;
+  if (const int m = model.ParamIndex(model::ParamRole::kModulus); m >= 0) {
+    const auto& spec = model.params()[static_cast<std::size_t>(m)];
+    auto f = options.fixed.find(spec.name);
+    const double modulus = f != options.fixed.end() ? f->second : spec.default_value;
+    options.modulo_360 = options.modulo_360 || modulus > 0;
+  }
+  for (const auto& [name, v] : options.fixed) {
+    if (model.ParamIndex(name) < 0)
+      throw std::invalid_argument("model " + model.name() + " has no parameter " + name);
+  }
+  return options;
+}
+
+/// Where the solver starts: the caller's start alone when given; otherwise
+/// the start read off the entries for a mean motion or a table of
+/// positions, then the grid's (see fit_starts.hpp).
+std::vector<std::vector<double>> Starts(const model::Model& model, internal::FitProblem& problem,
+                                        const std::vector<Observation>& obs,
+                                        const FitOptions& options, const std::vector<double>& x0) {
+  if (!options.start.empty()) return {x0};
+  std::vector<std::vector<double>> starts;
+  if (auto p = internal::PositionStarts(model, problem, obs, x0); !p.empty()) {
+    starts = std::move(p);
+  } else if (problem.modulo()) {
+    if (auto mm = internal::MeanMotionStart(model, problem, obs, x0); !mm.empty())
+      starts.push_back(std::move(mm));
+  }
+  if (model.traits().kind != model::ModelKind::kPosition || starts.empty()) {
+    for (auto& g : internal::GridStarts(problem, x0, options.loss_scale, 2))
+      starts.push_back(std::move(g));
+  }
+  return starts;
+}
+
+/// Entries within this many units of the robust estimate, at least, are
+/// inliers for the least-squares refit. Judgement: an entry rounded by the
+/// author lies within half a unit, one of the author's departures within
+/// one or two; a copyist's slip of a digit or a place is further off.
+constexpr double kInlierUnits = 2.5;
+/// ... or within this many robust scales (for models that do not reproduce
+/// the entries to a unit). Judgement, the usual rejection rule.
+constexpr double kInlierScales = 3;
+
+/// The least-squares refit on the inliers of `best` (see fit.hpp), with the
+/// scale its standard errors take: the inliers' robust scale (1.4826 MAD,
+/// at least the rounding's 1/sqrt(12); for rounded entries about 0.37
+/// units, which the calibration test in tests/estimate/fit_test.cpp finds
+/// right for rounding errors, deterministic as they are). Returns false (nothing changed) for a
+/// hopeless fit or when too few entries remain.
+bool RefitInliers(const model::Model& model, const Transcription& table,
+                  const std::vector<Observation>& obs, const FitOptions& options,
+                  internal::FitProblem& problem, internal::SolveOutcome& best, double& scale,
+                  int& inliers) {
+  const std::size_t n = obs.size();
+  std::vector<double> r(n);
+  problem.Residuals(best.x.data(), r.data());
+  const double robust = internal::RobustScale(r);
+  scale = robust;
+  inliers = static_cast<int>(n);
+  if (best.hopeless || best.x.empty()) return false;
+  const double limit = std::max(kInlierUnits, kInlierScales * robust);
+  std::vector<Observation> kept;
+  for (std::size_t i = 0; i < n; ++i) {
+    if (std::fabs(r[i]) <= limit) kept.push_back(obs[i]);
+  }
+  if (kept.size() < best.x.size() + 2) return false;
+  FitOptions ls = options;
+  ls.loss_scale = 1e6;  // Cauchy at this scale is least squares for residuals of a few units
+  internal::FitProblem on(model, table, kept, ls);
+  internal::SolveOutcome refit = options.solver == Solver::kCeres
+                                     ? internal::SolveCeres(on, best.x, ls.loss_scale, 20)
+                                     : internal::Refine(on, best.x, ls.loss_scale, 20);
+  if (options.solver == Solver::kCeres && !refit.covariance.empty())
+    refit.normal = internal::Inverse(refit.covariance, static_cast<int>(best.x.size()));
+  r.resize(kept.size());
+  on.Residuals(refit.x.data(), r.data());
+  scale = internal::RobustScale(r);
+  inliers = static_cast<int>(kept.size());
+  best.x = refit.x;
+  best.normal = refit.normal;
+  best.covariance = refit.covariance;
+  best.values.clear();  // the summary evaluates every entry at the new point
+  best.iterations += refit.iterations;
+  return true;
+}
+
 }  // namespace
 
 FitResult Fit(const model::Model& model, const Transcription& table,
               const std::vector<Observation>& obs, const FitOptions& given) {
-  FitOptions options = given;
-  // A model reduced modulo a circle is compared modulo 360.
-  if (const int m = model.ParamIndex("modulus"); m >= 0) {
-    auto f = options.fixed.find("modulus");
-    const double modulus = f != options.fixed.end()
-                               ? f->second
-                               : model.params()[static_cast<std::size_t>(m)].default_value;
-    options.modulo_360 = options.modulo_360 || modulus > 0;
-  }
-  for (const auto& [name, v] : options.fixed) {
-    bool known = false;
-    for (const auto& p : model.params()) known = known || p.name == name;
-    if (!known) throw std::invalid_argument("model " + model.name() + " has no parameter " + name);
-  }
+  const FitOptions options = Prepared(model, given);
   internal::FitProblem problem(model, table, obs, options);
   FitResult result;
   result.model = model.name();
   result.practice = options.practice;
   const std::vector<double> x0 = problem.Start(options);
-  std::vector<std::vector<double>> starts =
-      options.start.empty() ? internal::GridStarts(problem, x0, options.loss_scale, 2)
-                            : std::vector<std::vector<double>>{x0};
-  if (options.start.empty() && problem.modulo()) {
-    if (auto mm = MeanMotionStart(model, problem, obs, x0); !mm.empty())
-      starts.insert(starts.begin(), mm);
+  if (obs.empty()) {  // nothing to estimate from: the defaults, said to be unconverged
+    internal::SolveOutcome none;
+    none.x = x0;
+    FillParams(model, problem, none, 0, result);
+    return result;
   }
+  const auto starts = Starts(model, problem, obs, options, x0);
   internal::SolveOutcome best = options.solver == Solver::kCeres
                                     ? SolveEach(problem, starts, options)
                                     : SolveDistinct(problem, starts, options);
   if (best.x.empty()) best.x = x0;
+  double scale = 0;
+  RefitInliers(model, table, obs, options, problem, best, scale, result.inliers);
+  CanonicalAngles(model, problem, options, best.x);
   if (options.practice.round_nodes && options.practice.grid > 0)
     Polish(problem, options.loss_scale, best);
   result.cost = best.cost;
   result.converged = best.converged;
   result.iterations = best.iterations;
   Summarise(problem, obs, options, best.x.data(), result, &best.values);
-  FillParams(model, problem, best, result.robust_scale, result);
+  FillParams(model, problem, best, scale, result);
   result.practice.displacement = problem.Displacement(best.x.data());
   return result;
 }

@@ -4,12 +4,25 @@
 /// Residuals are measured in units of each entry's last place between the
 /// model's value under the computing practice (interpolation grid,
 /// displacement; truncation counts half a unit low on average) and the
-/// tabulated value. A Cauchy loss of scale ~1 unit keeps a few miscopied
-/// entries from pulling the estimate. The global optimum is sought from a
-/// coarse grid over each free parameter's historical range (ParamSpec
-/// low..high) evaluated on a subsample, then refined by Levenberg-Marquardt
-/// on every entry. Standard errors come from the covariance at the optimum,
-/// scaled by the robust residual scale.
+/// tabulated value. Robust by design, in three steps:
+///  1. starts that cover each free parameter's historical range (a coarse
+///     grid over ParamSpec low..high scored on a subsample), plus starts read
+///     off the entries for mean motions (the median local rate) and tables
+///     of positions (their harmonics), plus the caller's;
+///  2. from each start, a graduated schedule of Cauchy loss scales: first
+///     the residuals' robust spread (1.4826 x median absolute deviation),
+///     then ever smaller down to ~1 unit, so that gross errors (repetitions,
+///     displaced runs, digit slips: up to a fifth of the entries) fall into
+///     the loss's flat tail and stop pulling, while a start far off still
+///     sees the slope toward the right basin (the Cauchy loss redescends:
+///     an entry's influence falls to 0 far out);
+///  3. a least-squares refit on the inliers (entries within max(2.5 units,
+///     3 robust scales) of the robust estimate), which gives the estimate
+///     and its covariance; standard errors are scaled by the inliers' robust
+///     scale (1.4826 MAD, at least the rounding's 1/sqrt(12)).
+/// Parameters the entries cannot separate (they enter only as a
+/// combination) are reported as such, with the combination that is
+/// determined when the model names it, never with a standard error of 0.
 ///
 /// Two solvers give the same answer: a small dense Levenberg-Marquardt
 /// written for 1-8 parameters (the default; no allocation per iteration) and
@@ -70,8 +83,19 @@ struct FittedParam {
   std::string name;
   std::string unit;
   double value = 0;
-  double stderr_ = 0;  ///< 0 for fixed parameters
+  double stderr_ = 0;  ///< 0 for fixed parameters; NaN when not separable
   bool fixed = false;
+  /// False when the entries do not fix this parameter apart from another
+  /// (only a combination of them): stderr_ is then NaN.
+  bool separable = true;
+};
+
+/// A combination of parameters that the entries determine although the
+/// parameters themselves are not separable.
+struct DeterminedCombination {
+  std::vector<std::string> params;  ///< the parameters it combines
+  std::string text;                 ///< "60 r/(60 + e)"; empty when the model names none
+  double value = 0, stderr_ = 0;    ///< NaN when the model names no combination
 };
 
 /// One entry after the fit, as `check` lists it.
@@ -96,16 +120,20 @@ struct FitResult {
   double robust_scale = 0;  ///< 1.4826 MAD of residuals, units
   double cost = 0;          ///< robust cost at the optimum
   int n = 0, exact = 0, within1 = 0, flagged = 0;
+  int inliers = 0;  ///< entries the least-squares refit used
   std::vector<FitEntry> entries;
   bool converged = false;
   int iterations = 0;
+  /// Combinations determined where parameters are not separable.
+  std::vector<DeterminedCombination> combinations;
 
   /// Value of a parameter by name (fixed or free); throws if unknown.
   double Value(const std::string& name) const;
   std::vector<double> Values() const;
 };
 
-/// Fits `model` to the entries `obs` (all from `table`).
+/// Fits `model` to the entries `obs` (all from `table`). With no entry the
+/// result has n = 0, the defaults as values and converged = false.
 FitResult Fit(const model::Model& model, const Transcription& table,
               const std::vector<Observation>& obs, const FitOptions& options);
 

@@ -21,7 +21,7 @@ FitProblem::FitProblem(const model::Model& model, const Transcription& table,
       full_[j] = f->second;
       continue;
     }
-    if (IsStructural(specs[j].name) && !options.start.count(specs[j].name)) continue;
+    if (IsStructural(specs[j]) && !options.start.count(specs[j].name)) continue;
     free_index_.push_back(static_cast<int>(j));
     double lo = specs[j].low, hi = specs[j].high;
     if (!(hi > lo)) {

@@ -41,9 +41,12 @@ class FitProblem {
   double Value(std::size_t i, const double* x);
   /// The residual of entry i when the model's value (as from Value) is v.
   double ResidualOf(std::size_t i, double v) const;
-  /// Parameters never estimated unless the user frees them by --start:
-  /// "modulus" of the mean-motion models (a convention, not a quantity).
-  static bool IsStructural(const std::string& name) { return name == "modulus"; }
+  /// Parameters never estimated unless the user frees them by --start: the
+  /// modulus of the mean-motion and position models (a convention, not a
+  /// quantity).
+  static bool IsStructural(const model::ParamSpec& spec) {
+    return spec.role == model::ParamRole::kModulus;
+  }
   /// Full model parameter vector for a free vector.
   const std::vector<double>& Expand(const double* x);
   double Displacement(const double* x) const;
@@ -52,6 +55,8 @@ class FitProblem {
   int places(std::size_t i) const { return entries_[i].places; }
   /// Residuals wrap modulo 360.
   bool modulo() const { return modulo_; }
+  /// The practice (without the displacement, which is added separately).
+  const model::Practice& practice() const { return practice_; }
 
  private:
   struct Entry {

@@ -34,7 +34,8 @@ bool SolveSmall(std::vector<double> A, std::vector<double>& b, int k) {
   return true;
 }
 
-/// Inverse of a small symmetric matrix (empty when singular).
+}  // namespace
+
 std::vector<double> Inverse(const std::vector<double>& A, int k) {
   std::vector<double> inv(static_cast<std::size_t>(k * k));
   for (int c = 0; c < k; ++c) {
@@ -45,6 +46,8 @@ std::vector<double> Inverse(const std::vector<double>& A, int k) {
   }
   return inv;
 }
+
+namespace {
 
 struct Buffers {
   std::vector<double> r, r2, J, J2, v, v2, A, H, g, trial, delta, M;
@@ -165,8 +168,7 @@ double Minimise(FitProblem& p, std::vector<double>& x, double s, int max_iterati
         lambda = std::max(lambda * 10, 0.1);
       }
     }
-    if (!improved ||
-        before - cost <= kCostTolerance * before) {  // no descent left, or too little to matter
+    if (!improved || before - cost <= kCostTolerance * before) {  // little or no descent left
       if (improved) Normal(k, s, b);
       out.converged = true;
       break;
@@ -176,11 +178,20 @@ double Minimise(FitProblem& p, std::vector<double>& x, double s, int max_iterati
   return cost;
 }
 
-/// Residual spread (1.4826 MAD, units) after the wide-scale pass beyond
-/// which the model explains the column so badly that refining at the loss
-/// scale of ~1 unit (every entry then in the loss's flat tail) would only
-/// crawl: the wide-scale estimate stands (its robust scale says how bad).
+/// Residual spread (1.4826 MAD, units) beyond which a model that still
+/// spreads its residuals wider than the loss scale it was just fitted at
+/// explains the column so badly that going on to smaller scales (every entry
+/// then in the loss's flat tail) would only crawl: that estimate stands, and
+/// its robust scale says how bad it is. Judgement: an entry 20 units off is a
+/// gross misfit in any table, and a right model's residuals shrink below
+/// the scale at every step of the schedule.
 constexpr double kHopeless = 20;
+
+/// How much the loss scale shrinks at each step of the schedule (at least).
+/// Judgement: a factor of 4 keeps the entries that fit inside the loss's
+/// quadratic zone from one step to the next, and takes about 8 steps from a
+/// start 10^5 units off down to one unit.
+constexpr double kShrink = 4;
 
 /// At most m entries spread evenly over n.
 std::vector<std::size_t> Subsample(std::size_t n, std::size_t m) {
@@ -191,11 +202,37 @@ std::vector<std::size_t> Subsample(std::size_t n, std::size_t m) {
 }
 
 /// 1.4826 x the median absolute value (no floor).
-double Mad(std::vector<double> r) {
-  for (double& v : r) v = std::fabs(v);
-  auto mid = r.begin() + static_cast<std::ptrdiff_t>(r.size() / 2);
-  std::nth_element(r.begin(), mid, r.end());
-  return r.empty() ? 0 : 1.4826 * *mid;
+double Mad(const std::vector<double>& r, std::size_t n) {
+  std::vector<double> a(r.begin(), r.begin() + static_cast<std::ptrdiff_t>(n));
+  for (double& v : a) v = std::fabs(v);
+  auto mid = a.begin() + static_cast<std::ptrdiff_t>(a.size() / 2);
+  std::nth_element(a.begin(), mid, a.end());
+  return a.empty() ? 0 : 1.4826 * *mid;
+}
+
+/// The graduated schedule (graduated non-convexity): minimise at a loss
+/// scale matched to the residuals' spread (1.4826 MAD, a robust scale), then
+/// at ever smaller scales down to `s`: a scale never below 1/kShrink of the
+/// one before nor below three times the spread just reached, so that the
+/// entries the model fits stay in the loss's quadratic zone while gross
+/// errors fall into its flat tail and stop pulling (the Cauchy loss
+/// redescends: its influence falls to 0 far out). Each step starts where
+/// the last ended, so a start far off (every residual huge) reaches the
+/// right basin where the plain loss at one unit would see no slope. Returns
+/// false when the model proves hopeless (see kHopeless): x is then the
+/// estimate at the last scale tried. On entry b holds the linearisation at
+/// x (Buffers::At).
+bool Anneal(FitProblem& p, std::vector<double>& x, double s, int max_iterations, double tol,
+            Buffers& b, SolveOutcome& out) {
+  double sigma = std::max(Mad(b.r, b.n), s);
+  while (sigma > s) {
+    Minimise(p, x, sigma, max_iterations, 0.3, false, b, out);
+    const double spread = Mad(b.r, b.n);
+    if (spread > sigma && spread > kHopeless * s) return false;
+    sigma = std::max(s, std::min(sigma / kShrink, 3 * spread));
+  }
+  out.cost = Minimise(p, x, s, max_iterations, tol, true, b, out);
+  return true;
 }
 
 }  // namespace
@@ -210,12 +247,7 @@ std::vector<double> Approach(FitProblem& p, std::vector<double> x, double s, int
   b.n = sub.size();
   b.At(p, x);
   SolveOutcome ignored;
-  const double wide = Mad(std::vector<double>(b.r.begin(), b.r.end()));
-  if (wide > 4 * s) {
-    Minimise(p, x, wide, max_iterations, 0.3, false, b, ignored);
-    if (Mad(b.r) > kHopeless * s) return x;
-  }
-  Minimise(p, x, s, max_iterations, 0.3, true, b, ignored);
+  Anneal(p, x, s, max_iterations, 0.3, b, ignored);
   return x;
 }
 
@@ -233,94 +265,20 @@ SolveOutcome Refine(FitProblem& p, std::vector<double> x, double s, int max_iter
     out.values = std::move(b.v);
     return out;
   }
-  const double wide_all = Mad(b.r);
-  if (wide_all > 4 * s) {
-    out.cost = Minimise(p, x, wide_all, max_iterations, 0.3, false, b, out);
-    const double spread = Mad(b.r);
-    if (spread > kHopeless * s) {  // every entry in the loss's tail: s measures nothing
-      out.cost = CauchyCost(b.r.data(), n, s);
-      out.x = x;
-      out.covariance = Inverse(b.A, k);
-      out.values = std::move(b.v);
-      return out;
-    }
+  if (!Anneal(p, x, s, max_iterations, 0.01, b, out)) {
+    out.cost = CauchyCost(b.r.data(), n, s);
+    out.converged = false;
+    out.hopeless = true;
   }
-  out.converged = false;
-  out.cost = Minimise(p, x, s, max_iterations, 0.01, true, b, out);
   out.x = x;
   out.covariance = Inverse(b.A, k);
+  out.normal = b.A;
   out.values = std::move(b.v);
   return out;
 }
 
 SolveOutcome SolveFast(FitProblem& p, std::vector<double> x, double s, int max_iterations) {
   return Refine(p, Approach(p, std::move(x), s, max_iterations), s, max_iterations);
-}
-
-std::vector<std::vector<double>> GridStarts(FitProblem& p, const std::vector<double>& x0, double s,
-                                            int count) {
-  const int k = static_cast<int>(x0.size());
-  const int free_model = static_cast<int>(p.lows().size());
-  if (k == 0 || free_model == 0) return {x0};
-  // A subsample of at most 40 entries spread over the table.
-  const std::vector<std::size_t> sub = Subsample(p.size(), 24);
-  std::vector<double> r(sub.size()), scales(sub.size());
-  for (std::size_t i = 0; i < sub.size(); ++i) scales[i] = std::pow(60.0, p.places(sub[i]));
-  const double scale0 = scales[0];
-  const int per_dim = free_model == 1 ? 12 : free_model == 2 ? 9 : free_model == 3 ? 5 : 3;
-  std::size_t total = 1;
-  for (int j = 0; j < free_model; ++j) total *= static_cast<std::size_t>(per_dim);
-  std::vector<std::pair<double, std::vector<double>>> scored;
-  std::vector<double> x = x0;
-  for (std::size_t idx = 0; idx < total && idx < 20000; ++idx) {
-    std::size_t rem = idx;
-    for (int j = 0; j < free_model; ++j) {
-      const double t = (static_cast<double>(rem % per_dim) + 0.5) / per_dim;
-      rem /= per_dim;
-      x[j] = p.lows()[j] + t * (p.highs()[j] - p.lows()[j]);
-    }
-    if (k > free_model) {  // displacement: its best value given the others
-      x[k - 1] = 0;
-      p.Residuals(x.data(), r.data(), &sub);
-      std::vector<double> tmp(r);
-      std::nth_element(tmp.begin(), tmp.begin() + static_cast<std::ptrdiff_t>(tmp.size() / 2),
-                       tmp.end());
-      const double median = tmp[tmp.size() / 2];
-      x[k - 1] = median / scale0;
-      if (p.modulo()) {
-        p.Residuals(x.data(), r.data(), &sub);
-      } else {  // a displacement d moves every residual by d 60^places: no second pass
-        for (std::size_t i = 0; i < sub.size(); ++i) r[i] -= x[k - 1] * scales[i];
-      }
-    } else {
-      p.Residuals(x.data(), r.data(), &sub);
-    }
-    scored.emplace_back(CauchyCost(r.data(), r.size(), s), x);
-  }
-  std::sort(scored.begin(), scored.end(),
-            [](const auto& a, const auto& b) { return a.first < b.first; });
-  // The best grid point, then others whose subsample cost is close to it
-  // (rival basins), then the caller's start when it is competitive.
-  std::vector<std::vector<double>> starts;
-  const double best = scored.front().first;
-  auto near_chosen = [&](const std::vector<double>& v) {
-    for (const auto& c : starts) {
-      bool near = true;
-      for (int j = 0; j < free_model; ++j) {
-        near = near && std::fabs(v[j] - c[j]) <= 1.01 * (p.highs()[j] - p.lows()[j]) / per_dim;
-      }
-      if (near) return true;
-    }
-    return false;
-  };
-  for (const auto& [c, v] : scored) {
-    if (static_cast<int>(starts.size()) >= count || c > best * 1.1 + 1e-9) break;
-    if (!near_chosen(v)) starts.push_back(v);
-  }
-  p.Residuals(x0.data(), r.data(), &sub);
-  if (CauchyCost(r.data(), r.size(), s) <= best * 1.1 + 1e-9 && !near_chosen(x0))
-    starts.push_back(x0);
-  return starts;
 }
 
 }  // namespace apograph::estimate::internal

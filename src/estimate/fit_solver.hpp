@@ -13,9 +13,16 @@ struct SolveOutcome {
   /// The model's value (FitProblem::Value) at x for every entry, when the
   /// solver has them (saves the summary a pass); empty otherwise.
   std::vector<double> values;
+  /// The weighted normal matrix J'WJ at x (k x k, row-major), whose
+  /// inverse is `covariance` (kept to tell parameters the entries cannot
+  /// separate); empty when the solver does not give it.
+  std::vector<double> normal;
   double cost = 0;
   int iterations = 0;
   bool converged = false;
+  /// The residuals stayed wider than every loss scale tried (see Anneal in
+  /// fit_solver.cpp): the model does not explain the entries.
+  bool hopeless = false;
 };
 
 /// Dense Levenberg-Marquardt with Cauchy weights, the Jacobian from
@@ -25,15 +32,17 @@ SolveOutcome SolveFast(FitProblem& problem, std::vector<double> x, double loss_s
                        int max_iterations);
 
 /// SolveFast's first stage: from a start far from the optimum, where every
-/// residual lies in the Cauchy loss's flat tail, a few steps at a scale
-/// matched to the residuals, then at `loss_scale`, all on a subsample of at
-/// most 40 entries (when the problem has more than twice as many). Brings x
-/// close to the optimum cheaply; returns it.
+/// residual lies in the Cauchy loss's flat tail, the graduated schedule of
+/// loss scales (from the residuals' robust spread down to `loss_scale`), all
+/// on a subsample of at most 40 entries (when the problem has more than
+/// twice as many). Brings x close to the optimum cheaply; returns it.
 std::vector<double> Approach(FitProblem& problem, std::vector<double> x, double loss_scale,
                              int max_iterations);
 
-/// SolveFast's second stage, on every entry: converged when the next Newton
-/// step would move no parameter by more than 1/100 of its standard error.
+/// SolveFast's second stage, on every entry: the same schedule from where
+/// Approach left off (usually one step), then converged when the next
+/// Newton step would move no parameter by more than 1/100 of its standard
+/// error.
 SolveOutcome Refine(FitProblem& problem, std::vector<double> x, double loss_scale,
                     int max_iterations);
 
@@ -42,9 +51,8 @@ SolveOutcome Refine(FitProblem& problem, std::vector<double> x, double loss_scal
 SolveOutcome SolveCeres(FitProblem& problem, std::vector<double> x, double loss_scale,
                         int max_iterations);
 
-/// Coarse search over the free parameters' ranges on a subsample; returns up
-/// to `count` distinct starting vectors, best first.
-std::vector<std::vector<double>> GridStarts(FitProblem& problem, const std::vector<double>& x0,
-                                            double loss_scale, int count);
+/// Inverse of a small symmetric matrix (k x k, row-major); empty when
+/// singular.
+std::vector<double> Inverse(const std::vector<double>& A, int k);
 
 }  // namespace apograph::estimate::internal

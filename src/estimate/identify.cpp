@@ -3,30 +3,25 @@
 #include <algorithm>
 #include <cmath>
 #include <set>
-#include <sstream>
 
+#include "estimate/identify_internal.hpp"
+#include "estimate/notation.hpp"
 #include "estimate/observations.hpp"
+#include "support/input_error.hpp"
 
 namespace apograph::estimate {
 
 namespace {
 
-constexpr double kAuthor = 0.98;  // share of entries as the author computed them
-constexpr double kRatio = 0.1;    // P(|d| = j+1) / P(|d| = j) for the author's entries
-constexpr double kNearTie = 2.0;  // score difference below which candidates tie
-constexpr std::size_t kGridRefits = 2;
-constexpr double kZeroShare = 0.9;  // share of entries ending in 0 that reduces the places (see
-                                    // ReducedPlaces)  // grids refitted per family (see BestGrids)
+using internal::ColumnFacts;
+using internal::MakeCandidate;
 
-std::string Trimmed(double v) {
-  std::ostringstream o;
-  o << v;
-  return o.str();
-}
-
-bool IsMeanMotion(const model::Model& m) {
-  return m.ParamIndex("modulus") >= 0 && m.ParamIndex("rate") >= 0;
-}
+constexpr double kAuthor = 0.98;  // share of entries as the author computed them (judgement)
+constexpr double kRatio = 0.1;    // P(|d| = j+1) / P(|d| = j) for the author's entries (judgement)
+constexpr std::size_t kGridRefits = 2;   // grids refitted per family (see BestGrids)
+constexpr double kZeroShare = 0.9;       // share of entries ending in 0 that reduces the places
+                                         // (judgement; see ReducedPlaces)
+constexpr std::size_t kScreenSize = 60;  // entries of the screening subsample (judgement)
 
 /// The model gives a finite value for most rows at its defaults.
 bool Applicable(const model::Model& m, const Transcription& table,
@@ -40,75 +35,9 @@ bool Applicable(const model::Model& m, const Transcription& table,
                           col.arg2 ? std::optional<double>(col.arg2->ToDouble()) : std::nullopt,
                           &table, obs[i].row, obs[i].column};
     ++tried;
-    try {
-      bad += !std::isfinite(m.Evaluate(p, ctx));
-    } catch (const std::exception&) {  // e.g. a formula reading a column this table lacks
-      return false;
-    }
+    bad += !std::isfinite(m.Evaluate(p, ctx));
   }
   return tried > 0 && bad * 5 <= tried;
-}
-
-Candidate MakeCandidate(const model::Model& m, FitResult fit, bool grid) {
-  Candidate c;
-  c.model = &m;
-  c.penalised_parameters = fit.free_parameters + (grid ? 1 : 0);
-  c.score = Score(fit, c.penalised_parameters, &c.log_likelihood);
-  c.fit = std::move(fit);
-  return c;
-}
-
-/// A practice text for comparing two candidates.
-std::string Difference(const Candidate& a, const Candidate& b) {
-  std::vector<std::string> parts;
-  if (a.model != b.model)
-    parts.push_back("the model (" + a.model->name() + " / " + b.model->name() + ")");
-  if (a.PracticeText() != b.PracticeText())
-    parts.push_back("the practice (" + a.PracticeText() + " / " + b.PracticeText() + ")");
-  std::vector<std::string> args;
-  for (std::size_t i = 0; i < a.fit.entries.size() && i < b.fit.entries.size(); ++i) {
-    const auto& x = a.fit.entries[i].computed;
-    const auto& y = b.fit.entries[i].computed;
-    if (x.has_value() != y.has_value() || (x && !(*x == *y)))
-      args.push_back(Trimmed(a.fit.entries[i].arg));
-  }
-  std::string s;
-  for (std::size_t i = 0; i < parts.size(); ++i) s += (i ? " and " : "") + parts[i];
-  if (args.empty())
-    return s +
-           "; they compute the same value at every entry, so the entries cannot tell them apart";
-  s += "; their computed values differ at " + std::to_string(args.size()) + " entries (argument";
-  s += args.size() > 1 ? "s " : " ";
-  for (std::size_t i = 0; i < args.size() && i < 8; ++i) s += (i ? ", " : "") + args[i];
-  if (args.size() > 8) s += ", ...";
-  return s + ")";
-}
-
-/// The `keep` grids that fit best when each is fitted on the subsample only
-/// (from the seed's estimate, few iterations): one full fit per kept grid
-/// instead of one per grid. The ranking of grids is clear on a subsample:
-/// the right grid reproduces its entries exactly, a wrong one misses by the
-/// curvature between its nodes.
-std::vector<double> BestGrids(const model::Model& m, const Transcription& table,
-                              const std::vector<Observation>& sub, const Candidate& seed,
-                              const std::vector<double>& grids, std::size_t keep) {
-  std::vector<std::pair<double, double>> scored;  // score, grid
-  for (double g : grids) {
-    FitOptions fo;
-    fo.practice = seed.fit.practice;
-    fo.practice.grid = g;
-    fo.fit_displacement = seed.fit.practice.displacement != 0;
-    fo.max_iterations = 10;
-    for (const auto& p : seed.fit.params) {
-      if (!p.fixed) fo.start[p.name] = p.value;
-    }
-    scored.emplace_back(Score(Fit(m, table, sub, fo), seed.fit.free_parameters + 1), g);
-  }
-  std::stable_sort(scored.begin(), scored.end(),
-                   [](const auto& a, const auto& b) { return a.first > b.first; });
-  std::vector<double> out;
-  for (std::size_t i = 0; i < scored.size() && i < keep; ++i) out.push_back(scored[i].second);
-  return out;
 }
 
 /// One place fewer than the column shows when at least kZeroShare of its
@@ -123,63 +52,271 @@ std::optional<int> ReducedPlaces(const std::vector<Observation>& obs) {
   return places - 1;
 }
 
-/// Why a candidate's estimate is no historical value: a free parameter more
-/// than its range's width outside the model's historical range (ParamSpec
-/// low..high), as an obliquity of 0;6 with a latitude of 89;44 (a degenerate
-/// limit of the ascensional difference that mimics the declination). Empty
-/// when every estimate is plausible or the model gives no range.
-std::string Implausible(const Candidate& c) {
-  const auto& specs = c.model->params();
-  for (std::size_t j = 0; j < specs.size() && j < c.fit.params.size(); ++j) {
-    const auto& p = c.fit.params[j];
-    const double width = specs[j].high - specs[j].low;
-    if (p.fixed || !(width > 0)) continue;
-    if (p.value < specs[j].low - width || p.value > specs[j].high + width) {
-      std::ostringstream o;
-      o << p.name << " = " << p.value << ", far outside its historical range " << specs[j].low
-        << " .. " << specs[j].high;
-      return o.str();
-    }
-  }
-  return {};
+ColumnFacts Examine(const std::vector<Observation>& obs) {
+  ColumnFacts f;
+  f.obs = obs;
+  const std::size_t stride = std::max<std::size_t>(1, (obs.size() + kScreenSize - 1) / kScreenSize);
+  for (std::size_t i = 0; i < obs.size(); i += stride) f.sub.push_back(obs[i]);
+  for (const auto& o : obs) f.has_negative = f.has_negative || o.value.negative();
+  f.reduced = ReducedPlaces(obs);
+  f.unit = std::pow(60.0, -(f.reduced ? *f.reduced : obs.front().places));
+  return f;
 }
 
-/// Moves implausible candidates (see Implausible) after the others, with a
-/// note for each that would otherwise have come first.
-void SetAsideImplausible(std::vector<Candidate>& all, std::vector<std::string>& notes) {
-  std::vector<Candidate> plausible, aside;
-  for (auto& c : all) {
-    const std::string why = Implausible(c);
-    if (why.empty()) {
-      plausible.push_back(std::move(c));
-      continue;
-    }
-    if (plausible.empty()) {
-      std::ostringstream o;
-      o.precision(4);
-      o << c.model->name() << " (" << c.PracticeText() << ") scores " << c.score << " but with "
-        << why << "; ranked after the explanations with historical values.";
-      notes.push_back(o.str());
-    }
-    aside.push_back(std::move(c));
+/// kSigned or kNegated, whichever the entries follow: the sign of the
+/// covariance between the model's signed values at its defaults and the
+/// entries (a displaced table keeps its covariance).
+model::SignForm Orientation(const model::Model& m, const Transcription& table,
+                            const std::vector<Observation>& sub) {
+  const std::vector<double> p = m.Defaults();
+  std::vector<double> v, y;
+  for (const auto& o : sub) {
+    model::RowContext ctx{o.arg, std::nullopt, &table, o.row, o.column, model::SignForm::kSigned};
+    const double x = m.Evaluate(p, ctx);
+    if (!std::isfinite(x)) continue;
+    v.push_back(x);
+    y.push_back(o.value.ToDouble());
   }
-  if (plausible.empty()) {  // nothing better: keep the order and say so
-    all = std::move(aside);
-    return;
+  double mv = 0, my = 0, cov = 0;
+  for (std::size_t i = 0; i < v.size(); ++i) mv += v[i], my += y[i];
+  if (v.empty()) return model::SignForm::kSigned;
+  mv /= static_cast<double>(v.size());
+  my /= static_cast<double>(v.size());
+  for (std::size_t i = 0; i < v.size(); ++i) cov += (v[i] - mv) * (y[i] - my);
+  return cov < 0 ? model::SignForm::kNegated : model::SignForm::kSigned;
+}
+
+/// The model's signed values at its defaults go negative somewhere on these
+/// entries' arguments.
+bool Negative(const model::Model& m, const Transcription& table,
+              const std::vector<Observation>& sub) {
+  const std::vector<double> p = m.Defaults();
+  for (const auto& o : sub) {
+    model::RowContext ctx{o.arg, std::nullopt, &table, o.row, o.column, model::SignForm::kSigned};
+    if (m.Evaluate(p, ctx) < 0) return true;
   }
-  for (auto& c : aside) plausible.push_back(std::move(c));
-  all = std::move(plausible);
+  return false;
+}
+
+/// The (sign form, displacement) pairs worth screening for a model on this
+/// column (see identify.hpp, step 1).
+std::vector<std::pair<model::SignForm, bool>> Forms(const model::Model& m, const Transcription& t,
+                                                    const ColumnFacts& f,
+                                                    const IdentifyOptions& options) {
+  using model::SignForm;
+  const bool function = m.traits().kind == model::ModelKind::kFunction;
+  const bool disp = options.try_displacement && function;
+  if (!m.traits().signed_values) {
+    if (disp) return {{SignForm::kConventional, false}, {SignForm::kConventional, true}};
+    return {{SignForm::kConventional, false}};
+  }
+  // A quantity by date has no orientation at the defaults (its phase is
+  // estimated): both signs are tried.
+  if (!function && f.has_negative) return {{SignForm::kSigned, false}, {SignForm::kNegated, false}};
+  if (!function) return {{SignForm::kMagnitude, false}};
+  const SignForm oriented = Orientation(m, t, f.sub);
+  if (f.has_negative) return {{oriented, false}};
+  // Where the model never goes negative over these arguments its signed
+  // and magnitude forms agree: the conventional one is shown.
+  const SignForm plain = Negative(m, t, f.sub) ? SignForm::kMagnitude : SignForm::kConventional;
+  if (disp) return {{plain, false}, {oriented, true}};
+  return {{plain, false}};
+}
+
+/// Step 1: every applicable model in each form on the subsample.
+std::vector<Candidate> Screen(const std::vector<const model::Model*>& models,
+                              const Transcription& table, const ColumnFacts& f,
+                              const IdentifyOptions& options, int& tried) {
+  std::vector<Candidate> screen;
+  for (const model::Model* m : models) {
+    if (!Applicable(*m, table, f.obs)) continue;
+    for (const auto& [sign, disp] : Forms(*m, table, f, options)) {
+      FitOptions fo;
+      fo.practice.places = f.reduced;
+      fo.practice.sign = sign;
+      fo.fit_displacement = disp;
+      fo.max_iterations = 10;
+      Candidate c = MakeCandidate(*m, Fit(*m, table, f.sub, fo), false);
+      ++tried;
+      // A displacement under one unit of the last place is no displacement
+      // (and truncation plus half a unit is rounding): not a candidate.
+      if (disp && std::fabs(c.fit.practice.displacement) < f.unit) continue;
+      screen.push_back(std::move(c));
+    }
+  }
+  return screen;
+}
+
+/// What a refit changes from the candidate it starts from.
+struct Refit {
+  Rounding rounding = Rounding::kNearest;
+  double grid = 0;
+  bool round_nodes = false;
+  bool keep_places = true;  ///< false: the places as written
+};
+
+/// `from` refitted on every entry under `how`, from its own estimate.
+Candidate RefitOne(const Candidate& from, const Transcription& table, const ColumnFacts& f,
+                   const Refit& how) {
+  FitOptions fo;
+  fo.practice = from.fit.practice;
+  fo.practice.rounding = how.rounding;
+  if (!how.keep_places) fo.practice.places.reset();
+  fo.practice.grid = how.grid;
+  fo.practice.round_nodes = how.grid > 0 && how.round_nodes;
+  fo.fit_displacement = from.fit.practice.displacement != 0;
+  for (const auto& p : from.fit.params) {
+    if (!p.fixed) fo.start[p.name] = p.value;
+  }
+  const model::Model& m = *from.model;
+  Candidate c = MakeCandidate(m, Fit(m, table, f.obs, fo), how.grid > 0);
+  if (fo.fit_displacement && std::fabs(c.fit.practice.displacement) < f.unit) {  // see Screen
+    fo.fit_displacement = false;
+    fo.practice.displacement = 0;
+    c = MakeCandidate(m, Fit(m, table, f.obs, fo), how.grid > 0);
+  }
+  return c;
+}
+
+void ByScore(std::vector<Candidate>& all) {
+  std::stable_sort(all.begin(), all.end(),
+                   [](const Candidate& a, const Candidate& b) { return a.score > b.score; });
+}
+
+/// Step 2: the best of the screen on every entry, rounded and truncated;
+/// the best family also at the places as written when they were reduced.
+std::vector<Candidate> RefitBest(const std::vector<Candidate>& screen, const Transcription& table,
+                                 const ColumnFacts& f, const IdentifyOptions& options, int& tried) {
+  std::vector<Candidate> all;
+  const std::size_t count = static_cast<std::size_t>(options.refine + 3);
+  for (std::size_t i = 0; i < screen.size() && i < count; ++i) {
+    for (Rounding r : {Rounding::kNearest, Rounding::kTruncate}) {
+      all.push_back(RefitOne(screen[i], table, f, {r}));
+      ++tried;
+    }
+  }
+  if (f.reduced && !screen.empty()) {
+    all.push_back(RefitOne(screen[0], table, f, {Rounding::kNearest, 0, false, false}));
+    ++tried;
+  }
+  ByScore(all);
+  return all;
+}
+
+/// The `keep` grids that fit best when each is fitted on the subsample only
+/// (from the seed's estimate, few iterations): one full fit per kept grid
+/// instead of one per grid. The ranking of grids is clear on a subsample:
+/// the right grid reproduces its entries exactly, a wrong one misses by the
+/// curvature between its nodes.
+std::vector<double> BestGrids(const Candidate& seed, const Transcription& table,
+                              const std::vector<Observation>& sub, const std::vector<double>& grids,
+                              std::size_t keep) {
+  std::vector<std::pair<double, double>> scored;  // score, grid
+  for (double g : grids) {
+    FitOptions fo;
+    fo.practice = seed.fit.practice;
+    fo.practice.grid = g;
+    fo.fit_displacement = seed.fit.practice.displacement != 0;
+    fo.max_iterations = 10;
+    for (const auto& p : seed.fit.params) {
+      if (!p.fixed) fo.start[p.name] = p.value;
+    }
+    scored.emplace_back(Score(Fit(*seed.model, table, sub, fo), seed.fit.free_parameters + 1), g);
+  }
+  std::stable_sort(scored.begin(), scored.end(),
+                   [](const auto& a, const auto& b) { return a.first > b.first; });
+  std::vector<double> out;
+  for (std::size_t i = 0; i < scored.size() && i < keep; ++i) out.push_back(scored[i].second);
+  return out;
+}
+
+/// Step 3: interpolation grids for the best families (functions of the
+/// argument only), then the best grid under the other rounding and with
+/// its nodes rounded first.
+void TryGrids(std::vector<Candidate>& all, const Transcription& table, const ColumnFacts& f,
+              const IdentifyOptions& options, int& tried) {
+  if (!options.try_grids || all.empty() || all[0].fit.exact == all[0].fit.n) return;
+  std::vector<Candidate> seeds;
+  std::set<const model::Model*> seen;
+  for (const auto& c : all) {
+    if (static_cast<int>(seeds.size()) >= options.refine) break;
+    if (c.model->traits().kind == model::ModelKind::kFunction && seen.insert(c.model).second)
+      seeds.push_back(c);
+  }
+  const std::vector<double> grids = CandidateGrids(table);
+  for (const auto& seed : seeds) {
+    for (double g : BestGrids(seed, table, f.sub, grids, kGridRefits))
+      all.push_back(RefitOne(seed, table, f, {seed.fit.practice.rounding, g}));
+    tried += static_cast<int>(grids.size());
+  }
+  ByScore(all);
+  if (all[0].fit.practice.grid > 0) {
+    const Candidate best = all[0];
+    const Rounding other =
+        best.fit.practice.rounding == Rounding::kNearest ? Rounding::kTruncate : Rounding::kNearest;
+    all.push_back(RefitOne(best, table, f, {other, best.fit.practice.grid}));
+    all.push_back(
+        RefitOne(best, table, f, {best.fit.practice.rounding, best.fit.practice.grid, true}));
+    tried += 2;
+    ByScore(all);
+  }
+}
+
+/// Step 6: the verdict from the best explanation's share within one unit.
+void Verdict(Identification& out, const Transcription& table) {
+  const FitResult& fit = out.ranked.front().Final();
+  out.within_one_share = fit.n > 0 ? static_cast<double>(fit.within1) / fit.n : 0;
+  out.explained = out.within_one_share >= kExplainedShare;
+  if (out.explained) return;
+  const std::string column = table.columns.at(static_cast<std::size_t>(out.column)).name;
+  out.verdict = "no model explains column " + column + ": the best, " +
+                out.ranked.front().model->name() + " (" + out.ranked.front().PracticeText() +
+                "), reproduces only " + std::to_string(fit.within1) + " of " +
+                std::to_string(fit.n) + " entries to within one unit (" +
+                Percent(out.within_one_share) + "), below the " + Percent(kExplainedShare) +
+                " an explaining model keeps even with a fifth of its entries miscopied";
+}
+
+/// The mean-motion analysis for a column explained by a mean motion (or
+/// that looks like one), when its entries allow it.
+std::optional<MeanMotionAnalysis> MeanMotionOf(const Transcription& table, int column,
+                                               const Identification& id) {
+  const bool mean_motion =
+      (!id.ranked.empty() && id.explained &&
+       id.ranked.front().model->traits().kind == model::ModelKind::kMeanMotion) ||
+      LooksLikeMeanMotion(table, column);
+  if (!mean_motion) return std::nullopt;
+  try {
+    return AnalyseMeanMotion(table, column);
+  } catch (const InputError&) {  // fewer than two entries at positive arguments
+    return std::nullopt;
+  }
 }
 
 }  // namespace
+
+namespace internal {
+
+Candidate MakeCandidate(const model::Model& m, FitResult fit, bool grid) {
+  Candidate c;
+  c.model = &m;
+  c.penalised_parameters = fit.free_parameters + (grid ? 1 : 0);
+  c.score = Score(fit, c.penalised_parameters, &c.log_likelihood);
+  c.fit = std::move(fit);
+  return c;
+}
+
+}  // namespace internal
 
 std::string Candidate::PracticeText() const {
   const auto& p = fit.practice;
   std::string s = p.rounding == Rounding::kTruncate ? "truncated" : "rounded";
   if (p.places) s += ", " + std::to_string(*p.places) + " places";
-  if (p.grid > 0) s += ", grid " + Trimmed(p.grid) + (p.round_nodes ? " (rounded nodes)" : "");
+  if (p.grid > 0) s += ", grid " + NumberText(p.grid) + (p.round_nodes ? " (rounded nodes)" : "");
   if (p.displacement != 0)
     s += ", displacement " + Sexagesimal::FromDouble(p.displacement, 2).ToString();
+  const model::SignForm form = model->ResolvedSign(p.sign);
+  if (form != model->traits().conventional) s += std::string(", ") + SignText(form);
   return s;
 }
 
@@ -203,6 +340,7 @@ double Score(const FitResult& fit, int penalised, double* log_likelihood) {
 }
 
 std::vector<double> CandidateGrids(const Transcription& table) {
+  if (table.argument.listed) return {};  // an explicit list of arguments has no grid
   std::vector<double> args;
   for (std::size_t r = 0; r < table.rows.size(); ++r) {
     if (auto a = model::RowArgument(table, r)) args.push_back(*a);
@@ -222,126 +360,35 @@ Identification Identify(const Transcription& table, int column, const IdentifyOp
   Identification out;
   out.column = column;
   const std::vector<Observation> obs = CollectObservations(table, {column});
-  if (obs.size() < 3) return out;
-  const bool mean_motion = LooksLikeMeanMotion(table, column);
-  if (mean_motion) out.mean_motion = AnalyseMeanMotion(table, column);
+  if (obs.size() < 3) {
+    out.verdict = "too few readable entries (" + std::to_string(obs.size()) + ") to identify";
+    return out;
+  }
+  const ColumnFacts facts = Examine(obs);
   std::vector<const model::Model*> models =
       options.models.empty() ? model::BuiltinModels() : options.models;
   models.insert(models.end(), options.extra_models.begin(), options.extra_models.end());
-  auto by_score = [](const Candidate& a, const Candidate& b) { return a.score > b.score; };
-  // Round 0, on a subsample of at most 60 entries: every applicable family,
-  // rounding and truncation, with and without displacement (nearest only).
-  std::vector<Observation> sub;
-  const std::size_t stride = std::max<std::size_t>(1, (obs.size() + 59) / 60);
-  for (std::size_t i = 0; i < obs.size(); i += stride) sub.push_back(obs[i]);
-  std::vector<Candidate> screen;
-  // A column whose last place is (nearly) always 0 was computed to one place
-  // fewer: every fit then works at that number of places.
-  const std::optional<int> reduced = ReducedPlaces(obs);
-  const double unit = std::pow(60.0, -(reduced ? *reduced : obs.front().places));
-  for (const model::Model* m : models) {
-    if (IsMeanMotion(*m) != mean_motion || !Applicable(*m, table, obs)) continue;
-    // Rounding and truncation shift an estimate by half a unit at most, so
-    // the screen ranks families under rounding; both are refitted below.
-    for (Rounding r : {Rounding::kNearest}) {
-      for (bool disp : {false, true}) {
-        if (disp && (!options.try_displacement || mean_motion)) continue;
-        FitOptions fo;
-        fo.practice.rounding = r;
-        fo.practice.places = reduced;
-        fo.fit_displacement = disp;
-        fo.max_iterations = 10;
-        Candidate c = MakeCandidate(*m, Fit(*m, table, sub, fo), false);
-        ++out.candidates_tried;
-        // A displacement under one unit of the last place is no displacement
-        // (and truncation plus half a unit is rounding): not a candidate.
-        if (disp && std::fabs(c.fit.practice.displacement) < unit) continue;
-        screen.push_back(std::move(c));
-      }
-    }
+  std::vector<Candidate> screen = Screen(models, table, facts, options, out.candidates_tried);
+  ByScore(screen);
+  std::vector<Candidate> all = RefitBest(screen, table, facts, options, out.candidates_tried);
+  TryGrids(all, table, facts, options, out.candidates_tried);
+  if (all.empty()) {
+    out.verdict = "no model gives a value on most rows of this column";
+    return out;
   }
-  std::stable_sort(screen.begin(), screen.end(), by_score);
-  // Round 1: the best of the screen refitted on every entry from its estimate.
-  std::vector<Candidate> all;
-  auto refit = [&](const Candidate& from, Rounding r, double grid, bool round_nodes = false,
-                   std::optional<int> places = std::nullopt, bool keep_places = true) {
-    FitOptions fo;
-    fo.practice.rounding = r;
-    fo.practice.places = keep_places ? from.fit.practice.places : places;
-    fo.practice.grid = grid;
-    fo.practice.round_nodes = grid > 0 && round_nodes;
-    fo.practice.displacement = from.fit.practice.displacement;
-    fo.fit_displacement = from.fit.practice.displacement != 0;
-    for (const auto& p : from.fit.params) {
-      if (!p.fixed) fo.start[p.name] = p.value;
-    }
-    Candidate c = MakeCandidate(*from.model, Fit(*from.model, table, obs, fo), grid > 0);
-    if (fo.fit_displacement && std::fabs(c.fit.practice.displacement) < unit) {  // see the screen
-      fo.fit_displacement = false;
-      fo.practice.displacement = 0;
-      c = MakeCandidate(*from.model, Fit(*from.model, table, obs, fo), grid > 0);
-    }
-    all.push_back(std::move(c));
-  };
-  for (std::size_t i = 0; i < screen.size() && i < static_cast<std::size_t>(options.refine + 3);
-       ++i) {
-    for (Rounding r : {Rounding::kNearest, Rounding::kTruncate}) {
-      refit(screen[i], r, 0);
-      ++out.candidates_tried;
-    }
-  }
-  if (reduced && !screen.empty()) {  // the best family at the places as written, for comparison
-    refit(screen[0], Rounding::kNearest, 0, false, std::nullopt, false);
-    ++out.candidates_tried;
-  }
-  std::stable_sort(all.begin(), all.end(), by_score);
-  // Round 2: the best families with interpolation grids, both roundings.
-  if (options.try_grids && !mean_motion) {
-    std::vector<Candidate> seeds;
-    std::set<const model::Model*> seen;
-    for (const auto& c : all) {
-      if (static_cast<int>(seeds.size()) >= options.refine) break;
-      if (seen.insert(c.model).second) seeds.push_back(c);
-    }
-    // A grid cannot improve on a column reproduced exactly without one.
-    const bool perfect = !all.empty() && all[0].fit.exact == all[0].fit.n;
-    const std::vector<double> grids = CandidateGrids(table);
-    for (const auto& seed : perfect ? std::vector<Candidate>{} : seeds) {
-      for (double g : BestGrids(*seed.model, table, sub, seed, grids, kGridRefits))
-        refit(seed, seed.fit.practice.rounding, g);
-      out.candidates_tried += static_cast<int>(grids.size());
-    }
-    std::stable_sort(all.begin(), all.end(), by_score);
-    if (!perfect && all[0].fit.practice.grid > 0) {  // the best grid under the other rounding
-      const Candidate best = all[0];
-      refit(best,
-            best.fit.practice.rounding == Rounding::kNearest ? Rounding::kTruncate
-                                                             : Rounding::kNearest,
-            best.fit.practice.grid);
-      ++out.candidates_tried;
-      std::stable_sort(all.begin(), all.end(), by_score);
-    }
-    if (!perfect && all[0].fit.practice.grid > 0) {  // the best grid with its nodes rounded first
-      const Candidate best = all[0];
-      refit(best, best.fit.practice.rounding, best.fit.practice.grid, true);
-      ++out.candidates_tried;
-      std::stable_sort(all.begin(), all.end(), by_score);
-    }
-  }
-  if (all.empty()) return out;
-  SetAsideImplausible(all, out.notes);
-  for (std::size_t i = 1; i < all.size() && i < static_cast<std::size_t>(options.top); ++i) {
-    if (all[0].score - all[i].score >= kNearTie) break;
-    std::ostringstream o;
-    o.precision(4);
-    o << all[0].model->name() << " (" << all[0].PracticeText() << ") and " << all[i].model->name()
-      << " (" << all[i].PracticeText() << ") explain the column about equally well (score "
-      << all[0].score << " vs " << all[i].score << "); they differ in "
-      << Difference(all[0], all[i]) << ".";
-    out.notes.push_back(o.str());
-  }
+  internal::SetAsideImplausible(all, out.notes);
+  internal::FoldEquivalents(all, table, options.catalog);
   if (static_cast<int>(all.size()) > options.top) all.resize(static_cast<std::size_t>(options.top));
   out.ranked = std::move(all);
+  Verdict(out, table);
+  out.mean_motion = MeanMotionOf(table, column, out);
+  if (options.adopt_round_values && out.explained) {
+    out.ranked.front().adoption =
+        internal::AdoptRoundValues(out.ranked.front(), table, obs, options.catalog,
+                                   out.mean_motion ? &*out.mean_motion : nullptr);
+  }
+  if (!out.ranked.front().naming.empty()) out.notes.push_back(out.ranked.front().naming);
+  internal::NearTieNotes(out.ranked, table, options.top, out.notes);
   return out;
 }
 

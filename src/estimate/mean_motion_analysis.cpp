@@ -6,6 +6,7 @@
 #include <sstream>
 #include <unordered_map>
 
+#include "estimate/notation.hpp"
 #include "estimate/observations.hpp"
 #include "support/input_error.hpp"
 
@@ -46,11 +47,8 @@ Real Wrap360(Real x) {
 
 std::string Fmt(const Sexagesimal& s) { return s.ToString(); }
 
-std::string Arg(Real a) {
-  std::ostringstream o;
-  o << static_cast<double>(a);
-  return o.str();
-}
+/// An argument in the trade's notation (0;30, not 0.5).
+std::string Arg(Real a) { return NumberText(static_cast<double>(a)); }
 
 /// Restores whole turns by argument and sets radix and rate estimates.
 void Unwrap(std::vector<Item>& items, Real radix, Real rate,
@@ -149,6 +147,76 @@ void Setup(const Transcription& table, int column, MeanMotionAnalysis& out,
   std::sort(items.begin(), items.end(), [](const Item& x, const Item& y) { return x.a < y.a; });
 }
 
+/// The median of entry - rate x argument over the entries, each reduced
+/// near the first (a robust radix for unwrapping).
+Real MedianRadix(const std::vector<const Item*>& pos, Real rate) {
+  std::vector<Real> r;
+  const Real first = Wrap360(pos[0]->v - rate * pos[0]->a);
+  for (const auto* it : pos) {
+    Real x = Wrap360(it->v - rate * it->a);
+    if (x - first > 180) x -= 360;
+    if (first - x > 180) x += 360;
+    r.push_back(x);
+  }
+  std::nth_element(r.begin(), r.begin() + static_cast<std::ptrdiff_t>(r.size() / 2), r.end());
+  return Wrap360(r[r.size() / 2]);
+}
+
+/// Two lines through the unwrapped values (it->t + radix): least squares,
+/// and a robust one (the median slope over baselines of half the table,
+/// the median intercept), which a slip does not pull. As (rate, intercept).
+std::vector<std::pair<Real, Real>> Lines(const std::vector<const Item*>& pos, Real radix) {
+  Real sa = 0, sv = 0, saa = 0, sav = 0, n = 0;
+  for (const auto* it : pos) {
+    const Real v = it->t + radix;
+    sa += it->a, sv += v, saa += it->a * it->a, sav += it->a * v, n += 1;
+  }
+  const Real rate = (n * sav - sa * sv) / (n * saa - sa * sa);
+  std::vector<std::pair<Real, Real>> out = {{rate, (sv - rate * sa) / n}};
+  const std::size_t h = pos.size() / 2;
+  std::vector<Real> slopes, intercepts;
+  for (std::size_t i = 0; i + h < pos.size(); ++i) {
+    if (pos[i + h]->a > pos[i]->a)
+      slopes.push_back((pos[i + h]->t - pos[i]->t) / (pos[i + h]->a - pos[i]->a));
+  }
+  if (slopes.empty()) return out;
+  std::nth_element(slopes.begin(), slopes.begin() + static_cast<std::ptrdiff_t>(slopes.size() / 2),
+                   slopes.end());
+  const Real robust = slopes[slopes.size() / 2];
+  for (const auto* it : pos) intercepts.push_back(it->t + radix - robust * it->a);
+  std::nth_element(intercepts.begin(),
+                   intercepts.begin() + static_cast<std::ptrdiff_t>(intercepts.size() / 2),
+                   intercepts.end());
+  out.push_back({robust, intercepts[intercepts.size() / 2]});
+  return out;
+}
+
+/// No radix unless an intercept (of either line, at the table's places)
+/// lets more entries share one rate than none does.
+void ChooseRadix(MeanMotionAnalysis& out, std::vector<Item>& items,
+                 const std::vector<const Item*>& pos, Real radix) {
+  auto shared = [&](Real r, Real rate) {
+    Unwrap(items, r, rate, out.entries);
+    return std::max(MaxStab(items, Rounding::kNearest).count,
+                    MaxStab(items, Rounding::kTruncate).count);
+  };
+  const auto lines = Lines(pos, radix);
+  Real best_rate = lines.front().first;
+  int best = shared(0, best_rate);
+  std::optional<Sexagesimal> chosen;
+  for (const auto& [rate, intercept] : lines) {
+    const Sexagesimal fitted = Sexagesimal::FromDouble(static_cast<double>(intercept), out.places);
+    if (fitted.is_zero() || pos.size() <= 2) continue;
+    const int n = shared(static_cast<Real>(fitted.ToDouble()), rate);
+    if (n > best) best = n, chosen = fitted, best_rate = rate;
+  }
+  if (chosen) {
+    out.radix = *chosen;
+    out.radix_present = true;
+  }
+  Unwrap(items, chosen ? static_cast<Real>(chosen->ToDouble()) : 0, best_rate, out.entries);
+}
+
 /// Radix (an entry at argument 0, or a least-squares intercept kept only
 /// when it exceeds half a unit) and the unwrapped motions.
 void RadixAndTurns(MeanMotionAnalysis& out, std::vector<Item>& items) {
@@ -163,40 +231,22 @@ void RadixAndTurns(MeanMotionAnalysis& out, std::vector<Item>& items) {
   if (pos.size() < 2)
     throw InputError::ForOption("--column",
                                 "expected two entries at positive arguments, found fewer");
-  const Real rate0 = Wrap360(pos[1]->v - pos[0]->v) / (pos[1]->a - pos[0]->a);
-  Real radix = out.radix_present ? static_cast<Real>(out.radix.ToDouble())
-                                 : Wrap360(pos[0]->v - rate0 * pos[0]->a);
+  // A first rate: the median of the rates between neighbouring entries (a
+  // slip in the first entries must not set it).
+  std::vector<Real> local;
+  for (std::size_t i = 1; i < pos.size(); ++i) {
+    if (pos[i]->a > pos[i - 1]->a)
+      local.push_back(Wrap360(pos[i]->v - pos[i - 1]->v) / (pos[i]->a - pos[i - 1]->a));
+  }
+  if (local.empty()) local.push_back(Wrap360(pos[1]->v - pos[0]->v) / pos[1]->a);
+  std::nth_element(local.begin(), local.begin() + static_cast<std::ptrdiff_t>(local.size() / 2),
+                   local.end());
+  const Real rate0 = local[local.size() / 2];
+  Real radix =
+      out.radix_present ? static_cast<Real>(out.radix.ToDouble()) : MedianRadix(pos, rate0);
   if (radix > 180) radix -= 360;
   Unwrap(items, radix, rate0, out.entries);
-  if (!out.radix_present) {
-    // Least squares for intercept and rate over the unwrapped values.
-    Real sa = 0, sv = 0, saa = 0, sav = 0, n = 0;
-    for (const auto* it : pos) {
-      const Real v = it->t + radix;
-      sa += it->a;
-      sv += v;
-      saa += it->a * it->a;
-      sav += it->a * v;
-      n += 1;
-    }
-    const Real rate = (n * sav - sa * sv) / (n * saa - sa * sa);
-    const Real intercept = (sv - rate * sa) / n;
-    // No radix unless an intercept lets more entries share one rate (the
-    // least-squares line is pulled by entries made otherwise).
-    auto shared = [&](Real r) {
-      Unwrap(items, r, rate, out.entries);
-      return std::max(MaxStab(items, Rounding::kNearest).count,
-                      MaxStab(items, Rounding::kTruncate).count);
-    };
-    const Sexagesimal fitted = Sexagesimal::FromDouble(static_cast<double>(intercept), out.places);
-    const bool use = !fitted.is_zero() && pos.size() > 2 &&
-                     shared(static_cast<Real>(fitted.ToDouble())) > shared(0);
-    if (use) {
-      out.radix = fitted;
-      out.radix_present = true;
-    }
-    Unwrap(items, use ? static_cast<Real>(fitted.ToDouble()) : 0, rate, out.entries);
-  }
+  if (!out.radix_present) ChooseRadix(out, items, pos, radix);
 }
 
 /// Direct entries under a rounding: the largest set sharing a rate.
@@ -541,7 +591,7 @@ bool LooksLikeMeanMotion(const Transcription& table, int column) {
     const int shared = std::max(MaxStab(items, Rounding::kNearest).count,
                                 MaxStab(items, Rounding::kTruncate).count);
     return shared * 10 >= static_cast<int>(items.size()) * 6 && shared >= 3;
-  } catch (const std::exception&) {
+  } catch (const InputError&) {  // fewer than two entries at positive arguments
     return false;
   }
 }

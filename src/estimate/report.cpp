@@ -3,6 +3,7 @@
 #include <cmath>
 #include <sstream>
 
+#include "estimate/notation.hpp"
 #include "support/tabular.hpp"
 
 namespace apograph::estimate {
@@ -43,6 +44,8 @@ nlohmann::json AttestedJson(const FitResult& fit, const std::vector<CatalogEntry
   return out;
 }
 
+nlohmann::json Number(double v) { return std::isfinite(v) ? nlohmann::json(v) : nlohmann::json(); }
+
 /// The values used, name -> value (the JSON `params` of every command).
 nlohmann::json ParamsJson(const FitResult& fit) {
   nlohmann::json out = nlohmann::json::object();
@@ -55,8 +58,9 @@ nlohmann::json EstimatesJson(const FitResult& fit) {
   nlohmann::json out = nlohmann::json::object();
   for (const auto& p : fit.params) {
     out[p.name] = {{"value", p.value},
-                   {"stderr", p.stderr_},
+                   {"stderr", Number(p.stderr_)},
                    {"fixed", p.fixed},
+                   {"separable", p.separable},
                    {"trade", TradeValue(p.value, p.stderr_)}};
   }
   return out;
@@ -68,7 +72,8 @@ nlohmann::json PracticeJson(const model::Practice& p) {
           {"grid", p.grid},
           {"grid_origin", p.grid_origin},
           {"round_nodes", p.round_nodes},
-          {"displacement", p.displacement}};
+          {"displacement", p.displacement},
+          {"sign", model::ToString(p.sign)}};
 }
 
 /// A row's argument in trade notation: the one the row stands for.
@@ -77,6 +82,70 @@ std::string ArgText(const Transcription& t, std::size_t row, double arg) {
     if (auto a = t.ArgumentInUse(row)) return a->ToString();
   }
   return Sexagesimal::FromDouble(arg, t.argument.places).ToString();
+}
+
+nlohmann::json CombinationsJson(const FitResult& fit) {
+  nlohmann::json out = nlohmann::json::array();
+  for (const auto& c : fit.combinations) {
+    out.push_back({{"params", c.params},
+                   {"text", c.text},
+                   {"value", Number(c.value)},
+                   {"stderr", Number(c.stderr_)}});
+  }
+  return out;
+}
+
+nlohmann::json AdoptedJson(const Candidate& c) {
+  nlohmann::json out = nlohmann::json::array();
+  if (!c.adoption) return out;
+  for (const auto& a : c.adoption->values) {
+    out.push_back({{"param", a.param},
+                   {"value", a.value},
+                   {"value_text", NumberText(a.value, 6)},
+                   {"fitted", a.fitted},
+                   {"stderr", Number(a.stderr_)},
+                   {"source", a.source}});
+  }
+  return out;
+}
+
+nlohmann::json EquivalentsJson(const Candidate& c) {
+  nlohmann::json out = nlohmann::json::array();
+  for (const auto& e : c.equivalents) {
+    nlohmann::json params = nlohmann::json::object();
+    for (const auto& p : e.params) params[p.name] = p.value;
+    out.push_back({{"model", e.model->name()}, {"params", params}});
+  }
+  return out;
+}
+
+/// The standard error in the trade's notation: two significant places.
+std::string ErrorText(double se) {
+  if (!std::isfinite(se)) return "-";
+  int places = 0;
+  while (places < 10 && se * std::pow(60.0, places) < 1) ++places;
+  return Sexagesimal::FromDouble(se, std::min(places + 1, 12)).ToString();
+}
+
+/// "e 2;4,48 ± 0;0,0,2" or "r 3;9,2 (not separable)".
+std::string ParamText(const FittedParam& p, const char* between) {
+  if (!p.separable) return p.name + between + NumberText(p.value) + " (not separable)";
+  return p.name + between + TradeValue(p.value, p.stderr_) + " \u00b1 " + ErrorText(p.stderr_);
+}
+
+/// What the entries fix when parameters are not separable, one line each.
+std::string CombinationsText(const FitResult& fit) {
+  std::string s;
+  for (const auto& c : fit.combinations) {
+    std::string names;
+    for (const auto& n : c.params) names += (names.empty() ? "" : " and ") + n;
+    s += "  " + names + " cannot be separated by the entries";
+    if (!c.text.empty())
+      s += "; they fix " + c.text + " = " + NumberWithDecimal(c.value, 4) + " \u00b1 " +
+           ErrorText(c.stderr_);
+    s += "\n";
+  }
+  return s;
 }
 
 }  // namespace
@@ -94,6 +163,12 @@ std::string AttestedText(const FitResult& fit, const std::vector<CatalogEntry>& 
     }
   }
   return s;
+}
+
+std::string ParamWithError(const FittedParam& p) {
+  if (!p.separable)
+    return p.name + " = " + NumberText(p.value) + " (not separable from the other parameters)";
+  return ParamText(p, " = ") + " (" + Num(p.value, 6) + " \u00b1 " + Num(p.stderr_, 2) + ")";
 }
 
 std::string TradeValue(double value, double se) {
@@ -115,6 +190,8 @@ nlohmann::json FitJson(const FitResult& fit, const Transcription& t,
   j["practice"]["displacement_stderr"] = fit.displacement_stderr;
   j["params"] = ParamsJson(fit);
   j["estimates"] = EstimatesJson(fit);
+  j["combinations"] = CombinationsJson(fit);
+  j["inliers"] = fit.inliers;
   j["exact"] = fit.exact;
   j["within_one"] = fit.within1;
   j["within1"] = fit.within1;  // deprecated alias of within_one (README 0.1)
@@ -207,9 +284,18 @@ nlohmann::json IdentificationJson(const Identification& id, const Transcription&
                     {"flagged", c.fit.flagged},
                     {"n", c.fit.n},
                     {"robust_scale", c.fit.robust_scale},
-                    {"attested", AttestedJson(c.fit, catalog)}});
+                    {"attested", AttestedJson(c.fit, catalog)},
+                    {"sign", model::ToString(c.model->ResolvedSign(c.fit.practice.sign))},
+                    {"equivalents", EquivalentsJson(c)},
+                    {"naming", c.naming},
+                    {"adopted", AdoptedJson(c)},
+                    {"adoption", c.adoption ? c.adoption->text : ""},
+                    {"combinations", CombinationsJson(c.fit)}});
   }
   j["candidates"] = list;
+  j["explained"] = id.explained;
+  j["within_one_share"] = id.within_one_share;
+  j["verdict"] = id.verdict;
   j["notes"] = id.notes;
   j["mean_motion"] = id.mean_motion ? MeanMotionJson(*id.mean_motion) : nlohmann::json(nullptr);
   return j;
@@ -221,16 +307,21 @@ std::string FitText(const FitResult& fit, const Transcription& t,
   o << "table " << t.table_id << ", witness " << t.witness.siglum << ": model " << fit.model
     << "\n";
   for (const auto& p : fit.params) {
-    o << "  " << p.name << " = " << Num(p.value, 10) << " = " << TradeValue(p.value, p.stderr_);
+    o << "  " << p.name << " = " << TradeValue(p.value, p.stderr_) << " (" << Num(p.value, 10)
+      << ")";
     if (p.fixed)
       o << " (fixed)\n";
+    else if (!p.separable)
+      o << ": not separable from the other parameters\n";
     else
-      o << "  standard error " << Num(p.stderr_, 3) << " " << p.unit << "\n";
+      o << "  standard error " << ErrorText(p.stderr_) << " (" << Num(p.stderr_, 3) << ") "
+        << p.unit << "\n";
   }
+  o << CombinationsText(fit);
   if (fit.practice.displacement != 0) {
-    o << "  displacement = " << Num(fit.practice.displacement, 10) << " = "
-      << TradeValue(fit.practice.displacement, fit.displacement_stderr) << "  standard error "
-      << Num(fit.displacement_stderr, 3) << "\n";
+    o << "  displacement = " << TradeValue(fit.practice.displacement, fit.displacement_stderr)
+      << " (" << Num(fit.practice.displacement, 10) << ")  standard error "
+      << ErrorText(fit.displacement_stderr) << "\n";
   }
   o << AttestedText(fit, catalog);
   o << "  " << fit.exact << " of " << fit.n << " entries reproduced exactly, " << fit.within1
@@ -241,7 +332,7 @@ std::string FitText(const FitResult& fit, const Transcription& t,
   tab.right_aligned = {true, false, true, true, true, false};
   for (const auto& e : fit.entries) {
     if (!all_entries && !e.flag) continue;
-    tab.Add({Num(e.arg), ColumnName(t, e.column), e.tabulated.ToString(),
+    tab.Add({ArgumentText(t, e.row), ColumnName(t, e.column), e.tabulated.ToString(),
              e.computed ? e.computed->ToString() : "-",
              std::isfinite(e.diff_units) ? Num(e.diff_units, 4) : "-", e.flag ? "*" : ""});
   }
@@ -256,7 +347,7 @@ std::string MeanMotionText(const MeanMotionAnalysis& a) {
   tab.headers = {"arg", "tabulated", "origin", "evidence"};
   tab.right_aligned = {true, true, false, false};
   for (const auto& e : a.entries)
-    tab.Add({Num(e.arg, 12), e.value.ToString(), ToString(e.origin), e.evidence});
+    tab.Add({NumberText(e.arg, 6), e.value.ToString(), ToString(e.origin), e.evidence});
   o << tab.RenderText();
   return o.str();
 }
@@ -266,6 +357,7 @@ std::string IdentificationText(const Identification& id, const Transcription& t,
   std::ostringstream o;
   o << "table " << t.table_id << ", witness " << t.witness.siglum << ", column "
     << ColumnName(t, id.column) << ": " << id.candidates_tried << " candidates tried\n";
+  if (!id.explained && !id.verdict.empty()) o << id.verdict << ".\n";
   Tabular tab;
   tab.headers = {"rank", "model", "practice", "parameters", "exact", "within1", "flagged", "score"};
   tab.right_aligned = {true, false, false, false, true, true, true, true};
@@ -273,16 +365,26 @@ std::string IdentificationText(const Identification& id, const Transcription& t,
   for (const auto& c : id.ranked) {
     std::string params;
     for (const auto& p : c.fit.params) {
-      if (!p.fixed)
-        params += (params.empty() ? "" : ", ") + p.name + " " + TradeValue(p.value, p.stderr_) +
-                  " ± " + Num(p.stderr_, 2);
+      if (!p.fixed) params += (params.empty() ? "" : ", ") + ParamText(p, " ");
     }
     tab.Add({std::to_string(++rank), c.model->name(), c.PracticeText(), params,
              std::to_string(c.fit.exact) + "/" + std::to_string(c.fit.n),
              std::to_string(c.fit.within1), std::to_string(c.fit.flagged), Num(c.score, 5)});
   }
   o << tab.RenderText();
-  if (!id.ranked.empty()) o << AttestedText(id.ranked[0].fit, catalog);
+  if (!id.ranked.empty()) {
+    const Candidate& best = id.ranked[0];
+    o << CombinationsText(best.fit);
+    if (best.adoption) o << "adopted: " << best.adoption->text << "\n";
+    for (const auto& e : best.equivalents) {
+      std::string params;
+      for (const auto& p : e.params) {
+        if (!p.fixed) params += " " + p.name + " = " + NumberText(p.value);
+      }
+      o << "same values: " << e.model->name() << params << "\n";
+    }
+    o << AttestedText(best.fit, catalog);
+  }
   for (const auto& n : id.notes) o << "note: " << n << "\n";
   if (id.mean_motion) o << MeanMotionText(*id.mean_motion);
   return o.str();

@@ -35,6 +35,10 @@ namespace apograph::estimate {
 /// A parameter value in trade notation with enough places for its error.
 std::string TradeValue(double value, double stderr_);
 
+/// "e = 2;4,48 ± 0;0,0,2 (2.08 ± 1.1e-05)", or "r = 3;9,2 (not separable
+/// from the other parameters)".
+std::string ParamWithError(const FittedParam& p);
+
 /// The attested values nearest to each free parameter of a fit, one line
 /// each ("    attested e = 2;4,45 (...) lies 3.1 standard errors away").
 std::string AttestedText(const FitResult& fit, const std::vector<CatalogEntry>& catalog);

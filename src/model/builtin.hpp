@@ -108,15 +108,20 @@ using Formula = T (*)(const T* params, T arg, T arg2);
 
 /// A built-in model: metadata plus one formula at two precisions and, for
 /// formulas written for it, with dual numbers of one and two derivatives.
+/// The formula gives the signed value (as the geometry has it); the sign
+/// form a row asks for (RowContext::sign, kConventional resolved by the
+/// traits) is applied to it and to its derivatives.
 class BuiltinModel final : public Model {
  public:
   BuiltinModel(std::string name, std::string description, std::string convention,
-               std::vector<ParamSpec> params, Formula<double> f, Formula<long double> fl,
-               Formula<Dual<1>> f1 = nullptr, Formula<Dual<2>> f2 = nullptr)
+               std::vector<ParamSpec> params, ModelTraits traits, Formula<double> f,
+               Formula<long double> fl, Formula<Dual<1>> f1 = nullptr,
+               Formula<Dual<2>> f2 = nullptr)
       : name_(std::move(name)),
         description_(std::move(description)),
         convention_(std::move(convention)),
         params_(std::move(params)),
+        traits_(std::move(traits)),
         f_(f),
         fl_(fl),
         f1_(f1),
@@ -126,21 +131,24 @@ class BuiltinModel final : public Model {
   const std::string& description() const override { return description_; }
   const std::string& convention() const override { return convention_; }
   const std::vector<ParamSpec>& params() const override { return params_; }
+  const ModelTraits& traits() const override { return traits_; }
   double Evaluate(const std::vector<double>& p, const RowContext& row) const override;
   /// Exact derivatives by dual numbers when the formula has them (forward
   /// differences otherwise, as for every model).
   double EvaluateWithGradient(const std::vector<double>& p, const RowContext& row,
                               const std::vector<int>& wrt, double* gradient) const override;
   /// Whether EvaluateWithGradient is exact (dual numbers) here.
-  bool HasExactGradient() const { return f1_ && f2_; }
+  bool HasExactGradient() const { return f1_ && f2_ && params_.size() <= kDualParameterLimit; }
   bool ExactGradient() const override { return HasExactGradient(); }
-  /// The same formula in long double (for the precision tests).
+  /// The same formula in long double in the conventional sign form (for
+  /// the precision tests).
   long double EvaluateLong(const std::vector<long double>& p, long double arg,
                            long double arg2 = 0) const;
 
  private:
   std::string name_, description_, convention_;
   std::vector<ParamSpec> params_;
+  ModelTraits traits_;
   Formula<double> f_;
   Formula<long double> fl_;
   Formula<Dual<1>> f1_;
@@ -153,12 +161,16 @@ class BuiltinModel final : public Model {
 /// (its derivatives are then taken by forward differences).
 #define APOGRAPH_FORMULA_PLAIN(fn) &fn<double>, &fn<long double>
 
-// One list per family file; builtin_models.cpp concatenates them.
-const std::vector<const BuiltinModel*>& TrigModels();
-const std::vector<const BuiltinModel*>& SolarModels();
-const std::vector<const BuiltinModel*>& PlanetModels();
-const std::vector<const BuiltinModel*>& SphericalModels();
-const std::vector<const BuiltinModel*>& MeanMotionModels();
+/// Traits of a function of the argument: `signed_values` when the formula
+/// goes negative, `conventional` the form meant when the practice does not
+/// say, and the words of a table's kind that name it.
+inline ModelTraits FunctionTraits(bool signed_values, SignForm conventional,
+                                  std::vector<std::string> kind_words) {
+  return {ModelKind::kFunction, signed_values, conventional, std::move(kind_words), {}};
+}
+
+// Each family file defines its list (`TrigModels()` ...); builtin_models.cpp
+// declares and concatenates them (the one registry of built-in models).
 /// Every built-in model with its long-double form.
 std::vector<const BuiltinModel*> AllBuiltinModels();
 

@@ -4,7 +4,9 @@
 
 #include <algorithm>
 #include <cctype>
+#include <charconv>
 #include <cmath>
+#include <cstdlib>
 #include <limits>
 #include <map>
 
@@ -63,6 +65,12 @@ using internal::Expr;
 using internal::Node;
 using internal::Op;
 constexpr double kNaN = std::numeric_limits<double>::quiet_NaN();
+/// Largest decimal literal (judgement: above any quantity of the trade, and
+/// still exact to a unit in a double).
+constexpr double kMaxLiteral = 1e15;
+/// Largest row offset of arg(k) and self(k) (judgement: longer than any
+/// table, small enough for the row arithmetic).
+constexpr long long kMaxRowShift = 1000000;
 
 struct FunctionSpec {
   const char* name;
@@ -126,7 +134,13 @@ class Compiler {
 
   double Number(const std::string& literal, std::size_t offset) {
     if (literal.find(';') == std::string::npos) {
-      return std::stod(literal);
+      // Digits, an optional point and digits (the grammar's): a value
+      // beyond a double's range is refused where it stands.
+      const double v = std::strtod(literal.c_str(), nullptr);
+      if (!std::isfinite(v) || std::fabs(v) > kMaxLiteral) {
+        Fail(source_, text_, offset, ExpectedFound("a number below 10^15", FoundAt(text_, offset)));
+      }
+      return v;
     }
     const bool negative = !literal.empty() && literal[0] == '-';
     NumberSyntaxError error;
@@ -280,8 +294,17 @@ class Compiler {
       Fail(source_, text_, a.offset,
            ExpectedFound("a whole-number row offset such as 1 or -1", FoundAt(text_, a.offset)));
     }
-    const int k = std::stoi(lit.text);
-    return Node{f.op, 0, neg ? -k : k, "", {}};
+    // Digits only (checked above); a row offset beyond kMaxRowShift rows is
+    // refused where it stands.
+    long long k = 0;
+    const auto r = std::from_chars(lit.text.data(), lit.text.data() + lit.text.size(), k);
+    if (r.ec != std::errc() || k > kMaxRowShift) {
+      Fail(source_, text_, a.offset,
+           ExpectedFound("a row offset between -" + std::to_string(kMaxRowShift) + " and " +
+                             std::to_string(kMaxRowShift),
+                         FoundAt(text_, a.offset)));
+    }
+    return Node{f.op, 0, static_cast<int>(neg ? -k : k), "", {}};
   }
 
   const std::string& text_;
@@ -331,7 +354,7 @@ double FormulaModel::Evaluate(const std::vector<double>& params, const RowContex
                                 std::to_string(params_.size()) + " parameters, got " +
                                 std::to_string(params.size()));
   }
-  return EvaluateAt(params, row, 0);
+  return ApplySign(EvaluateAt(params, row, 0), ResolvedSign(row.sign));
 }
 
 double FormulaModel::EvaluateAt(const std::vector<double>& p, const RowContext& row,
@@ -436,6 +459,14 @@ std::unique_ptr<FormulaModel> CompileFormula(const std::string& text, const std:
   m->text_ = text;
   m->convention_ = "a user formula: the argument is used as the table gives it";
   m->params_ = std::move(c.params());
+  // The formula language's convention for a mean motion's parameters.
+  for (auto& p : m->params_) {
+    if (p.name == "radix") p.role = ParamRole::kRadix;
+    if (p.name == "rate") p.role = ParamRole::kRate;
+    if (p.name == "modulus") p.role = ParamRole::kModulus;
+  }
+  if (m->ParamIndex(ParamRole::kRate) >= 0 && m->ParamIndex(ParamRole::kModulus) >= 0)
+    m->traits_.kind = ModelKind::kMeanMotion;
   m->columns_ = std::move(c.columns());
   m->body_ = std::make_unique<Node>(std::move(body));
   return m;

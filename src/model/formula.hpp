@@ -33,6 +33,9 @@ class FormulaModel final : public Model {
   const std::string& description() const override { return text_; }
   const std::string& convention() const override { return convention_; }
   const std::vector<ParamSpec>& params() const override { return params_; }
+  /// A mean motion when the formula has parameters named rate and modulus
+  /// (grammar/formula.ebnf); a function of the argument otherwise.
+  const ModelTraits& traits() const override { return traits_; }
   double Evaluate(const std::vector<double>& params, const RowContext& row) const override;
 
   /// Column names the formula reads with col(...), in order of appearance,
@@ -46,6 +49,7 @@ class FormulaModel final : public Model {
   double EvaluateAt(const std::vector<double>& params, const RowContext& row, int depth) const;
   std::string name_, text_, convention_;
   std::vector<ParamSpec> params_;
+  ModelTraits traits_;
   std::vector<std::string> columns_;
   std::unique_ptr<internal::Node> body_;
 };

@@ -19,7 +19,18 @@ struct Expr {
   std::vector<Expr> args;  ///< operands or call arguments
   int row_offset = 0;      ///< kColumn: 0 this row, +1 next row, -1 previous
   std::size_t offset = 0;  ///< byte offset in the formula text
+  int depth = 1;           ///< levels of the tree below and including this node
 };
+
+/// At most this many parentheses, calls and signs nested in one another:
+/// the parser descends once per level (judgement: real formulas nest a few
+/// levels; 200 keeps the descent within a small stack).
+inline constexpr int kMaxNesting = 200;
+/// At most this many levels in the tree a formula compiles to (a sum of
+/// many terms is as deep as it is long): the compiler and the evaluator
+/// recurse once per level (judgement: 2000 levels use well under a
+/// megabyte of stack).
+inline constexpr int kMaxTreeDepth = 2000;
 
 struct ParamDecl {
   std::string name;
@@ -43,7 +54,8 @@ struct FormulaSyntaxError {
   std::string expected;
 };
 
-/// Parses the text; throws FormulaSyntaxError.
+/// Parses the text; throws FormulaSyntaxError (also beyond kMaxNesting or
+/// kMaxTreeDepth).
 FormulaAst ParseFormulaAst(std::string_view text);
 
 }  // namespace apograph::model::internal

@@ -25,6 +25,7 @@ struct Frame {
 
 struct Builder {
   It begin;
+  int nesting = 0;  ///< parentheses, calls and signs open at the parser's position
   std::vector<Expr> stack;
   std::vector<Frame> frames;
   FormulaAst ast;
@@ -39,12 +40,32 @@ struct Builder {
     stack.pop_back();
     return e;
   }
+  /// One level deeper (a parenthesis, a call or a sign opened at `at`).
+  void Enter(It at) {
+    if (++nesting > kMaxNesting) {
+      throw FormulaSyntaxError{Offset(at),
+                               "at most " + std::to_string(kMaxNesting) +
+                                   " parentheses, calls and signs nested in one another"};
+    }
+  }
+  void Leave() { --nesting; }
+  /// Pushes `e` with its depth, refusing a tree deeper than kMaxTreeDepth
+  /// (positioned at `at`, the operand that makes it too deep).
+  void Push(Expr e, std::size_t at) {
+    for (const auto& a : e.args) e.depth = std::max(e.depth, a.depth + 1);
+    if (e.depth > kMaxTreeDepth) {
+      throw FormulaSyntaxError{
+          at, "at most " + std::to_string(kMaxTreeDepth) + " operations in one chain or nesting"};
+    }
+    stack.push_back(std::move(e));
+  }
   void Binary(Expr::Kind kind) {
     Expr rhs = Pop(), lhs = Pop();
+    const std::size_t at = rhs.offset;
     Expr e{kind, "", {}, 0, lhs.offset};
     e.args.push_back(std::move(lhs));
     e.args.push_back(std::move(rhs));
-    stack.push_back(std::move(e));
+    Push(std::move(e), at);
   }
 };
 
@@ -65,16 +86,22 @@ auto const open_frame = [](auto& ctx) {
   Builder& b = Get(ctx);
   b.frames.push_back({Text(ctx), Start(ctx), b.stack.size(), false});
 };
-auto const mark_call = [](auto& ctx) { Get(ctx).frames.back().call = true; };
+auto const mark_call = [](auto& ctx) {
+  Get(ctx).Enter(std::prev(x3::_where(ctx).begin()));
+  Get(ctx).frames.back().call = true;
+};
 auto const close_frame = [](auto& ctx) {
   Builder& b = Get(ctx);
   Frame f = std::move(b.frames.back());
   b.frames.pop_back();
+  if (f.call) b.Leave();
   Expr e{f.call ? Expr::Kind::kCall : Expr::Kind::kName, f.name, {}, 0, f.offset};
   for (std::size_t i = f.base; i < b.stack.size(); ++i) e.args.push_back(std::move(b.stack[i]));
   b.stack.resize(f.base);
-  b.stack.push_back(std::move(e));
+  b.Push(std::move(e), f.offset);
 };
+auto const enter = [](auto& ctx) { Get(ctx).Enter(std::prev(x3::_where(ctx).begin())); };
+auto const leave = [](auto& ctx) { Get(ctx).Leave(); };
 auto const col_begin = [](auto& ctx) { Get(ctx).row_offset = 0; };
 auto const col_name = [](auto& ctx) {
   Get(ctx).column = Text(ctx);
@@ -87,12 +114,17 @@ auto const col_end = [](auto& ctx) {
 };
 auto const negate = [](auto& ctx) {
   Builder& b = Get(ctx);
+  b.Leave();
   Expr operand = b.Pop();
+  const std::size_t at = operand.offset;
   Expr e{Expr::Kind::kNeg, "", {}, 0, operand.offset};
   e.args.push_back(std::move(operand));
-  b.stack.push_back(std::move(e));
+  b.Push(std::move(e), at);
 };
-auto const make_pow = [](auto& ctx) { Get(ctx).Binary(Expr::Kind::kPow); };
+auto const make_pow = [](auto& ctx) {
+  Get(ctx).Leave();
+  Get(ctx).Binary(Expr::Kind::kPow);
+};
 auto const make_mul = [](auto& ctx) { Get(ctx).Binary(Expr::Kind::kMul); };
 auto const make_div = [](auto& ctx) { Get(ctx).Binary(Expr::Kind::kDiv); };
 auto const make_add = [](auto& ctx) { Get(ctx).Binary(Expr::Kind::kAdd); };
@@ -172,9 +204,9 @@ auto const colref_def = (kw("col") >> lit('('))[col_begin] > column_name >
                         -(lit(',') > row_shift) > col_rparen[col_end];
 auto const call_def = x3::raw[lexeme[word]][open_frame] >>
                       -(lit('(')[mark_call] > -(expr % ',') > rparen) >> x3::eps[close_frame];
-auto const primary_def = number | colref | call | (lit('(') > expr > rparen);
-auto const power_def = primary >> -((lit('^') > unary)[make_pow]);
-auto const unary_def = (lit('-') > unary)[negate] | (lit('+') > unary) | power;
+auto const primary_def = number | colref | call | (lit('(')[enter] > expr > rparen[leave]);
+auto const power_def = primary >> -((lit('^')[enter] > unary)[make_pow]);
+auto const unary_def = (lit('-')[enter] > unary)[negate] | (lit('+')[enter] > unary)[leave] | power;
 auto const term_def = unary >> *((lit('*') > unary)[make_mul] | (lit('/') > unary)[make_div]);
 auto const expr_def = term >> *((lit('+') > term)[make_add] | (lit('-') > term)[make_sub]);
 auto const decl_def =

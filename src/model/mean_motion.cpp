@@ -40,12 +40,24 @@ Dual<N> MeanMotionDual(const Dual<N>* p, Dual<N> t, Dual<N>) {
 #define APOGRAPH_MEAN_MOTION \
   &MeanMotion<double>, &MeanMotion<long double>, &MeanMotionDual<1>, &MeanMotionDual<2>
 
-ParamSpec Radix() { return {"radix", "deg", "value at argument 0 (the epoch)", 0.0, 0.0, 360.0}; }
+ParamSpec Radix() {
+  return {"radix", "deg", "value at argument 0 (the epoch)", 0.0, 0.0, 360.0, ParamRole::kRadix};
+}
 ParamSpec Rate(const char* unit, double def, double high) {
-  return {"rate", unit, "mean motion per unit of the argument", def, 0.0, high};
+  return {"rate", unit, "mean motion per unit of the argument", def, 0.0, high, ParamRole::kRate};
 }
 ParamSpec Modulus() {
-  return {"modulus", "deg", "reduce modulo this (360 usual; 0: no reduction)", 360.0, 0.0, 360.0};
+  return {"modulus",
+          "deg",
+          "reduce modulo this (360 usual; 0: no reduction)",
+          360.0,
+          0.0,
+          360.0,
+          ParamRole::kModulus};
+}
+/// The words of a table's kind, title or argument that name the unit.
+ModelTraits Traits(std::vector<std::string> words) {
+  return {ModelKind::kMeanMotion, false, SignForm::kSigned, std::move(words), {}};
 }
 
 const char kFormula[] = "m(t) = radix + rate * t, reduced into [0, modulus) when modulus > 0.";
@@ -62,22 +74,22 @@ std::string Convention(const std::string& unit) {
 constexpr double kSunPerDay = 59.0 / 60 + 8.0 / 3600 + 19.0 / 216000 + 48.0 / 12960000;
 
 const BuiltinModel kDays("mean-motion", kFormula, Convention("days"),
-                         {Radix(), Rate("deg/day", kSunPerDay, 15.0), Modulus()},
+                         {Radix(), Rate("deg/day", kSunPerDay, 15.0), Modulus()}, Traits({"day"}),
                          APOGRAPH_MEAN_MOTION);
 const BuiltinModel kMonths("mean-motion-months", kFormula,
                            Convention("months (of the table's calendar; the rate is per month)"),
                            {Radix(), Rate("deg/month", 30 * kSunPerDay, 360.0), Modulus()},
-                           APOGRAPH_MEAN_MOTION);
+                           Traits({"month"}), APOGRAPH_MEAN_MOTION);
 const BuiltinModel kYears("mean-motion-years", kFormula,
                           Convention("single years (the rate is per year, usually the excess "
                                      "over whole turns)"),
                           {Radix(), Rate("deg/year", 365 * kSunPerDay, 360.0), Modulus()},
-                          APOGRAPH_MEAN_MOTION);
+                          Traits({"expanded", "single year", "year"}), APOGRAPH_MEAN_MOTION);
 const BuiltinModel kCollected("mean-motion-collected", kFormula,
                               Convention("collected years, the number of years of the group "
                                          "(20, 40, 60 ...; the rate is per year)"),
                               {Radix(), Rate("deg/year", 365 * kSunPerDay, 360.0), Modulus()},
-                              APOGRAPH_MEAN_MOTION);
+                              Traits({"collected"}), APOGRAPH_MEAN_MOTION);
 
 }  // namespace
 

@@ -5,6 +5,7 @@
 /// truncation, interpolation grid, displacement) is applied separately.
 
 #include <cstddef>
+#include <cstdint>
 #include <memory>
 #include <optional>
 #include <string>
@@ -16,6 +17,18 @@
 
 namespace apograph::model {
 
+/// What a parameter stands for, so that estimation can find "the rate" or
+/// "the modulus" of a model without knowing its parameters' names.
+enum class ParamRole : std::uint8_t {
+  kOther,
+  kRadix,         ///< value at argument 0 of a mean motion (mod 360)
+  kRate,          ///< motion per unit of the argument
+  kModulus,       ///< a convention, not a quantity: never estimated unless asked
+  kAnomalyRadix,  ///< anomaly on the epicycle at argument 0
+  kAnomalyRate,   ///< motion in anomaly per unit of the argument
+  kApogee,        ///< longitude of the apogee (deg)
+};
+
 /// One parameter of a model.
 struct ParamSpec {
   std::string name;  ///< e.g. "e"
@@ -24,15 +37,74 @@ struct ParamSpec {
   double default_value = 0;
   double low = 0;  ///< typical historical range, used as search bounds
   double high = 0;
+  ParamRole role = ParamRole::kOther;
 };
+
+/// What kind of table a model computes; stages that treat kinds
+/// differently ask this, never a parameter's name.
+enum class ModelKind : std::uint8_t {
+  kFunction,    ///< a function of the argument (trigonometry, equations, spherical astronomy)
+  kMeanMotion,  ///< radix + rate x argument, reduced by a modulus
+  kPosition,    ///< a mean motion plus periodic corrections: true positions by date
+};
+/// "function", "mean motion", "position".
+const char* ToString(ModelKind kind);
+
+/// How a table prints a quantity that the geometry makes negative in part of
+/// the argument's range (the equations in the second half, the southern
+/// declinations). The sign form belongs to the computing practice (how the
+/// author presented the values), not to the model: one model, three
+/// presentations.
+enum class SignForm : std::uint8_t {
+  kConventional,  ///< the form the model's convention states (Model::traits().conventional)
+  kSigned,        ///< as the geometry gives it: e.g. positive for 0..180, negative beyond
+  kNegated,       ///< the opposite sign (an equation printed as subtracted in the first half)
+  kMagnitude,     ///< the amount only; the rubric says add or subtract by the argument's half
+};
+/// "conventional", "signed", "negated", "magnitude".
+const char* ToString(SignForm form);
+/// The inverse of ToString; nullopt for anything else.
+std::optional<SignForm> SignFormFromString(std::string_view text);
+/// `signed_value` presented in `form` (kConventional must be resolved first).
+double ApplySign(double signed_value, SignForm form);
+
+/// A combination of parameters that the model's values determine when the
+/// parameters themselves are not separately determined (e.g. an epicycle's
+/// radius and the distance of its centre enter only as their ratio).
+struct ParamCombination {
+  std::string text;                                 ///< "60 r/(60 + e)"
+  std::vector<std::string> params;                  ///< the parameters it combines, by name
+  double (*value)(const double* params) = nullptr;  ///< in the model's parameter order
+};
+
+/// Fixed facts about a model that identification and naming use.
+struct ModelTraits {
+  ModelKind kind = ModelKind::kFunction;
+  /// The formula takes negative values somewhere in the argument's range, so
+  /// that a table may print it signed, as magnitudes or displaced.
+  bool signed_values = false;
+  /// The form meant when a practice says kConventional (kSigned or kMagnitude).
+  SignForm conventional = SignForm::kSigned;
+  /// Words of a table's `kind` attribute that name what this model computes
+  /// ("sun", "lunar", "declination"), lower case: among models that compute
+  /// the same values, the one the table's kind names is shown.
+  std::vector<std::string> kind_words;
+  /// Combinations to report when the entries cannot separate their parameters.
+  std::vector<ParamCombination> combinations;
+};
+
+/// Most parameters a built-in model may have and still get exact
+/// derivatives by dual numbers (a fixed-size array of duals per evaluation).
+inline constexpr std::size_t kDualParameterLimit = 8;
 
 /// What a model may look at when it computes one entry.
 struct RowContext {
-  double arg = 0;                        ///< the row argument (expected, or as written)
-  std::optional<double> arg2;            ///< column argument of a double-argument table
-  const Transcription* table = nullptr;  ///< the whole table, for formulas that
-  std::size_t row = 0;                   ///< refer to other columns or rows
-  int column = -1;                       ///< the column being computed
+  double arg = 0;                           ///< the row argument (expected, or as written)
+  std::optional<double> arg2;               ///< column argument of a double-argument table
+  const Transcription* table = nullptr;     ///< the whole table, for formulas that
+  std::size_t row = 0;                      ///< refer to other columns or rows
+  int column = -1;                          ///< the column being computed
+  SignForm sign = SignForm::kConventional;  ///< the presentation asked for (Practice::sign)
 };
 
 /// A model of one column. Built-in models and user formulas both implement it.
@@ -65,12 +137,20 @@ class Model {
   virtual const std::string& convention() const;
   /// Index of a parameter by name, or -1.
   int ParamIndex(std::string_view param_name) const;
+  /// Index of the first parameter with `role`, or -1.
+  int ParamIndex(ParamRole role) const;
+  /// Kind, sign behaviour and naming words. The default: a function of the
+  /// argument, used as its formula gives it (user formulas).
+  virtual const ModelTraits& traits() const;
+  /// `form` with kConventional replaced by this model's conventional form.
+  SignForm ResolvedSign(SignForm form) const;
 };
 
 /// How the table's author brought exact values into the table.
 ///
 /// The order of operations for one entry at argument x is:
-///  1. v = model(x), or, with a grid g > 0 and x not a node, the straight
+///  1. v = model(x) in the practice's sign form, or, with a grid g > 0 and x not a node, the
+///  straight
 ///     line between the nodes n0 = origin + g*floor((x-origin)/g) and n0 + g:
 ///     v = f(n0) + (f(n0+g) - f(n0)) * (x - n0) / g, where f is the model
 ///     value at a node, itself brought to `places` places first when
@@ -86,6 +166,9 @@ struct Practice {
   /// then rounded. 0 = none.
   double grid = 0;
   double displacement = 0;  ///< constant added to every entry (before rounding)
+  /// How values the geometry makes negative are printed (applied to the
+  /// model's value before displacement and rounding).
+  SignForm sign = SignForm::kConventional;
   /// With a grid: bring the node values to `places` places (with `rounding`)
   /// before interpolating between them. Default: exact nodes.
   bool round_nodes = false;

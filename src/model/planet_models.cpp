@@ -13,7 +13,7 @@ namespace {
 /// whose centre stands at distance d: atan2(r sin g, d + r cos g).
 template <typename T>
 T EpicycleAngle(T r, T d, T g) {
-  return fabs(Atan2Deg(r * SinDeg(g), d + r * CosDeg(g)));
+  return Atan2Deg(r * SinDeg(g), d + r * CosDeg(g));
 }
 
 template <typename T>
@@ -45,7 +45,7 @@ T EquantCentre(const T* p, T k, T) {
   const T t = -e * c + sqrt(disc);
   const T x = T(2) * e + t * c, y = t * s;
   // Angle from the true direction (x, y) to the mean direction (c, s).
-  return fabs(Atan2Deg(s * x - c * y, c * x + s * y));
+  return Atan2Deg(s * x - c * y, c * x + s * y);
 }
 
 const char kAnomalyConvention[] =
@@ -55,6 +55,17 @@ const char kAnomalyConvention[] =
 ParamSpec EpicycleRadius(double def, double low, double high) {
   return {"r", "parts of 60", "radius of the epicycle", def, low, high};
 }
+/// The greatest-distance and least-distance forms are epicycle-anomaly with
+/// radius 60 r/(60 +- e): the entries fix that ratio, not r and e apart.
+double RadiusAtGreatest(const double* p) { return 60 * p[0] / (60 + p[1]); }
+double RadiusAtLeast(const double* p) { return 60 * p[0] / (60 - p[1]); }
+
+ModelTraits AnomalyTraits(const char* combination = nullptr,
+                          double (*value)(const double*) = nullptr) {
+  ModelTraits t = FunctionTraits(true, SignForm::kMagnitude, {"anomaly", "planet", "epicycle"});
+  if (combination) t.combinations.push_back({combination, {"r", "e"}, value});
+  return t;
+}
 ParamSpec Eccentricity(double def) {
   return {"e", "parts of 60", "eccentricity of the deferent", def, 0.5, 12.0};
 }
@@ -63,18 +74,23 @@ const BuiltinModel kEpicycleMean(
     "epicycle-anomaly",
     "p(g) = atan2(r sin g, 60 + r cos g): the equation of anomaly on an epicycle of radius r "
     "whose centre is at its mean distance 60; greatest asin(r/60).",
-    kAnomalyConvention, {EpicycleRadius(6.5, 1.0, 45.0)}, APOGRAPH_FORMULA(EpicycleMean));
+    kAnomalyConvention, {EpicycleRadius(6.5, 1.0, 45.0)}, AnomalyTraits(),
+    APOGRAPH_FORMULA(EpicycleMean));
 const BuiltinModel kEpicycleGreatest(
     "epicycle-anomaly-greatest",
     "p(g) = atan2(r sin g, 60 + e + r cos g): the equation of anomaly with the epicycle's "
     "centre at its greatest distance 60 + e.",
     kAnomalyConvention, {EpicycleRadius(6.5, 1.0, 45.0), Eccentricity(3.0)},
+    AnomalyTraits("60 r/(60 + e), the radius of the equivalent epicycle at mean distance",
+                  RadiusAtGreatest),
     APOGRAPH_FORMULA(EpicycleGreatest));
 const BuiltinModel kEpicycleLeast(
     "epicycle-anomaly-least",
     "p(g) = atan2(r sin g, 60 - e + r cos g): the equation of anomaly with the epicycle's "
     "centre at its least distance 60 - e.",
     kAnomalyConvention, {EpicycleRadius(6.5, 1.0, 45.0), Eccentricity(3.0)},
+    AnomalyTraits("60 r/(60 - e), the radius of the equivalent epicycle at mean distance",
+                  RadiusAtLeast),
     APOGRAPH_FORMULA(EpicycleLeast));
 const BuiltinModel kEquantCentre(
     "equant-centre",
@@ -84,12 +100,15 @@ const BuiltinModel kEquantCentre(
     "argument: the mean centre in degrees from the apogee, counted at the equant; the table "
     "gives the amount: q(360 - k) = q(k), subtracted (0..180) or added (180..360) by the "
     "table's rubric; not displaced.",
-    {Eccentricity(6.0)}, APOGRAPH_FORMULA(EquantCentre));
+    {Eccentricity(6.0)},
+    FunctionTraits(true, SignForm::kMagnitude, {"centre", "center", "equant", "planet"}),
+    APOGRAPH_FORMULA(EquantCentre));
 const BuiltinModel kLunarAnomaly(
     "lunar-anomaly",
     "p(g) = atan2(r sin g, 60 + r cos g): the moon's first anomaly on an epicycle of radius r "
     "(5;15 is the usual figure); greatest asin(r/60).",
-    kAnomalyConvention, {EpicycleRadius(5.25, 4.0, 7.0)}, APOGRAPH_FORMULA(EpicycleMean));
+    kAnomalyConvention, {EpicycleRadius(5.25, 4.0, 7.0)},
+    FunctionTraits(true, SignForm::kMagnitude, {"moon", "lunar"}), APOGRAPH_FORMULA(EpicycleMean));
 
 }  // namespace
 

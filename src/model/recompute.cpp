@@ -57,6 +57,68 @@ const std::string& Model::convention() const {
   return kNone;
 }
 
+int Model::ParamIndex(ParamRole role) const {
+  const auto& ps = params();
+  for (std::size_t i = 0; i < ps.size(); ++i) {
+    if (ps[i].role == role) return static_cast<int>(i);
+  }
+  return -1;
+}
+
+const ModelTraits& Model::traits() const {
+  static const ModelTraits kPlain;
+  return kPlain;
+}
+
+SignForm Model::ResolvedSign(SignForm form) const {
+  return form == SignForm::kConventional ? traits().conventional : form;
+}
+
+const char* ToString(ModelKind kind) {
+  switch (kind) {
+    case ModelKind::kFunction:
+      return "function";
+    case ModelKind::kMeanMotion:
+      return "mean motion";
+    case ModelKind::kPosition:
+      return "position";
+  }
+  return "function";
+}
+
+const char* ToString(SignForm form) {
+  switch (form) {
+    case SignForm::kConventional:
+      return "conventional";
+    case SignForm::kSigned:
+      return "signed";
+    case SignForm::kNegated:
+      return "negated";
+    case SignForm::kMagnitude:
+      return "magnitude";
+  }
+  return "conventional";
+}
+
+std::optional<SignForm> SignFormFromString(std::string_view text) {
+  for (SignForm f :
+       {SignForm::kConventional, SignForm::kSigned, SignForm::kNegated, SignForm::kMagnitude}) {
+    if (text == ToString(f)) return f;
+  }
+  return std::nullopt;
+}
+
+double ApplySign(double v, SignForm form) {
+  switch (form) {
+    case SignForm::kNegated:
+      return -v;
+    case SignForm::kMagnitude:
+      return std::fabs(v);
+    default:
+      return v;
+  }
+}
+
 int Model::ParamIndex(std::string_view param_name) const {
   const auto& ps = params();
   for (std::size_t i = 0; i < ps.size(); ++i) {
@@ -80,8 +142,10 @@ std::optional<double> RowArgument(const Transcription& table, std::size_t row) {
   return std::nullopt;
 }
 
-double PracticeValue(const Model& model, const std::vector<double>& params, const RowContext& row,
+double PracticeValue(const Model& model, const std::vector<double>& params, const RowContext& given,
                      const Practice& practice, int places) {
+  RowContext row = given;
+  row.sign = practice.sign;
   double v = 0;
   const double g = practice.grid;
   const double lo =
@@ -100,8 +164,10 @@ double PracticeValue(const Model& model, const std::vector<double>& params, cons
 }
 
 double PracticeValueWithGradient(const Model& model, const std::vector<double>& params,
-                                 const RowContext& row, const Practice& practice, int places,
+                                 const RowContext& given, const Practice& practice, int places,
                                  const std::vector<int>& wrt, double* gradient) {
+  RowContext row = given;
+  row.sign = practice.sign;
   const double g = practice.grid;
   const double lo =
       g > 0 ? practice.grid_origin + std::floor((row.arg - practice.grid_origin) / g) * g : row.arg;

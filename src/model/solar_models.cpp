@@ -10,10 +10,12 @@ namespace apograph::model::internal {
 namespace {
 
 /// Eccentric: q(a) = atan2(e sin a, 60 + e cos a), a the mean anomaly from the
-/// apogee. Greatest where the true anomaly is 90: asin(e/60).
+/// apogee (positive from 0 to 180, negative beyond: the signed form; the
+/// tables conventionally give the amount). Greatest where the true anomaly
+/// is 90: asin(e/60).
 template <typename T>
 T SolarEccentric(const T* p, T a, T) {
-  return fabs(Atan2Deg(p[0] * SinDeg(a), T(60) + p[0] * CosDeg(a)));
+  return Atan2Deg(p[0] * SinDeg(a), T(60) + p[0] * CosDeg(a));
 }
 
 /// Concentric with epicycle, computed from the figure rather than the
@@ -28,7 +30,7 @@ T SolarEpicycle(const T* p, T a, T) {
   const T y = T(60) * SinDeg(a) + p[0] * SinDeg(a + g);
   // Angle from the true direction back to the mean direction, in (-180, 180].
   const T mean_x = CosDeg(a), mean_y = SinDeg(a);
-  return fabs(Atan2Deg(mean_y * x - mean_x * y, mean_x * x + mean_y * y));
+  return Atan2Deg(mean_y * x - mean_x * y, mean_x * x + mean_y * y);
 }
 
 const char kEquationConvention[] =
@@ -41,14 +43,14 @@ const BuiltinModel kSolarEccentric(
     "q(a) = atan2(e sin a, 60 + e cos a): the eccentric model with eccentricity e on a radius "
     "of 60; greatest equation asin(e/60).",
     kEquationConvention, {{"e", "parts of 60", "eccentricity of the sun's circle", 2.5, 1.0, 4.0}},
-    APOGRAPH_FORMULA(SolarEccentric));
+    FunctionTraits(true, SignForm::kMagnitude, {"sun", "solar"}), APOGRAPH_FORMULA(SolarEccentric));
 const BuiltinModel kSolarEpicycle(
     "solar-epicycle",
     "The concentric deferent of radius 60 carrying an epicycle of radius r on which the sun "
     "turns against the deferent's sense at the same rate; identical to solar-eccentric with "
     "e = r.",
     kEquationConvention, {{"r", "parts of 60", "radius of the sun's epicycle", 2.5, 1.0, 4.0}},
-    APOGRAPH_FORMULA(SolarEpicycle));
+    FunctionTraits(true, SignForm::kMagnitude, {"sun", "solar"}), APOGRAPH_FORMULA(SolarEpicycle));
 
 }  // namespace
 

@@ -36,7 +36,7 @@ T RightAscensionOf(T eps, T lambda) {
 
 template <typename T>
 T Declination(const T* p, T lambda, T) {
-  return fabs(SignedDeclination(p[0], lambda));
+  return SignedDeclination(p[0], lambda);
 }
 template <typename T>
 T RightAscension(const T* p, T lambda, T) {
@@ -44,7 +44,7 @@ T RightAscension(const T* p, T lambda, T) {
 }
 template <typename T>
 T AscensionalDifference(const T* p, T lambda, T) {
-  return fabs(SignedAscensionalDifference(p[0], p[1], lambda));
+  return SignedAscensionalDifference(p[0], p[1], lambda);
 }
 template <typename T>
 T ObliqueAscension(const T* p, T lambda, T) {
@@ -69,32 +69,39 @@ const BuiltinModel kDeclination(
     "declination", "delta(l) = asin(sin eps sin l); at l = 90 it equals the obliquity eps.",
     "argument: the longitude in degrees; the table gives the amount: delta(180 - l) = "
     "delta(l), and between 180 and 360 the same amounts are southern; not displaced.",
-    {Obliquity()}, APOGRAPH_FORMULA(Declination));
+    {Obliquity()}, FunctionTraits(true, SignForm::kMagnitude, {"declination"}),
+    APOGRAPH_FORMULA(Declination));
 const BuiltinModel kRightAscension(
     "right-ascension", "alpha(l) = atan2(cos eps sin l, cos l), counted from 0 to 360 with l.",
     "argument: the longitude in degrees; rises with l (alpha(90) = 90, alpha(180) = 180, "
     "alpha(360) = 360; beyond 360 keeps counting); not displaced.",
-    {Obliquity()}, APOGRAPH_FORMULA(RightAscension));
+    {Obliquity()}, FunctionTraits(false, SignForm::kSigned, {"right ascension"}),
+    APOGRAPH_FORMULA(RightAscension));
 const BuiltinModel kAscensionalDifference(
     "ascensional-difference",
     "d(l) = asin(tan phi tan delta(l)), the difference between right and oblique ascension at "
     "latitude phi.",
     "argument: the longitude in degrees; the table gives the amount (the same for l and "
     "180 - l, and for the southern half); undefined where the sun does not set; not displaced.",
-    {Obliquity(), Latitude()}, APOGRAPH_FORMULA(AscensionalDifference));
+    {Obliquity(), Latitude()}, FunctionTraits(true, SignForm::kMagnitude, {"ascensional"}),
+    APOGRAPH_FORMULA(AscensionalDifference));
 const BuiltinModel kObliqueAscension(
     "oblique-ascension",
     "rho(l) = alpha(l) - d(l) with the signed ascensional difference (positive for northern "
     "declination): the arc of the equator rising with the arc of the ecliptic from 0 to l.",
     "argument: the longitude in degrees; rises from 0 to 360 with l; not displaced.",
-    {Obliquity(), Latitude()}, APOGRAPH_FORMULA(ObliqueAscension));
+    {Obliquity(), Latitude()},
+    FunctionTraits(false, SignForm::kSigned, {"oblique ascension", "rising"}),
+    APOGRAPH_FORMULA(ObliqueAscension));
 const BuiltinModel kDaylight(
     "daylight",
     "D(l) = 12 + 2 d(l) / 15 equinoctial hours, d the signed ascensional difference (time "
     "degrees are 15 times the hours).",
     "argument: the sun's longitude in degrees; signed through d: longer than 12 hours for "
     "northern declinations at a northern latitude; not displaced.",
-    {Obliquity(), Latitude()}, APOGRAPH_FORMULA(Daylight));
+    {Obliquity(), Latitude()},
+    FunctionTraits(false, SignForm::kSigned, {"daylight", "day length", "length of day"}),
+    APOGRAPH_FORMULA(Daylight));
 
 }  // namespace
 

@@ -57,32 +57,36 @@ const BuiltinModel kChord(
     "chord", "crd(a) = 2R sin(a/2); on the usual diameter 120 (R = 60) crd(60) = 60.",
     "argument: the arc in degrees; crd(360 - a) = crd(a) and the value is never negative; "
     "not displaced.",
-    {Radius(60)}, APOGRAPH_FORMULA(Chord));
+    {Radius(60)}, FunctionTraits(false, SignForm::kSigned, {"chord"}), APOGRAPH_FORMULA(Chord));
 const BuiltinModel kSine(
     "sine", "Sin(a) = R sin a, the sine on a radius R (60, 150, 3438 ...).",
     "argument: the arc in degrees; signed: negative for arcs between 180 and 360; not displaced.",
-    {Radius(60)}, APOGRAPH_FORMULA(Sine));
+    {Radius(60)}, FunctionTraits(true, SignForm::kSigned, {"sine"}), APOGRAPH_FORMULA(Sine));
 const BuiltinModel kCosine(
     "cosine", "Cos(a) = R cos a, the cosine on a radius R.",
     "argument: the arc in degrees; signed: negative between 90 and 270; not displaced.",
-    {Radius(60)}, APOGRAPH_FORMULA(Cosine));
+    {Radius(60)}, FunctionTraits(true, SignForm::kSigned, {"cosine"}), APOGRAPH_FORMULA(Cosine));
 const BuiltinModel kVersedSine(
     "versed-sine", "vers(a) = R (1 - cos a), the versed sine on a radius R.",
     "argument: the arc in degrees; vers(360 - a) = vers(a), from 0 to 2R; not displaced.",
-    {Radius(60)}, APOGRAPH_FORMULA(VersedSine));
+    {Radius(60)}, FunctionTraits(false, SignForm::kSigned, {"versed"}),
+    APOGRAPH_FORMULA(VersedSine));
 const BuiltinModel kShadow(
     "shadow",
     "u(h) = g cot h, the shadow a gnomon of length g casts on the horizontal plane "
     "when the sun stands at altitude h.",
     "argument: the altitude in degrees; undefined at 0 and 180; signed (negative between 90 "
     "and 180); not displaced.",
-    {Gnomon()}, APOGRAPH_FORMULA(Shadow));
+    {Gnomon()}, FunctionTraits(true, SignForm::kSigned, {"shadow", "umbra"}),
+    APOGRAPH_FORMULA(Shadow));
 const BuiltinModel kReversedShadow(
     "reversed-shadow",
     "v(h) = g tan h, the shadow of a gnomon set at right angles to a "
     "vertical wall, at altitude h.",
     "argument: the altitude in degrees; undefined at 90 and 270; signed; not displaced.",
-    {Gnomon()}, APOGRAPH_FORMULA(ReversedShadow));
+    {Gnomon()},
+    FunctionTraits(true, SignForm::kSigned, {"reversed shadow", "vertical", "umbra versa"}),
+    APOGRAPH_FORMULA(ReversedShadow));
 
 }  // namespace
 

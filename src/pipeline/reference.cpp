@@ -8,6 +8,7 @@
 #include "estimate/identify.hpp"
 #include "estimate/observations.hpp"
 #include "model/formula.hpp"
+#include "store/estimate_store.hpp"
 #include "store/model_store.hpp"
 #include "support/input_error.hpp"
 
@@ -55,6 +56,20 @@ std::shared_ptr<const model::Model> ModelLibrary::Find(const std::string& name) 
   return nullptr;
 }
 
+std::shared_ptr<const model::Model> ModelLibrary::FindOrThrow(const std::string& name,
+                                                              const std::string& option) const {
+  if (auto m = Find(name)) return m;
+  throw InputError::ForOption(
+      option, ExpectedFound("a built-in model or a saved formula (" + KnownNames() + ")",
+                            "'" + name + "'"));
+}
+
+std::vector<const model::Model*> ModelLibrary::FormulaPointers() const {
+  std::vector<const model::Model*> out;
+  for (const auto& f : formulas) out.push_back(f.get());
+  return out;
+}
+
 std::string ModelLibrary::KnownNames() const {
   std::string known;
   for (const auto* m : model::BuiltinModels()) known += (known.empty() ? "" : ", ") + m->name();
@@ -67,10 +82,12 @@ ModelLibrary LoadModelLibrary(store::Database& db) {
   for (const auto& f : store::ListFormulas(db)) {
     try {
       lib.formulas.push_back(model::CompileFormula(f.text, f.name, "formula " + f.name));
-    } catch (const InputError&) {
-      // left out: `apograph formula show` reports why it no longer compiles
+    } catch (const InputError& e) {  // left out, with the reason for a warning
+      lib.skipped.push_back("saved formula " + f.name + " no longer compiles and is left out: " +
+                            e.diagnostics().front().message);
     }
   }
+  lib.catalog = store::LoadCatalog(db);
   return lib;
 }
 
@@ -87,6 +104,7 @@ std::string DescribePractice(const model::Practice& p, int places) {
 }
 
 std::string ColumnReference::ModelText() const {
+  if (!derived.empty()) return "derived: " + derived;
   std::string out = model->name();
   const auto& specs = model->params();
   for (std::size_t i = 0; i < params.size() && i < specs.size(); ++i) {
@@ -97,8 +115,16 @@ std::string ColumnReference::ModelText() const {
   return out;
 }
 
+const ColumnReference& ColumnReference::ForWitness(const std::string& siglum) const {
+  for (const auto& v : variants) {
+    if (std::find(v.followers.begin(), v.followers.end(), siglum) != v.followers.end()) return v;
+  }
+  return *this;
+}
+
 model::ColumnRecomputation ColumnReference::Recompute(const Transcription& witness) const {
-  return model::Recompute(*model, params, witness, column, practice);
+  const ColumnReference& r = ForWitness(witness.witness.siglum);
+  return model::Recompute(*r.model, r.params, witness, column, r.practice);
 }
 
 std::optional<Sexagesimal> ColumnReference::ValueAt(double argument,
@@ -108,12 +134,8 @@ std::optional<Sexagesimal> ColumnReference::ValueAt(double argument,
   ctx.arg2 = arg2;
   ctx.column = column;
   const int places = practice.places.value_or(0);
-  double v = NAN;
-  try {
-    v = model::PracticeValue(*model, params, ctx, practice, places);
-  } catch (const std::exception&) {
-    return std::nullopt;  // a formula that needs the table's other cells
-  }
+  // A formula that reads the table's other cells has no value here (NaN).
+  const double v = model::PracticeValue(*model, params, ctx, practice, places);
   if (!std::isfinite(v) || std::fabs(v) >= 1e12) return std::nullopt;
   return Sexagesimal::FromDouble(v, places, practice.rounding);
 }
@@ -132,20 +154,6 @@ int ExactEntries(const model::Model& m, const std::vector<double>& params, const
   return exact;
 }
 
-std::pair<std::vector<double>, int> RoundParams(const model::Model& m,
-                                                const std::vector<double>& params,
-                                                const Transcription& t,
-                                                const std::vector<int>& columns,
-                                                const model::Practice& practice) {
-  const int target = ExactEntries(m, params, t, columns, practice);
-  for (int places = 1; places <= 3; ++places) {
-    std::vector<double> rounded = params;
-    for (double& v : rounded) v = Sexagesimal::FromDouble(v, places).ToDouble();
-    if (ExactEntries(m, rounded, t, columns, practice) >= target) return {rounded, places};
-  }
-  return {params, 0};
-}
-
 namespace internal {
 
 /// The explicitly requested model (owned when it is a formula).
@@ -157,10 +165,7 @@ std::shared_ptr<const model::Model> RequestedModel(const ReferenceRequest& r,
     return std::shared_ptr<const model::Model>(model::CompileFormula(r.formula));
   }
   if (r.model.empty()) return nullptr;
-  if (auto m = library.Find(r.model)) return m;
-  throw InputError::ForOption(
-      "--model", ExpectedFound("a built-in model or a saved formula (" + library.KnownNames() + ")",
-                               "'" + r.model + "'"));
+  return library.FindOrThrow(r.model, "--model");
 }
 
 }  // namespace internal

@@ -6,14 +6,26 @@
 ///
 /// Obtained either from an explicit request (model name, saved formula or
 /// formula text; parameters; practice) or automatically: every witness's
-/// column is identified (estimate::Identify: families x practices), the
-/// witness whose best candidate reproduces the most entries exactly is
-/// chosen (ties: the higher identification score, then the first siglum),
-/// and its fitted parameters are brought to the coarsest sexagesimal value
-/// that still reproduces as many entries exactly (RoundParams). One witness
-/// rather than all of them jointly: witnesses disagree exactly where they
-/// carry slips, and the least corrupted copy shows the author's practice
-/// best; the description names that witness.
+/// column is identified (estimate::Identify: families x practices, round
+/// and attested values adopted where they keep the entries), the witness
+/// whose best candidate reproduces the most entries within one unit is
+/// chosen (ties: more exact, the higher identification score, then the
+/// first siglum). One witness rather than all of them jointly: witnesses
+/// disagree exactly where they carry slips, and the least corrupted copy
+/// shows the author's practice best; the description names that witness.
+///
+/// A column computed from another column (differences, sums, products: see
+/// estimate/derived_columns.hpp) gets a derived reference: its model is an
+/// estimate::DerivedModel, so that Recompute and ValueAt give the derived
+/// values like any other. Where witnesses were computed differently (one
+/// recomputed the column from its own rounded entries, another from exact
+/// values), the reference carries one variant per computation
+/// (`variants`) and ForWitness picks a witness's.
+///
+/// When nothing explains a column (estimate::kExplainedShare), the
+/// reference is still returned, with `explains` false and the verdict in
+/// words: later stages screen such a column without a model and propose no
+/// emendation from it.
 ///
 ///     pipeline::ReferenceRequest r;
 ///     r.automatic = true;
@@ -27,7 +39,9 @@
 #include <vector>
 
 #include "edition/transcription.hpp"
+#include "estimate/catalog.hpp"
 #include "estimate/fit.hpp"
+#include "estimate/identify.hpp"
 #include "estimate/mean_motion_analysis.hpp"
 #include "model/model.hpp"
 
@@ -37,18 +51,29 @@ class Database;
 
 namespace apograph::pipeline {
 
-/// The models a request may name besides the built-ins: the formulas saved
-/// in the database, compiled.
+/// The one registry of models for every command: the built-ins, the
+/// formulas saved in the database (compiled), and the attested parameter
+/// values (shipped catalog + the database's), which identification tries as
+/// round values.
 struct ModelLibrary {
   std::vector<std::shared_ptr<const model::Model>> formulas;
+  std::vector<estimate::CatalogEntry> catalog;
+  /// Saved formulas that no longer compile, with the reason (for a warning).
+  std::vector<std::string> skipped;
   /// A built-in model or saved formula by name; nullptr when unknown.
   std::shared_ptr<const model::Model> Find(const std::string& name) const;
+  /// As Find, or InputError naming `option`: "expected a built-in model or
+  /// a saved formula (chord, sine, ...), found 'NAME'" (the one message).
+  std::shared_ptr<const model::Model> FindOrThrow(const std::string& name,
+                                                  const std::string& option = "--model") const;
   /// "chord, sine, ..., my-formula": for error messages.
   std::string KnownNames() const;
+  /// The saved formulas as plain pointers (identify's extra models).
+  std::vector<const model::Model*> FormulaPointers() const;
 };
 
 /// Every saved formula of the database that compiles (one that no longer
-/// compiles is left out; `apograph formula show` says why).
+/// compiles goes to `skipped` with its reason) and the whole catalog.
 ModelLibrary LoadModelLibrary(store::Database& db);
 
 /// What the editor asked for. Either a model (`model` or `formula`) with
@@ -92,10 +117,36 @@ struct ColumnReference {
   std::string witness;
   double score = 0;
   int exact = 0, entries = 0;     ///< entries of that witness reproduced exactly / compared
-  int rounded_places = 0;         ///< places the parameters were brought to (0: not rounded)
-  std::vector<std::string> ties;  ///< identify's notes on near-ties
-  /// The estimate before rounding, with standard errors (identified only).
+  int within_one = 0;             ///< entries of that witness within one unit
+  std::vector<std::string> ties;  ///< identify's notes on near-ties and naming
+  /// The estimate before round values were adopted, with standard errors
+  /// (identified only).
   std::vector<estimate::FittedParam> estimates;
+  /// Round or attested values adopted, each with the fitted value and its
+  /// error (empty: the fitted values stand).
+  std::vector<estimate::AdoptedValue> adopted;
+  /// Which were adopted and why, in words (empty when none).
+  std::string adoption;
+  /// Models that compute the same values ("solar-epicycle r = 2;30"), and
+  /// why this one is shown (empty without equivalents).
+  std::vector<std::string> equivalents;
+  std::string naming;
+  /// The "nothing fits" verdict: false when no model keeps
+  /// estimate::kExplainedShare of the identified witness's entries within
+  /// one unit. Later stages then screen the column without a model and
+  /// record no emendation from this reference. Given references explain.
+  bool explains = true;
+  /// Why it does not explain the column (empty when it does).
+  std::string verdict;
+  /// For a derived column (`model` is then an estimate::DerivedModel): the
+  /// relation and what it is computed from, in words.
+  std::string derived;
+  /// Per-witness computations of this column when witnesses differ: each
+  /// variant is a whole reference (model, practice, description) with the
+  /// sigla that follow it in `followers`. Empty when one computation serves
+  /// every witness.
+  std::vector<ColumnReference> variants;
+  std::vector<std::string> followers;  ///< in a variant: the sigla that follow it
   /// For a mean-motion column: how the identified witness's entries were
   /// made (multiplication, successive addition, other rounded entries).
   std::optional<estimate::MeanMotionAnalysis> mean_motion;
@@ -112,7 +163,10 @@ struct ColumnReference {
   /// "solar-eccentric e=2.26667 (2;16)": name and parameter values, both
   /// in decimal and, for short sexagesimal fractions, the trade's notation.
   std::string ModelText() const;
-  /// Recomputes this column of a witness.
+  /// The reference a witness follows: its variant when there are variants
+  /// and one lists the siglum, else this one.
+  const ColumnReference& ForWitness(const std::string& siglum) const;
+  /// Recomputes this column of a witness (with the witness's variant).
   model::ColumnRecomputation Recompute(const Transcription& witness) const;
   /// The value at an argument (and column argument, in a double-argument
   /// table) under the practice, at the practice's places; nullopt where the
@@ -137,17 +191,6 @@ std::string DescribePractice(const model::Practice& practice, int places);
 std::vector<ColumnReference> ResolveReferences(const std::vector<Transcription>& witnesses,
                                                const ReferenceRequest& request,
                                                const ModelLibrary& library = {});
-
-/// Authors chose round parameters: `params` brought to 1, 2 or 3
-/// sexagesimal places, the coarsest that reproduces at least as many
-/// entries of `columns` exactly as `params` themselves. Returns the values
-/// and the places used (0: none of them did; the values are returned as
-/// given). Parameters with a value below 1e-9 stay 0.
-std::pair<std::vector<double>, int> RoundParams(const model::Model& model,
-                                                const std::vector<double>& params,
-                                                const Transcription& table,
-                                                const std::vector<int>& columns,
-                                                const model::Practice& practice);
 
 /// Entries of `columns` of `table` that `model` at `params` under `practice`
 /// reproduces exactly.

@@ -6,9 +6,11 @@
 
 #include "estimate/fit.hpp"
 #include "estimate/identify.hpp"
+#include "estimate/notation.hpp"
 #include "estimate/observations.hpp"
 #include "model/check.hpp"
 #include "model/formula.hpp"
+#include "pipeline/derived_references.hpp"
 #include "pipeline/reference.hpp"
 #include "support/input_error.hpp"
 
@@ -73,58 +75,89 @@ ColumnReference Given(const Transcription& t, int column,
   return r;
 }
 
-/// The best candidate of one witness's column, or nothing.
+/// The best explanation of one witness's column, or nothing.
 struct WitnessBest {
   const Transcription* witness = nullptr;
   std::shared_ptr<const model::Model> model;
-  estimate::FitResult fit;
-  double score = 0;
-  std::vector<std::string> ties;
-  std::optional<estimate::MeanMotionAnalysis>
-      mean_motion;  ///< identify's, for a mean-motion column
+  estimate::Candidate best;
+  std::vector<std::string> notes;
+  std::optional<estimate::MeanMotionAnalysis> mean_motion;  ///< identify's, for a mean motion
+  bool explains = true;
+  std::string verdict;
 };
+
+/// The editor fixed the practice: the model's parameters are only fitted
+/// (then brought to round or attested values).
+std::optional<WitnessBest> FitOnly(const Transcription& t, int column,
+                                   const std::shared_ptr<const model::Model>& requested,
+                                   const ReferenceRequest& request, const ModelLibrary& library) {
+  estimate::FitOptions fo;
+  fo.practice = request.practice;
+  const auto obs = estimate::CollectObservations(t, {column});
+  if (obs.size() < 3) return std::nullopt;
+  WitnessBest b;
+  b.witness = &t;
+  b.model = requested;
+  b.best.model = requested.get();
+  b.best.fit = estimate::Fit(*requested, t, obs, fo);
+  const auto& entries = b.best.fit.entries;
+  if (std::none_of(entries.begin(), entries.end(),
+                   [](const estimate::FitEntry& e) { return e.computed.has_value(); })) {
+    throw InputError::ForOption(
+        "--model", ExpectedFound("a model that gives a value on some row of column " +
+                                     t.columns.at(static_cast<std::size_t>(column)).name,
+                                 "'" + requested->name() + "', undefined on every row"));
+  }
+  b.best.score = estimate::Score(b.best.fit, b.best.fit.free_parameters);
+  b.best.adoption = estimate::AdoptRoundValues(*requested, b.best.fit, t, column, &library.catalog);
+  const auto& f = b.best.Final();
+  b.explains = f.n > 0 && f.within1 >= estimate::kExplainedShare * f.n;
+  return b;
+}
+
+/// The object identify used, shared: a saved formula is owned by the library.
+std::shared_ptr<const model::Model> Shared(const model::Model* m, const ModelLibrary& library) {
+  for (const auto& f : library.formulas) {
+    if (f.get() == m) return f;
+  }
+  return std::shared_ptr<const model::Model>(std::shared_ptr<const model::Model>(), m);
+}
 
 std::optional<WitnessBest> BestOf(const Transcription& t, int column,
                                   const std::shared_ptr<const model::Model>& requested,
                                   const ReferenceRequest& request, const ModelLibrary& library) {
-  if (requested && request.practice_given) {  // the editor fixed the practice: fit only
-    estimate::FitOptions fo;
-    fo.practice = request.practice;
-    const auto obs = estimate::CollectObservations(t, {column});
-    if (obs.size() < 3) return std::nullopt;
-    WitnessBest b{&t, requested, estimate::Fit(*requested, t, obs, fo), 0, {}, std::nullopt};
-    b.score = estimate::Score(b.fit, b.fit.free_parameters);
-    return b;
-  }
+  if (requested && request.practice_given) return FitOnly(t, column, requested, request, library);
   estimate::IdentifyOptions o;
   o.top = 5;
+  o.catalog = &library.catalog;
   if (requested)
     o.models = {requested.get()};
-  else {
-    for (const auto& f : library.formulas) o.extra_models.push_back(f.get());
-  }
+  else
+    o.extra_models = library.FormulaPointers();
   const estimate::Identification id = estimate::Identify(t, column, o);
   if (id.ranked.empty()) {
-    if (!requested) return std::nullopt;
-    // identify found the model inapplicable to this kind of column: fit it anyway
+    if (!requested || estimate::CollectObservations(t, {column}).size() < 3) return std::nullopt;
+    // identify found the model undefined on most rows: fit it anyway (the
+    // fit says where it has no value)
     ReferenceRequest plain = request;
     plain.practice_given = true;
-    return BestOf(t, column, requested, plain, library);
+    return FitOnly(t, column, requested, plain, library);
   }
-  const auto& best = id.ranked.front();
-  std::shared_ptr<const model::Model> m = requested;
-  if (!m) {  // keep the very object identify used (a saved formula is owned by the library)
-    m = std::shared_ptr<const model::Model>(std::shared_ptr<const model::Model>(), best.model);
-    for (const auto& f : library.formulas) {
-      if (f.get() == best.model) m = f;
-    }
-  }
-  return WitnessBest{&t, m, best.fit, best.score, id.notes, id.mean_motion};
+  WitnessBest b;
+  b.witness = &t;
+  b.best = id.ranked.front();
+  b.model = requested ? requested : Shared(b.best.model, library);
+  b.notes = id.notes;
+  b.mean_motion = id.mean_motion;
+  b.explains = id.explained;
+  b.verdict = id.verdict;
+  return b;
 }
 
 /// A mean motion's radix is fitted modulo the modulus: 360 is written 0.
 void ReduceRadix(const model::Model& m, std::vector<double>& params) {
-  const int radix = m.ParamIndex("radix"), modulus = m.ParamIndex("modulus");
+  const int radix = m.ParamIndex(model::ParamRole::kRadix),
+            modulus = m.ParamIndex(model::ParamRole::kModulus);
   if (radix < 0 || modulus < 0) return;
   const double mod = params[static_cast<std::size_t>(modulus)];
   double& r = params[static_cast<std::size_t>(radix)];
@@ -135,16 +168,59 @@ void ReduceRadix(const model::Model& m, std::vector<double>& params) {
 }
 
 std::string HowText(const ColumnReference& r, bool fitted_only) {
-  char buf[160];
-  std::snprintf(buf, sizeof buf, "%s witness %s (%d of %d entries exact, score %.1f)",
+  char buf[200];
+  std::snprintf(buf, sizeof buf,
+                "%s witness %s (%d of %d entries exact, %d within one unit, score %.1f)",
                 fitted_only ? "fitted to" : "identified from", r.witness.c_str(), r.exact,
-                r.entries, r.score);
+                r.entries, r.within_one, r.score);
   std::string s = buf;
-  if (r.rounded_places > 0) {
-    s += "; parameters brought to " + std::to_string(r.rounded_places) +
-         (r.rounded_places == 1 ? " sexagesimal place" : " sexagesimal places");
+  for (const auto& a : r.adopted) {
+    s += "; " + a.param + " = " + estimate::NumberText(a.value, 6) + " adopted (" + a.source +
+         "), fitted " + estimate::NumberWithDecimal(a.fitted, 4);
   }
+  if (!r.explains) s += "; " + r.verdict;
   return s;
+}
+
+/// Better evidence of the author's computation: more entries within one
+/// unit, then more exact, then the higher score.
+bool Better(const WitnessBest& a, const WitnessBest& b) {
+  const auto& fa = a.best.Final();
+  const auto& fb = b.best.Final();
+  if (fa.within1 != fb.within1) return fa.within1 > fb.within1;
+  if (fa.exact != fb.exact) return fa.exact > fb.exact;
+  return a.best.score > b.best.score;
+}
+
+void FillIdentified(ColumnReference& r, const WitnessBest& chosen) {
+  const estimate::Candidate& c = chosen.best;
+  const estimate::FitResult& f = c.Final();
+  r.practice = f.practice;
+  r.source = ReferenceSource::kIdentified;
+  r.witness = chosen.witness->witness.siglum;
+  r.score = c.score;
+  r.ties = chosen.notes;
+  r.entries = f.n;
+  r.exact = f.exact;
+  r.within_one = f.within1;
+  r.estimates = c.fit.params;
+  r.mean_motion = chosen.mean_motion;
+  r.params = f.Values();
+  ReduceRadix(*r.model, r.params);
+  if (c.adoption) {
+    r.adopted = c.adoption->values;
+    r.adoption = c.adoption->text;
+  }
+  for (const auto& e : c.equivalents) {
+    std::string s = e.model->name();
+    for (const auto& p : e.params) {
+      if (!p.fixed) s += " " + p.name + " = " + estimate::NumberText(p.value);
+    }
+    r.equivalents.push_back(s);
+  }
+  r.naming = c.naming;
+  r.explains = chosen.explains;
+  r.verdict = chosen.verdict;
 }
 
 ColumnReference Identified(const std::vector<const Transcription*>& from, int column,
@@ -153,10 +229,7 @@ ColumnReference Identified(const std::vector<const Transcription*>& from, int co
   std::optional<WitnessBest> chosen;
   for (const Transcription* t : from) {
     auto b = BestOf(*t, column, requested, request, library);
-    if (!b) continue;
-    const bool better = !chosen || b->fit.exact > chosen->fit.exact ||
-                        (b->fit.exact == chosen->fit.exact && b->score > chosen->score);
-    if (better) chosen = std::move(b);
+    if (b && (!chosen || Better(*b, *chosen))) chosen = std::move(b);
   }
   const Transcription& layout = *from.front();
   if (!chosen) {
@@ -166,20 +239,7 @@ ColumnReference Identified(const std::vector<const Transcription*>& from, int co
                       layout.table_id + " (too few readable entries)");
   }
   ColumnReference r = Base(layout, column, chosen->model);
-  r.practice = chosen->fit.practice;
-  r.source = ReferenceSource::kIdentified;
-  r.witness = chosen->witness->witness.siglum;
-  r.score = chosen->score;
-  r.ties = chosen->ties;
-  r.entries = chosen->fit.n;
-  r.estimates = chosen->fit.params;
-  r.mean_motion = chosen->mean_motion;
-  auto [params, places] =
-      RoundParams(*r.model, chosen->fit.Values(), *chosen->witness, {column}, r.practice);
-  r.params = std::move(params);
-  r.rounded_places = places;
-  ReduceRadix(*r.model, r.params);
-  r.exact = ExactEntries(*r.model, r.params, *chosen->witness, {column}, r.practice);
+  FillIdentified(r, *chosen);
   r.how = HowText(r, requested && request.practice_given);
   Finish(r, layout);
   return r;
@@ -231,6 +291,8 @@ std::vector<ColumnReference> ResolveReferences(const std::vector<Transcription>&
     out.push_back(request.automatic ? Identified(from, c, requested, request, library)
                                     : Given(layout, c, requested, request));
   }
+  // Columns computed from other columns, when the model is identified.
+  if (request.automatic && !requested) internal::AddDerivedReferences(from, out);
   return out;
 }
 

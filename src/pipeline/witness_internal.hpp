@@ -14,7 +14,7 @@ inline std::optional<ColumnReference> ForWitness(const ColumnReference& ref,
                                                  const Transcription& witness) {
   const int c = witness.ColumnIndex(ref.column_name);
   if (c < 0) return std::nullopt;
-  ColumnReference r = ref;
+  ColumnReference r = ref.ForWitness(witness.witness.siglum);  // its computation, if it differs
   r.column = c;
   return r;
 }

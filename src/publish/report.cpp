@@ -43,10 +43,7 @@ void Witnesses(const pipeline::TableAnalysis& a, std::ostream& out) {
 void Estimates(const pipeline::ColumnReference& r, std::ostream& out) {
   std::vector<std::string> parts;
   for (const auto& p : r.estimates) {
-    if (p.fixed) continue;
-    char buf[64];
-    std::snprintf(buf, sizeof buf, " (%.6g \u00b1 %.2g)", p.value, p.stderr_);
-    parts.push_back(p.name + " = " + estimate::TradeValue(p.value, p.stderr_) + buf);
+    if (!p.fixed) parts.push_back(estimate::ParamWithError(p));
   }
   if (!parts.empty())
     out << "  estimate from witness " << r.witness << ": " << Join(parts, ", ") << "\n";
@@ -66,6 +63,18 @@ void MeanMotionVerdict(const pipeline::ColumnReference& r, std::ostream& out) {
       << "): " << v.substr(0, v.find(" Entry by entry:")) << "\n";
 }
 
+/// Who follows which computation, when witnesses computed a column
+/// differently.
+void Computations(const pipeline::ColumnReference& r, std::ostream& out) {
+  if (r.variants.empty()) return;
+  for (const auto& v : r.variants) {
+    out << "  - " << Join(v.followers, ", ") << (v.followers.size() == 1 ? " follows " : " follow ")
+        << "another computation: " << v.description << " (" << v.exact << " of " << v.entries
+        << " entries exact)\n";
+  }
+  out << "  - the others follow " << r.description << "\n";
+}
+
 void References(const pipeline::TableAnalysis& a, std::ostream& out) {
   out << "### How the table was computed\n\n";
   if (a.references.empty()) out << "No model explains the table yet (give one with --model).\n";
@@ -80,6 +89,12 @@ void References(const pipeline::TableAnalysis& a, std::ostream& out) {
           << r.witness << ")\n";
     }
     Estimates(r, out);
+    if (!r.adoption.empty()) out << "  - round values: " << r.adoption << "\n";
+    if (!r.naming.empty()) out << "  - " << r.naming << "\n";
+    if (!r.explains)
+      out << "  - " << r.verdict
+          << "; its entries are screened without a model and no reading is proposed from it\n";
+    Computations(r, out);
     MeanMotionVerdict(r, out);
   }
   out << "\n";

@@ -93,7 +93,9 @@ TEST_CASE("apograph errors --auto fits the model first") {
   const std::string model = j["model"];
   REQUIRE(model.find("solar-eccentric e=") == 0);
   CHECK(std::stod(model.substr(18)) == doctest::Approx(2.5).epsilon(0.005));
-  CHECK(model == "solar-eccentric e=2.5 (2;30) (fitted, rounded to 1 place)");
+  CHECK(model ==
+        "solar-eccentric e=2.5 (2;30) (fitted, e = 2;30 adopted (attested: 2nd-century Greek "
+        "handbook (greatest equation 2;23)))");
   CHECK(j["findings"].size() == 2);
 }
 

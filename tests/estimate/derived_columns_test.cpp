@@ -38,11 +38,12 @@ Transcription ChordTable(bool from_tabulated) {
   return t;
 }
 
-std::vector<std::vector<double>> ExactChords(const Transcription& t) {
-  std::vector<std::vector<double>> p(2);
+DerivedInputs ExactChords(const Transcription& t) {
+  DerivedInputs in;
+  in.exact.resize(2);
   for (std::size_t i = 0; i < t.rows.size(); ++i)
-    p[0].push_back(Chord(0.5 * static_cast<double>(i + 1)));
-  return p;
+    in.exact[0].push_back(Chord(0.5 * static_cast<double>(i + 1)));
+  return in;
 }
 
 }  // namespace
@@ -54,8 +55,9 @@ TEST_CASE("an interpolation column made from the tabulated chords is found, with
   REQUIRE(found.size() == 1);
   CHECK(found[0].column == 1);
   CHECK(found[0].source == 0);
-  CHECK(found[0].divisor == 30);
-  CHECK(found[0].relation == "1/30 of the difference to the next row");
+  CHECK(found[0].spec.divisor == 30);
+  CHECK(found[0].spec.multiplier == 1);
+  CHECK(found[0].relation == "1/30 of the difference to the next row of chord");
   CHECK(found[0].matched_tabulated == found[0].rows);
   CHECK(found[0].basis == "tabulated entries");
 }
@@ -65,7 +67,7 @@ TEST_CASE("an interpolation column made from exact chords is told apart") {
   const auto precise = ExactChords(t);
   const auto found = DetectDerivedColumns(t, &precise);
   REQUIRE(found.size() == 1);
-  CHECK(found[0].divisor == 30);
+  CHECK(found[0].spec.divisor == 30);
   CHECK(found[0].basis == "precise values");
   CHECK(found[0].matched_precise > found[0].matched_tabulated);
 }
@@ -104,7 +106,7 @@ TEST_CASE("a column that is the sum of two others is found") {
   }
   const auto found = DetectDerivedColumns(t);
   bool sum = false;
-  for (const auto& d : found) sum = sum || (d.column == 2 && d.relation == "sum");
+  for (const auto& d : found) sum = sum || (d.column == 2 && d.relation == "the sum of a and b");
   CHECK(sum);
 }
 

@@ -4,6 +4,7 @@
 
 #include <cmath>
 
+#include "estimate/identify_internal.hpp"
 #include "synthetic.hpp"
 
 namespace apograph::estimate {
@@ -163,25 +164,24 @@ namespace apograph::estimate {
 TEST_CASE(
     "a degenerate limit of another family with unhistorical parameters is set aside, with a note") {
   // The ascensional difference with an obliquity near 0 and a latitude near
-  // 90 degrees mimics the declination table and, with one more parameter,
-  // reproduces about as many entries.
-  const model::Model* m = model::FindBuiltinModel("declination");
-  testing::SyntheticColumn c;
-  c.places = 2;
-  c.f = [m](double a) {
-    model::RowContext ctx;
-    ctx.arg = a;
-    return m->Evaluate({23.85}, ctx);
-  };
-  c.errors = {{11, 37}};
-  const Identification id = Identify(testing::MakeTable("decl", 1, 1, 90, {c}), 0);
-  REQUIRE(!id.ranked.empty());
-  CHECK(id.ranked[0].model->name() == "declination");
-  bool noted = false;
-  for (const auto& n : id.notes)
-    noted = noted || (n.find("ascensional-difference") != std::string::npos &&
-                      n.find("historical range") != std::string::npos);
-  CHECK(noted);
+  // 90 degrees mimics the declination table; ranked first on its score, it
+  // goes after the explanation with historical values.
+  Candidate degenerate, right;
+  degenerate.model = model::FindBuiltinModel("ascensional-difference");
+  degenerate.fit.params = {{"obliquity", "deg", 0.1, 0.01, false}, {"latitude", "deg", 89.7, 0.1}};
+  degenerate.score = -40;
+  right.model = model::FindBuiltinModel("declination");
+  right.fit.params = {{"obliquity", "deg", 23.85, 0.001, false}};
+  right.score = -45;
+  std::vector<Candidate> all = {degenerate, right};
+  std::vector<std::string> notes;
+  internal::SetAsideImplausible(all, notes);
+  REQUIRE(all.size() == 2);
+  CHECK(all[0].model->name() == "declination");
+  REQUIRE(notes.size() == 1);
+  CHECK(notes[0].find("ascensional-difference") != std::string::npos);
+  CHECK(notes[0].find("obliquity = 0;6, far outside its historical range 23 .. 24;12") !=
+        std::string::npos);
 }
 
 }  // namespace apograph::estimate

@@ -50,7 +50,10 @@ TEST_CASE("the registry lists every family under stable, unique names") {
                         "mean-motion",
                         "mean-motion-months",
                         "mean-motion-years",
-                        "mean-motion-collected"}) {
+                        "mean-motion-collected",
+                        "true-sun",
+                        "solar-equation-by-date",
+                        "planet-position"}) {
     CHECK_MESSAGE(FindBuiltinModel(n) != nullptr, n);
   }
   CHECK(FindBuiltinModel("no-such-model") == nullptr);

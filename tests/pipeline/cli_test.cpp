@@ -52,9 +52,8 @@ TEST_CASE("errors --auto uses the identified model and practice (grid 6) and fin
   const std::string model = j["model"];
   INFO(model);
   // solar-eccentric e, solar-epicycle r or epicycle-anomaly r: equivalent, tied
-  CHECK(model.find("=2.26667 (2;16) (fitted, rounded to 1 place; entries rounded to 2 places, "
-                   "exact every 6 and "
-                   "linear between)") != std::string::npos);
+  CHECK(model.find("=2.26667 (2;16) (fitted, e = 2;16 adopted (round, 1 place); entries rounded "
+                   "to 2 places, exact every 6 and linear between)") != std::string::npos);
   REQUIRE(j["references"].size() == 1);
   CHECK(j["references"][0]["practice"]["grid"] == 6);
   CHECK(j["references"][0]["source"] == "identified");

@@ -17,25 +17,31 @@ const std::string kScripts = std::string(APOGRAPH_SOURCE_DIR) + "/corpora/script
 
 testing::Synthetic Table() { return testing::MakeTable(testing::SolarEquation, 1, 1, 90, 2); }
 
-TEST_CASE("RoundParams brings a fitted value to the coarsest place that keeps the exact entries") {
+TEST_CASE("an identified reference adopts the round value and keeps the exact entries") {
   const auto s = Table();
-  const model::Model& m = *model::FindBuiltinModel("solar-eccentric");
-  const auto [params, places] = RoundParams(m, {2.5004}, s.table, {0}, {});
-  CHECK(places == 1);
-  CHECK(params.at(0) == doctest::Approx(2.5).epsilon(1e-15));
-  CHECK(ExactEntries(m, params, s.table, {0}, {}) == 90);
-  // A table made with e = 2;30,30: one place (2;31 or 2;30) loses entries.
+  ReferenceRequest automatic;
+  automatic.automatic = true;
+  automatic.model = "solar-eccentric";
+  const auto a = ResolveReferences({s.table}, automatic).at(0);
+  CHECK(a.params.at(0) == 2.5);  // 2;30 exactly, not the fitted 2;30,0,0,x
+  CHECK(a.exact == 90);
+  REQUIRE(a.adopted.size() == 1);
+  CHECK(a.adopted[0].param == "e");
+  CHECK(a.adopted[0].value == 2.5);
+  CHECK(a.adopted[0].fitted != 2.5);
+  // A table made with e = 2;30,30: a coarser value loses entries, so the
+  // adopted one keeps its two places.
   const double e = 2.5 + 30.0 / 3600;
   const auto t = testing::MakeTable(
-      [e](double a) {
-        const double r = a * std::numbers::pi / 180.0;
+      [e](double x) {
+        const double r = x * std::numbers::pi / 180.0;
         return std::atan2(e * std::sin(r), 60.0 + e * std::cos(r)) * 180.0 / std::numbers::pi;
       },
       1, 1, 90, 2);
-  const auto [kept, two] = RoundParams(m, {e + 1e-6}, t.table, {0}, {});
-  CHECK(two == 2);
-  CHECK(Sexagesimal::FromDouble(kept.at(0), 2).ToString() == "2;30,30");
-  CHECK(std::fabs(kept.at(0) - e) < 1e-12);
+  const auto b = ResolveReferences({t.table}, automatic).at(0);
+  CHECK(Sexagesimal::FromDouble(b.params.at(0), 2).ToString() == "2;30,30");
+  CHECK(std::fabs(b.params.at(0) - e) < 1e-12);
+  CHECK(b.exact == 90);
 }
 
 TEST_CASE("a given reference and an identified one describe themselves") {
@@ -57,9 +63,9 @@ TEST_CASE("a given reference and an identified one describe themselves") {
   CHECK(a.source == ReferenceSource::kIdentified);
   CHECK(a.params.at(0) == doctest::Approx(2.5).epsilon(1e-15));
   CHECK(a.exact == 90);
-  CHECK(a.how == "identified from witness A (90 of 90 entries exact, score " +
-                     a.how.substr(a.how.find("score ") + 6));
-  CHECK(a.how.find("parameters brought to 1 sexagesimal place") != std::string::npos);
+  CHECK(a.how.rfind("identified from witness A (90 of 90 entries exact, 90 within one unit, score ",
+                    0) == 0);
+  CHECK(a.how.find("e = 2;30 adopted (round, 1 place)") != std::string::npos);
 
   ReferenceRequest bad = given;
   bad.model = "nonesuch";

@@ -1,0 +1,368 @@
+#include "estimate/fit_starts.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <numbers>
+#include <utility>
+
+#include "estimate/fit_solver.hpp"
+
+namespace apograph::estimate::internal {
+namespace {
+
+/// Grid points per free parameter, by the number of free model parameters
+/// (judgement: about 12 to 250 points in all, each a pass over 24 entries).
+int PointsPerDimension(int free_model) {
+  return free_model == 1 ? 12 : free_model == 2 ? 9 : free_model == 3 ? 5 : 3;
+}
+
+/// At most m entries spread evenly over n.
+std::vector<std::size_t> Spread(std::size_t n, std::size_t m) {
+  std::vector<std::size_t> sub;
+  const std::size_t step = std::max<std::size_t>(1, n / m);
+  for (std::size_t i = 0; i < n; i += step) sub.push_back(i);
+  return sub;
+}
+
+/// What one grid point is scored on.
+struct Sample {
+  std::vector<std::size_t> rows;
+  std::vector<double> scales;  ///< 60^places of each entry
+  std::vector<double> r;       ///< scratch residuals
+};
+
+/// The robust cost at x on the sample; with a displacement (the last free
+/// parameter beyond the model's), it is first set to its best value given
+/// the others (the median residual).
+double ScorePoint(FitProblem& p, std::vector<double>& x, Sample& s, double loss_scale) {
+  const int k = static_cast<int>(x.size());
+  const int free_model = static_cast<int>(p.lows().size());
+  if (k == free_model) {
+    p.Residuals(x.data(), s.r.data(), &s.rows);
+    return CauchyCost(s.r.data(), s.r.size(), loss_scale);
+  }
+  x[k - 1] = 0;
+  p.Residuals(x.data(), s.r.data(), &s.rows);
+  std::vector<double> tmp(s.r);
+  std::nth_element(tmp.begin(), tmp.begin() + static_cast<std::ptrdiff_t>(tmp.size() / 2),
+                   tmp.end());
+  x[k - 1] = tmp[tmp.size() / 2] / s.scales[0];
+  if (p.modulo()) {
+    p.Residuals(x.data(), s.r.data(), &s.rows);
+  } else {  // a displacement d moves every residual by d 60^places: no second pass
+    for (std::size_t i = 0; i < s.rows.size(); ++i) s.r[i] -= x[k - 1] * s.scales[i];
+  }
+  return CauchyCost(s.r.data(), s.r.size(), loss_scale);
+}
+
+/// Every grid point with its cost, best first.
+std::vector<std::pair<double, std::vector<double>>> ScoreGrid(FitProblem& p,
+                                                              const std::vector<double>& x0,
+                                                              Sample& s, double loss_scale) {
+  const int free_model = static_cast<int>(p.lows().size());
+  const int per_dim = PointsPerDimension(free_model);
+  std::size_t total = 1;
+  for (int j = 0; j < free_model; ++j) total *= static_cast<std::size_t>(per_dim);
+  std::vector<std::pair<double, std::vector<double>>> scored;
+  std::vector<double> x = x0;
+  for (std::size_t idx = 0; idx < total && idx < 20000; ++idx) {
+    std::size_t rem = idx;
+    for (int j = 0; j < free_model; ++j) {
+      const double t = (static_cast<double>(rem % per_dim) + 0.5) / per_dim;
+      rem /= per_dim;
+      x[j] = p.lows()[j] + t * (p.highs()[j] - p.lows()[j]);
+    }
+    const double c = ScorePoint(p, x, s, loss_scale);
+    scored.emplace_back(c, x);
+  }
+  std::sort(scored.begin(), scored.end(),
+            [](const auto& a, const auto& b) { return a.first < b.first; });
+  return scored;
+}
+
+/// x lies within one grid cell of a start already chosen.
+bool NearChosen(const FitProblem& p, const std::vector<std::vector<double>>& starts,
+                const std::vector<double>& x) {
+  const int free_model = static_cast<int>(p.lows().size());
+  const int per_dim = PointsPerDimension(free_model);
+  for (const auto& c : starts) {
+    bool near = true;
+    for (int j = 0; j < free_model; ++j)
+      near = near && std::fabs(x[j] - c[j]) <= 1.01 * (p.highs()[j] - p.lows()[j]) / per_dim;
+    if (near) return true;
+  }
+  return false;
+}
+
+}  // namespace
+
+std::vector<std::vector<double>> GridStarts(FitProblem& p, const std::vector<double>& x0,
+                                            double loss_scale, int count) {
+  const int free_model = static_cast<int>(p.lows().size());
+  if (x0.empty() || free_model == 0 || p.size() == 0) return {x0};
+  Sample s;
+  s.rows = Spread(p.size(), 24);
+  s.r.resize(s.rows.size());
+  for (std::size_t i : s.rows) s.scales.push_back(std::pow(60.0, p.places(i)));
+  const auto scored = ScoreGrid(p, x0, s, loss_scale);
+  // The best grid point, then others whose subsample cost is close to it
+  // (rival basins), then the caller's start when it is competitive.
+  std::vector<std::vector<double>> starts;
+  const double best = scored.front().first;
+  for (const auto& [c, v] : scored) {
+    if (static_cast<int>(starts.size()) >= count || c > best * 1.1 + 1e-9) break;
+    if (!NearChosen(p, starts, v)) starts.push_back(v);
+  }
+  std::vector<double> x = x0;
+  if (ScorePoint(p, x, s, loss_scale) <= best * 1.1 + 1e-9 && !NearChosen(p, starts, x0))
+    starts.push_back(x0);
+  return starts;
+}
+
+namespace {
+
+/// Index in the free vector of the model parameter with `role`, or -1.
+int FreeIndex(const model::Model& model, const FitProblem& problem, model::ParamRole role,
+              std::size_t free_count) {
+  for (int j = 0; j < static_cast<int>(free_count); ++j) {
+    const int m = problem.ModelIndex(j);
+    if (m >= 0 && model.params()[static_cast<std::size_t>(m)].role == role) return j;
+  }
+  return -1;
+}
+
+double Median(std::vector<double> v) {
+  std::nth_element(v.begin(), v.begin() + static_cast<std::ptrdiff_t>(v.size() / 2), v.end());
+  return v[v.size() / 2];
+}
+
+double Wrap360(double x) {
+  x = std::fmod(x, 360.0);
+  return x < 0 ? x + 360 : x;
+}
+
+double Wrap180(double x) {
+  x = Wrap360(x);
+  return x > 180 ? x - 360 : x;
+}
+
+}  // namespace
+
+std::vector<double> MeanMotionStart(const model::Model& model, const FitProblem& problem,
+                                    const std::vector<Observation>& obs, std::vector<double> x) {
+  const int rate = FreeIndex(model, problem, model::ParamRole::kRate, x.size());
+  const int radix = FreeIndex(model, problem, model::ParamRole::kRadix, x.size());
+  if (rate < 0 || obs.size() < 3) return {};
+  std::vector<double> rates;
+  for (std::size_t i = 1; i < obs.size(); ++i) {
+    const double da = obs[i].arg - obs[i - 1].arg;
+    if (obs[i].column != obs[i - 1].column || !(da > 0)) continue;
+    const double dv =
+        std::fmod(obs[i].value.ToDouble() - obs[i - 1].value.ToDouble() + 720.0, 360.0);
+    rates.push_back(dv / da);
+  }
+  if (rates.size() < 2) return {};
+  x[static_cast<std::size_t>(rate)] = Median(rates);
+  if (radix >= 0) {
+    std::vector<double> radices;
+    for (const auto& o : obs)
+      radices.push_back(Wrap360(o.value.ToDouble() - x[static_cast<std::size_t>(rate)] * o.arg));
+    x[static_cast<std::size_t>(radix)] = Median(radices);
+  }
+  return x;
+}
+
+namespace {
+
+/// Least squares for the coefficients of `basis` (functions of t) in
+/// y ~ sum c_j basis_j(t); the residual sum of squares in `rss`. Empty when
+/// singular.
+template <typename Basis>
+std::vector<double> LeastSquares(const std::vector<double>& t, const std::vector<double>& y, int k,
+                                 Basis basis, double* rss) {
+  std::vector<double> A(static_cast<std::size_t>(k * k), 0.0), b(static_cast<std::size_t>(k));
+  std::vector<double> row(static_cast<std::size_t>(k));
+  for (std::size_t i = 0; i < t.size(); ++i) {
+    basis(t[i], row.data());
+    for (int a = 0; a < k; ++a) {
+      b[a] += row[a] * y[i];
+      for (int c = 0; c < k; ++c) A[a * k + c] += row[a] * row[c];
+    }
+  }
+  const std::vector<double> inv = Inverse(A, k);
+  if (inv.empty()) return {};
+  std::vector<double> c(static_cast<std::size_t>(k), 0.0);
+  for (int a = 0; a < k; ++a)
+    for (int j = 0; j < k; ++j) c[a] += inv[a * k + j] * b[j];
+  double s = 0;
+  for (std::size_t i = 0; i < t.size(); ++i) {
+    basis(t[i], row.data());
+    double f = 0;
+    for (int a = 0; a < k; ++a) f += c[a] * row[a];
+    s += (y[i] - f) * (y[i] - f);
+  }
+  if (rss) *rss = s;
+  return c;
+}
+
+constexpr double kDeg = std::numbers::pi / 180;
+
+/// The entries of one column as (argument, longitude unwrapped by steps of
+/// less than half a turn), in argument order.
+void Unwrapped(const std::vector<Observation>& obs, std::vector<double>& t,
+               std::vector<double>& u) {
+  std::vector<std::pair<double, double>> pts;
+  for (const auto& o : obs) pts.emplace_back(o.arg, o.value.ToDouble());
+  std::sort(pts.begin(), pts.end());
+  for (std::size_t i = 0; i < pts.size(); ++i) {
+    t.push_back(pts[i].first);
+    u.push_back(i == 0 ? pts[i].second : u.back() + Wrap180(pts[i].second - pts[i - 1].second));
+  }
+}
+
+/// A harmonic a sin(w) + b cos(w) of a longitude, as an amplitude in
+/// parts of 60 (60 sin of the greatest angle) and a phase: the angle w0 for
+/// which the term is A sin(w + w0).
+std::pair<double, double> Harmonic(double a, double b) {
+  const double amplitude = std::min(std::hypot(a, b), 80.0);
+  return {60 * std::sin(amplitude * kDeg), std::atan2(b, a) / kDeg};
+}
+
+/// Sets free parameter `role` of x to v when it is free.
+void SetRole(const model::Model& m, const FitProblem& p, std::vector<double>& x,
+             model::ParamRole role, double v) {
+  const int j = FreeIndex(m, p, role, x.size());
+  if (j >= 0) x[static_cast<std::size_t>(j)] = v;
+}
+
+/// Sets the free parameter named `name` (the geometric quantities e and r).
+void SetNamed(const model::Model& m, const FitProblem& p, std::vector<double>& x, const char* name,
+              double v) {
+  for (int j = 0; j < static_cast<int>(x.size()); ++j) {
+    const int i = p.ModelIndex(j);
+    if (i >= 0 && m.params()[static_cast<std::size_t>(i)].name == name)
+      x[static_cast<std::size_t>(j)] = v;
+  }
+}
+
+/// The frequency (deg per unit of the argument) in [low, high] whose
+/// harmonic, with a straight line, leaves the smallest residual (steps of
+/// at most 20 degrees of phase over the span).
+double BestFrequency(const std::vector<double>& t, const std::vector<double>& u, double t0,
+                     double low, double high) {
+  const double span = std::max(t.back() - t.front(), 1.0);
+  const double step = std::min(20.0 / span, std::max((high - low) / 50, 1e-6));
+  double best = 0, best_rss = INFINITY;
+  for (double f = std::max(low, step); f <= high; f += step) {
+    double rss = 0;
+    const auto c = LeastSquares(
+        t, u, 4,
+        [&](double x, double* r) {
+          r[0] = 1, r[1] = x - t0, r[2] = std::sin(f * x * kDeg), r[3] = std::cos(f * x * kDeg);
+        },
+        &rss);
+    if (!c.empty() && rss < best_rss) best_rss = rss, best = f;
+  }
+  return best;
+}
+
+/// What a table of positions' model has, by role.
+struct PositionShape {
+  bool trend = false;        ///< a mean motion in longitude (kRate)
+  bool centre = false;       ///< an apogee: the equation of centre at the mean motion's rate
+  bool anomaly = false;      ///< a motion in anomaly (kAnomalyRate)
+  double low = 0, high = 0;  ///< the rate in anomaly's range
+};
+
+PositionShape ShapeOf(const model::Model& m, const FitProblem& p, std::size_t free) {
+  PositionShape s;
+  s.trend = FreeIndex(m, p, model::ParamRole::kRate, free) >= 0;
+  s.centre = FreeIndex(m, p, model::ParamRole::kApogee, free) >= 0;
+  s.anomaly = FreeIndex(m, p, model::ParamRole::kAnomalyRate, free) >= 0;
+  const int a = m.ParamIndex(model::ParamRole::kAnomalyRate);
+  if (a >= 0) {
+    s.low = m.params()[static_cast<std::size_t>(a)].low;
+    s.high = m.params()[static_cast<std::size_t>(a)].high;
+  }
+  return s;
+}
+
+/// The anomaly's harmonic read as an epicycle (or an equation by date):
+/// the radius (or eccentricity), and the anomaly at the epoch; for
+/// magnitudes, the harmonic at twice the rate, two phases 180 apart.
+std::vector<std::pair<double, double>> AnomalyStarts(double a, double b, bool magnitude) {
+  if (!magnitude) {
+    const auto [r, g0] = Harmonic(a, b);
+    return {{r, Wrap360(g0)}};
+  }
+  // |E sin g| ~ 2E/pi - (4E/3pi) cos 2g: the harmonic A cos(F t - psi) with
+  // 2 g0 + 180 = -psi.
+  const double amplitude = std::hypot(a, b) * 3 * std::numbers::pi / 4;
+  const double psi = std::atan2(a, b) / kDeg;
+  const double g0 = Wrap360((-psi - 180) / 2);
+  const double r = 60 * std::sin(std::min(amplitude, 80.0) * kDeg);
+  return {{r, g0}, {r, Wrap360(g0 + 180)}};
+}
+
+}  // namespace
+
+std::vector<std::vector<double>> PositionStarts(const model::Model& model,
+                                                const FitProblem& problem,
+                                                const std::vector<Observation>& obs,
+                                                const std::vector<double>& x0) {
+  if (model.traits().kind != model::ModelKind::kPosition || obs.size() < 8) return {};
+  std::vector<double> t, u;
+  Unwrapped(obs, t, u);
+  const model::SignForm sign = model.ResolvedSign(problem.practice().sign);
+  if (sign == model::SignForm::kNegated)
+    for (double& v : u) v = -v;
+  const bool magnitude = sign == model::SignForm::kMagnitude;
+  const PositionShape shape = ShapeOf(model, problem, x0.size());
+  const double t0 = t.front();
+  double rss = 0;
+  const auto line = LeastSquares(
+      t, u, 2, [&](double x, double* r) { r[0] = 1, r[1] = x - t0; }, &rss);
+  if (line.empty()) return {};
+  const double rate = shape.trend ? line[1] : 0;
+  const double m = magnitude ? 2 : 1;
+  const double f = shape.anomaly ? BestFrequency(t, u, t0, m * shape.low, m * shape.high) : 0;
+  // Line, the harmonic at the rate in longitude (eccentricity, apogee) and
+  // the harmonic at the rate in anomaly (the epicycle, or the equation).
+  const int k = 2 + (shape.centre ? 2 : 0) + (shape.anomaly ? 2 : 0);
+  const auto c = LeastSquares(
+      t, u, k,
+      [&](double x, double* r) {
+        r[0] = 1, r[1] = x - t0;
+        int j = 2;
+        if (shape.centre) r[j++] = std::sin(rate * x * kDeg), r[j++] = std::cos(rate * x * kDeg);
+        if (shape.anomaly) r[j++] = std::sin(f * x * kDeg), r[j++] = std::cos(f * x * kDeg);
+      },
+      &rss);
+  if (c.empty()) return {};
+  std::vector<double> x = x0;
+  const double radix = Wrap360(c[0] - c[1] * t0);
+  SetRole(model, problem, x, model::ParamRole::kRate, c[1]);
+  SetRole(model, problem, x, model::ParamRole::kRadix, radix);
+  int j = 2;
+  if (shape.centre) {
+    // The equation of centre: -(e/60) sin(m - A) in radians, with m = rate t
+    // + radix: a sin(rate t) + b cos(rate t) = -E sin(rate t + radix - A).
+    const auto [e, phase] = Harmonic(-c[j], -c[j + 1]);
+    SetNamed(model, problem, x, "e", std::max(e, 0.1));
+    SetRole(model, problem, x, model::ParamRole::kApogee, Wrap360(radix - phase));
+    j += 2;
+  }
+  if (!shape.anomaly) return {x};
+  // The epicycle (or the equation by date): +(r/60) sin(g), g = f t + g0.
+  std::vector<std::vector<double>> out;
+  for (const auto& [r, g0] : AnomalyStarts(c[j], c[j + 1], magnitude)) {
+    std::vector<double> y = x;
+    SetNamed(model, problem, y, shape.trend ? "r" : "e", std::max(r, 1.0));
+    SetRole(model, problem, y, model::ParamRole::kAnomalyRate, f / m);
+    SetRole(model, problem, y, model::ParamRole::kAnomalyRadix, g0);
+    out.push_back(std::move(y));
+  }
+  return out;
+}
+
+}  // namespace apograph::estimate::internal

@@ -1,0 +1,53 @@
+#pragma once
+/// Internal to the estimate stage: what identify.cpp, naming.cpp and
+/// round_values.cpp share.
+
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "estimate/identify.hpp"
+#include "estimate/observations.hpp"
+
+namespace apograph::estimate::internal {
+
+/// What a column's entries show before any model is tried.
+struct ColumnFacts {
+  std::vector<Observation> obs;  ///< every readable entry
+  std::vector<Observation> sub;  ///< at most 60 of them, spread over the column
+  bool has_negative = false;     ///< some entry is negative
+  std::optional<int> reduced;    ///< computed to one place fewer (see identify.hpp)
+  double unit = 0;               ///< one unit of the last place computed
+};
+
+/// A candidate with its score (a grid counts as one more parameter).
+Candidate MakeCandidate(const model::Model& m, FitResult fit, bool grid);
+
+/// Why a candidate's estimate is no historical value (a free parameter
+/// more than its range's width outside ParamSpec low..high); empty when
+/// plausible.
+std::string Implausible(const Candidate& c);
+
+/// Moves implausible candidates after the others, with a note for each that
+/// would otherwise have come first.
+void SetAsideImplausible(std::vector<Candidate>& all, std::vector<std::string>& notes);
+
+/// Folds candidates that compute the same value at every entry into one
+/// (ranked order kept: each group stands where its best member stood) and
+/// names each group by the evidence (see naming.cpp); `catalog` may be null.
+void FoldEquivalents(std::vector<Candidate>& ranked, const Transcription& table,
+                     const std::vector<CatalogEntry>* catalog);
+
+/// Round and attested values for `best` (see round_values.cpp); nullopt when
+/// nothing was adopted.
+std::optional<Adoption> AdoptRoundValues(const Candidate& best, const Transcription& table,
+                                         const std::vector<Observation>& obs,
+                                         const std::vector<CatalogEntry>* catalog,
+                                         const MeanMotionAnalysis* mean_motion);
+
+/// Near-ties with the best: candidates within kNearTie that compute other
+/// values, with what tells them apart.
+void NearTieNotes(const std::vector<Candidate>& ranked, const Transcription& table, int top,
+                  std::vector<std::string>& notes);
+
+}  // namespace apograph::estimate::internal

@@ -1,0 +1,205 @@
+// Round and attested values first: authors computed with round parameters
+// (a radius of 60, an eccentricity of 2;30) or values of their tradition, and
+// a fitted value that reproduces a few more entries exactly (60;0,0,17)
+// usually does so by absorbing the author's own departures, which the
+// edition must keep. For the best explanation, each free parameter in turn
+// (then the displacement) is tried at attested values and at coarse
+// sexagesimal roundings of its estimate, simplest first; the first that
+// leaves no more entries beyond one unit than the fit, and loses at most a
+// few entries reproduced exactly (kExactAllowance), is adopted, the other
+// parameters refitted under it.
+#include <algorithm>
+#include <cmath>
+#include <map>
+
+#include "estimate/identify_internal.hpp"
+#include "estimate/notation.hpp"
+
+namespace apograph::estimate::internal {
+
+namespace {
+
+/// Entries reproduced exactly that an adopted value may lose against the
+/// fit, as a share of the entries (at least one). Judgement: the author's
+/// departures touch a few percent of the entries (realism.md), and a fitted
+/// value can only absorb some of them.
+constexpr double kExactAllowance = 0.03;
+
+/// One value to try for a parameter.
+struct Trial {
+  double value = 0;
+  int places = 0;
+  std::string source;
+};
+
+/// Roundings are tried to this many places for most parameters (coarse:
+/// judgement, the places in which authors chose their parameters), more for
+/// the rates and radices of motions.
+int MaxPlaces(const model::ParamSpec* spec, int column_places) {
+  if (!spec) return 2;  // the displacement
+  switch (spec->role) {
+    case model::ParamRole::kRate:
+    case model::ParamRole::kAnomalyRate:
+      return 6;
+    case model::ParamRole::kRadix:
+    case model::ParamRole::kAnomalyRadix:
+    case model::ParamRole::kApogee:
+      return std::max(2, column_places);
+    default:
+      return 2;
+  }
+}
+
+int PlacesOf(const Sexagesimal& v) {
+  int p = v.places();
+  while (p > 0 && v.Rounded(p - 1).Extended(p) == v) --p;
+  return p;
+}
+
+/// The values to try, simplest first: attested values (fewest places
+/// first), then roundings of the estimate (coarsest first), then a rounded
+/// rate the mean-motion analysis found.
+std::vector<Trial> Trials(const Candidate& best, const std::string& param, double estimate,
+                          const model::ParamSpec* spec, int column_places,
+                          const std::vector<CatalogEntry>* catalog,
+                          const MeanMotionAnalysis* mean_motion) {
+  std::vector<Trial> out;
+  auto seen = [&](double v) {
+    for (const auto& t : out) {
+      if (std::fabs(t.value - v) <= 1e-12 * std::max(1.0, std::fabs(v))) return true;
+    }
+    return false;
+  };
+  if (catalog) {
+    std::vector<Trial> attested;
+    for (const auto& e : *catalog) {
+      if (e.AppliesTo(best.model->name(), param))
+        attested.push_back({e.value.ToDouble(), PlacesOf(e.value), "attested: " + e.tradition});
+    }
+    std::stable_sort(attested.begin(), attested.end(),
+                     [](const Trial& a, const Trial& b) { return a.places < b.places; });
+    for (const auto& t : attested) {
+      if (!seen(t.value)) out.push_back(t);
+    }
+  }
+  for (int p = 0; p <= MaxPlaces(spec, column_places); ++p) {
+    const double v = Sexagesimal::FromDouble(estimate, p).ToDouble();
+    if (!seen(v))
+      out.push_back({v, p, "round, " + std::to_string(p) + (p == 1 ? " place" : " places")});
+  }
+  if (mean_motion && mean_motion->rounded_rate && spec && spec->role == model::ParamRole::kRate &&
+      !seen(mean_motion->rounded_rate->ToDouble())) {
+    out.push_back({mean_motion->rounded_rate->ToDouble(), mean_motion->rounded_rate->places(),
+                   "the rounded rate of the mean-motion analysis"});
+  }
+  return out;
+}
+
+/// The fit with `fixed` held and the other free parameters refitted from
+/// `from`'s values.
+FitResult FitHolding(const Candidate& best, const Transcription& table,
+                     const std::vector<Observation>& obs, const FitResult& from,
+                     const std::map<std::string, double>& fixed,
+                     const std::optional<double>& displacement) {
+  FitOptions fo;
+  fo.practice = best.fit.practice;
+  fo.fit_displacement = best.fit.practice.displacement != 0 && !displacement;
+  if (displacement) fo.practice.displacement = *displacement;
+  fo.fixed = fixed;
+  for (const auto& p : best.fit.params) {
+    if (p.fixed && !fo.fixed.count(p.name)) fo.fixed[p.name] = p.value;
+  }
+  for (const auto& p : from.params) {
+    if (!fo.fixed.count(p.name)) fo.start[p.name] = p.value;
+  }
+  fo.max_iterations = 20;
+  return Fit(*best.model, table, obs, fo);
+}
+
+/// The first trial that keeps the fit's entries (see the file comment).
+std::optional<std::pair<Trial, FitResult>> FirstAcceptable(
+    const std::vector<Trial>& trials, const Candidate& best, const Transcription& table,
+    const std::vector<Observation>& obs, const FitResult& current,
+    std::map<std::string, double> fixed, std::optional<double> displacement,
+    const std::string& param) {
+  const FitResult& fit = best.fit;
+  const int allowance =
+      std::max(1, static_cast<int>(std::ceil(kExactAllowance * static_cast<double>(fit.n))));
+  for (const auto& t : trials) {
+    if (param == "displacement")
+      displacement = t.value;
+    else
+      fixed[param] = t.value;
+    FitResult f = FitHolding(best, table, obs, current, fixed, displacement);
+    if (f.flagged <= fit.flagged && f.exact >= fit.exact - allowance)
+      return std::make_pair(t, std::move(f));
+  }
+  return std::nullopt;
+}
+
+std::string AdoptionText(const std::vector<AdoptedValue>& values, const FitResult& fit,
+                         const FitResult& adopted) {
+  std::string s;
+  for (const auto& v : values) {
+    s += (s.empty() ? "" : "; ") + v.param + " = " + NumberText(v.value, 6) + " adopted (" +
+         v.source + "); fitted " + NumberWithDecimal(v.fitted, 4);
+    if (std::isfinite(v.stderr_)) s += " ± " + NumberText(v.stderr_, 6);
+  }
+  return s + ": it leaves " + std::to_string(adopted.flagged) +
+         " entries beyond one unit (the fit " + std::to_string(fit.flagged) + ") and reproduces " +
+         std::to_string(adopted.exact) + " of " + std::to_string(adopted.n) + " exactly (the fit " +
+         std::to_string(fit.exact) +
+         "); a round or attested value is what an author computed with, and the entries it "
+         "misses by a unit are his own departures";
+}
+
+}  // namespace
+
+std::optional<Adoption> AdoptRoundValues(const Candidate& best, const Transcription& table,
+                                         const std::vector<Observation>& obs,
+                                         const std::vector<CatalogEntry>* catalog,
+                                         const MeanMotionAnalysis* mean_motion) {
+  if (best.fit.n == 0 || obs.empty()) return std::nullopt;
+  const int places = best.fit.practice.places.value_or(obs.front().places);
+  std::map<std::string, double> fixed;
+  std::optional<double> displacement;
+  FitResult current = best.fit;
+  Adoption a;
+  const auto& specs = best.model->params();
+  auto consider = [&](const std::string& name, double estimate, double se,
+                      const model::ParamSpec* spec) {
+    const auto trials = Trials(best, name, estimate, spec, places, catalog, mean_motion);
+    auto found = FirstAcceptable(trials, best, table, obs, current, fixed, displacement, name);
+    if (!found) return;
+    if (name == "displacement")
+      displacement = found->first.value;
+    else
+      fixed[name] = found->first.value;
+    current = std::move(found->second);
+    a.values.push_back({name, found->first.value, estimate, se, found->first.source});
+  };
+  for (std::size_t j = 0; j < specs.size() && j < best.fit.params.size(); ++j) {
+    const auto& p = best.fit.params[j];
+    if (!p.fixed) consider(p.name, p.value, p.stderr_, &specs[j]);
+  }
+  if (best.fit.practice.displacement != 0)
+    consider("displacement", best.fit.practice.displacement, best.fit.displacement_stderr, nullptr);
+  if (a.values.empty()) return std::nullopt;
+  a.fit = std::move(current);
+  a.text = AdoptionText(a.values, best.fit, a.fit);
+  return a;
+}
+
+}  // namespace apograph::estimate::internal
+
+namespace apograph::estimate {
+
+std::optional<Adoption> AdoptRoundValues(const model::Model& model, const FitResult& fit,
+                                         const Transcription& table, int column,
+                                         const std::vector<CatalogEntry>* catalog) {
+  const Candidate c = internal::MakeCandidate(model, fit, fit.practice.grid > 0);
+  return internal::AdoptRoundValues(c, table, CollectObservations(table, {column}), catalog,
+                                    nullptr);
+}
+
+}  // namespace apograph::estimate
