@@ -11,7 +11,8 @@
 namespace apograph::cli {
 
 extern const char kReportUsage[] =
-    "usage: apograph report (--table ID | --work ID) [--findings N] [--output DIR] [--db FILE]\n"
+    "usage: apograph report (--table ID | --work ID) [--findings N] [--output DIR [--force]]\n"
+    "                       [--db FILE]\n"
     "\n"
     "Runs the pipeline on the table (or on every table of the work) and prints\n"
     "the editor's report, in Markdown: the witnesses; how the table was computed\n"
@@ -21,7 +22,9 @@ extern const char kReportUsage[] =
     "the stemma with candidate copies and contamination; the cells where every\n"
     "witness deviates. For a work, the stemma argued from all its tables follows.\n"
     "--output also writes, per table, the full report, the apparatus (TEI, LaTeX,\n"
-    "CSV) and the stemma (Newick, DOT, SVG when Graphviz is installed).\n"
+    "CSV) and the stemma (Newick, DOT, SVG when Graphviz is installed); an existing\n"
+    "file there is replaced only with --force, and never the edition database.\n"
+    "A table of the work that cannot be analysed is skipped, with the reason.\n"
     "All findings are suggestions with their evidence: the editor decides.\n"
     "\n"
     "examples:\n"
@@ -35,7 +38,8 @@ int RunReport(const std::vector<std::string>& args, Io& io) {
   options.add_options()("table", po::value(&table), "the table to report on")(
       "work", po::value(&work), "report on every table of this work")(
       "findings", po::value(&findings)->default_value(0), "deviations shown per witness (0: all)")(
-      "output", po::value(&output), "folder for the files (created if missing)");
+      "output", po::value(&output), "folder for the files (created if missing)")(
+      "force", "replace files that already exist in the --output folder");
   AddDbOption(options, db_path);
   po::variables_map vm;
   if (ParseOptions(FindCommand("report"), args, options, vm, io)) return kOk;
@@ -47,8 +51,9 @@ int RunReport(const std::vector<std::string>& args, Io& io) {
   store::Database db = OpenEdition(db_path);
   ReportRequest request;
   request.output_dir = output;
+  request.output_rules = {"--output", db_path, vm.count("force") > 0, {}};
   request.report.max_findings = findings;
-  if (!output.empty()) std::filesystem::create_directories(output);
+  if (!output.empty()) MakeOutputFolder(output);
   if (!table.empty()) {
     ReportTable(db, table, request, io);
   } else {
@@ -56,7 +61,7 @@ int RunReport(const std::vector<std::string>& args, Io& io) {
       throw InputError::ForOption("--work",
                                   ExpectedFound("a work in the database", "'" + work + "'"));
     }
-    WriteWorkReports(db, work, request, io);
+    if (WriteWorkReports(db, work, request, io) > 0) return kFindings;
   }
   return kOk;
 }
