@@ -1,6 +1,7 @@
 #include "cli/report_output.hpp"
 
 #include <filesystem>
+#include <optional>
 #include <ostream>
 
 #include "lineage/stemma.hpp"
@@ -39,13 +40,17 @@ void WriteTableFiles(const fs::path& dir, const pipeline::TableAnalysis& a,
   WriteStemma(dir, a.table_id, a.table_title, a.lineage, rules);
 }
 
+void PrintAndWrite(const pipeline::TableAnalysis& a, const ReportRequest& request, Io& io) {
+  io.out << publish::TableReport(a, request.report);
+  if (!request.output_dir.empty()) WriteTableFiles(request.output_dir, a, request);
+}
+
 }  // namespace
 
 pipeline::TableAnalysis ReportTable(store::Database& db, const std::string& table_id,
                                     const ReportRequest& request, Io& io) {
   pipeline::TableAnalysis a = pipeline::AnalyseTable(db, table_id, request.analysis);
-  io.out << publish::TableReport(a, request.report);
-  if (!request.output_dir.empty()) WriteTableFiles(request.output_dir, a, request);
+  PrintAndWrite(a, request, io);
   return a;
 }
 
@@ -54,14 +59,18 @@ std::size_t WriteWorkReports(store::Database& db, const std::string& work_id,
   std::vector<pipeline::TableAnalysis> analyses;
   const auto tables = store::TablesOfWork(db, work_id);
   for (const auto& table : tables) {
-    try {
-      analyses.push_back(ReportTable(db, table, request, io));
+    std::optional<pipeline::TableAnalysis> a;
+    try {  // only the analysis: a file that cannot be written stops the command
+      a = pipeline::AnalyseTable(db, table, request.analysis);
     } catch (const InputError& e) {  // one table too damaged or too short: report the others
       if (analyses.empty() && table == tables.back()) throw;  // none could be analysed
       io.out << "\n**Table " << table << " skipped**: " << e.diagnostics().front().message
              << "\n\n";
       io.err << "apograph: table " << table << " skipped: " << e.Render() << "\n";
+      continue;
     }
+    PrintAndWrite(*a, request, io);
+    analyses.push_back(std::move(*a));
   }
   const auto lineage = pipeline::WorkLineage(analyses, request.analysis.lineage);
   const std::string text = publish::WorkLineageReport(work_id, lineage);
