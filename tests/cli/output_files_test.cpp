@@ -81,8 +81,9 @@ TEST_CASE("an existing file is replaced only with --force") {
   // For a work too: an existing file stops the command, it is no skipped table.
   r = RunBinary("report --work lantern --findings 1 --output out", dir.path());
   CHECK(r.code == 2);
-  CHECK(r.err == "--output: error: expected a new file (or --force to replace it), found the "
-                 "existing file 'out/decl.md'\n");
+  CHECK(r.err ==
+        "--output: error: expected a new file (or --force to replace it), found the "
+        "existing file 'out/decl.md'\n");
 }
 
 TEST_CASE("report files stay inside the --output folder whatever the database says") {
