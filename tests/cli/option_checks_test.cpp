@@ -87,3 +87,18 @@ TEST_CASE("report --work reports the other tables when one cannot be analysed") 
   CHECK(Contains(r.out, "## sun-eq: "));
   CHECK(Contains(r.out, "## Stemma of the work lantern"));
 }
+
+TEST_CASE("a parameter value is a sexagesimal or a plain decimal, nothing else") {
+  for (const char* bad : {"0;1,60", "0x10", " 5", "garbage"}) {
+    CAPTURE(bad);
+    const auto r =
+        RunInProcess({"check", "--table", "t", "--witness", "A", "--model", "solar-eccentric",
+                      "--param", "e=" + std::string(bad), "--db", "none.sqlite"});
+    CHECK(r.code == 2);
+    CHECK(r.err == "--param e: error: expected a number such as 2;4,48 or 2.08, found '" +
+                       std::string(bad) + "'\n");
+  }
+  const auto ok = RunInProcess({"check", "--table", "t", "--witness", "A", "--model",
+                                "solar-eccentric", "--param", "e=2.25e0", "--db", "none.sqlite"});
+  CHECK(Contains(ok.err, "--db: error"));  // the value passed; the database is what is missing
+}
