@@ -8,6 +8,7 @@
 #include <ostream>
 
 #include "cli/collate_input.hpp"
+#include "cli/output_files.hpp"
 #include "lineage/lineage.hpp"
 #include "lineage/parsimony.hpp"
 #include "pipeline/analysis.hpp"
@@ -19,7 +20,7 @@ namespace apograph::cli {
 
 extern const char kApparatusUsage[] =
     "usage: apograph apparatus --table ID [--format tei|latex|csv|text] [--fragment] [--output "
-    "FILE]\n"
+    "FILE [--force]]\n"
     "                          [--override ROW:COLUMN=READING]... [--withdraw ROW:COLUMN]... "
     "[--note TEXT]\n"
     "                          [--editor NAME] [--witnesses A,B,...] [--db FILE]\n"
@@ -35,7 +36,8 @@ extern const char kApparatusUsage[] =
     "--override records the editor's reading for a cell (ROW is the row's argument,\n"
     "COLUMN the column's name) and --withdraw withdraws it, as apograph emendation\n"
     "override and undo do; --note gives the reason (for every decision of this call),\n"
-    "--editor who decides (else APOGRAPH_EDITOR, else the login name).\n"
+    "--editor who decides (else APOGRAPH_EDITOR, else the login name). A READING is\n"
+    "read like a transcription's cell and must have the column's places.\n"
     "Which readings are errors: see apograph collate --help (--auto or a model judges\n"
     "them by the explained deviations); the editor's decisions take precedence.\n\n"
     "example: apograph apparatus --table decl --override '46:declination=16;41,57' --note \"all "
@@ -89,6 +91,7 @@ int RunApparatus(const std::vector<std::string>& args, Io& io) {
   options.add_options()("table", po::value(&request.table)->required(), "table id")(
       "output", po::value(&output), "write to this file instead of standard output")(
       "fragment", po::bool_switch(&fragment), "LaTeX to \\input into a book (no preamble)")(
+      "force", "replace an existing --output file")(
       "override", po::value(&overrides)->composing(),
       "ROW:COLUMN=READING: the editor's reading (repeatable)")(
       "withdraw", po::value(&withdrawals)->composing(),
@@ -102,6 +105,8 @@ int RunApparatus(const std::vector<std::string>& args, Io& io) {
   if (ParseOptions(FindCommand("apparatus"), args, options, vm, io)) return kOk;
   FinishCollateRequest(request, vm);
   CheckChoice("--format", format, {"text", "tei", "latex", "csv"});
+  const OutputRules rules{"--output", db_path, vm.count("force") > 0, {}};
+  if (!output.empty()) CheckOutputFile(output, rules);  // before anything is stored
   const std::string who = pipeline::DefaultEditor(editor);
   std::vector<pipeline::DecisionRequest> pending;
   for (const auto& o : overrides)
@@ -123,9 +128,7 @@ int RunApparatus(const std::vector<std::string>& args, Io& io) {
   if (output.empty()) {
     io.out << text;
   } else {
-    std::ofstream out(output, std::ios::binary);
-    if (!(out << text))
-      throw InputError::ForOption("--output", ExpectedFound("a writable file", "'" + output + "'"));
+    WriteOutputFile(output, text, rules);
     io.err << "wrote " << output << "\n";
   }
   return kOk;

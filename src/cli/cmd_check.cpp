@@ -239,6 +239,13 @@ int RunCheck(const std::vector<std::string>& args, Io& io) {
       PrintText(r, o, io);
       break;
   }
+  if (r.summary.compared == 0 && r.summary.entries > 0) {  // not "nothing to look at"
+    io.err << "apograph check: nothing was compared: none of the " << r.summary.entries
+           << " entries has both a reading and a model value (" << r.summary.undefined
+           << " without a model value, " << r.summary.blank << " blank, " << r.summary.illegible
+           << " illegible); check the model, its parameters and the witness\n";
+    return kFindings;
+  }
   return r.summary.flagged > 0 ? kFindings : kOk;
 }
 

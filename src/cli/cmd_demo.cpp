@@ -2,11 +2,10 @@
 #include "cli/command.hpp"
 
 #include <algorithm>
-#include <cstdlib>
 #include <filesystem>
-#include <fstream>
 #include <ostream>
 
+#include "cli/demo_folder.hpp"
 #include "cli/report_output.hpp"
 #include "pipeline/analysis.hpp"
 #include "publish/report.hpp"
@@ -31,33 +30,16 @@ extern const char kDemoUsage[] =
     "SVG when Graphviz is installed) go to the output folder, with the database,\n"
     "so that every other command can be tried on it:\n"
     "  apograph errors --db apograph-demo/edition.sqlite --table sun-eq --witness D --auto\n"
+    "The output folder must be new, empty, or one an earlier demo wrote: the demo lists\n"
+    "the files it writes in the folder's .apograph-demo file and, when run again,\n"
+    "replaces only those (the database included, with any decisions recorded in it);\n"
+    "it never deletes a folder nor a file it did not write.\n"
     "\n"
     "example: apograph demo --output /tmp/lantern";
 
 namespace {
 
 namespace fs = std::filesystem;
-constexpr const char* kMarker = ".apograph-demo";
-
-/// A fresh output folder: created, or emptied when an earlier demo made it.
-/// Anything else is left alone.
-void PrepareOutput(const fs::path& dir) {
-  if (fs::exists(dir)) {
-    if (!fs::is_directory(dir)) {
-      throw InputError::ForOption("--output",
-                                  ExpectedFound("a folder", "the file '" + dir.string() + "'"));
-    }
-    if (!fs::is_empty(dir) && !fs::exists(dir / kMarker)) {
-      throw InputError::ForOption("--output",
-                                  ExpectedFound("an empty folder or one an earlier demo wrote",
-                                                "'" + dir.string() + "' holding other files"));
-    }
-    fs::remove_all(dir);
-  }
-  fs::create_directories(dir);
-  std::ofstream(dir / kMarker)
-      << "written by apograph demo; the next demo may replace this folder\n";
-}
 
 std::vector<Transcription> ReadCorpus(const fs::path& corpus, std::vector<Diagnostic>& warnings) {
   if (!fs::is_directory(corpus)) {
@@ -124,14 +106,18 @@ int RunDemo(const std::vector<std::string>& args, Io& io) {
   std::vector<Diagnostic> warnings;
   const auto tables = ReadCorpus(corpus, warnings);  // all input read before anything is written
   const fs::path dir(output);
-  PrepareOutput(dir);
+  PrepareDemoFolder(dir);
   const fs::path db_path = dir / "edition.sqlite";
+  CheckOutputFile(db_path, {"--output", "", false, {}});  // not a database the editor put there
+  RecordDemoFile(dir, db_path);
   store::Database db(db_path.string());
   store::Import(db, tables);
   PrintImport(tables, warnings, db_path, io);
 
   ReportRequest request;
   request.output_dir = dir.string();
+  request.output_rules = {"--output", db_path.string(), false,
+                          [&dir](const fs::path& file) { RecordDemoFile(dir, file); }};
   request.report.max_findings = findings;
   request.editor = pipeline::DefaultEditor();
   WriteWorkReports(db, tables.front().work.id, request, io);

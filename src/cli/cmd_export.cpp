@@ -2,13 +2,11 @@
 // transcription, a CSV sheet or JSON.
 #include "cli/command.hpp"
 
-#include <cstdio>
-#include <filesystem>
-#include <fstream>
 #include <ostream>
 
 #include <nlohmann/json.hpp>
 
+#include "cli/output_files.hpp"
 #include "store/edition_store.hpp"
 #include "transcription/csv.hpp"
 #include "transcription/writer.hpp"
@@ -17,12 +15,14 @@ namespace apograph::cli {
 
 extern const char kExportUsage[] =
     "usage: apograph export --table ID --witness SIGLUM [--revision N]\n"
-    "                       [--format transcription|csv|json] [--output FILE] [--db FILE]\n"
+    "                       [--format transcription|csv|json] [--output FILE [--force]]\n"
+    "                       [--db FILE]\n"
     "\n"
     "Writes one witness's copy of a table as stored: the current revision, or\n"
     "revision N. The transcription format re-imports to identical content\n"
     "(cells, readings, marks, metadata); CSV holds the readings only; JSON\n"
-    "holds everything, with each cell's exact value and provenance.\n"
+    "holds everything, with each cell's exact value and provenance. --output never\n"
+    "writes over the edition database, nor over an existing file without --force.\n"
     "\n"
     "examples:\n"
     "  apograph export --table sun-eq --witness D > sun-eq-D.apo\n"
@@ -98,28 +98,6 @@ nlohmann::ordered_json TranscriptionJson(const Transcription& t, int revision) {
   return j;
 }
 
-/// Writes beside the target, then renames: a failed export never leaves a
-/// half-written file in place of a good one.
-void WriteFile(const std::string& path, const std::string& text) {
-  const std::string tmp = path + ".tmp";
-  {
-    std::ofstream out(tmp, std::ios::binary);
-    out << text;
-    out.flush();
-    if (!out) {
-      std::remove(tmp.c_str());
-      throw InputError::ForOption("--output", ExpectedFound("a writable file", "'" + path + "'"));
-    }
-  }
-  std::error_code ec;
-  std::filesystem::rename(tmp, path, ec);
-  if (ec) {
-    std::remove(tmp.c_str());
-    throw InputError::ForOption(
-        "--output", ExpectedFound("a writable file", "'" + path + "' (" + ec.message() + ")"));
-  }
-}
-
 }  // namespace
 
 int RunExport(const std::vector<std::string>& args, Io& io) {
@@ -130,7 +108,8 @@ int RunExport(const std::vector<std::string>& args, Io& io) {
   options.add_options()("table", po::value(&table)->required(), "the table id")(
       "witness", po::value(&witness)->required(), "the witness's siglum")(
       "revision", po::value(&revision), "revision number (default: the current one)")(
-      "output", po::value(&output), "write to FILE instead of standard output");
+      "output", po::value(&output), "write to FILE instead of standard output")(
+      "force", "replace an existing --output file");
   AddFormatOption(options, format, {"transcription", "csv", "json"});
   po::variables_map vm;
   if (ParseOptions(FindCommand("export"), args, options, vm, io)) return kOk;
@@ -139,6 +118,8 @@ int RunExport(const std::vector<std::string>& args, Io& io) {
     throw InputError::ForOption(
         "--revision", ExpectedFound("a revision number from 1", std::to_string(revision)));
   }
+  const OutputRules rules{"--output", db_path, vm.count("force") > 0, {}};
+  if (!output.empty()) CheckOutputFile(output, rules);
   store::Database db = OpenEdition(db_path);
   const std::optional<int> wanted =
       vm.count("revision") ? std::optional<int>(revision) : std::nullopt;
@@ -155,7 +136,7 @@ int RunExport(const std::vector<std::string>& args, Io& io) {
   if (output.empty()) {
     io.out << text;
   } else {
-    WriteFile(output, text);
+    WriteOutputFile(output, text, rules);
   }
   return kOk;
 }

@@ -133,14 +133,14 @@ int RunIdentify(const std::vector<std::string>& args, Io& io) {
   const Command& cmd = FindCommand("identify");
   std::string table, witness, column, format, db;
   int top = 5;
-  unsigned threads = std::max(1u, std::thread::hardware_concurrency());
+  int threads = static_cast<int>(std::clamp(std::thread::hardware_concurrency(), 1u, 256u));
   po::options_description opts("options");
   opts.add_options()("table", po::value(&table), "table id")("witness", po::value(&witness),
                                                              "siglum of the witness")(
       "column", po::value(&column), "value column (default: every column)")(
       "top", po::value(&top)->default_value(5), "how many explanations to list")(
       "all", "every table and witness in the database")(
-      "threads", po::value(&threads), "threads for --all (default: the number of cores)");
+      "threads", po::value(&threads), "threads for --all, 1 to 256 (default: the number of cores)");
   AddDbOption(opts, db);
   AddFormatOption(opts, format, {"text", "csv", "json"});
   po::variables_map vm;
@@ -148,6 +148,7 @@ int RunIdentify(const std::vector<std::string>& args, Io& io) {
   CheckChoice("--format", format, {"text", "csv", "json"});
   if (top < 1)
     throw InputError::ForOption("--top", ExpectedFound("a positive number", std::to_string(top)));
+  CheckThreads(threads);
   const bool all = vm.count("all") > 0;
   if (!all && (table.empty() || witness.empty())) {
     throw InputError::ForOption("apograph identify",
@@ -174,7 +175,7 @@ int RunIdentify(const std::vector<std::string>& args, Io& io) {
         t, all || column.empty() ? std::vector<std::string>{} : std::vector<std::string>{column});
     for (int c : cols) jobs.push_back({t, r.number, c, {}});
   }
-  RunJobs(jobs, options, all ? std::max(1u, threads) : 1u, io);
+  RunJobs(jobs, options, all ? static_cast<unsigned>(threads) : 1u, io);
   store::SaveIdentifications(database, Records(jobs));
   if (all) return PrintAll(jobs, catalog, ParseFormat(format), io);
   bool findings = false;

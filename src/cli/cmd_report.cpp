@@ -12,8 +12,8 @@
 namespace apograph::cli {
 
 extern const char kReportUsage[] =
-    "usage: apograph report (--table ID | --work ID) [--findings N] [--output DIR] [--editor "
-    "NAME]\n"
+    "usage: apograph report (--table ID | --work ID) [--findings N] [--output DIR [--force]]\n"
+    "                       [--editor NAME]\n"
     "                       [--db FILE]\n"
     "\n"
     "Runs the pipeline on the table (or on every table of the work) and prints\n"
@@ -28,7 +28,9 @@ extern const char kReportUsage[] =
     "--output also writes, per table, the full report, the apparatus (TEI, LaTeX,\n"
     "CSV) and the stemma (Newick, DOT, SVG when Graphviz is installed); the apparatus\n"
     "names the editor (--editor, else APOGRAPH_EDITOR, else the login name) beside\n"
-    "everyone whose decisions it shows.\n"
+    "everyone whose decisions it shows. An existing file there is replaced only with\n"
+    "--force, and never the edition database. A table of the work that cannot be\n"
+    "analysed is skipped, with the reason.\n"
     "All findings are suggestions with their evidence: the editor decides.\n"
     "\n"
     "examples:\n"
@@ -43,7 +45,9 @@ int RunReport(const std::vector<std::string>& args, Io& io) {
       "work", po::value(&work), "report on every table of this work")(
       "findings", po::value(&findings)->default_value(0), "deviations shown per witness (0: all)")(
       "output", po::value(&output), "folder for the files (created if missing)")(
-      "editor", po::value(&editor), "the editor named in the apparatus files");
+      "editor", po::value(&editor), "the editor named in the apparatus files")(
+
+      "force", "replace files that already exist in the --output folder");
   AddDbOption(options, db_path);
   po::variables_map vm;
   if (ParseOptions(FindCommand("report"), args, options, vm, io)) return kOk;
@@ -55,9 +59,10 @@ int RunReport(const std::vector<std::string>& args, Io& io) {
   store::Database db = OpenEdition(db_path);
   ReportRequest request;
   request.output_dir = output;
+  request.output_rules = {"--output", db_path, vm.count("force") > 0, {}};
   request.report.max_findings = findings;
   if (!output.empty()) request.editor = pipeline::DefaultEditor(editor);
-  if (!output.empty()) std::filesystem::create_directories(output);
+  if (!output.empty()) MakeOutputFolder(output);
   if (!table.empty()) {
     ReportTable(db, table, request, io);
   } else {
@@ -65,7 +70,7 @@ int RunReport(const std::vector<std::string>& args, Io& io) {
       throw InputError::ForOption("--work",
                                   ExpectedFound("a work in the database", "'" + work + "'"));
     }
-    WriteWorkReports(db, work, request, io);
+    if (WriteWorkReports(db, work, request, io) > 0) return kFindings;
   }
   return kOk;
 }

@@ -7,7 +7,7 @@
 #include <ostream>
 
 #include "cli/collate_input.hpp"
-#include "cli/report_output.hpp"
+#include "cli/output_files.hpp"
 #include "lineage/lineage.hpp"
 #include "lineage/lineage_text.hpp"
 #include "store/edition_store.hpp"
@@ -17,7 +17,7 @@ namespace apograph::cli {
 
 extern const char kStemmaUsage[] =
     "usage: apograph stemma (--table ID | --work ID) [--method nj|parsimony|both] [--bootstrap N]\n"
-    "                       [--seed N] [--format text|newick|dot|json] [--svg FILE]\n"
+    "                       [--seed N] [--format text|newick|dot|json] [--svg FILE [--force]]\n"
     "                       [--witnesses A,B,...] [--db FILE]\n"
     "                       [(--model NAME | --formula TEXT) [--param N=V]... [practice options] | "
     "--auto]\n\n"
@@ -26,7 +26,8 @@ extern const char kStemmaUsage[] =
     "archetype. Parsimony is exact (branch-and-bound) up to 12 witnesses and a\n"
     "heuristic (stepwise addition + SPR) beyond. Also names candidate direct copies\n"
     "and contaminated witnesses with the rows where they change exemplar.\n"
-    "--svg renders the DOT drawing with Graphviz (dot) into FILE.\n"
+    "--svg renders the DOT drawing with Graphviz (dot) into FILE (an existing file only\n"
+    "with --force, never the edition database). --bootstrap takes at most 100000.\n"
     "Which readings are errors: see apograph collate --help. With --auto (or a model)\n"
     "the author's own departures from the model do not count as errors of descent\n"
     "and common slips weigh less; --work with --auto identifies each table's model.\n"
@@ -72,7 +73,8 @@ int RunStemma(const std::vector<std::string>& args, Io& io) {
       "bootstrap", po::value(&lo.bootstrap)->default_value(0),
       "bootstrap replicates (rows resampled)")("seed", po::value(&lo.seed)->default_value(1),
                                                "random seed of the bootstrap and the heuristic")(
-      "svg", po::value(&svg), "render the stemma with Graphviz into this SVG file");
+      "svg", po::value(&svg), "render the stemma with Graphviz into this SVG file")(
+      "force", "replace an existing --svg file");
   AddCollateOptions(options, request);
   AddFormatOption(options, format, {"text", "newick", "dot", "json"});
   AddDbOption(options, db_path);
@@ -84,12 +86,17 @@ int RunStemma(const std::vector<std::string>& args, Io& io) {
   if (table.empty() == work.empty())
     throw InputError::ForOption("stemma", "expected one of --table or --work, found " +
                                               std::string(table.empty() ? "neither" : "both"));
-  if (lo.bootstrap < 0)
+  // A replicate costs a whole tree search: 100000 of them already take hours
+  // on a large tradition, and supports need no more than 1,000 (judgement).
+  constexpr int kMaxBootstrap = 100000;
+  if (lo.bootstrap < 0 || lo.bootstrap > kMaxBootstrap)
     throw InputError::ForOption(
-        "--bootstrap", ExpectedFound("a count of 0 or more", std::to_string(lo.bootstrap)));
+        "--bootstrap", ExpectedFound("a count from 0 to 100000", std::to_string(lo.bootstrap)));
   if (method == "nj") lo.methods = {lineage::Method::kNeighbourJoining};
   if (method == "both")
     lo.methods = {lineage::Method::kParsimony, lineage::Method::kNeighbourJoining};
+  const OutputRules svg_rules{"--svg", db_path, vm.count("force") > 0, {}};
+  if (!svg.empty()) CheckOutputFile(svg, svg_rules);  // before the work, not after
   store::Database db = OpenEdition(db_path);
   const auto report = lineage::AnalyseLineage(Characters(db, table, work, request), lo);
   if (format == "json") {
@@ -101,7 +108,7 @@ int RunStemma(const std::vector<std::string>& args, Io& io) {
   } else {
     io.out << lineage::DescribeLineage(report);
   }
-  if (!svg.empty() && !RenderSvg(lineage::ToDot(report), svg)) {
+  if (!svg.empty() && !RenderSvgFile(lineage::ToDot(report), svg, svg_rules)) {
     throw InputError::ForOption("--svg",
                                 "expected Graphviz 'dot' on PATH to render SVG, found none");
   }

@@ -47,6 +47,11 @@ void AddCollateOptions(po::options_description& o, CollateRequest& r) {
 }
 
 void FinishCollateRequest(CollateRequest& r, const po::variables_map& vm) {
+  if (!(r.tolerance >= 0)) {  // as check: a negative tolerance would flag every reading
+    std::ostringstream given;
+    given << r.tolerance;
+    throw InputError::ForOption("--tolerance", ExpectedFound("0 or more", "'" + given.str() + "'"));
+  }
   r.reference = ToReferenceRequest(r.reference_args, vm);
   if (r.reference.Empty() && !r.reference_args.params.empty()) {
     throw InputError::ForOption("--param",

@@ -138,6 +138,16 @@ void SetWait(const std::string& seconds) {
   store::SetBusyTimeout(static_cast<int>(s * 1000));
 }
 
+void CheckThreads(int threads) {
+  // Far beyond the cores of any machine this runs on; each thread holds a
+  // copy of a table's work, so an absurd count only exhausts memory (judgement).
+  constexpr int kMaxThreads = 256;
+  if (threads < 1 || threads > kMaxThreads) {
+    throw InputError::ForOption("--threads",
+                                ExpectedFound("a count from 1 to 256", std::to_string(threads)));
+  }
+}
+
 Format ParseFormat(const std::string& value) {
   if (value == "csv") return Format::kCsv;
   if (value == "json") return Format::kJson;

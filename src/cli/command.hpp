@@ -78,6 +78,9 @@ Format ParseFormat(const std::string& value);
 /// process's lock (`--wait SECONDS`, 0 to 86400); InputError naming --wait.
 void SetWait(const std::string& seconds);
 
+/// Checks a --threads value: 1 to 256 (InputError naming --threads).
+void CheckThreads(int threads);
+
 /// Finds a command by name (for handlers that print their own usage).
 const Command& FindCommand(const std::string& name);
 

@@ -87,6 +87,8 @@ pipeline::ReferenceRequest ToReferenceRequest(const ReferenceArgs& a, const po::
   if (!r.model.empty() && !r.formula.empty()) {
     throw InputError::ForOption("--formula", "expected either --model or --formula, found both");
   }
+  if (vm.count("places") && (a.places < 0 || a.places > Sexagesimal::kMaxPlaces))
+    throw InputError::ForOption("--places", ExpectedFound("0 to 12", std::to_string(a.places)));
   r.params = ParseParams(a.params);
   r.practice = ParsePractice(a);
   r.automatic = a.automatic;

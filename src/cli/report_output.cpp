@@ -1,93 +1,88 @@
 #include "cli/report_output.hpp"
 
-#include <cstdlib>
 #include <filesystem>
-#include <fstream>
+#include <optional>
 #include <ostream>
 
 #include "lineage/lineage_text.hpp"
 #include "publish/apparatus.hpp"
 #include "store/edition_store.hpp"
+#include "support/input_error.hpp"
 
 namespace apograph::cli {
 namespace {
 
 namespace fs = std::filesystem;
 
-/// Writes through a temporary file and a rename, so a failure never leaves
-/// half a file behind.
-void WriteFile(const fs::path& path, const std::string& text) {
-  const fs::path tmp = path.string() + ".tmp";
-  {
-    std::ofstream out(tmp, std::ios::binary);
-    out << text;
-    if (!out) throw std::runtime_error("cannot write " + tmp.string());
-  }
-  fs::rename(tmp, path);
-}
-
-std::string ShellQuote(const std::string& s) {
-  std::string out = "'";
-  for (char c : s) out += c == '\'' ? std::string("'\\''") : std::string(1, c);
-  return out + "'";
-}
-
-void WriteStemma(const fs::path& dir, const std::string& stem,
-                 const lineage::LineageReport& lineage) {
+void WriteStemma(const fs::path& dir, const std::string& id, const lineage::LineageReport& lineage,
+                 const OutputRules& rules) {
   if (lineage.results.empty()) return;
-  WriteFile(dir / (stem + ".nwk"), lineage::ToNewick(lineage.results.front().stemma) + "\n");
+  const auto& stemma = lineage.results.front().stemma;
+  WriteOutputFile(FileInFolder(dir, id, ".stemma.nwk", rules), lineage::ToNewick(stemma) + "\n",
+                  rules);
   const std::string dot = lineage::ToDot(lineage);
-  WriteFile(dir / (stem + ".dot"), dot);
-  RenderSvg(dot, (dir / (stem + ".svg")).string());
+  WriteOutputFile(FileInFolder(dir, id, ".stemma.dot", rules), dot, rules);
+  RenderSvgFile(dot, FileInFolder(dir, id, ".stemma.svg", rules), rules);
 }
 
 void WriteTableFiles(const fs::path& dir, const pipeline::TableAnalysis& a,
                      const ReportRequest& request) {
   publish::ReportOptions full = request.report;
   full.max_findings = 0;
-  WriteFile(dir / (a.table_id + ".md"), publish::TableReport(a, full));
+  const OutputRules& rules = request.output_rules;
+  const auto file = [&](const char* suffix) {
+    return FileInFolder(dir, a.table_id, suffix, rules);
+  };
+  WriteOutputFile(file(".md"), publish::TableReport(a, full), rules);
   const publish::Apparatus apparatus = publish::BuildApparatus(a, request.editor);
-  WriteFile(dir / (a.table_id + ".tei.xml"), publish::ToTei(apparatus));
-  WriteFile(dir / (a.table_id + ".tex"), publish::ToLatex(apparatus));
-  WriteFile(dir / (a.table_id + ".csv"), publish::ToCsv(apparatus));
-  WriteStemma(dir, a.table_id + ".stemma", a.lineage);
+  WriteOutputFile(file(".tei.xml"), publish::ToTei(apparatus), rules);
+  WriteOutputFile(file(".tex"), publish::ToLatex(apparatus), rules);
+  WriteOutputFile(file(".csv"), publish::ToCsv(apparatus), rules);
+  WriteStemma(dir, a.table_id, a.lineage, rules);
+}
+
+void PrintAndWrite(const pipeline::TableAnalysis& a, const ReportRequest& request, Io& io) {
+  io.out << publish::TableReport(a, request.report);
+  if (!request.output_dir.empty()) WriteTableFiles(request.output_dir, a, request);
 }
 
 }  // namespace
 
-bool RenderSvg(const std::string& dot, const std::string& svg_path) {
-  if (std::system("command -v dot > /dev/null 2>&1") != 0) return false;
-  const fs::path tmp = svg_path + ".dot.tmp";
-  WriteFile(tmp, dot);
-  const int rc = std::system(
-      ("dot -Tsvg " + ShellQuote(tmp.string()) + " -o " + ShellQuote(svg_path)).c_str());
-  fs::remove(tmp);
-  if (rc != 0) throw std::runtime_error("Graphviz dot failed to render " + svg_path);
-  return true;
-}
-
 pipeline::TableAnalysis ReportTable(store::Database& db, const std::string& table_id,
                                     const ReportRequest& request, Io& io) {
   pipeline::TableAnalysis a = pipeline::AnalyseTable(db, table_id, request.analysis);
-  io.out << publish::TableReport(a, request.report);
-  if (!request.output_dir.empty()) WriteTableFiles(request.output_dir, a, request);
+  PrintAndWrite(a, request, io);
   return a;
 }
 
-void WriteWorkReports(store::Database& db, const std::string& work_id, const ReportRequest& request,
-                      Io& io) {
+std::size_t WriteWorkReports(store::Database& db, const std::string& work_id,
+                             const ReportRequest& request, Io& io) {
   std::vector<pipeline::TableAnalysis> analyses;
-  for (const auto& table : store::TablesOfWork(db, work_id)) {
-    analyses.push_back(ReportTable(db, table, request, io));
+  const auto tables = store::TablesOfWork(db, work_id);
+  for (const auto& table : tables) {
+    std::optional<pipeline::TableAnalysis> a;
+    try {  // only the analysis: a file that cannot be written stops the command
+      a = pipeline::AnalyseTable(db, table, request.analysis);
+    } catch (const InputError& e) {  // one table too damaged or too short: report the others
+      if (analyses.empty() && table == tables.back()) throw;  // none could be analysed
+      io.out << "\n**Table " << table << " skipped**: " << e.diagnostics().front().message
+             << "\n\n";
+      io.err << "apograph: table " << table << " skipped: " << e.Render() << "\n";
+      continue;
+    }
+    PrintAndWrite(*a, request, io);
+    analyses.push_back(std::move(*a));
   }
   const auto lineage = pipeline::WorkLineage(analyses, request.analysis.lineage);
   const std::string text = publish::WorkLineageReport(work_id, lineage);
   io.out << text;
   if (!request.output_dir.empty()) {
     const fs::path dir(request.output_dir);
-    WriteFile(dir / (work_id + ".stemma.md"), text);
-    WriteStemma(dir, work_id + ".stemma", lineage);
+    const OutputRules& rules = request.output_rules;
+    WriteOutputFile(FileInFolder(dir, work_id, ".stemma.md", rules), text, rules);
+    WriteStemma(dir, work_id, lineage, rules);
   }
+  return tables.size() - analyses.size();
 }
 
 }  // namespace apograph::cli

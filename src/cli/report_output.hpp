@@ -5,6 +5,7 @@
 #include <string>
 
 #include "cli/command.hpp"
+#include "cli/output_files.hpp"
 #include "pipeline/analysis.hpp"
 #include "publish/report.hpp"
 #include "store/database.hpp"
@@ -14,6 +15,7 @@ namespace apograph::cli {
 struct ReportRequest {
   /// Folder for the files (full report, apparatus, stemmata); empty: none.
   std::string output_dir;
+  OutputRules output_rules;       ///< how the files may be written (the database, --force)
   publish::ReportOptions report;  ///< for what is printed
   std::string editor;             ///< named in the apparatus files beside those who decided
   pipeline::AnalysisOptions analysis;
@@ -24,12 +26,10 @@ struct ReportRequest {
 pipeline::TableAnalysis ReportTable(store::Database& db, const std::string& table_id,
                                     const ReportRequest& request, Io& io);
 
-/// Every table of the work, then the stemma argued from all of them.
-void WriteWorkReports(store::Database& db, const std::string& work_id, const ReportRequest& request,
-                      Io& io);
-
-/// Renders DOT into an SVG file with Graphviz; false when `dot` is not
-/// installed. Throws std::runtime_error when dot fails.
-bool RenderSvg(const std::string& dot, const std::string& svg_path);
+/// Every table of the work, then the stemma argued from all of them. A table
+/// that cannot be analysed (InputError) is skipped with its reason printed;
+/// returns how many were skipped (InputError when all were).
+std::size_t WriteWorkReports(store::Database& db, const std::string& work_id,
+                             const ReportRequest& request, Io& io);
 
 }  // namespace apograph::cli

@@ -11,6 +11,7 @@
 #include "pipeline/decision_state.hpp"
 #include "store/decision_store.hpp"
 #include "store/edition_store.hpp"
+#include "transcription/editor_value.hpp"
 
 namespace apograph::pipeline {
 
@@ -159,6 +160,15 @@ EditedTarget CheckCell(const DecisionContext& cx, const DecisionTarget& t) {
   return {*arg, t.column};
 }
 
+/// The places of a column, as the current transcriptions declare them.
+int ColumnPlaces(const DecisionContext& cx, const std::string& column) {
+  for (const auto& [siglum, tr] : cx.current()) {
+    if (const int c = tr.ColumnIndex(column); c >= 0)
+      return tr.columns[static_cast<std::size_t>(c)].places;
+  }
+  return 0;  // unreachable after CheckCell, which requires the column
+}
+
 /// A conjecture is a reading no witness has.
 void CheckConjecture(const DecisionContext& cx, const EditedTarget& cell,
                      const Sexagesimal& reading) {
@@ -190,11 +200,11 @@ std::pair<std::string, std::optional<Decision>> CellState(const DecisionContext&
 Decision DecideCell(store::Database& db, const DecisionRequest& r) {
   DecisionContext cx(db, r.target.table_id);
   const EditedTarget cell = CheckCell(cx, r.target);
-  const auto reading = Sexagesimal::Parse(r.reading);
-  if (!reading) {
-    throw InputError::ForOption("--reading",
-                                ExpectedFound("a reading in trade notation", Quoted(r.reading)));
-  }
+  // Read like a transcription's cell in this column: nothing is stored that
+  // a transcription could not hold (places 0..59, the column's places).
+  const std::string option = r.target.option.empty() ? "--reading" : r.target.option;
+  const auto reading =
+      Sexagesimal::Parse(ParseEditorReading(option, r.reading, ColumnPlaces(cx, cell.column)));
   const auto [state, in_force] = CellState(cx, cell);
   CheckExpected(state, r.expected_state, "cell " + cell.arg + ":" + cell.column, in_force);
   if (r.action == Action::kConjecture) CheckConjecture(cx, cell, *reading);

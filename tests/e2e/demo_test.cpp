@@ -109,9 +109,8 @@ TEST_CASE("the demo refuses to write into a folder it did not make") {
   const auto r = RunBinary("demo --output mine", dir.path());
   CHECK(r.code == 2);
   CHECK(r.err ==
-        "--output: error: expected an empty folder or one an earlier demo wrote, found 'mine' "
-        "holding "
-        "other files\n");
+        "--output: error: expected an empty folder or one an earlier demo wrote (with its "
+        ".apograph-demo file), found 'mine' holding other files, which the demo leaves alone\n");
   CHECK(std::filesystem::exists(dir / "mine/notes.txt"));
 }
 

@@ -63,16 +63,16 @@ TEST_CASE("collate, stemma and apparatus from the command line") {
   CHECK(bad.out.find("--override") != std::string::npos);
 
   auto tei = Apograph(
-      "apparatus --table T1 --format tei --override '2:c1=7;7' --note 'editor test' --editor "
+      "apparatus --table T1 --format tei --override '2:c1=7;7,0' --note 'editor test' --editor "
       "'A. Editor'" +
       db);
-  CHECK(tei.code == 0);
-  CHECK(tei.out.find("<lem type=\"emendation\" resp=\"#ed-A._Editor\">7;7</lem>") !=
+  CHECK(tei.code == 0);  // the column has 2 places: a reading of 1 place is refused
+  CHECK(tei.out.find("<lem type=\"emendation\" resp=\"#ed-A._Editor\">7;7,0</lem>") !=
         std::string::npos);
   auto text = Apograph("apparatus --table T1" + db);  // the override stays
-  CHECK(text.out.find("7;7 em. (emended by A. Editor: editor test)]") != std::string::npos);
+  CHECK(text.out.find("7;7,0 em. (emended by A. Editor: editor test)]") != std::string::npos);
   auto withdrawn = Apograph("apparatus --table T1 --withdraw 2:c1 --format csv" + db);
-  CHECK(withdrawn.out.find("7;7") == std::string::npos);
+  CHECK(withdrawn.out.find("7;7,0") == std::string::npos);
 
   auto missing = Apograph("stemma --table T1 --db /nonexistent/x.sqlite");
   CHECK(missing.code == 2);
