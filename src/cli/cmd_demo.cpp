@@ -113,8 +113,7 @@ int RunDemo(const std::vector<std::string>& args, Io& io) {
   std::string corpus, output;
   std::size_t findings = 6;
   po::options_description options("options");
-  options.add_options()("corpus",
-                        po::value(&corpus)->default_value(DataDir() + "/demo"),
+  options.add_options()("corpus", po::value(&corpus)->default_value(DataDir() + "/demo"),
                         "folder of the demo transcriptions")(
       "output", po::value(&output)->default_value("apograph-demo"),
       "folder for the database and files")("findings", po::value(&findings)->default_value(6),
@@ -139,7 +138,9 @@ int RunDemo(const std::vector<std::string>& args, Io& io) {
          << "/: the edition database, one report per table (*.md, every\n"
          << "deviation listed), the apparatus (*.tei.xml, *.tex, *.csv) and the stemmata (*.nwk, "
             "*.dot,\n"
-         << "*.svg). Try: apograph errors --db " << db_path.string()
+         << "*.svg).\nOpen " << (dir / "report.html").string()
+         << " in a browser: every table plotted, the findings linked to their cells.\n"
+         << "Try: apograph errors --db " << db_path.string()
          << " --table sun-eq --witness D --auto\n";
   return kOk;
 }

@@ -5,13 +5,15 @@
 #include <ostream>
 
 #include "cli/report_output.hpp"
+#include "publish/html_report.hpp"
 #include "store/edition_store.hpp"
 #include "support/input_error.hpp"
 
 namespace apograph::cli {
 
 extern const char kReportUsage[] =
-    "usage: apograph report (--table ID | --work ID) [--findings N] [--output DIR] [--db FILE]\n"
+    "usage: apograph report (--table ID | --work ID) [--findings N] [--format markdown|html]\n"
+    "                       [--output DIR] [--db FILE]\n"
     "\n"
     "Runs the pipeline on the table (or on every table of the work) and prints\n"
     "the editor's report, in Markdown: the witnesses; how the table was computed\n"
@@ -22,20 +24,27 @@ extern const char kReportUsage[] =
     "witness deviates. For a work, the stemma argued from all its tables follows.\n"
     "--output also writes, per table, the full report, the apparatus (TEI, LaTeX,\n"
     "CSV) and the stemma (Newick, DOT, SVG when Graphviz is installed).\n"
+    "--format html prints one self-contained HTML page instead (inline CSS and\n"
+    "SVG, nothing fetched, printable): per column a plot of every witness's\n"
+    "deviations along the argument, the findings linked to their cells, the\n"
+    "stemma, the edited table and the apparatus cell by cell; for a work,\n"
+    "--output also writes it as report.html.\n"
     "All findings are suggestions with their evidence: the editor decides.\n"
     "\n"
     "examples:\n"
     "  apograph report --table sun-eq\n"
+    "  apograph report --work lantern --format html > lantern.html\n"
     "  apograph report --work lantern --findings 10 --output lantern-edition";
 
 int RunReport(const std::vector<std::string>& args, Io& io) {
-  std::string table, work, output, db_path;
+  std::string table, work, output, db_path, format;
   std::size_t findings = 0;
   po::options_description options("options");
   options.add_options()("table", po::value(&table), "the table to report on")(
       "work", po::value(&work), "report on every table of this work")(
       "findings", po::value(&findings)->default_value(0), "deviations shown per witness (0: all)")(
-      "output", po::value(&output), "folder for the files (created if missing)");
+      "output", po::value(&output), "folder for the files (created if missing)")(
+      "format", po::value(&format)->default_value("markdown"), "markdown or html");
   AddDbOption(options, db_path);
   po::variables_map vm;
   if (ParseOptions(FindCommand("report"), args, options, vm, io)) return kOk;
@@ -44,13 +53,17 @@ int RunReport(const std::vector<std::string>& args, Io& io) {
                                 "expected one of --table or --work, found " +
                                     std::string(table.empty() ? "neither" : "both"));
   }
+  CheckChoice("--format", format, {"markdown", "html"});
   store::Database db = OpenEdition(db_path);
   ReportRequest request;
+  request.html = format == "html";
   request.output_dir = output;
   request.report.max_findings = findings;
   if (!output.empty()) std::filesystem::create_directories(output);
   if (!table.empty()) {
-    ReportTable(db, table, request, io);
+    const auto a = ReportTable(db, table, request, io);
+    if (request.html)
+      io.out << publish::HtmlDocument("apograph report: " + table, publish::HtmlTableSection(a));
   } else {
     if (store::TablesOfWork(db, work).empty()) {
       throw InputError::ForOption("--work",

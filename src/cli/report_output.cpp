@@ -7,6 +7,7 @@
 
 #include "lineage/stemma.hpp"
 #include "publish/apparatus.hpp"
+#include "publish/html_report.hpp"
 #include "store/edition_store.hpp"
 
 namespace apograph::cli {
@@ -69,7 +70,7 @@ bool RenderSvg(const std::string& dot, const std::string& svg_path) {
 pipeline::TableAnalysis ReportTable(store::Database& db, const std::string& table_id,
                                     const ReportRequest& request, Io& io) {
   pipeline::TableAnalysis a = pipeline::AnalyseTable(db, table_id, request.analysis);
-  io.out << publish::TableReport(a, request.report);
+  if (!request.html) io.out << publish::TableReport(a, request.report);
   if (!request.output_dir.empty()) WriteTableFiles(request.output_dir, a, request);
   return a;
 }
@@ -82,9 +83,14 @@ void WriteWorkReports(store::Database& db, const std::string& work_id, const Rep
   }
   const auto lineage = pipeline::WorkLineage(analyses, request.analysis.lineage);
   const std::string text = publish::WorkLineageReport(work_id, lineage);
-  io.out << text;
+  std::string html;
+  for (const auto& a : analyses) html += publish::HtmlTableSection(a);
+  html = publish::HtmlDocument("apograph report: " + work_id,
+                               html + publish::HtmlWorkSection(work_id, lineage));
+  io.out << (request.html ? html : text);
   if (!request.output_dir.empty()) {
     const fs::path dir(request.output_dir);
+    WriteFile(dir / "report.html", html);
     WriteFile(dir / (work_id + ".stemma.md"), text);
     WriteStemma(dir, work_id + ".stemma", "stemma of " + work_id, lineage);
   }

@@ -15,6 +15,9 @@ struct ReportRequest {
   /// Folder for the files (full report, apparatus, stemmata); empty: none.
   std::string output_dir;
   publish::ReportOptions report;  ///< for what is printed
+  /// Print one self-contained HTML page instead of Markdown (the work's
+  /// page after every table has been analysed).
+  bool html = false;
   pipeline::AnalysisOptions analysis;
 };
 
@@ -23,7 +26,9 @@ struct ReportRequest {
 pipeline::TableAnalysis ReportTable(store::Database& db, const std::string& table_id,
                                     const ReportRequest& request, Io& io);
 
-/// Every table of the work, then the stemma argued from all of them.
+/// Every table of the work, then the stemma argued from all of them. With
+/// an output folder, also writes report.html there (every table and the
+/// work's stemma in one self-contained page).
 void WriteWorkReports(store::Database& db, const std::string& work_id, const ReportRequest& request,
                       Io& io);
 

@@ -1,0 +1,17 @@
+#pragma once
+/// The stemma drawn as inline SVG by the project (no Graphviz needed):
+/// the archetype on top, witnesses as labelled boxes, lost copies as small
+/// circles, bootstrap support on the branches, and contamination as dashed
+/// arrows from the relative a witness follows in part of the table.
+
+#include <string>
+
+#include "lineage/lineage.hpp"
+
+namespace apograph::publish {
+
+/// One stemma with the report's copies and contamination; an empty string
+/// when the report has no stemma.
+std::string StemmaSvg(const lineage::LineageReport& lineage);
+
+}  // namespace apograph::publish
