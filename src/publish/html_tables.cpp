@@ -148,6 +148,9 @@ table{border-collapse:collapse}td,th{padding:1px 8px;border-bottom:1px solid #dd
 .edited td.var{background:#eee}.edited td.ed{outline:2px solid #111}
 .cell{border-left:4px solid #1d3557;padding-left:.8em;margin:1em 0}.cell tr.err td{font-weight:bold}
 .cell:target{background:#fff6d5}a{color:#1d3557}
+.review td,.review th{text-align:left;vertical-align:top;font-size:13px}.review .evidence{min-width:16em}
+.review tr.accepted{background:#eef3ee}.review tr.rejected{background:#f3eeee}.review form{margin:2px 0}
+.done,.stale{border:2px solid #111;padding:.3em .6em}
 @media print{.cell,.plots,figure{break-inside:avoid}a{color:#000;text-decoration:none}})";
 }
 
