@@ -127,7 +127,7 @@ std::string ColumnPlots(const pipeline::TableAnalysis& a, const pipeline::Column
   const auto traces = ColumnTraces(a, ref);
   if (traces.empty()) return "<p>No entry of this column could be recomputed.</p>";
   const auto nodes = GridNodes(ref, traces);
-  std::string html = "<figure class=\"plots\">" + LegendSvg(traces, !nodes.empty());
+  std::string html = "<figure class=\"plots\"><div class=\"panels\">";
   if (traces.size() <= kOverlaidTraces) {
     html += PlotSvg({ref.column_name, "argument", traces, nodes, 720, 240, 0});
   } else {
@@ -136,6 +136,7 @@ std::string ColumnPlots(const pipeline::TableAnalysis& a, const pipeline::Column
       html += PlotSvg(
           {ref.column_name + ", witness " + t.label, "argument", {t}, nodes, 720, 130, worst});
   }
+  html += "</div><div class=\"key\">" + LegendSvg(traces, !nodes.empty()) + "</div>";
   return html + "<figcaption>" + ref.column_name +
          ": tabulated minus computed, in units of the last place, along the argument. Click a "
          "mark to see the cell.</figcaption></figure>";

@@ -109,8 +109,8 @@ void Findings(const pipeline::TableAnalysis& a, std::ostream& out) {
   }
 }
 
-void Stemma(const lineage::LineageReport& l, std::ostream& out) {
-  const std::string svg = StemmaSvg(l);
+void Stemma(const lineage::LineageReport& l, const std::string& id, std::ostream& out) {
+  const std::string svg = StemmaSvg(l, id);
   if (svg.empty()) {
     out << "<p>No stemma: fewer than three witnesses or no shared errors.</p>";
     return;
@@ -142,7 +142,7 @@ std::string HtmlTableSection(const pipeline::TableAnalysis& a) {
   Model(a, out);
   Findings(a, out);
   out << "<h3>Stemma of this table</h3>";
-  Stemma(a.lineage, out);
+  Stemma(a.lineage, a.table_id, out);
   out << EditedTable(a) << CellViews(a) << "</article>";
   return out.str();
 }
@@ -151,7 +151,7 @@ std::string HtmlWorkSection(const std::string& work_id, const lineage::LineageRe
   std::ostringstream out;
   out << "<article class=\"work\"><h2>Stemma of the work " << Html(work_id)
       << " (all its tables together)</h2>";
-  Stemma(lineage, out);
+  Stemma(lineage, "work-" + work_id, out);
   out << "</article>";
   return out.str();
 }

@@ -137,8 +137,9 @@ svg{max-width:100%;height:auto;display:block}svg text{font:11px 'DejaVu Sans',sa
 .node{stroke:#777;stroke-dasharray:1 3;stroke-width:1.2}
 .m-flag{stroke:#000;stroke-width:2;fill:none}.m-slip{fill:#000}.m-run{fill:#000;stroke:#fff;stroke-width:.8}
 .m-author{fill:#fff;stroke:#000;stroke-width:2}
-.legend{float:right;margin:0 0 .5em 1em}figure{margin:1em 0;overflow:hidden}
-figcaption{font-size:13px;color:#333;clear:both}
+figure{margin:1em 0}.plots{display:flex;flex-wrap:wrap;gap:.5em 1em;align-items:flex-start}
+.panels{flex:1 1 560px;min-width:0}.key{flex:0 0 250px}
+figcaption{font-size:13px;color:#333;flex-basis:100%}
 .stemma .branch{stroke:#222;stroke-width:1.4}.stemma .wit{fill:#fff;stroke:#111;stroke-width:1.5}
 .stemma .arch{fill:#eee;stroke:#111;stroke-dasharray:3 2}.stemma .lost{fill:#888}
 .stemma .contam{fill:none;stroke:#d17a22;stroke-width:1.6;stroke-dasharray:6 4}

@@ -74,11 +74,19 @@ Frame FrameOf(const PlotSpec& spec) {
 }
 
 void Axes(const PlotSpec& spec, const Frame& f, std::ostream& out) {
-  for (double t : f.y.Ticks()) {
+  // Labels closer than a line of text to the previous one are left out
+  // (their grid lines stay): 0 is always labelled.
+  constexpr double kLabelGap = 10;
+  double last = -INFINITY;
+  const auto ticks = f.y.Ticks();
+  for (double t : ticks) {
     const std::string y = Num(f.y(t));
     out << "<line class=\"" << (t == 0 ? "zero" : "grid") << "\" x1=\"" << kLeft << "\" x2=\""
-        << Num(f.width - kRight) << "\" y1=\"" << y << "\" y2=\"" << y << "\"/>"
-        << "<text class=\"tick\" x=\"" << kLeft - 4 << "\" y=\"" << Num(f.y(t) + 3)
+        << Num(f.width - kRight) << "\" y1=\"" << y << "\" y2=\"" << y << "\"/>";
+    const bool near_zero = t != 0 && std::fabs(f.y(t) - f.y(0)) < kLabelGap;
+    if (near_zero || std::fabs(f.y(t) - last) < kLabelGap) continue;
+    last = f.y(t);
+    out << "<text class=\"tick\" x=\"" << kLeft - 4 << "\" y=\"" << Num(f.y(t) + 3)
         << "\" text-anchor=\"end\">" << TickLabel(t) << "</text>";
   }
   for (double t : f.x.Ticks()) {
@@ -200,15 +208,15 @@ std::string LegendSvg(const std::vector<PlotTrace>& traces, bool nodes) {
     const char* text;
   };
   static const Item kMarks[] = {
-      {PointKind::kAgrees, "agrees with the model (within one unit)"},
+      {PointKind::kAgrees, "within one unit of the model"},
       {PointKind::kSlip, "copyist's slip"},
-      {PointKind::kDisplaced, "displaced run (entries slid by rows)"},
-      {PointKind::kDeparture, "the author's own departure (kept)"},
+      {PointKind::kDisplaced, "displaced run (slid by rows)"},
+      {PointKind::kDeparture, "the author's own departure"},
       {PointKind::kFlagged, "flagged, unexplained"},
   };
   const int rows = static_cast<int>(traces.size() + std::size(kMarks)) + (nodes ? 1 : 0);
   std::ostringstream out;
-  out << "<svg class=\"legend\" xmlns=\"http://www.w3.org/2000/svg\" width=\"340\" height=\""
+  out << "<svg class=\"legend\" xmlns=\"http://www.w3.org/2000/svg\" width=\"250\" height=\""
       << rows * 18 + 6 << "\" role=\"img\"><title>legend</title>";
   int y = 14;
   for (const auto& t : traces) {
@@ -226,7 +234,7 @@ std::string LegendSvg(const std::vector<PlotTrace>& traces, bool nodes) {
   }
   if (nodes) {
     out << "<line class=\"node\" x1=\"19\" x2=\"19\" y1=\"" << y - 13 << "\" y2=\"" << y + 2
-        << "\"/><text x=\"42\" y=\"" << y << "\">node of the interpolation grid</text>";
+        << "\"/><text x=\"42\" y=\"" << y << "\">interpolation grid node</text>";
   }
   out << "</svg>";
   return out.str();

@@ -1,5 +1,6 @@
 #include "publish/svg_stemma.hpp"
 
+#include <cctype>
 #include <cmath>
 #include <cstdio>
 #include <map>
@@ -63,7 +64,7 @@ void Node(const lineage::Stemma& s, const Layout& l, int i, std::ostream& out) {
 
 /// Dashed arrows from each relative to the contaminated witness.
 void Contamination(const lineage::LineageReport& r, const lineage::Stemma& s, const Layout& l,
-                   std::ostream& out) {
+                   const std::string& marker, std::ostream& out) {
   std::map<std::string, int> at;
   for (std::size_t i = 0; i < s.nodes.size(); ++i)
     if (s.nodes[i].witness) at[s.nodes[i].name] = static_cast<int>(i);
@@ -71,8 +72,8 @@ void Contamination(const lineage::LineageReport& r, const lineage::Stemma& s, co
     for (const auto& seg : c.segments) {
       if (!at.count(seg.relative) || !at.count(c.witness)) continue;
       const int a = at[seg.relative], b = at[c.witness];
-      out << "<path class=\"contam\" marker-end=\"url(#arrow)\" d=\"M" << Num(l.x[a]) << " "
-          << Num(l.y[a] + 11) << " Q" << Num((l.x[a] + l.x[b]) / 2) << " "
+      out << "<path class=\"contam\" marker-end=\"url(#" << marker << ")\" d=\"M" << Num(l.x[a])
+          << " " << Num(l.y[a] + 11) << " Q" << Num((l.x[a] + l.x[b]) / 2) << " "
           << Num(std::max(l.y[a], l.y[b]) + 40) << " " << Num(l.x[b]) << " " << Num(l.y[b] + 11)
           << "\"><title>" << EscapeXml(c.text) << "</title></path>";
     }
@@ -81,24 +82,27 @@ void Contamination(const lineage::LineageReport& r, const lineage::Stemma& s, co
 
 }  // namespace
 
-std::string StemmaSvg(const lineage::LineageReport& report) {
+std::string StemmaSvg(const lineage::LineageReport& report, const std::string& id) {
   if (report.results.empty() || report.results.front().stemma.root < 0) return "";
   const auto& s = report.results.front().stemma;
   Layout l;
   l.x.assign(s.nodes.size(), 0);
   l.y.assign(s.nodes.size(), 0);
   Place(s, s.root, 0, l);
+  std::string marker = "arrow-";
+  for (char c : id) marker += std::isalnum(static_cast<unsigned char>(c)) ? c : '-';
   const double w = 2 * kMargin + kColumn * std::max(0, l.leaves - 1);
   const double h = 2 * kMargin + kLevel * l.depth + 40;
   std::ostringstream out;
   out << "<svg class=\"stemma\" xmlns=\"http://www.w3.org/2000/svg\" viewBox=\"0 0 " << Num(w)
       << " " << Num(h) << "\" width=\"" << Num(w) << "\" height=\"" << Num(h)
-      << "\" role=\"img\"><title>stemma</title><defs><marker id=\"arrow\" viewBox=\"0 0 8 8\" "
+      << "\" role=\"img\"><title>stemma</title><defs><marker id=\"" << marker
+      << "\" viewBox=\"0 0 8 8\" "
          "refX=\"7\" refY=\"4\" markerWidth=\"7\" markerHeight=\"7\" orient=\"auto\"><path "
          "d=\"M0 0L8 4L0 8z\"/></marker></defs>";
   for (std::size_t i = 0; i < s.nodes.size(); ++i)
     if (s.nodes[i].parent >= 0) Edge(s, l, static_cast<int>(i), out);
-  Contamination(report, s, l, out);
+  Contamination(report, s, l, marker, out);
   for (std::size_t i = 0; i < s.nodes.size(); ++i) Node(s, l, static_cast<int>(i), out);
   out << "</svg>";
   return out.str();

@@ -11,7 +11,8 @@
 namespace apograph::publish {
 
 /// One stemma with the report's copies and contamination; an empty string
-/// when the report has no stemma.
-std::string StemmaSvg(const lineage::LineageReport& lineage);
+/// when the report has no stemma. `id` makes the drawing's internal ids
+/// unique in a page holding several stemmata.
+std::string StemmaSvg(const lineage::LineageReport& lineage, const std::string& id = "stemma");
 
 }  // namespace apograph::publish

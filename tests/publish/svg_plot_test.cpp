@@ -109,3 +109,20 @@ TEST_CASE("legend names every witness and every mark, and the grid only when the
 }
 
 }  // namespace apograph::publish
+
+namespace apograph::publish {
+
+TEST_CASE("tick labels too close together are left out, zero always labelled") {
+  PlotSpec p;
+  p.height = 130;
+  p.traces = {{"A", 0, {{0, 0}, {10, 212900, PointKind::kSlip}}}};  // x ticks 0, 2, ... 10
+  const std::string svg = PlotSvg(p);
+  CHECK(svg.find(">0</text>") != std::string::npos);
+  CHECK(svg.find(">1</text>") == std::string::npos);  // 1 is a few pixels from 0 here
+  CHECK(svg.find(">1e+06</text>") != std::string::npos);
+  CHECK(svg.find("signed log") != std::string::npos);
+  p.height = 2000;
+  CHECK(PlotSvg(p).find(">1</text>") != std::string::npos);
+}
+
+}  // namespace apograph::publish
