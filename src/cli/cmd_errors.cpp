@@ -1,5 +1,6 @@
 // apograph errors: explain a witness's deviations from a model, propose
 // emendations and record them in the database for the editor to decide.
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 #include <filesystem>
@@ -155,21 +156,72 @@ nlohmann::json FindingJson(const deviation::Finding& f) {
   return j;
 }
 
+nlohmann::json SuspectJson(const deviation::Suspect& s) {
+  nlohmann::json j = {{"row", s.row + 1},
+                      {"arg", s.arg},
+                      {"tabulated", s.tabulated},
+                      {"expected", Reading(s.expected)},
+                      {"diff_units", Units(s.diff_units)},
+                      {"score", std::round(s.score * 100) / 100},
+                      {"evidence", s.evidence},
+                      {"class", nullptr},
+                      {"emendation", nullptr}};
+  if (!s.explanations.empty()) {
+    j["class"] = deviation::ToString(s.explanations.front().cls);
+    j["emendation"] = Reading(s.explanations.front().emendation);
+  }
+  return j;
+}
+
+nlohmann::json VerdictJson(const pipeline::ColumnVerdict& v) {
+  nlohmann::json j = {{"column", v.column_name},
+                      {"explains", v.verdict.explains},
+                      {"on", v.verdict.consensus ? "tradition" : "witness"},
+                      {"compared", v.verdict.compared},
+                      {"flagged", v.verdict.flagged},
+                      {"limit", v.verdict.limit},
+                      {"why", v.verdict.why}};
+  j["screen"] = nlohmann::json::array();
+  for (const auto& s : v.screen) j["screen"].push_back(SuspectJson(s));
+  return j;
+}
+
+/// A refused reference: why, and the model-free screen instead of findings.
+void PrintRefused(const pipeline::ColumnVerdict& v, Io& io) {
+  if (v.verdict.explains) return;
+  io.out << v.column_name << ": " << v.verdict.why << "\n";
+  io.out << v.column_name << ": model-free screen, " << v.screen.size()
+         << (v.screen.size() == 1 ? " suspect entry\n" : " suspect entries\n");
+  for (const auto& s : v.screen) {
+    io.out << "  " << s.arg << " " << s.tabulated << ": " << s.evidence;
+    if (!s.explanations.empty() && s.explanations.front().emendation) {
+      io.out << "; likely " << deviation::ToString(s.explanations.front().cls) << ", reading "
+             << s.explanations.front().emendation->ToString();
+    }
+    io.out << "\n";
+  }
+}
+
 void Print(const ErrorsOptions& o, const Transcription& t,
            const std::vector<pipeline::ColumnReference>& refs,
-           const std::vector<deviation::Finding>& findings, Io& io) {
+           const pipeline::WitnessFindings& explained, Io& io) {
+  const auto& findings = explained.findings;
   const Format format = ParseFormat(o.format);
   const std::string model = ModelText(refs, t);
   if (format == Format::kJson) {
     nlohmann::json j = {{"table", t.table_id},
                         {"witness", t.witness.siglum},
                         {"script", t.witness.script},
+                        {"numeral_script", explained.script},
+                        {"kind", ToString(t.witness.Kind())},
                         {"model", model},
                         {"tolerance", o.tolerance}};
     j["references"] = nlohmann::json::array();
     for (const auto& r : refs) j["references"].push_back(ReferenceJson(r));
     j["findings"] = nlohmann::json::array();
     for (const auto& f : findings) j["findings"].push_back(FindingJson(f));
+    j["verdicts"] = nlohmann::json::array();
+    for (const auto& v : explained.verdicts) j["verdicts"].push_back(VerdictJson(v));
     io.out << j.dump(2) << "\n";
     return;
   }
@@ -196,11 +248,11 @@ void Print(const ErrorsOptions& o, const Transcription& t,
     if (r.source == pipeline::ReferenceSource::kIdentified)
       io.out << r.column_name << ": " << r.description << "; " << r.how << "\n";
   }
-  io.out << "table " << t.table_id << ", witness " << t.witness.siglum << " ("
-         << (t.witness.script.empty() ? "hindu-arabic" : t.witness.script) << "), compared with "
-         << model << ": " << findings.size()
+  io.out << "table " << t.table_id << ", witness " << t.witness.siglum << " (" << explained.script
+         << "), compared with " << model << ": " << findings.size()
          << (findings.size() == 1 ? " finding\n" : " findings\n");
   for (const auto& f : findings) io.out << f.Note(t.witness.siglum) << "\n";
+  for (const auto& v : explained.verdicts) PrintRefused(v, io);
 }
 
 std::vector<store::EmendationRecord> Proposals(const Transcription& t, int revision,
@@ -276,18 +328,20 @@ int RunErrors(const std::vector<std::string>& args, Io& io) {
   const Transcription t = store::Load(
       db, o.table, o.witness, o.revision > 0 ? std::optional<int>(o.revision) : std::nullopt);
   if (!o.column.empty()) request.columns = {o.column};
-  // --auto identifies from every witness of the table (this revision of this one).
-  std::vector<Transcription> witnesses =
-      request.automatic ? store::LoadTable(db, o.table) : std::vector<Transcription>{};
+  // Every witness of the table (this revision of this one): --auto identifies
+  // from them, and each cell is judged with what the others read there.
+  std::vector<Transcription> witnesses = store::LoadTable(db, o.table);
   std::erase_if(witnesses,
                 [&](const Transcription& w) { return w.witness.siglum == t.witness.siglum; });
   witnesses.insert(witnesses.begin(), t);
-  const auto refs = pipeline::ResolveReferences(witnesses, request, pipeline::LoadModelLibrary(db));
-  const deviation::NumeralScript script = deviation::FindNumeralScript(t.witness.script, o.scripts);
+  const auto refs =
+      pipeline::ResolveReferences(request.automatic ? witnesses : std::vector<Transcription>{t},
+                                  request, pipeline::LoadModelLibrary(db));
   deviation::ExplainOptions eo;
   eo.tolerance = o.tolerance;
-  const auto findings = pipeline::ExplainWitness(t, refs, script, eo).findings;
-  Print(o, t, refs, findings, io);
+  const auto explained = pipeline::ExplainTradition(witnesses, refs, o.scripts, eo).front();
+  const auto& findings = explained.findings;
+  Print(o, t, refs, explained, io);
   if (!o.no_record) {
     auto proposals = Proposals(t, CurrentRevision(db, o), ModelText(refs, t), findings);
     if (!proposals.empty()) {
@@ -297,7 +351,9 @@ int RunErrors(const std::vector<std::string>& args, Io& io) {
              << (r.kept ? " (" + std::to_string(r.kept) + " already recorded)" : "") << "\n";
     }
   }
-  return findings.empty() ? kOk : kFindings;
+  const bool refused = std::any_of(explained.verdicts.begin(), explained.verdicts.end(),
+                                   [](const auto& v) { return !v.verdict.explains; });
+  return findings.empty() && !refused ? kOk : kFindings;
 }
 
 }  // namespace apograph::cli

@@ -101,7 +101,7 @@ int RunScreen(const std::vector<std::string>& args, Io& io) {
       store::Load(db, table, witness, revision > 0 ? std::optional<int>(revision) : std::nullopt);
   const auto columns = estimate::ResolveColumns(
       t, column.empty() ? std::vector<std::string>{} : std::vector<std::string>{column});
-  const deviation::NumeralScript script = deviation::FindNumeralScript(t.witness.script, scripts);
+  const deviation::NumeralScript script = deviation::FindWitnessScript(t.witness, scripts);
   std::vector<deviation::Suspect> suspects;
   for (int c : columns) {
     auto found = deviation::ScreenColumn(t, c, &script, so);

@@ -27,11 +27,7 @@ collate::CollateOptions JudgedOptions(store::Database& db,
   pipeline::ReferenceRequest request = r.reference;
   if (!r.column.empty()) request.columns = {r.column};
   const auto refs = pipeline::ResolveReferences(witnesses, request, pipeline::LoadModelLibrary(db));
-  std::vector<pipeline::WitnessFindings> findings;
-  for (const auto& w : witnesses) {
-    const auto script = deviation::FindNumeralScript(w.witness.script, r.scripts);
-    findings.push_back(pipeline::ExplainWitness(w, refs, script));
-  }
+  const auto findings = pipeline::ExplainTradition(witnesses, refs, r.scripts);
   return pipeline::JudgedCollateOptions(witnesses, refs, findings, r.tolerance);
 }
 

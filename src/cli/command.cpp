@@ -4,7 +4,9 @@
 #include <iostream>
 #include <stdexcept>
 
+#include "cli/manual.hpp"
 #include "store/database.hpp"
+#include "support/data_dir.hpp"
 #include "support/input_error.hpp"
 
 namespace apograph::cli {
@@ -19,10 +21,36 @@ void PrintOverview(std::ostream& out) {
     name.resize(12, ' ');
     out << "  " << name << c.summary << "\n";
   }
-  out << "\nglobal option (before the command): --wait SECONDS  how long to wait for another\n"
-         "  process writing to the database (default 5)\n";
+  out << "\nglobal options (before the command):\n"
+         "  --wait SECONDS       how long to wait for another process writing to the\n"
+         "                       database (default 5)\n"
+         "  --zero-on-findings   exit 0 instead of 1 when a command succeeds with findings\n"
+         "                       (for scripts and make)\n"
+         "  -V, --version        the version and the data folder in use\n"
+         "  -h, --help           this overview\n";
   out << "\nexit codes: 0 success, 1 success with findings to look at,\n"
          "            2 bad input or usage (nothing written), 3 database or internal error\n";
+}
+
+void PrintVersion(std::ostream& out) {
+  out << "apograph " << kVersion << "\ndata folder: " << DataDir()
+      << " (APOGRAPH_DATA to change it)\n";
+}
+
+/// The options as --help shows them: positional arguments (`--action`,
+/// `--id`, `--words` ...) are plumbing that the usage names in its own words.
+po::options_description Visible(const po::options_description& options,
+                                const po::positional_options_description* positional) {
+  po::options_description visible("options");
+  for (const auto& option : options.options()) {
+    bool hidden = false;
+    for (unsigned i = 0; positional && !hidden && i < positional->max_total_count() && i < 16;
+         ++i) {
+      hidden = positional->name_for_position(i) == option->long_name();
+    }
+    if (!hidden) visible.add(option);
+  }
+  return visible;
 }
 
 }  // namespace
@@ -46,7 +74,7 @@ bool ParseOptions(const Command& command, const std::vector<std::string>& args,
     if (vm.count("help")) {
       io.out << "apograph " << command.name << ": " << command.summary << "\n\n"
              << command.usage << "\n\n"
-             << options << "\n";
+             << Visible(options, positional) << "\n";
       return true;
     }
     po::notify(vm);
@@ -121,8 +149,13 @@ int Dispatch(const std::vector<std::string>& args, Io& io) {
     PrintOverview(args.empty() ? io.err : io.out);
     return args.empty() ? kBadInput : kOk;
   }
-  if (args[0] == "--version") {
-    io.out << "apograph 0.1.0\n";
+  if (args[0] == "--version" || args[0] == "-V") {
+    PrintVersion(io.out);
+    return kOk;
+  }
+  // Written at build time into the manual page and the completion script.
+  if (args[0] == "--man-page" || args[0] == "--bash-completion") {
+    (args[0] == "--man-page" ? WriteManPage : WriteBashCompletion)(io.out);
     return kOk;
   }
   try {
@@ -130,6 +163,13 @@ int Dispatch(const std::vector<std::string>& args, Io& io) {
       SetWait(args.size() > 1 ? args[1] : "");
       if (args.size() < 3) throw InputError::ForOption("--wait", "expected a command after it");
       return Dispatch(std::vector<std::string>(args.begin() + 2, args.end()), io);
+    }
+    if (args[0] == "--zero-on-findings") {
+      if (args.size() < 2) {
+        throw InputError::ForOption("--zero-on-findings", "expected a command after it");
+      }
+      const int code = Dispatch(std::vector<std::string>(args.begin() + 1, args.end()), io);
+      return code == kFindings ? kOk : code;
     }
     const Command& command = FindCommand(args[0]);
     return command.run(std::vector<std::string>(args.begin() + 1, args.end()), io);

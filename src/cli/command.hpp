@@ -14,6 +14,9 @@
 
 namespace apograph::cli {
 
+/// The version `--version` and the manual page print.
+inline constexpr const char* kVersion = "0.1.0";
+
 /// Exit codes (listed in the README).
 enum ExitCode : int {
   kOk = 0,        ///< success, nothing to look at

@@ -19,21 +19,43 @@ struct RunScan {
   const Transcription& table;
   const ColumnValues& values;
   const ExplainOptions& options;
+  const ColumnContext& column;
   const DiffColumn& diffs;
   int places;
 
   const std::optional<Sexagesimal>& Value(std::size_t r) const {
     return table.rows[r].cells[static_cast<std::size_t>(values.column)].value;
   }
+  /// The copy's reading is the other witnesses' too.
+  bool AsOthers(std::size_t r) const {
+    return column.consensus[r] && Value(r) && AtPlaces(*Value(r), places) == *column.consensus[r];
+  }
+  /// The others agree on another reading.
+  bool Contradicted(std::size_t r) const {
+    return column.consensus[r] && Value(r) && AtPlaces(*Value(r), places) != *column.consensus[r];
+  }
+  /// Off the model; a small departure the others read too is the author's.
   bool Deviant(std::size_t r) const {
-    return std::isfinite(diffs.diff[r]) && std::fabs(diffs.diff[r]) > options.tolerance + 1e-9;
+    if (!std::isfinite(diffs.diff[r])) return false;
+    const int k = UnitsOff(diffs.diff[r], options.tolerance);
+    return k > 0 && !(AsOthers(r) && k <= column.author.typical);
   }
   bool Match(std::size_t r, int k) const {
     const std::ptrdiff_t j = static_cast<std::ptrdiff_t>(r) + k;
     if (j < 0 || j >= static_cast<std::ptrdiff_t>(values.computed.size())) return false;
     const auto& c = values.computed[static_cast<std::size_t>(j)];
     if (!std::isfinite(diffs.diff[r]) || !c) return false;
-    return std::fabs(DiffUnits(*Value(r), *c, places)) <= options.tolerance + 1e-9;
+    const auto& others = column.consensus[static_cast<std::size_t>(j)];
+    if (others && AtPlaces(*Value(r), places) == *others) return true;
+    const double off = std::fabs(DiffUnits(*Value(r), *c, places));
+    if (off <= options.tolerance + 1e-9) return true;
+    // The author's departure at row j (up to computational_units): near
+    // enough when the rows differ by much more than it (judgement: five
+    // times), so the slide still shows.
+    const auto& own = values.computed[r];
+    const double step = own ? std::fabs(DiffUnits(*c, *own, places)) : 0;
+    const double departure = std::floor(options.computational_units);
+    return off <= options.tolerance + departure + 1e-9 && step >= 5 * (departure + 1);
   }
   void Collect(int k, std::vector<RunCandidate>& out) const {
     const std::size_t n = table.rows.size();
@@ -71,9 +93,8 @@ Finding RunFinding(const RunScan& s, const RunCandidate& run) {
     if (from >= static_cast<std::ptrdiff_t>(run.first) &&
         from <= static_cast<std::ptrdiff_t>(run.last)) {
       cell.emendation = s.Value(static_cast<std::size_t>(from))->Rounded(s.places);
-    } else if (s.values.computed[r]) {
-      const auto& c = *s.values.computed[r];
-      cell.emendation = c.places() <= s.places ? c.Extended(s.places) : c.Rounded(s.places);
+    } else if (auto original = s.column.Original(r, s.values, s.options, s.places)) {
+      cell.emendation = original;
       ++supplied;
     }
     if (s.Deviant(r)) {
@@ -81,6 +102,7 @@ Finding RunFinding(const RunScan& s, const RunCandidate& run) {
       low = std::min(low, d);
       high = std::max(high, d);
       small = small && std::fabs(d) <= s.options.computational_units + 1e-9;
+      small = small && !s.Contradicted(r);  // the others read otherwise: not the author's
       const int sg = d > 0 ? 1 : -1;
       if (sign == 0) sign = sg;
       small = small && sg == sign;
@@ -92,6 +114,8 @@ Finding RunFinding(const RunScan& s, const RunCandidate& run) {
   const std::size_t to_last = run.last + static_cast<std::size_t>(run.shift);
   Explanation e;
   e.cls = SlipClass::kDisplacedRun;
+  // Judgement: two rows that match their neighbours' model values could be
+  // chance in a slowly changing column; each further row makes it less so.
   e.score = std::min(0.97, 0.8 + 0.05 * (run.deviant - 2));
   e.emendation = first.emendation;
   e.evidence = "the entries of " + first.arg + " to " + last.arg + " are the model's values of " +
@@ -106,7 +130,7 @@ Finding RunFinding(const RunScan& s, const RunCandidate& run) {
   if (small && high - low < 1 - 1e-9) {
     Explanation comp;
     comp.cls = SlipClass::kComputational;
-    comp.score = 0.85;
+    comp.score = 0.85;  // judgement: the author's run is the likelier story (see above)
     comp.evidence =
         "every entry of " + first.arg + " to " + last.arg + " departs from the model by at most " +
         std::to_string(static_cast<int>(s.options.computational_units)) +
@@ -125,11 +149,10 @@ Finding RunFinding(const RunScan& s, const RunCandidate& run) {
 }  // namespace
 
 std::vector<Finding> DisplacedRuns(const Transcription& table, const ColumnValues& values,
-                                   const NumeralScript& script, const ExplainOptions& options,
-                                   const DiffColumn& diffs, std::vector<bool>& claimed) {
-  (void)script;
+                                   const ExplainOptions& options, const ColumnContext& column,
+                                   std::vector<bool>& claimed) {
   const int places = table.columns[static_cast<std::size_t>(values.column)].places;
-  RunScan scan{table, values, options, diffs, places};
+  RunScan scan{table, values, options, column, column.diffs, places};
   std::vector<RunCandidate> candidates;
   for (int k = 1; k <= options.max_shift; ++k) {
     scan.Collect(k, candidates);

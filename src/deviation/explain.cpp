@@ -18,6 +18,8 @@ const char* ToString(SlipClass cls) {
       return "place";
     case SlipClass::kDisplacedRun:
       return "displaced-run";
+    case SlipClass::kSystematic:
+      return "systematic";
     case SlipClass::kRepetition:
       return "repetition";
     case SlipClass::kBlank:
@@ -44,7 +46,7 @@ bool IsCopyingSlip(SlipClass cls) { return cls != SlipClass::kComputational; }
 namespace internal {
 
 Digits ToDigits(const Sexagesimal& value, int places) {
-  const Sexagesimal x = value.places() <= places ? value.Extended(places) : value.Rounded(places);
+  const Sexagesimal x = AtPlaces(value, places);
   Digits d;
   d.negative = x.negative();
   d.d.push_back(x.IntegerPart());
@@ -62,17 +64,46 @@ std::optional<Sexagesimal> FromDigits(const Digits& digits) {
   return Sexagesimal::FromParts(digits.negative, digits.d[0], fractions);
 }
 
-bool CellContext::Reaches(const Sexagesimal& reading) const {
-  return std::fabs(DiffUnits(reading, computed, places)) <= options->tolerance + 1e-9;
+Sexagesimal AtPlaces(const Sexagesimal& v, int places) {
+  return v.places() <= places ? v.Extended(places) : v.Rounded(places);
 }
 
-double CellContext::Closeness(const Sexagesimal& reading) const {
-  return reading == model_reading ? 1.0 : kNearOnly;
+int UnitsOff(double diff, double tolerance) {
+  const double off = std::fabs(diff) - tolerance;
+  return off <= 1e-9 ? 0 : static_cast<int>(std::ceil(off - 1e-9));
+}
+
+std::optional<double> CellContext::Fit(const Sexagesimal& reading) const {
+  double against = 1;
+  if (tradition_reading) {  // each witness reading otherwise would have had to change it
+    if (reading == *tradition_reading) return 1.0;
+    against = std::pow(kCorrection, std::clamp(tradition ? tradition->agree : 1, 1, 3));
+  }
+  const double dist = DiffUnits(reading, computed, places);
+  const int k = UnitsOff(dist, options->tolerance);
+  if (k == 0) return against * (reading == model_reading ? 1.0 : kNearOnly);
+  if (k > author->typical) return std::nullopt;
+  const double rate = author->Rate(k);
+  double fit = rate / 2 / (1 - rate);  // the author departs this way rather than not at all
+  if (std::isfinite(exact) &&
+      std::fabs(reading.ToDouble() - exact) * std::pow(60.0, places) <= 0.75 + 1e-9)
+    fit *= kBoundaryFactor;
+  return against * std::min(1.0, fit);
 }
 
 std::string CellContext::ModelClause(const Sexagesimal& reading) const {
-  std::string out = "the model gives " + ModelText(computed, exact, places) +
-                    ", the emended reading " + reading.ToString();
+  const std::string model = ModelText(computed, exact, places);
+  if (tradition_reading && reading == *tradition_reading) {
+    if (reading == model_reading) return "the other witnesses and the model (" + model + ") agree";
+    return "the other witnesses read " + reading.ToString() +
+           " (the author's departure from the model's " + model + ")";
+  }
+  std::string out = "the model gives " + model + ", the emended reading " + reading.ToString();
+  const int k = UnitsOff(DiffUnits(reading, computed, places), options->tolerance);
+  if (k > 0) {
+    return out + " is " + SignedUnits(DiffUnits(reading, model_reading, places)) +
+           " from it, within the author's usual departure";
+  }
   if (std::isfinite(exact)) {
     const double off = std::fabs(reading.ToDouble() - exact) * std::pow(60.0, places);
     if (off <= 0.5 + 1e-9) return out + " is within half a unit";
@@ -96,55 +127,73 @@ std::optional<Sexagesimal> CellContext::Neighbour(std::ptrdiff_t offset) const {
 
 namespace {
 
+using internal::Candidate;
 using internal::CellContext;
 
-std::vector<Explanation> Ranked(std::vector<Explanation> all) {
-  std::stable_sort(all.begin(), all.end(),
-                   [](const Explanation& a, const Explanation& b) { return a.score > b.score; });
-  std::vector<Explanation> out;
-  for (auto& e : all) {  // one candidate per (class, emendation)
-    const bool seen = std::any_of(out.begin(), out.end(), [&](const Explanation& o) {
-      return o.cls == e.cls && o.emendation.has_value() == e.emendation.has_value() &&
-             (!o.emendation || o.emendation->Identical(*e.emendation));
+bool SameStory(const Explanation& a, const Explanation& b) {
+  return a.cls == b.cls && a.emendation.has_value() == b.emendation.has_value() &&
+         (!a.emendation || a.emendation->Identical(*b.emendation));
+}
+
+/// Candidates grouped by story (class and reading: two paths to one reading
+/// are two ways of one story, their likelihoods add up), best first, scored
+/// as their share of `total`.
+std::vector<Explanation> Ranked(std::vector<Candidate> all, double total) {
+  std::stable_sort(all.begin(), all.end(), [](const Candidate& a, const Candidate& b) {
+    return a.likelihood > b.likelihood;
+  });
+  std::vector<Candidate> stories;
+  for (auto& c : all) {
+    auto same = std::find_if(stories.begin(), stories.end(), [&](const Candidate& o) {
+      return SameStory(o.explanation, c.explanation);
     });
-    if (!seen) out.push_back(std::move(e));
+    if (same == stories.end())
+      stories.push_back(std::move(c));
+    else
+      same->likelihood += c.likelihood;
+  }
+  std::stable_sort(stories.begin(), stories.end(), [](const Candidate& a, const Candidate& b) {
+    return a.likelihood > b.likelihood;
+  });
+  std::vector<Explanation> out;
+  for (auto& s : stories) {
+    s.explanation.score = total > 0 ? std::min(1.0, s.likelihood / total) : 0;
+    out.push_back(std::move(s.explanation));
   }
   return out;
 }
 
-Explanation Unexplained(const CellContext& c) {
-  Explanation e;
-  e.cls = SlipClass::kUnexplained;
-  char diff[32];
-  std::snprintf(diff, sizeof diff, "%+g", std::round(c.diff * 100) / 100);
-  e.evidence = "unexplained: the entry differs from the model (" +
-               internal::ModelText(c.computed, c.exact, c.places) + ") by " + diff +
-               " units, and no confusion of " + c.script->title() +
-               ", transposition, moved place or repeated neighbour reaches the model's value " +
-               internal::ToleranceWords(c.options->tolerance);
-  return e;
+/// A copy that reads the model's value where every other witness (two or
+/// more) reads the author's departure: its reading is its own, a slip that
+/// lands on the model's value. A modern edition may have recomputed it.
+bool AgainstTradition(const Transcription& table, const ColumnValues& values,
+                      const internal::ColumnContext& column, std::size_t row) {
+  if (!column.tradition_reading[row] || row >= values.tradition.size()) return false;
+  const TraditionCell& t = values.tradition[row];
+  return t.witnesses >= 2 && t.agree == t.witnesses &&
+         table.witness.Kind() != WitnessKind::kModernEdition;
 }
 
 }  // namespace
 
 namespace internal {
 
-Finding SingleFinding(const CellContext& c, const ColumnValues& values, const DiffColumn& diffs) {
-  std::vector<Explanation> all;
+Finding SingleFinding(const CellContext& c, const ColumnValues& values) {
+  std::vector<Candidate> all;
   for (auto* gen :
        {ConfusionCandidates, TranspositionCandidates, PlaceCandidates, RepetitionCandidates}) {
     auto found = gen(c);
     all.insert(all.end(), found.begin(), found.end());
   }
-  if (auto comp = ComputationalCandidate(c, diffs)) {
-    if (comp->score >= kSharedComputational) {
-      for (auto& e : all) e.score *= 0.5;  // shared departures are the author's
-    }
-    all.push_back(*comp);
-  }
-  if (all.empty()) all.push_back(Unexplained(c));
+  const bool slip_found = !all.empty();
+  if (auto author = AuthorCandidate(c)) all.push_back(*author);
+  const Candidate unexplained = UnexplainedCandidate(c);
+  double total = unexplained.likelihood + c.slip_rate * kOtherStories;
+  for (const auto& a : all) total += a.likelihood;
+  // "Unexplained" is listed only when no slip is: it is the story of last resort.
+  if (!slip_found) all.push_back(unexplained);
   Finding f = NewFinding(*c.table, values, c.places);
-  f.explanations = Ranked(std::move(all));
+  f.explanations = Ranked(std::move(all), total);
   f.cells.push_back(MakeCell(*c.table, values, c.row, c.places));
   if (IsCopyingSlip(f.best().cls)) f.cells.back().emendation = f.best().emendation;
   return f;
@@ -153,27 +202,38 @@ Finding SingleFinding(const CellContext& c, const ColumnValues& values, const Di
 }  // namespace internal
 
 std::vector<Finding> ExplainColumn(const Transcription& table, const ColumnValues& values,
-                                   const NumeralScript& script, const ExplainOptions& options) {
+                                   const NumeralScript& script, const ExplainOptions& options,
+                                   const std::vector<const NumeralScript*>& tradition_scripts) {
+  std::vector<const NumeralScript*> others;
+  for (const auto* s : tradition_scripts) {
+    const bool seen = std::any_of(others.begin(), others.end(),
+                                  [&](const NumeralScript* o) { return o->name() == s->name(); });
+    if (s && s->name() != script.name() && !seen) others.push_back(s);
+  }
   const std::size_t col = static_cast<std::size_t>(values.column);
   const int places = table.columns.at(col).places;
-  const internal::DiffColumn diffs = internal::Diffs(table, values, places);
+  const internal::ColumnContext column = internal::MeasureColumn(table, values, options, places);
   std::vector<bool> claimed(table.rows.size(), false);
-  std::vector<Finding> out =
-      internal::DisplacedRuns(table, values, script, options, diffs, claimed);
+  std::vector<Finding> out = internal::DisplacedRuns(table, values, options, column, claimed);
+  auto runs = internal::SystematicRuns(table, values, options, column, claimed);
+  out.insert(out.end(), runs.begin(), runs.end());
   for (std::size_t r = 0; r < table.rows.size() && r < values.computed.size(); ++r) {
     if (claimed[r] || !values.computed[r]) continue;
     const Cell& cell = table.rows[r].cells[col];
     if (cell.state != CellState::kRead) {
-      out.push_back(internal::MissingFinding(table, values, r, places, options));
+      out.push_back(internal::MissingFinding(table, values, column, r, places));
       continue;
     }
-    if (!std::isfinite(diffs.diff[r]) || std::fabs(diffs.diff[r]) <= options.tolerance + 1e-9)
+    const double d = column.diffs.diff[r];
+    if (!std::isfinite(d)) continue;
+    if (internal::UnitsOff(d, options.tolerance) == 0 &&
+        !AgainstTradition(table, values, column, r))
       continue;
-    CellContext c = internal::MakeContext(table, values, script, options, r, places);
-    c.diff = diffs.diff[r];
-    out.push_back(internal::SingleFinding(c, values, diffs));
+    auto c = internal::MakeContext(table, values, script, options, column, r, places);
+    c.other_scripts = &others;
+    out.push_back(internal::SingleFinding(c, values));
   }
-  internal::MergeComputationalRuns(out, options);
+  internal::MergeComputationalRuns(out);
   std::sort(out.begin(), out.end(), [](const Finding& a, const Finding& b) {
     return a.cells.front().row < b.cells.front().row;
   });

@@ -9,17 +9,22 @@
 /// practice applied) and, optionally, the model's exact value for the
 /// evidence. It knows nothing of the database or of how the model was chosen.
 ///
-/// Scores are in [0, 1]: prior(class) x strength, where the strength is the
-/// weight of the confusions used (from the script file), or how many rows a
-/// displaced run covers, or how small and how shared a departure is; a
-/// reading that lands on the model's reading exactly counts fully, one merely
-/// within the tolerance counts 0.8. The priors (see kPrior* in explain.cpp):
-/// displaced run 0.8-0.97, blank/illegible 0.95, repetition of a neighbouring
-/// entry 0.85, confusion 0.9 x weights, transposition 0.75 (0.3 outside
-/// positional scripts), place omitted 0.7 / moved 0.65 / added 0.6,
-/// a neighbour's place repeated 0.55, computational 0.25-0.85 (higher when
-/// neighbours share the departure or the exact value lies near a rounding
-/// boundary), unexplained 0.
+/// Every explanation is scored by evidence (src/deviation/scoring.hpp holds
+/// each constant with its basis): the likelihood of the story is how often a
+/// copyist makes that kind of slip (its share of all slips), times how likely
+/// this particular change is within the kind (which symbol of the entry, the
+/// weight of the confused pair in the witness's script, the size of the
+/// change), times how well the emended reading then fits: exactly (the model's
+/// reading, or the reading the other witnesses agree on), or within the
+/// author's typical departure from the model (then as likely as the author's
+/// departure there). The author's own departure is a story too (how often the
+/// author departs by that much, more when a neighbour shares it, when the exact
+/// value lies near a rounding boundary, or when the other witnesses read the
+/// same; far less when they read the model's value). A finding's score is the
+/// best story's share of all the stories told plus a constant share for the
+/// stories not thought of: in [0, 1], high when one story clearly wins.
+/// Slips that span rows (displaced runs, systematic runs) and blank or
+/// illegible cells carry fixed scores (see their files).
 
 #include <cstddef>
 #include <optional>
@@ -38,6 +43,7 @@ enum class SlipClass {
   kTransposition,  ///< the two digits of a place transposed (43 for 34)
   kPlace,          ///< a place omitted, added or moved (minutes written as seconds)
   kDisplacedRun,   ///< a run of entries slid by one or more rows (eye-skip)
+  kSystematic,     ///< one slip repeated over consecutive rows (a place dropped, a constant error)
   kRepetition,     ///< a neighbouring entry (or one of its places) repeated
   kBlank,          ///< nothing written
   kIllegible,      ///< written but not (fully) readable
@@ -46,13 +52,25 @@ enum class SlipClass {
 };
 
 /// Stable names used in JSON, CSV and the database: "confusion",
-/// "transposition", "place", "displaced-run", "repetition", "blank",
-/// "illegible", "computational", "unexplained".
+/// "transposition", "place", "displaced-run", "systematic", "repetition",
+/// "blank", "illegible", "computational", "unexplained".
 const char* ToString(SlipClass cls);
 std::optional<SlipClass> SlipClassFromString(const std::string& text);
 /// True for every class that is a copyist's doing (all but computational):
 /// those call for an emendation.
 bool IsCopyingSlip(SlipClass cls);
+
+/// What the other witnesses of the table read at one cell (the tradition's
+/// view, filled by the caller; see pipeline::ExplainTradition). Modern
+/// editions are left out: they may have recomputed the table.
+struct TraditionCell {
+  int witnesses = 0;  ///< other witnesses with a reading at this cell
+  int same = 0;       ///< of them, reading this witness's value
+  int model = 0;      ///< of them, reading the model's reading
+  /// The reading more than half of them share (at the column's places).
+  std::optional<Sexagesimal> consensus;
+  int agree = 0;  ///< of them, reading the consensus
+};
 
 /// The model's values for one column, row by row (same length as the table).
 struct ColumnValues {
@@ -63,13 +81,19 @@ struct ColumnValues {
   std::vector<std::optional<Sexagesimal>> computed;
   /// The model's exact values (NaN: none), quoted in the evidence; may be empty.
   std::vector<double> exact;
+  /// The other witnesses' readings, row by row; empty when the witness is
+  /// explained alone. With them, a departure the others share is the
+  /// author's, and one they do not share is a copyist's.
+  std::vector<TraditionCell> tradition;
 };
 
 struct ExplainOptions {
-  double tolerance = 0.5;          ///< units of the last place an entry may differ
-  int max_confusions = 2;          ///< symbol confusions combined in one explanation
-  int max_shift = 3;               ///< rows a displaced run may have slid
-  double computational_units = 2;  ///< departures up to this may be the author's
+  double tolerance = 0.5;  ///< units of the last place an entry may differ
+  int max_confusions = 2;  ///< symbol confusions combined in one explanation
+  int max_shift = 3;       ///< rows a displaced run may have slid
+  /// The author's typical departure is measured on the column (1 unit, or
+  /// 2 when the column shows enough 2-unit departures); never above this.
+  double computational_units = 2;
 };
 
 /// One candidate explanation.
@@ -105,9 +129,13 @@ struct Finding {
   std::string Note(const std::string& siglum) const;
 };
 
-/// Explains the deviations of one column, in row order.
+/// Explains the deviations of one column, in row order. `tradition_scripts`:
+/// the numeral scripts other witnesses of the tradition write; a slip may have
+/// been made by an ancestor writing one of them and inherited (their listed
+/// confusions are tried too, weighed down).
 std::vector<Finding> ExplainColumn(const Transcription& table, const ColumnValues& values,
-                                   const NumeralScript& script, const ExplainOptions& options = {});
+                                   const NumeralScript& script, const ExplainOptions& options = {},
+                                   const std::vector<const NumeralScript*>& tradition_scripts = {});
 
 /// Name of fractional place p of a column (0 -> "degrees" or "units" by the
 /// column's unit, 1 -> "minutes", 2 -> "seconds", 3 -> "thirds", ...).

@@ -8,20 +8,12 @@
 #include <vector>
 
 #include "deviation/explain.hpp"
+#include "deviation/scoring.hpp"
 
 namespace apograph::deviation::internal {
 
-// Scores: see the table in explain.hpp.
-constexpr double kPriorConfusion = 0.9;
-constexpr double kPriorTransposition = 0.75;
-constexpr double kPriorTranspositionOther = 0.3;
-constexpr double kPriorPlaceOmitted = 0.7;
-constexpr double kPriorPlaceMoved = 0.65;
-constexpr double kPriorPlaceAdded = 0.6;
-constexpr double kPriorRepetition = 0.85;
-constexpr double kPriorPlaceRepeated = 0.55;
-constexpr double kPriorBlank = 0.95;
-constexpr double kNearOnly = 0.8;  // within the tolerance but not the model's reading
+// Fixed scores of findings that are not ranked against alternatives.
+constexpr double kScoreBlank = 0.95;  // judgement: a blank or illegible cell is what it is
 
 /// A value as its places: d[0] the integer part, d[1..] the fractions.
 struct Digits {
@@ -31,12 +23,23 @@ struct Digits {
 Digits ToDigits(const Sexagesimal& value, int places);
 /// nullopt when a place is out of range (fractions 0..59, integer 0..999).
 std::optional<Sexagesimal> FromDigits(const Digits& digits);
+/// `value` at exactly `places` places (extended, or rounded).
+Sexagesimal AtPlaces(const Sexagesimal& value, int places);
+
+/// One story for a deviant cell, with its unnormalised likelihood (the
+/// copy's slip rate, or the author's departure rate, times the rest).
+struct Candidate {
+  Explanation explanation;
+  double likelihood = 0;
+};
 
 /// Everything a generator needs about one deviant cell.
 struct CellContext {
   const Transcription* table = nullptr;
   const NumeralScript* script = nullptr;
   const ExplainOptions* options = nullptr;
+  const AuthorProfile* author = nullptr;
+  const TraditionCell* tradition = nullptr;  // null: explained alone
   std::size_t row = 0;
   int column = 0;
   int places = 0;
@@ -44,23 +47,51 @@ struct CellContext {
   Sexagesimal tabulated;      // at the column's places
   Sexagesimal computed;       // as given
   Sexagesimal model_reading;  // computed at the column's places
-  double exact = NAN;         // NaN when not given
-  double diff = 0;            // tabulated - computed, units
+  /// The reading the other witnesses agree on, when it differs from this
+  /// copy's and lies within the author's departure of the model: the
+  /// original most likely had it.
+  std::optional<Sexagesimal> tradition_reading;
+  double exact = NAN;             // NaN when not given
+  double diff = 0;                // tabulated - computed, units
+  double slip_rate = 0;           // the copy's share of entries beyond the author's departure
+  int symbols = 1;                // symbols written in the copy's entry
+  bool shared_neighbour = false;  // a neighbour departs the same way, within the author's departure
+  bool shared = false;            // every other witness reads this copy's value
+  const std::vector<bool>* deviant = nullptr;  // rows beyond the author's departure
+  /// Other scripts of the tradition, whose listed confusions an ancestor may
+  /// have made (may be null).
+  const std::vector<const NumeralScript*>* other_scripts = nullptr;
 
-  /// Within the tolerance of the model's value.
-  bool Reaches(const Sexagesimal& reading) const;
-  /// 1 when the reading is the model's reading, kNearOnly otherwise.
-  double Closeness(const Sexagesimal& reading) const;
+  /// The reading the original most likely had: the tradition's, else the model's.
+  const Sexagesimal& Expected() const {
+    return tradition_reading ? *tradition_reading : model_reading;
+  }
+  /// How well `reading` fits as the original: 1 when it is the expected
+  /// reading; the author's departure rate (and boundary) when it lies within
+  /// the author's typical departure of the model; nullopt beyond.
+  std::optional<double> Fit(const Sexagesimal& reading) const;
   /// "the model gives 0;41,12, the emended reading 0;41 is within half a unit".
   std::string ModelClause(const Sexagesimal& reading) const;
   /// The tabulated value of another row of this column, when read.
   std::optional<Sexagesimal> Neighbour(std::ptrdiff_t offset) const;
+  /// A slip's likelihood: the copy's slip rate x the class's share x the
+  /// chance of this change within the class x the fit of the reading.
+  double SlipLikelihood(double share, double change, double fit) const {
+    return slip_rate * share * change * fit;
+  }
 };
 
-std::vector<Explanation> ConfusionCandidates(const CellContext& c);
-std::vector<Explanation> TranspositionCandidates(const CellContext& c);
-std::vector<Explanation> PlaceCandidates(const CellContext& c);
-std::vector<Explanation> RepetitionCandidates(const CellContext& c);
+/// Symbol slips: the script's listed confusions (one or two), or one symbol
+/// changed, dropped or added outside the lists (symbol_slips.cpp).
+std::vector<Candidate> ConfusionCandidates(const CellContext& c);
+std::vector<Candidate> TranspositionCandidates(const CellContext& c);
+std::vector<Candidate> PlaceCandidates(const CellContext& c);
+std::vector<Candidate> RepetitionCandidates(const CellContext& c);
+/// The author's own departure (nullopt beyond the author's typical departure).
+std::optional<Candidate> AuthorCandidate(const CellContext& c);
+/// No listed slip: the expected reading proposed, the change described by its
+/// places and size.
+Candidate UnexplainedCandidate(const CellContext& c);
 
 /// Tabulated - computed per row in units (NaN where either is missing).
 struct DiffColumn {
@@ -68,31 +99,65 @@ struct DiffColumn {
 };
 DiffColumn Diffs(const Transcription& table, const ColumnValues& values, int places);
 
-/// Score from which a computational candidate counts as "shared by its
-/// neighbours" and halves the copying candidates.
-constexpr double kSharedComputational = 0.7;
+/// What the column tells about its author and its copyist.
+struct ColumnContext {
+  DiffColumn diffs;
+  AuthorProfile author;
+  double slip_rate = kSlipRatePrior;
+  /// Rows departing beyond the author's typical departure (and not read
+  /// so by every other witness within computational_units).
+  std::vector<bool> deviant;
+  /// Rows whose reading the other witnesses read too (all but perhaps one in
+  /// four: a corrector, or a slip of its own).
+  std::vector<bool> shared;
+  /// Rows whose reading every other witness (two or more) contradicts with
+  /// one reading of their own.
+  std::vector<bool> contradicted;
+  /// Per row, the reading the other witnesses agree on (more than half of
+  /// them), at the column's places, when they have one.
+  std::vector<std::optional<Sexagesimal>> consensus;
+  /// Per row, that reading when it differs from this copy's and lies within
+  /// the author's departure of the model: the original most likely had it.
+  std::vector<std::optional<Sexagesimal>> tradition_reading;
+  /// The original's most likely reading of a row: the tradition's when it
+  /// lies within the author's departure of the model, else the model's.
+  std::optional<Sexagesimal> Original(std::size_t row, const ColumnValues& values,
+                                      const ExplainOptions& options, int places) const;
+};
+ColumnContext MeasureColumn(const Transcription& table, const ColumnValues& values,
+                            const ExplainOptions& options, int places);
+/// Units beyond the exact landing: 0 within the tolerance, 1 for one more unit...
+int UnitsOff(double diff, double tolerance);
 
 CellContext MakeContext(const Transcription& table, const ColumnValues& values,
-                        const NumeralScript& script, const ExplainOptions& options, std::size_t row,
-                        int places);
+                        const NumeralScript& script, const ExplainOptions& options,
+                        const ColumnContext& column, std::size_t row, int places);
 FindingCell MakeCell(const Transcription& table, const ColumnValues& values, std::size_t row,
                      int places);
 Finding NewFinding(const Transcription& table, const ColumnValues& values, int places);
 
-std::optional<Explanation> ComputationalCandidate(const CellContext& c, const DiffColumn& diffs);
-Finding SingleFinding(const CellContext& c, const ColumnValues& values, const DiffColumn& diffs);
+Finding SingleFinding(const CellContext& c, const ColumnValues& values);
 /// A blank, illegible or partly read cell.
-Finding MissingFinding(const Transcription& table, const ColumnValues& values, std::size_t row,
-                       int places, const ExplainOptions& options);
+Finding MissingFinding(const Transcription& table, const ColumnValues& values,
+                       const ColumnContext& column, std::size_t row, int places);
 /// Runs of entries slid by rows; marks the rows they cover in `claimed`.
 std::vector<Finding> DisplacedRuns(const Transcription& table, const ColumnValues& values,
-                                   const NumeralScript& script, const ExplainOptions& options,
-                                   const DiffColumn& diffs, std::vector<bool>& claimed);
+                                   const ExplainOptions& options, const ColumnContext& column,
+                                   std::vector<bool>& claimed);
+/// One slip repeated over consecutive rows (a place dropped, moved or
+/// doubled; a place held at one value; a constant error); marks the rows.
+std::vector<Finding> SystematicRuns(const Transcription& table, const ColumnValues& values,
+                                    const ExplainOptions& options, const ColumnContext& column,
+                                    std::vector<bool>& claimed);
 /// Joins neighbouring computational findings of one sign into one finding.
-void MergeComputationalRuns(std::vector<Finding>& findings, const ExplainOptions& options);
+void MergeComputationalRuns(std::vector<Finding>& findings);
 
 /// "within half a unit", "within 1 unit", "within 2 units".
 std::string ToleranceWords(double tolerance);
+/// "+1", "-2.5".
+std::string Signed(double units);
+/// "+1 unit", "-2 units".
+std::string SignedUnits(double units);
 /// The model's value as quoted in evidence: exact at one more place when
 /// known, else the computed value.
 std::string ModelText(const Sexagesimal& computed, double exact, int places);
@@ -101,5 +166,8 @@ std::string StepWords(const ConfusionStep& step, const NumeralScript& script);
 /// "tens of minutes" (positional scripts, one digit changed) or "minutes".
 std::string DigitPlaceWords(const NumeralScript& script, int from, int to, int place,
                             const std::string& unit);
+/// The symbols writing place `place` of a value: a fractional place of a
+/// positional script as two digits ("05").
+std::vector<std::string> PlaceSymbols(const NumeralScript& script, std::int64_t value, int place);
 
 }  // namespace apograph::deviation::internal

@@ -1,5 +1,5 @@
-// Findings that span rows (displaced runs, smooth computational runs), blank
-// and illegible cells, and the author's small departures.
+// What a column tells about its author and copyist, the cells of a finding,
+// blank and illegible cells, the author's departures and smooth runs.
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
@@ -9,13 +9,48 @@
 namespace apograph::deviation::internal {
 namespace {
 
+double Shrunk(int count, int entries, double prior) {
+  return (count + prior * kPriorEntries) / (entries + kPriorEntries);
+}
+
 const Cell& CellAt(const Transcription& t, std::size_t row, int column) {
   return t.rows[row].cells[static_cast<std::size_t>(column)];
 }
 
-Sexagesimal AtPlaces(const Sexagesimal& v, int places) {
-  return v.places() <= places ? v.Extended(places) : v.Rounded(places);
+const TraditionCell* TraditionAt(const ColumnValues& values, std::size_t row) {
+  return row < values.tradition.size() && values.tradition[row].witnesses > 0
+             ? &values.tradition[row]
+             : nullptr;
 }
+
+/// Departures of 1 and 2 units in the table's readings (the others'
+/// consensus where there is one, else this copy's): the author's habit.
+AuthorProfile MeasureAuthor(const ColumnValues& values, const ExplainOptions& options,
+                            const DiffColumn& diffs, int places) {
+  int compared = 0, one = 0, two = 0;
+  for (std::size_t r = 0; r < diffs.diff.size() && r < values.computed.size(); ++r) {
+    double d = diffs.diff[r];
+    const TraditionCell* t = TraditionAt(values, r);
+    if (t && t->consensus && values.computed[r])
+      d = DiffUnits(*t->consensus, *values.computed[r], places);
+    if (!std::isfinite(d)) continue;
+    ++compared;
+    const int k = UnitsOff(d, options.tolerance);
+    one += k == 1;
+    two += k == 2;
+  }
+  AuthorProfile a;
+  a.rate1 = Shrunk(one, compared, kAuthorRate1Prior);
+  a.rate2 = Shrunk(two, compared, kAuthorRate2Prior);
+  if (compared == 0) return a;
+  const bool twos = two >= 2 && static_cast<double>(two) / compared >= kAuthorTwoUnitsShare;
+  a.typical = std::min(twos ? 2 : 1, static_cast<int>(std::floor(options.computational_units)));
+  return a;
+}
+
+std::string UnitsWord(double units) { return std::fabs(units) == 1 ? " unit" : " units"; }
+
+}  // namespace
 
 std::string Signed(double units) {
   char buf[32];
@@ -23,9 +58,7 @@ std::string Signed(double units) {
   return buf;
 }
 
-std::string UnitsWord(double units) { return std::fabs(units) == 1 ? " unit" : " units"; }
-
-}  // namespace
+std::string SignedUnits(double units) { return Signed(units) + UnitsWord(units); }
 
 DiffColumn Diffs(const Transcription& table, const ColumnValues& values, int places) {
   DiffColumn out;
@@ -38,13 +71,68 @@ DiffColumn Diffs(const Transcription& table, const ColumnValues& values, int pla
   return out;
 }
 
+ColumnContext MeasureColumn(const Transcription& table, const ColumnValues& values,
+                            const ExplainOptions& options, int places) {
+  ColumnContext out;
+  out.diffs = Diffs(table, values, places);
+  out.author = MeasureAuthor(values, options, out.diffs, places);
+  const std::size_t n = table.rows.size();
+  out.deviant.assign(n, false);
+  out.shared.assign(n, false);
+  out.contradicted.assign(n, false);
+  out.tradition_reading.assign(n, std::nullopt);
+  out.consensus.assign(n, std::nullopt);
+  int compared = 0, deviant = 0;
+  for (std::size_t r = 0; r < n; ++r) {
+    const TraditionCell* t = TraditionAt(values, r);
+    // Shared: by every other witness but perhaps one in four (a corrector,
+    // or a slip of its own there); judgement.
+    out.shared[r] = t && t->same > 0 && 4 * t->same >= 3 * t->witnesses;
+    out.contradicted[r] =
+        t && t->consensus && t->witnesses >= 2 && t->agree == t->witnesses && t->same == 0;
+    const double d = out.diffs.diff[r];
+    if (std::isfinite(d)) {
+      ++compared;
+      const int k = UnitsOff(d, options.tolerance);
+      // A departure every other witness reads too stays the author's up to
+      // computational_units, whatever the column's habit.
+      out.deviant[r] = k > out.author.typical &&
+                       !(out.shared[r] && k <= std::floor(options.computational_units));
+      deviant += out.deviant[r];
+    }
+    if (!t || !t->consensus || r >= values.computed.size() || !values.computed[r]) continue;
+    const Sexagesimal consensus = AtPlaces(*t->consensus, places);
+    out.consensus[r] = consensus;
+    const Cell& cell = CellAt(table, r, values.column);
+    if (cell.value && AtPlaces(*cell.value, places) == consensus) continue;
+    const int k = UnitsOff(DiffUnits(consensus, *values.computed[r], places), options.tolerance);
+    if (k <= out.author.typical) out.tradition_reading[r] = consensus;
+  }
+  out.slip_rate = std::min(kSlipRateCeiling, Shrunk(deviant, compared, kSlipRatePrior));
+  return out;
+}
+
+std::optional<Sexagesimal> ColumnContext::Original(std::size_t row, const ColumnValues& values,
+                                                   const ExplainOptions& options,
+                                                   int places) const {
+  if (row >= values.computed.size() || !values.computed[row]) return std::nullopt;
+  if (consensus[row]) {
+    const int k =
+        UnitsOff(DiffUnits(*consensus[row], *values.computed[row], places), options.tolerance);
+    if (k <= author.typical) return consensus[row];
+  }
+  return AtPlaces(*values.computed[row], places);
+}
+
 CellContext MakeContext(const Transcription& table, const ColumnValues& values,
-                        const NumeralScript& script, const ExplainOptions& options, std::size_t row,
-                        int places) {
+                        const NumeralScript& script, const ExplainOptions& options,
+                        const ColumnContext& column, std::size_t row, int places) {
   CellContext c;
   c.table = &table;
   c.script = &script;
   c.options = &options;
+  c.author = &column.author;
+  c.tradition = TraditionAt(values, row);
   c.row = row;
   c.column = values.column;
   c.places = places;
@@ -53,7 +141,26 @@ CellContext MakeContext(const Transcription& table, const ColumnValues& values,
   if (cell.value) c.tabulated = AtPlaces(*cell.value, places);
   c.computed = *values.computed[row];
   c.model_reading = AtPlaces(c.computed, places);
+  c.tradition_reading = column.tradition_reading[row];
   if (row < values.exact.size()) c.exact = values.exact[row];
+  c.diff = column.diffs.diff[row];
+  c.slip_rate = column.slip_rate;
+  c.deviant = &column.deviant;
+  c.shared = column.shared[row];
+  const Digits digits = ToDigits(c.tabulated, places);
+  c.symbols = 0;
+  for (std::size_t p = 0; p < digits.d.size(); ++p) {
+    if (digits.d[p] < 1000)
+      c.symbols += static_cast<int>(PlaceSymbols(script, digits.d[p], static_cast<int>(p)).size());
+  }
+  c.symbols = std::max(1, c.symbols);
+  for (std::ptrdiff_t off : {-1, 1}) {
+    const std::ptrdiff_t j = static_cast<std::ptrdiff_t>(row) + off;
+    if (j < 0 || j >= static_cast<std::ptrdiff_t>(column.diffs.diff.size())) continue;
+    const double d = column.diffs.diff[static_cast<std::size_t>(j)];
+    const int k = std::isfinite(d) ? UnitsOff(d, options.tolerance) : 0;
+    if (k > 0 && k <= column.author.typical && (d > 0) == (c.diff > 0)) c.shared_neighbour = true;
+  }
   return c;
 }
 
@@ -86,71 +193,109 @@ Finding NewFinding(const Transcription& table, const ColumnValues& values, int p
   return f;
 }
 
-std::optional<Explanation> ComputationalCandidate(const CellContext& c, const DiffColumn& diffs) {
-  const double tol = c.options->tolerance, limit = c.options->computational_units;
-  const double ad = std::fabs(c.diff);
-  if (ad > limit + 1e-9) return std::nullopt;
-  bool shared = false;
-  for (std::ptrdiff_t off : {-1, 1}) {
-    const std::ptrdiff_t j = static_cast<std::ptrdiff_t>(c.row) + off;
-    if (j < 0 || j >= static_cast<std::ptrdiff_t>(diffs.diff.size())) continue;
-    const double d = diffs.diff[static_cast<std::size_t>(j)];
-    if (std::isfinite(d) && std::fabs(d) > tol + 1e-9 && std::fabs(d) <= limit + 1e-9 &&
-        (d > 0) == (c.diff > 0)) {
-      shared = true;
-    }
-  }
-  bool boundary = false;
-  if (std::isfinite(c.exact) && ad <= 1 + 1e-9) {
-    boundary = std::fabs(c.tabulated.ToDouble() - c.exact) * std::pow(60.0, c.places) <= 0.75;
-  }
-  Explanation e;
-  e.cls = SlipClass::kComputational;
-  const std::string what = "a departure of " + Signed(c.diff) + UnitsWord(c.diff);
-  const std::string model = "the model gives " + ModelText(c.computed, c.exact, c.places);
-  if (shared) {
-    e.score = ad <= 1 + 1e-9 ? 0.85 : kSharedComputational;
-    e.evidence =
-        what +
-        ", shared by a neighbouring entry: the author's computation, not a copyist's slip; " +
-        model + "; keep the reading";
-  } else if (boundary) {
-    e.score = 0.65;  // below kSharedComputational: does not weaken the slips
-    e.evidence =
-        what + "; " + model +
-        ", close to the rounding boundary, so a slightly different computation by the author "
-        "explains it; keep the reading";
-  } else {
-    e.score = ad <= 1 + 1e-9 ? 0.45 : 0.25;
-    e.evidence = "a small " + what.substr(2) + ", perhaps the author's computation; " + model;
-  }
-  return e;
+namespace {
+
+std::string TraditionWords(const TraditionCell& t) {
+  return t.witnesses == 1 ? "the other witness"
+                          : "every other witness (" + std::to_string(t.witnesses) + ")";
 }
 
-Finding MissingFinding(const Transcription& table, const ColumnValues& values, std::size_t row,
-                       int places, const ExplainOptions& options) {
-  (void)options;
+}  // namespace
+
+std::optional<Candidate> AuthorCandidate(const CellContext& c) {
+  const int k = UnitsOff(c.diff, c.options->tolerance);
+  const bool size =
+      k <= c.author->typical || (c.shared && k <= std::floor(c.options->computational_units));
+  if (k < 1 || !size) return std::nullopt;
+  double likelihood = c.author->Rate(k) / 2;  // one sign of the two
+  const bool boundary =
+      std::isfinite(c.exact) && k == 1 &&
+      std::fabs(c.tabulated.ToDouble() - c.exact) * std::pow(60.0, c.places) <= 0.75 + 1e-9;
+  if (boundary) likelihood *= kBoundaryFactor;
+  if (c.shared_neighbour) likelihood *= kNeighbourFactor;
+  const TraditionCell* t = c.tradition;
+  const bool shared = c.shared;
+  const bool against = t && !shared && t->model > 0;
+  if (shared) likelihood *= kTraditionSharesFactor;
+  if (against)
+    likelihood *= std::pow(k == 1 ? kCorrectionOneUnit : kCorrectionLarger, std::min(t->model, 2));
+  Candidate out;
+  Explanation& e = out.explanation;
+  e.cls = SlipClass::kComputational;
+  const std::string what = "a departure of " + SignedUnits(c.diff);
+  const std::string model = "the model gives " + ModelText(c.computed, c.exact, c.places);
+  if (shared) {
+    e.evidence = what + ", read by " + TraditionWords(*t) +
+                 " too: the author's computation, not a copyist's slip; " + model +
+                 "; keep the reading";
+  } else if (against) {
+    e.evidence = "perhaps the author's " + what.substr(2) + ", though " + std::to_string(t->model) +
+                 " of the " + std::to_string(t->witnesses) + " other witnesses read the model's " +
+                 c.model_reading.ToString() + "; " + model;
+  } else if (c.shared_neighbour) {
+    e.evidence = what +
+                 ", shared by a neighbouring entry: the author's computation, not a copyist's "
+                 "slip; " +
+                 model + "; keep the reading";
+  } else if (boundary) {
+    e.evidence = what + "; " + model +
+                 ", close to the rounding boundary, so a slightly different computation by the "
+                 "author explains it; keep the reading";
+  } else {
+    e.evidence = "a small " + what.substr(2) + ", perhaps the author's computation; " + model;
+  }
+  out.likelihood = likelihood;
+  return out;
+}
+
+Candidate UnexplainedCandidate(const CellContext& c) {
+  Candidate out;
+  Explanation& e = out.explanation;
+  e.cls = SlipClass::kUnexplained;
+  const Sexagesimal& expected = c.Expected();
+  e.emendation = expected;
+  const Digits copy = ToDigits(c.tabulated, c.places), want = ToDigits(expected, c.places);
+  std::string where;
+  for (std::size_t p = 0; p < copy.d.size() && p < want.d.size(); ++p) {
+    if (copy.d[p] != want.d[p])
+      where += (where.empty() ? "" : ", ") + PlaceName(static_cast<int>(p), c.unit);
+  }
+  if (copy.negative != want.negative) where += (where.empty() ? "" : ", ") + std::string("sign");
+  e.evidence = "no listed slip reaches it: the entry differs from the model (" +
+               ModelText(c.computed, c.exact, c.places) + ") by " + SignedUnits(c.diff) +
+               (where.empty() ? "" : ", in the " + where) + "; " +
+               (c.tradition_reading ? "the reading the other witnesses agree on, "
+                                    : "the model's reading, ") +
+               expected.ToString() + ", proposed (a slip outside the lists of " +
+               c.script->title() + ")";
+  out.likelihood = c.SlipLikelihood(kShareOther, kOtherOutcome, 1);
+  return out;
+}
+
+Finding MissingFinding(const Transcription& table, const ColumnValues& values,
+                       const ColumnContext& column, std::size_t row, int places) {
   const Cell& cell = CellAt(table, row, values.column);
   Finding f = NewFinding(table, values, places);
   f.cells.push_back(MakeCell(table, values, row, places));
   Explanation e;
   e.cls = cell.state == CellState::kBlank ? SlipClass::kBlank : SlipClass::kIllegible;
-  e.score = kPriorBlank;
-  e.emendation = AtPlaces(*values.computed[row], places);
+  e.score = kScoreBlank;
+  const auto& tradition = column.tradition_reading[row];
+  e.emendation = tradition ? *tradition : AtPlaces(*values.computed[row], places);
   const std::string what = cell.state == CellState::kBlank ? "nothing written in the witness"
                            : cell.state == CellState::kPartial
                                ? "partly illegible in the witness ('" + cell.raw + "')"
                                : "illegible in the witness ('" + cell.raw + "')";
   const double exact = row < values.exact.size() ? values.exact[row] : NAN;
   e.evidence = what + "; the model gives " + ModelText(*values.computed[row], exact, places) +
-               ", supplied as " + e.emendation->ToString();
+               (tradition ? ", the other witnesses read " : ", supplied as ") +
+               e.emendation->ToString();
   f.cells.back().emendation = e.emendation;
   f.explanations.push_back(std::move(e));
   return f;
 }
 
-void MergeComputationalRuns(std::vector<Finding>& findings, const ExplainOptions& options) {
-  (void)options;
+void MergeComputationalRuns(std::vector<Finding>& findings) {
   std::sort(findings.begin(), findings.end(), [](const Finding& a, const Finding& b) {
     return a.cells.front().row < b.cells.front().row;
   });
@@ -168,7 +313,7 @@ void MergeComputationalRuns(std::vector<Finding>& findings, const ExplainOptions
         for (const auto& c : last.cells)
           diffs += (diffs.empty() ? "" : ", ") + Signed(c.diff_units);
         Explanation& e = last.explanations.front();
-        e.score = std::max(e.score, 0.85);
+        e.score = std::max(e.score, f.best().score);
         e.evidence =
             std::to_string(last.cells.size()) + " consecutive entries depart from the model by " +
             diffs +

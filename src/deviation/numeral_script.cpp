@@ -252,4 +252,14 @@ NumeralScript FindNumeralScript(const std::string& name, const std::string& dir)
   return LoadNumeralScript(path);
 }
 
+std::string ScriptNameFor(const WitnessInfo& witness) {
+  const bool printed = witness.Kind() != WitnessKind::kManuscript;
+  if (printed && (witness.script.empty() || witness.script == "hindu-arabic")) return "printed";
+  return witness.script.empty() ? "hindu-arabic" : witness.script;
+}
+
+NumeralScript FindWitnessScript(const WitnessInfo& witness, const std::string& dir) {
+  return FindNumeralScript(ScriptNameFor(witness), dir);
+}
+
 }  // namespace apograph::deviation

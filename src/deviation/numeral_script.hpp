@@ -15,6 +15,8 @@
 #include <string_view>
 #include <vector>
 
+#include "edition/transcription.hpp"
+
 namespace apograph::deviation {
 
 /// How the symbols of a place combine.
@@ -71,6 +73,22 @@ class NumeralScript {
   std::string WriteText(int value) const;
   /// The value of a written place, when it is a regular writing of one.
   std::optional<int> Read(const std::vector<std::string>& symbols) const;
+  /// Every regular way of writing `value`: Write(value), and for Roman
+  /// numerals also the additive form many hands use (19 as XVIIII beside
+  /// XIX).
+  std::vector<std::vector<std::string>> Writings(int value) const;
+  /// The value a reader takes from any sequence of the script's symbols,
+  /// regular or not: digits read positionally, letters summed, Roman symbols
+  /// summed with a smaller one before a larger one subtracted. So a slip that
+  /// leaves an irregular writing is still read (Hebrew כח 28 with its כ read
+  /// as ב gives בח, read 10). nullopt for an unknown symbol or nothing.
+  std::optional<int> ValueOf(const std::vector<std::string>& symbols) const;
+  /// The symbols' values summed (how some readers take an irregular Roman
+  /// writing such as "ic" for 101); nullopt for an unknown symbol, nothing, or
+  /// a positional script.
+  std::optional<int> SumOf(const std::vector<std::string>& symbols) const;
+  /// Every symbol of the script (the zero sign included).
+  std::vector<std::string> Glyphs() const;
 
   /// The originals from which a copy reading `copy` is reached by one (or, with
   /// max_steps = 2, two) confusions, with values in [0, limit). Each original
@@ -78,6 +96,19 @@ class NumeralScript {
   /// Example (hindu-arabic): copy 41 -> original 44 via 4 read as 1 if the file
   /// lists that confusion.
   std::vector<PlaceVariant> OriginalsOf(int copy, int limit, int max_steps = 1) const;
+
+  /// The weight of the listed confusion writing `written` where `intended`
+  /// was meant (either may be "" for a dropped or added symbol); 0 when the
+  /// script does not list it.
+  double ListedWeight(const std::string& intended, const std::string& written) const;
+  /// The mean, over the script's symbols, of the total weight of the
+  /// confusions that start from a symbol: what a listed confusion's weight is
+  /// measured against when its likelihood is computed.
+  double MeanConfusionWeight() const;
+  /// How many symbols may stand in one slot of a written place (every
+  /// symbol of the script): a slip outside the lists is one of
+  /// `SlotSize() - 1` wrong symbols.
+  int SlotSize() const;
 
  private:
   friend NumeralScript ParseNumeralScript(std::string_view, const std::string&);
@@ -129,6 +160,17 @@ std::string DefaultScriptDir();
 /// Loads `<dir>/<name>.script`; an empty name means hindu-arabic. InputError
 /// names the option `--scripts`/the witness's script when the file is missing.
 NumeralScript FindNumeralScript(const std::string& name,
+                                const std::string& dir = DefaultScriptDir());
+
+/// The script a witness's slips are read in: the one it declares; but a
+/// print or a modern edition that declares Hindu-Arabic digits, or nothing,
+/// is read in `printed` (a typesetter's and a recognition program's slips
+/// are not a scribe's); a manuscript that declares nothing, in hindu-arabic.
+/// Example: {kind "print", script ""} -> "printed".
+std::string ScriptNameFor(const WitnessInfo& witness);
+
+/// FindNumeralScript(ScriptNameFor(witness), dir).
+NumeralScript FindWitnessScript(const WitnessInfo& witness,
                                 const std::string& dir = DefaultScriptDir());
 
 }  // namespace apograph::deviation

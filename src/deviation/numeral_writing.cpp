@@ -159,4 +159,94 @@ std::vector<PlaceVariant> NumeralScript::OriginalsOf(int copy, int limit, int ma
   return out;
 }
 
+double NumeralScript::ListedWeight(const std::string& intended, const std::string& written) const {
+  double best = 0;
+  for (const auto& c : confusions_) {
+    if (c.intended == intended && c.written == written) best = std::max(best, c.weight);
+  }
+  return best;
+}
+
+double NumeralScript::MeanConfusionWeight() const {
+  double total = 0;
+  for (const auto& c : confusions_) total += c.weight;
+  const bool zero_declared = std::any_of(symbols_.begin(), symbols_.end(),
+                                         [&](const Symbol& s) { return s.glyph == zero_; });
+  const std::size_t symbols = symbols_.size() + (zero_.empty() || zero_declared ? 0 : 1);
+  return symbols == 0 || total == 0 ? 1 : total / static_cast<double>(symbols);
+}
+
+int NumeralScript::SlotSize() const { return static_cast<int>(Glyphs().size()); }
+
+std::vector<std::string> NumeralScript::Glyphs() const {
+  std::vector<std::string> out;
+  for (const auto& s : symbols_) {
+    if (std::find(out.begin(), out.end(), s.glyph) == out.end()) out.push_back(s.glyph);
+  }
+  if (!zero_.empty() && std::find(out.begin(), out.end(), zero_) == out.end()) out.push_back(zero_);
+  return out;
+}
+
+std::vector<std::vector<std::string>> NumeralScript::Writings(int value) const {
+  std::vector<std::vector<std::string>> out = {Write(value)};
+  if (writing_ != Writing::kRoman || value <= 0) return out;
+  std::vector<std::string> additive;  // largest symbols first, never subtracting
+  int rest = value;
+  std::vector<std::pair<int, std::string>> by_value;
+  for (const auto& s : symbols_) {
+    if (s.value > 0) by_value.emplace_back(s.value, s.glyph);
+  }
+  std::sort(by_value.rbegin(), by_value.rend());
+  for (const auto& [v, g] : by_value) {
+    while (rest >= v) {
+      additive.push_back(g);
+      rest -= v;
+    }
+  }
+  if (rest == 0 && additive != out.front()) out.push_back(additive);
+  return out;
+}
+
+std::optional<int> NumeralScript::SumOf(const std::vector<std::string>& symbols) const {
+  if (symbols.empty() || writing_ == Writing::kPositional) return std::nullopt;
+  int total = 0;
+  for (const auto& g : symbols) {
+    if (g == zero_) continue;
+    auto it = std::find_if(symbols_.begin(), symbols_.end(),
+                           [&](const Symbol& s) { return s.glyph == g; });
+    if (it == symbols_.end()) return std::nullopt;
+    total += it->value;
+  }
+  return total;
+}
+
+std::optional<int> NumeralScript::ValueOf(const std::vector<std::string>& symbols) const {
+  if (symbols.empty()) return std::nullopt;
+  std::vector<int> values;
+  for (const auto& g : symbols) {
+    if (g == zero_) {
+      values.push_back(0);
+      continue;
+    }
+    auto it = std::find_if(symbols_.begin(), symbols_.end(),
+                           [&](const Symbol& s) { return s.glyph == g; });
+    if (it == symbols_.end()) return std::nullopt;
+    values.push_back(it->value);
+  }
+  long total = 0;
+  for (std::size_t i = 0; i < values.size(); ++i) {
+    if (writing_ == Writing::kPositional) {
+      if (values[i] > 9) return std::nullopt;
+      total = total * 10 + values[i];
+    } else if (writing_ == Writing::kRoman && i + 1 < values.size() && values[i] < values[i + 1]) {
+      total -= values[i];
+    } else {
+      total += values[i];
+    }
+    if (total > 100000) return std::nullopt;
+  }
+  if (total < 0) return std::nullopt;
+  return static_cast<int>(total);
+}
+
 }  // namespace apograph::deviation

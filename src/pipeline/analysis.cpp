@@ -75,11 +75,8 @@ TableAnalysis AnalyseTranscriptions(std::vector<Transcription> transcriptions,
   a.references = ResolveReferences(a.transcriptions, options.reference, library);
   const std::string dir =
       options.scripts_dir.empty() ? deviation::DefaultScriptDir() : options.scripts_dir;
-  for (const auto& t : a.transcriptions) {
-    const auto script = deviation::FindNumeralScript(t.witness.script, dir);
-    a.witnesses.push_back(
-        ExplainWitness(t, a.references, script, options.explain, options.check_tolerance));
-  }
+  a.witnesses = ExplainTradition(a.transcriptions, a.references, dir, options.explain,
+                                 options.check_tolerance, options.guard);
   a.collation = collate::Collate(
       a.transcriptions,
       JudgedCollateOptions(a.transcriptions, a.references, a.witnesses, options.collate_tolerance));

@@ -42,6 +42,7 @@ struct AnalysisOptions {
   }();
   std::vector<std::string> witnesses;  ///< sigla to analyse; empty: every witness of the table
   deviation::ExplainOptions explain;   ///< tolerance 0.5 unit: every departure is explained
+  deviation::GuardOptions guard;       ///< when a column's reference is refused
   double check_tolerance = 1;          ///< the check summary flags |diff| > this
   double collate_tolerance = 1;        ///< used only where a cell has no judgement
   lineage::LineageOptions lineage;     ///< methods (parsimony by default), bootstrap
@@ -61,8 +62,9 @@ struct TableAnalysis {
   /// how it was obtained (ColumnReference::how names the witness
   /// identified from).
   std::vector<ColumnReference> references;
-  /// Per witness (order of `transcriptions`): check summary per column and
-  /// explained deviations with emendations.
+  /// Per witness (order of `transcriptions`): check summary per column,
+  /// explained deviations with emendations (each cell seen with what the
+  /// other witnesses read), and whether each column's reference explains it.
   std::vector<WitnessFindings> witnesses;
   /// The witnesses aligned and every reading judged by the findings
   /// (Basis::kCaller): the author's departures are right readings, slips

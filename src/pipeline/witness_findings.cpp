@@ -4,20 +4,13 @@
 #include <cmath>
 #include <map>
 
+#include "pipeline/witness_internal.hpp"
+
 namespace apograph::pipeline {
 
 namespace {
 
-/// The reference with its column index moved to `witness`'s own column of
-/// that name; nullopt when the witness lacks the column.
-std::optional<ColumnReference> ForWitness(const ColumnReference& ref,
-                                          const Transcription& witness) {
-  const int c = witness.ColumnIndex(ref.column_name);
-  if (c < 0) return std::nullopt;
-  ColumnReference r = ref;
-  r.column = c;
-  return r;
-}
+using internal::ForWitness;
 
 /// Sexagesimal places (integer part included) in which two readings differ.
 int PlacesDiffering(const Sexagesimal& a, const Sexagesimal& b) {
@@ -117,6 +110,18 @@ void UnifyAuthorsReadings(const std::vector<Transcription>& ws,
       });
 }
 
+/// The column's reference is refused in every witness that has it.
+bool RefusedEverywhere(const std::vector<WitnessFindings>& findings, const std::string& column) {
+  bool any = false;
+  for (const auto& w : findings) {
+    const auto* v = w.VerdictOf(column);
+    if (!v) continue;
+    if (v->verdict.explains) return false;
+    any = true;
+  }
+  return any;
+}
+
 }  // namespace
 
 int WitnessFindings::CopyingSlips() const {
@@ -127,27 +132,6 @@ int WitnessFindings::CopyingSlips() const {
 
 int WitnessFindings::Departures() const {
   return static_cast<int>(findings.size()) - CopyingSlips();
-}
-
-WitnessFindings ExplainWitness(const Transcription& witness,
-                               const std::vector<ColumnReference>& references,
-                               const deviation::NumeralScript& script,
-                               const deviation::ExplainOptions& options, double check_tolerance) {
-  WitnessFindings out;
-  out.siglum = witness.witness.siglum;
-  out.script = script.name();
-  for (const auto& any : references) {
-    const auto ref = ForWitness(any, witness);
-    if (!ref) continue;
-    const auto check = model::Check(witness, *ref->model, ref->params, ref->practice,
-                                    check_tolerance, ref->column);
-    out.checks.push_back({ref->column, ref->column_name, check.summary});
-    const auto re = ref->Recompute(witness);
-    const deviation::ColumnValues values{ref->column, re.computed, re.exact};
-    auto found = deviation::ExplainColumn(witness, values, script, options);
-    out.findings.insert(out.findings.end(), found.begin(), found.end());
-  }
-  return out;
 }
 
 collate::JudgementGrid JudgementsFromFindings(const Transcription& witness,
@@ -195,8 +179,12 @@ collate::CollateOptions JudgedCollateOptions(const std::vector<Transcription>& w
   collate::CollateOptions o;
   o.tolerance_units = tolerance_units;
   for (std::size_t i = 0; i < witnesses.size() && i < findings.size(); ++i) {
+    std::vector<ColumnReference> judged;  // a refused reference judges nothing
+    for (const auto& ref : references) {
+      if (!findings[i].Refused(ref.column_name)) judged.push_back(ref);
+    }
     o.judgements[witnesses[i].witness.siglum] =
-        JudgementsFromFindings(witnesses[i], references, findings[i].findings);
+        JudgementsFromFindings(witnesses[i], judged, findings[i].findings);
   }
   LoneDepartures(witnesses, o.judgements);
   UnifyAuthorsReadings(witnesses, o.judgements);
@@ -218,7 +206,7 @@ collate::CollateOptions JudgedCollateOptions(const std::vector<Transcription>& w
       }
     }
     for (const auto& ref : references) {
-      if (ref.column_name == names[k]) by_column[k] = ref;
+      if (ref.column_name == names[k] && !RefusedEverywhere(findings, names[k])) by_column[k] = ref;
     }
   }
   std::string description;

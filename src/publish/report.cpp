@@ -106,12 +106,42 @@ void Checks(const pipeline::TableAnalysis& a, std::ostream& out) {
          "explained as copying; author's: departures the author's computation explains)\n\n";
 }
 
+/// The author's departures as one pattern per column (which rows, how
+/// large, in which witnesses), not as slips of each witness.
+void AuthorsPattern(const pipeline::TableAnalysis& a, std::ostream& out) {
+  const auto patterns = pipeline::AuthorsDepartures(a.witnesses);
+  for (const auto& p : patterns) {
+    std::size_t everywhere = 0;
+    for (const auto& r : p.rows) everywhere += r.sigla.size() == a.witnesses.size();
+    out << "The author's departures from the model in **" << p.column_name
+        << "** (kept in the edition): " << p.Text() << "; " << everywhere << " of " << p.rows.size()
+        << (p.rows.size() == 1 ? " is" : " are") << " read by every witness.\n";
+  }
+  if (!patterns.empty()) out << "\n";
+}
+
+/// A column whose reference the guard refused in a witness: why, and the
+/// model-free screen instead of findings.
+void Refused(const pipeline::WitnessFindings& w, std::ostream& out) {
+  for (const auto& v : w.verdicts) {
+    if (v.verdict.explains) continue;
+    out << "- " << v.column_name << ": " << v.verdict.why
+        << ". Model-free screen: " << v.screen.size() << " suspect"
+        << (v.screen.size() == 1 ? "" : "s");
+    std::vector<std::string> args;
+    for (const auto& s : v.screen) args.push_back(s.arg);
+    out << (args.empty() ? "" : " (" + Join(args, ", ") + ")") << "\n";
+  }
+}
+
 void Deviations(const pipeline::TableAnalysis& a, const ReportOptions& o, std::ostream& out) {
   out << "### Deviations explained (suggestions: the editor decides)\n\n";
+  AuthorsPattern(a, out);
   for (const auto& w : a.witnesses) {
     out << "**" << w.siglum << "**: " << w.CopyingSlips() << " copying slip"
         << (w.CopyingSlips() == 1 ? "" : "s") << " or unexplained, " << w.Departures()
         << " of the author's departures\n";
+    Refused(w, out);
     std::size_t shown = 0, hidden = 0;
     for (const auto& f : w.findings) {
       const bool departure = f.best().cls == deviation::SlipClass::kComputational;

@@ -7,9 +7,15 @@
 
 namespace apograph {
 
-/// The data folder: `APOGRAPH_DATA` when set, else the folder compiled in.
-/// Defined in one translation unit only, so that the rest of the library
-/// compiles identically wherever the source tree sits.
+/// The file a build tree writes beside its programs, naming the source
+/// tree's data folder (`corpora/`).
+inline constexpr const char* kBuildDataFile = "apograph-data-dir.txt";
+
+/// The data folder, found at run time so that a moved or installed program
+/// keeps it: `APOGRAPH_DATA` when set; else `../share/apograph` beside the
+/// program (an installed program); else the folder a build tree names in
+/// kBuildDataFile beside its programs (or one folder up). Nothing is
+/// compiled in, so that objects compile identically wherever the tree sits.
 std::string DataDir();
 
 /// The folder of the numeral scripts: `APOGRAPH_SCRIPTS` when set, else

@@ -253,14 +253,29 @@ Cell CsvReader::ReadCell(const std::vector<Field>& record, std::size_t column) {
   cell.column = ColumnOf(f, lead);
   const bool argument = column == 0;
   const int places = c.places.value_or(-1);
+  // Sheets often drop a whole 0 before the semicolon (`;4,10`, `-;9`): the
+  // reading is parsed with the 0 restored; the cell keeps what the sheet shows.
+  const std::size_t sign = !text.empty() && (text[0] == '-' || text[0] == '+') ? 1 : 0;
+  const bool dropped = text.size() > sign && text[sign] == ';';
+  std::string reading = cell.raw;
+  if (dropped) reading.insert(sign, "0");
   ReadingInfo info;
   try {
-    info = argument ? transcription::ParseArgumentReading(cell.raw, places, 0)
-                    : transcription::ParseReading(cell.raw, places, 0);
+    info = argument ? transcription::ParseArgumentReading(reading, places, 0)
+                    : transcription::ParseReading(reading, places, 0);
   } catch (const LineError& e) {
-    Fail(f, lead + e.offset, e.message);
+    Fail(f, lead + (dropped && e.offset > sign ? e.offset - 1 : e.offset), e.message);
   }
   const bool has_places = info.state == CellState::kRead || info.state == CellState::kPartial;
+  // An argument written with more places than declared is the same argument
+  // when the extra places are zero (`3;0` in a column of whole degrees);
+  // the cell keeps what the sheet shows.
+  const bool same_value = has_places && c.places && info.fraction_places > *c.places &&
+                          info.value->Rounded(*c.places, Rounding::kTruncate) == *info.value;
+  if (same_value && argument) {
+    info.value = info.value->Rounded(*c.places, Rounding::kTruncate);
+    info.fraction_places = *c.places;
+  }
   if (has_places && argument && c.places && info.fraction_places != *c.places) {
     Fail(f, lead,
          "expected a reading with " + PlacesWords(*c.places) + " in the argument '" + c.name +
@@ -285,11 +300,23 @@ Cell CsvReader::JoinedCell(const std::vector<Field>& record, std::size_t column)
   cell.line = first.line;
   cell.column = ColumnOf(first, lead);
   cell.places = *c.places;
+  // A sheet that drops a whole 0 leaves the degree field empty (or a lone
+  // sign) beside filled places: that field reads 0.
+  bool later_filled = false;
+  for (std::size_t k = 1; k < c.sources.size(); ++k) {
+    std::size_t at = 0;
+    later_filled = later_filled || !Trimmed(record[c.sources[k]].text, &at).empty();
+  }
   std::size_t empty = 0, unknown = 0;
   for (std::size_t k = 0; k < c.sources.size(); ++k) {
     const Field& f = record[c.sources[k]];
     std::size_t at = 0;
-    const std::string_view part = Trimmed(f.text, &at);
+    std::string restored;
+    std::string_view part = Trimmed(f.text, &at);
+    if (k == 0 && later_filled && (part.empty() || part == "-" || part == "+")) {
+      restored = std::string(part) + "0";
+      part = restored;
+    }
     empty += part.empty();
     unknown += part == "?";
     const bool sign = k == 0 && !part.empty() && (part[0] == '-' || part[0] == '+');
@@ -311,7 +338,7 @@ Cell CsvReader::JoinedCell(const std::vector<Field>& record, std::size_t column)
     for (std::size_t k = 0; k < c.sources.size(); ++k) {
       const Field& f = record[c.sources[k]];
       std::size_t at = 0;
-      if (Trimmed(f.text, &at).empty()) {
+      if (k > 0 && Trimmed(f.text, &at).empty()) {
         Fail(f, at,
              "expected a whole number or '?' in every part of the joined column '" + c.name +
                  "' (or all parts empty for a blank), found an empty part");

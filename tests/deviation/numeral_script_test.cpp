@@ -37,7 +37,7 @@ bool HasOriginal(const std::vector<PlaceVariant>& v, int original) {
 
 TEST_CASE("every shipped script loads from its file and writes 0..59 and back") {
   for (const char* name : {"hindu-arabic", "greek-alphabetic", "hebrew-alphabetic", "arabic-abjad",
-                           "arabic-abjad-western", "roman"}) {
+                           "arabic-abjad-western", "roman", "printed"}) {
     CAPTURE(name);
     const NumeralScript s = FindNumeralScript(name, kDir);
     CHECK(s.name() == name);

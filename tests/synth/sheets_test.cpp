@@ -156,3 +156,52 @@ TEST_CASE(
     }
   }
 }
+
+TEST_CASE("synth sheets: every messy style imports to the readings of its key") {
+  // The editor's options for a sheet: its places per column, and for a sheet
+  // with one column per place the --join that makes them one value; the
+  // delimiter and the argument notation are detected.
+  int sheets = 0, dms = 0, semicolon = 0, decimal = 0;
+  for (std::uint64_t seed = 1; seed <= 120; ++seed) {
+    synth::Rng rng(seed);
+    synth::TraditionOptions o;
+    o.witnesses = 4;
+    const synth::Tradition t = synth::DrawTradition(rng, o);
+    for (const auto& table : t.WitnessTables(t.Surviving().front())) {
+      const synth::SheetStyle style = synth::DrawSheetStyle(table, rng);
+      const synth::Sheet sheet = synth::WriteSheet(table, style, rng);
+      apograph::CsvOptions options;
+      options.head.table_id = table.table_id;
+      options.head.witness.siglum = "A";
+      for (const auto& c : table.columns) options.column_places[c.name] = c.places;
+      options.column_places[table.argument.name] = table.argument.places;
+      for (const auto& c : sheet.key["columns"]) {
+        if (c["sheet_columns"].size() > 1)
+          options.joins.push_back(
+              {c["column"], c["sheet_columns"].get<std::vector<std::string>>()});
+      }
+      INFO("seed ", seed, " table ", table.table_id, " dms ", style.dms, " delimiter ",
+           style.delimiter, " arguments ", style.arguments, " zeros ", style.zeros);
+      const auto read = apograph::ReadCsv(sheet.text, "sheet.csv", options);
+      REQUIRE(read.tables.size() == 1);
+      const auto& rows = read.tables[0].rows;
+      REQUIRE(rows.size() == table.rows.size());
+      for (std::size_t r = 0; r < rows.size(); ++r) {
+        CHECK(rows[r].argument.value == table.rows[r].argument.value);
+        for (std::size_t c = 0; c < table.columns.size(); ++c) {
+          CHECK(rows[r].cells[c].state == table.rows[r].cells[c].state);
+          CHECK(rows[r].cells[c].value == table.rows[r].cells[c].value);
+        }
+      }
+      ++sheets;
+      dms += style.dms;
+      semicolon += style.delimiter == ';';
+      decimal += style.arguments == "decimal";
+    }
+  }
+  // Every habit occurred often enough to be exercised.
+  CHECK(dms > 10);
+  CHECK(semicolon > 10);
+  CHECK(decimal > 5);
+  CHECK(sheets > 100);
+}

@@ -204,3 +204,41 @@ TEST_CASE("a delimiter at the very end of a sheet opens one last empty field") {
   REQUIRE(t.rows.size() == 1);
   CHECK(t.rows[0].cells.at(0).state == CellState::kBlank);
 }
+
+TEST_CASE("a whole 0 dropped before the places reads 0; the sheet's form stays as evidence") {
+  auto o = Options();
+  o.column_places["arg"] = 0;
+  const auto file = ReadCsv(
+      "arg,value\n1,\";4,10\"\n2,\"-;9,0\"\n3;0,\"0;1,2\"\n\"4;0,0\",\";1,2\"\n", "k.csv", o);
+  const auto& t = file.tables.at(0);
+  REQUIRE(t.rows.size() == 4);
+  CHECK(t.rows[0].cells[0].value->Identical(S("0;4,10")));
+  CHECK(t.rows[0].cells[0].raw == ";4,10");
+  CHECK(t.rows[1].cells[0].value->Identical(S("-0;9,0")));
+  // An argument written with zero places beyond those declared is the same argument.
+  CHECK(t.rows[2].argument.value->Identical(S("3")));
+  CHECK(t.rows[2].argument.raw == "3;0");
+  CHECK(t.rows[3].argument.value->Identical(S("4")));
+  // A place that is not zero is still refused, and so is a ';' with nothing after it.
+  CHECK(ErrorOf("arg,value\n3;30,1\n", o)
+            .rfind("k.csv:2:1: error: expected a reading with 0 fractional places in the argument",
+                   0) == 0);
+  CHECK(ErrorOf("arg,value\n1,\";\"\n")
+            .rfind("k.csv:2:5: error: expected a place (digits or '?'), found end of cell", 0) ==
+        0);
+}
+
+TEST_CASE("joined place columns: an empty or lone-sign degree field beside places reads 0") {
+  auto o = Options();
+  o.joins.push_back({"v", {"v_deg", "v_min", "v_sec"}});
+  o.column_places["v"] = 2;
+  const auto file = ReadCsv("arg,v_deg,v_min,v_sec\n1,,4,10\n2,-,9,0\n3,,,\n", "k.csv", o);
+  const auto& t = file.tables.at(0);
+  REQUIRE(t.rows.size() == 3);
+  CHECK(t.rows[0].cells[0].value->Identical(S("0;4,10")));
+  CHECK(t.rows[1].cells[0].value->Identical(S("-0;9,0")));
+  CHECK(t.rows[2].cells[0].state == CellState::kBlank);
+  // A place left empty after the degree is still an error.
+  CHECK(ErrorOf("arg,v_deg,v_min,v_sec\n1,3,,10\n", o)
+            .rfind("k.csv:2:5: error: expected a whole number or '?' in every part", 0) == 0);
+}

@@ -1,0 +1,257 @@
+// One slip repeated over consecutive rows of a column, reported once with a
+// reading per row: a place left empty, dropped (the rest moved up), moved
+// down or written twice; a place held at one value where it should change (a
+// leading place carried over); a constant error. A copyist who makes such a
+// slip makes it row after row, so each row does not need its own story (and
+// a neighbour's wrong place must not vouch for the next as a "repetition").
+#include <algorithm>
+#include <cmath>
+
+#include "deviation/explain_internal.hpp"
+
+namespace apograph::deviation::internal {
+namespace {
+
+// Judgement: two consecutive rows changed the same way, each beyond the
+// author's departure, are one slip repeated rather than two slips that happen
+// to agree (slips touch a few percent of the entries, one kind of place slip
+// a tenth of those).
+constexpr int kMinRows = 2;
+
+enum class Pattern { kLeading, kEmpty, kHeld, kUp, kDown, kDoubled, kOffset };
+
+struct Transform {
+  Pattern pattern = Pattern::kEmpty;
+  std::size_t place = 0;
+  std::int64_t value = 0;  // kHeld: the value written; kOffset: units added
+  bool operator==(const Transform&) const = default;
+};
+
+/// The original the copy `c` came from under `t`, its lost places supplied
+/// from `e` (the expected reading); nullopt when `c` cannot come from `t`.
+std::optional<Sexagesimal> Restore(const Transform& t, const Sexagesimal& c, const Sexagesimal& e,
+                                   int places) {
+  if (t.pattern == Pattern::kOffset)
+    return c - Sexagesimal::FromUnits(static_cast<Sexagesimal::Units>(t.value), places);
+  Digits d = ToDigits(c, places);
+  const Digits want = ToDigits(e, places);
+  const std::size_t n = d.d.size(), p = t.place;
+  if (n < 2 || want.d.size() != n || p >= n) return std::nullopt;
+  switch (t.pattern) {
+    case Pattern::kLeading: {  // the first place that is not 0 left empty
+      const auto lead = std::find_if(want.d.begin(), want.d.end(), [](auto v) { return v != 0; });
+      if (lead == want.d.end()) return std::nullopt;
+      const auto q = static_cast<std::size_t>(lead - want.d.begin());
+      for (std::size_t j = 0; j <= q; ++j) {
+        if (d.d[j] != 0) return std::nullopt;
+      }
+      d.d[q] = want.d[q];
+      break;
+    }
+    case Pattern::kEmpty:
+    case Pattern::kHeld:
+      if (d.d[p] != (t.pattern == Pattern::kEmpty ? 0 : t.value)) return std::nullopt;
+      d.d[p] = want.d[p];
+      break;
+    case Pattern::kUp:
+      if (p + 1 >= n || d.d[n - 1] != 0) return std::nullopt;
+      d.d.insert(d.d.begin() + static_cast<std::ptrdiff_t>(p), want.d[p]);
+      d.d.pop_back();
+      break;
+    case Pattern::kDown:
+    case Pattern::kDoubled:
+      if (p + 1 >= n) return std::nullopt;
+      if (t.pattern == Pattern::kDown ? d.d[p] != 0 : d.d[p] != d.d[p + 1]) return std::nullopt;
+      d.d.erase(d.d.begin() + static_cast<std::ptrdiff_t>(p));
+      d.d.push_back(want.d[n - 1]);
+      break;
+    case Pattern::kOffset:
+      break;
+  }
+  return FromDigits(d);
+}
+
+struct Run {
+  Transform transform;
+  std::size_t first = 0, last = 0;
+  std::vector<std::size_t> changed;  // rows the slip changed
+  int deviant = 0;                   // of them, beyond the author's departure
+};
+
+struct Scan {
+  const Transcription& table;
+  const ColumnValues& values;
+  const ExplainOptions& options;
+  const ColumnContext& column;
+  int places;
+
+  std::optional<Sexagesimal> Copy(std::size_t r) const {
+    const Cell& cell = table.rows[r].cells[static_cast<std::size_t>(values.column)];
+    if (cell.state != CellState::kRead || !cell.value || r >= values.computed.size() ||
+        !values.computed[r])
+      return std::nullopt;
+    return AtPlaces(*cell.value, places);
+  }
+  Sexagesimal Expected(std::size_t r) const {
+    return column.tradition_reading[r] ? *column.tradition_reading[r]
+                                       : AtPlaces(*values.computed[r], places);
+  }
+  /// The restored reading of row r under t when it fits (the original within
+  /// the author's departure of the model, or the tradition's reading).
+  std::optional<Sexagesimal> Fits(const Transform& t, std::size_t r) const {
+    const auto copy = Copy(r);
+    if (!copy) return std::nullopt;
+    auto restored = Restore(t, *copy, Expected(r), places);
+    if (!restored) return std::nullopt;
+    if (column.tradition_reading[r] && *restored == *column.tradition_reading[r]) return restored;
+    const int k = UnitsOff(DiffUnits(*restored, *values.computed[r], places), options.tolerance);
+    if (k > column.author.typical) return std::nullopt;
+    return restored;
+  }
+  /// The transforms a deviant row is consistent with.
+  std::vector<Transform> Seeds(std::size_t r) const {
+    std::vector<Transform> out;
+    const auto copy = Copy(r);
+    if (!copy) return out;
+    const Digits d = ToDigits(*copy, places);
+    if (Fits({Pattern::kLeading, 0, 0}, r)) out.push_back({Pattern::kLeading, 0, 0});
+    for (std::size_t p = 0; p < d.d.size(); ++p) {
+      for (Pattern pattern :
+           {Pattern::kEmpty, Pattern::kHeld, Pattern::kUp, Pattern::kDown, Pattern::kDoubled}) {
+        Transform t{pattern, p, pattern == Pattern::kHeld ? d.d[p] : 0};
+        if (pattern == Pattern::kHeld && d.d[p] == 0) continue;  // that is kEmpty
+        if (Fits(t, r)) out.push_back(t);
+      }
+    }
+    const auto units =
+        static_cast<std::int64_t>(std::llround(DiffUnits(*copy, Expected(r), places)));
+    // A constant error: beyond the author's departure, or within it where the
+    // other witnesses read otherwise (then it is not the author's).
+    if (units != 0 && (std::llabs(units) > column.author.typical || column.contradicted[r]))
+      out.push_back({Pattern::kOffset, 0, units});
+    return out;
+  }
+  Run Grow(const Transform& t, std::size_t seed, const std::vector<bool>& claimed) const {
+    Run run{t, seed, seed, {}, 0};
+    while (run.first > 0 && !claimed[run.first - 1] && Fits(t, run.first - 1)) --run.first;
+    while (run.last + 1 < table.rows.size() && !claimed[run.last + 1] && Fits(t, run.last + 1))
+      ++run.last;
+    for (std::size_t r = run.first; r <= run.last; ++r) {
+      if (*Fits(t, r) == *Copy(r)) continue;
+      run.changed.push_back(r);
+      // A row counts when beyond the author's departure, or off the reading
+      // the other witnesses agree on.
+      run.deviant += column.deviant[r] || column.contradicted[r];
+    }
+    if (!run.changed.empty()) {
+      run.first = run.changed.front();
+      run.last = run.changed.back();
+    }
+    return run;
+  }
+};
+
+std::string Span(const Finding& f) {
+  return std::to_string(f.cells.size()) + " consecutive entries (" + f.cells.front().arg + " to " +
+         f.cells.back().arg + ")";
+}
+
+std::string Describe(const Run& run, const Finding& f, const std::string& unit, bool tradition) {
+  const auto& t = run.transform;
+  const std::string place = PlaceName(static_cast<int>(t.place), unit);
+  const std::string next = PlaceName(static_cast<int>(t.place + 1), unit);
+  const std::string from = tradition ? "the other witnesses" : "the model";
+  switch (t.pattern) {
+    case Pattern::kLeading:
+      return "the leading place left empty (written as 0) in " + Span(f) +
+             ": one slip repeated row after row; each entry's leading place supplied from " + from;
+    case Pattern::kEmpty:
+      return "the " + place + " left empty (written as 0) in " + Span(f) +
+             ": one slip repeated row after row; each entry's " + place + " supplied from " + from;
+    case Pattern::kHeld:
+      return "the " + place + " written as " + std::to_string(t.value) + " throughout " + Span(f) +
+             ", where " + from +
+             " changes them: a place carried over from row to row; each entry's " + place +
+             " restored from " + from;
+    case Pattern::kUp:
+      return "the " + place + " omitted in " + Span(f) + " and the " + next +
+             " moved up into their place: one slip repeated row after row; the " + place +
+             " restored from " + from;
+    case Pattern::kDown:
+      return "the places from the " + place + " moved down one in " + Span(f) + " (" + place +
+             " written as " + next +
+             "): one slip repeated row after row; the lost last place "
+             "supplied from " +
+             from;
+    case Pattern::kDoubled:
+      return "the " + place + " written twice in " + Span(f) +
+             ", pushing the following places down: one slip repeated row after row; the lost "
+             "last place supplied from " +
+             from;
+    case Pattern::kOffset:
+      break;
+  }
+  return "every entry of " + Span(f) + " departs from " + from + " by " +
+         SignedUnits(static_cast<double>(t.value)) +
+         ": one constant error over the run; each entry restored by removing it";
+}
+
+Finding RunFinding(const Scan& s, const Run& run) {
+  Finding f = NewFinding(s.table, s.values, s.places);
+  bool tradition = false;
+  for (std::size_t r : run.changed) {
+    f.cells.push_back(MakeCell(s.table, s.values, r, s.places));
+    f.cells.back().emendation = s.Fits(run.transform, r);
+    tradition = tradition || s.column.tradition_reading[r].has_value();
+  }
+  Explanation e;
+  e.cls = SlipClass::kSystematic;
+  // Judgement, as for displaced runs: each row beyond the third makes chance
+  // less likely still.
+  e.score = std::min(0.97, 0.8 + 0.05 * (static_cast<double>(run.changed.size()) - kMinRows));
+  e.emendation = f.cells.front().emendation;
+  e.evidence =
+      Describe(run, f, s.table.columns[static_cast<std::size_t>(s.values.column)].unit, tradition);
+  f.explanations = {e};
+  return f;
+}
+
+bool Better(const Run& a, const Run& b) {
+  if (a.deviant != b.deviant) return a.deviant > b.deviant;
+  if (a.changed.size() != b.changed.size()) return a.changed.size() > b.changed.size();
+  return static_cast<int>(a.transform.pattern) < static_cast<int>(b.transform.pattern);
+}
+
+}  // namespace
+
+std::vector<Finding> SystematicRuns(const Transcription& table, const ColumnValues& values,
+                                    const ExplainOptions& options, const ColumnContext& column,
+                                    std::vector<bool>& claimed) {
+  const int places = table.columns[static_cast<std::size_t>(values.column)].places;
+  const Scan scan{table, values, options, column, places};
+  std::vector<Run> runs;
+  for (std::size_t r = 0; r < table.rows.size(); ++r) {
+    if (claimed[r] || (!column.deviant[r] && !column.contradicted[r])) continue;
+    for (const auto& t : scan.Seeds(r)) {
+      const bool grown = std::any_of(runs.begin(), runs.end(), [&](const Run& o) {
+        return o.transform == t && o.first <= r && r <= o.last;
+      });
+      if (grown) continue;
+      Run run = scan.Grow(t, r, claimed);
+      if (static_cast<int>(run.changed.size()) >= kMinRows && run.deviant >= 2)
+        runs.push_back(std::move(run));
+    }
+  }
+  std::stable_sort(runs.begin(), runs.end(), Better);
+  std::vector<Finding> out;
+  for (const auto& run : runs) {
+    bool free = true;
+    for (std::size_t r = run.first; r <= run.last; ++r) free = free && !claimed[r];
+    if (!free) continue;
+    for (std::size_t r = run.first; r <= run.last; ++r) claimed[r] = true;
+    out.push_back(RunFinding(scan, run));
+  }
+  return out;
+}
+
+}  // namespace apograph::deviation::internal

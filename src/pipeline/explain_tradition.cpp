@@ -1,0 +1,294 @@
+// Every witness of a table explained against the references, each cell with
+// what the other witnesses read there; the guard on the references; the
+// author's departures as a pattern.
+#include <algorithm>
+#include <cmath>
+#include <cstdio>
+#include <map>
+
+#include "pipeline/witness_findings.hpp"
+#include "pipeline/witness_internal.hpp"
+
+namespace apograph::pipeline {
+namespace {
+
+using internal::ForWitness;
+
+Sexagesimal AtPlaces(const Sexagesimal& v, int places) {
+  return v.places() <= places ? v.Extended(places) : v.Rounded(places);
+}
+
+/// One witness's column against its reference.
+struct ColumnRun {
+  std::size_t witness = 0;
+  ColumnReference ref;  ///< column index moved to the witness
+  int places = 0;
+  deviation::ColumnValues values;
+  std::map<std::string, std::size_t> rows;  ///< argument in use -> row
+  std::vector<deviation::Finding> found;
+  deviation::ReferenceVerdict verdict;
+};
+
+std::optional<Sexagesimal> ReadValue(const Transcription& w, std::size_t row, int column,
+                                     int places) {
+  const Cell& cell = w.rows[row].cells[static_cast<std::size_t>(column)];
+  if (cell.state != CellState::kRead || !cell.value) return std::nullopt;
+  return AtPlaces(*cell.value, places);
+}
+
+ColumnRun MakeRun(const std::vector<const Transcription*>& ws, std::size_t w,
+                  const ColumnReference& ref) {
+  ColumnRun run;
+  run.witness = w;
+  run.ref = ref;
+  const Transcription& t = *ws[w];
+  run.places = ref.practice.places.value_or(t.columns[static_cast<std::size_t>(ref.column)].places);
+  const auto re = ref.Recompute(t);
+  run.values = {ref.column, re.computed, re.exact, {}};
+  for (std::size_t r = 0; r < t.rows.size(); ++r) {
+    if (auto a = t.ArgumentInUse(r)) run.rows.emplace(a->ToString(), r);
+  }
+  return run;
+}
+
+/// What the runs of the same column in the other witnesses read at each row
+/// of `run`.
+void FillTradition(ColumnRun& run, const std::vector<ColumnRun>& all,
+                   const std::vector<const Transcription*>& ws) {
+  const Transcription& t = *ws[run.witness];
+  run.values.tradition.assign(t.rows.size(), {});
+  for (const auto& [arg, r] : run.rows) {
+    const auto own = ReadValue(t, r, run.ref.column, run.places);
+    const auto& computed = run.values.computed[r];
+    const std::optional<Sexagesimal> model =
+        computed ? std::optional(AtPlaces(*computed, run.places)) : std::nullopt;
+    deviation::TraditionCell cell;
+    std::map<std::string, std::pair<int, Sexagesimal>> tally;
+    for (const auto& other : all) {
+      if (other.witness == run.witness || other.ref.column_name != run.ref.column_name) continue;
+      auto it = other.rows.find(arg);
+      if (it == other.rows.end()) continue;
+      // A modern edition is no evidence of the author's text: it may have
+      // recomputed the table (and not with the reference's model).
+      if (ws[other.witness]->witness.Kind() == WitnessKind::kModernEdition) continue;
+      const auto v = ReadValue(*ws[other.witness], it->second, other.ref.column, run.places);
+      if (!v) continue;
+      ++cell.witnesses;
+      cell.same += own && *v == *own;
+      cell.model += model && *v == *model;
+      auto& entry = tally.try_emplace(v->ToString(), 0, *v).first->second;
+      ++entry.first;
+    }
+    for (const auto& [text, entry] : tally) {
+      if (2 * entry.first > cell.witnesses) {
+        cell.consensus = entry.second;
+        cell.agree = entry.first;
+      }
+    }
+    run.values.tradition[r] = cell;
+  }
+}
+
+int Compared(const ColumnRun& run, const Transcription& t) {
+  int n = 0;
+  for (std::size_t r = 0; r < t.rows.size() && r < run.values.computed.size(); ++r)
+    n += run.values.computed[r] && ReadValue(t, r, run.ref.column, run.places).has_value();
+  return n;
+}
+
+/// Rows of `run` that its findings flag (copying slips and unexplained
+/// deviations; blanks and illegible cells left out).
+std::vector<bool> FlaggedRows(const ColumnRun& run, std::size_t rows) {
+  std::vector<bool> out(rows, false);
+  for (const auto& f : run.found) {
+    const auto cls = f.best().cls;
+    if (!deviation::IsCopyingSlip(cls) || cls == deviation::SlipClass::kBlank ||
+        cls == deviation::SlipClass::kIllegible)
+      continue;
+    for (const auto& c : f.cells) {
+      if (c.row < rows) out[c.row] = true;
+    }
+  }
+  return out;
+}
+
+/// The tradition's test: rows that every witness having the column flags
+/// (a copy's slips, even a lost ancestor's, are in some witnesses only; an
+/// archetype's error or a wrong reference is in all).
+std::optional<deviation::ReferenceVerdict> ConsensusVerdict(
+    const std::vector<ColumnRun>& runs, const std::string& column,
+    const std::vector<const Transcription*>& ws, const deviation::GuardOptions& guard) {
+  std::map<std::string, std::pair<int, int>> by_arg;  // readers, flaggers
+  int witnesses = 0;
+  for (const auto& run : runs) {
+    if (run.ref.column_name != column) continue;
+    ++witnesses;
+    const Transcription& t = *ws[run.witness];
+    const auto flagged = FlaggedRows(run, t.rows.size());
+    for (const auto& [arg, r] : run.rows) {
+      if (!run.values.computed[r] || !ReadValue(t, r, run.ref.column, run.places)) continue;
+      auto& [readers, flaggers] = by_arg[arg];
+      ++readers;
+      flaggers += flagged[r];
+    }
+  }
+  if (witnesses < 2) return std::nullopt;
+  int rows = 0, flagged = 0;
+  for (const auto& [arg, counts] : by_arg) {
+    ++rows;
+    flagged += counts.first >= 2 && counts.second == counts.first;
+  }
+  return deviation::GuardReference(rows, flagged, guard, true);
+}
+
+std::vector<WitnessFindings> Explain(const std::vector<const Transcription*>& ws,
+                                     const std::vector<const deviation::NumeralScript*>& scripts,
+                                     const std::vector<ColumnReference>& references,
+                                     const deviation::ExplainOptions& options,
+                                     double check_tolerance, const deviation::GuardOptions& guard,
+                                     bool tradition) {
+  std::vector<ColumnRun> runs;
+  for (std::size_t w = 0; w < ws.size(); ++w) {
+    for (const auto& any : references) {
+      if (auto ref = ForWitness(any, *ws[w])) runs.push_back(MakeRun(ws, w, *ref));
+    }
+  }
+  if (tradition) {
+    for (auto& run : runs) FillTradition(run, runs, ws);
+  }
+  for (auto& run : runs) {
+    const Transcription& t = *ws[run.witness];
+    run.found = deviation::ExplainColumn(
+        t, run.values, *scripts[run.witness], options,
+        tradition ? scripts : std::vector<const deviation::NumeralScript*>{});
+    run.verdict = deviation::GuardReference(
+        Compared(run, t), deviation::FlaggedCells(run.found, run.ref.column), guard);
+  }
+  for (const auto& ref : references) {
+    const auto consensus = ConsensusVerdict(runs, ref.column_name, ws, guard);
+    if (!consensus || consensus->explains) continue;
+    for (auto& run : runs) {
+      if (run.ref.column_name == ref.column_name) run.verdict = *consensus;
+    }
+  }
+  std::vector<WitnessFindings> out(ws.size());
+  for (std::size_t w = 0; w < ws.size(); ++w) {
+    out[w].siglum = ws[w]->witness.siglum;
+    out[w].script = scripts[w]->name();
+  }
+  for (auto& run : runs) {
+    const Transcription& t = *ws[run.witness];
+    WitnessFindings& wf = out[run.witness];
+    const auto check = model::Check(t, *run.ref.model, run.ref.params, run.ref.practice,
+                                    check_tolerance, run.ref.column);
+    wf.checks.push_back({run.ref.column, run.ref.column_name, check.summary});
+    ColumnVerdict v{run.ref.column, run.ref.column_name, run.verdict, {}};
+    if (run.verdict.explains) {
+      wf.findings.insert(wf.findings.end(), run.found.begin(), run.found.end());
+    } else {
+      v.screen = deviation::ScreenColumn(t, run.ref.column, scripts[run.witness]);
+    }
+    wf.verdicts.push_back(std::move(v));
+  }
+  return out;
+}
+
+}  // namespace
+
+const ColumnVerdict* WitnessFindings::VerdictOf(const std::string& column) const {
+  for (const auto& v : verdicts) {
+    if (v.column_name == column) return &v;
+  }
+  return nullptr;
+}
+
+bool WitnessFindings::Refused(const std::string& column) const {
+  const auto* v = VerdictOf(column);
+  return v && !v->verdict.explains;
+}
+
+WitnessFindings ExplainWitness(const Transcription& witness,
+                               const std::vector<ColumnReference>& references,
+                               const deviation::NumeralScript& script,
+                               const deviation::ExplainOptions& options, double check_tolerance,
+                               const deviation::GuardOptions& guard) {
+  return Explain({&witness}, {&script}, references, options, check_tolerance, guard, false).front();
+}
+
+std::vector<WitnessFindings> ExplainTradition(const std::vector<Transcription>& witnesses,
+                                              const std::vector<ColumnReference>& references,
+                                              const std::string& scripts_dir,
+                                              const deviation::ExplainOptions& options,
+                                              double check_tolerance,
+                                              const deviation::GuardOptions& guard) {
+  std::vector<deviation::NumeralScript> scripts;
+  std::map<std::string, std::size_t> loaded;
+  std::vector<std::size_t> index;
+  for (const auto& w : witnesses) {
+    const std::string name = deviation::ScriptNameFor(w.witness);
+    auto it = loaded.find(name);
+    if (it == loaded.end()) {
+      it = loaded.emplace(name, scripts.size()).first;
+      scripts.push_back(deviation::FindNumeralScript(name, scripts_dir));
+    }
+    index.push_back(it->second);
+  }
+  std::vector<const Transcription*> ws;
+  std::vector<const deviation::NumeralScript*> ss;
+  for (std::size_t w = 0; w < witnesses.size(); ++w) {
+    ws.push_back(&witnesses[w]);
+    ss.push_back(&scripts[index[w]]);
+  }
+  return Explain(ws, ss, references, options, check_tolerance, guard, true);
+}
+
+std::string DeparturePattern::Text() const {
+  std::string out;
+  for (std::size_t i = 0; i < rows.size();) {
+    std::size_t j = i;
+    while (j + 1 < rows.size() && rows[j + 1].units == rows[i].units) ++j;
+    char units[32];
+    std::snprintf(units, sizeof units, "%+g", rows[i].units);
+    out += (out.empty() ? "" : ", ") + rows[i].arg + (j > i ? "-" + rows[j].arg : "") + " (" +
+           units + (j > i ? " each)" : ")");
+    i = j + 1;
+  }
+  return out;
+}
+
+std::vector<DeparturePattern> AuthorsDepartures(const std::vector<WitnessFindings>& findings) {
+  std::vector<DeparturePattern> out;
+  for (const auto& w : findings) {
+    for (const auto& f : w.findings) {
+      if (f.best().cls != deviation::SlipClass::kComputational) continue;
+      auto pattern = std::find_if(out.begin(), out.end(), [&](const DeparturePattern& p) {
+        return p.column_name == f.column_name;
+      });
+      if (pattern == out.end()) pattern = out.insert(out.end(), {f.column_name, {}});
+      for (const auto& c : f.cells) {
+        if (!std::isfinite(c.diff_units)) continue;
+        auto& rows = pattern->rows;
+        auto same = std::find_if(rows.begin(), rows.end(), [&](const DeparturePattern::Row& r) {
+          return r.arg == c.arg && r.units == std::round(c.diff_units * 100) / 100;
+        });
+        if (same == rows.end())
+          rows.push_back({c.arg, std::round(c.diff_units * 100) / 100, {w.siglum}});
+        else
+          same->sigla.push_back(w.siglum);
+      }
+    }
+  }
+  auto order = [](const std::string& arg) {
+    const auto v = Sexagesimal::Parse(arg);
+    return v ? v->ToDouble() : 0.0;
+  };
+  for (auto& p : out) {
+    std::stable_sort(p.rows.begin(), p.rows.end(),
+                     [&](const DeparturePattern::Row& a, const DeparturePattern::Row& b) {
+                       return order(a.arg) < order(b.arg);
+                     });
+  }
+  return out;
+}
+
+}  // namespace apograph::pipeline

@@ -1,0 +1,153 @@
+// The cases the deviation stage used to get wrong (issue: copyist, printer or
+// author, with the right reading): each builds a small table of its own.
+#include <doctest/doctest.h>
+
+#include "deviation/explain.hpp"
+#include "deviation/numeral_script.hpp"
+#include "pipeline/reference.hpp"
+#include "pipeline/witness_findings.hpp"
+#include "synthetic.hpp"
+#include "test_paths.hpp"
+
+using namespace apograph;
+using namespace apograph::deviation;
+using apograph::testing::MakeTable;
+using apograph::testing::Synthetic;
+
+namespace {
+
+const std::string kDir = std::string(APOGRAPH_SOURCE_DIR) + "/corpora/scripts";
+
+const Finding* At(const std::vector<Finding>& findings, std::size_t row) {
+  for (const auto& f : findings) {
+    for (const auto& c : f.cells) {
+      if (c.row == row) return &f;
+    }
+  }
+  return nullptr;
+}
+
+/// The row's model value moved by `units` of the last place.
+Sexagesimal Moved(const Synthetic& s, std::size_t row, int units, int places) {
+  return *s.values.computed[row] + Sexagesimal::FromUnits(units, places);
+}
+
+/// First row from `from` whose model value's last place ends in digit `d`.
+std::size_t RowEndingIn(const Synthetic& s, std::size_t from, int d) {
+  for (std::size_t r = from; r < s.table.rows.size(); ++r) {
+    const auto f = s.values.computed[r]->FractionDigits();
+    if (!f.empty() && f.back() % 10 == d && f.back() >= 10) return r;
+  }
+  FAIL("no row fits");
+  return 0;
+}
+
+}  // namespace
+
+TEST_CASE("a classic letter confusion is chosen over the catch-all where the author departs") {
+  // Hebrew letters, minutes only (the model's value rounded to minutes). The
+  // author's own values run one minute above the model over rows 40-49 (his
+  // habit in this column); at row 45 a copy reads ח (8) for the author's ה (5).
+  Synthetic s = MakeTable(testing::SolarEquation, 1, 1, 180, 1, "hebrew-alphabetic");
+  std::size_t row = 0;
+  for (std::size_t r = 40; r < 50; ++r) {
+    const Sexagesimal author = Moved(s, r, 1, 1);
+    s.Set(r, author.ToString());
+    if (!row && author.FractionDigits()[0] % 10 == 5 && author.FractionDigits()[0] > 10) row = r;
+  }
+  REQUIRE(row != 0);
+  const Sexagesimal original = Moved(s, row, 1, 1);
+  s.Set(row, Moved(s, row, 4, 1).ToString());  // ה (5) read as ח (8): three minutes more
+  const auto findings =
+      ExplainColumn(s.table, s.values, FindNumeralScript("hebrew-alphabetic", kDir));
+  const Finding* f = At(findings, row);
+  REQUIRE(f != nullptr);
+  INFO(f->Note("A"));
+  CHECK(f->best().cls == SlipClass::kConfusion);
+  CHECK(f->best().evidence.find("ה (5) read as ח (8)") != std::string::npos);
+  REQUIRE(f->cells.size() == 1);
+  REQUIRE(f->cells.front().emendation.has_value());
+  CHECK(f->cells.front().emendation->ToString() == original.ToString());
+}
+
+TEST_CASE("a misprint outside the printed script's lists gets the model's reading") {
+  // Seconds written 2 -> 7 and 4 -> 2 by a typesetter: neither pair is listed
+  // for the printed script, yet one digit differs from the model's value.
+  Synthetic s = MakeTable(testing::SolarEquation, 1, 1, 180, 2, "printed");
+  const std::size_t up = RowEndingIn(s, 20, 2), down = RowEndingIn(s, up + 20, 4);
+  const std::string want_up = s.values.computed[up]->ToString();
+  const std::string want_down = s.values.computed[down]->ToString();
+  s.Set(up, Moved(s, up, 5, 2).ToString());
+  s.Set(down, Moved(s, down, -2, 2).ToString());  // -2 units: not the author's
+  const auto findings = ExplainColumn(s.table, s.values, FindNumeralScript("printed", kDir));
+  CHECK(findings.size() == 2);
+  for (auto [row, want] : {std::pair{up, want_up}, std::pair{down, want_down}}) {
+    const Finding* f = At(findings, row);
+    REQUIRE(f != nullptr);
+    INFO(f->Note("A"));
+    CHECK(f->best().cls == SlipClass::kConfusion);
+    CHECK(f->best().evidence.find("does not list among its confusions") != std::string::npos);
+    REQUIRE(f->cells.front().emendation.has_value());
+    CHECK(f->cells.front().emendation->ToString() == want);
+  }
+}
+
+TEST_CASE("a leading place dropped over five rows is one systematic finding") {
+  // The first rows of a solar equation (0;2,37 ...) copied without their
+  // minutes: 0;0,37 ...
+  Synthetic s = MakeTable(testing::SolarEquation, 1, 1, 180, 2);
+  for (std::size_t r = 0; r < 5; ++r) {
+    auto f = s.values.computed[r]->FractionDigits();
+    REQUIRE(f[0] != 0);
+    s.Set(r, Sexagesimal::FromParts(false, 0, {0, f[1]}).ToString());
+  }
+  const auto findings = ExplainColumn(s.table, s.values, FindNumeralScript("hindu-arabic", kDir));
+  REQUIRE(findings.size() == 1);
+  const Finding& f = findings.front();
+  INFO(f.Note("A"));
+  CHECK(f.best().cls == SlipClass::kSystematic);
+  REQUIRE(f.cells.size() == 5);
+  for (const auto& c : f.cells) {
+    REQUIRE(c.emendation.has_value());
+    CHECK(c.emendation->ToString() == s.values.computed[c.row]->ToString());
+  }
+}
+
+TEST_CASE("a one-unit value every witness shares is the author's in every witness") {
+  // Four witnesses read one second above the model at one row, an 8 where the
+  // model has 7 (so a 7/8 confusion would "restore" the model); each has a
+  // slip of its own elsewhere, which must still be found.
+  Synthetic s = MakeTable(testing::SolarEquation, 1, 1, 180, 2);
+  const std::size_t row = RowEndingIn(s, 60, 7);
+  s.Set(row, Moved(s, row, 1, 2).ToString());
+  std::vector<Transcription> witnesses;
+  for (int w = 0; w < 4; ++w) {
+    Synthetic copy = s;
+    copy.table.witness.siglum = std::string(1, static_cast<char>('A' + w));
+    const std::size_t slip = 100 + 10 * static_cast<std::size_t>(w);
+    copy.Set(slip, "_");
+    witnesses.push_back(copy.table);
+  }
+  pipeline::ReferenceRequest given;
+  given.model = "solar-eccentric";
+  given.params = {{"e", 2.5}};
+  const auto refs = pipeline::ResolveReferences(witnesses, given);
+  const auto found = pipeline::ExplainTradition(witnesses, refs, kDir);
+  REQUIRE(found.size() == 4);
+  for (const auto& w : found) {
+    CHECK_FALSE(w.Refused("equation"));
+    bool own_slip = false;
+    for (const auto& f : w.findings) {
+      INFO(f.Note(w.siglum));
+      for (const auto& c : f.cells) {
+        if (c.row != row) {
+          own_slip = own_slip || f.best().cls == SlipClass::kBlank;
+          continue;
+        }
+        CHECK_FALSE(IsCopyingSlip(f.best().cls));
+        CHECK_FALSE(c.emendation.has_value());
+      }
+    }
+    CHECK(own_slip);
+  }
+}

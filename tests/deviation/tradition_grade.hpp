@@ -1,0 +1,407 @@
+#pragma once
+// Grades the deviation stage on a tradition drawn by the shared generator
+// (tests/synth): every table's references identified automatically from the
+// witnesses (pipeline::ResolveReferences with `automatic`, as `--auto`
+// does), every witness explained with the tradition's view
+// (pipeline::ExplainTradition), and each cell's findings compared with the
+// answer key (the author's reading, the slips that made the witness's one).
+// The generator's confusions are its own (tests/synth/numerals.cpp), not the
+// lists the explainer reads. Used by tests/bench/deviation_bench.cpp and by
+// the tests that assert rates over a few seeds.
+#include <algorithm>
+#include <cmath>
+#include <map>
+#include <optional>
+#include <set>
+#include <string>
+#include <vector>
+
+#include "deviation/explain.hpp"
+#include "pipeline/reference.hpp"
+#include "pipeline/witness_findings.hpp"
+#include "support/input_error.hpp"
+#include "synth/tradition.hpp"
+
+namespace apograph::testing {
+
+/// Counts of one group of cells (a script, a slip class, or all).
+struct GradeCounts {
+  long erroneous = 0;    ///< cells whose reading is not the author's, by a keyed slip
+  long caught = 0;       ///< of them, flagged (a copying slip proposed or unexplained)
+  long right_class = 0;  ///< of those, with the class the slip calls for
+  long restored = 0;     ///< of those, with the author's reading as the emendation
+  long flagged = 0;      ///< every flagged cell (precision = caught / flagged)
+
+  void Add(const GradeCounts& o) {
+    erroneous += o.erroneous;
+    caught += o.caught;
+    right_class += o.right_class;
+    restored += o.restored;
+    flagged += o.flagged;
+  }
+};
+
+struct Grade {
+  GradeCounts all;
+  std::map<std::string, GradeCounts> by_script;  ///< the witness's script (as apograph reads it)
+  std::map<std::string, GradeCounts> by_class;   ///< the generator's slip class
+  long departures = 0, departures_kept = 0;      ///< author's departures read by a witness
+  long unkeyed = 0;     ///< cells off the author's reading with no keyed slip (recomputed...)
+  long misaligned = 0;  ///< rows whose argument in use is not the archetype's (not graded)
+  long right_columns = 0, right_refused = 0;  ///< witness columns with a right reference
+  long wrong_columns = 0, wrong_refused = 0;  ///< witness columns with a wrong reference
+  long wrong_emendations = 0;                 ///< emendations proposed against a wrong reference
+  long unreferenced = 0;                      ///< table columns without a reference
+  /// With `debug` set before grading: one line per slip missed, misnamed or
+  /// wrongly emended, and per false flag.
+  bool debug = false;
+  std::vector<std::string> notes;
+
+  void Add(const Grade& o) {
+    notes.insert(notes.end(), o.notes.begin(), o.notes.end());
+    all.Add(o.all);
+    for (const auto& [k, v] : o.by_script) by_script[k].Add(v);
+    for (const auto& [k, v] : o.by_class) by_class[k].Add(v);
+    departures += o.departures;
+    departures_kept += o.departures_kept;
+    unkeyed += o.unkeyed;
+    misaligned += o.misaligned;
+    right_columns += o.right_columns;
+    right_refused += o.right_refused;
+    wrong_columns += o.wrong_columns;
+    wrong_refused += o.wrong_refused;
+    wrong_emendations += o.wrong_emendations;
+    unreferenced += o.unreferenced;
+  }
+};
+
+namespace grade_internal {
+
+inline Sexagesimal At(const Sexagesimal& v, int places) {
+  return v.places() <= places ? v.Extended(places) : v.Rounded(places);
+}
+
+/// The generator's class of a slip as graded ("place-dropped (run)" for a
+/// systematic one) and the apograph classes that name it rightly.
+inline std::string ClassName(const synth::Slip& s) {
+  std::string name = synth::SlipName(s.slip);
+  if (s.detail.rfind("systematic:", 0) == 0) name += " (run)";
+  return name;
+}
+
+/// `visible`: cells of the slip's run this witness shows (an eye-skip seen in
+/// one cell only is one entry taken from its neighbour: a repetition too).
+inline std::set<std::string> Expected(const synth::Slip& s, int visible) {
+  using K = synth::SlipClass;
+  const bool run = s.detail.rfind("systematic:", 0) == 0;
+  switch (s.slip) {
+    case K::kLookAlike:
+    case K::kOtherSymbol:
+    case K::kLastPlace:
+      return {"confusion"};
+    case K::kTransposition:
+      return {"transposition"};
+    case K::kPlaceDropped:
+    case K::kPlaceAdded:
+    case K::kPlaceShifted:
+      return {run ? "systematic" : "place"};
+    case K::kRepetition:
+      return {"repetition"};
+    case K::kEyeSkip:
+      if (visible == 1) return {"displaced-run", "repetition"};
+      return {"displaced-run"};
+    case K::kConstantRun:
+      return {"systematic"};
+    case K::kBlank:
+      return {"blank"};
+    case K::kIllegible:
+    case K::kPartlyIllegible:
+      return {"illegible"};
+    default:
+      return {};
+  }
+}
+
+/// Slips by (table, archetype row, column), in the order they were made.
+using SlipIndex =
+    std::map<std::tuple<std::string, int, std::string>, std::vector<const synth::Slip*>>;
+
+inline SlipIndex IndexSlips(const synth::Tradition& t) {
+  SlipIndex out;
+  for (const auto& n : t.nodes) {
+    for (const auto* list : {&n.slips, &n.recognition}) {
+      for (const auto& s : *list) out[{s.table, s.origin_row, s.column}].push_back(&s);
+    }
+  }
+  return out;
+}
+
+/// The slip that left the witness's reading: the last one made at the cell
+/// whose reading after it is the witness's.
+inline const synth::Slip* SlipFor(const SlipIndex& index, const std::string& table, int origin,
+                                  const std::string& column, const Cell& cell) {
+  auto it = index.find({table, origin, column});
+  if (it == index.end()) return nullptr;
+  const synth::Slip* found = nullptr;
+  for (const auto* s : it->second) {
+    bool same = s->after == cell.raw;
+    if (!same && cell.value) {
+      const auto v = Sexagesimal::Parse(s->after);
+      same = v && *v == *cell.value;
+    }
+    if (!same && cell.state != CellState::kRead) {
+      same = (s->slip == synth::SlipClass::kBlank && cell.state == CellState::kBlank) ||
+             (s->slip == synth::SlipClass::kIllegible && cell.state == CellState::kIllegible) ||
+             (s->slip == synth::SlipClass::kPartlyIllegible && cell.state == CellState::kPartial);
+    }
+    if (same) found = s;
+  }
+  return found;
+}
+
+/// What the findings of one witness column say about each row.
+struct Flag {
+  std::string cls;
+  std::optional<Sexagesimal> emendation;
+};
+
+inline std::string NoteOf(const pipeline::WitnessFindings& w, int column, std::size_t row) {
+  for (const auto& f : w.findings) {
+    if (f.column != column) continue;
+    for (const auto& c : f.cells) {
+      if (c.row == row) return f.Note(w.siglum);
+    }
+  }
+  return "(no finding)";
+}
+
+inline std::map<std::size_t, Flag> Flags(const pipeline::WitnessFindings& w, int column) {
+  std::map<std::size_t, Flag> out;
+  for (const auto& f : w.findings) {
+    if (f.column != column || !deviation::IsCopyingSlip(f.best().cls)) continue;
+    for (const auto& c : f.cells) {
+      if (c.value && c.emendation && c.emendation->Identical(At(*c.value, f.places))) continue;
+      out[c.row] = {deviation::ToString(f.best().cls), c.emendation};
+    }
+  }
+  return out;
+}
+
+/// A reference is wrong for a column when it misses the author's computed
+/// values by more than one unit at more than 5% of the rows.
+inline bool WrongReference(const pipeline::ColumnReference& ref, const synth::AuthorTable& author,
+                           const synth::ColumnKey& key) {
+  if (key.role == synth::ColumnKey::Role::kUnexplained) return true;
+  auto r = ref;
+  r.column = author.text.ColumnIndex(key.name);
+  if (r.column < 0) return true;
+  const auto re = r.Recompute(author.text);
+  int off = 0, n = 0;
+  for (std::size_t i = 0; i < key.computed.size() && i < re.computed.size(); ++i) {
+    ++n;
+    off += !re.computed[i] ||
+           std::fabs(DiffUnits(*re.computed[i], key.computed[i], key.places)) > 1 + 1e-9;
+  }
+  return n == 0 || off > 0.05 * n;
+}
+
+struct Witness {
+  const synth::Node* node = nullptr;
+  const synth::TableText* text = nullptr;
+  Transcription table;
+};
+
+inline std::vector<Witness> Witnesses(const synth::Tradition& t, std::size_t ti) {
+  std::vector<Witness> out;
+  for (int i : t.Surviving()) {
+    const auto& node = t.nodes[static_cast<std::size_t>(i)];
+    auto tables = t.WitnessTables(i);
+    if (ti >= tables.size() || ti >= node.transcribed.size()) continue;
+    Witness w{&node, &node.transcribed[ti], tables[ti]};
+    w.table.witness.kind = synth::WitnessKindName(node.kind);  // what the editor declares
+    out.push_back(std::move(w));
+  }
+  return out;
+}
+
+inline std::string ScriptOf(const Transcription& t) { return deviation::ScriptNameFor(t.witness); }
+
+/// Grades one witness column against a right reference.
+inline void GradeColumn(const Witness& w, const pipeline::WitnessFindings& found,
+                        const synth::AuthorTable& author, const synth::ColumnKey& key,
+                        const SlipIndex& index, Grade& g) {
+  const int column = w.table.ColumnIndex(key.name);
+  const auto flags = Flags(found, column);
+  std::map<int, int> visible;  // run id -> cells of this column that show it
+  for (std::size_t r = 0; r < w.table.rows.size() && r < w.text->origin.size(); ++r) {
+    const Cell& cell = w.table.rows[r].cells[static_cast<std::size_t>(column)];
+    if (const auto* s = SlipFor(index, author.key.id, w.text->origin[r], key.name, cell))
+      ++visible[s->run];
+  }
+  std::set<int> seen;
+  GradeCounts& script = g.by_script[ScriptOf(w.table)];
+  for (std::size_t r = 0; r < w.table.rows.size() && r < w.text->origin.size(); ++r) {
+    const int origin = w.text->origin[r];
+    const auto arg = w.table.ArgumentInUse(r);
+    if (origin < 0 || !seen.insert(origin).second || !arg ||
+        !(*arg == author.key.argument.values[static_cast<std::size_t>(origin)])) {
+      ++g.misaligned;
+      continue;
+    }
+    const Cell& cell = w.table.rows[r].cells[static_cast<std::size_t>(column)];
+    const Sexagesimal want = At(key.tabulated[static_cast<std::size_t>(origin)], key.places);
+    const bool right =
+        cell.state == CellState::kRead && cell.value && At(*cell.value, key.places) == want;
+    const auto flag = flags.find(r);
+    const bool flagged = flag != flags.end();
+    const bool departed = !(want == At(key.computed[static_cast<std::size_t>(origin)], key.places));
+    if (right && flagged && g.debug) {
+      g.notes.push_back("FALSE FLAG " + author.key.id + " " + key.name + " want " +
+                        want.ToString() + (departed ? " (author's departure)" : "") + " (" +
+                        ScriptOf(w.table) + ") | " + NoteOf(found, column, r));
+    }
+    if (right) {
+      if (departed) {
+        ++g.departures;
+        g.departures_kept += !flagged;
+      }
+      g.all.flagged += flagged;
+      script.flagged += flagged;
+      continue;
+    }
+    const synth::Slip* slip = SlipFor(index, author.key.id, origin, key.name, cell);
+    if (g.debug && !slip) {
+      g.notes.push_back(std::string("UNKEYED ") + author.key.id + " " + key.name + " want " +
+                        want.ToString() + " | " + NoteOf(found, column, r));
+    }
+    if (!slip) {  // recomputed or corrected, or slips stacked past recognition
+      ++g.unkeyed;
+      g.all.flagged += flagged;
+      script.flagged += flagged;
+      continue;
+    }
+    GradeCounts one;
+    one.erroneous = 1;
+    one.flagged = flagged;
+    one.caught = flagged;
+    if (flagged) {
+      one.right_class = Expected(*slip, visible[slip->run]).count(flag->second.cls) > 0;
+      one.restored = flag->second.emendation && At(*flag->second.emendation, key.places) == want;
+    }
+    if (g.debug && (!one.caught || !one.right_class || !one.restored)) {
+      g.notes.push_back(std::string(!one.caught        ? "MISSED "
+                                    : !one.right_class ? "CLASS "
+                                                       : "EMEND ") +
+                        ClassName(*slip) + " [" + slip->detail + "] " + slip->pair + " " +
+                        slip->before + " -> " + slip->after + " want " + want.ToString() + " (" +
+                        ScriptOf(w.table) + ") | " + NoteOf(found, column, r));
+    }
+    g.all.Add(one);
+    script.Add(one);
+    one.flagged = 0;  // precision is not per class (a false flag has no class)
+    g.by_class[ClassName(*slip)].Add(one);
+  }
+}
+
+/// Emendations proposed on a witness column (against a wrong reference).
+inline long Emendations(const pipeline::WitnessFindings& found, int column) {
+  return static_cast<long>(Flags(found, column).size());
+}
+
+}  // namespace grade_internal
+
+/// Grades every table of `t` with references identified automatically.
+inline Grade GradeTradition(const synth::Tradition& t, const std::string& scripts_dir,
+                            bool debug = false) {
+  using namespace grade_internal;
+  Grade g;
+  g.debug = debug;
+  const SlipIndex index = IndexSlips(t);
+  for (std::size_t ti = 0; ti < t.tables.size(); ++ti) {
+    const auto& author = t.tables[ti];
+    const auto ws = Witnesses(t, ti);
+    std::vector<Transcription> tables;
+    for (const auto& w : ws) tables.push_back(w.table);
+    pipeline::ReferenceRequest request;
+    request.automatic = true;
+    std::vector<pipeline::ColumnReference> refs;
+    try {
+      refs = pipeline::ResolveReferences(tables, request);
+    } catch (const InputError&) {
+      // nothing identified: every column unreferenced
+    }
+    const auto found = pipeline::ExplainTradition(tables, refs, scripts_dir);
+    for (const auto& key : author.key.columns) {
+      auto ref = std::find_if(refs.begin(), refs.end(), [&](const pipeline::ColumnReference& r) {
+        return r.column_name == key.name;
+      });
+      if (ref == refs.end()) {
+        ++g.unreferenced;
+        continue;
+      }
+      const bool wrong = WrongReference(*ref, author, key);
+      for (std::size_t i = 0; i < ws.size(); ++i) {
+        const int column = ws[i].table.ColumnIndex(key.name);
+        if (column < 0) continue;
+        const bool refused = found[i].Refused(key.name);
+        if (wrong) {
+          ++g.wrong_columns;
+          g.wrong_refused += refused;
+          g.wrong_emendations += Emendations(found[i], column);
+          continue;
+        }
+        ++g.right_columns;
+        g.right_refused += refused;
+        GradeColumn(ws[i], found[i], author, key, index, g);
+      }
+    }
+  }
+  return g;
+}
+
+/// The first table's first column explained against a reference made wrong on
+/// purpose (`how`: 0 its first parameter 10% off, 1 another model at its
+/// default parameters): counts the witness columns refused and the
+/// emendations proposed.
+inline Grade GradeWrongReference(const synth::Tradition& t, const std::string& scripts_dir,
+                                 int how) {
+  using namespace grade_internal;
+  Grade g;
+  const auto ws = Witnesses(t, 0);
+  std::vector<Transcription> tables;
+  for (const auto& w : ws) tables.push_back(w.table);
+  const auto& key = t.tables[0].key.columns.at(0);
+  pipeline::ReferenceRequest request;
+  request.automatic = true;
+  request.columns = {key.name};
+  std::vector<pipeline::ColumnReference> refs;
+  try {
+    refs = pipeline::ResolveReferences(tables, request);
+  } catch (const InputError&) {
+    return g;
+  }
+  if (refs.empty()) return g;
+  auto& ref = refs.front();
+  if (how == 0) {
+    if (ref.params.empty() || ref.params.front() == 0) return g;
+    ref.params.front() *= 1.1;
+  } else {
+    const std::string other = ref.model->name() == "sine" ? "chord" : "sine";
+    pipeline::ReferenceRequest given;
+    given.model = other;
+    given.columns = {key.name};
+    refs = pipeline::ResolveReferences(tables, given);
+  }
+  if (!WrongReference(refs.front(), t.tables[0], key)) return g;
+  const auto found = pipeline::ExplainTradition(tables, refs, scripts_dir);
+  for (std::size_t i = 0; i < ws.size(); ++i) {
+    const int column = ws[i].table.ColumnIndex(key.name);
+    if (column < 0) continue;
+    ++g.wrong_columns;
+    g.wrong_refused += found[i].Refused(key.name);
+    g.wrong_emendations += Emendations(found[i], column);
+  }
+  return g;
+}
+
+}  // namespace apograph::testing

@@ -1,0 +1,42 @@
+// Rates of the deviation stage over a few seeded traditions of the shared
+// generator (tests/synth), references identified automatically, slips from
+// the generator's own confusion model (not corpora/scripts/). The full
+// figures (300 draws) come from tests/bench/deviation_bench.cpp.
+#include <doctest/doctest.h>
+
+#include "test_paths.hpp"
+#include "tradition_grade.hpp"
+
+using namespace apograph;
+
+namespace {
+
+double Rate(long a, long b) { return b > 0 ? static_cast<double>(a) / static_cast<double>(b) : 0; }
+
+}  // namespace
+
+TEST_CASE("deviations in seeded traditions: flags, classes, readings and the author's share") {
+  const std::string dir = std::string(APOGRAPH_SOURCE_DIR) + "/corpora/scripts";
+  testing::Grade g, wrong;
+  for (std::uint64_t seed : {101u, 102u, 103u, 104u}) {
+    const auto t = synth::DrawTradition(seed, {});
+    g.Add(testing::GradeTradition(t, dir));
+    for (int how : {0, 1}) wrong.Add(testing::GradeWrongReference(t, dir, how));
+  }
+  const auto& a = g.all;
+  INFO("slips " << a.erroneous << ", caught " << a.caught << ", flagged " << a.flagged
+                << ", right class " << a.right_class << ", restored " << a.restored
+                << "; departures " << g.departures_kept << "/" << g.departures);
+  REQUIRE(a.erroneous >= 200);  // enough slips for the rates to mean something
+  CHECK(Rate(a.caught, a.erroneous) >= 0.95);
+  CHECK(Rate(a.caught, a.flagged) >= 0.95);
+  CHECK(Rate(a.right_class, a.caught) >= 0.90);
+  CHECK(Rate(a.restored, a.caught) >= 0.90);
+  REQUIRE(g.departures >= 50);
+  CHECK(Rate(g.departures_kept, g.departures) >= 0.90);
+  // A wrong reference (identified wrongly, or made wrong on purpose) never
+  // leads to a recorded emendation.
+  CHECK(wrong.wrong_columns > 0);
+  CHECK(g.wrong_emendations == 0);
+  CHECK(wrong.wrong_emendations == 0);
+}
