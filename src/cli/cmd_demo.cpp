@@ -125,7 +125,9 @@ int RunDemo(const std::vector<std::string>& args, Io& io) {
          << "/: the edition database, one report per table (*.md, every\n"
          << "deviation listed), the apparatus (*.tei.xml, *.tex, *.csv) and the stemmata (*.nwk, "
             "*.dot,\n"
-         << "*.svg). Try: apograph errors --db " << db_path.string()
+         << "*.svg).\nOpen " << (dir / "report.html").string()
+         << " in a browser: every table plotted, the findings linked to their cells.\n"
+         << "Try: apograph errors --db " << db_path.string()
          << " --table sun-eq --witness D --auto\n";
   return kOk;
 }

@@ -102,5 +102,6 @@ int RunCollate(const std::vector<std::string>& args, Io& io);
 int RunStemma(const std::vector<std::string>& args, Io& io);
 int RunApparatus(const std::vector<std::string>& args, Io& io);
 int RunReport(const std::vector<std::string>& args, Io& io);
+int RunServe(const std::vector<std::string>& args, Io& io);
 
 }  // namespace apograph::cli

@@ -20,6 +20,7 @@ extern const char kCollateUsage[];
 extern const char kStemmaUsage[];
 extern const char kApparatusUsage[];
 extern const char kReportUsage[];
+extern const char kServeUsage[];
 
 const std::vector<Command>& Commands() {
   static const std::vector<Command> kCommands = {
@@ -48,6 +49,8 @@ const std::vector<Command>& Commands() {
        RunApparatus},
       {"report", "Report on a table or a work: everything found, with its evidence", kReportUsage,
        RunReport},
+      {"serve", "Review findings and decide them in a browser (local, with a token)", kServeUsage,
+       RunServe},
   };
   return kCommands;
 }

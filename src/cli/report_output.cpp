@@ -6,6 +6,7 @@
 
 #include "lineage/lineage_text.hpp"
 #include "publish/apparatus.hpp"
+#include "publish/html_report.hpp"
 #include "store/edition_store.hpp"
 #include "support/input_error.hpp"
 
@@ -42,7 +43,7 @@ void WriteTableFiles(const fs::path& dir, const pipeline::TableAnalysis& a,
 }
 
 void PrintAndWrite(const pipeline::TableAnalysis& a, const ReportRequest& request, Io& io) {
-  io.out << publish::TableReport(a, request.report);
+  if (!request.html) io.out << publish::TableReport(a, request.report);
   if (!request.output_dir.empty()) WriteTableFiles(request.output_dir, a, request);
 }
 
@@ -75,10 +76,15 @@ std::size_t WriteWorkReports(store::Database& db, const std::string& work_id,
   }
   const auto lineage = pipeline::WorkLineage(analyses, request.analysis.lineage);
   const std::string text = publish::WorkLineageReport(work_id, lineage);
-  io.out << text;
+  std::string html;
+  for (const auto& a : analyses) html += publish::HtmlTableSection(a);
+  html = publish::HtmlDocument("apograph report: " + work_id,
+                               html + publish::HtmlWorkSection(work_id, lineage));
+  io.out << (request.html ? html : text);
   if (!request.output_dir.empty()) {
     const fs::path dir(request.output_dir);
     const OutputRules& rules = request.output_rules;
+    WriteOutputFile(FileInFolder(dir, "report", ".html", rules), html, rules);
     WriteOutputFile(FileInFolder(dir, work_id, ".stemma.md", rules), text, rules);
     WriteStemma(dir, work_id, lineage, rules);
   }

@@ -18,6 +18,9 @@ struct ReportRequest {
   OutputRules output_rules;       ///< how the files may be written (the database, --force)
   publish::ReportOptions report;  ///< for what is printed
   std::string editor;             ///< named in the apparatus files beside those who decided
+  /// Print one self-contained HTML page instead of Markdown (the work's
+  /// page after every table has been analysed).
+  bool html = false;
   pipeline::AnalysisOptions analysis;
 };
 
@@ -28,7 +31,9 @@ pipeline::TableAnalysis ReportTable(store::Database& db, const std::string& tabl
 
 /// Every table of the work, then the stemma argued from all of them. A table
 /// that cannot be analysed (InputError) is skipped with its reason printed;
-/// returns how many were skipped (InputError when all were).
+/// returns how many were skipped (InputError when all were). With an output
+/// folder, also writes report.html there (every table and the work's stemma
+/// in one self-contained page).
 std::size_t WriteWorkReports(store::Database& db, const std::string& work_id,
                              const ReportRequest& request, Io& io);
 

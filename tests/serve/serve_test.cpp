@@ -1,0 +1,164 @@
+// The review page's security checks and decisions, through Handle (no
+// socket): token, request targets, body limit, stale pages, runs.
+#include <doctest/doctest.h>
+
+#include <set>
+
+#include "../store/store_test_util.hpp"
+#include "serve/guard.hpp"
+#include "serve/pages.hpp"
+#include "store/deviation_store.hpp"
+#include "store/edition_store.hpp"
+#include "store/review_store.hpp"
+
+using namespace apograph;
+
+namespace {
+
+store::EmendationRecord Proposal(int row, const std::string& proposed, int group = 0) {
+  store::EmendationRecord r;
+  r.table_id = "solar";
+  r.siglum = "A";
+  r.row = row;
+  r.column_name = "equation";
+  r.arg = std::to_string(row + 1);
+  r.tabulated = "0;14";
+  r.proposed = proposed;
+  r.cls = group ? "displaced-run" : "confusion";
+  r.evidence = "tens of minutes: 4 read as 1";
+  r.score = 0.5;
+  r.group = group;
+  return r;
+}
+
+struct Fixture {
+  testing::TempDb file{"serve"};
+  store::Database db{file.path()};
+  serve::Site site{db, "0123456789abcdef0123456789abcdef", "A. Editor", {}};
+  Fixture() {
+    store::Import(db, {testing::MakeTranscription("solar", "A")});
+    store::RecordEmendations(db,
+                             {Proposal(3, "0;44"), Proposal(5, "0;50", 1), Proposal(6, "0;52", 1)});
+  }
+  serve::HttpResponse Get(const std::string& target) {
+    return serve::Handle(site, {"GET", target, "", 0, ""});
+  }
+  serve::HttpResponse Post(const std::string& body, const std::string& target = "/decide") {
+    return serve::Handle(site,
+                         {"POST", target, "application/x-www-form-urlencoded", body.size(), body});
+  }
+  std::string Token() const { return site.token; }
+};
+
+std::string StatusOf(store::Database& db, std::int64_t id) {
+  for (const auto& r : store::ListEmendations(db))
+    if (r.id == id) return r.status;
+  return "";
+}
+
+}  // namespace
+
+TEST_CASE("tokens are random, 128 bits, and compared exactly") {
+  std::set<std::string> seen;
+  for (int i = 0; i < 20; ++i) seen.insert(serve::NewToken());
+  CHECK(seen.size() == 20);
+  CHECK(seen.begin()->size() == 32);
+  const std::string t = *seen.begin();
+  CHECK(serve::TokenMatches(t, t));
+  CHECK_FALSE(serve::TokenMatches(t, t.substr(0, 31)));
+  CHECK_FALSE(serve::TokenMatches(t, t + "0"));
+  CHECK_FALSE(serve::TokenMatches(t, ""));
+  CHECK_FALSE(serve::TokenMatches("", ""));
+  std::string other = t;
+  other.back() = other.back() == '0' ? '1' : '0';
+  CHECK_FALSE(serve::TokenMatches(t, other));
+}
+
+TEST_CASE("request targets cannot leave the served pages") {
+  for (const char* ok : {"/", "/report?table=sun-eq&token=ab", "/decide", "/?witness=A+B"})
+    CHECK_MESSAGE(serve::SafeTarget(ok), ok);
+  for (const char* bad :
+       {"", "report", "/../etc/passwd", "/a/../b", "/%2e%2e/x", "/a%2Fb", "/a%2fb", "/a\\b",
+        "/a%5cb", "/x?f=..%2F..%2Fetc", "/x?f=%00", "//etc", "/a.html", "/?t=%2e%2e"})
+    CHECK_MESSAGE(!serve::SafeTarget(bad), bad);
+}
+
+TEST_CASE("forms decode, keeping invalid escapes as written") {
+  const auto f = serve::ParseForm("a=1&b=x+y%21&c&d=%zz&a=2");
+  CHECK(f.at("a") == "2");
+  CHECK(f.at("b") == "x y!");
+  CHECK(f.at("c") == "");
+  CHECK(f.at("d") == "%zz");
+  CHECK(serve::UrlDecode(serve::UrlEncode("0;14 & =?/")) == "0;14 & =?/");
+  CHECK(serve::IsLoopback("127.0.0.1"));
+  CHECK_FALSE(serve::IsLoopback("0.0.0.0"));
+}
+
+TEST_CASE("every request without the right token is refused") {
+  Fixture f;
+  CHECK(f.Get("/").status == 403);
+  CHECK(f.Get("/?token=wrong").status == 403);
+  CHECK(f.Get("/report?table=solar").status == 403);
+  CHECK(f.Get("/?token=" + f.Token()).status == 200);
+  // On POST the token must be in the form, not only in the URL.
+  CHECK(f.Post("action=accept&id=1", "/decide?token=" + f.Token()).status == 403);
+  CHECK(StatusOf(f.db, 1) == "proposed");
+  CHECK(f.Get("/nothing?token=" + f.Token()).status == 404);
+  CHECK(f.Get("/../solar?token=" + f.Token()).status == 400);
+  CHECK(f.Post("token=" + f.Token(), "/").status == 405);
+}
+
+TEST_CASE("a body over the limit is refused before anything is decided") {
+  Fixture f;
+  const std::string body =
+      "token=" + f.Token() + "&action=accept&id=1&note=" + std::string(serve::kMaxBody, 'x');
+  CHECK(f.Post(body).status == 413);
+  CHECK(StatusOf(f.db, 1) == "proposed");
+  serve::HttpRequest declared{"POST", "/decide", "application/x-www-form-urlencoded",
+                              serve::kMaxBody + 1, "token=" + f.Token()};
+  CHECK(serve::Handle(f.site, declared).status == 413);
+}
+
+TEST_CASE("accepting a run decides every cell; a stale page is refused and writes nothing") {
+  Fixture f;
+  const std::string state = store::FindingState(f.db, 2);
+  CHECK(state == "proposed");
+  const auto r = f.Post("token=" + f.Token() + "&action=accept&id=3&state=" + state + "&note=ok");
+  CHECK(r.status == 303);
+  CHECK(r.location.rfind("/?token=" + f.Token(), 0) == 0);
+  CHECK(StatusOf(f.db, 2) == "accepted");
+  CHECK(StatusOf(f.db, 3) == "accepted");
+  CHECK(StatusOf(f.db, 1) == "proposed");
+  // The other tab still shows "proposed" and rejects: refused.
+  const auto stale = f.Post("token=" + f.Token() + "&action=reject&id=2&state=proposed");
+  CHECK(stale.status == 409);
+  CHECK(StatusOf(f.db, 2) == "accepted");
+  // Undo with the current state brings the run back to proposed.
+  const auto undo = f.Post("token=" + f.Token() + "&action=undo&id=2&state=" +
+                           serve::UrlEncode(store::FindingState(f.db, 2)));
+  CHECK(undo.status == 303);
+  CHECK(StatusOf(f.db, 3) == "proposed");
+  // Who decided is recorded with the note.
+  f.Post("token=" + f.Token() + "&action=reject&id=1&note=B+agrees");
+  for (const auto& e : store::ListEmendations(f.db))
+    if (e.id == 1) CHECK(e.editor_note == "A. Editor: B agrees");
+}
+
+TEST_CASE("an override of a cell is bound as data and checked for staleness") {
+  Fixture f;
+  const std::string sneaky = "0;44'); DROP TABLE emendation; --";
+  const auto bad = f.Post("token=" + f.Token() +
+                          "&action=override&table=solar&arg=4&column="
+                          "equation&reading=" +
+                          serve::UrlEncode(sneaky));
+  CHECK(bad.status == 400);  // not a reading
+  CHECK(store::ListEmendations(f.db).size() == 3);
+  const std::string column = serve::UrlEncode("equation'; --");
+  CHECK(f.Post("token=" + f.Token() + "&action=override&table=solar&arg=4&column=" + column +
+               "&reading=0;44&state=cell:none")
+            .status == 303);
+  CHECK(store::CellState(f.db, "solar", "4", "equation'; --") != "cell:none");
+  CHECK(f.Post("token=" + f.Token() + "&action=conjecture&table=solar&arg=4&column=" + column +
+               "&reading=0;45&state=cell:none")
+            .status == 409);
+}
