@@ -120,7 +120,7 @@ int RunDemo(const std::vector<std::string>& args, Io& io) {
                           [&dir](const fs::path& file) { RecordDemoFile(dir, file); }};
   request.report.max_findings = findings;
   request.editor = pipeline::DefaultEditor();
-  WriteWorkReports(db, tables.front().work.id, request, io);
+  const auto outcome = WriteWorkReports(db, tables.front().work.id, request, io);
   io.out << "Files in " << dir.string()
          << "/: the edition database, one report per table (*.md, every\n"
          << "deviation listed), the apparatus (*.tei.xml, *.tex, *.csv) and the stemmata (*.nwk, "
@@ -129,7 +129,7 @@ int RunDemo(const std::vector<std::string>& args, Io& io) {
          << " in a browser: every table plotted, the findings linked to their cells.\n"
          << "Try: apograph errors --db " << db_path.string()
          << " --table sun-eq --witness D --auto\n";
-  return kOk;
+  return outcome.skipped > 0 || outcome.findings ? kFindings : kOk;
 }
 
 }  // namespace apograph::cli

@@ -19,7 +19,7 @@ extern const char kFitUsage[] =
     "                    [--fix NAME=VALUE]... [--rounding nearest|truncate] [--places N]\n"
     "                    [--grid G [--grid-origin X] [--round-nodes]] [--displacement VALUE|fit]\n"
     "                    [--sign signed|negated|magnitude|conventional]\n"
-    "                    [--tolerance UNITS] [--solver fast|ceres] [--all-entries]\n"
+    "                    [--tolerance UNITS] [--all-entries]\n"
     "                    [--format text|json] [--db FILE]\n\n"
     "Estimates the model's free parameters by robust least squares (Cauchy loss, scale one\n"
     "unit of the last place), so that a few miscopied entries do not pull the estimate;\n"
@@ -33,7 +33,7 @@ extern const char kFitUsage[] =
 namespace {
 
 struct FitArgs {
-  std::string table, witness, model, rounding, displacement, format, db, solver;
+  std::string table, witness, model, rounding, displacement, format, db;
   std::string sign = "conventional";
   std::vector<std::string> columns, fixes;
   int places = -1;
@@ -59,7 +59,6 @@ estimate::FitOptions Options(const FitArgs& a, const model::Model& m) {
   else if (!a.displacement.empty())
     o.practice.displacement = ParseNumber("--displacement", a.displacement);
   o.tolerance = a.tolerance;
-  o.solver = a.solver == "ceres" ? estimate::Solver::kCeres : estimate::Solver::kFast;
   for (const auto& f : a.fixes) {
     const auto eq = f.find('=');
     if (eq == std::string::npos || eq == 0)
@@ -97,7 +96,6 @@ int RunFit(const std::vector<std::string>& args, Io& io) {
       "signed, negated, magnitude or conventional (the model's convention)")(
       "tolerance", po::value(&a.tolerance)->default_value(1.0),
       "flag entries more than this many units away")(
-      "solver", po::value(&a.solver)->default_value("fast"), "fast or ceres (reference)")(
       "all-entries", po::bool_switch(&a.all_entries),
       "text: list every entry, not only flagged ones");
   AddDbOption(opts, a.db);
@@ -105,7 +103,6 @@ int RunFit(const std::vector<std::string>& args, Io& io) {
   po::variables_map vm;
   if (ParseOptions(cmd, args, opts, vm, io)) return kOk;
   CheckChoice("--format", a.format, {"text", "json"});
-  CheckChoice("--solver", a.solver, {"fast", "ceres"});
   store::Database db = OpenEdition(a.db);
   const pipeline::ModelLibrary library = LoadModels(db, io);
   const auto model = library.FindOrThrow(a.model, "--model");

@@ -98,6 +98,18 @@ int RevisionOf(store::Database& db, const std::string& table, const std::string&
   return 1;
 }
 
+/// Something to look at: no candidate, entries the best one flags, or a
+/// mean motion with entries it does not explain.
+bool HasFindings(const std::vector<Job>& jobs) {
+  for (const auto& job : jobs) {
+    const auto& r = job.result;
+    if (r.ranked.empty() || r.ranked[0].fit.flagged > 0 ||
+        (r.mean_motion && r.mean_motion->unexplained > 0))
+      return true;
+  }
+  return false;
+}
+
 int PrintAll(const std::vector<Job>& jobs, const std::vector<estimate::CatalogEntry>& catalog,
              Format format, Io& io) {
   if (format == Format::kJson) {
@@ -105,7 +117,7 @@ int PrintAll(const std::vector<Job>& jobs, const std::vector<estimate::CatalogEn
     for (const auto& job : jobs)
       j["identifications"].push_back(estimate::IdentificationJson(job.result, job.table, catalog));
     io.out << j.dump(2) << "\n";
-    return kOk;
+    return HasFindings(jobs) ? kFindings : kOk;
   }
   Tabular tab;
   tab.headers = {"table", "witness", "column", "model", "practice", "exact", "flagged", "ties"};
@@ -124,7 +136,7 @@ int PrintAll(const std::vector<Job>& jobs, const std::vector<estimate::CatalogEn
              std::to_string(c.fit.flagged), std::to_string(r.notes.size())});
   }
   io.out << (format == Format::kCsv ? tab.RenderCsv() : tab.RenderText());
-  return kOk;
+  return HasFindings(jobs) ? kFindings : kOk;
 }
 
 }  // namespace
@@ -178,7 +190,6 @@ int RunIdentify(const std::vector<std::string>& args, Io& io) {
   RunJobs(jobs, options, all ? static_cast<unsigned>(threads) : 1u, io);
   store::SaveIdentifications(database, Records(jobs));
   if (all) return PrintAll(jobs, catalog, ParseFormat(format), io);
-  bool findings = false;
   // Columns made from other columns of the same table.
   const auto derived = jobs.empty() ? std::vector<estimate::DerivedColumn>{}
                                     : estimate::DetectDerivedColumns(jobs[0].table);
@@ -205,11 +216,7 @@ int RunIdentify(const std::vector<std::string>& args, Io& io) {
       io.out << estimate::IdentificationText(job.result, job.table, catalog) << "\n";
     for (const auto& d : derived) io.out << "derived column: " << d.evidence << "\n";
   }
-  for (const auto& job : jobs) {
-    findings = findings || job.result.ranked.empty() || job.result.ranked[0].fit.flagged > 0 ||
-               (job.result.mean_motion && job.result.mean_motion->unexplained > 0);
-  }
-  return findings ? kFindings : kOk;
+  return HasFindings(jobs) ? kFindings : kOk;
 }
 
 }  // namespace apograph::cli

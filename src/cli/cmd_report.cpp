@@ -75,12 +75,14 @@ int RunReport(const std::vector<std::string>& args, Io& io) {
     const auto a = ReportTable(db, table, request, io);
     if (request.html)
       io.out << publish::HtmlDocument("apograph report: " + table, publish::HtmlTableSection(a));
+    return HasFindings(a) ? kFindings : kOk;
   } else {
     if (store::TablesOfWork(db, work).empty()) {
       throw InputError::ForOption("--work",
                                   ExpectedFound("a work in the database", "'" + work + "'"));
     }
-    if (WriteWorkReports(db, work, request, io) > 0) return kFindings;
+    const auto outcome = WriteWorkReports(db, work, request, io);
+    if (outcome.skipped > 0 || outcome.findings) return kFindings;
   }
   return kOk;
 }

@@ -56,8 +56,19 @@ pipeline::TableAnalysis ReportTable(store::Database& db, const std::string& tabl
   return a;
 }
 
-std::size_t WriteWorkReports(store::Database& db, const std::string& work_id,
-                             const ReportRequest& request, Io& io) {
+bool HasFindings(const pipeline::TableAnalysis& a) {
+  for (const auto& w : a.witnesses) {
+    if (!w.findings.empty()) return true;
+    for (const auto& v : w.verdicts) {
+      if (!v.verdict.explains) return true;
+    }
+  }
+  return false;
+}
+
+WorkReportOutcome WriteWorkReports(store::Database& db, const std::string& work_id,
+                                   const ReportRequest& request, Io& io) {
+  WorkReportOutcome outcome;
   std::vector<pipeline::TableAnalysis> analyses;
   const auto tables = store::TablesOfWork(db, work_id);
   for (const auto& table : tables) {
@@ -72,6 +83,7 @@ std::size_t WriteWorkReports(store::Database& db, const std::string& work_id,
       continue;
     }
     PrintAndWrite(*a, request, io);
+    outcome.findings = outcome.findings || HasFindings(*a);
     analyses.push_back(std::move(*a));
   }
   const auto lineage = pipeline::WorkLineage(analyses, request.analysis.lineage);
@@ -88,7 +100,8 @@ std::size_t WriteWorkReports(store::Database& db, const std::string& work_id,
     WriteOutputFile(FileInFolder(dir, work_id, ".stemma.md", rules), text, rules);
     WriteStemma(dir, work_id, lineage, rules);
   }
-  return tables.size() - analyses.size();
+  outcome.skipped = tables.size() - analyses.size();
+  return outcome;
 }
 
 }  // namespace apograph::cli

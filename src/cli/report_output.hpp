@@ -31,10 +31,19 @@ pipeline::TableAnalysis ReportTable(store::Database& db, const std::string& tabl
 
 /// Every table of the work, then the stemma argued from all of them. A table
 /// that cannot be analysed (InputError) is skipped with its reason printed;
-/// returns how many were skipped (InputError when all were). With an output
+/// says how many were skipped (InputError when all were). With an output
 /// folder, also writes report.html there (every table and the work's stemma
 /// in one self-contained page).
-std::size_t WriteWorkReports(store::Database& db, const std::string& work_id,
-                             const ReportRequest& request, Io& io);
+struct WorkReportOutcome {
+  std::size_t skipped = 0;  ///< tables that could not be analysed
+  bool findings = false;    ///< some table holds findings (HasFindings)
+};
+WorkReportOutcome WriteWorkReports(store::Database& db, const std::string& work_id,
+                                   const ReportRequest& request, Io& io);
+
+/// Whether an analysis holds something the editor should look at (exit 1):
+/// a deviation of any witness explained or unexplained, or a column whose
+/// reference the guard refused for a witness.
+bool HasFindings(const pipeline::TableAnalysis& a);
 
 }  // namespace apograph::cli

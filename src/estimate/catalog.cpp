@@ -25,9 +25,7 @@ std::string CatalogEntry::AppliesToText() const {
   return s;
 }
 
-std::string DefaultCatalogPath() {
-  return DataDir() + "/catalog/parameters.tsv";
-}
+std::string DefaultCatalogPath() { return DataDir() + "/catalog/parameters.tsv"; }
 
 std::optional<std::vector<std::pair<std::string, std::string>>> ParseAppliesTo(
     const std::string& text) {

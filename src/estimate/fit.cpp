@@ -157,7 +157,7 @@ internal::SolveOutcome SolveEach(internal::FitProblem& problem,
   internal::SolveOutcome best;
   best.cost = std::numeric_limits<double>::infinity();
   for (const auto& start : starts) {
-    auto s = internal::SolveCeres(problem, start, options.loss_scale, options.max_iterations);
+    auto s = internal::SolveReference(problem, start, options.loss_scale, options.max_iterations);
     if (s.cost < best.cost) best = std::move(s);
   }
   return best;
@@ -327,7 +327,7 @@ bool RefitInliers(const model::Model& model, const Transcription& table,
   ls.loss_scale = 1e6;  // Cauchy at this scale is least squares for residuals of a few units
   internal::FitProblem on(model, table, kept, ls);
   internal::SolveOutcome refit = options.solver == Solver::kCeres
-                                     ? internal::SolveCeres(on, best.x, ls.loss_scale, 20)
+                                     ? internal::SolveReference(on, best.x, ls.loss_scale, 20)
                                      : internal::Refine(on, best.x, ls.loss_scale, 20);
   if (options.solver == Solver::kCeres && !refit.covariance.empty())
     refit.normal = internal::Inverse(refit.covariance, static_cast<int>(best.x.size()));

@@ -27,7 +27,8 @@
 /// Two solvers give the same answer: a small dense Levenberg-Marquardt
 /// written for 1-8 parameters (the default; no allocation per iteration) and
 /// Ceres Solver with ceres::CauchyLoss and ceres::Covariance (kept as the
-/// reference and cross-checked by the tests). See DEVELOPERS notes for the
+/// reference, cross-checked by the tests, and linked only into the tests and
+/// benchmarks). See DEVELOPERS notes for the
 /// measured speed of each.
 ///
 /// How the fast solver keeps to a few full passes over the entries:
@@ -58,7 +59,13 @@
 
 namespace apograph::estimate {
 
+/// kCeres: the reference solver, in programs that call RegisterCeresSolver
+/// (the tests and benchmarks; the command-line program links no Ceres).
 enum class Solver { kFast, kCeres };
+
+/// Makes Solver::kCeres available: defined in fit_ceres.cpp, which only the
+/// test suite and the benchmarks link (CMake target apograph_ceres).
+void RegisterCeresSolver();
 
 struct FitOptions {
   model::Practice practice;

@@ -1,4 +1,5 @@
 // The reference solver: the same robust problem through Ceres Solver.
+#include "estimate/fit.hpp"
 #include "estimate/fit_solver.hpp"
 
 #include <ceres/ceres.h>
@@ -78,3 +79,7 @@ SolveOutcome SolveCeres(FitProblem& p, std::vector<double> x, double s, int max_
 }
 
 }  // namespace apograph::estimate::internal
+
+namespace apograph::estimate {
+void RegisterCeresSolver() { internal::SetReferenceSolver(&internal::SolveCeres); }
+}  // namespace apograph::estimate

@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 #include <numeric>
+#include <stdexcept>
 
 namespace apograph::estimate::internal {
 namespace {
@@ -279,6 +280,24 @@ SolveOutcome Refine(FitProblem& p, std::vector<double> x, double s, int max_iter
 
 SolveOutcome SolveFast(FitProblem& p, std::vector<double> x, double s, int max_iterations) {
   return Refine(p, Approach(p, std::move(x), s, max_iterations), s, max_iterations);
+}
+
+namespace {
+ReferenceSolver& Registered() {
+  static ReferenceSolver solver = nullptr;
+  return solver;
+}
+}  // namespace
+
+void SetReferenceSolver(ReferenceSolver solver) { Registered() = solver; }
+
+SolveOutcome SolveReference(FitProblem& problem, std::vector<double> x, double loss_scale,
+                            int max_iterations) {
+  if (!Registered()) {
+    throw std::logic_error(
+        "the reference solver (Ceres) is linked into the tests and benchmarks only");
+  }
+  return Registered()(problem, std::move(x), loss_scale, max_iterations);
 }
 
 }  // namespace apograph::estimate::internal

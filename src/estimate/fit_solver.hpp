@@ -46,10 +46,18 @@ std::vector<double> Approach(FitProblem& problem, std::vector<double> x, double 
 SolveOutcome Refine(FitProblem& problem, std::vector<double> x, double loss_scale,
                     int max_iterations);
 
-/// The same problem through Ceres (CauchyLoss, one residual block per entry)
-/// with ceres::Covariance at the optimum.
-SolveOutcome SolveCeres(FitProblem& problem, std::vector<double> x, double loss_scale,
-                        int max_iterations);
+/// The reference solver: the same problem through Ceres Solver (CauchyLoss,
+/// one residual block per entry, ceres::Covariance at the optimum). It lives
+/// outside the library (fit_ceres.cpp, linked only into the tests and the
+/// benchmarks through RegisterCeresSolver) so that the program loads no
+/// Ceres; a program that links it registers it here.
+using ReferenceSolver = SolveOutcome (*)(FitProblem& problem, std::vector<double> x,
+                                         double loss_scale, int max_iterations);
+void SetReferenceSolver(ReferenceSolver solver);
+/// Runs the registered reference solver; std::logic_error when the program
+/// links none (Solver::kCeres asked of the command-line program).
+SolveOutcome SolveReference(FitProblem& problem, std::vector<double> x, double loss_scale,
+                            int max_iterations);
 
 /// Inverse of a small symmetric matrix (k x k, row-major); empty when
 /// singular.

@@ -5,6 +5,7 @@
 #include <sstream>
 #include <utility>
 
+#include "publish/apparatus.hpp"
 #include "publish/html_plots.hpp"
 #include "publish/html_report.hpp"
 
@@ -37,21 +38,21 @@ std::string Sigla(const std::vector<std::string>& sigla) {
 /// "0;14 A B] 0;44 C" as the apparatus reads.
 std::string EntryText(const ApparatusEntry& e) {
   std::string out = Html(e.lemma.empty() ? "(illegible)" : e.lemma) + " " +
-                    Html(e.editor ? "(editor)" : Sigla(e.lemma_sigla)) + "]";
+                    Html(e.Editorial() ? "(editor)" : Sigla(e.lemma_sigla)) + "]";
   for (const auto& v : e.variants)
     out += " " + Html(v.text) + " <i>" + Html(Sigla(v.sigla)) + "</i>";
   return out;
 }
 
-void TableCell(const pipeline::TableAnalysis& a, const std::set<Place>& found, int r, int c,
-               std::ostream& out) {
-  const ApparatusEntry& e = a.apparatus.cells[r][c];
+void TableCell(const pipeline::TableAnalysis& a, const Apparatus& app, const std::set<Place>& found,
+               int r, int c, std::ostream& out) {
+  const ApparatusEntry& e = app.cells[r][c];
   const bool view = e.HasVariants() || found.count({r, c});
-  out << "<td class=\"" << (e.editor ? "ed " : "") << (e.HasVariants() ? "var" : "") << "\">";
+  out << "<td class=\"" << (e.Editorial() ? "ed " : "") << (e.HasVariants() ? "var" : "") << "\">";
   if (view) out << "<a href=\"#" << CellAnchor(a.table_id, r, c) << "\">";
   out << Html(e.lemma);
   if (e.HasVariants()) out << "<sup>&dagger;</sup>";
-  if (e.editor) out << "<sup>ed.</sup>";
+  if (e.Editorial()) out << "<sup>ed.</sup>";
   if (view) out << "</a>";
   out << "</td>";
 }
@@ -68,12 +69,12 @@ std::string Judgement(const collate::Reading& r) {
   return out;
 }
 
-void CellView(const pipeline::TableAnalysis& a, int r, int c, std::ostream& out) {
+void CellView(const pipeline::TableAnalysis& a, const Apparatus& app, int r, int c,
+              std::ostream& out) {
   const auto& cell = a.collation.rows[r].cells[c];
-  const ApparatusEntry& e = a.apparatus.cells[r][c];
+  const ApparatusEntry& e = app.cells[r][c];
   out << "<section class=\"cell\" id=\"" << CellAnchor(a.table_id, r, c) << "\"><h4>"
-      << Html(a.apparatus.arguments[r].ToString()) << " &middot; "
-      << Html(a.apparatus.columns[c].name)
+      << Html(app.arguments[r].ToString()) << " &middot; " << Html(app.columns[c].name)
       << "</h4><p>model: " << (cell.computed ? Html(cell.computed->ToString()) : "none")
       << "</p><table><tr><th>reading"
       << "</th><th>witnesses</th><th>judgement</th></tr>";
@@ -83,14 +84,14 @@ void CellView(const pipeline::TableAnalysis& a, int r, int c, std::ostream& out)
         << "</td></tr>";
   }
   out << "</table><p class=\"app\">" << EntryText(e) << "</p>";
-  if (!e.note.empty()) out << "<p class=\"app-note\">" << Html(e.note) << "</p>";
+  if (!e.reason.empty()) out << "<p class=\"app-note\">" << Html(e.reason) << "</p>";
   out << "</section>";
 }
 
 }  // namespace
 
 std::string EditedTable(const pipeline::TableAnalysis& a) {
-  const auto& app = a.apparatus;
+  const Apparatus app = BuildApparatus(a);
   const auto found = FoundCells(a);
   std::ostringstream out;
   out << "<h3>The edited table</h3><p>&dagger; variant readings in the apparatus (click for the "
@@ -101,7 +102,7 @@ std::string EditedTable(const pipeline::TableAnalysis& a) {
   for (std::size_t r = 0; r < app.cells.size(); ++r) {
     out << "<tr><th>" << Html(app.arguments[r].ToString()) << "</th>";
     for (std::size_t c = 0; c < app.cells[r].size(); ++c)
-      TableCell(a, found, static_cast<int>(r), static_cast<int>(c), out);
+      TableCell(a, app, found, static_cast<int>(r), static_cast<int>(c), out);
     out << "</tr>";
   }
   out << "</tbody></table>";
@@ -110,7 +111,7 @@ std::string EditedTable(const pipeline::TableAnalysis& a) {
 
 std::string CellViews(const pipeline::TableAnalysis& a) {
   auto cells = FoundCells(a);
-  const auto& app = a.apparatus;
+  const Apparatus app = BuildApparatus(a);
   for (std::size_t r = 0; r < app.cells.size(); ++r)
     for (std::size_t c = 0; c < app.cells[r].size(); ++c)
       if (app.cells[r][c].HasVariants()) cells.insert({static_cast<int>(r), static_cast<int>(c)});
@@ -119,7 +120,7 @@ std::string CellViews(const pipeline::TableAnalysis& a) {
   for (const auto& [r, c] : cells) {
     if (static_cast<std::size_t>(r) < a.collation.rows.size() &&
         static_cast<std::size_t>(r) < app.cells.size())
-      CellView(a, r, c, out);
+      CellView(a, app, r, c, out);
   }
   out << "</div>";
   return out.str();

@@ -131,6 +131,7 @@ void BenchAll(int tables) {
 }  // namespace
 
 int main(int argc, char** argv) {
+  apograph::estimate::RegisterCeresSolver();  // the reference solver, compared below
   const int tables = argc > 1 ? std::atoi(argv[1]) : 1000;
   BenchFit();
   BenchIdentify();

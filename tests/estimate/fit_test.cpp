@@ -13,6 +13,10 @@
 namespace apograph::estimate {
 namespace {
 
+// The reference solver is linked into the test suite only (the program has
+// no Ceres); this file's tests compare against it.
+const bool kCeresRegistered = (RegisterCeresSolver(), true);
+
 double SolarEquation(double e, double a) {
   const double r = a * std::numbers::pi / 180.0;
   // The model library's convention: the table gives the amount, q(360-a) = q(a).

@@ -9,8 +9,8 @@
 #include "cli/command.hpp"
 #include "store/edition_store.hpp"
 #include "store/model_store.hpp"
-#include "transcription/parser.hpp"
 #include "test_paths.hpp"
+#include "transcription/parser.hpp"
 
 namespace apograph {
 namespace {

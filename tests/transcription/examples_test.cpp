@@ -6,8 +6,8 @@
 #include <fstream>
 #include <sstream>
 
-#include "transcription/parser.hpp"
 #include "test_paths.hpp"
+#include "transcription/parser.hpp"
 
 namespace {
 

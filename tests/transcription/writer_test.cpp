@@ -6,8 +6,8 @@
 #include <algorithm>
 #include <filesystem>
 
-#include "transcription/parser.hpp"
 #include "test_paths.hpp"
+#include "transcription/parser.hpp"
 
 namespace {
 
