@@ -210,8 +210,8 @@ int main(int argc, char** argv) {
   const char* only = std::getenv("BENCH_SEEDS");
   for (int i = 0; i < draws; ++i) {
     const std::uint64_t seed = first + static_cast<std::uint64_t>(i);
-    if (only && ("," + std::string(only) + ",").find("," + std::to_string(seed) + ",") ==
-                    std::string::npos)
+    if (only &&
+        ("," + std::string(only) + ",").find("," + std::to_string(seed) + ",") == std::string::npos)
       continue;
     synth::TableOptions options;
     options.family = families[static_cast<std::size_t>(i) % families.size()];
