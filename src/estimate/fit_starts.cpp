@@ -328,29 +328,43 @@ std::vector<std::vector<double>> PositionStarts(const model::Model& model,
   const double f = shape.anomaly ? BestFrequency(t, u, t0, m * shape.low, m * shape.high) : 0;
   // Line, the harmonic at the rate in longitude (eccentricity, apogee) and
   // the harmonic at the rate in anomaly (the epicycle, or the equation).
-  const int k = 2 + (shape.centre ? 2 : 0) + (shape.anomaly ? 2 : 0);
-  const auto c = LeastSquares(
-      t, u, k,
-      [&](double x, double* r) {
-        r[0] = 1, r[1] = x - t0;
-        int j = 2;
-        if (shape.centre) r[j++] = std::sin(rate * x * kDeg), r[j++] = std::cos(rate * x * kDeg);
-        if (shape.anomaly) r[j++] = std::sin(f * x * kDeg), r[j++] = std::cos(f * x * kDeg);
-      },
-      &rss);
+  auto fit = [&](bool centre) {
+    const int k = 2 + (centre ? 2 : 0) + (shape.anomaly ? 2 : 0);
+    return LeastSquares(
+        t, u, k,
+        [&](double x, double* r) {
+          r[0] = 1, r[1] = x - t0;
+          int j = 2;
+          if (centre) r[j++] = std::sin(rate * x * kDeg), r[j++] = std::cos(rate * x * kDeg);
+          if (shape.anomaly) r[j++] = std::sin(f * x * kDeg), r[j++] = std::cos(f * x * kDeg);
+        },
+        &rss);
+  };
+  auto c = fit(shape.centre);
+  // Over a short span the harmonic at the mean motion's rate is nearly a
+  // straight line: the full basis is then ill-conditioned and its line
+  // meaningless (a rate of -917 deg/day from 91 days of a planet). The line
+  // and the anomaly alone then give the rates, with a small eccentricity.
+  bool centre = shape.centre;
+  if (centre && (c.empty() || std::fabs(c[1] - line[1]) > 0.2 * std::fabs(line[1]) + 0.01)) {
+    centre = false;
+    c = fit(false);
+  }
   if (c.empty()) return {};
   std::vector<double> x = x0;
   const double radix = Wrap360(c[0] - c[1] * t0);
   SetRole(model, problem, x, model::ParamRole::kRate, c[1]);
   SetRole(model, problem, x, model::ParamRole::kRadix, radix);
   int j = 2;
-  if (shape.centre) {
+  if (centre) {
     // The equation of centre: -(e/60) sin(m - A) in radians, with m = rate t
     // + radix: a sin(rate t) + b cos(rate t) = -E sin(rate t + radix - A).
     const auto [e, phase] = Harmonic(-c[j], -c[j + 1]);
     SetNamed(model, problem, x, "e", std::max(e, 0.1));
     SetRole(model, problem, x, model::ParamRole::kApogee, Wrap360(radix - phase));
     j += 2;
+  } else if (shape.centre) {
+    SetNamed(model, problem, x, "e", 1.0);
   }
   if (!shape.anomaly) return {x};
   // The epicycle (or the equation by date): +(r/60) sin(g), g = f t + g0.

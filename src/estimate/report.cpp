@@ -122,6 +122,7 @@ nlohmann::json EquivalentsJson(const Candidate& c) {
 /// The standard error in the trade's notation: two significant places.
 std::string ErrorText(double se) {
   if (!std::isfinite(se)) return "-";
+  if (se >= 1e9) return NumberText(se);  // undetermined: a decimal, not a sexagesimal overflow
   int places = 0;
   while (places < 10 && se * std::pow(60.0, places) < 1) ++places;
   return Sexagesimal::FromDouble(se, std::min(places + 1, 12)).ToString();

@@ -144,7 +144,9 @@ const BuiltinModel kPlanetPosition(
     {Radix("mean longitude of the epicycle's centre at the epoch"),
      {"rate", "deg/day", "mean motion in longitude per day", 0.524, 0.0, 1.2, ParamRole::kRate},
      {"anomaly-radix", "deg", "anomaly at the epoch", 0.0, 0.0, 360.0, ParamRole::kAnomalyRadix},
-     {"anomaly-rate", "deg/day", "mean motion in anomaly per day", 0.4616, 0.0, 1.2,
+     // Up to Mercury's 3;6,24 deg/day in anomaly (common practice: the
+     // inner planets' anomaly is the synodic motion; 1.2 left Mercury out).
+     {"anomaly-rate", "deg/day", "mean motion in anomaly per day", 0.4616, 0.0, 3.3,
       ParamRole::kAnomalyRate},
      {"apogee", "deg", "longitude of the deferent's apogee", 115.5, 0.0, 360.0, ParamRole::kApogee},
      {"e", "parts of 60", "eccentricity of the deferent", 6.0, 0.0, 12.0},

@@ -110,4 +110,54 @@ TEST_CASE("a column that is the sum of two others is found") {
   CHECK(sum);
 }
 
+TEST_CASE("true = mean minus the equation, within the turn, and with magnitudes") {
+  // A lunar mean motion (13;10,35 a day, from memory) crossing 360 and a
+  // signed equation whose correction is subtracted: true = mean - q, written
+  // within [0, 360).
+  Transcription t;
+  t.table_id = "moon";
+  t.argument = {"day", "", 0, Sexagesimal::ParseOrThrow("1"), Sexagesimal::ParseOrThrow("1")};
+  t.columns = {{"mean", "", 2, "", std::nullopt},
+               {"equation", "", 2, "", std::nullopt},
+               {"true", "", 2, "", std::nullopt}};
+  const double rate = Sexagesimal::ParseOrThrow("13;10,35").ToDouble();
+  DerivedInputs signed_inputs;
+  signed_inputs.exact.resize(3);
+  signed_inputs.rounded.resize(3);
+  signed_inputs.exact_signed.resize(3);
+  signed_inputs.rounded_signed.resize(3);
+  for (int i = 1; i <= 40; ++i) {
+    const Sexagesimal mean = Sexagesimal::FromDouble(200 + rate * i, 2).Modulo(360);
+    const double q = 5 * std::sin((30 + 13.06 * i) * std::numbers::pi / 180);
+    const Sexagesimal eq = Sexagesimal::FromDouble(q, 2);
+    Row row;
+    // The equation printed as a magnitude (the rubric gives the sign).
+    const Sexagesimal magnitude = eq.negative() ? Sexagesimal() - eq : eq;
+    for (const auto& v : {mean, magnitude, (mean - eq).Modulo(360)}) {
+      Cell cell;
+      cell.value = v;
+      row.cells.push_back(cell);
+    }
+    t.rows.push_back(row);
+    signed_inputs.exact[0].push_back(std::fmod(200 + rate * i, 360));  // the mean motion's
+    signed_inputs.rounded[0].push_back(mean);
+    signed_inputs.exact_signed[1].push_back(q);
+    signed_inputs.rounded_signed[1].push_back(eq);
+  }
+  // From the magnitudes alone the relation cannot be seen; with the signed
+  // values of the identified equation (and the mean motion's) it is.
+  for (const auto& d : DetectDerivedColumns(t)) CHECK(d.column != 2);
+  const auto found = DetectDerivedColumns(t, &signed_inputs);
+  bool minus = false;
+  for (const auto& d : found) {
+    if (d.column != 2) continue;
+    CHECK(d.relation.rfind("mean minus equation", 0) == 0);  // within the turn or not: the
+                                                             // rows where it matters are few
+    CHECK(d.spec.other_sign == -1);
+    CHECK(d.matched_rounded == 40);
+    minus = true;
+  }
+  CHECK(minus);
+}
+
 }  // namespace apograph::estimate
