@@ -1,6 +1,9 @@
 #include "deviation/guard.hpp"
 
+#include <algorithm>
+#include <cmath>
 #include <cstdio>
+#include <cstdlib>
 
 namespace apograph::deviation {
 
@@ -37,6 +40,77 @@ ReferenceVerdict GuardReference(int compared, int flagged, const GuardOptions& o
           ", more than " + limit +
           ", which is a wrong model, parameters or practice rather than a copy's slips; no "
           "emendation is proposed (the model-free screen is shown instead)";
+  return v;
+}
+
+namespace {
+
+/// Rows [first, last] of one hill: the rounded difference has one sign and
+/// is never zero.
+struct Hill {
+  std::size_t first = 0, last = 0;
+};
+
+std::vector<Hill> Hills(const std::vector<long>& k) {
+  std::vector<Hill> out;
+  for (std::size_t i = 0; i < k.size();) {
+    if (k[i] == 0) {
+      ++i;
+      continue;
+    }
+    std::size_t j = i;
+    while (j + 1 < k.size() && k[j + 1] != 0 && (k[j + 1] > 0) == (k[i] > 0)) ++j;
+    out.push_back({i, j});
+    i = j + 1;
+  }
+  return out;
+}
+
+/// A hill grown smoothly out of the author's rounding: it starts or ends
+/// within `trend_start` units and never steps by more than `trend_step`.
+bool Smooth(const std::vector<long>& k, const Hill& h, const GuardOptions& o) {
+  if (std::labs(k[h.first]) > o.trend_start && std::labs(k[h.last]) > o.trend_start) return false;
+  for (std::size_t i = h.first; i < h.last; ++i) {
+    if (std::labs(k[i + 1] - k[i]) > o.trend_step) return false;
+  }
+  return true;
+}
+
+}  // namespace
+
+ReferenceVerdict GuardTrend(const std::vector<TrendRow>& rows, const GuardOptions& options) {
+  ReferenceVerdict v;
+  v.consensus = true;
+  v.compared = static_cast<int>(rows.size());
+  std::vector<long> k;
+  for (const auto& r : rows) k.push_back(std::lround(r.units));
+  const TrendRow* from = nullptr;
+  const TrendRow* to = nullptr;
+  long largest = 0;
+  for (const auto& h : Hills(k)) {
+    if (!Smooth(k, h, options)) continue;
+    // Rows of the hill beyond the rounding that most witnesses flag.
+    std::vector<std::size_t> on;
+    for (std::size_t i = h.first; i <= h.last; ++i) {
+      if (std::labs(k[i]) > options.trend_start && 2 * rows[i].flaggers > rows[i].readers)
+        on.push_back(i);
+    }
+    if (static_cast<int>(on.size()) < options.trend_rows) continue;
+    v.flagged += static_cast<int>(on.size());
+    if (!from) from = &rows[on.front()];
+    to = &rows[on.back()];
+    for (std::size_t i : on) largest = std::max(largest, std::labs(k[i]));
+  }
+  if (v.flagged == 0) return v;
+  v.explains = false;
+  char what[320];
+  std::snprintf(what, sizeof what,
+                "%d rows that most witnesses flag (%s to %s, up to %ld units) lie where the "
+                "tradition's difference from it grows smoothly out of the author's rounding",
+                v.flagged, from->arg.c_str(), to->arg.c_str(), largest);
+  v.why = std::string("the reference does not explain this column: ") + what +
+          ", which is a model, parameters or practice slightly off rather than a copy's slips; "
+          "no emendation is proposed (the model-free screen is shown instead)";
   return v;
 }
 

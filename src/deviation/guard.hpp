@@ -4,12 +4,19 @@
 /// witness. Then no entry is explained against it and no emendation is
 /// proposed; the caller shows the model-free screen (screen.hpp) instead.
 ///
-/// Two tests, each with its stated share:
+/// Three tests, the first two with their stated share:
 ///  - one witness: the share of its compared entries that its findings flag
 ///    (copying slips and unexplained deviations, blanks left out);
 ///  - the tradition: the share of rows that every witness flags (a copy's
 ///    slips, even those of a lost ancestor, are in some witnesses only; a
-///    row flagged in all is an archetype's error or the reference's).
+///    row flagged in all is an archetype's error or the reference's);
+///  - the trend: rows that most witnesses flag, lying on a smooth hill of
+///    the tradition's difference from the model (it grows, by a unit or two
+///    a row, from within the author's rounding). A reference close to right
+///    (a parameter slightly off, a mean motion's rate a little wrong) misses
+///    by a difference that varies smoothly with the argument; a copy's slip
+///    is isolated, or jumps at once to its size over a run, and is read by
+///    some witnesses only.
 ///
 ///     const auto verdict = deviation::GuardReference(compared, flagged, {});
 ///     if (!verdict.explains) std::cout << verdict.why;
@@ -32,6 +39,27 @@ struct GuardOptions {
   /// misses the table.
   double consensus_share = 0.15;
   int min_rows = 3;  ///< judgement, as min_cells
+  /// The trend test. Judgement: the author's rounding leaves up to a unit
+  /// between his value and a right model's, so a hill that starts (or ends)
+  /// within a unit has grown out of the rounding; a reference close enough
+  /// to pass the shares above misses by an error whose slope is a fraction
+  /// of a unit a row, so its rounded difference steps by one unit at most (a
+  /// copy's run inherited by most witnesses jumps by its whole size).
+  int trend_start = 1;
+  int trend_step = 1;
+  /// Judgement: rows beyond the rounding that most witnesses flag on one
+  /// such hill before the hill, not the copies, is taken to be the cause (as
+  /// min_rows). Right references it refuses on the benchmark are counted in
+  /// DEVELOPERS.md.
+  int trend_rows = 3;
+};
+
+/// One row of the tradition for the trend test, in the order of the argument.
+struct TrendRow {
+  std::string arg;
+  double units = 0;  ///< the median over the witnesses of reading minus model, in units
+  int readers = 0;   ///< witnesses with a reading compared with the model
+  int flaggers = 0;  ///< of them, flagging the row
 };
 
 /// Whether a reference explains a column, with the counts and the reason.
@@ -53,5 +81,10 @@ int FlaggedCells(const std::vector<Finding>& findings, int column);
 /// a tradition (`consensus` true).
 ReferenceVerdict GuardReference(int compared, int flagged, const GuardOptions& options = {},
                                 bool consensus = false);
+
+/// The trend test on the rows of a tradition (see the header's comment):
+/// refused when one smooth hill of the difference carries at least
+/// `trend_rows` rows beyond the author's rounding that most witnesses flag.
+ReferenceVerdict GuardTrend(const std::vector<TrendRow>& rows, const GuardOptions& options = {});
 
 }  // namespace apograph::deviation

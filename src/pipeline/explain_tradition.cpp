@@ -141,6 +141,48 @@ std::optional<deviation::ReferenceVerdict> ConsensusVerdict(
   return deviation::GuardReference(rows, flagged, guard, true);
 }
 
+/// The trend test's rows: per argument (in its numeric order), the median
+/// over the witnesses of reading minus model and how many flag it. Modern
+/// editions are left out, as in the tradition's view.
+std::optional<deviation::ReferenceVerdict> TrendVerdict(const std::vector<ColumnRun>& runs,
+                                                        const std::string& column,
+                                                        const std::vector<const Transcription*>& ws,
+                                                        const deviation::GuardOptions& guard) {
+  struct Acc {
+    std::string arg;
+    std::vector<double> diffs;
+    int flaggers = 0;
+  };
+  std::map<double, Acc> by_arg;
+  int witnesses = 0;
+  for (const auto& run : runs) {
+    const Transcription& t = *ws[run.witness];
+    if (run.ref.column_name != column || t.witness.Kind() == WitnessKind::kModernEdition) continue;
+    ++witnesses;
+    const auto flagged = FlaggedRows(run, t.rows.size());
+    for (const auto& [arg, r] : run.rows) {
+      const auto v = ReadValue(t, r, run.ref.column, run.places);
+      const auto& computed = run.values.computed[r];
+      const auto a = t.ArgumentInUse(r);
+      if (!v || !computed || !a) continue;
+      auto& acc = by_arg[a->ToDouble()];
+      acc.arg = arg;
+      acc.diffs.push_back(DiffUnits(*v, *computed, run.places));
+      acc.flaggers += flagged[r];
+    }
+  }
+  if (witnesses < 2) return std::nullopt;
+  std::vector<deviation::TrendRow> rows;
+  for (auto& [x, acc] : by_arg) {
+    auto& d = acc.diffs;
+    std::sort(d.begin(), d.end());
+    const std::size_t m = d.size() / 2;
+    const double median = d.size() % 2 ? d[m] : (d[m - 1] + d[m]) / 2;
+    rows.push_back({acc.arg, median, static_cast<int>(d.size()), acc.flaggers});
+  }
+  return deviation::GuardTrend(rows, guard);
+}
+
 std::vector<WitnessFindings> Explain(const std::vector<const Transcription*>& ws,
                                      const std::vector<const deviation::NumeralScript*>& scripts,
                                      const std::vector<ColumnReference>& references,
@@ -165,7 +207,9 @@ std::vector<WitnessFindings> Explain(const std::vector<const Transcription*>& ws
         Compared(run, t), deviation::FlaggedCells(run.found, run.ref.column), guard);
   }
   for (const auto& ref : references) {
-    const auto consensus = ConsensusVerdict(runs, ref.column_name, ws, guard);
+    auto consensus = ConsensusVerdict(runs, ref.column_name, ws, guard);
+    if (consensus && consensus->explains)
+      consensus = TrendVerdict(runs, ref.column_name, ws, guard);
     if (!consensus || consensus->explains) continue;
     for (auto& run : runs) {
       if (run.ref.column_name == ref.column_name) run.verdict = *consensus;

@@ -51,7 +51,8 @@ struct Grade {
   long right_columns = 0, right_refused = 0;  ///< witness columns with a right reference
   long wrong_columns = 0, wrong_refused = 0;  ///< witness columns with a wrong reference
   long wrong_emendations = 0;                 ///< emendations proposed against a wrong reference
-  long unreferenced = 0;                      ///< table columns without a reference
+  long wrong_false = 0;   ///< of them, not the author's reading (false findings)
+  long unreferenced = 0;  ///< table columns without a reference
   /// With `debug` set before grading: one line per slip missed, misnamed or
   /// wrongly emended, and per false flag.
   bool debug = false;
@@ -71,6 +72,7 @@ struct Grade {
     wrong_columns += o.wrong_columns;
     wrong_refused += o.wrong_refused;
     wrong_emendations += o.wrong_emendations;
+    wrong_false += o.wrong_false;
     unreferenced += o.unreferenced;
   }
 };
@@ -308,6 +310,20 @@ inline long Emendations(const pipeline::WitnessFindings& found, int column) {
   return static_cast<long>(Flags(found, column).size());
 }
 
+/// Of them, those that do not give the author's reading (a right cell
+/// changed, or a slip emended to another value).
+inline long FalseEmendations(const Witness& w, const pipeline::WitnessFindings& found,
+                             const synth::ColumnKey& key) {
+  long n = 0;
+  for (const auto& [row, flag] : Flags(found, w.table.ColumnIndex(key.name))) {
+    const int origin = row < w.text->origin.size() ? w.text->origin[row] : -1;
+    n += origin < 0 || !flag.emendation ||
+         !(At(*flag.emendation, key.places) ==
+           At(key.tabulated[static_cast<std::size_t>(origin)], key.places));
+  }
+  return n;
+}
+
 }  // namespace grade_internal
 
 /// Grades every table of `t` with references identified automatically.
@@ -348,6 +364,7 @@ inline Grade GradeTradition(const synth::Tradition& t, const std::string& script
           ++g.wrong_columns;
           g.wrong_refused += refused;
           g.wrong_emendations += Emendations(found[i], column);
+          g.wrong_false += FalseEmendations(ws[i], found[i], key);
           continue;
         }
         ++g.right_columns;
@@ -400,6 +417,7 @@ inline Grade GradeWrongReference(const synth::Tradition& t, const std::string& s
     ++g.wrong_columns;
     g.wrong_refused += found[i].Refused(key.name);
     g.wrong_emendations += Emendations(found[i], column);
+    g.wrong_false += FalseEmendations(ws[i], found[i], key);
   }
   return g;
 }

@@ -29,7 +29,11 @@ TEST_CASE("deviations in seeded traditions: flags, classes, readings and the aut
                 << "; departures " << g.departures_kept << "/" << g.departures);
   REQUIRE(a.erroneous >= 200);  // enough slips for the rates to mean something
   CHECK(Rate(a.caught, a.erroneous) >= 0.95);
-  CHECK(Rate(a.caught, a.flagged) >= 0.95);
+  // Precision over four draws scatters around the benchmark's figure (95.4%
+  // over 300 draws; 94.6% to 97.7% in runs of 10 to 40 draws, DEVELOPERS.md):
+  // the floor sits below that spread (judgement) and still fails if false
+  // flags double.
+  CHECK(Rate(a.caught, a.flagged) >= 0.92);
   CHECK(Rate(a.right_class, a.caught) >= 0.90);
   CHECK(Rate(a.restored, a.caught) >= 0.90);
   REQUIRE(g.departures >= 50);
@@ -39,4 +43,5 @@ TEST_CASE("deviations in seeded traditions: flags, classes, readings and the aut
   CHECK(wrong.wrong_columns > 0);
   CHECK(g.wrong_emendations == 0);
   CHECK(wrong.wrong_emendations == 0);
+  CHECK(g.wrong_false == 0);
 }

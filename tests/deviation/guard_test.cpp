@@ -1,0 +1,51 @@
+// The guard's trend test: rows most witnesses flag on a smooth hill of the
+// tradition's difference from the model refuse the reference; a copy's run
+// that jumps at once to its size, or rows few witnesses flag, do not.
+#include "deviation/guard.hpp"
+
+#include <doctest/doctest.h>
+
+using namespace apograph::deviation;
+
+namespace {
+
+/// Rows with the given median differences; `flagged` rows flagged by 3 of 4
+/// readers, the rest by none.
+std::vector<TrendRow> Rows(const std::vector<double>& units, const std::vector<int>& flagged) {
+  std::vector<TrendRow> out;
+  for (std::size_t i = 0; i < units.size(); ++i) out.push_back({std::to_string(i), units[i], 4, 0});
+  for (int r : flagged) out[static_cast<std::size_t>(r)].flaggers = 3;
+  return out;
+}
+
+}  // namespace
+
+TEST_CASE("guard: a difference growing smoothly from the author's rounding refuses the reference") {
+  // A mean motion's rate slightly off: 1 1 1 2 2 2 3 3, then back to 0.
+  const auto rows = Rows({0, 0, 0, 1, 1, 1, 2, 2, 2, 3, 3, 0, 0}, {6, 7, 8, 9, 10});
+  const auto v = GuardTrend(rows);
+  CHECK_FALSE(v.explains);
+  CHECK(v.consensus);
+  CHECK(v.flagged == 5);
+  CHECK(v.why.find("6 to 10") != std::string::npos);
+}
+
+TEST_CASE("guard: a run that jumps at once to its size is a copy's, not the reference's") {
+  // A constant error of 5 units over five rows, read by most witnesses
+  // (inherited from a lost ancestor): it does not grow out of the rounding.
+  CHECK(GuardTrend(Rows({0, 0, 1, 5, 5, 5, 5, 5, 0, 0}, {3, 4, 5, 6, 7})).explains);
+  // Steps of more than one unit inside the hill are not smooth either.
+  CHECK(GuardTrend(Rows({0, 1, 3, 5, 3, 1, 0}, {2, 3, 4})).explains);
+}
+
+TEST_CASE("guard: a smooth hill that few witnesses flag, or too few rows, is no evidence") {
+  auto rows = Rows({0, 1, 2, 3, 3, 2, 1, 0}, {});
+  for (int r : {2, 3, 4}) rows[static_cast<std::size_t>(r)].flaggers = 2;  // half, not most
+  CHECK(GuardTrend(rows).explains);
+  CHECK(GuardTrend(Rows({0, 1, 2, 3, 3, 2, 1, 0}, {3, 4})).explains);  // two rows only
+  CHECK_FALSE(GuardTrend(Rows({0, 1, 2, 3, 3, 2, 1, 0}, {2, 3, 4})).explains);
+  // Rows flagged within the author's rounding say nothing of the reference.
+  CHECK(GuardTrend(Rows({0, 1, 1, 1, 0}, {1, 2, 3})).explains);
+  // Three rows beyond the rounding, but on two hills: no one trend.
+  CHECK(GuardTrend(Rows({0, 1, 2, 2, 1, 0, 1, 2, 1, 0}, {2, 3, 7})).explains);
+}
