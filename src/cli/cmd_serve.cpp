@@ -3,9 +3,9 @@
 
 #include <ostream>
 
+#include "pipeline/decisions.hpp"
 #include "serve/guard.hpp"
 #include "serve/pages.hpp"
-#include "serve/review.hpp"
 #include "support/input_error.hpp"
 #if APOGRAPH_HAVE_HTTPLIB
 #include "serve/server.hpp"
@@ -20,9 +20,10 @@ extern const char kServeUsage[] =
     "by table, witness, class and status, with buttons to accept, reject or undo\n"
     "each (a displaced run as one decision) and to override or conjecture its\n"
     "cell's reading; each table's HTML report with its plots. Every decision is\n"
-    "written to the database in one transaction with the editor's name and the\n"
-    "time; a page that was decided meanwhile (another tab) is told so and writes\n"
-    "nothing. Listens on 127.0.0.1 only, on --port or a free port, and prints the\n"
+    "written to the database as apograph emendation writes it, in one transaction\n"
+    "with the editor (--editor, else APOGRAPH_EDITOR, else the login name), the\n"
+    "time and the note; a page that was decided meanwhile (another tab) is told\n"
+    "so and writes nothing. Listens on 127.0.0.1 only, on --port or a free port, and prints the\n"
     "URL with a random token that every request must carry. Stop with Ctrl-C.\n"
     "--listen another address exposes the page beyond this machine: a warning is\n"
     "printed. Nothing but the database is written.\n"
@@ -35,17 +36,14 @@ int RunServe(const std::vector<std::string>& args, Io& io) {
   po::options_description options("options");
   options.add_options()("port", po::value(&port)->default_value(0), "port (0: a free one)")(
       "listen", po::value(&listen)->default_value("127.0.0.1"), "address to listen on")(
-      "editor", po::value(&editor), "who decides (default: $APOGRAPH_EDITOR, $USER)");
+      "editor", po::value(&editor), "who decides (default: APOGRAPH_EDITOR, else the login name)");
   AddDbOption(options, db_path);
   po::variables_map vm;
   if (ParseOptions(FindCommand("serve"), args, options, vm, io)) return kOk;
   if (port < 0 || port > 65535)
     throw InputError::ForOption("--port",
                                 ExpectedFound("a port from 0 to 65535", std::to_string(port)));
-  editor = serve::DefaultEditor(editor);
-  if (editor.empty())
-    throw InputError::ForOption("--editor",
-                                "expected the editor's name (or $APOGRAPH_EDITOR), found none");
+  editor = pipeline::DefaultEditor(editor);  // the same editor as the CLI's decisions
 #if APOGRAPH_HAVE_HTTPLIB
   if (!serve::IsLoopback(listen))
     io.err << "warning: listening on " << listen

@@ -7,6 +7,7 @@
 #include "estimate/report.hpp"
 #include "publish/html_plots.hpp"
 #include "publish/html_tables.hpp"
+#include "publish/report.hpp"
 #include "publish/svg_stemma.hpp"
 
 namespace apograph::publish {
@@ -90,6 +91,19 @@ const char* FindingClass(deviation::SlipClass cls) {
   }
 }
 
+/// The editor's decision on a finding, in the Markdown report's words, with
+/// a class of its status for the style sheet.
+void DecisionSpan(const pipeline::TableAnalysis& a, const std::string& siglum,
+                  const deviation::Finding& f, std::ostream& out) {
+  const std::string words = DecisionWords(a, siglum, f);
+  if (words.empty()) return;
+  const char* cls = words.rfind("accepted", 0) == 0   ? "accepted"
+                    : words.rfind("rejected", 0) == 0 ? "rejected"
+                    : words.rfind("review", 0) == 0   ? "review"
+                                                      : "undecided";
+  out << " <span class=\"decision " << cls << "\">&mdash; " << Html(words) << "</span>";
+}
+
 void Findings(const pipeline::TableAnalysis& a, std::ostream& out) {
   out << "<h3>Deviations explained (suggestions: the editor decides)</h3>";
   for (const auto& w : a.witnesses) {
@@ -103,6 +117,7 @@ void Findings(const pipeline::TableAnalysis& a, std::ostream& out) {
             << "</a>";
       else
         out << Html(f.Note(w.siglum));
+      if (f.best().cls != deviation::SlipClass::kComputational) DecisionSpan(a, w.siglum, f, out);
       out << "</li>";
     }
     out << "</ol>";
@@ -143,7 +158,8 @@ std::string HtmlTableSection(const pipeline::TableAnalysis& a) {
   Findings(a, out);
   out << "<h3>Stemma of this table</h3>";
   Stemma(a.lineage, a.table_id, out);
-  out << EditedTable(a) << CellViews(a) << "</article>";
+  const Apparatus app = BuildApparatus(a);  // the edited table, with the editor's decisions
+  out << EditedTable(a, app) << CellViews(a, app) << "</article>";
   return out.str();
 }
 

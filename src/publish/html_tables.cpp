@@ -5,9 +5,9 @@
 #include <sstream>
 #include <utility>
 
-#include "publish/apparatus.hpp"
 #include "publish/html_plots.hpp"
 #include "publish/html_report.hpp"
+#include "publish/report.hpp"
 
 namespace apograph::publish {
 namespace {
@@ -35,24 +35,36 @@ std::string Sigla(const std::vector<std::string>& sigla) {
   return out;
 }
 
+/// Who reads the lemma: its sigla, or where it comes from when no witness
+/// does ("conjecture A. Editor", "restored").
+std::string LemmaWitnesses(const ApparatusEntry& e) {
+  if (e.source == LemmaSource::kWitnesses) return Sigla(e.lemma_sigla);
+  std::string out = std::string("(") + ToString(e.source);
+  if (!e.resp.empty()) out += " " + e.resp;
+  if (!e.lemma_sigla.empty()) out += "; " + Sigla(e.lemma_sigla);
+  return out + ")";
+}
+
 /// "0;14 A B] 0;44 C" as the apparatus reads.
 std::string EntryText(const ApparatusEntry& e) {
-  std::string out = Html(e.lemma.empty() ? "(illegible)" : e.lemma) + " " +
-                    Html(e.Editorial() ? "(editor)" : Sigla(e.lemma_sigla)) + "]";
+  std::string out =
+      Html(e.lemma.empty() ? "(illegible)" : e.lemma) + " " + Html(LemmaWitnesses(e)) + "]";
   for (const auto& v : e.variants)
-    out += " " + Html(v.text) + " <i>" + Html(Sigla(v.sigla)) + "</i>";
+    out += " " + Html(v.text) + " <i>" + Html(Sigla(v.sigla)) + "</i>" +
+           (v.why.empty() ? "" : " (" + Html(v.why) + ")");
   return out;
 }
 
 void TableCell(const pipeline::TableAnalysis& a, const Apparatus& app, const std::set<Place>& found,
                int r, int c, std::ostream& out) {
   const ApparatusEntry& e = app.cells[r][c];
-  const bool view = e.HasVariants() || found.count({r, c});
-  out << "<td class=\"" << (e.Editorial() ? "ed " : "") << (e.HasVariants() ? "var" : "") << "\">";
+  const bool ed = e.Editorial();
+  const bool view = e.HasVariants() || ed || found.count({r, c});
+  out << "<td class=\"" << (ed ? "ed " : "") << (e.HasVariants() ? "var" : "") << "\">";
   if (view) out << "<a href=\"#" << CellAnchor(a.table_id, r, c) << "\">";
   out << Html(e.lemma);
   if (e.HasVariants()) out << "<sup>&dagger;</sup>";
-  if (e.Editorial()) out << "<sup>ed.</sup>";
+  if (ed) out << "<sup>ed.</sup>";
   if (view) out << "</a>";
   out << "</td>";
 }
@@ -69,6 +81,30 @@ std::string Judgement(const collate::Reading& r) {
   return out;
 }
 
+/// The editor's decisions at a cell: the edited text's override or
+/// conjecture, and every witness's accepted or rejected emendation there.
+void CellDecisions(const pipeline::TableAnalysis& a, const Apparatus& app, int r, int c,
+                   std::ostream& out) {
+  const std::string arg = app.arguments[r].ToString();
+  const std::string& column = app.columns[c].name;
+  std::string items;
+  if (const auto* e = a.decisions.EditedAt(arg, column)) {
+    items += "<li class=\"" + std::string(pipeline::ToString(e->decision.action)) + "\">" +
+             (e->decision.action == pipeline::Action::kConjecture ? "conjecture " : "reading ") +
+             Html(e->reading) + " adopted by " + Html(DecidedBy(e->decision)) + "</li>";
+  }
+  for (const auto& t : a.transcriptions) {
+    const auto* w = a.decisions.At(t.witness.siglum, column, arg);
+    if (!w) continue;
+    const bool accept = w->decision.action == pipeline::Action::kAccept;
+    items += "<li>" + Html(t.witness.siglum) + " " + Html(w->cell.reading) +
+             (accept ? ": emended to " + Html(w->cell.proposed) + ", accepted by "
+                     : ": emendation rejected (the reading is kept) by ") +
+             Html(DecidedBy(w->decision)) + "</li>";
+  }
+  if (!items.empty()) out << "<ul class=\"decisions\">" << items << "</ul>";
+}
+
 void CellView(const pipeline::TableAnalysis& a, const Apparatus& app, int r, int c,
               std::ostream& out) {
   const auto& cell = a.collation.rows[r].cells[c];
@@ -83,15 +119,18 @@ void CellView(const pipeline::TableAnalysis& a, const Apparatus& app, int r, int
         << "</td><td>" << Html(Sigla(reading.sigla)) << "</td><td>" << Html(Judgement(reading))
         << "</td></tr>";
   }
-  out << "</table><p class=\"app\">" << EntryText(e) << "</p>";
+  out << "</table>";
+  CellDecisions(a, app, r, c, out);
+  out << "<p class=\"app\">" << EntryText(e) << "</p>";
   if (!e.reason.empty()) out << "<p class=\"app-note\">" << Html(e.reason) << "</p>";
+  for (const auto& m : e.marks)
+    out << "<p class=\"app-note\">" << Html(m.siglum) << ": " << Html(m.text) << "</p>";
   out << "</section>";
 }
 
 }  // namespace
 
-std::string EditedTable(const pipeline::TableAnalysis& a) {
-  const Apparatus app = BuildApparatus(a);
+std::string EditedTable(const pipeline::TableAnalysis& a, const Apparatus& app) {
   const auto found = FoundCells(a);
   std::ostringstream out;
   out << "<h3>The edited table</h3><p>&dagger; variant readings in the apparatus (click for the "
@@ -109,12 +148,12 @@ std::string EditedTable(const pipeline::TableAnalysis& a) {
   return out.str();
 }
 
-std::string CellViews(const pipeline::TableAnalysis& a) {
+std::string CellViews(const pipeline::TableAnalysis& a, const Apparatus& app) {
   auto cells = FoundCells(a);
-  const Apparatus app = BuildApparatus(a);
   for (std::size_t r = 0; r < app.cells.size(); ++r)
     for (std::size_t c = 0; c < app.cells[r].size(); ++c)
-      if (app.cells[r][c].HasVariants()) cells.insert({static_cast<int>(r), static_cast<int>(c)});
+      if (app.cells[r][c].HasVariants() || app.cells[r][c].Editorial())
+        cells.insert({static_cast<int>(r), static_cast<int>(c)});
   std::ostringstream out;
   out << "<h3>Apparatus, cell by cell</h3><div class=\"cells\">";
   for (const auto& [r, c] : cells) {
@@ -153,6 +192,8 @@ table{border-collapse:collapse}td,th{padding:1px 8px;border-bottom:1px solid #dd
 .review td,.review th{text-align:left;vertical-align:top;font-size:13px}.review .evidence{min-width:16em}
 .review tr.accepted{background:#eef3ee}.review tr.rejected{background:#f3eeee}.review form{margin:2px 0}
 .done,.stale{border:2px solid #111;padding:.3em .6em}
+.decision{font-size:13px}.decision.accepted,.decision.rejected{font-weight:bold}
+.decision.review{border-bottom:2px dotted #111}.decisions li.conjecture{font-style:italic}
 @media print{.cell,.plots,figure{break-inside:avoid}a{color:#000;text-decoration:none}})";
 }
 

@@ -167,12 +167,13 @@ std::vector<FoundCell> FoundCells(const Transcription& t, const deviation::Findi
   return out;
 }
 
-std::string Who(const pipeline::Decision& d) {
+}  // namespace
+
+std::string DecidedBy(const pipeline::Decision& d) {
   std::string out = d.editor + " on " + d.decided_at.substr(0, 10);
   return d.note.empty() ? out : out + ": " + d.note;
 }
 
-/// What the editor decided about a finding, in words (" - accepted by ...").
 std::string DecisionWords(const pipeline::TableAnalysis& a, const std::string& siglum,
                           const deviation::Finding& f) {
   const Transcription* t = nullptr;
@@ -186,26 +187,28 @@ std::string DecisionWords(const pipeline::TableAnalysis& a, const std::string& s
     const auto& first = f.cells.front().emendation;
     const bool same = first && first->ToString() == w->cell.proposed;
     out = w->decision.action == pipeline::Action::kAccept
-              ? " - accepted by " + Who(w->decision) +
+              ? "accepted by " + DecidedBy(w->decision) +
                     (same ? "" : " (adopting " + w->cell.proposed + ")")
-              : " - rejected by " + Who(w->decision) + "; the reading is kept";
+              : "rejected by " + DecidedBy(w->decision) + "; the reading is kept";
   } else {
-    out = " - undecided";
+    out = "undecided";
     for (const auto& w : a.decisions.witness_cells) {
       if (w.applies || w.cell.witness != siglum || w.cell.column != f.column_name ||
           w.cell.arg != cells.front().arg)
         continue;
-      out = " - review: " + std::string(pipeline::ToString(w.decision.action)) + "ed by " +
-            Who(w.decision) + " when " + siglum + " read " + w.cell.reading + "; it now reads " +
-            (w.now.empty() ? "nothing" : w.now);
+      out = "review: " + std::string(pipeline::ToString(w.decision.action)) + "ed by " +
+            DecidedBy(w.decision) + " when " + siglum + " read " + w.cell.reading +
+            "; it now reads " + (w.now.empty() ? "nothing" : w.now);
     }
   }
   if (const auto* e = a.decisions.EditedAt(cells.front().arg, f.column_name)) {
     out += "; the edited text reads " + e->reading + " (" + pipeline::ToString(e->decision.action) +
-           " by " + Who(e->decision) + ")";
+           " by " + DecidedBy(e->decision) + ")";
   }
   return out;
 }
+
+namespace {
 
 void Deviations(const pipeline::TableAnalysis& a, const ReportOptions& o, std::ostream& out) {
   out << "### Deviations explained (suggestions: the editor decides)\n\n";
@@ -223,7 +226,8 @@ void Deviations(const pipeline::TableAnalysis& a, const ReportOptions& o, std::o
         ++hidden;
         continue;
       }
-      out << "- " << f.Note(w.siglum) << (departure ? "" : DecisionWords(a, w.siglum, f)) << "\n";
+      const std::string decided = departure ? "" : DecisionWords(a, w.siglum, f);
+      out << "- " << f.Note(w.siglum) << (decided.empty() ? "" : " - " + decided) << "\n";
       ++shown;
     }
     if (hidden) {
@@ -260,7 +264,7 @@ void DecisionSummary(const pipeline::TableDecisions& d, std::ostream& out) {
   for (const auto& w : d.witness_cells) {
     if (w.applies) continue;
     out << "- review: decision " << w.decision.id << " (" << pipeline::ToString(w.decision.action)
-        << " by " << Who(w.decision) << ") on " << w.cell.witness << " " << w.cell.arg << " "
+        << " by " << DecidedBy(w.decision) << ") on " << w.cell.witness << " " << w.cell.arg << " "
         << w.cell.column << " was made when it read " << w.cell.reading << "; it now reads "
         << (w.now.empty() ? "nothing" : w.now) << "\n";
   }

@@ -31,6 +31,17 @@ struct ReportOptions {
 /// copies and contamination, and the state of the apparatus.
 std::string TableReport(const pipeline::TableAnalysis& analysis, const ReportOptions& options = {});
 
+/// "A. Editor on 2026-12-02: why": who decided, when and why.
+std::string DecidedBy(const pipeline::Decision& decision);
+
+/// What the editor decided about a witness's finding, in words: "accepted
+/// by ... (adopting ...)", "rejected by ...; the reading is kept",
+/// "undecided" or "review: ..." (decided on a reading since changed), and the
+/// edited text's override or conjecture at its cell. The Markdown and HTML
+/// reports both say it so.
+std::string DecisionWords(const pipeline::TableAnalysis& analysis, const std::string& siglum,
+                          const deviation::Finding& finding);
+
 /// The stemma argued from all tables of a work together.
 std::string WorkLineageReport(const std::string& work_id, const lineage::LineageReport& lineage);
 

@@ -1,13 +1,14 @@
 #include "serve/findings_page.hpp"
 
+#include <optional>
 #include <sstream>
+#include <tuple>
 #include <vector>
 
+#include "pipeline/decisions.hpp"
 #include "publish/html_report.hpp"
 #include "serve/guard.hpp"
-#include "store/deviation_store.hpp"
 #include "store/edition_store.hpp"
-#include "store/review_store.hpp"
 
 namespace apograph::serve {
 namespace {
@@ -26,21 +27,63 @@ std::string Hidden(const std::string& name, const std::string& value) {
   return "<input type=\"hidden\" name=\"" + Html(name) + "\" value=\"" + Html(value) + "\">";
 }
 
-/// The findings (runs together) that pass the filters, by first proposal.
-std::vector<std::vector<store::EmendationRecord>> Findings(store::Database& db, const Form& q) {
-  store::EmendationFilter filter;
-  if (!Get(q, "table").empty()) filter.table_id = Get(q, "table");
-  if (!Get(q, "witness").empty()) filter.siglum = Get(q, "witness");
-  if (!Get(q, "status").empty()) filter.status = Get(q, "status");
-  std::vector<std::vector<store::EmendationRecord>> groups;
-  std::map<std::int64_t, std::size_t> at;
-  for (auto& r : store::ListEmendations(db, filter)) {
-    if (!Get(q, "class").empty() && r.cls != Get(q, "class")) continue;
-    const std::int64_t key = r.finding.value_or(r.id);
-    if (!at.count(key)) at[key] = groups.size(), groups.emplace_back();
-    groups[at[key]].push_back(std::move(r));
+std::optional<pipeline::FindingStatus> StatusOf(const std::string& text) {
+  for (auto s : {pipeline::FindingStatus::kProposed, pipeline::FindingStatus::kAccepted,
+                 pipeline::FindingStatus::kRejected, pipeline::FindingStatus::kReview,
+                 pipeline::FindingStatus::kSuperseded}) {
+    if (text == pipeline::ToString(s)) return s;
   }
-  return groups;
+  return std::nullopt;
+}
+
+/// The findings (a run is one) that pass the filters, as the CLI lists them.
+std::vector<pipeline::FindingState> Findings(store::Database& db, const Form& q) {
+  pipeline::FindingFilter filter;
+  if (!Get(q, "table").empty()) filter.table_id = Get(q, "table");
+  if (!Get(q, "witness").empty()) filter.witness = Get(q, "witness");
+  if (!Get(q, "status").empty()) {
+    filter.status = StatusOf(Get(q, "status"));
+    if (!filter.status) return {};  // no finding has an unknown status
+  }
+  auto all = pipeline::ListFindings(db, filter);
+  if (Get(q, "class").empty()) return all;
+  std::vector<pipeline::FindingState> out;
+  for (auto& f : all)
+    if (f.cls == Get(q, "class")) out.push_back(std::move(f));
+  return out;
+}
+
+/// The overrides and conjectures in force, by table, argument and column.
+using EditedCells =
+    std::map<std::tuple<std::string, std::string, std::string>, pipeline::EditedCellDecision>;
+
+EditedCells Edited(store::Database& db, const Form& q) {
+  EditedCells out;
+  for (const auto& t : store::ListTables(db)) {
+    if (!Get(q, "table").empty() && t.id != Get(q, "table")) continue;
+    for (auto& e : pipeline::ListEditedCells(db, t.id))
+      out.emplace(std::make_tuple(e.table_id, e.arg, e.column), std::move(e));
+  }
+  return out;
+}
+
+/// "accepted by A. Editor on 2026-12-02: why", or the status alone.
+std::string DecisionText(const pipeline::FindingState& f) {
+  std::string out = pipeline::ToString(f.status);
+  if (f.decision) {
+    out += " by " + f.decision->editor + " at " + f.decision->decided_at;
+    if (f.carried && f.decision->revision)
+      out += " (on revision " + std::to_string(*f.decision->revision) + ")";
+    if (!f.decision->note.empty()) out += ": " + f.decision->note;
+  }
+  if (!f.review.empty()) out += "; " + f.review;
+  return out;
+}
+
+std::string EditedText(const pipeline::EditedCellDecision& e) {
+  return std::string(pipeline::ToString(e.decision.action)) + " " + e.reading + " by " +
+         e.decision.editor + " at " + e.decision.decided_at +
+         (e.decision.note.empty() ? "" : ": " + e.decision.note);
 }
 
 void FilterForm(Site& site, const Form& q, std::ostream& out) {
@@ -63,51 +106,70 @@ std::string CarriedFilters(const Form& q) {
   return out;
 }
 
-void FindingForm(Site& site, const Form& q, const store::EmendationRecord& r, std::ostream& out) {
+void FindingForm(Site& site, const Form& q, const pipeline::FindingState& f, std::ostream& out) {
   out << "<form method=\"post\" action=\"/decide\">" << Hidden("token", site.token)
-      << Hidden("id", std::to_string(r.id)) << Hidden("state", store::FindingState(site.db, r.id))
-      << CarriedFilters(q) << "<input name=\"note\" placeholder=\"why\" size=\"14\">";
+      << Hidden("id", std::to_string(f.id)) << Hidden("state", f.state) << CarriedFilters(q)
+      << "<input name=\"note\" placeholder=\"why\" size=\"14\">";
   for (const char* a : {"accept", "reject"})
-    out << "<button name=\"action\" value=\"" << a << "\" data-id=\"" << r.id << "\">" << a
+    out << "<button name=\"action\" value=\"" << a << "\" data-id=\"" << f.id << "\">" << a
         << "</button>";
-  if (r.status != "proposed")
-    out << "<button name=\"action\" value=\"undo\" data-id=\"" << r.id << "\">undo</button>";
+  if (f.decision)
+    out << "<button name=\"action\" value=\"undo\" data-id=\"" << f.id << "\">undo</button>";
   out << "</form>";
 }
 
-void CellForm(Site& site, const Form& q, const store::EmendationRecord& r, std::ostream& out) {
-  const auto arg = Sexagesimal::Parse(r.arg);
-  if (!arg) return;
-  const std::string state = store::CellState(site.db, r.table_id, arg->ToString(), r.column_name);
+/// The edited table's cell at `arg`: override or conjecture a reading, or
+/// undo the one in force.
+void CellForm(Site& site, const Form& q, const std::string& table, const std::string& arg,
+              const std::string& column, const std::string& reading, const EditedCells& edited,
+              std::ostream& out) {
+  const auto it = edited.find({table, arg, column});
   out << "<form method=\"post\" action=\"/decide\">" << Hidden("token", site.token)
-      << Hidden("table", r.table_id) << Hidden("arg", arg->ToString())
-      << Hidden("column", r.column_name) << Hidden("state", state) << CarriedFilters(q)
-      << "<input name=\"reading\" value=\"" << Html(r.proposed) << "\" size=\"9\">"
+      << Hidden("table", table) << Hidden("arg", arg) << Hidden("column", column)
+      << Hidden("state", it == edited.end() ? "none" : it->second.state) << CarriedFilters(q)
+      << "<input name=\"reading\" value=\"" << Html(reading) << "\" size=\"9\">"
       << "<input name=\"note\" placeholder=\"why\" size=\"10\">";
   for (const char* a : {"override", "conjecture"})
     out << "<button name=\"action\" value=\"" << a << "\">" << a << "</button>";
-  if (state != "cell:none") out << "<button name=\"action\" value=\"undo\">undo cell</button>";
+  if (it != edited.end()) out << "<button name=\"action\" value=\"undo\">undo cell</button>";
   out << "</form>";
 }
 
-void Row(Site& site, const Form& q, const std::vector<store::EmendationRecord>& g,
+void Row(Site& site, const Form& q, const pipeline::FindingState& f, const EditedCells& edited,
          std::ostream& out) {
-  const auto& r = g.front();
   std::string args, readings;
-  for (const auto& c : g) {
+  for (const auto& c : f.cells) {
     args += (args.empty() ? "" : ", ") + c.arg;
     readings += (readings.empty() ? "" : ", ") + Html(c.tabulated) + " &rarr; " + Html(c.proposed);
   }
-  out << "<tr class=\"" << Html(r.status) << "\" id=\"finding-" << r.id << "\"><td>" << r.id
-      << "</td><td>" << Html(r.table_id) << "</td><td>" << Html(r.siglum) << "</td><td>"
-      << Html(args) << "</td><td>" << Html(r.column_name) << "</td><td>" << readings << "</td><td>"
-      << Html(r.cls) << "</td><td class=\"evidence\">" << Html(r.evidence)
-      << "</td><td class=\"status\">" << Html(r.status)
-      << (r.editor_note.empty() ? "" : "<br><small>" + Html(r.editor_note) + "</small>")
-      << "</td><td>";
-  FindingForm(site, q, r, out);
-  CellForm(site, q, r, out);
+  const std::string status = pipeline::ToString(f.status);
+  out << "<tr class=\"" << status << "\" id=\"finding-" << f.id << "\"><td>" << f.id << "</td><td>"
+      << Html(f.table_id) << "</td><td>" << Html(f.witness) << "</td><td>" << Html(args)
+      << "</td><td>" << Html(f.column) << "</td><td>" << readings << "</td><td>" << Html(f.cls)
+      << "</td><td class=\"evidence\">" << Html(f.evidence) << "</td><td class=\"status\">"
+      << Html(DecisionText(f));
+  const auto cell = edited.find({f.table_id, f.cells.front().arg, f.column});
+  if (cell != edited.end())
+    out << "<br><small>edited text: " << Html(EditedText(cell->second)) << "</small>";
+  out << "</td><td>";
+  FindingForm(site, q, f, out);
+  CellForm(site, q, f.table_id, f.cells.front().arg, f.column, f.cells.front().proposed, edited,
+           out);
   out << "</td></tr>";
+}
+
+/// Every override and conjecture in force, each with its undo.
+void EditedList(Site& site, const Form& q, const EditedCells& edited, std::ostream& out) {
+  if (edited.empty()) return;
+  out << "<h3>The edited table's readings decided by the editor</h3><ul class=\"edited-cells\">";
+  for (const auto& [key, e] : edited) {
+    out << "<li>" << Html(e.table_id) << " " << Html(e.arg) << " " << Html(e.column) << ": "
+        << Html(EditedText(e)) << " <form method=\"post\" action=\"/decide\">"
+        << Hidden("token", site.token) << Hidden("table", e.table_id) << Hidden("arg", e.arg)
+        << Hidden("column", e.column) << Hidden("state", e.state) << CarriedFilters(q)
+        << "<button name=\"action\" value=\"undo\">undo</button></form></li>";
+  }
+  out << "</ul>";
 }
 
 }  // namespace
@@ -117,15 +179,18 @@ HttpResponse FindingsPage(Site& site, const Form& q) {
   out << "<h2>Findings to review</h2>";
   if (!Get(q, "done").empty()) out << "<p class=\"done\">" << Html(Get(q, "done")) << "</p>";
   FilterForm(site, q, out);
-  const auto groups = Findings(site.db, q);
-  if (groups.empty())
+  const auto findings = Findings(site.db, q);
+  const EditedCells edited = Edited(site.db, q);
+  if (findings.empty())
     out << "<p>No recorded findings match. Findings are recorded by <code>apograph errors --table "
            "ID --witness SIGLUM --auto</code>.</p>";
   out << "<table class=\"review\"><tr><th>id</th><th>table</th><th>witness</th><th>argument</th>"
          "<th>column</th><th>reading &rarr; proposed</th><th>class</th><th>evidence</th>"
          "<th>status</th><th>decide</th></tr>";
-  for (const auto& g : groups) Row(site, q, g, out);
-  out << "</table><p>Deciding as <b>" << Html(site.editor) << "</b>.</p>";
+  for (const auto& f : findings) Row(site, q, f, edited, out);
+  out << "</table>";
+  EditedList(site, q, edited, out);
+  out << "<p>Deciding as <b>" << Html(site.editor) << "</b>.</p>";
   return {200, "text/html; charset=utf-8",
           publish::HtmlDocument("apograph review", "<article>" + out.str() + "</article>"), ""};
 }

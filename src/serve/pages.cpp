@@ -8,7 +8,6 @@
 #include "serve/findings_page.hpp"
 #include "serve/guard.hpp"
 #include "serve/review.hpp"
-#include "store/review_store.hpp"
 
 namespace apograph::serve {
 namespace {
@@ -40,36 +39,17 @@ HttpResponse Report(Site& site, const Form& query) {
   }
 }
 
-ReviewRequest RequestOf(const Site& site, const Form& form) {
-  const auto action = ActionFromString(Get(form, "action"));
-  if (!action)
-    throw InputError::ForOption("action", "expected accept, reject, override, conjecture or undo");
-  ReviewRequest r;
-  r.action = *action;
-  if (const std::string id = Get(form, "id"); !id.empty()) {
-    if (id.find_first_not_of("0123456789") != std::string::npos || id.size() > 18)
-      throw InputError::ForOption("id", "expected a number, found '" + id + "'");
-    r.emendation = std::stoll(id);
-  }
-  r.table_id = Get(form, "table");
-  r.arg = Get(form, "arg");
-  r.column = Get(form, "column");
-  r.reading = Get(form, "reading");
-  r.note = Get(form, "note");
-  r.editor = site.editor;
-  if (form.count("state")) r.expected_state = Get(form, "state");
-  return r;
-}
-
 HttpResponse Decide(Site& site, const Form& form) {
   const std::string back = "/?" + ListQuery(form, site.token);
   try {
-    const std::string done = serve::Decide(site.db, RequestOf(site, form));
+    const std::string done = Describe(pipeline::Decide(site.db, RequestOf(form, site.editor)));
     return {303, "text/plain; charset=utf-8", done + "\n", back + "&done=" + UrlEncode(done)};
-  } catch (const store::StaleState& e) {
+  } catch (const pipeline::StaleDecision& e) {
     return Page(409, "decided meanwhile",
-                "<p class=\"stale\">" + publish::Html(e.what()) + "</p><p><a href=\"" +
-                    publish::Html(back) + "\">back to the findings</a></p>");
+                "<p class=\"stale\">This was decided since the page was loaded; nothing was "
+                "written. " +
+                    publish::Html(e.what()) + "</p><p><a href=\"" + publish::Html(back) +
+                    "\">back to the findings</a> (reload, then decide again)</p>");
   } catch (const InputError& e) {
     return Page(400, "not decided", "<p>" + publish::Html(e.what()) + "</p>");
   }

@@ -43,7 +43,17 @@ try {
   const decided = list.emendations.filter((e) => String(e.id) === id || String(e.finding) === id);
   check(decided.length >= 1 && decided.every((e) => e.status === 'accepted'),
         'the database has finding ' + id + ' accepted');
-  check(decided[0].note.startsWith('Browser Test'), 'the decision records who made it');
+  check(decided.every((e) => e.editor === 'Browser Test' && !!e.decided_at && e.decision !== null),
+        'the decision records who made it and when');
+  const log = JSON.parse(run(['emendation', 'log', '--format', 'json', '--db', db]));
+  check(log.decisions.filter((d) => String(d.finding) === decided[0].finding.toString()).length === 1,
+        'one decision for the finding, as the command line records it');
+
+  // The table's report, served by the same page, shows the decision.
+  await page.goto(url.replace('/?', '/report?table=sun-eq&'), { waitUntil: 'load' });
+  check(await page.$eval('.findings', () => document.querySelector('.decision.accepted') !== null &&
+                           document.querySelector('.decision.accepted').textContent.includes('Browser Test')),
+        'the report shows the finding accepted by the editor');
 
   // A second tab that still shows the finding as proposed is told it changed.
   const stale = await browser.newPage();

@@ -8,7 +8,7 @@
 #include <string>
 
 #include "cli/hardening_support.hpp"
-#include "store/apparatus_store.hpp"
+#include "pipeline/decisions.hpp"
 
 namespace {
 
@@ -29,7 +29,7 @@ void RenameTable(const fs::path& db, const std::string& from, const std::string&
 
 std::size_t Overrides(const fs::path& dir) {
   apograph::store::Database db((dir / "edition.sqlite").string());
-  return apograph::store::LoadApparatusOverrides(db, "decl").size();
+  return apograph::pipeline::ListEditedCells(db, "decl").size();
 }
 
 }  // namespace

@@ -5,28 +5,33 @@
 #include <set>
 
 #include "../store/store_test_util.hpp"
+#include "pipeline/decisions.hpp"
 #include "serve/guard.hpp"
 #include "serve/pages.hpp"
-#include "store/deviation_store.hpp"
 #include "store/edition_store.hpp"
-#include "store/review_store.hpp"
 
 using namespace apograph;
 
 namespace {
 
-store::EmendationRecord Proposal(int row, const std::string& proposed, int group = 0) {
+/// A proposal for column "equation" of witness A at row `row` (0-based),
+/// as apograph errors records it.
+store::EmendationRecord Proposal(const Transcription& t, int row, const std::string& proposed,
+                                 int group = 0) {
   store::EmendationRecord r;
   r.table_id = "solar";
   r.siglum = "A";
+  r.revision = 1;
   r.row = row;
+  r.column = 0;
   r.column_name = "equation";
   r.arg = std::to_string(row + 1);
-  r.tabulated = "0;14";
+  r.tabulated = t.rows[static_cast<std::size_t>(row)].cells[0].raw;
   r.proposed = proposed;
   r.cls = group ? "displaced-run" : "confusion";
   r.evidence = "tens of minutes: 4 read as 1";
   r.score = 0.5;
+  r.model = "a model";
   r.group = group;
   return r;
 }
@@ -34,11 +39,12 @@ store::EmendationRecord Proposal(int row, const std::string& proposed, int group
 struct Fixture {
   testing::TempDb file{"serve"};
   store::Database db{file.path()};
+  Transcription t = testing::MakeTranscription("solar", "A");
   serve::Site site{db, "0123456789abcdef0123456789abcdef", "A. Editor", {}};
   Fixture() {
-    store::Import(db, {testing::MakeTranscription("solar", "A")});
-    store::RecordEmendations(db,
-                             {Proposal(3, "0;44"), Proposal(5, "0;50", 1), Proposal(6, "0;52", 1)});
+    store::Import(db, {t});
+    pipeline::RecordProposals(db, {Proposal(t, 3, "0;36,15"), Proposal(t, 5, "0;40,25", 1),
+                                   Proposal(t, 6, "0;42,30", 1)});
   }
   serve::HttpResponse Get(const std::string& target) {
     return serve::Handle(site, {"GET", target, "", 0, ""});
@@ -50,10 +56,18 @@ struct Fixture {
   std::string Token() const { return site.token; }
 };
 
+/// The finding `id` belongs to, as the CLI lists it.
+pipeline::FindingState Finding(store::Database& db, std::int64_t id) {
+  for (const auto& f : pipeline::ListFindings(db)) {
+    for (const auto& c : f.cells)
+      if (c.emendation == id) return f;
+  }
+  FAIL("no finding " << id);
+  return {};
+}
+
 std::string StatusOf(store::Database& db, std::int64_t id) {
-  for (const auto& r : store::ListEmendations(db))
-    if (r.id == id) return r.status;
-  return "";
+  return pipeline::ToString(Finding(db, id).status);
 }
 
 }  // namespace
@@ -121,7 +135,7 @@ TEST_CASE("a body over the limit is refused before anything is decided") {
 
 TEST_CASE("accepting a run decides every cell; a stale page is refused and writes nothing") {
   Fixture f;
-  const std::string state = store::FindingState(f.db, 2);
+  const std::string state = Finding(f.db, 2).state;
   CHECK(state == "proposed");
   const auto r = f.Post("token=" + f.Token() + "&action=accept&id=3&state=" + state + "&note=ok");
   CHECK(r.status == 303);
@@ -129,36 +143,60 @@ TEST_CASE("accepting a run decides every cell; a stale page is refused and write
   CHECK(StatusOf(f.db, 2) == "accepted");
   CHECK(StatusOf(f.db, 3) == "accepted");
   CHECK(StatusOf(f.db, 1) == "proposed");
+  // One decision for the run, with who and why in their own fields.
+  const auto run = Finding(f.db, 2);
+  REQUIRE(run.decision);
+  CHECK(run.decision->cells.size() == 2);
+  CHECK(run.decision->editor == "A. Editor");
+  CHECK(run.decision->note == "ok");
+  CHECK_FALSE(run.decision->decided_at.empty());
   // The other tab still shows "proposed" and rejects: refused.
   const auto stale = f.Post("token=" + f.Token() + "&action=reject&id=2&state=proposed");
   CHECK(stale.status == 409);
   CHECK(StatusOf(f.db, 2) == "accepted");
+  CHECK(pipeline::DecisionLog(f.db, "solar").size() == 1);
   // Undo with the current state brings the run back to proposed.
-  const auto undo = f.Post("token=" + f.Token() + "&action=undo&id=2&state=" +
-                           serve::UrlEncode(store::FindingState(f.db, 2)));
+  const auto undo =
+      f.Post("token=" + f.Token() + "&action=undo&id=2&state=" + serve::UrlEncode(run.state));
   CHECK(undo.status == 303);
   CHECK(StatusOf(f.db, 3) == "proposed");
-  // Who decided is recorded with the note.
   f.Post("token=" + f.Token() + "&action=reject&id=1&note=B+agrees");
-  for (const auto& e : store::ListEmendations(f.db))
-    if (e.id == 1) CHECK(e.editor_note == "A. Editor: B agrees");
+  const auto one = Finding(f.db, 1);
+  REQUIRE(one.decision);
+  CHECK(one.decision->editor == "A. Editor");
+  CHECK(one.decision->note == "B agrees");
+  // The list shows who decided.
+  CHECK(f.Get("/?token=" + f.Token()).body.find("rejected by A. Editor") != std::string::npos);
 }
 
 TEST_CASE("an override of a cell is bound as data and checked for staleness") {
   Fixture f;
   const std::string sneaky = "0;44'); DROP TABLE emendation; --";
-  const auto bad = f.Post("token=" + f.Token() +
-                          "&action=override&table=solar&arg=4&column="
-                          "equation&reading=" +
-                          serve::UrlEncode(sneaky));
+  const auto bad =
+      f.Post("token=" + f.Token() + "&action=override&table=solar&arg=4&column=equation&reading=" +
+             serve::UrlEncode(sneaky));
   CHECK(bad.status == 400);  // not a reading
-  CHECK(store::ListEmendations(f.db).size() == 3);
+  CHECK(pipeline::ListFindings(f.db).size() == 2);
   const std::string column = serve::UrlEncode("equation'; --");
   CHECK(f.Post("token=" + f.Token() + "&action=override&table=solar&arg=4&column=" + column +
-               "&reading=0;44&state=cell:none")
+               "&reading=0;44&state=none")
+            .status == 400);  // no such column: nothing written
+  CHECK(pipeline::DecisionLog(f.db, "solar").empty());
+  CHECK(f.Post("token=" + f.Token() +
+               "&action=override&table=solar&arg=4&column=equation&reading=0;36,15&state=none")
             .status == 303);
-  CHECK(store::CellState(f.db, "solar", "4", "equation'; --") != "cell:none");
-  CHECK(f.Post("token=" + f.Token() + "&action=conjecture&table=solar&arg=4&column=" + column +
-               "&reading=0;45&state=cell:none")
+  const auto edited = pipeline::ListEditedCells(f.db, "solar");
+  REQUIRE(edited.size() == 1);
+  CHECK(edited[0].reading == "0;36,15");
+  CHECK(edited[0].decision.editor == "A. Editor");
+  // A second tab that saw no decision on the cell is refused.
+  CHECK(f.Post("token=" + f.Token() +
+               "&action=conjecture&table=solar&arg=4&column=equation&reading=0;36,16&state=none")
             .status == 409);
+  CHECK(pipeline::ListEditedCells(f.db, "solar")[0].reading == "0;36,15");
+  // Undo of the cell with the state the page showed.
+  CHECK(f.Post("token=" + f.Token() + "&action=undo&table=solar&arg=4&column=equation&state=" +
+               serve::UrlEncode(edited[0].state))
+            .status == 303);
+  CHECK(pipeline::ListEditedCells(f.db, "solar").empty());
 }
