@@ -5,7 +5,7 @@ import { check, run, launch, artifacts } from './common.mjs';
 import { spawn } from 'node:child_process';
 import path from 'node:path';
 
-run(['demo', '--output', 'demo']);
+run(['demo', '--output', 'demo'], [1]);  // 1: success with findings
 const db = 'demo/edition.sqlite';
 // Record the findings of one witness (exit code 1: findings were reported).
 run(['errors', '--db', db, '--table', 'sun-eq', '--witness', 'D', '--auto'], [1]);

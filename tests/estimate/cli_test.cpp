@@ -91,7 +91,7 @@ TEST_CASE(
     "piped") {
   const std::string db = MakeDb();
   const Run r = Apograph("identify --all --format csv --db " + db);
-  CHECK(r.code == 0);
+  CHECK(r.code <= 1);  // 1 when a best candidate flags entries (the exit rule)
   CHECK(r.err.find("identify [") == std::string::npos);
   CHECK(r.out.find("sun,A,equation,solar-") != std::string::npos);
   CHECK(r.out.find("sun,B,equation,solar-") != std::string::npos);

@@ -47,7 +47,9 @@ json Conforms(const Db& db, std::vector<std::string> args, const std::string& sc
   REQUIRE(r.code <= 1);
   const json j = json::parse(r.out);
   const auto problems = Schemas().Validate(schema, j);
-  CHECK_MESSAGE(problems.empty(), (problems.empty() ? "" : problems.front()));
+  std::string all;
+  for (const auto& p : problems) all += p + "\n";
+  CHECK_MESSAGE(problems.empty(), all);
   return j;
 }
 
