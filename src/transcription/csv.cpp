@@ -271,9 +271,10 @@ Cell CsvReader::ReadCell(const std::vector<Field>& record, std::size_t column) {
   // An argument written with more places than declared is the same argument
   // when the extra places are zero (`3;0` in a column of whole degrees);
   // the cell keeps what the sheet shows.
-  const bool same_value = has_places && c.places && info.fraction_places > *c.places &&
+  const bool same_value = argument && info.state == CellState::kRead && info.value && c.places &&
+                          info.fraction_places > *c.places && info.value->places() > *c.places &&
                           info.value->Rounded(*c.places, Rounding::kTruncate) == *info.value;
-  if (same_value && argument) {
+  if (same_value) {
     info.value = info.value->Rounded(*c.places, Rounding::kTruncate);
     info.fraction_places = *c.places;
   }

@@ -242,3 +242,21 @@ TEST_CASE("joined place columns: an empty or lone-sign degree field beside place
   CHECK(ErrorOf("arg,v_deg,v_min,v_sec\n1,3,,10\n", o)
             .rfind("k.csv:2:5: error: expected a whole number or '?' in every part", 0) == 0);
 }
+
+TEST_CASE("an illegible argument beside a declared argument place is an input error or a row") {
+  // Found by the CSV fuzz target: a sheet whose argument cell reads '?'
+  // overflowed while its places were compared with the declared ones.
+  const std::string sheet = std::string("\0arg,decl_d,d\n,03,\n?,\"0;?,15\",", 30);
+  int outcomes = 0;
+  for (int places : {0, 1, 2}) {
+    auto o = Options();
+    o.column_places["arg"] = places;
+    try {
+      ReadCsv(sheet, "k.csv", o);
+      ++outcomes;
+    } catch (const apograph::InputError&) {
+      ++outcomes;  // refused with a position: fine; any other exception fails the test
+    }
+  }
+  CHECK(outcomes == 3);
+}
