@@ -18,27 +18,7 @@ namespace {
 using pipeline::Action;
 using pipeline::FindingStatus;
 
-/// A proposal for column "equation" of witness A, row `row` (0-based),
-/// as apograph errors records it.
-store::EmendationRecord Proposal(const Transcription& t, int row, const std::string& proposed,
-                                 int group = 0) {
-  store::EmendationRecord r;
-  r.table_id = "solar";
-  r.siglum = "A";
-  r.revision = 1;
-  r.row = row;
-  r.column = 0;
-  r.column_name = "equation";
-  r.arg = std::to_string(row + 1);
-  r.tabulated = t.rows[static_cast<std::size_t>(row)].cells[0].raw;
-  r.proposed = proposed;
-  r.cls = group ? "displaced-run" : "confusion";
-  r.evidence = "invented for the test";
-  r.score = 0.5;
-  r.model = "a model";
-  r.group = group;
-  return r;
-}
+using testing::SolarProposal;
 
 struct Fixture {
   testing::TempDb file{"decisions"};
@@ -46,8 +26,9 @@ struct Fixture {
   Transcription t = testing::MakeTranscription("solar", "A");
   Fixture() {
     store::Import(db, {t});
-    pipeline::RecordProposals(db, {Proposal(t, 6, "0;13,30"), Proposal(t, 8, "0;17,40", 1),
-                                   Proposal(t, 9, "0;19,45", 1), Proposal(t, 10, "0;21,50", 1)});
+    pipeline::RecordProposals(
+        db, {SolarProposal(t, 6, "0;13,30"), SolarProposal(t, 8, "0;17,40", 1),
+             SolarProposal(t, 9, "0;19,45", 1), SolarProposal(t, 10, "0;21,50", 1)});
   }
   pipeline::DecisionRequest Request(Action action, std::int64_t emendation) {
     pipeline::DecisionRequest r;
@@ -174,7 +155,7 @@ TEST_CASE("a new revision: decisions carry over where the reading holds, review 
   CHECK(to_review == 1);
   // The same proposals recorded for revision 2 carry the decisions; those
   // of revision 1 step back.
-  auto again = Proposal(t2, 6, "0;13,30");
+  auto again = SolarProposal(t2, 6, "0;13,30");
   again.revision = 2;
   pipeline::RecordProposals(fx.db, {again});
   int current = 0;

@@ -14,27 +14,7 @@ using namespace apograph;
 
 namespace {
 
-/// A proposal for column "equation" of witness A at row `row` (0-based),
-/// as apograph errors records it.
-store::EmendationRecord Proposal(const Transcription& t, int row, const std::string& proposed,
-                                 int group = 0) {
-  store::EmendationRecord r;
-  r.table_id = "solar";
-  r.siglum = "A";
-  r.revision = 1;
-  r.row = row;
-  r.column = 0;
-  r.column_name = "equation";
-  r.arg = std::to_string(row + 1);
-  r.tabulated = t.rows[static_cast<std::size_t>(row)].cells[0].raw;
-  r.proposed = proposed;
-  r.cls = group ? "displaced-run" : "confusion";
-  r.evidence = "tens of minutes: 4 read as 1";
-  r.score = 0.5;
-  r.model = "a model";
-  r.group = group;
-  return r;
-}
+using testing::SolarProposal;
 
 struct Fixture {
   testing::TempDb file{"serve"};
@@ -43,8 +23,9 @@ struct Fixture {
   serve::Site site{db, "0123456789abcdef0123456789abcdef", "A. Editor", {}};
   Fixture() {
     store::Import(db, {t});
-    pipeline::RecordProposals(db, {Proposal(t, 3, "0;36,15"), Proposal(t, 5, "0;40,25", 1),
-                                   Proposal(t, 6, "0;42,30", 1)});
+    pipeline::RecordProposals(db,
+                              {SolarProposal(t, 3, "0;36,15"), SolarProposal(t, 5, "0;40,25", 1),
+                               SolarProposal(t, 6, "0;42,30", 1)});
   }
   serve::HttpResponse Get(const std::string& target) {
     return serve::Handle(site, {"GET", target, "", 0, ""});

@@ -12,6 +12,7 @@
 #include <vector>
 
 #include "edition/transcription.hpp"
+#include "store/deviation_store.hpp"
 #include "test_paths.hpp"
 
 namespace apograph::testing {
@@ -121,6 +122,29 @@ inline Transcription MakeTranscription(const std::string& table_id, const std::s
     t.rows[5].cells[1].addition = Addition::kInterlinear;
   }
   return t;
+}
+
+/// A proposal for column "equation" of witness A of
+/// MakeTranscription("solar", "A") at row `row` (0-based), as apograph errors
+/// records it; a `group` above 0 makes it part of a displaced run.
+inline store::EmendationRecord SolarProposal(const Transcription& t, int row,
+                                             const std::string& proposed, int group = 0) {
+  store::EmendationRecord r;
+  r.table_id = "solar";
+  r.siglum = "A";
+  r.revision = 1;
+  r.row = row;
+  r.column = 0;
+  r.column_name = "equation";
+  r.arg = std::to_string(row + 1);
+  r.tabulated = t.rows[static_cast<std::size_t>(row)].cells[0].raw;
+  r.proposed = proposed;
+  r.cls = group ? "displaced-run" : "confusion";
+  r.evidence = "invented for the test";
+  r.score = 0.5;
+  r.model = "a model";
+  r.group = group;
+  return r;
 }
 
 }  // namespace apograph::testing
