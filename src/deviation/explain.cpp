@@ -70,7 +70,9 @@ Sexagesimal AtPlaces(const Sexagesimal& v, int places) {
 
 int UnitsOff(double diff, double tolerance) {
   const double off = std::fabs(diff) - tolerance;
-  return off <= 1e-9 ? 0 : static_cast<int>(std::ceil(off - 1e-9));
+  if (off <= 1e-9) return 0;
+  constexpr double kMax = 1e9;  // far beyond any departure: saturates instead of overflowing
+  return static_cast<int>(std::ceil(std::min(off, kMax) - 1e-9));
 }
 
 std::optional<double> CellContext::Fit(const Sexagesimal& reading) const {
