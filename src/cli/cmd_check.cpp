@@ -12,6 +12,7 @@
 
 #include <nlohmann/json.hpp>
 
+#include "cli/batch_output.hpp"
 #include "cli/estimate_options.hpp"
 #include "cli/reference_options.hpp"
 #include "model/check.hpp"
@@ -19,6 +20,7 @@
 #include "store/edition_store.hpp"
 #include "store/model_store.hpp"
 #include "support/input_error.hpp"
+#include "support/ordered_batch.hpp"
 #include "support/tabular.hpp"
 
 namespace apograph::cli {
@@ -29,7 +31,9 @@ extern const char kCheckUsage[] =
     "                      [--places N] [--grid G [--grid-origin O] [--round-nodes]]\n"
     "                      [--displacement D] [--sign signed|negated|magnitude]\n"
     "                      [--tolerance U] [--revision N] [--flagged-only]\n"
-    "                      [--format text|csv|json] [--db FILE]\n\n"
+    "                      [--format text|csv|json] [--db FILE]\n"
+    "       apograph check (--all | --work WORK) (--model NAME | --formula TEXT | --auto)\n"
+    "                      [the options above] [--threads N]\n\n"
     "Recomputes every entry of the column and lists: the argument and reading as written,\n"
     "the value after the practice, the exact value, the difference in units of the last\n"
     "place, and a flag where |difference| > tolerance (default 1 unit). --model takes a\n"
@@ -38,6 +42,11 @@ extern const char kCheckUsage[] =
     "in the database. --auto identifies the model, parameters and practice from the witness's\n"
     "own entries first (apograph identify; parameters brought to round sexagesimal values).\n"
     "Exit code 1 when anything is flagged.\n\n"
+    "--all (or --work) checks every transcription (or every one of the work's tables) in\n"
+    "one process on every core, each run stored: text prints one summary line per\n"
+    "transcription as it is done, CSV every entry (or, with --flagged-only, the flagged\n"
+    "ones) with its table, witness and column, JSON one object per line (JSON lines, the\n"
+    "fields of the single form). A transcription without the column is listed as such.\n\n"
     "example: apograph check --table sun-eq --witness A --model solar-eccentric \\\n"
     "           --param 'e=2;16' --grid 6";
 
@@ -184,8 +193,8 @@ nlohmann::json ToJson(const model::CheckReport& r, const Transcription& t,
 }
 
 void AddOptions(po::options_description& d, CheckOptions& o) {
-  d.add_options()("table", po::value(&o.table)->required(), "table id")(
-      "witness", po::value(&o.witness)->required(), "siglum of the witness")(
+  d.add_options()("table", po::value(&o.table), "table id")("witness", po::value(&o.witness),
+                                                            "siglum of the witness")(
       "column", po::value(&o.column), "column to check (default: the first)")(
       "tolerance", po::value(&o.tolerance)->default_value("1"),
       "flag when |diff| > this many units")("revision", po::value(&o.revision),
@@ -196,22 +205,102 @@ void AddOptions(po::options_description& d, CheckOptions& o) {
                       "identify the model, parameters and practice from this witness's entries");
 }
 
+/// check --all / --work: every transcription in scope, each run stored,
+/// results streamed.
+int RunBatch(store::Database& db, const CheckOptions& o, const BatchArgs& batch,
+             const pipeline::ReferenceRequest& request, double tolerance, Io& io) {
+  const auto scope = BatchScope(db, batch);
+  const pipeline::ModelLibrary library = LoadModels(db, io);
+  const Format format = ParseFormat(o.format);
+  const bool per_entry = format == Format::kCsv;
+  StreamingTable out(
+      io, format,
+      per_entry ? std::vector<std::string>{"table", "witness", "column", "row", "arg", "tabulated",
+                                           "computed", "exact", "diff", "flag"}
+                : std::vector<std::string>{"table", "witness", "column", "model", "entries",
+                                           "exact", "within_one", "flagged", "worst"},
+      per_entry ? std::vector<bool>{}
+                : std::vector<bool>{false, false, false, false, true, true, true, true, true});
+  struct Done {
+    std::optional<pipeline::ColumnReference> ref;
+    std::optional<model::CheckReport> report;
+    std::string why_not;
+  };
+  bool findings = false;
+  ProgressBar bar(io, "check");
+  support::RunInOrder<Transcription, Done>(
+      scope.size(), {static_cast<unsigned>(batch.threads)},
+      [&](std::size_t i) { return store::Load(db, scope[i].table_id, scope[i].siglum); },
+      [&](const Transcription& t) -> Done {
+        if (t.columns.empty()) return {std::nullopt, std::nullopt, "no value columns"};
+        const std::string column = o.column.empty() ? t.columns.front().name : o.column;
+        if (t.ColumnIndex(column) < 0) return {std::nullopt, std::nullopt, "no column " + column};
+        pipeline::ReferenceRequest one = request;
+        one.columns = {column};
+        auto ref = pipeline::ResolveReferences({t}, one, library).front();
+        auto r = model::Check(t, *ref.model, ref.params, ref.practice, tolerance, ref.column);
+        return {std::move(ref), std::move(r), ""};
+      },
+      [&](std::size_t i, Transcription&& t, Done&& d) {
+        if (!d.report) {
+          findings = true;
+          if (!per_entry)
+            out.Add({t.table_id, t.witness.siglum, "", "-", "", "", "", "", d.why_not});
+          out.AddJson(
+              {{"table", t.table_id}, {"witness", t.witness.siglum}, {"skipped", d.why_not}});
+          return;
+        }
+        const auto& r = *d.report;
+        const std::optional<std::string> formula =
+            d.ref->formula.empty() ? std::nullopt : std::optional(d.ref->formula);
+        const std::int64_t run = store::SaveCheckRun(db, r, scope[i].number, formula);
+        findings = findings || r.summary.flagged > 0 || r.summary.compared == 0;
+        const std::string column = r.entries.empty() ? "" : r.entries.front().column;
+        if (per_entry) {
+          for (const auto& row : EntryTable(r, o.flagged_only).rows) {
+            std::vector<std::string> line = {t.table_id, t.witness.siglum, column};
+            line.insert(line.end(), row.begin(), row.end());
+            out.Add(line);
+          }
+        } else {
+          const auto& s = r.summary;
+          out.Add({t.table_id, t.witness.siglum, column, r.model, std::to_string(s.entries),
+                   std::to_string(s.exact), std::to_string(s.within_one), std::to_string(s.flagged),
+                   s.worst_row ? FormatDiff(r.entries[*s.worst_row].diff_units) : ""});
+        }
+        if (format == Format::kJson) out.AddJson(ToJson(r, t, scope[i].number, formula, run));
+      },
+      [&](std::size_t done, std::size_t total) { bar.Show(done, total); });
+  out.Finish();
+  return findings ? kFindings : kOk;
+}
+
 }  // namespace
 
 int RunCheck(const std::vector<std::string>& args, Io& io) {
   CheckOptions o;
   po::options_description d("options");
   AddOptions(d, o);
+  BatchArgs batch;
+  AddBatchOptions(d, batch);
   AddFormatOption(d, o.format, {"text", "csv", "json"});
   AddDbOption(d, o.db);
   po::variables_map vm;
   if (ParseOptions(FindCommand("check"), args, d, vm, io)) return kOk;
   CheckChoice("--format", o.format, {"text", "csv", "json"});
+  CheckBatchOptions(batch, !o.table.empty() || !o.witness.empty(), "check");
+  if (!batch.Batch() && (o.table.empty() || o.witness.empty()))
+    throw InputError::ForOption(o.table.empty() ? "--table" : "--witness",
+                                ExpectedFound("--table and --witness together", "only one"));
+  if (batch.Batch() && vm.count("revision"))
+    throw InputError::ForOption(
+        "--revision", ExpectedFound("one table (--all checks current revisions)", "--all"));
   pipeline::ReferenceRequest request = ToReferenceRequest(o.reference, vm);
   const double tolerance = ParseNumber("--tolerance", o.tolerance);
   if (tolerance < 0)
     throw InputError::ForOption("--tolerance", ExpectedFound("0 or more", "'" + o.tolerance + "'"));
   store::Database db = OpenEdition(o.db);
+  if (batch.Batch()) return RunBatch(db, o, batch, request, tolerance, io);
   const std::optional<int> revision =
       vm.count("revision") ? std::optional<int>(o.revision) : std::nullopt;
   const Transcription t = store::Load(db, o.table, o.witness, revision);

@@ -8,6 +8,7 @@
 
 #include <nlohmann/json.hpp>
 
+#include "cli/batch_output.hpp"
 #include "cli/command.hpp"
 #include "cli/estimate_options.hpp"
 #include "cli/reference_options.hpp"
@@ -21,6 +22,7 @@
 #include "store/deviation_store.hpp"
 #include "store/edition_store.hpp"
 #include "support/input_error.hpp"
+#include "support/ordered_batch.hpp"
 #include "support/tabular.hpp"
 
 namespace apograph::cli {
@@ -32,6 +34,8 @@ extern const char kErrorsUsage[] =
     "                       [--column NAME] [--tolerance U]\n"
     "                       [--revision N] [--scripts DIR] [--no-record] [--format text|csv|json] "
     "[--db FILE]\n"
+    "       apograph errors (--all | --work WORK) (--model ... | --auto ...) [the options above]\n"
+    "                       [--threads N]\n"
     "\n"
     "Recomputes the witness's entries from the model and, for every entry further\n"
     "from it than the tolerance (units of the last place, default 0.5), ranks the\n"
@@ -50,6 +54,10 @@ extern const char kErrorsUsage[] =
     "fitted. Practice options: --rounding nearest|truncate, --places N, --grid G\n"
     "[--grid-origin O] [--round-nodes], --displacement D, --sign signed|negated|magnitude.\n"
     "Exit 1 when there are findings.\n"
+    "--all (or --work) goes table by table in one process on every core (references\n"
+    "from all of a table's witnesses, as for one), printing each witness as it is\n"
+    "explained (CSV rows with its table and witness; JSON one object per witness and\n"
+    "line) and recording its proposals; a progress bar shows on a terminal.\n"
     "\n"
     "example: apograph errors --table sun-eq --witness D --model solar-eccentric --param 'e=2;16' "
     "--grid 6\n"
@@ -232,57 +240,80 @@ void PrintRefused(const pipeline::ColumnVerdict& v, Io& io) {
   }
 }
 
-void Print(const ErrorsOptions& o, const Transcription& t,
-           const std::vector<pipeline::ColumnReference>& refs,
-           const pipeline::WitnessFindings& explained, Io& io) {
-  const auto& findings = explained.findings;
-  const Format format = ParseFormat(o.format);
-  const std::string model = ModelText(refs, t);
-  if (format == Format::kJson) {
-    nlohmann::json j = {{"table", t.table_id},
-                        {"witness", t.witness.siglum},
-                        {"script", t.witness.script},
-                        {"numeral_script", explained.script},
-                        {"witness_kind", ToString(t.witness.Kind())},
-                        {"model", model},
-                        {"tolerance", o.tolerance}};
-    j["references"] = nlohmann::json::array();
-    for (const auto& r : refs) j["references"].push_back(ReferenceJson(r));
-    j["findings"] = nlohmann::json::array();
-    for (const auto& f : findings) j["findings"].push_back(FindingJson(f, t));
-    j["verdicts"] = nlohmann::json::array();
-    for (const auto& v : explained.verdicts) j["verdicts"].push_back(VerdictJson(v));
-    io.out << j.dump(2) << "\n";
-    return;
-  }
-  if (format == Format::kCsv) {
-    Tabular tab;
-    tab.headers = {"finding",    "arg",   "column",     "tabulated", "computed",
-                   "diff_units", "class", "emendation", "score",     "explanation"};
-    for (std::size_t i = 0; i < findings.size(); ++i) {
-      const auto& f = findings[i];
-      for (const auto& c : f.cells) {
-        char diff[32] = "", score[16];
-        if (std::isfinite(c.diff_units))
-          std::snprintf(diff, sizeof diff, "%g", std::round(c.diff_units * 100) / 100);
-        std::snprintf(score, sizeof score, "%.2f", f.best().score);
-        tab.Add({std::to_string(i + 1), c.arg, f.column_name, c.tabulated,
-                 c.computed ? c.computed->ToString() : "", diff, deviation::ToString(f.best().cls),
-                 c.emendation ? c.emendation->ToString() : "", score, f.best().evidence});
-      }
+nlohmann::json ErrorsJson(const ErrorsOptions& o, const Transcription& t,
+                          const std::vector<pipeline::ColumnReference>& refs,
+                          const pipeline::WitnessFindings& explained) {
+  nlohmann::json j = {{"table", t.table_id},
+                      {"witness", t.witness.siglum},
+                      {"script", t.witness.script},
+                      {"numeral_script", explained.script},
+                      {"witness_kind", ToString(t.witness.Kind())},
+                      {"model", ModelText(refs, t)},
+                      {"tolerance", o.tolerance}};
+  j["references"] = nlohmann::json::array();
+  for (const auto& r : refs) j["references"].push_back(ReferenceJson(r));
+  j["findings"] = nlohmann::json::array();
+  for (const auto& f : explained.findings) j["findings"].push_back(FindingJson(f, t));
+  j["verdicts"] = nlohmann::json::array();
+  for (const auto& v : explained.verdicts) j["verdicts"].push_back(VerdictJson(v));
+  return j;
+}
+
+const std::vector<std::string> kCsvHeaders = {"finding",  "arg",        "column", "tabulated",
+                                              "computed", "diff_units", "class",  "emendation",
+                                              "score",    "explanation"};
+
+/// One CSV row per cell of each finding.
+std::vector<std::vector<std::string>> CsvRows(const std::vector<deviation::Finding>& findings) {
+  std::vector<std::vector<std::string>> rows;
+  for (std::size_t i = 0; i < findings.size(); ++i) {
+    const auto& f = findings[i];
+    for (const auto& c : f.cells) {
+      char diff[32] = "", score[16];
+      if (std::isfinite(c.diff_units))
+        std::snprintf(diff, sizeof diff, "%g", std::round(c.diff_units * 100) / 100);
+      std::snprintf(score, sizeof score, "%.2f", f.best().score);
+      rows.push_back({std::to_string(i + 1), c.arg, f.column_name, c.tabulated,
+                      c.computed ? c.computed->ToString() : "", diff,
+                      deviation::ToString(f.best().cls),
+                      c.emendation ? c.emendation->ToString() : "", score, f.best().evidence});
     }
-    io.out << tab.RenderCsv();
-    return;
   }
+  return rows;
+}
+
+void PrintText(const Transcription& t, const std::vector<pipeline::ColumnReference>& refs,
+               const pipeline::WitnessFindings& explained, bool with_references, Io& io) {
+  const auto& findings = explained.findings;
   for (const auto& r : refs) {
-    if (r.source == pipeline::ReferenceSource::kIdentified)
+    if (with_references && r.source == pipeline::ReferenceSource::kIdentified)
       io.out << r.column_name << ": " << r.description << "; " << r.how << "\n";
   }
   io.out << "table " << t.table_id << ", witness " << t.witness.siglum << " (" << explained.script
-         << "), compared with " << model << ": " << findings.size()
+         << "), compared with " << ModelText(refs, t) << ": " << findings.size()
          << (findings.size() == 1 ? " finding\n" : " findings\n");
   for (const auto& f : findings) io.out << f.Note(t.witness.siglum) << "\n";
   for (const auto& v : explained.verdicts) PrintRefused(v, io);
+}
+
+void Print(const ErrorsOptions& o, const Transcription& t,
+           const std::vector<pipeline::ColumnReference>& refs,
+           const pipeline::WitnessFindings& explained, Io& io) {
+  switch (ParseFormat(o.format)) {
+    case Format::kJson:
+      io.out << ErrorsJson(o, t, refs, explained).dump(2) << "\n";
+      return;
+    case Format::kCsv: {
+      Tabular tab;
+      tab.headers = kCsvHeaders;
+      tab.rows = CsvRows(explained.findings);
+      io.out << tab.RenderCsv();
+      return;
+    }
+    case Format::kText:
+      PrintText(t, refs, explained, true, io);
+      return;
+  }
 }
 
 std::vector<store::EmendationRecord> Proposals(const Transcription& t, int revision,
@@ -316,10 +347,81 @@ std::vector<store::EmendationRecord> Proposals(const Transcription& t, int revis
   return out;
 }
 
-int CurrentRevision(store::Database& db, const ErrorsOptions& o) {
-  if (o.revision > 0) return o.revision;
-  auto revisions = store::ListRevisions(db, o.table, o.witness);
-  return revisions.empty() ? 1 : revisions.back().number;
+/// Records a witness's proposals unless --no-record; a line on stderr.
+void Record(store::Database& db, const ErrorsOptions& o, const Transcription& t, int revision,
+            const std::vector<pipeline::ColumnReference>& refs,
+            const std::vector<deviation::Finding>& findings, Io& io) {
+  if (o.no_record) return;
+  auto proposals = Proposals(t, revision, ModelText(refs, t), findings);
+  if (proposals.empty()) return;
+  const auto r = pipeline::RecordProposals(db, proposals);
+  io.err << "recorded " << r.added << " new proposed emendation" << (r.added == 1 ? "" : "s")
+         << (o.table.empty() ? " for " + t.table_id + " " + t.witness.siglum : "") << " in " << o.db
+         << (r.kept ? " (" + std::to_string(r.kept) + " already recorded)" : "") << "\n";
+}
+
+bool Refused(const pipeline::WitnessFindings& explained) {
+  return std::any_of(explained.verdicts.begin(), explained.verdicts.end(),
+                     [](const auto& v) { return !v.verdict.explains; });
+}
+
+/// errors --all / --work: table by table (the references come from all of a
+/// table's witnesses), each witness printed as it is explained and its
+/// proposals recorded; JSON is one object per witness and line.
+int RunBatch(store::Database& db, const ErrorsOptions& o, const BatchArgs& batch,
+             const pipeline::ReferenceRequest& request, Io& io) {
+  std::vector<std::string> tables;
+  for (const auto& r : BatchScope(db, batch)) {
+    if (tables.empty() || tables.back() != r.table_id) tables.push_back(r.table_id);
+  }
+  const pipeline::ModelLibrary library = LoadModels(db, io);
+  const Format format = ParseFormat(o.format);
+  std::vector<std::string> headers = {"table", "witness"};
+  headers.insert(headers.end(), kCsvHeaders.begin(), kCsvHeaders.end());
+  StreamingTable csv(io, format == Format::kCsv ? format : Format::kJson, headers);
+  deviation::ExplainOptions eo;
+  eo.tolerance = o.tolerance;
+  struct Done {
+    std::vector<pipeline::ColumnReference> refs;
+    std::vector<pipeline::WitnessFindings> explained;
+  };
+  bool findings = false;
+  ProgressBar bar(io, "errors");
+  support::RunInOrder<std::vector<Transcription>, Done>(
+      tables.size(), {static_cast<unsigned>(batch.threads)},
+      [&](std::size_t i) { return store::LoadTable(db, tables[i]); },
+      [&](const std::vector<Transcription>& witnesses) -> Done {
+        pipeline::ReferenceRequest one = request;
+        if (!o.column.empty()) one.columns = {o.column};
+        auto refs = pipeline::ResolveReferences(
+            request.automatic ? witnesses : std::vector<Transcription>{witnesses.front()}, one,
+            library);
+        auto explained = pipeline::ExplainTradition(witnesses, refs, o.scripts, eo);
+        return {std::move(refs), std::move(explained)};
+      },
+      [&](std::size_t, std::vector<Transcription>&& witnesses, Done&& d) {
+        for (std::size_t w = 0; w < witnesses.size(); ++w) {
+          const Transcription& t = witnesses[w];
+          const auto& e = d.explained[w];
+          findings = findings || !e.findings.empty() || Refused(e);
+          if (format == Format::kText) {
+            PrintText(t, d.refs, e, w == 0, io);
+            io.out << "\n";
+          } else if (format == Format::kJson) {
+            io.out << ErrorsJson(o, t, d.refs, e).dump() << "\n";
+          } else {
+            for (auto& row : CsvRows(e.findings)) {
+              row.insert(row.begin(), {t.table_id, t.witness.siglum});
+              csv.Add(row);
+            }
+          }
+          Record(db, o, t, store::CurrentRevision(db, t.table_id, t.witness.siglum), d.refs,
+                 e.findings, io);
+        }
+      },
+      [&](std::size_t done, std::size_t total) { bar.Show(done, total); });
+  csv.Finish();
+  return findings ? kFindings : kOk;
 }
 
 }  // namespace
@@ -327,9 +429,10 @@ int CurrentRevision(store::Database& db, const ErrorsOptions& o) {
 int RunErrors(const std::vector<std::string>& args, Io& io) {
   ErrorsOptions o;
   po::options_description options("options");
-  options.add_options()("table", po::value(&o.table)->required(), "table id")(
-      "witness", po::value(&o.witness)->required(), "siglum of the witness")(
-      "column", po::value(&o.column), "only this column")(
+  BatchArgs batch;
+  options.add_options()("table", po::value(&o.table), "table id")(
+      "witness", po::value(&o.witness), "siglum of the witness")("column", po::value(&o.column),
+                                                                 "only this column")(
       "tolerance", po::value(&o.tolerance)->default_value(0.5),
       "units of the last place an entry may differ")(
       "revision", po::value(&o.revision),
@@ -340,11 +443,19 @@ int RunErrors(const std::vector<std::string>& args, Io& io) {
   AddReferenceOptions(
       options, o.reference,
       "identify the model, parameters and practice from the table's witnesses first");
+  AddBatchOptions(options, batch);
   AddFormatOption(options, o.format, {"text", "csv", "json"});
   AddDbOption(options, o.db);
   po::variables_map vm;
   if (ParseOptions(FindCommand("errors"), args, options, vm, io)) return kOk;
   CheckChoice("--format", o.format, {"text", "csv", "json"});
+  CheckBatchOptions(batch, !o.table.empty() || !o.witness.empty(), "errors");
+  if (!batch.Batch() && (o.table.empty() || o.witness.empty()))
+    throw InputError::ForOption(o.table.empty() ? "--table" : "--witness",
+                                ExpectedFound("--table and --witness together", "only one"));
+  if (batch.Batch() && o.revision > 0)
+    throw InputError::ForOption(
+        "--revision", ExpectedFound("one table (--all explains current revisions)", "--all"));
   CheckChoice("--rounding", o.reference.rounding, {"nearest", "truncate"});
   pipeline::ReferenceRequest request = ToReferenceRequest(o.reference, vm);
   if (request.Empty())
@@ -355,6 +466,7 @@ int RunErrors(const std::vector<std::string>& args, Io& io) {
         "--tolerance", ExpectedFound("a number of units >= 0", std::to_string(o.tolerance)));
 
   store::Database db = OpenEdition(o.db);
+  if (batch.Batch()) return RunBatch(db, o, batch, request, io);
   const Transcription t = store::Load(
       db, o.table, o.witness, o.revision > 0 ? std::optional<int>(o.revision) : std::nullopt);
   if (!o.column.empty()) request.columns = {o.column};
@@ -369,20 +481,10 @@ int RunErrors(const std::vector<std::string>& args, Io& io) {
   deviation::ExplainOptions eo;
   eo.tolerance = o.tolerance;
   const auto explained = pipeline::ExplainTradition(witnesses, refs, o.scripts, eo).front();
-  const auto& findings = explained.findings;
   Print(o, t, refs, explained, io);
-  if (!o.no_record) {
-    auto proposals = Proposals(t, CurrentRevision(db, o), ModelText(refs, t), findings);
-    if (!proposals.empty()) {
-      const auto r = pipeline::RecordProposals(db, proposals);
-      io.err << "recorded " << r.added << " new proposed emendation" << (r.added == 1 ? "" : "s")
-             << " in " << o.db
-             << (r.kept ? " (" + std::to_string(r.kept) + " already recorded)" : "") << "\n";
-    }
-  }
-  const bool refused = std::any_of(explained.verdicts.begin(), explained.verdicts.end(),
-                                   [](const auto& v) { return !v.verdict.explains; });
-  return findings.empty() && !refused ? kOk : kFindings;
+  Record(db, o, t, o.revision > 0 ? o.revision : store::CurrentRevision(db, o.table, o.witness),
+         refs, explained.findings, io);
+  return explained.findings.empty() && !Refused(explained) ? kOk : kFindings;
 }
 
 }  // namespace apograph::cli

@@ -1,8 +1,14 @@
 // apograph fit: robust estimate of a model's parameters from a witness's entries.
 #include "cli/command.hpp"
 
+#include <cmath>
+#include <cstdio>
+#include <iomanip>
+#include <optional>
 #include <ostream>
+#include <sstream>
 
+#include "cli/batch_output.hpp"
 #include "cli/estimate_options.hpp"
 #include "cli/reference_options.hpp"
 #include "estimate/fit.hpp"
@@ -11,6 +17,7 @@
 #include "store/edition_store.hpp"
 #include "store/estimate_store.hpp"
 #include "support/input_error.hpp"
+#include "support/ordered_batch.hpp"
 
 namespace apograph::cli {
 
@@ -20,15 +27,24 @@ extern const char kFitUsage[] =
     "                    [--grid G [--grid-origin X] [--round-nodes]] [--displacement VALUE|fit]\n"
     "                    [--sign signed|negated|magnitude|conventional]\n"
     "                    [--tolerance UNITS] [--all-entries]\n"
-    "                    [--format text|json] [--db FILE]\n\n"
+    "                    [--format text|json] [--db FILE]\n"
+    "       apograph fit (--all | --work WORK) --model NAME [the options above] [--threads N]\n"
+    "                    [--format text|csv|json]\n\n"
     "Estimates the model's free parameters by robust least squares (Cauchy loss, scale one\n"
     "unit of the last place), so that a few miscopied entries do not pull the estimate;\n"
     "standard errors from the covariance at the optimum. Several --column options fit the\n"
     "columns jointly with the same parameters. A mean-motion model also gets the analysis\n"
     "of how the table was built. Exit code 1 when entries are flagged.\n\n"
+    "--all (or --work) fits the model to every transcription (or every one of the work's\n"
+    "tables) in one process on every core, the columns as for one table: text and CSV\n"
+    "print one line per transcription as it is done (estimates with their standard errors),\n"
+    "JSON one object per line (JSON lines, the fields of the single form); a transcription\n"
+    "without readable entries is listed as such. A progress bar shows on a terminal.\n\n"
     "example:\n"
     "  apograph fit --table sun-eq --witness A --model solar-eccentric\n"
-    "  apograph fit --table decl --witness B --model declination --rounding truncate --format json";
+    "  apograph fit --table decl --witness B --model declination --rounding truncate --format "
+    "json\n"
+    "  apograph fit --work lantern --model declination --format csv > fits.csv";
 
 namespace {
 
@@ -71,14 +87,89 @@ estimate::FitOptions Options(const FitArgs& a, const model::Model& m) {
   return o;
 }
 
+std::string Estimates(const estimate::FitResult& fit) {
+  std::ostringstream s;
+  s << std::setprecision(8);
+  for (const auto& p : fit.params) {
+    s << (s.tellp() > 0 ? " " : "") << p.name << "=" << p.value;
+    if (p.fixed)
+      s << "(fixed)";
+    else if (std::isfinite(p.stderr_))
+      s << "+-" << std::setprecision(2) << p.stderr_ << std::setprecision(8);
+    else
+      s << "(not separable)";
+  }
+  return s.str();
+}
+
+/// fit --all / --work: every transcription in scope, streamed.
+int RunBatch(store::Database& db, const FitArgs& a, const BatchArgs& batch, const model::Model& m,
+             const estimate::FitOptions& options,
+             const std::vector<estimate::CatalogEntry>& catalog, Io& io) {
+  const auto scope = BatchScope(db, batch);
+  const Format format = ParseFormat(a.format);
+  StreamingTable out(io, format,
+                     {"table", "witness", "revision", "model", "entries", "exact", "within_one",
+                      "flagged", "scale", "estimates"},
+                     {false, false, true, false, true, true, true, true, true, false});
+  struct Done {
+    std::optional<estimate::FitResult> fit;
+    std::string why_not;
+  };
+  bool findings = false;
+  ProgressBar bar(io, "fit");
+  support::RunInOrder<Transcription, Done>(
+      scope.size(), {static_cast<unsigned>(batch.threads)},
+      [&](std::size_t i) { return store::Load(db, scope[i].table_id, scope[i].siglum); },
+      [&](const Transcription& t) -> Done {
+        for (const auto& name : a.columns) {
+          if (t.ColumnIndex(name) < 0) return {std::nullopt, "no column " + name};
+        }
+        const std::vector<int> columns = estimate::ResolveColumns(t, a.columns);
+        const auto obs = estimate::CollectObservations(t, columns);
+        if (obs.empty()) return {std::nullopt, "no readable entries"};
+        return {estimate::Fit(m, t, obs, options), ""};
+      },
+      [&](std::size_t i, Transcription&& t, Done&& d) {
+        const std::string revision = std::to_string(scope[i].number);
+        if (!d.fit) {
+          findings = true;
+          out.Add(
+              {t.table_id, t.witness.siglum, revision, m.name(), "0", "", "", "", "", d.why_not});
+          out.AddJson({{"table", t.table_id},
+                       {"witness", t.witness.siglum},
+                       {"revision", scope[i].number},
+                       {"model", m.name()},
+                       {"skipped", d.why_not}});
+          return;
+        }
+        const auto& f = *d.fit;
+        findings = findings || f.flagged > 0;
+        char scale[32];
+        std::snprintf(scale, sizeof scale, "%.2f", f.robust_scale);
+        out.Add({t.table_id, t.witness.siglum, revision, f.model, std::to_string(f.n),
+                 std::to_string(f.exact), std::to_string(f.within1), std::to_string(f.flagged),
+                 scale, Estimates(f)});
+        if (format == Format::kJson) {
+          auto j = estimate::FitJson(f, t, catalog);
+          j["revision"] = scope[i].number;
+          out.AddJson(j);
+        }
+      },
+      [&](std::size_t done, std::size_t total) { bar.Show(done, total); });
+  out.Finish();
+  return findings ? kFindings : kOk;
+}
+
 }  // namespace
 
 int RunFit(const std::vector<std::string>& args, Io& io) {
   const Command& cmd = FindCommand("fit");
   FitArgs a;
   po::options_description opts("options");
-  opts.add_options()("table", po::value(&a.table)->required(), "table id")(
-      "witness", po::value(&a.witness)->required(), "siglum of the witness")(
+  BatchArgs batch;
+  opts.add_options()("table", po::value(&a.table), "table id")("witness", po::value(&a.witness),
+                                                               "siglum of the witness")(
       "model", po::value(&a.model)->required(),
       "built-in model or saved formula (see apograph check --help)")(
       "column", po::value(&a.columns),
@@ -98,16 +189,24 @@ int RunFit(const std::vector<std::string>& args, Io& io) {
       "flag entries more than this many units away")(
       "all-entries", po::bool_switch(&a.all_entries),
       "text: list every entry, not only flagged ones");
+  AddBatchOptions(opts, batch);
   AddDbOption(opts, a.db);
-  AddFormatOption(opts, a.format, {"text", "json"});
+  AddFormatOption(opts, a.format, {"text", "csv", "json"});
   po::variables_map vm;
   if (ParseOptions(cmd, args, opts, vm, io)) return kOk;
-  CheckChoice("--format", a.format, {"text", "json"});
+  CheckChoice("--format", a.format, {"text", "csv", "json"});
+  CheckBatchOptions(batch, !a.table.empty() || !a.witness.empty(), "fit");
+  if (!batch.Batch() && (a.table.empty() || a.witness.empty()))
+    throw InputError::ForOption(a.table.empty() ? "--table" : "--witness",
+                                ExpectedFound("--table and --witness together", "only one"));
+  if (!batch.Batch() && a.format == "csv")
+    throw InputError::ForOption("--format", ExpectedFound("text or json for one table", "csv"));
   store::Database db = OpenEdition(a.db);
   const pipeline::ModelLibrary library = LoadModels(db, io);
   const auto model = library.FindOrThrow(a.model, "--model");
   const model::Model& m = *model;
   const estimate::FitOptions options = Options(a, m);
+  if (batch.Batch()) return RunBatch(db, a, batch, m, options, library.catalog, io);
   const Transcription t = store::Load(db, a.table, a.witness);
   const std::vector<int> columns = estimate::ResolveColumns(t, a.columns);
   const auto& catalog = library.catalog;
