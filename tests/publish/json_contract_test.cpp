@@ -3,6 +3,9 @@
 // two; and the validator itself on outputs that break the contract.
 #include <doctest/doctest.h>
 
+#include <sstream>
+#include <string>
+
 #include <nlohmann/json.hpp>
 
 #include "../store/store_test_util.hpp"
@@ -53,7 +56,34 @@ json Conforms(const Db& db, std::vector<std::string> args, const std::string& sc
   return j;
 }
 
+/// As Conforms for the batch forms: every line of JSON lines conforms to the
+/// single form's schema; returns how many lines did.
+int LinesConform(const Db& db, std::vector<std::string> args, const std::string& schema) {
+  args.insert(args.end(), {"--format", "json", "--db", db.file.path()});
+  const auto r = testing::RunInProcess(args);
+  INFO(r.err);
+  REQUIRE(r.code <= 1);
+  std::istringstream in(r.out);
+  int lines = 0;
+  for (std::string line; std::getline(in, line); ++lines) {
+    const json j = json::parse(line);
+    if (j.contains("skipped")) continue;
+    const auto problems = Schemas().Validate(schema, j);
+    std::string all;
+    for (const auto& p : problems) all += p + "\n";
+    CHECK_MESSAGE(problems.empty(), all);
+  }
+  return lines;
+}
+
 }  // namespace
+
+TEST_CASE("the batch forms' JSON lines conform to the single forms' schemas") {
+  Db db;
+  CHECK(LinesConform(db, {"fit", "--all", "--model", "declination"}, "fit.json") == 20);
+  CHECK(LinesConform(db, {"check", "--work", "lantern", "--auto"}, "check.json") == 20);
+  CHECK(LinesConform(db, {"errors", "--all", "--auto", "--no-record"}, "errors.json") == 20);
+}
 
 TEST_CASE("the JSON schemas use the supported subset of draft 2020-12") {
   CHECK(Schemas().files().size() >= 16);
