@@ -5,6 +5,7 @@
 #include <algorithm>
 #include <filesystem>
 #include <fstream>
+#include <optional>
 #include <ostream>
 
 #include "cli/collate_input.hpp"
@@ -115,7 +116,13 @@ int RunApparatus(const std::vector<std::string>& args, Io& io) {
     pending.push_back(ParseDecision("--withdraw", w, false, request.table));
   for (auto& p : pending) p.editor = who, p.note = note;
   store::Database db = OpenEdition(db_path);
-  if (!pending.empty()) pipeline::DecideAll(db, pending);  // checked, then written at once
+  // The decisions are held in one transaction until the output is written:
+  // a failed write (disk full, a folder that vanished) leaves nothing stored.
+  std::optional<store::Transaction> hold;
+  if (!pending.empty()) {
+    hold.emplace(db);
+    pipeline::DecideAll(db, pending);  // checked, then written at once
+  }
   const auto table = CollateTableFromDb(db, request);
   publish::ApparatusOptions ao;
   ao.branches = Branches(table.collation);
@@ -131,6 +138,7 @@ int RunApparatus(const std::vector<std::string>& args, Io& io) {
     WriteOutputFile(output, text, rules);
     io.err << "wrote " << output << "\n";
   }
+  if (hold) hold->Commit();
   return kOk;
 }
 

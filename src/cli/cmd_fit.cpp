@@ -89,13 +89,13 @@ estimate::FitOptions Options(const FitArgs& a, const model::Model& m) {
 
 std::string Estimates(const estimate::FitResult& fit) {
   std::ostringstream s;
-  s << std::setprecision(8);
+  s << std::setprecision(10);
   for (const auto& p : fit.params) {
     s << (s.tellp() > 0 ? " " : "") << p.name << "=" << p.value;
     if (p.fixed)
       s << "(fixed)";
     else if (std::isfinite(p.stderr_))
-      s << "+-" << std::setprecision(2) << p.stderr_ << std::setprecision(8);
+      s << "+-" << std::setprecision(2) << p.stderr_ << std::setprecision(10);
     else
       s << "(not separable)";
   }

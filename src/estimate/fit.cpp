@@ -134,7 +134,7 @@ void FillParams(const model::Model& model, internal::FitProblem& problem,
   const double nan = std::numeric_limits<double>::quiet_NaN();
   for (int j = 0; j < k; ++j) {
     const bool known = !cov.matrix.empty() && cov.separable[static_cast<std::size_t>(j)];
-    const double var = known ? cov.matrix[static_cast<std::size_t>(j * k + j)] : nan;
+    const double var = known ? cov.matrix[static_cast<std::size_t>(j) * static_cast<std::size_t>(k) + static_cast<std::size_t>(j)] : nan;
     const double se = std::sqrt(std::max(var, 0.0)) * scale;
     const int m = problem.ModelIndex(j);
     if (m >= 0) {
@@ -319,6 +319,7 @@ bool RefitInliers(const model::Model& model, const Transcription& table,
   if (best.hopeless || best.x.empty()) return false;
   const double limit = std::max(kInlierUnits, kInlierScales * robust);
   std::vector<Observation> kept;
+  kept.reserve(n);
   for (std::size_t i = 0; i < n; ++i) {
     if (std::fabs(r[i]) <= limit) kept.push_back(obs[i]);
   }

@@ -72,7 +72,7 @@ SolveOutcome SolveCeres(FitProblem& p, std::vector<double> x, double s, int max_
   ceres::Covariance covariance(co);
   std::vector<std::pair<const double*, const double*>> blocks{{x.data(), x.data()}};
   if (covariance.Compute(blocks, &problem)) {
-    out.covariance.assign(static_cast<std::size_t>(k * k), 0.0);
+    out.covariance.assign(static_cast<std::size_t>(k) * static_cast<std::size_t>(k), 0.0);
     covariance.GetCovarianceBlock(x.data(), x.data(), out.covariance.data());
   }
   return out;

@@ -9,7 +9,7 @@ namespace {
 /// Eigen-decomposition of a small symmetric matrix by cyclic Jacobi
 /// rotations: eigenvalues in `values`, eigenvectors as the columns of `V`.
 void Jacobi(std::vector<double> A, int k, std::vector<double>& values, std::vector<double>& V) {
-  V.assign(static_cast<std::size_t>(k * k), 0.0);
+  V.assign(static_cast<std::size_t>(k) * static_cast<std::size_t>(k), 0.0);
   for (int i = 0; i < k; ++i) V[i * k + i] = 1;
   for (int sweep = 0; sweep < 60; ++sweep) {
     double off = 0;
@@ -48,7 +48,7 @@ void Jacobi(std::vector<double> A, int k, std::vector<double>& values, std::vect
 
 Covariance CovarianceOf(const std::vector<double>& A, int k) {
   Covariance out;
-  if (k == 0 || A.size() != static_cast<std::size_t>(k * k)) return out;
+  if (k == 0 || A.size() != static_cast<std::size_t>(k) * static_cast<std::size_t>(k)) return out;
   out.separable.assign(static_cast<std::size_t>(k), true);
   std::vector<double> d(static_cast<std::size_t>(k));
   for (int i = 0; i < k; ++i) {

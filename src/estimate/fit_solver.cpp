@@ -38,7 +38,7 @@ bool SolveSmall(std::vector<double> A, std::vector<double>& b, int k) {
 }  // namespace
 
 std::vector<double> Inverse(const std::vector<double>& A, int k) {
-  std::vector<double> inv(static_cast<std::size_t>(k * k));
+  std::vector<double> inv(static_cast<std::size_t>(k) * static_cast<std::size_t>(k));
   for (int c = 0; c < k; ++c) {
     std::vector<double> e(static_cast<std::size_t>(k), 0.0);
     e[c] = 1;
@@ -62,7 +62,7 @@ struct Buffers {
         J2(J.size()),
         v(entries),
         v2(entries),
-        A(static_cast<std::size_t>(k * k)),
+        A(static_cast<std::size_t>(k) * static_cast<std::size_t>(k)),
         H(A.size()),
         g(static_cast<std::size_t>(k)),
         trial(g.size()),

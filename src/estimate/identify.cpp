@@ -201,7 +201,7 @@ void ByScore(std::vector<Candidate>& all) {
 std::vector<Candidate> RefitBest(const std::vector<Candidate>& screen, const Transcription& table,
                                  const ColumnFacts& f, const IdentifyOptions& options, int& tried) {
   std::vector<Candidate> all;
-  const std::size_t count = static_cast<std::size_t>(options.refine + 3);
+  const std::size_t count = static_cast<std::size_t>(options.refine) + 3;
   for (std::size_t i = 0; i < screen.size() && i < count; ++i) {
     for (Rounding r : {Rounding::kNearest, Rounding::kTruncate}) {
       all.push_back(RefitOne(screen[i], table, f, {r}));

@@ -31,6 +31,7 @@ std::vector<Observation> CollectObservations(const Transcription& table,
                                              const std::vector<int>& columns) {
   const std::vector<int> cols = columns.empty() ? ResolveColumns(table, {}) : columns;
   std::vector<Observation> out;
+  out.reserve(cols.size() * table.rows.size());
   for (int c : cols) {
     const auto& spec = table.columns.at(static_cast<std::size_t>(c));
     for (std::size_t r = 0; r < table.rows.size(); ++r) {

@@ -154,6 +154,11 @@ void Database::Configure() {
   // the fsync of the commit (about 0.1 s of wall time for a million cells)
   // at the risk of a corrupt file after a power loss: not worth it.
   Execute("PRAGMA cache_size = -32768");
+  // Reads through a memory map of up to 256 MiB instead of a read() per
+  // page: a batch job (fit --all over 1,000 tables) spent a fifth of its
+  // time in the kernel copying pages (measured with perf); writes still go
+  // through the journal as before.
+  Execute("PRAGMA mmap_size = 268435456");
   Migrate();
 }
 
@@ -197,19 +202,31 @@ void Database::Migrate() {
   }
 }
 
-Transaction::Transaction(Database& db) : db_(db) { db_.Execute("BEGIN IMMEDIATE"); }
+bool Database::InTransaction() const { return sqlite3_get_autocommit(db_) == 0; }
+
+Transaction::Transaction(Database& db) : db_(db) {
+  if (!db_.InTransaction()) {
+    db_.Execute("BEGIN IMMEDIATE");
+    return;
+  }
+  static std::atomic<unsigned> counter{0};
+  savepoint_ = "nested_" + std::to_string(++counter);
+  db_.Execute("SAVEPOINT " + savepoint_);
+}
 
 Transaction::~Transaction() {
-  if (!done_) {
-    try {
+  if (done_) return;
+  try {
+    if (savepoint_.empty())
       db_.Execute("ROLLBACK");
-    } catch (...) {
-    }
+    else
+      db_.Execute("ROLLBACK TO " + savepoint_ + "; RELEASE " + savepoint_);
+  } catch (const StoreError&) {  // a destructor must not throw; the outer step reports
   }
 }
 
 void Transaction::Commit() {
-  db_.Execute("COMMIT");
+  db_.Execute(savepoint_.empty() ? "COMMIT" : "RELEASE " + savepoint_);
   done_ = true;
 }
 

@@ -92,6 +92,8 @@ class Database {
   std::int64_t LastInsertId() const;
   int SchemaVersion();
   const std::string& path() const { return path_; }
+  /// True inside BEGIN ... COMMIT (a Transaction is open).
+  bool InTransaction() const;
 
  private:
   void Configure();
@@ -101,6 +103,10 @@ class Database {
 };
 
 /// BEGIN IMMEDIATE on construction; ROLLBACK unless Commit() was called.
+/// Inside another Transaction it is a savepoint of it: Commit() keeps its
+/// changes for the outer one to commit or roll back, so that a command can
+/// hold a library step's writes until its own last step (writing an output
+/// file) has succeeded.
 class Transaction {
  public:
   explicit Transaction(Database& db);
@@ -112,6 +118,7 @@ class Transaction {
  private:
   Database& db_;
   bool done_ = false;
+  std::string savepoint_;  ///< empty for the outermost transaction
 };
 
 }  // namespace apograph::store

@@ -143,6 +143,15 @@ TEST_CASE("a failing apparatus command stores nothing") {
         "--output: error: expected a file in an existing folder, found "
         "'no/such/dir/x.tei'\n");
   CHECK(Overrides(dir.path()) == 0);
+  // A write that fails after every check passed (its temporary file's name
+  // is taken by a folder, so the write itself fails): the override is not
+  // stored either (it was, before the decisions were held until the write).
+  fs::create_directories(dir / "late.tei.tmp" / "inside");
+  const auto late = RunBinary(
+      "apparatus --table decl --override '46:declination=16;41,57' --output late.tei", dir.path());
+  CHECK(late.code >= 2);
+  CHECK_FALSE(fs::exists(dir / "late.tei"));
+  CHECK(Overrides(dir.path()) == 0);
   CHECK(RunBinary("apparatus --table decl --override '46:declination=16;41,57' --output x.tei",
                   dir.path())
             .code == 0);
