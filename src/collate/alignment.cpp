@@ -110,7 +110,7 @@ std::vector<Sexagesimal> InferGrid(const std::vector<const Transcription*>& ws) 
       if (n < quorum || off < Sexagesimal()) continue;
       const auto q = off.Extended(places).units() / step.Extended(places).units();
       const auto rem = off.Extended(places).units() % step.Extended(places).units();
-      if (rem == 0 && q < static_cast<Sexagesimal::Units>(4 * longest + 8)) {
+      if (rem == 0 && q < 4 * static_cast<Sexagesimal::Units>(longest) + 8) {
         last = std::max<std::int64_t>(last, static_cast<std::int64_t>(q));
       }
     }

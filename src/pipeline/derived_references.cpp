@@ -263,8 +263,9 @@ void AddDerivedReferences(const std::vector<const Transcription*>& witnesses,
                           std::vector<ColumnReference>& references) {
   if (witnesses.empty()) return;
   const auto found = Detect(witnesses, references);
-  for (const auto& [name, f] : found) {
+  for (const auto& [column, f] : found) {
     if (Circular(f, found, *witnesses.front())) continue;
+    const std::string& name = column;  // a structured binding is not captured before C++20
     auto it = std::find_if(references.begin(), references.end(),
                            [&](const ColumnReference& r) { return r.column_name == name; });
     if (it == references.end()) continue;

@@ -66,7 +66,7 @@ std::string Spanning(int places, const std::string& align, const std::string& bo
 std::string Heading(const ColumnSpec& c) {
   const std::string title = Tex(c.title.empty() ? c.name : c.title);
   // Judgement: about three characters per place fit over the numbers, with the 2em gaps.
-  const bool fits = DisplayWidth(title) <= static_cast<std::size_t>(6 + 3 * (c.places + 1));
+  const bool fits = DisplayWidth(title) <= 6 + 3 * (static_cast<std::size_t>(c.places) + 1);
   return Spanning(c.places, "c", fits ? "\\makebox[0pt]{" + title + "}" : title);
 }
 
