@@ -67,13 +67,63 @@ std::vector<Hill> Hills(const std::vector<long>& k) {
 }
 
 /// A hill grown smoothly out of the author's rounding: it starts or ends
-/// within `trend_start` units and never steps by more than `trend_step`.
+/// within `trend_start` units and never steps by more than `trend_step` plus
+/// `trend_growth` of the smaller side.
 bool Smooth(const std::vector<long>& k, const Hill& h, const GuardOptions& o) {
   if (std::labs(k[h.first]) > o.trend_start && std::labs(k[h.last]) > o.trend_start) return false;
   for (std::size_t i = h.first; i < h.last; ++i) {
-    if (std::labs(k[i + 1] - k[i]) > o.trend_step) return false;
+    const double smaller = static_cast<double>(std::min(std::labs(k[i]), std::labs(k[i + 1])));
+    if (static_cast<double>(std::labs(k[i + 1] - k[i])) > o.trend_step + o.trend_growth * smaller)
+      return false;
   }
   return true;
+}
+
+/// A hill whose rows in `on` are proportional to the argument (k = b x,
+/// least squares through the origin) within `trend_proportional` units, and
+/// grow at least twofold: a mean motion's rate off, its arguments far apart.
+bool Proportional(const std::vector<TrendRow>& rows, const std::vector<long>& k,
+                  const std::vector<std::size_t>& on, const GuardOptions& o) {
+  double kx = 0, xx = 0;
+  long least = 0, most = 0;
+  for (std::size_t i : on) {
+    kx += static_cast<double>(k[i]) * rows[i].x;
+    xx += rows[i].x * rows[i].x;
+    least = least == 0 ? std::labs(k[i]) : std::min(least, std::labs(k[i]));
+    most = std::max(most, std::labs(k[i]));
+  }
+  if (xx <= 0 || most < 2 * least) return false;
+  const double b = kx / xx;
+  for (std::size_t i : on) {
+    if (std::fabs(static_cast<double>(k[i]) - b * rows[i].x) > o.trend_proportional) return false;
+  }
+  return true;
+}
+
+/// The running median of three rows (the ends kept), rounded to units.
+std::vector<long> Smoothed(const std::vector<TrendRow>& rows) {
+  std::vector<long> k;
+  for (std::size_t i = 0; i < rows.size(); ++i) {
+    double u = rows[i].units;
+    if (i > 0 && i + 1 < rows.size()) {
+      double three[] = {rows[i - 1].units, u, rows[i + 1].units};
+      std::sort(three, three + 3);
+      u = three[1];
+    }
+    // Saturate: a difference of billions of units says only "far off".
+    k.push_back(std::lround(std::clamp(u, -1e9, 1e9)));
+  }
+  return k;
+}
+
+/// Rows of hill `h` beyond the rounding that most witnesses flag.
+std::vector<std::size_t> OnHill(const std::vector<TrendRow>& rows, const std::vector<long>& k,
+                                const Hill& h, const GuardOptions& o) {
+  std::vector<std::size_t> on;
+  for (std::size_t i = h.first; i <= h.last; ++i) {
+    if (std::labs(k[i]) > o.trend_start && 2 * rows[i].flaggers > rows[i].readers) on.push_back(i);
+  }
+  return on;
 }
 
 }  // namespace
@@ -82,20 +132,14 @@ ReferenceVerdict GuardTrend(const std::vector<TrendRow>& rows, const GuardOption
   ReferenceVerdict v;
   v.consensus = true;
   v.compared = static_cast<int>(rows.size());
-  std::vector<long> k;
-  for (const auto& r : rows) k.push_back(std::lround(r.units));
+  const std::vector<long> k = Smoothed(rows);
   const TrendRow* from = nullptr;
   const TrendRow* to = nullptr;
   long largest = 0;
   for (const auto& h : Hills(k)) {
-    if (!Smooth(k, h, options)) continue;
-    // Rows of the hill beyond the rounding that most witnesses flag.
-    std::vector<std::size_t> on;
-    for (std::size_t i = h.first; i <= h.last; ++i) {
-      if (std::labs(k[i]) > options.trend_start && 2 * rows[i].flaggers > rows[i].readers)
-        on.push_back(i);
-    }
+    const auto on = OnHill(rows, k, h, options);
     if (static_cast<int>(on.size()) < options.trend_rows) continue;
+    if (!Smooth(k, h, options) && !Proportional(rows, k, on, options)) continue;
     v.flagged += static_cast<int>(on.size());
     if (!from) from = &rows[on.front()];
     to = &rows[on.back()];

@@ -52,6 +52,17 @@ struct GuardOptions {
   /// min_rows). Right references it refuses on the benchmark are counted in
   /// DEVELOPERS.md.
   int trend_rows = 3;
+  /// Judgement: a trend grows in proportion to what it has reached (an error
+  /// of rate or parameter grows with the argument, and faster where the
+  /// function is steep), so a step inside a hill may be up to this share of
+  /// the smaller of its two sides beyond `trend_step`; a copy's run that
+  /// jumps from the rounding (0 or 1) to its size of 3 or more still fails.
+  double trend_growth = 0.5;
+  /// Judgement: a hill whose differences are proportional to the argument
+  /// (a mean motion's rate off: the error is the argument times the rate's)
+  /// within this many units at every flagged row, growing at least twofold
+  /// over the hill, is a trend however irregular the arguments' steps.
+  double trend_proportional = 1.5;
 };
 
 /// One row of the tradition for the trend test, in the order of the argument.
@@ -60,6 +71,7 @@ struct TrendRow {
   double units = 0;  ///< the median over the witnesses of reading minus model, in units
   int readers = 0;   ///< witnesses with a reading compared with the model
   int flaggers = 0;  ///< of them, flagging the row
+  double x = 0;      ///< the argument as a number (for a difference growing with it)
 };
 
 /// Whether a reference explains a column, with the counts and the reason.
@@ -85,6 +97,11 @@ ReferenceVerdict GuardReference(int compared, int flagged, const GuardOptions& o
 /// The trend test on the rows of a tradition (see the header's comment):
 /// refused when one smooth hill of the difference carries at least
 /// `trend_rows` rows beyond the author's rounding that most witnesses flag.
+/// The difference is first smoothed by a running median of three rows, so
+/// that one of the author's departures (or one row's slip) inside a ramp
+/// does not break it into hills; a hill is smooth when it grows out of the
+/// rounding by steps of at most `trend_step` plus `trend_growth` of what it
+/// has reached, or when it is proportional to the argument.
 ReferenceVerdict GuardTrend(const std::vector<TrendRow>& rows, const GuardOptions& options = {});
 
 }  // namespace apograph::deviation

@@ -17,7 +17,7 @@ namespace apograph::deviation::internal {
 // practice); a symbol changed into one that no list pairs with it is rarer but
 // real ("no list is complete"); transposed digits belong to positional
 // scripts; a place left empty or moved comes next; a place written twice is
-// rare. The shares need not sum to 1: the rest is eye-skips (found as runs) and
+// less common (see below). The shares need not sum to 1: the rest is eye-skips (found as runs) and
 // blank cells (found by their state).
 constexpr double kShareConfusion = 0.40;
 constexpr double kShareUnlisted = 0.15;
@@ -26,10 +26,17 @@ constexpr double kSharePlacesSwapped = 0.03;       // two neighbouring places sw
 constexpr double kShareTranspositionOther = 0.01;  // a slip of digits, unusual elsewhere
 constexpr double kSharePlaceOmitted = 0.05;        // a place left empty (read as 0)
 constexpr double kSharePlaceMoved = 0.05;          // places moved up or down by one
-constexpr double kSharePlaceDoubled = 0.002;       // a place written twice, the rest pushed down
-constexpr double kShareRepetition = 0.06;          // a neighbouring entry repeated
-constexpr double kSharePlaceRepeated = 0.02;       // one place of a neighbour repeated
-constexpr double kShareOther = 0.05;               // anything else (several symbols at once)
+// A place written twice, the rest pushed down. Judgement (realism notes list
+// a place added beside one dropped or shifted), below a place moved since the
+// story needs two equal neighbouring places. It was 0.002 ("rare"), which let
+// a confusion outscore it wherever one landed: measured on seeds 41-80 of the
+// shared generator (deviation_bench), places added rightly named 77.8% and
+// 67.1% at 0.002, 83.3% and 89.4% at 0.02; recall and precision unchanged,
+// 3 of 2,071 look-alikes and 2 of 648 other-symbol slips then misnamed.
+constexpr double kSharePlaceDoubled = 0.02;
+constexpr double kShareRepetition = 0.06;     // a neighbouring entry repeated
+constexpr double kSharePlaceRepeated = 0.02;  // one place of a neighbour repeated
+constexpr double kShareOther = 0.05;          // anything else (several symbols at once)
 
 // Judgement: given a slip outside every class above, the chance it produced
 // this particular reading (a story that fits any deviation explains none

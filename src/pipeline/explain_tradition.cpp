@@ -51,6 +51,41 @@ ColumnRun MakeRun(const std::vector<const Transcription*>& ws, std::size_t w,
   return run;
 }
 
+/// A derived column's model is computed from the witness's own entries of
+/// the columns it derives from, slips and all; the original's was computed
+/// from the original's. Where most witnesses (modern editions left out, two
+/// at least) compute one value for an argument and this witness another,
+/// its own entries are off, not the derived column: it is compared with the
+/// tradition's value.
+void UseTraditionsModel(ColumnRun& run, const std::vector<ColumnRun>& all,
+                        const std::vector<const Transcription*>& ws) {
+  if (run.ref.derived.empty()) return;
+  for (const auto& [arg, r] : run.rows) {
+    std::map<std::string, std::pair<int, const ColumnRun*>> tally;
+    int n = 0;
+    for (const auto& other : all) {
+      if (other.ref.column_name != run.ref.column_name ||
+          ws[other.witness]->witness.Kind() == WitnessKind::kModernEdition)
+        continue;
+      auto it = other.rows.find(arg);
+      if (it == other.rows.end() || !other.values.computed[it->second]) continue;
+      ++n;
+      auto& entry = tally[AtPlaces(*other.values.computed[it->second], run.places).ToString()];
+      ++entry.first;
+      entry.second = &other;
+    }
+    const auto& mine = run.values.computed[r];
+    for (const auto& [text, entry] : tally) {
+      if (n < 2 || 2 * entry.first <= n || (mine && AtPlaces(*mine, run.places).ToString() == text))
+        continue;
+      const std::size_t o = entry.second->rows.at(arg);
+      run.values.computed[r] = entry.second->values.computed[o];
+      if (r < run.values.exact.size() && o < entry.second->values.exact.size())
+        run.values.exact[r] = entry.second->values.exact[o];
+    }
+  }
+}
+
 /// What the runs of the same column in the other witnesses read at each row
 /// of `run`.
 void FillTradition(ColumnRun& run, const std::vector<ColumnRun>& all,
@@ -112,8 +147,8 @@ std::vector<bool> FlaggedRows(const ColumnRun& run, std::size_t rows) {
   return out;
 }
 
-/// The tradition's test: rows that every witness having the column flags
-/// (a copy's slips, even a lost ancestor's, are in some witnesses only; an
+/// The tradition's test: rows that every witness having the column flags,
+/// modern editions left out (a copy's slips, even a lost ancestor's, are in some witnesses only; an
 /// archetype's error or a wrong reference is in all).
 std::optional<deviation::ReferenceVerdict> ConsensusVerdict(
     const std::vector<ColumnRun>& runs, const std::string& column,
@@ -121,9 +156,12 @@ std::optional<deviation::ReferenceVerdict> ConsensusVerdict(
   std::map<std::string, std::pair<int, int>> by_arg;  // readers, flaggers
   int witnesses = 0;
   for (const auto& run : runs) {
-    if (run.ref.column_name != column) continue;
-    ++witnesses;
     const Transcription& t = *ws[run.witness];
+    // A modern edition may have recomputed the table (and not with the
+    // reference's model): its agreement with the reference says nothing of
+    // the author's text, as in the tradition's view.
+    if (run.ref.column_name != column || t.witness.Kind() == WitnessKind::kModernEdition) continue;
+    ++witnesses;
     const auto flagged = FlaggedRows(run, t.rows.size());
     for (const auto& [arg, r] : run.rows) {
       if (!run.values.computed[r] || !ReadValue(t, r, run.ref.column, run.places)) continue;
@@ -178,7 +216,7 @@ std::optional<deviation::ReferenceVerdict> TrendVerdict(const std::vector<Column
     std::sort(d.begin(), d.end());
     const std::size_t m = d.size() / 2;
     const double median = d.size() % 2 ? d[m] : (d[m - 1] + d[m]) / 2;
-    rows.push_back({acc.arg, median, static_cast<int>(d.size()), acc.flaggers});
+    rows.push_back({acc.arg, median, static_cast<int>(d.size()), acc.flaggers, x});
   }
   return deviation::GuardTrend(rows, guard);
 }
@@ -196,6 +234,8 @@ std::vector<WitnessFindings> Explain(const std::vector<const Transcription*>& ws
     }
   }
   if (tradition) {
+    std::vector<ColumnRun> own = runs;  // each witness's model before the tradition's
+    for (auto& run : runs) UseTraditionsModel(run, own, ws);
     for (auto& run : runs) FillTradition(run, runs, ws);
   }
   for (auto& run : runs) {

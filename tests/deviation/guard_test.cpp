@@ -49,3 +49,29 @@ TEST_CASE("guard: a smooth hill that few witnesses flag, or too few rows, is no 
   // Three rows beyond the rounding, but on two hills: no one trend.
   CHECK(GuardTrend(Rows({0, 1, 2, 2, 1, 0, 1, 2, 1, 0}, {2, 3, 7})).explains);
 }
+
+TEST_CASE("guard: a ramp broken by one of the author's departures is still one trend") {
+  // 1 1 1 2 2 2 3 3 with the author's -1 at one row: unsmoothed, the ramp
+  // falls into two hills, neither starting within a unit with three rows
+  // beyond it; the running median of three rows joins them.
+  const auto rows = Rows({0, 1, 1, 1, 2, 2, -1, 2, 3, 3, 3, 0}, {4, 5, 6, 7, 8, 9, 10});
+  CHECK_FALSE(GuardTrend(rows).explains);
+  // A ramp that accelerates (a parameter off where the function is steep).
+  CHECK_FALSE(GuardTrend(Rows({0, 1, 2, 3, 4, 6, 8, 11, 0}, {2, 3, 4, 5, 6, 7})).explains);
+}
+
+TEST_CASE("guard: a difference proportional to irregular arguments is a rate's error") {
+  // A mean motion's rate off: 3, 7, 10, 33 units at 1000, 2000, 3000 and
+  // 10000 years, after rows within the rounding.
+  auto rows = Rows({0, 0, 0, 3, 7, 10, 33}, {3, 4, 5, 6});
+  const double xs[] = {10, 100, 900, 1000, 2000, 3000, 10000};
+  for (std::size_t i = 0; i < rows.size(); ++i) rows[i].x = xs[i];
+  CHECK_FALSE(GuardTrend(rows).explains);
+  // The same sizes at arguments close together are a copy's run, not a rate.
+  for (std::size_t i = 0; i < rows.size(); ++i) rows[i].x = 20.0 + static_cast<double>(i);
+  CHECK(GuardTrend(rows).explains);
+  // A constant error inherited by most witnesses is no trend at any argument.
+  auto flat = Rows({0, 0, 0, 5, 5, 5, 5}, {3, 4, 5, 6});
+  for (std::size_t i = 0; i < flat.size(); ++i) flat[i].x = xs[i];
+  CHECK(GuardTrend(flat).explains);
+}
