@@ -134,7 +134,8 @@ bool Test(const Transcription& t, const Columns& cols, int c, int s, int s2,
     d.matched_precise += pre;
     d.matched_any += tab || rnd || pre;
   }
-  if (d.rows < 5 || d.matched_any < kDerivedShare * d.rows) return false;
+  const double share = r.kind == Kind::kDifference ? kDifferenceShare : kDerivedShare;
+  if (d.rows < 5 || d.matched_any < share * d.rows) return false;
   d.column = c;
   d.source = s;
   d.other = s2;
