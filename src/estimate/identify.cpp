@@ -434,6 +434,8 @@ Identification Identify(const Transcription& table, int column, const IdentifyOp
     out.ranked.front().adoption =
         internal::AdoptRoundValues(out.ranked.front(), table, obs, options.catalog,
                                    out.mean_motion ? &*out.mean_motion : nullptr);
+    internal::PreferSimpler(out.ranked, table, obs, options.catalog,
+                            out.mean_motion ? &*out.mean_motion : nullptr);
   }
   if (!out.ranked.front().naming.empty()) out.notes.push_back(out.ranked.front().naming);
   internal::NearTieNotes(out.ranked, table, options.top, out.notes);
