@@ -126,16 +126,16 @@ bool Test(const Transcription& t, const Columns& cols, int c, int s, int s2,
     const auto q = have_rounded ? OnEntries(rnd, rnd2, i, r, places, rounding) : std::nullopt;
     if (!v && !p && !q) continue;
     ++d.rows;
-    if (v && *v == *target[i]) {
-      ++d.matched_tabulated;
-    } else {
-      d.mismatched_rows.push_back(i);
-    }
-    if (q && *q == *target[i]) ++d.matched_rounded;
-    if (p && Sexagesimal::FromDouble(*p, places, rounding) == *target[i]) ++d.matched_precise;
+    const bool tab = v && *v == *target[i], rnd = q && *q == *target[i],
+               pre = p && Sexagesimal::FromDouble(*p, places, rounding) == *target[i];
+    if (!tab) d.mismatched_rows.push_back(i);
+    d.matched_tabulated += tab;
+    d.matched_rounded += rnd;
+    d.matched_precise += pre;
+    d.matched_any += tab || rnd || pre;
   }
-  const int best = std::max({d.matched_tabulated, d.matched_rounded, d.matched_precise});
-  if (d.rows < 5 || best < kDerivedShare * d.rows) return false;
+  const double share = r.kind == Kind::kDifference ? kDifferenceShare : kDerivedShare;
+  if (d.rows < 5 || d.matched_any < share * d.rows) return false;
   d.column = c;
   d.source = s;
   d.other = s2;

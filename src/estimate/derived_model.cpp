@@ -112,6 +112,9 @@ double DerivedModel::Exact(const DerivedSource& s, const model::RowContext& at) 
   if (relation_.kind != DerivedRelation::Kind::kDifference &&
       s.model->ResolvedSign(p.sign) == model::SignForm::kMagnitude)
     p.sign = model::SignForm::kSigned;
+  // Exact values are the function's own: an interpolation grid is a way of
+  // filling the source's table, not of computing the quantity differenced.
+  if (basis_ == DerivedBasis::kExact) p.grid = 0, p.round_nodes = false;
   return model::PracticeValue(*s.model, s.params, ctx, p, p.places.value_or(0));
 }
 

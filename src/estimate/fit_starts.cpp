@@ -304,6 +304,62 @@ std::vector<std::pair<double, double>> AnomalyStarts(double a, double b, bool ma
   return {{r, g0}, {r, Wrap360(g0 + 180)}};
 }
 
+/// Degrees beyond which no equation by date goes (judgement: the sun's and
+/// the moon's greatest equations are about 2;23 and 5;1 degrees, common
+/// practice; the margin leaves room for other bodies on a simple
+/// eccentric).
+constexpr double kLargestEquation = 10;
+
+/// The mean sun's daily motion, 0;59,8,19,48 deg/day (common practice).
+constexpr double kMeanSun = 59.0 / 60 + 8.0 / 3600 + 19.0 / 216000 + 48.0 / 12960000;
+
+/// Starts for a planet with its rates tied as the planetary models tie them
+/// (common practice): an inner planet's mean longitude moves with the mean
+/// sun, an outer planet's motions in longitude and in anomaly add up to the
+/// mean sun's. With the rate in longitude given by the rate in anomaly, the
+/// entries less that line are one harmonic (the epicycle): for each tie the
+/// rate in anomaly whose harmonic leaves the smallest residual. The free
+/// line and harmonic (PositionStarts) cannot separate the two over a span
+/// shorter than the anomaly's period, nor follow a large epicycle (Venus,
+/// Mars), whose equation is far from one harmonic.
+std::vector<std::vector<double>> TiedStarts(const model::Model& model, const FitProblem& problem,
+                                            const std::vector<double>& t,
+                                            const std::vector<double>& u,
+                                            const PositionShape& shape,
+                                            const std::vector<double>& x) {
+  const double t0 = t.front(), span = std::max(t.back() - t0, 1.0);
+  const double step = std::min(5.0 / span, std::max((shape.high - shape.low) / 200, 1e-6));
+  std::vector<std::vector<double>> out;
+  for (bool inner : {true, false}) {
+    const auto rate_of = [&](double f) { return inner ? kMeanSun : kMeanSun - f; };
+    double best_rss = INFINITY, best_f = 0;
+    std::vector<double> best_c;
+    for (double f = std::max(shape.low, step); f <= (inner ? shape.high : kMeanSun); f += step) {
+      std::vector<double> y(u.size());
+      for (std::size_t i = 0; i < u.size(); ++i) y[i] = u[i] - rate_of(f) * (t[i] - t0);
+      double rss = 0;
+      const auto c = LeastSquares(
+          t, y, 3,
+          [&](double v, double* r) {
+            r[0] = 1, r[1] = std::sin(f * v * kDeg), r[2] = std::cos(f * v * kDeg);
+          },
+          &rss);
+      if (!c.empty() && rss < best_rss) best_rss = rss, best_f = f, best_c = c;
+    }
+    if (best_c.empty()) continue;
+    std::vector<double> y = x;
+    SetRole(model, problem, y, model::ParamRole::kRate, rate_of(best_f));
+    SetRole(model, problem, y, model::ParamRole::kRadix, Wrap360(best_c[0] - rate_of(best_f) * t0));
+    if (shape.centre) SetNamed(model, problem, y, "e", 1.0);
+    const auto [r, g0] = AnomalyStarts(best_c[1], best_c[2], false).front();
+    SetNamed(model, problem, y, "r", std::max(r, 1.0));
+    SetRole(model, problem, y, model::ParamRole::kAnomalyRate, best_f);
+    SetRole(model, problem, y, model::ParamRole::kAnomalyRadix, g0);
+    out.push_back(std::move(y));
+  }
+  return out;
+}
+
 }  // namespace
 
 std::vector<std::vector<double>> PositionStarts(const model::Model& model,
@@ -369,6 +425,15 @@ std::vector<std::vector<double>> PositionStarts(const model::Model& model,
   if (!shape.anomaly) return {x};
   // The epicycle (or the equation by date): +(r/60) sin(g), g = f t + g0.
   std::vector<std::vector<double>> out;
+  // Longitudes are never negative, and a column that stays within
+  // kLargestEquation of 0 is an equation by date (a planet's seven
+  // parameters, its rates tied, mimic one): no tied starts there.
+  const bool longitudes = std::none_of(obs.begin(), obs.end(),
+                                       [](const Observation& o) { return o.value.negative(); }) &&
+                          std::any_of(obs.begin(), obs.end(), [](const Observation& o) {
+                            return o.value.ToDouble() > kLargestEquation;
+                          });
+  if (shape.trend && !magnitude && longitudes) out = TiedStarts(model, problem, t, u, shape, x);
   for (const auto& [r, g0] : AnomalyStarts(c[j], c[j + 1], magnitude)) {
     std::vector<double> y = x;
     SetNamed(model, problem, y, shape.trend ? "r" : "e", std::max(r, 1.0));

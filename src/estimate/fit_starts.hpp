@@ -30,8 +30,11 @@ std::vector<double> MeanMotionStart(const model::Model& model, const FitProblem&
 /// a straight line for the mean motion, and the periodic part read as
 /// harmonics (the solar equation at the mean motion's own rate; the
 /// epicycle at the rate in anomaly that fits best, the deferent's
-/// eccentricity at the rate in longitude). Empty when the model is not a
-/// table of positions or there are too few entries.
+/// eccentricity at the rate in longitude); for a planet, first the starts
+/// with its rates tied as the models tie them to the mean sun (inner:
+/// longitude with the sun; outer: longitude + anomaly = the sun), the rate
+/// in anomaly scanned. Empty when the model is not a table of positions or
+/// there are too few entries.
 std::vector<std::vector<double>> PositionStarts(const model::Model& model,
                                                 const FitProblem& problem,
                                                 const std::vector<Observation>& obs,

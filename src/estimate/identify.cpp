@@ -160,10 +160,16 @@ std::vector<Candidate> Screen(const std::vector<const model::Model*>& models,
   return screen;
 }
 
+/// An interpolation grid: nodes at origin + k * step.
+struct Grid {
+  double step = 0;
+  double origin = 0;
+};
+
 /// What a refit changes from the candidate it starts from.
 struct Refit {
   Rounding rounding = Rounding::kNearest;
-  double grid = 0;
+  Grid grid;
   bool round_nodes = false;
   bool keep_places = true;  ///< false: the places as written
 };
@@ -175,18 +181,19 @@ Candidate RefitOne(const Candidate& from, const Transcription& table, const Colu
   fo.practice = from.fit.practice;
   fo.practice.rounding = how.rounding;
   if (!how.keep_places) fo.practice.places.reset();
-  fo.practice.grid = how.grid;
-  fo.practice.round_nodes = how.grid > 0 && how.round_nodes;
+  fo.practice.grid = how.grid.step;
+  fo.practice.grid_origin = how.grid.step > 0 ? how.grid.origin : 0;
+  fo.practice.round_nodes = how.grid.step > 0 && how.round_nodes;
   fo.fit_displacement = from.fit.practice.displacement != 0;
   for (const auto& p : from.fit.params) {
     if (!p.fixed) fo.start[p.name] = p.value;
   }
   const model::Model& m = *from.model;
-  Candidate c = MakeCandidate(m, Fit(m, table, f.obs, fo), how.grid > 0);
+  Candidate c = MakeCandidate(m, Fit(m, table, f.obs, fo), how.grid.step > 0);
   if (fo.fit_displacement && std::fabs(c.fit.practice.displacement) < f.unit) {  // see Screen
     fo.fit_displacement = false;
     fo.practice.displacement = 0;
-    c = MakeCandidate(m, Fit(m, table, f.obs, fo), how.grid > 0);
+    c = MakeCandidate(m, Fit(m, table, f.obs, fo), how.grid.step > 0);
   }
   return c;
 }
@@ -209,11 +216,28 @@ std::vector<Candidate> RefitBest(const std::vector<Candidate>& screen, const Tra
     }
   }
   if (f.reduced && !screen.empty()) {
-    all.push_back(RefitOne(screen[0], table, f, {Rounding::kNearest, 0, false, false}));
+    all.push_back(RefitOne(screen[0], table, f, {Rounding::kNearest, {}, false, false}));
     ++tried;
   }
   ByScore(all);
   return all;
+}
+
+/// The grids worth trying: each step with its nodes at multiples of the
+/// step and, where the first argument is not one, counted from the first
+/// argument (a shadow, infinite at 0, is interpolated from its first row).
+std::vector<Grid> GridsOf(const Transcription& table) {
+  std::optional<double> first;
+  for (std::size_t r = 0; r < table.rows.size() && !first; ++r)
+    first = model::RowArgument(table, r);
+  std::vector<Grid> out;
+  for (double g : CandidateGrids(table)) {
+    out.push_back({g, 0});
+    if (!first) continue;
+    const double off = std::fmod(*first, g);
+    if (std::fabs(off) > 1e-9 * g && std::fabs(off - g) > 1e-9 * g) out.push_back({g, *first});
+  }
+  return out;
 }
 
 /// The `keep` grids that fit best when each is fitted on the subsample only
@@ -221,14 +245,15 @@ std::vector<Candidate> RefitBest(const std::vector<Candidate>& screen, const Tra
 /// instead of one per grid. The ranking of grids is clear on a subsample:
 /// the right grid reproduces its entries exactly, a wrong one misses by the
 /// curvature between its nodes.
-std::vector<double> BestGrids(const Candidate& seed, const Transcription& table,
-                              const std::vector<Observation>& sub, const std::vector<double>& grids,
-                              std::size_t keep) {
-  std::vector<std::pair<double, double>> scored;  // score, grid
-  for (double g : grids) {
+std::vector<Grid> BestGrids(const Candidate& seed, const Transcription& table,
+                            const std::vector<Observation>& sub, const std::vector<Grid>& grids,
+                            std::size_t keep) {
+  std::vector<std::pair<double, Grid>> scored;  // score, grid
+  for (const Grid& g : grids) {
     FitOptions fo;
     fo.practice = seed.fit.practice;
-    fo.practice.grid = g;
+    fo.practice.grid = g.step;
+    fo.practice.grid_origin = g.origin;
     fo.fit_displacement = seed.fit.practice.displacement != 0;
     fo.max_iterations = 10;
     for (const auto& p : seed.fit.params) {
@@ -238,7 +263,7 @@ std::vector<double> BestGrids(const Candidate& seed, const Transcription& table,
   }
   std::stable_sort(scored.begin(), scored.end(),
                    [](const auto& a, const auto& b) { return a.first > b.first; });
-  std::vector<double> out;
+  std::vector<Grid> out;
   for (std::size_t i = 0; i < scored.size() && i < keep; ++i) out.push_back(scored[i].second);
   return out;
 }
@@ -249,16 +274,22 @@ std::vector<double> BestGrids(const Candidate& seed, const Transcription& table,
 void TryGrids(std::vector<Candidate>& all, const Transcription& table, const ColumnFacts& f,
               const IdentifyOptions& options, int& tried) {
   if (!options.try_grids || all.empty() || all[0].fit.exact == all[0].fit.n) return;
+  // Where nothing explains the column yet, every family fitted: a table
+  // filled by interpolation can be far from its function between the nodes
+  // (a shadow near the horizon), so that its family ranks low without the
+  // grid.
+  const bool explained = all[0].fit.within1 >= kExplainedShare * all[0].fit.n;
+  const int families = explained ? options.refine : static_cast<int>(all.size());
   std::vector<Candidate> seeds;
   std::set<const model::Model*> seen;
   for (const auto& c : all) {
-    if (static_cast<int>(seeds.size()) >= options.refine) break;
+    if (static_cast<int>(seeds.size()) >= families) break;
     if (c.model->traits().kind == model::ModelKind::kFunction && seen.insert(c.model).second)
       seeds.push_back(c);
   }
-  const std::vector<double> grids = CandidateGrids(table);
+  const std::vector<Grid> grids = GridsOf(table);
   for (const auto& seed : seeds) {
-    for (double g : BestGrids(seed, table, f.sub, grids, kGridRefits))
+    for (const Grid& g : BestGrids(seed, table, f.sub, grids, kGridRefits))
       all.push_back(RefitOne(seed, table, f, {seed.fit.practice.rounding, g}));
     tried += static_cast<int>(grids.size());
   }
@@ -267,9 +298,9 @@ void TryGrids(std::vector<Candidate>& all, const Transcription& table, const Col
     const Candidate best = all[0];
     const Rounding other =
         best.fit.practice.rounding == Rounding::kNearest ? Rounding::kTruncate : Rounding::kNearest;
-    all.push_back(RefitOne(best, table, f, {other, best.fit.practice.grid}));
-    all.push_back(
-        RefitOne(best, table, f, {best.fit.practice.rounding, best.fit.practice.grid, true}));
+    const Grid grid{best.fit.practice.grid, best.fit.practice.grid_origin};
+    all.push_back(RefitOne(best, table, f, {other, grid}));
+    all.push_back(RefitOne(best, table, f, {best.fit.practice.rounding, grid, true}));
     tried += 2;
     ByScore(all);
   }
@@ -325,7 +356,11 @@ std::string Candidate::PracticeText() const {
   const auto& p = fit.practice;
   std::string s = p.rounding == Rounding::kTruncate ? "truncated" : "rounded";
   if (p.places) s += ", " + std::to_string(*p.places) + " places";
-  if (p.grid > 0) s += ", grid " + NumberText(p.grid) + (p.round_nodes ? " (rounded nodes)" : "");
+  if (p.grid > 0) {
+    s += ", grid " + NumberText(p.grid);
+    if (p.grid_origin != 0) s += " from " + NumberText(p.grid_origin);
+    if (p.round_nodes) s += " (rounded nodes)";
+  }
   if (p.displacement != 0)
     s += ", displacement " + Sexagesimal::FromDouble(p.displacement, 2).ToString();
   const model::SignForm form = model->ResolvedSign(p.sign);
@@ -399,6 +434,8 @@ Identification Identify(const Transcription& table, int column, const IdentifyOp
     out.ranked.front().adoption =
         internal::AdoptRoundValues(out.ranked.front(), table, obs, options.catalog,
                                    out.mean_motion ? &*out.mean_motion : nullptr);
+    internal::PreferSimpler(out.ranked, table, obs, options.catalog,
+                            out.mean_motion ? &*out.mean_motion : nullptr);
   }
   if (!out.ranked.front().naming.empty()) out.notes.push_back(out.ranked.front().naming);
   internal::NearTieNotes(out.ranked, table, options.top, out.notes);

@@ -10,10 +10,12 @@
 ///     negative as they are and displaced).
 ///  2. Refit the best six on every entry under rounding and under
 ///     truncation.
-///  3. Grids: the best three families with the interpolation grids that fit
-///     the argument range (unless a candidate already reproduces every
-///     entry), the best grid also under the other rounding and with its
-///     nodes rounded first.
+///  3. Grids: the best three families (every family refitted, when none
+///     explains the column yet) with the interpolation grids that fit the
+///     argument range, nodes at multiples of the grid or counted from the
+///     first argument (unless a candidate already reproduces every entry),
+///     the best grid also under the other rounding and with its nodes
+///     rounded first.
 ///  4. Rank by the score below; estimates far outside their historical
 ///     range go last (with a note); candidates that compute the same value
 ///     at every entry are one explanation, shown under the name the evidence
@@ -22,8 +24,13 @@
 ///     named beside it.
 ///  5. Round and attested values (round_values.cpp): for the best
 ///     explanation, attested values and coarse sexagesimal roundings of each
-///     estimate, the simplest adopted that leaves no more entries beyond one
-///     unit than the fit (and loses few exact ones).
+///     estimate (the two values beside it at each number of places), the
+///     simplest adopted that leaves no more entries beyond one unit than the
+///     fit (and loses few exact ones). Then (naming.cpp, PreferSimpler): when
+///     the best explanation with its round values computes what a candidate
+///     with fewer free parameters computes with its own (a latitude adopted
+///     at 0, a versed sine of radius -60 displaced by 60), the simpler one
+///     is shown and the other named as its equivalent.
 ///  6. The verdict: below kExplainedShare of entries within one unit, no
 ///     model explains the column.
 ///

@@ -45,6 +45,16 @@ std::optional<Adoption> AdoptRoundValues(const Candidate& best, const Transcript
                                          const std::vector<CatalogEntry>* catalog,
                                          const MeanMotionAnalysis* mean_motion);
 
+/// Step 5b (identify.hpp): when the best explanation, with its round
+/// values adopted, computes what a candidate with fewer free parameters
+/// computes with its own (a latitude adopted at 0 is a right ascension; a
+/// versed sine of radius -60 displaced by 60 is a cosine), the simpler
+/// candidate takes its place, adopted, with the other named as its
+/// equivalent.
+void PreferSimpler(std::vector<Candidate>& ranked, const Transcription& table,
+                   const std::vector<Observation>& obs, const std::vector<CatalogEntry>* catalog,
+                   const MeanMotionAnalysis* mean_motion);
+
 /// Near-ties with the best: candidates within kNearTie that compute other
 /// values, with what tells them apart.
 void NearTieNotes(const std::vector<Candidate>& ranked, const Transcription& table, int top,

@@ -4,10 +4,12 @@
 // usually does so by absorbing the author's own departures, which the
 // edition must keep. For the best explanation, each free parameter in turn
 // (then the displacement) is tried at attested values and at coarse
-// sexagesimal roundings of its estimate, simplest first; the first that
-// leaves no more entries beyond one unit than the fit, and loses at most a
-// few entries reproduced exactly (kExactAllowance), is adopted, the other
-// parameters refitted under it.
+// sexagesimal roundings of its estimate (the two values beside it at each
+// number of places), simplest first; the first that leaves no more entries
+// beyond one unit than the fit, and loses at most a few entries reproduced
+// exactly (kExactAllowance), is adopted (of equally simple ones, the one
+// reproducing most entries exactly), the other parameters refitted under
+// it.
 #include <algorithm>
 #include <cmath>
 #include <map>
@@ -30,6 +32,7 @@ struct Trial {
   double value = 0;
   int places = 0;
   std::string source;
+  int group = 0;  ///< trials of one group are equally simple (see FirstAcceptable)
 };
 
 /// Roundings are tried to this many places for most parameters (coarse:
@@ -78,19 +81,27 @@ std::vector<Trial> Trials(const Candidate& best, const std::string& param, doubl
     }
     std::stable_sort(attested.begin(), attested.end(),
                      [](const Trial& a, const Trial& b) { return a.places < b.places; });
-    for (const auto& t : attested) {
+    for (auto t : attested) {
+      t.group = t.places;
       if (!seen(t.value)) out.push_back(t);
     }
   }
-  for (int p = 0; p <= MaxPlaces(spec, column_places); ++p) {
+  // At each number of places the two values beside the estimate, nearest
+  // first: an estimate of 23;50,30 may come from an author's 23;50 as well
+  // as from 23;51.
+  const bool roundable = std::fabs(estimate) < 1e9;  // no sexagesimal rounding of an absurd value
+  for (int p = 0; roundable && p <= MaxPlaces(spec, column_places); ++p) {
     const double v = Sexagesimal::FromDouble(estimate, p).ToDouble();
-    if (!seen(v))
-      out.push_back({v, p, "round, " + std::to_string(p) + (p == 1 ? " place" : " places")});
+    const double unit = std::pow(60.0, -p);
+    const std::string source = "round, " + std::to_string(p) + (p == 1 ? " place" : " places");
+    for (double x : {v, estimate > v ? v + unit : v - unit}) {
+      if (!seen(x)) out.push_back({x, p, source, 100 + p});
+    }
   }
   if (mean_motion && mean_motion->rounded_rate && spec && spec->role == model::ParamRole::kRate &&
       !seen(mean_motion->rounded_rate->ToDouble())) {
     out.push_back({mean_motion->rounded_rate->ToDouble(), mean_motion->rounded_rate->places(),
-                   "the rounded rate of the mean-motion analysis"});
+                   "the rounded rate of the mean-motion analysis", 200});
   }
   return out;
 }
@@ -116,7 +127,10 @@ FitResult FitHolding(const Candidate& best, const Transcription& table,
   return Fit(*best.model, table, obs, fo);
 }
 
-/// The first trial that keeps the fit's entries (see the file comment).
+/// The first trial that keeps the fit's entries (see the file comment);
+/// among acceptable trials of the same group (equally simple: attested
+/// values of as many places, or the two roundings beside the estimate) the
+/// one that reproduces most entries exactly, then the earlier.
 std::optional<std::pair<Trial, FitResult>> FirstAcceptable(
     const std::vector<Trial>& trials, const Candidate& best, const Transcription& table,
     const std::vector<Observation>& obs, const FitResult& current,
@@ -125,16 +139,18 @@ std::optional<std::pair<Trial, FitResult>> FirstAcceptable(
   const FitResult& fit = best.fit;
   const int allowance =
       std::max(1, static_cast<int>(std::ceil(kExactAllowance * static_cast<double>(fit.n))));
+  std::optional<std::pair<Trial, FitResult>> chosen;
   for (const auto& t : trials) {
+    if (chosen && t.group != chosen->first.group) break;
     if (param == "displacement")
       displacement = t.value;
     else
       fixed[param] = t.value;
     FitResult f = FitHolding(best, table, obs, current, fixed, displacement);
-    if (f.flagged <= fit.flagged && f.exact >= fit.exact - allowance)
-      return std::make_pair(t, std::move(f));
+    if (f.flagged > fit.flagged || f.exact < fit.exact - allowance) continue;
+    if (!chosen || f.exact > chosen->second.exact) chosen = std::make_pair(t, std::move(f));
   }
-  return std::nullopt;
+  return chosen;
 }
 
 std::string AdoptionText(const std::vector<AdoptedValue>& values, const FitResult& fit,

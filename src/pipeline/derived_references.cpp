@@ -33,13 +33,19 @@ estimate::DerivedInputs Inputs(const Transcription& w, const std::vector<ColumnR
     const int c = w.ColumnIndex(r.column_name);
     if (c < 0 || !r.explains || !r.derived.empty()) continue;
     const auto re = model::Recompute(*r.model, r.params, w, c, r.practice);
-    in.exact[static_cast<std::size_t>(c)] = re.exact;
+    // Exact values are the function's own, without the interpolation grid
+    // that fills the source's table (as DerivedModel computes them).
+    model::Practice plain = r.practice;
+    plain.grid = 0, plain.round_nodes = false;
+    in.exact[static_cast<std::size_t>(c)] = model::Recompute(*r.model, r.params, w, c, plain).exact;
     in.rounded[static_cast<std::size_t>(c)] = re.computed;
     if (r.model->ResolvedSign(r.practice.sign) != model::SignForm::kMagnitude) continue;
     model::Practice p = r.practice;  // a sum adds the signed quantity
     p.sign = model::SignForm::kSigned;
     const auto signed_re = model::Recompute(*r.model, r.params, w, c, p);
-    in.exact_signed[static_cast<std::size_t>(c)] = signed_re.exact;
+    plain.sign = model::SignForm::kSigned;
+    in.exact_signed[static_cast<std::size_t>(c)] =
+        model::Recompute(*r.model, r.params, w, c, plain).exact;
     in.rounded_signed[static_cast<std::size_t>(c)] = signed_re.computed;
   }
   return in;

@@ -243,10 +243,12 @@ int main(int argc, char** argv) {
         for (const auto& x : refs) {
           if (x.column_name != col.name) continue;
           const auto e = Expected(col);
-          std::printf("seed %llu %s/%s: %s [%s] explains %d; expected %s\n",
+          Tally one;
+          ScoreColumn(col, &x, one);
+          std::printf("seed %llu %s/%s: %s [%s] explains %d; expected %s; identified %d\n",
                       static_cast<unsigned long long>(seed), RowName(col).c_str(), col.name.c_str(),
                       x.description.c_str(), x.how.c_str(), x.explains,
-                      e.empty() ? "-" : e.front().model.c_str());
+                      e.empty() ? "-" : e.front().model.c_str(), one.identified);
         }
       }
     }

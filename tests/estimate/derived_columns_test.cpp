@@ -5,6 +5,9 @@
 #include <cmath>
 #include <numbers>
 
+#include "estimate/derived_model.hpp"
+#include "model/model.hpp"
+
 namespace apograph::estimate {
 namespace {
 
@@ -158,6 +161,45 @@ TEST_CASE("true = mean minus the equation, within the turn, and with magnitudes"
     minus = true;
   }
   CHECK(minus);
+}
+
+TEST_CASE("differences from exact values take the function's own values, not the grid's") {
+  // Chords (R = 60, common practice) tabulated exact every 3 degrees and
+  // linear between, with a column of differences of the exact chords at 3
+  // places: differences of the interpolated values would be constant over
+  // each interval of the grid, the author's are not.
+  const model::Model* chord = model::FindBuiltinModel("chord");
+  REQUIRE(chord != nullptr);
+  Transcription t;
+  t.table_id = "chords";
+  t.argument = {"arc", "deg", 0, Sexagesimal::FromUnits(1, 0), Sexagesimal::FromUnits(1, 0)};
+  t.columns = {{"chord", "", 2, "", std::nullopt}, {"difference", "", 3, "", std::nullopt}};
+  for (int a = 1; a <= 60; ++a) {
+    Row row;
+    row.argument.value = Sexagesimal::FromUnits(a, 0);
+    for (const auto& v : {Sexagesimal::FromDouble(Chord(a), 2),
+                          Sexagesimal::FromDouble(Chord(a + 1) - Chord(a), 3)}) {
+      Cell cell;
+      cell.value = v;
+      row.cells.push_back(cell);
+    }
+    t.rows.push_back(row);
+  }
+  DerivedSource source;
+  source.column = "chord";
+  source.model = std::shared_ptr<const model::Model>(std::shared_ptr<const model::Model>(), chord);
+  source.params = {60};
+  source.practice.places = 2;
+  source.practice.grid = 3;
+  DerivedRelation next;  // the difference to the next row
+  const DerivedModel m("difference", next, DerivedBasis::kExact, {source}, 3, Rounding::kNearest,
+                       1);
+  int same = 0;
+  for (std::size_t r = 0; r + 1 < t.rows.size(); ++r) {
+    model::RowContext ctx{static_cast<double>(r + 1), std::nullopt, &t, r, 1};
+    same += Sexagesimal::FromDouble(m.Evaluate({}, ctx), 3) == *t.rows[r].cells[1].value;
+  }
+  CHECK(same == 59);
 }
 
 }  // namespace apograph::estimate

@@ -19,6 +19,7 @@ struct SyntheticColumn {
   std::function<double(double)> f;
   Rounding rounding = Rounding::kNearest;
   double grid = 0;           ///< interpolation grid (0: none)
+  double grid_origin = 0;    ///< nodes at grid_origin + k * grid
   bool round_nodes = false;  ///< nodes brought to `places` before interpolating
   int written_places = -1;   ///< places as written (zeros appended); -1: `places`
   double displacement = 0;   ///< constant added
@@ -48,7 +49,7 @@ inline Transcription MakeTable(const std::string& id, double start, double step,
       const double a = arg.ToDouble();
       double v = c.f(a);
       if (c.grid > 0) {
-        const double lo = std::floor(a / c.grid + 1e-9) * c.grid;
+        const double lo = c.grid_origin + std::floor((a - c.grid_origin) / c.grid + 1e-9) * c.grid;
         auto node = [&](double x) {
           const double y = c.f(x);
           return c.round_nodes ? Sexagesimal::FromDouble(y, c.places, c.rounding).ToDouble() : y;
