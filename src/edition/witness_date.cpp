@@ -92,7 +92,9 @@ std::optional<std::array<int, 2>> Part(const std::vector<std::string>& q) {
   if (has("first") && has("half")) return std::array<int, 2>{0, 49};
   if (has("second") && has("half")) return std::array<int, 2>{50, 99};
   if (has("early") || has("in.") || has("in")) return std::array<int, 2>{0, 33};
-  if (has("mid") || has("middle") || has("med.") || has("med")) return std::array<int, 2>{30, 70};
+  // The middle third, as "early" and "late" are the outer ones (judgement:
+  // the three qualifiers then part the century without overlapping).
+  if (has("mid") || has("middle") || has("med.") || has("med")) return std::array<int, 2>{33, 67};
   if (has("late") || has("ex.") || has("ex")) return std::array<int, 2>{67, 99};
   if (q.size() == 1 && q[0] == "1") return std::array<int, 2>{0, 49};
   if (q.size() == 1 && q[0] == "2") return std::array<int, 2>{50, 99};
@@ -111,6 +113,15 @@ std::optional<YearRange> CenturyRange(const std::vector<std::string>& w) {
       if (auto c = Century(x)) {
         century = c;
         continue;
+      }
+      // "mid-15th", "late-15th": the qualifier joined to the century
+      const auto dash = x.find('-');
+      if (dash != std::string::npos && dash > 0) {
+        if (auto c = Century(x.substr(dash + 1))) {
+          century = c;
+          qualifiers.push_back(x.substr(0, dash));
+          continue;
+        }
       }
     }
     qualifiers.push_back(x);

@@ -15,7 +15,8 @@ namespace apograph::lineage {
 /// "B may be a copy of A": B carries every reading of A's that arose below
 /// the archetype (its errors), wherever B can be read, and readings of its
 /// own; B is not dated wholly before A; A is not a modern edition when B
-/// is older in kind (a manuscript or print).
+/// is older in kind (a manuscript or print). (Tolerating errors of A's that
+/// B lacks was measured and not adopted: DEVELOPERS.md, "Lineage accuracy".)
 struct CopyCandidate {
   std::string copy;         ///< B
   std::string exemplar;     ///< A
@@ -31,6 +32,13 @@ struct CopyCandidate {
   bool dated = false;
   std::string text;
 };
+
+/// A witness descending from a contaminated one (inheriting its mixture)
+/// holds its errors but for at most one in kErrorsPerLackedError (a copyist
+/// mends a few; the slips of a transcription, of text recognition or of
+/// the printing, no copy inherits). Judgement from the shared generator (a
+/// copy lacks one to three of its exemplar's 8-13 errors).
+inline constexpr int kErrorsPerLackedError = 4;
 
 /// Candidates, strongest first. A needs at least `min_errors` errors (fewer
 /// prove nothing: every witness "contains" a nearly faultless one).
@@ -56,20 +64,46 @@ struct ContaminationSegment {
 
 /// The criterion (stated in full; tested on uncontaminated traditions):
 /// witness C is contaminated when there are two other witnesses X and Y
-/// such that C shares with X errors that Y can be read at and lacks, and
-/// shares with Y errors that X can be read at and lacks, at least two such
-/// errors and `min_evidence` weight on each side. Copied along a tree, C
-/// could share errors with both only through errors made twice
-/// independently (rare for distinctive errors, hence the weights), since
-/// every group containing C and X and every group containing C and Y are
-/// nested. Only directed characters of weight 1 or more count (one-unit
-/// differences and common look-alike slips arise independently too often).
-/// X and Y must not descend from C (hold all its errors). A witness whose
+/// such that
+///  - C shares with X errors that Y can be read at and lacks, and shares
+///    with Y errors that X can be read at and lacks: at least three such
+///    slips and `min_evidence` weight on each side. Copied along a tree,
+///    C could share errors with both only through errors made twice
+///    independently or mended by one of X, Y, since every group
+///    containing C and X and every group containing C and Y are nested;
+///  - and the two sets lie in stretches of their own along the table(s)
+///    (C changed exemplar part-way, or between tables): in table order,
+///    at most kMaxStretchChanges + 1 stretches, each following X or Y,
+///    with at most one error in kMisfitsPerStretchError of the weaker
+///    side's siding with the other relative inside a stretch. Chance
+///    agreements and corrections (a witness reading right where its group
+///    errs) fall anywhere in the table, among the errors of C's own line;
+///    a change of exemplar separates them.
+/// Only characters of weight 1 or more directed by the model or by a
+/// majority count: not one-unit differences (rounding and recomputing
+/// reach them independently), and not characters a first stemma oriented
+/// (a wrong or mis-rooted first tree makes its own conflicts). X and Y
+/// must not descend from C (hold all its errors). A witness whose
 /// conflicting errors all come from a contaminated witness it descends
 /// from (it holds all that witness's errors) inherits the contamination and
-/// is not flagged again. The stretches say where C follows which: its
-/// shared errors in order along the table(s), grouped by the relative they
-/// side with.
+/// is not flagged again (it may lack one in kErrorsPerLackedError of them),
+/// and neither is a witness that names a contaminated one, with a stronger
+/// mixture, as one of its two relatives (an exemplar of it, or a witness
+/// of the line it changed to). Errors siding with the same relative in
+/// neighbouring rows count as one slip. The stretches say where C follows
+/// which.
+
+/// Changes of exemplar a contaminated witness may show (two: a stretch
+/// from the second exemplar inside the table, or one at each end).
+/// Judgement: the generator and the traditions we know change once or
+/// come back; more changes than that is indistinguishable from chance.
+inline constexpr int kMaxStretchChanges = 2;
+/// Errors of the weaker side per chance agreement tolerated inside the
+/// stretches (an error siding with the other relative where C follows
+/// one): judgement, then measured on the lineage benchmark (see
+/// DEVELOPERS.md, "Lineage accuracy").
+inline constexpr int kMisfitsPerStretchError = 4;
+
 struct Contamination {
   std::string witness;
   std::string primary, secondary;  ///< the relatives: followed for more, for less evidence
@@ -91,8 +125,10 @@ inline constexpr double kMinContaminationEvidence = 3;
 /// on a tree are not rare enough to call it, but the editor should look).
 inline constexpr double kSuspectedContaminationEvidence = 2;
 
-/// `suspected` (when given) receives the witnesses that meet the criterion
-/// at kSuspectedContaminationEvidence but not at `min_evidence`.
+/// `suspected` (when given) receives the witnesses that fail the criterion
+/// but share errors with two lines, two or more and
+/// kSuspectedContaminationEvidence weight on each side, wherever they lie
+/// (a question for the editor, never a finding).
 std::vector<Contamination> FindContamination(const CharacterMatrix& oriented,
                                              double min_evidence = kMinContaminationEvidence,
                                              std::vector<Contamination>* suspected = nullptr);

@@ -24,7 +24,8 @@ TEST_CASE("catalogue dates are read as ranges of years") {
   CHECK(ParseWitnessDate("late 15th century") == R(1467, 1499));
   CHECK(ParseWitnessDate("early 14th century") == R(1300, 1333));
   CHECK(ParseWitnessDate("second half of the 15th century") == R(1450, 1499));
-  CHECK(ParseWitnessDate("mid 15th century") == R(1430, 1470));
+  CHECK(ParseWitnessDate("mid 15th century") == R(1433, 1467));
+  CHECK(ParseWitnessDate("mid-15th century") == R(1433, 1467));
   CHECK(ParseWitnessDate("s. XV ex.") == R(1467, 1499));
   CHECK(ParseWitnessDate("s. XIV 2") == R(1350, 1399));
   CHECK(ParseWitnessDate("1899") == R(1899, 1899));

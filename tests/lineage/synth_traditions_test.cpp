@@ -44,11 +44,34 @@ Sigla Sorted(Sigla s) {
 }
 
 struct Score {
-  int marked = 0, recovered = 0;             // groups two or more errors mark
-  int claims = 0, claims_right = 0;          // named copies (twins left open are no claim)
-  int against_dates = 0;                     // copies named older than their exemplar
-  int draws_with_contamination_flagged = 0;  // (for uncontaminated draws: false alarms)
+  int marked = 0, recovered = 0;                  // groups two or more errors mark
+  int claims = 0, claims_right = 0;               // named copies (twins left open are no claim)
+  int against_dates = 0;                          // copies named older than their exemplar
+  int draws_with_contamination_flagged = 0;       // (for uncontaminated draws: false alarms)
+  int mixed = 0, flagged = 0, flagged_right = 0;  // contaminated witnesses
 };
+
+// A witness shows a mixture when it, or a lost ancestor above it (up to the
+// first surviving one), took a second exemplar (as the benchmark counts).
+bool Mixed(const synth::Tradition& t, int node) {
+  for (int i = node; i > 0; i = t.nodes[i].parent) {
+    if (t.nodes[i].contamination) return true;
+    if (i != node && t.nodes[i].surviving) return false;
+  }
+  return false;
+}
+
+void ScoreMixtures(const synth::Tradition& t, const lineage::LineageReport& r, Score& s) {
+  std::set<std::string> flagged;
+  for (const auto& c : r.contamination) flagged.insert(c.witness);
+  for (int w : t.Surviving()) {
+    const bool mixed = Mixed(t, w), said = flagged.count(t.nodes[w].name) > 0;
+    s.mixed += mixed ? 1 : 0;
+    s.flagged += said ? 1 : 0;
+    s.flagged_right += mixed && said ? 1 : 0;
+  }
+  s.draws_with_contamination_flagged += flagged.empty() ? 0 : 1;
+}
 
 void ScoreGroups(const synth::Tradition& t, const lineage::LineageReport& r, Score& s) {
   std::set<Sigla> found;
@@ -73,18 +96,19 @@ void ScoreCopies(const synth::Tradition& t, const lineage::LineageReport& r, Sco
     const bool second = n.contamination && n.contamination->second == exemplar;
     s.claims_right += n.parent == exemplar || second ? 1 : 0;
     s.against_dates += n.date.to < t.nodes[exemplar].date.from ? 1 : 0;
+    if (n.date.to < t.nodes[exemplar].date.from) MESSAGE("against the dates: " << c.text);
   }
 }
 
-Score Run(const std::vector<std::uint64_t>& seeds, bool contaminated) {
+Score Run(const std::vector<std::uint64_t>& seeds, const synth::TraditionOptions& o) {
   Score s;
   for (std::uint64_t seed : seeds) {
     CAPTURE(seed);
-    const auto t = synth::DrawTradition(seed, Small(contaminated));
+    const auto t = synth::DrawTradition(seed, o);
     const auto r = Analyse(t);
     ScoreGroups(t, r, s);
     ScoreCopies(t, r, s);
-    s.draws_with_contamination_flagged += r.contamination.empty() ? 0 : 1;
+    ScoreMixtures(t, r, s);
   }
   return s;
 }
@@ -92,10 +116,10 @@ Score Run(const std::vector<std::uint64_t>& seeds, bool contaminated) {
 TEST_CASE("lineage on shared-generator traditions copied along a tree: rates over seeds") {
   // Seeds 1-16, six witnesses, one table of up to 240 rows, no contamination
   // (correctors, prints and modern editions as the generator draws them).
-  // Measured: groups 14 of 20, copies 13 of 15 right, no false alarm. The
+  // Measured: groups 15 of 20, copies 16 of 18 right, no false alarm. The
   // floors below are under the issue's goals (groups 0.9) where the stage
   // does not reach them yet; they fail if it gets worse.
-  const Score s = Run({1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12, 13, 14, 15, 16}, false);
+  const Score s = Run({1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12, 13, 14, 15, 16}, Small(false));
   MESSAGE("groups " << s.recovered << "/" << s.marked << ", copies " << s.claims_right << "/"
                     << s.claims << ", false contamination " << s.draws_with_contamination_flagged
                     << "/16");
@@ -103,9 +127,38 @@ TEST_CASE("lineage on shared-generator traditions copied along a tree: rates ove
   // No false alarm of contamination in at least 15 of the 16 draws.
   CHECK(s.draws_with_contamination_flagged <= 1);
   REQUIRE(s.marked > 0);
-  CHECK(s.recovered * 10 >= s.marked * 6);
+  CHECK(s.recovered * 10 >= s.marked * 7);
   REQUIRE(s.claims > 0);
   CHECK(s.claims_right * 10 >= s.claims * 8);
+}
+
+TEST_CASE("lineage on shared-generator traditions with contamination: rates over seeds") {
+  // Seeds 1-12, eight witnesses, two tables of the generator's default
+  // size, with its contamination (a change of exemplar part-way through a
+  // table or between tables), and the same seeds without it (false alarms).
+  // Six witnesses and one table of 240 rows give too few errors on each
+  // side to call any (none called, 15 contaminated). Measured: no false alarm
+  // in the 12 uncontaminated draws; 1 witness flagged, rightly, of 4
+  // contaminated (the criterion, relations.hpp, asks three slips on each
+  // side: it prefers silence to a false alarm).
+  synth::TraditionOptions o;
+  o.witnesses = 8;
+  o.tables = 2;
+  const std::vector<std::uint64_t> seeds{1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12};
+  const Score s = Run(seeds, o);
+  o.share_contaminated = 0;
+  const Score clean = Run(seeds, o);
+  MESSAGE("false alarms: " << clean.draws_with_contamination_flagged << " of 12 draws");
+  CHECK(clean.draws_with_contamination_flagged <= 1);
+  CHECK(clean.against_dates == 0);
+  MESSAGE("contaminated witnesses flagged "
+          << s.flagged_right << " of " << s.flagged << " right, " << s.flagged_right << " of "
+          << s.mixed << " found; copies " << s.claims_right << "/" << s.claims);
+  CHECK(s.against_dates == 0);
+  REQUIRE(s.mixed > 0);
+  REQUIRE(s.flagged > 0);
+  CHECK(s.flagged_right * 10 >= s.flagged * 8);
+  CHECK(s.flagged_right >= 1);
 }
 
 }  // namespace
