@@ -134,7 +134,10 @@ void FillParams(const model::Model& model, internal::FitProblem& problem,
   const double nan = std::numeric_limits<double>::quiet_NaN();
   for (int j = 0; j < k; ++j) {
     const bool known = !cov.matrix.empty() && cov.separable[static_cast<std::size_t>(j)];
-    const double var = known ? cov.matrix[static_cast<std::size_t>(j) * static_cast<std::size_t>(k) + static_cast<std::size_t>(j)] : nan;
+    const double var = known
+                           ? cov.matrix[static_cast<std::size_t>(j) * static_cast<std::size_t>(k) +
+                                        static_cast<std::size_t>(j)]
+                           : nan;
     const double se = std::sqrt(std::max(var, 0.0)) * scale;
     const int m = problem.ModelIndex(j);
     if (m >= 0) {

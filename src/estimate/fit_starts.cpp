@@ -180,7 +180,8 @@ namespace {
 template <typename Basis>
 std::vector<double> LeastSquares(const std::vector<double>& t, const std::vector<double>& y, int k,
                                  Basis basis, double* rss) {
-  std::vector<double> A(static_cast<std::size_t>(k) * static_cast<std::size_t>(k), 0.0), b(static_cast<std::size_t>(k));
+  std::vector<double> A(static_cast<std::size_t>(k) * static_cast<std::size_t>(k), 0.0),
+      b(static_cast<std::size_t>(k));
   std::vector<double> row(static_cast<std::size_t>(k));
   for (std::size_t i = 0; i < t.size(); ++i) {
     basis(t[i], row.data());
