@@ -105,7 +105,6 @@ int RunApparatus(const std::vector<std::string>& args, Io& io) {
   po::variables_map vm;
   if (ParseOptions(FindCommand("apparatus"), args, options, vm, io)) return kOk;
   FinishCollateRequest(request, vm);
-  CheckChoice("--format", format, {"text", "tei", "latex", "csv"});
   const OutputRules rules{"--output", db_path, vm.count("force") > 0, {}};
   if (!output.empty()) CheckOutputFile(output, rules);  // before anything is stored
   const std::string who = pipeline::DefaultEditor(editor);

@@ -91,7 +91,6 @@ int RunCatalog(const std::vector<std::string>& args, Io& io) {
   pos.add("action", 1);
   po::variables_map vm;
   if (ParseOptions(cmd, args, opts, vm, io, &pos)) return kOk;
-  CheckChoice("--format", format, {"text", "csv", "json"});
   if (action == "list") return List(AllEntries(db), kind, model, ParseFormat(format), io);
   if (action != "add")
     throw InputError::ForOption("apograph catalog",

@@ -287,7 +287,6 @@ int RunCheck(const std::vector<std::string>& args, Io& io) {
   AddDbOption(d, o.db);
   po::variables_map vm;
   if (ParseOptions(FindCommand("check"), args, d, vm, io)) return kOk;
-  CheckChoice("--format", o.format, {"text", "csv", "json"});
   CheckBatchOptions(batch, !o.table.empty() || !o.witness.empty(), "check");
   if (!batch.Batch() && (o.table.empty() || o.witness.empty()))
     throw InputError::ForOption(o.table.empty() ? "--table" : "--witness",

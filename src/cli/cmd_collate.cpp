@@ -176,7 +176,6 @@ int RunCollate(const std::vector<std::string>& args, Io& io) {
   po::variables_map vm;
   if (ParseOptions(FindCommand("collate"), args, options, vm, io)) return kOk;
   FinishCollateRequest(request, vm);
-  CheckChoice("--format", format, {"text", "csv", "json"});
   store::Database db = OpenEdition(db_path);
   const auto c = CollateFromDb(db, request);
   if (format == "json")

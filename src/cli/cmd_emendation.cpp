@@ -309,7 +309,6 @@ int RunEmendation(const std::vector<std::string>& args, Io& io) {
   if (ParseOptions(FindCommand("emendation"), args, options, vm, io, &positional)) return kOk;
   CheckChoice("action", o.action,
               {"list", "accept", "reject", "override", "conjecture", "undo", "log"});
-  CheckChoice("--format", o.format, {"text", "csv", "json"});
   if (!o.status.empty())
     CheckChoice("--status", o.status, {"proposed", "accepted", "rejected", "review", "superseded"});
   store::Database db = OpenEdition(o.db);

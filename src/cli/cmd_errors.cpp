@@ -448,7 +448,6 @@ int RunErrors(const std::vector<std::string>& args, Io& io) {
   AddDbOption(options, o.db);
   po::variables_map vm;
   if (ParseOptions(FindCommand("errors"), args, options, vm, io)) return kOk;
-  CheckChoice("--format", o.format, {"text", "csv", "json"});
   CheckBatchOptions(batch, !o.table.empty() || !o.witness.empty(), "errors");
   if (!batch.Batch() && (o.table.empty() || o.witness.empty()))
     throw InputError::ForOption(o.table.empty() ? "--table" : "--witness",

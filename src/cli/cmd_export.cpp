@@ -113,7 +113,6 @@ int RunExport(const std::vector<std::string>& args, Io& io) {
   AddFormatOption(options, format, {"transcription", "csv", "json"});
   po::variables_map vm;
   if (ParseOptions(FindCommand("export"), args, options, vm, io)) return kOk;
-  CheckChoice("--format", format, {"transcription", "csv", "json"});
   if (vm.count("revision") && revision < 1) {
     throw InputError::ForOption(
         "--revision", ExpectedFound("a revision number from 1", std::to_string(revision)));

@@ -194,7 +194,6 @@ int RunFit(const std::vector<std::string>& args, Io& io) {
   AddFormatOption(opts, a.format, {"text", "csv", "json"});
   po::variables_map vm;
   if (ParseOptions(cmd, args, opts, vm, io)) return kOk;
-  CheckChoice("--format", a.format, {"text", "csv", "json"});
   CheckBatchOptions(batch, !a.table.empty() || !a.witness.empty(), "fit");
   if (!batch.Batch() && (a.table.empty() || a.witness.empty()))
     throw InputError::ForOption(a.table.empty() ? "--table" : "--witness",

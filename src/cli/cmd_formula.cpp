@@ -164,7 +164,6 @@ int RunFormula(const std::vector<std::string>& args, Io& io) {
   positional.add("words", -1);
   po::variables_map vm;
   if (ParseOptions(FindCommand("formula"), args, d, vm, io, &positional)) return kOk;
-  CheckChoice("--format", format, {"text", "csv", "json"});
   if (pos.empty())
     throw InputError::ForOption("apograph formula", ExpectedFound("save, list or show", "nothing"));
   const bool have_db = std::filesystem::exists(db_path);

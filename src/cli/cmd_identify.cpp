@@ -150,7 +150,6 @@ int RunIdentify(const std::vector<std::string>& args, Io& io) {
   AddFormatOption(opts, format, {"text", "csv", "json"});
   po::variables_map vm;
   if (ParseOptions(cmd, args, opts, vm, io)) return kOk;
-  CheckChoice("--format", format, {"text", "csv", "json"});
   if (top < 1)
     throw InputError::ForOption("--top", ExpectedFound("a positive number", std::to_string(top)));
   CheckBatchOptions(batch, !table.empty() || !witness.empty(), "identify");

@@ -259,7 +259,6 @@ int RunImport(const std::vector<std::string>& args, Io& io) {
   positional.add("file", -1);
   po::variables_map vm;
   if (ParseOptions(FindCommand("import"), args, options, vm, io, &positional)) return kOk;
-  CheckChoice("--format", o.format, {"text", "csv", "json"});
   if (!o.wait.empty()) SetWait(o.wait);
 
   TranscriptionFile input = ReadAll(o);

@@ -135,7 +135,6 @@ int RunList(const std::vector<std::string>& args, Io& io) {
   po::variables_map vm;
   if (ParseOptions(FindCommand("list"), args, options, vm, io, &positional)) return kOk;
   CheckChoice("list", what, kinds);
-  CheckChoice("--format", format, {"text", "csv", "json"});
   store::Database db = OpenEdition(db_path);
   const Opt table = Given(vm, "table");
   Listing l = what == "works"       ? Works(db)

@@ -62,7 +62,6 @@ int RunReport(const std::vector<std::string>& args, Io& io) {
                                 "expected one of --table or --work, found " +
                                     std::string(table.empty() ? "neither" : "both"));
   }
-  CheckChoice("--format", format, {"markdown", "html"});
   store::Database db = OpenEdition(db_path);
   ReportRequest request;
   request.html = format == "html";

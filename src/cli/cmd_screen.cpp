@@ -89,7 +89,6 @@ int RunScreen(const std::vector<std::string>& args, Io& io) {
   AddDbOption(options, db_path);
   po::variables_map vm;
   if (ParseOptions(FindCommand("screen"), args, options, vm, io)) return kOk;
-  CheckChoice("--format", format, {"text", "csv", "json"});
   if (so.half_window < 2 || so.half_window > 20) {
     throw InputError::ForOption(
         "--window", ExpectedFound("a number of rows from 2 to 20", std::to_string(so.half_window)));

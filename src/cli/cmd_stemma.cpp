@@ -81,7 +81,6 @@ int RunStemma(const std::vector<std::string>& args, Io& io) {
   po::variables_map vm;
   if (ParseOptions(FindCommand("stemma"), args, options, vm, io)) return kOk;
   FinishCollateRequest(request, vm);
-  CheckChoice("--format", format, {"text", "newick", "dot", "json"});
   CheckChoice("--method", method, {"nj", "parsimony", "both"});
   if (table.empty() == work.empty())
     throw InputError::ForOption("stemma", "expected one of --table or --work, found " +

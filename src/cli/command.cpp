@@ -95,8 +95,14 @@ void AddFormatOption(po::options_description& options, std::string& format,
                      const std::vector<std::string>& allowed) {
   std::string list;
   for (const auto& a : allowed) list += (list.empty() ? "" : "|") + a;
-  options.add_options()("format", po::value(&format)->default_value(allowed.front()),
-                        ("output format: " + list).c_str());
+  // The choice is checked where it is parsed (a notifier), so a command
+  // names its formats once.
+  options.add_options()(
+      "format",
+      po::value(&format)->default_value(allowed.front())->notifier([allowed](const std::string& v) {
+        CheckChoice("--format", v, allowed);
+      }),
+      ("output format: " + list).c_str());
 }
 
 void CheckChoice(const std::string& option, const std::string& value,

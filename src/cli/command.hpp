@@ -62,7 +62,8 @@ bool ParseOptions(const Command& command, const std::vector<std::string>& args,
 
 /// Adds --db (default edition.sqlite).
 void AddDbOption(po::options_description& options, std::string& db);
-/// Adds --format with the given allowed values (first is the default).
+/// Adds --format with the given allowed values (first is the default); any
+/// other value is refused when the options are parsed (InputError naming --format).
 void AddFormatOption(po::options_description& options, std::string& format,
                      const std::vector<std::string>& allowed);
 /// Opens an existing edition database (never creates one: a mistyped --db

@@ -90,8 +90,6 @@ const auto kNumber = (-kSign > kPlace) >> (kDegreeTail | kColumnsTail | kTradeTa
 const auto kMarkHead = x3::lit('{') >> x3::omit[*x3::char_(" \t")] >> x3::raw[*x3::char_("a-zA-Z")];
 const auto kMarkClose = x3::rule<class close_id>{"'}' closing the mark"} = x3::lit('}');
 
-bool IsBlank(char c) { return c == ' ' || c == '\t'; }
-
 /// First of '{', '|', '#' from `pos`, or the end of the line.
 std::size_t CellEnd(std::string_view line, std::size_t pos) {
   while (pos < line.size() && line[pos] != '{' && line[pos] != '|' && line[pos] != '#') ++pos;

@@ -20,14 +20,13 @@ namespace {
 
 using transcription::ColumnCounter;
 using transcription::FoundChar;
+using transcription::IsBlank;
 using transcription::LineError;
 using transcription::ReadingInfo;
 using transcription::csv::Field;
 using transcription::csv::PartGroup;
 using transcription::csv::Plan;
 using transcription::csv::PlannedColumn;
-
-bool IsBlank(char c) { return c == ' ' || c == '\t'; }
 
 std::string PlacesWords(int n) {
   return std::to_string(n) + (n == 1 ? " fractional place" : " fractional places");

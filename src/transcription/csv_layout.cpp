@@ -6,12 +6,11 @@
 #include <cctype>
 
 #include "support/input_error.hpp"
+#include "transcription/syntax.hpp"
 
 namespace apograph {
 namespace transcription::csv {
 namespace {
-
-bool IsBlank(char c) { return c == ' ' || c == '\t'; }
 
 std::string Trimmed(std::string_view s) {
   std::size_t a = 0, b = s.size();

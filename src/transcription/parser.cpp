@@ -25,8 +25,6 @@ constexpr const char* kDirectives =
     "@work, @witness, @table, @argument, @argument2, @column, @rows";
 constexpr std::string_view kByteOrderMark = "\xEF\xBB\xBF";
 
-bool IsBlank(char c) { return c == ' ' || c == '\t'; }
-
 std::string Quote(std::string_view s) { return QuotedText(s); }
 
 /// An argument as written, with its value in the table's notation when it

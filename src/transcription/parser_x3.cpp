@@ -13,8 +13,6 @@ using x3g::Iterator;
 const auto kKeyword = x3::lit('@') >> x3::raw[*x3::char_("a-zA-Z0-9")];
 const auto kBare = x3::raw[+~x3::char_(" \t\"#{}|=")];
 
-bool IsBlank(char c) { return c == ' ' || c == '\t'; }
-
 std::string Text(const boost::iterator_range<Iterator>& range) {
   return std::string(range.begin(), range.end());
 }

@@ -14,6 +14,10 @@
 
 namespace apograph::transcription {
 
+/// A blank of the trade's plain text: a space or a TAB (what separates
+/// fields and pads cells in transcriptions and sheets).
+inline bool IsBlank(char c) { return c == ' ' || c == '\t'; }
+
 /// A syntax error inside one line: byte offset in the line and the message
 /// ("expected ..., found ..."). The driver turns it into a Diagnostic.
 struct LineError {
