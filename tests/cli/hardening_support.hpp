@@ -6,6 +6,7 @@
 #include <vector>
 
 #include "cli_runner.hpp"
+#include "demo_corpus.hpp"
 #include "store/database.hpp"
 #include "store/edition_store.hpp"
 #include "test_paths.hpp"
@@ -15,14 +16,8 @@ namespace apograph::testing {
 
 /// Imports the demo's transcriptions into `dir`/edition.sqlite.
 inline void ImportDemo(const std::filesystem::path& dir) {
-  std::vector<Transcription> tables;
-  for (const char* siglum : {"A", "B", "C", "D", "E"}) {
-    const auto path = std::filesystem::path(APOGRAPH_SOURCE_DIR) / "corpora/demo" /
-                      (std::string(siglum) + ".apo");
-    for (auto& t : ReadTranscriptionFile(path.string()).tables) tables.push_back(std::move(t));
-  }
   store::Database db((dir / "edition.sqlite").string());
-  store::Import(db, tables);
+  store::Import(db, DemoTranscriptions());
 }
 
 inline bool Contains(const std::string& text, const std::string& part) {

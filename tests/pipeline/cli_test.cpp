@@ -8,6 +8,7 @@
 #include "../store/store_test_util.hpp"
 #include "cli/command.hpp"
 #include "cli_runner.hpp"
+#include "demo_corpus.hpp"
 #include "store/edition_store.hpp"
 #include "test_paths.hpp"
 #include "transcription/parser.hpp"
@@ -23,13 +24,7 @@ struct DemoDb {
   testing::TempDb file{"pipeline-cli"};
   DemoDb() {
     store::Database db(file.path());
-    std::vector<Transcription> all;
-    for (const char* s : {"A", "B", "C", "D", "E"}) {
-      auto parsed =
-          ReadTranscriptionFile(std::string(APOGRAPH_SOURCE_DIR) + "/corpora/demo/" + s + ".apo");
-      all.insert(all.end(), parsed.tables.begin(), parsed.tables.end());
-    }
-    store::Import(db, all);
+    store::Import(db, testing::DemoTranscriptions());
   }
   std::vector<std::string> Args(std::vector<std::string> more) const {
     more.push_back("--db");

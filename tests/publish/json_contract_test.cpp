@@ -10,6 +10,7 @@
 
 #include "../store/store_test_util.hpp"
 #include "cli_runner.hpp"
+#include "demo_corpus.hpp"
 #include "json_schema.hpp"
 #include "store/edition_store.hpp"
 #include "transcription/parser.hpp"
@@ -28,13 +29,7 @@ struct Db {
   testing::TempDb file{"json-contract"};
   Db() {
     store::Database db(file.path());
-    std::vector<Transcription> all;
-    for (const char* s : {"A", "B", "C", "D", "E"}) {
-      auto parsed =
-          ReadTranscriptionFile(std::string(APOGRAPH_SOURCE_DIR) + "/corpora/demo/" + s + ".apo");
-      all.insert(all.end(), parsed.tables.begin(), parsed.tables.end());
-    }
-    store::Import(db, all);
+    store::Import(db, testing::DemoTranscriptions());
   }
 };
 

@@ -9,6 +9,7 @@
 #include <vector>
 
 #include "cli_runner.hpp"
+#include "demo_corpus.hpp"
 #include "pipeline/decisions.hpp"
 #include "store/database.hpp"
 #include "store/edition_store.hpp"
@@ -49,13 +50,7 @@ struct DemoDb {
   testing::TempDb file{"sql-views"};
   DemoDb() {
     store::Database db(file.path());
-    std::vector<Transcription> all;
-    for (const char* s : {"A", "B", "C", "D", "E"}) {
-      auto parsed =
-          ReadTranscriptionFile(std::string(APOGRAPH_SOURCE_DIR) + "/corpora/demo/" + s + ".apo");
-      all.insert(all.end(), parsed.tables.begin(), parsed.tables.end());
-    }
-    store::Import(db, all);
+    store::Import(db, testing::DemoTranscriptions());
   }
   testing::CliResult Run(std::vector<std::string> args) const {
     args.insert(args.end(), {"--db", file.path()});
