@@ -2,12 +2,14 @@
 // database, all in one transaction.
 #include "cli/command.hpp"
 
+#include <filesystem>
 #include <ostream>
 #include <stdexcept>
 
 #include <nlohmann/json.hpp>
 
 #include "store/edition_store.hpp"
+#include "store/import_session.hpp"
 #include "support/data_dir.hpp"
 #include "support/tabular.hpp"
 #include "transcription/csv.hpp"
@@ -131,38 +133,81 @@ bool GivesAttributes(const ImportOptions& o) {
          !h.folios.empty() || !h.hand.empty() || !o.step.empty() || !o.start.empty();
 }
 
-/// Reads every input; throws on the first error, before anything is written.
-TranscriptionFile ReadAll(ImportOptions& o) {
+InputError NothingToImport() {
+  return InputError::ForOption("apograph import",
+                               "expected at least one FILE, --csv SHEET or --manifest FILE, "
+                               "found none (see apograph import --help)");
+}
+
+/// What to read, in order: transcription files, then the manifest's or the
+/// command line's sheets. Settles every option before anything is read.
+struct Sources {
+  std::vector<std::string> files;
+  std::vector<SheetEntry> sheets;
+};
+
+/// Checks the options and lists the inputs; throws before anything is
+/// read or opened.
+Sources ListSources(ImportOptions& o) {
   SheetOptions(o);
-  TranscriptionFile all;
-  auto take = [&all](TranscriptionFile f) {
-    for (auto& t : f.tables) all.tables.push_back(std::move(t));
-    for (auto& w : f.warnings) all.warnings.push_back(std::move(w));
-  };
-  for (const auto& f : o.files) take(ReadTranscriptionFile(f, o.sheet.read));
+  Sources sources{o.files, {}};
   if (!o.manifest.empty() && GivesAttributes(o)) {
     throw InputError::ForOption("--manifest",
                                 "expected the attributes in the manifest, found them given as "
                                 "options too (give them in one place)");
   }
-  if (!o.manifest.empty()) take(ReadSheets(ReadSheetManifest(o.manifest, o.sheet)));
+  if (!o.manifest.empty()) sources.sheets = ReadSheetManifest(o.manifest, o.sheet);
   if (!o.csv.empty()) {
     if (o.sheet.head.witness.siglum.empty())
       throw InputError::ForOption("--witness", "expected the siglum of the CSV sheets, found none");
-    take(ReadSheets(SheetsFromFiles(o.csv, o.sheet)));
+    for (auto& s : SheetsFromFiles(o.csv, o.sheet)) sources.sheets.push_back(std::move(s));
   } else if (o.manifest.empty() && GivesAttributes(o)) {
     throw InputError::ForOption(
         "--csv", "expected CSV sheets for the table and witness options, found none");
   }
-  if (all.tables.empty()) {
-    throw InputError::ForOption("apograph import",
-                                "expected at least one FILE, --csv SHEET or --manifest FILE, "
-                                "found none (see apograph import --help)");
-  }
-  return all;
+  if (sources.files.empty() && sources.sheets.empty()) throw NothingToImport();
+  return sources;
 }
 
-void PrintJson(const ImportOptions& o, const TranscriptionFile& input,
+/// Reads each input in turn and writes its tables in the one transaction
+/// of the session, keeping only what is reported (a thousand sheets are
+/// never all in memory). An error in any input rolls everything back.
+store::ImportResult ReadAndWrite(const Sources& sources, const CsvOptions& options,
+                                 store::Database& db, std::vector<Diagnostic>& warnings) {
+  store::ImportSession session(db);
+  std::size_t tables = 0;
+  auto take = [&](const TranscriptionFile& f) {
+    for (const auto& t : f.tables) session.Add(t);
+    tables += f.tables.size();
+    for (const auto& w : f.warnings) warnings.push_back(w);
+  };
+  for (const auto& f : sources.files) take(ReadTranscriptionFile(f, options.read));
+  for (const auto& s : sources.sheets) take(ReadCsvFile(s.path, s.options));
+  if (tables == 0) throw NothingToImport();
+  return session.Commit();
+}
+
+/// Runs `write` on the database at `path`; when the file did not exist
+/// before and `write` throws, the database it created is removed again, so
+/// that a failed import leaves no trace on a fresh path.
+template <typename Write>
+store::ImportResult ImportInto(const std::string& path, Write write) {
+  namespace fs = std::filesystem;
+  const bool fresh = !fs::exists(path);
+  try {
+    store::Database db(path);
+    return write(db);
+  } catch (...) {
+    if (fresh) {
+      std::error_code ignored;  // best effort: the error being reported matters more
+      for (const char* suffix : {"", "-wal", "-shm", "-journal"})
+        fs::remove(path + suffix, ignored);
+    }
+    throw;
+  }
+}
+
+void PrintJson(const ImportOptions& o, const std::vector<Diagnostic>& warnings,
                const store::ImportResult& result, Io& io) {
   nlohmann::ordered_json j;
   j["database"] = o.db;
@@ -178,7 +223,7 @@ void PrintJson(const ImportOptions& o, const TranscriptionFile& input,
                            {"cells", t.cells}});
   }
   j["warnings"] = nlohmann::ordered_json::array();
-  for (const auto& w : input.warnings) {
+  for (const auto& w : warnings) {
     j["warnings"].push_back({{"file", w.where.file},
                              {"line", w.where.line},
                              {"source_column", w.where.column},
@@ -261,18 +306,19 @@ int RunImport(const std::vector<std::string>& args, Io& io) {
   if (ParseOptions(FindCommand("import"), args, options, vm, io, &positional)) return kOk;
   if (!o.wait.empty()) SetWait(o.wait);
 
-  TranscriptionFile input = ReadAll(o);
-  store::Database db(o.db);
-  const store::ImportResult result = store::Import(db, input.tables);
-  for (const auto& w : result.warnings) input.warnings.push_back(w);
-  for (const auto& w : input.warnings) io.err << w.Render() << "\n";
+  const Sources sources = ListSources(o);
+  std::vector<Diagnostic> warnings;
+  const store::ImportResult result = ImportInto(
+      o.db, [&](store::Database& db) { return ReadAndWrite(sources, o.sheet, db, warnings); });
+  for (const auto& w : result.warnings) warnings.push_back(w);
+  for (const auto& w : warnings) io.err << w.Render() << "\n";
   const Format format = ParseFormat(o.format);
   if (format == Format::kJson) {
-    PrintJson(o, input, result, io);
+    PrintJson(o, warnings, result, io);
   } else {
     PrintTable(o, result, format, io);
   }
-  return input.warnings.empty() ? kOk : kFindings;
+  return warnings.empty() ? kOk : kFindings;
 }
 
 }  // namespace apograph::cli

@@ -6,6 +6,7 @@
 #include "edition/names.hpp"
 #include "store/cell_writer.hpp"
 #include "store/decision_store.hpp"
+#include "store/import_session.hpp"
 
 namespace apograph::store {
 namespace {
@@ -322,32 +323,46 @@ TableImport Writer::Write(const Transcription& t, ImportResult& result) {
   return out;
 }
 
-/// Rejects a (table, witness) pair given twice in one import: which of the
-/// two the editor meant is not ours to guess.
-void CheckUnique(const std::vector<Transcription>& tables) {
-  std::map<std::pair<std::string, std::string>, const Transcription*> seen;
-  for (const auto& t : tables) {
-    auto [it, fresh] = seen.emplace(std::make_pair(t.table_id, t.witness.siglum), &t);
-    if (!fresh) {
-      throw ErrorAt(t, 0,
-                    "expected each table of a witness once per import, found table '" + t.table_id +
-                        "' of witness '" + t.witness.siglum + "' again (first in " +
-                        it->second->source_file + ")");
-    }
-  }
-}
-
 }  // namespace
 
-ImportResult Import(Database& db, const std::vector<Transcription>& tables) {
-  for (const auto& t : tables) Validate(t);
-  CheckUnique(tables);
+/// The session's transaction, statements and the pairs already written.
+struct ImportSession::State {
+  explicit State(Database& db) : transaction(db), writer(db) {}
+  Transaction transaction;
+  Writer writer;
   ImportResult result;
-  Transaction transaction(db);
-  Writer writer(db);
-  for (const auto& t : tables) result.tables.push_back(writer.Write(t, result));
-  transaction.Commit();
-  return result;
+  /// (table, witness) -> the file that brought it first.
+  std::map<std::pair<std::string, std::string>, std::string> seen;
+};
+
+ImportSession::ImportSession(Database& db) : state_(std::make_unique<State>(db)) {}
+
+ImportSession::~ImportSession() = default;
+
+/// Rejects a (table, witness) pair given twice in one import: which of the
+/// two the editor meant is not ours to guess.
+void ImportSession::Add(const Transcription& t) {
+  Validate(t);
+  auto [it, fresh] =
+      state_->seen.emplace(std::make_pair(t.table_id, t.witness.siglum), t.source_file);
+  if (!fresh) {
+    throw ErrorAt(t, 0,
+                  "expected each table of a witness once per import, found table '" + t.table_id +
+                      "' of witness '" + t.witness.siglum + "' again (first in " + it->second +
+                      ")");
+  }
+  state_->result.tables.push_back(state_->writer.Write(t, state_->result));
+}
+
+ImportResult ImportSession::Commit() {
+  state_->transaction.Commit();
+  return std::move(state_->result);
+}
+
+ImportResult Import(Database& db, const std::vector<Transcription>& tables) {
+  ImportSession session(db);
+  for (const auto& t : tables) session.Add(t);
+  return session.Commit();
 }
 
 }  // namespace apograph::store
