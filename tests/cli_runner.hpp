@@ -49,10 +49,12 @@ class ScratchDir {
 };
 
 /// Runs the real binary with `args` (shell words, quoted by the caller)
-/// inside `dir`, capturing standard output and error separately.
-inline CliResult RunBinary(const std::string& args, const std::filesystem::path& dir) {
-  const std::string cmd = "cd '" + dir.string() + "' && '" + APOGRAPH_BINARY + "' " + args +
-                          " > .apograph-out.txt 2> .apograph-err.txt";
+/// inside `dir`, capturing standard output and error separately; `env`
+/// (shell assignments such as `NAME='value'`) is set for that run only.
+inline CliResult RunBinary(const std::string& args, const std::filesystem::path& dir,
+                           const std::string& env = "") {
+  const std::string cmd = "cd '" + dir.string() + "' && " + env + " '" + APOGRAPH_BINARY + "' " +
+                          args + " > .apograph-out.txt 2> .apograph-err.txt";
   const int status = std::system(cmd.c_str());
   CliResult r{WIFEXITED(status) ? WEXITSTATUS(status) : -1,
               ReadWholeFile(dir / ".apograph-out.txt"), ReadWholeFile(dir / ".apograph-err.txt")};

@@ -6,10 +6,8 @@
 #include "pipeline/decisions.hpp"
 #include "serve/guard.hpp"
 #include "serve/pages.hpp"
-#include "support/input_error.hpp"
-#if APOGRAPH_HAVE_HTTPLIB
 #include "serve/server.hpp"
-#endif
+#include "support/input_error.hpp"
 
 namespace apograph::cli {
 
@@ -44,7 +42,6 @@ int RunServe(const std::vector<std::string>& args, Io& io) {
     throw InputError::ForOption("--port",
                                 ExpectedFound("a port from 0 to 65535", std::to_string(port)));
   editor = pipeline::DefaultEditor(editor);  // the same editor as the CLI's decisions
-#if APOGRAPH_HAVE_HTTPLIB
   if (!serve::IsLoopback(listen))
     io.err << "warning: listening on " << listen
            << ": anyone who can reach this address and learns the URL can decide\n";
@@ -54,12 +51,6 @@ int RunServe(const std::vector<std::string>& args, Io& io) {
     io.out << "apograph serve: review page at " << url << "\n(Ctrl-C to stop)" << std::endl;
   });
   return kOk;
-#else
-  (void)io;
-  throw InputError::ForOption(
-      "apograph serve",
-      "this build has no HTTP server (install libcpp-httplib-dev and build again)");
-#endif
 }
 
 }  // namespace apograph::cli

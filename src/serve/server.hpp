@@ -1,6 +1,8 @@
 #pragma once
-/// `apograph serve`'s HTTP server (cpp-httplib): every request goes to
-/// Handle (pages.hpp); nothing is served from files.
+/// `apograph serve`'s HTTP server: every request goes to Handle
+/// (pages.hpp); nothing is served from files. The HTTP library lives in a
+/// module loaded here, at the first call (http_module.hpp), so that no other
+/// command loads it.
 
 #include <functional>
 #include <string>
@@ -15,7 +17,8 @@ struct ServeOptions {
 };
 
 /// Listens and answers until the process is stopped. `ready` gets the
-/// page's URL (with the token) once the socket is bound. Throws
+/// page's URL (with the token) once the socket is bound. Throws InputError
+/// when the HTTP module is not found (named with the places looked in);
 /// std::runtime_error when the address cannot be bound.
 void Serve(Site& site, const ServeOptions& options,
            const std::function<void(const std::string& url)>& ready);

@@ -10,13 +10,6 @@ namespace {
 
 namespace fs = std::filesystem;
 
-/// The folder of the running program (Linux: /proc/self/exe).
-fs::path ProgramDir() {
-  std::error_code ec;
-  const fs::path exe = fs::read_symlink("/proc/self/exe", ec);
-  return ec ? fs::path() : exe.parent_path();
-}
-
 /// A build tree names the source tree's data folder in a file beside its
 /// programs (written by CMake); an installed program has none.
 std::string BuildTreeData(const fs::path& dir) {
@@ -41,6 +34,12 @@ std::string FindDataDir() {
 }
 
 }  // namespace
+
+std::filesystem::path ProgramDir() {
+  std::error_code ec;
+  const fs::path exe = fs::read_symlink("/proc/self/exe", ec);
+  return ec ? fs::path() : exe.parent_path();
+}
 
 std::string DataDir() {
   static const std::string dir = FindDataDir();

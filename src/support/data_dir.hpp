@@ -2,6 +2,7 @@
 /// Where the shipped data (numeral scripts, parameter catalog, demo corpus)
 /// is found.
 
+#include <filesystem>
 #include <string>
 #include <vector>
 
@@ -10,6 +11,10 @@ namespace apograph {
 /// The file a build tree writes beside its programs, naming the source
 /// tree's data folder (`corpora/`).
 inline constexpr const char* kBuildDataFile = "apograph-data-dir.txt";
+
+/// The folder of the running program (Linux: /proc/self/exe); empty when
+/// it cannot be read.
+std::filesystem::path ProgramDir();
 
 /// The data folder, found at run time so that a moved or installed program
 /// keeps it: `APOGRAPH_DATA` when set; else `../share/apograph` beside the

@@ -26,6 +26,24 @@ status=0
 [ "$status" -le 1 ] || { cat demo.log >&2; fail "demo exited $status"; }
 test -f demo-out/edition.sqlite || fail "demo wrote no database"
 
+# The HTTP library is loaded by `serve` alone (src/serve/http_module.hpp):
+# the program itself must not need it, and the installed serve must find
+# its module under lib/apograph.
+if command -v ldd >/dev/null && ldd "$prefix/bin/apograph" | grep -q httplib; then
+  fail "the program loads the HTTP library at start-up"
+fi
+if [ -f "$build/apograph-http.so" ]; then
+  test -f "$prefix/lib/apograph/apograph-http.so" || fail "HTTP module not installed"
+  "$prefix/bin/apograph" serve --db demo-out/edition.sqlite >serve.log 2>&1 &
+  pid=$!
+  i=0
+  while [ "$i" -lt 100 ] && ! grep -q "review page at" serve.log; do sleep 0.1; i=$((i + 1)); done
+  kill "$pid" 2>/dev/null || true
+  wait "$pid" 2>/dev/null || true
+  grep -q "review page at http://127.0.0.1:" serve.log ||
+    { cat serve.log >&2; fail "the installed serve did not start"; }
+fi
+
 man_page=$prefix/share/man/man1/apograph.1
 head -n 1 "$man_page" | grep -q '^\.TH APOGRAPH 1' || fail "no manual page"
 for c in $("$prefix/bin/apograph" --help | sed -n 's/^  \([a-z][a-z]*\)  .*/\1/p'); do
