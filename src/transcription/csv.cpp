@@ -6,39 +6,16 @@
 #include "transcription/csv.hpp"
 
 #include <algorithm>
-#include <deque>
 #include <filesystem>
 
 #include "edition/names.hpp"
-#include "support/input_error.hpp"
 #include "support/tabular.hpp"
-#include "transcription/csv_layout.hpp"
-#include "transcription/syntax.hpp"
+#include "transcription/csv_internal.hpp"
+#include "transcription/parser.hpp"
 
 namespace apograph {
+namespace transcription::csv {
 namespace {
-
-using transcription::ColumnCounter;
-using transcription::FoundChar;
-using transcription::IsBlank;
-using transcription::LineError;
-using transcription::ReadingInfo;
-using transcription::csv::Field;
-using transcription::csv::PartGroup;
-using transcription::csv::Plan;
-using transcription::csv::PlannedColumn;
-
-std::string PlacesWords(int n) {
-  return std::to_string(n) + (n == 1 ? " fractional place" : " fractional places");
-}
-
-std::string_view Trimmed(std::string_view s, std::size_t* lead = nullptr) {
-  std::size_t a = 0, b = s.size();
-  while (a < b && IsBlank(s[a])) ++a;
-  while (b > a && IsBlank(s[b - 1])) --b;
-  if (lead) *lead = a;
-  return s.substr(a, b - a);
-}
 
 /// The delimiter found most often outside quotes in the first line.
 char DetectDelimiter(std::string_view text) {
@@ -54,317 +31,7 @@ char DetectDelimiter(std::string_view text) {
   return counts[best] > 0 ? kCandidates[best] : ',';
 }
 
-/// The plan, with the header's names kept for messages.
-struct SheetPlan : Plan {
-  std::vector<std::string> header_names;
-};
-
-class CsvReader {
- public:
-  CsvReader(std::string_view text, const std::string& file, const CsvOptions& options)
-      : text_(text), file_(file), options_(options) {}
-  TranscriptionFile Run();
-
- private:
-  bool NextRecord(std::vector<Field>& record);
-  void ReadQuoted(Field& field);
-  void CheckFieldCount(const std::vector<Field>& record) const;
-  Transcription MakeHead(const std::vector<Field>& header) const;
-  Cell ReadCell(const std::vector<Field>& record, std::size_t column);
-  Cell JoinedCell(const std::vector<Field>& record, std::size_t column);
-  int ColumnOf(const Field& f, std::size_t lead);
-  void FixPlaces(std::size_t column, const Field& f, const std::string& raw,
-                 const ReadingInfo& info);
-  void FinishArgument(Transcription& t);
-  void CheckPartColumns(const std::vector<Field>& header, const Transcription& t) const;
-  bool LooksLikeParts(const transcription::csv::PartGroup& g, const Transcription& t) const;
-  std::string_view LineAt(std::size_t line_start) const;
-  [[noreturn]] void Fail(int line, std::size_t line_start, std::size_t offset,
-                         std::string message) const;
-  [[noreturn]] void Fail(const Field& f, std::size_t extra, std::string message) const {
-    Fail(f.line, f.line_start, f.offset + extra, std::move(message));
-  }
-  [[noreturn]] void FailEmpty(std::string message) const;
-
-  std::string_view text_;
-  const std::string& file_;
-  const CsvOptions& options_;
-  char delimiter_ = ',';
-  std::size_t pos_ = 0;
-  int line_ = 1;
-  std::size_t line_start_ = 0;
-  std::deque<std::string> unquoted_;  ///< fields of this record that needed unescaping
-  std::deque<std::string> unquoted_header_;
-  SheetPlan plan_;
-  std::vector<int> first_line_;  ///< per planned column: line of the reading that fixed its places
-  int argument_places_ = 0;      ///< the most places an argument reading had
-  std::size_t counter_start_ = std::string_view::npos;
-  ColumnCounter counter_{std::string_view()};
-};
-
-std::string_view CsvReader::LineAt(std::size_t line_start) const {
-  std::size_t end = text_.find('\n', line_start);
-  if (end == std::string_view::npos) end = text_.size();
-  std::string_view line = text_.substr(line_start, end - line_start);
-  if (!line.empty() && line.back() == '\r') line.remove_suffix(1);
-  return line;
-}
-
-void CsvReader::Fail(int line, std::size_t line_start, std::size_t offset,
-                     std::string message) const {
-  Diagnostic d;
-  d.where.file = file_;
-  d.where.line = line;
-  const std::string_view text = LineAt(line_start);
-  d.where.line_text = std::string(text);
-  d.where.column = ColumnCounter(text).At(offset);
-  d.message = std::move(message);
-  throw InputError(d);
-}
-
-void CsvReader::FailEmpty(std::string message) const {
-  Diagnostic d;
-  d.where = {file_, 1, 1, std::string(LineAt(0))};
-  d.message = std::move(message);
-  throw InputError(d);
-}
-
-void CsvReader::ReadQuoted(Field& field) {
-  const int open_line = line_;
-  const std::size_t open_start = line_start_;
-  const std::size_t open = pos_ - line_start_;
-  const std::size_t begin = ++pos_;
-  bool escaped = false;
-  for (;; ++pos_) {
-    if (pos_ >= text_.size())
-      Fail(open_line, open_start, open,
-           "expected a closing '\"' for this field, found end of file");
-    const char c = text_[pos_];
-    if (c == '"' && pos_ + 1 < text_.size() && text_[pos_ + 1] == '"') {
-      escaped = true;
-      ++pos_;
-    } else if (c == '"') {
-      break;
-    } else if (c == '\n') {
-      ++line_;
-      line_start_ = pos_ + 1;
-    }
-  }
-  field.text = text_.substr(begin, pos_ - begin);
-  if (escaped) {
-    std::string& s = unquoted_.emplace_back();
-    for (std::size_t i = 0; i < field.text.size(); ++i) {
-      s += field.text[i];
-      if (field.text[i] == '"') ++i;  // the second of a doubled quote
-    }
-    field.text = s;
-  }
-  ++pos_;  // the closing quote
-  while (pos_ < text_.size() && IsBlank(text_[pos_])) ++pos_;
-  if (pos_ < text_.size() && text_[pos_] != delimiter_ && text_[pos_] != '\n' &&
-      text_[pos_] != '\r') {
-    Fail(line_, line_start_, pos_ - line_start_,
-         std::string("expected '") + (delimiter_ == '\t' ? "\\t" : std::string(1, delimiter_)) +
-             "' or the end of the line after a quoted field, found " +
-             FoundChar(LineAt(line_start_), pos_ - line_start_));
-  }
-}
-
-/// The next non-empty record; false at the end of the text.
-bool CsvReader::NextRecord(std::vector<Field>& record) {
-  record.clear();
-  unquoted_.clear();
-  bool after_delimiter = false;  // a delimiter at the very end still opens a field
-  while (pos_ < text_.size() || after_delimiter) {
-    after_delimiter = false;
-    Field& field = record.emplace_back();
-    field.line = line_;
-    field.line_start = line_start_;
-    std::size_t quote = pos_;  // blanks around a quoted field are forgiven
-    while (quote < text_.size() && IsBlank(text_[quote])) ++quote;
-    if (quote < text_.size() && text_[quote] == '"') {
-      pos_ = quote;
-      field.offset = pos_ + 1 - line_start_;
-      ReadQuoted(field);
-    } else {
-      field.offset = pos_ - line_start_;
-      const std::size_t start = pos_;
-      for (char c; pos_ < text_.size() && (c = text_[pos_]) != delimiter_ && c != '\n' && c != '\r';
-           ++pos_) {
-        if (c == '"') {
-          Fail(line_, line_start_, pos_ - line_start_,
-               "expected a field without '\"' (quote the whole field and double the quote), "
-               "found '\"'");
-        }
-      }
-      field.text = text_.substr(start, pos_ - start);
-    }
-    if (pos_ < text_.size() && text_[pos_] == delimiter_) {
-      ++pos_;
-      after_delimiter = true;
-      continue;
-    }
-    if (pos_ < text_.size() && text_[pos_] == '\r') ++pos_;
-    if (pos_ < text_.size()) {
-      ++pos_;  // the '\n'
-      ++line_;
-      line_start_ = pos_;
-    }
-    if (record.size() == 1 && Trimmed(record[0].text).empty()) {
-      record.clear();  // an empty line
-      continue;
-    }
-    return true;
-  }
-  return false;
-}
-
-/// Remembers the places of a value column from its first reading, or checks
-/// a later reading against them.
-void CsvReader::FixPlaces(std::size_t column, const Field& f, const std::string& raw,
-                          const ReadingInfo& info) {
-  PlannedColumn& c = plan_.columns[column];
-  if (!c.places) {
-    c.places = info.fraction_places;
-    first_line_[column] = f.line;
-  } else if (*c.places != info.fraction_places) {
-    std::size_t lead = 0;
-    Trimmed(f.text, &lead);
-    const std::string expected =
-        first_line_[column] > 0
-            ? PlacesWords(*c.places) + " like the first reading of column '" + c.name + "' (line " +
-                  std::to_string(first_line_[column]) + ")"
-            : "a reading with " + PlacesWords(*c.places) + " in column '" + c.name + "'";
-    Fail(f, lead,
-         "expected " + expected + ", found " + QuotedText(raw) + " (" +
-             PlacesWords(info.fraction_places) + ")");
-  }
-}
-
-Cell CsvReader::ReadCell(const std::vector<Field>& record, std::size_t column) {
-  const PlannedColumn& c = plan_.columns[column];
-  if (c.sources.size() > 1) return JoinedCell(record, column);
-  const Field& f = record[c.sources[0]];
-  std::size_t lead = 0;
-  const std::string_view text = Trimmed(f.text, &lead);
-  Cell cell;
-  cell.raw = text.empty() ? std::string("_") : std::string(text);
-  cell.line = f.line;
-  cell.column = ColumnOf(f, lead);
-  const bool argument = column == 0;
-  const int places = c.places.value_or(-1);
-  // Sheets often drop a whole 0 before the semicolon (`;4,10`, `-;9`): the
-  // reading is parsed with the 0 restored; the cell keeps what the sheet shows.
-  const std::size_t sign = !text.empty() && (text[0] == '-' || text[0] == '+') ? 1 : 0;
-  const bool dropped = text.size() > sign && text[sign] == ';';
-  std::string reading = cell.raw;
-  if (dropped) reading.insert(sign, "0");
-  ReadingInfo info;
-  try {
-    info = argument ? transcription::ParseArgumentReading(reading, places, 0)
-                    : transcription::ParseReading(reading, places, 0);
-  } catch (const LineError& e) {
-    Fail(f, lead + (dropped && e.offset > sign ? e.offset - 1 : e.offset), e.message);
-  }
-  const bool has_places = info.state == CellState::kRead || info.state == CellState::kPartial;
-  // An argument written with more places than declared is the same argument
-  // when the extra places are zero (`3;0` in a column of whole degrees);
-  // the cell keeps what the sheet shows.
-  const bool same_value = argument && info.state == CellState::kRead && info.value && c.places &&
-                          info.fraction_places > *c.places && info.value->places() > *c.places &&
-                          info.value->Rounded(*c.places, Rounding::kTruncate) == *info.value;
-  if (same_value) {
-    info.value = info.value->Rounded(*c.places, Rounding::kTruncate);
-    info.fraction_places = *c.places;
-  }
-  if (has_places && argument && c.places && info.fraction_places != *c.places) {
-    Fail(f, lead,
-         "expected a reading with " + PlacesWords(*c.places) + " in the argument '" + c.name +
-             "', found " + QuotedText(cell.raw) + " (" + PlacesWords(info.fraction_places) + ")");
-  }
-  if (has_places && argument) argument_places_ = std::max(argument_places_, info.fraction_places);
-  if (has_places && !argument) FixPlaces(column, f, cell.raw, info);
-  cell.places = c.places.value_or(info.fraction_places);
-  cell.state = info.state;
-  cell.value = info.value;
-  return cell;
-}
-
-/// The parts of a joined column as one reading in the blank-separated form
-/// (`12 4 10`), which keeps what the sheet shows.
-Cell CsvReader::JoinedCell(const std::vector<Field>& record, std::size_t column) {
-  const PlannedColumn& c = plan_.columns[column];
-  const Field& first = record[c.sources[0]];
-  std::size_t lead = 0;
-  Trimmed(first.text, &lead);
-  Cell cell;
-  cell.line = first.line;
-  cell.column = ColumnOf(first, lead);
-  cell.places = *c.places;
-  // A sheet that drops a whole 0 leaves the degree field empty (or a lone
-  // sign) beside filled places: that field reads 0.
-  bool later_filled = false;
-  for (std::size_t k = 1; k < c.sources.size(); ++k) {
-    std::size_t at = 0;
-    later_filled = later_filled || !Trimmed(record[c.sources[k]].text, &at).empty();
-  }
-  std::size_t empty = 0, unknown = 0;
-  for (std::size_t k = 0; k < c.sources.size(); ++k) {
-    const Field& f = record[c.sources[k]];
-    std::size_t at = 0;
-    std::string restored;
-    std::string_view part = Trimmed(f.text, &at);
-    if (k == 0 && later_filled && (part.empty() || part == "-" || part == "+")) {
-      restored = std::string(part) + "0";
-      part = restored;
-    }
-    empty += part.empty();
-    unknown += part == "?";
-    const bool sign = k == 0 && !part.empty() && (part[0] == '-' || part[0] == '+');
-    const std::string_view digits = part.substr(sign ? 1 : 0);
-    const bool place =
-        digits == "?" ||
-        (!digits.empty() && digits.find_first_not_of("0123456789") == std::string_view::npos);
-    if (!part.empty() && !place) {
-      Fail(f, at,
-           "expected a whole number or '?' in '" + plan_.header_names[c.sources[k]] +
-               "', one place of the joined column '" + c.name + "', found " + QuotedText(part));
-    }
-    if (!cell.raw.empty()) cell.raw += ' ';
-    cell.raw += part.empty() ? std::string_view("?") : part;
-  }
-  if (empty == c.sources.size()) cell.raw = "_";
-  if (unknown == c.sources.size()) cell.raw = "?";
-  if (empty > 0 && empty < c.sources.size()) {
-    for (std::size_t k = 0; k < c.sources.size(); ++k) {
-      const Field& f = record[c.sources[k]];
-      std::size_t at = 0;
-      if (k > 0 && Trimmed(f.text, &at).empty()) {
-        Fail(f, at,
-             "expected a whole number or '?' in every part of the joined column '" + c.name +
-                 "' (or all parts empty for a blank), found an empty part");
-      }
-    }
-  }
-  ReadingInfo info;
-  try {
-    info = transcription::ParseReading(cell.raw, *c.places, 0);
-  } catch (const LineError& e) {
-    Fail(first, lead, e.message + " (the joined column '" + c.name + "' reads '" + cell.raw + "')");
-  }
-  if (column == 0 && info.value) argument_places_ = std::max(argument_places_, *c.places);
-  cell.state = info.state;
-  cell.value = info.value;
-  return cell;
-}
-
-int CsvReader::ColumnOf(const Field& f, std::size_t lead) {
-  if (f.line_start != counter_start_) {
-    counter_start_ = f.line_start;
-    counter_ = ColumnCounter(LineAt(f.line_start));
-  }
-  return counter_.At(f.offset + lead);
-}
+}  // namespace
 
 void CsvReader::CheckFieldCount(const std::vector<Field>& record) const {
   const std::size_t n = plan_.fields;
@@ -537,11 +204,11 @@ std::string CsvReading(const Cell& cell) {
   return cell.value ? cell.value->ToString() : "?";
 }
 
-}  // namespace
+}  // namespace transcription::csv
 
 TranscriptionFile ReadCsv(std::string_view text, const std::string& file,
                           const CsvOptions& options) {
-  return CsvReader(text, file, options).Run();
+  return transcription::csv::CsvReader(text, file, options).Run();
 }
 
 TranscriptionFile ReadCsvFile(const std::string& path, const CsvOptions& options) {
@@ -554,8 +221,8 @@ std::string WriteCsv(const Transcription& table) {
   for (const auto& c : table.columns) out += "," + CsvField(c.name);
   out += '\n';
   for (const auto& row : table.rows) {
-    out += CsvField(CsvReading(row.argument));
-    for (const auto& cell : row.cells) out += "," + CsvField(CsvReading(cell));
+    out += CsvField(transcription::csv::CsvReading(row.argument));
+    for (const auto& cell : row.cells) out += "," + CsvField(transcription::csv::CsvReading(cell));
     out += '\n';
   }
   return out;

@@ -31,10 +31,6 @@ inline std::string ArgumentText(const Cell& a) {
   return out;
 }
 
-inline std::string PlacesWords(int n) {
-  return std::to_string(n) + (n == 1 ? " fractional place" : " fractional places");
-}
-
 /// Hash key of an exact value at a fixed number of places.
 struct UnitsHash {
   std::size_t operator()(Sexagesimal::Units u) const {

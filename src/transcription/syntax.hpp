@@ -14,6 +14,11 @@
 
 namespace apograph::transcription {
 
+/// "1 fractional place", "3 fractional places": for messages.
+inline std::string PlacesWords(int n) {
+  return std::to_string(n) + (n == 1 ? " fractional place" : " fractional places");
+}
+
 /// A blank of the trade's plain text: a space or a TAB (what separates
 /// fields and pads cells in transcriptions and sheets).
 inline bool IsBlank(char c) { return c == ' ' || c == '\t'; }
