@@ -178,22 +178,52 @@ bool SameOptimum(const std::vector<double>& x, const internal::SolveOutcome& s, 
   return true;
 }
 
+/// A table of positions' solution lies far outside its model's ranges (an
+/// eccentricity of -200 parts, a radius of -130): further from the range
+/// than its width (judgement: a negative eccentricity with the apogee
+/// turned half a circle is the same geometry, and rates a little outside
+/// the range occur; such figures are geometry no table was computed
+/// with). Angles are periodic and not judged.
+bool FarOutside(const model::Model& model, const internal::FitProblem& problem,
+                const std::vector<double>& x) {
+  for (std::size_t j = 0; j < problem.lows().size() && j < x.size(); ++j) {
+    const int m = problem.ModelIndex(static_cast<int>(j));
+    if (m < 0) continue;
+    const auto role = model.params()[static_cast<std::size_t>(m)].role;
+    if (role == model::ParamRole::kRadix || role == model::ParamRole::kApogee ||
+        role == model::ParamRole::kAnomalyRadix)
+      continue;
+    const double lo = problem.lows()[j], hi = problem.highs()[j], w = hi - lo;
+    if (x[j] < lo - w || x[j] > hi + w) return true;
+  }
+  return false;
+}
+
 /// The fast solver: every start brought near its optimum on a subsample,
 /// then refined on every entry unless it came to an optimum already refined
 /// (several grid starts usually share one basin).
 internal::SolveOutcome SolveDistinct(internal::FitProblem& problem,
                                      const std::vector<std::vector<double>>& starts,
-                                     const FitOptions& options) {
+                                     const FitOptions& options, const model::Model& model,
+                                     bool dedupe) {
   std::vector<internal::SolveOutcome> done;
   std::size_t best = 0;
   for (const auto& start : starts) {
     const std::vector<double> near =
         internal::Approach(problem, start, options.loss_scale, options.max_iterations);
+    // A table of positions' starts are few and read off the entries: each
+    // is refined (over a short arc the standard errors are large, and the
+    // basins 10 of them apart differ).
     bool seen = false;
-    for (const auto& d : done) seen = seen || SameOptimum(near, d, 10);
+    for (const auto& d : done) seen = seen || (dedupe && SameOptimum(near, d, 10));
     if (seen) continue;
     done.push_back(internal::Refine(problem, near, options.loss_scale, options.max_iterations));
-    if (done.back().cost < done[best].cost) best = done.size() - 1;
+    // Of a table of positions' solutions, those within the model's ranges
+    // first (see FarOutside).
+    const auto rank = [&](const internal::SolveOutcome& o) {
+      return std::make_pair(!dedupe && FarOutside(model, problem, o.x), o.cost);
+    };
+    if (rank(done.back()) < rank(done[best])) best = done.size() - 1;
   }
   if (done.empty()) return {};
   return std::move(done[best]);
@@ -364,9 +394,11 @@ FitResult Fit(const model::Model& model, const Transcription& table,
     return result;
   }
   const auto starts = Starts(model, problem, obs, options, x0);
-  internal::SolveOutcome best = options.solver == Solver::kCeres
-                                    ? SolveEach(problem, starts, options)
-                                    : SolveDistinct(problem, starts, options);
+  internal::SolveOutcome best =
+      options.solver == Solver::kCeres
+          ? SolveEach(problem, starts, options)
+          : SolveDistinct(problem, starts, options, model,
+                          model.traits().kind != model::ModelKind::kPosition);
   if (best.x.empty()) best.x = x0;
   double scale = 0;
   RefitInliers(model, table, obs, options, problem, best, scale, result.inliers);

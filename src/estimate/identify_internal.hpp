@@ -50,7 +50,9 @@ std::optional<Adoption> AdoptRoundValues(const Candidate& best, const Transcript
 /// computes with its own (a latitude adopted at 0 is a right ascension; a
 /// versed sine of radius -60 displaced by 60 is a cosine), the simpler
 /// candidate takes its place, adopted, with the other named as its
-/// equivalent.
+/// equivalent; so too when, refitted under the best's grid rounded either
+/// way, it reproduces as many entries exactly (a cosine displaced by 60
+/// less half a unit is a truncated versed sine).
 void PreferSimpler(std::vector<Candidate>& ranked, const Transcription& table,
                    const std::vector<Observation>& obs, const std::vector<CatalogEntry>* catalog,
                    const MeanMotionAnalysis* mean_motion);

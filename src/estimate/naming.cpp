@@ -13,8 +13,8 @@ namespace apograph::estimate::internal {
 
 namespace {
 
-/// Entries within one unit, as a share of the entries (at least one), that
-/// the simpler of two explanations computing the same values may lose
+/// Entries within one unit (or reproduced exactly), as a share of the
+/// entries (at least one), that the simpler of two explanations may lose
 /// (judgement: the share round_values.cpp lets an adopted value lose).
 constexpr double kSimplerAllowance = 0.03;
 
@@ -71,9 +71,37 @@ int RegistryIndex(const model::Model* m) {
   return it == all.end() ? static_cast<int>(all.size()) : static_cast<int>(it - all.begin());
 }
 
+/// How a table of years' arguments run: single years (the first positive
+/// argument is 1: 1, 2, 3 ..., the expanded years), groups (every argument
+/// a multiple of the first positive one, at least 2: 20, 40, 60 ..., the
+/// collected years), or neither.
+std::string YearPattern(const Transcription& table) {
+  std::vector<double> args;
+  for (std::size_t r = 0; r < table.rows.size(); ++r) {
+    if (auto a = model::RowArgument(table, r); a && *a > 0) args.push_back(*a);
+  }
+  if (args.size() < 3) return {};
+  const double first = *std::min_element(args.begin(), args.end());
+  if (first == 1) return "single";
+  if (first < 2 || first != std::floor(first)) return {};
+  for (double a : args) {
+    if (std::fmod(a, first) != 0) return {};
+  }
+  return "groups";
+}
+
+/// The argument pattern each model of a table of years is defined for (the
+/// models' conventions: single years / collected years in groups).
+std::string PatternOf(const model::Model& m) {
+  if (m.name() == "mean-motion-years") return "single";
+  if (m.name() == "mean-motion-collected") return "groups";
+  return {};
+}
+
 /// What speaks for one member of a group of equivalents.
 struct Evidence {
   const Candidate* c = nullptr;
+  std::string arguments;  ///< the arguments run as the model's convention says ("single", "groups")
   std::string kind_word;  ///< the word of the table's kind that names it
   bool in_range = true;   ///< every free parameter within its historical range
   std::string attested;   ///< "r = 5;15 (2nd-century ...)" near an estimate
@@ -93,6 +121,12 @@ Evidence Weigh(const Candidate& c, const Transcription& table,
       e.kind_word = w;
       break;
     }
+  }
+  // A table of years: the word names both models of years, the arguments
+  // tell single from collected years.
+  if (const std::string own = PatternOf(*c.model); !own.empty() && HasWord(kind, "year")) {
+    if (e.kind_word.empty()) e.kind_word = "year";
+    if (own == YearPattern(table)) e.arguments = own;
   }
   const auto& specs = c.model->params();
   e.free = c.fit.free_parameters;  // a displacement constant counts (a displaced form is richer)
@@ -117,13 +151,15 @@ Evidence Weigh(const Candidate& c, const Transcription& table,
   return e;
 }
 
-/// The member the evidence names: the table's kind, then the historical
+/// The member the evidence names: the table's kind, the arguments as the
+/// model's convention has them (single or collected years), then the historical
 /// ranges, then an attested value, then the simpler model, then the more
 /// specific model (narrower historical ranges that still hold the
 /// estimates: a moon's epicycle rather than any epicycle; judgement), then
 /// the registry's order.
 bool Before(const Evidence& a, const Evidence& b) {
   if (a.kind_word.empty() != b.kind_word.empty()) return !a.kind_word.empty();
+  if (a.arguments.empty() != b.arguments.empty()) return !a.arguments.empty();
   if (a.in_range != b.in_range) return a.in_range;
   if (a.attested.empty() != b.attested.empty()) return !a.attested.empty();
   if (a.free != b.free) return a.free < b.free;
@@ -140,6 +176,10 @@ std::string NamingText(const Evidence& shown, const std::vector<Evidence>& other
   const Evidence& rival = others.front();
   if (!shown.kind_word.empty() && rival.kind_word.empty()) {
     s += "the table's kind, title or argument says \"" + shown.kind_word + "\"";
+  } else if (!shown.arguments.empty() && rival.arguments.empty()) {
+    s += shown.arguments == "single"
+             ? "the arguments are single years (1, 2, 3 ...)"
+             : "the arguments are collected years, multiples of the first (20, 40, 60 ...)";
   } else if (shown.in_range && !rival.in_range) {
     s += "its estimates lie in its historical ranges, " + rival.c->model->name() + "'s do not";
   } else if (!shown.attested.empty() && rival.attested.empty()) {
@@ -272,6 +312,34 @@ Candidate UnderPractice(const Candidate& c, const model::Practice& practice,
   return MakeCandidate(*c.model, Fit(*c.model, table, obs, fo), practice.grid > 0);
 }
 
+Rounding Other(Rounding r) {
+  return r == Rounding::kNearest ? Rounding::kTruncate : Rounding::kNearest;
+}
+
+/// `c` under `practice`'s grid, rounded as it and the other way (a
+/// displacement of half a unit is truncation read as rounding), its round
+/// values adopted: the one reproducing more entries exactly, and that one
+/// with its adopted fit as its fit.
+std::pair<Candidate, Candidate> SimplerUnder(const Candidate& c, const model::Practice& practice,
+                                             const Transcription& table,
+                                             const std::vector<Observation>& obs,
+                                             const std::vector<CatalogEntry>* catalog,
+                                             const MeanMotionAnalysis* mean_motion) {
+  Candidate simpler, adopted;
+  for (Rounding rounding : {practice.rounding, Other(practice.rounding)}) {
+    model::Practice p = practice;
+    p.rounding = rounding;
+    Candidate one = UnderPractice(c, p, table, obs);
+    one.adoption = AdoptRoundValues(one, table, obs, catalog, mean_motion);
+    Candidate final_one = one;
+    final_one.fit = one.Final();
+    if (simpler.model && final_one.fit.exact <= adopted.fit.exact) continue;
+    simpler = std::move(one);
+    adopted = std::move(final_one);
+  }
+  return {std::move(simpler), std::move(adopted)};
+}
+
 }  // namespace
 
 void PreferSimpler(std::vector<Candidate>& ranked, const Transcription& table,
@@ -286,22 +354,26 @@ void PreferSimpler(std::vector<Candidate>& ranked, const Transcription& table,
     if (c.model == front.model || c.fit.free_parameters >= front.fit.free_parameters ||
         !Implausible(c).empty())
       continue;
-    Candidate simpler = UnderPractice(c, front.fit.practice, table, obs);
-    simpler.adoption = AdoptRoundValues(simpler, table, obs, catalog, mean_motion);
-    Candidate adopted = simpler;
-    adopted.fit = simpler.Final();
+    auto [simpler, adopted] = SimplerUnder(c, front.fit.practice, table, obs, catalog, mean_motion);
     // As many entries within one unit, but for an entry or two that only
     // the richer model's freedom reaches (kSimplerAllowance).
     const int allowance = std::max(
         1, static_cast<int>(std::ceil(kSimplerAllowance * static_cast<double>(shown.fit.n))));
-    if (adopted.fit.within1 < shown.fit.within1 - allowance ||
-        !NearlySameValues(shown, adopted, allowance))
-      continue;
-    simpler.naming = "named " + c.model->name() + " rather than " + front.model->name() +
-                     " (with their round values adopted they compute the same value at every "
-                     "entry they explain): the simpler model (" +
-                     std::to_string(c.fit.free_parameters) + " free parameters against " +
-                     std::to_string(front.fit.free_parameters) + ") explains as much.";
+    // Or, computing other values by a hair (a displacement fitted a little
+    // off the radius moves the rounding of some entries), it reproduces as
+    // many entries exactly, but for the same allowance.
+    if (adopted.fit.within1 < shown.fit.within1 - allowance) continue;
+    const bool same = NearlySameValues(shown, adopted, allowance);
+    if (!same && adopted.fit.exact < shown.fit.exact - allowance) continue;
+    simpler.naming =
+        "named " + c.model->name() + " rather than " + front.model->name() +
+        (same ? " (with their round values adopted they compute the same value at every entry "
+                "they explain)"
+              : " (with their round values adopted: " + std::to_string(adopted.fit.exact) +
+                    " entries exact against " + std::to_string(shown.fit.exact) + ")") +
+        ": the simpler model (" + std::to_string(c.fit.free_parameters) +
+        " free parameters against " + std::to_string(front.fit.free_parameters) +
+        ") explains as much.";
     simpler.equivalents.push_back({front.model, shown.fit.params});
     for (const auto& e : front.equivalents) simpler.equivalents.push_back(e);
     ranked.erase(ranked.begin() + static_cast<std::ptrdiff_t>(j));

@@ -9,7 +9,8 @@
 // beyond one unit than the fit, and loses at most a few entries reproduced
 // exactly (kExactAllowance), is adopted (of equally simple ones, the one
 // reproducing most entries exactly), the other parameters refitted under
-// it.
+// it. Two parameters of a model's own that the entries determine together
+// (an obliquity and a latitude) are tried together (AdoptJointly).
 #include <algorithm>
 #include <cmath>
 #include <map>
@@ -153,6 +154,95 @@ std::optional<std::pair<Trial, FitResult>> FirstAcceptable(
   return chosen;
 }
 
+/// Round values along the ridge of two correlated parameters: at 0 and 1
+/// places, every value within kRidgeSigmas standard errors of the estimate
+/// (at most kRidgeValues of each, nearest first), beyond the two beside it.
+/// Judgement: an obliquity fitted at 23;57,52 together with a latitude a
+/// little off may come from an author's 23;30, which the roundings beside
+/// the estimate never reach.
+constexpr double kRidgeSigmas = 3;
+constexpr int kRidgeValues = 12;
+
+void AddRidge(std::vector<Trial>& out, double estimate, double se) {
+  if (!(se > 0) || !std::isfinite(se)) return;
+  for (int p = 0; p <= 1; ++p) {
+    const double unit = std::pow(60.0, -p);
+    const double lo = std::ceil((estimate - kRidgeSigmas * se) / unit);
+    const double hi = std::floor((estimate + kRidgeSigmas * se) / unit);
+    std::vector<double> values;
+    for (double k = lo; k <= hi && hi - lo < 1e5; ++k) values.push_back(k * unit);
+    std::sort(values.begin(), values.end(), [&](double a, double b) {
+      return std::fabs(a - estimate) < std::fabs(b - estimate);
+    });
+    const std::string source = "round, " + std::to_string(p) + (p == 1 ? " place" : " places");
+    int added = 0;
+    for (double x : values) {
+      if (added >= kRidgeValues) break;
+      bool seen = false;
+      for (const auto& t : out) seen = seen || std::fabs(t.value - x) <= 1e-12 * std::fabs(x);
+      if (!seen) out.push_back({x, p, source, 100 + p}), ++added;
+    }
+  }
+}
+
+/// Two parameters adopted together (see AdoptJointly).
+struct Pair {
+  Trial first, second;
+  FitResult fit;
+  std::size_t first_index = 0, second_index = 0;  ///< in the model's parameters
+  /// The less simple of the two first, then both (attested before round,
+  /// fewer places first).
+  std::pair<int, int> Simplicity() const {
+    return {std::max(first.group, second.group), first.group + second.group};
+  }
+};
+
+/// For a model of two free parameters of its own (an obliquity and a
+/// latitude), which the entries determine together more than apart: each
+/// value of the first (attested, roundings, round values along the ridge)
+/// with the second refitted, then each value of the second beside that;
+/// of the pairs that keep the fit's entries (as FirstAcceptable), the
+/// simplest (attested before round, fewer places), then the one that
+/// reproduces most entries exactly. One at a time, the first adopted fixes
+/// the second off its round value.
+std::optional<Pair> AdoptJointly(const Candidate& best, const Transcription& table,
+                                 const std::vector<Observation>& obs, int places,
+                                 const std::vector<CatalogEntry>* catalog) {
+  std::vector<std::size_t> free;
+  const auto& specs = best.model->params();
+  for (std::size_t j = 0; j < specs.size() && j < best.fit.params.size(); ++j) {
+    const auto& p = best.fit.params[j];
+    if (p.fixed) continue;
+    if (specs[j].role != model::ParamRole::kOther || !p.separable) return std::nullopt;
+    free.push_back(j);
+  }
+  if (free.size() != 2) return std::nullopt;
+  const auto& a = best.fit.params[free[0]];
+  const auto& b = best.fit.params[free[1]];
+  std::vector<Trial> firsts =
+      Trials(best, a.name, a.value, &specs[free[0]], places, catalog, nullptr);
+  AddRidge(firsts, a.value, a.stderr_);
+  const int allowance =
+      std::max(1, static_cast<int>(std::ceil(kExactAllowance * static_cast<double>(best.fit.n))));
+  std::optional<Pair> chosen;
+  for (const Trial& ta : firsts) {
+    std::map<std::string, double> fixed = {{a.name, ta.value}};
+    const FitResult refit = FitHolding(best, table, obs, best.fit, fixed, std::nullopt);
+    const double bv = refit.Value(b.name);
+    for (const Trial& tb : Trials(best, b.name, bv, &specs[free[1]], places, catalog, nullptr)) {
+      Pair pair{ta, tb, {}, free[0], free[1]};
+      if (chosen && pair.Simplicity() > chosen->Simplicity()) continue;
+      fixed[b.name] = tb.value;
+      pair.fit = FitHolding(best, table, obs, refit, fixed, std::nullopt);
+      if (pair.fit.flagged > best.fit.flagged || pair.fit.exact < best.fit.exact - allowance)
+        continue;
+      if (!chosen || pair.Simplicity() < chosen->Simplicity() || pair.fit.exact > chosen->fit.exact)
+        chosen = std::move(pair);
+    }
+  }
+  return chosen;
+}
+
 std::string AdoptionText(const std::vector<AdoptedValue>& values, const FitResult& fit,
                          const FitResult& adopted) {
   std::string s;
@@ -194,9 +284,19 @@ std::optional<Adoption> AdoptRoundValues(const Candidate& best, const Transcript
     current = std::move(found->second);
     a.values.push_back({name, found->first.value, estimate, se, found->first.source});
   };
-  for (std::size_t j = 0; j < specs.size() && j < best.fit.params.size(); ++j) {
-    const auto& p = best.fit.params[j];
-    if (!p.fixed) consider(p.name, p.value, p.stderr_, &specs[j]);
+  if (auto pair = AdoptJointly(best, table, obs, places, catalog)) {
+    for (const auto& [t, j] :
+         {std::pair{pair->first, pair->first_index}, std::pair{pair->second, pair->second_index}}) {
+      const auto& p = best.fit.params[j];
+      fixed[p.name] = t.value;
+      a.values.push_back({p.name, t.value, p.value, p.stderr_, t.source});
+    }
+    current = std::move(pair->fit);
+  } else {
+    for (std::size_t j = 0; j < specs.size() && j < best.fit.params.size(); ++j) {
+      const auto& p = best.fit.params[j];
+      if (!p.fixed) consider(p.name, p.value, p.stderr_, &specs[j]);
+    }
   }
   if (best.fit.practice.displacement != 0)
     consider("displacement", best.fit.practice.displacement, best.fit.displacement_stderr, nullptr);

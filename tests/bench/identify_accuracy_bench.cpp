@@ -1,7 +1,8 @@
 // Accuracy of identification and estimation on the shared generator
 // (tests/synth), built with -DAPOGRAPH_BENCH=ON:
 //   ./build-bench/identify_accuracy_bench [draws=300] [first_seed=1] [max_rate=0.2]
-// (BENCH_VERBOSE=1: every column's reference; BENCH_SEEDS=a,b: those draws only)
+// (BENCH_VERBOSE=1: every column's reference, =2 with the generator's key
+// below; BENCH_SEEDS=a,b: those draws only)
 //
 // Each draw: an author's table of one family (synth::DrawTable, families in
 // turn, every other option at the generator's defaults: round, attested and
@@ -249,6 +250,12 @@ int main(int argc, char** argv) {
                       static_cast<unsigned long long>(seed), RowName(col).c_str(), col.name.c_str(),
                       x.description.c_str(), x.how.c_str(), x.explains,
                       e.empty() ? "-" : e.front().model.c_str(), one.identified);
+          if (std::getenv("BENCH_VERBOSE")[0] == '2' && !e.empty()) {
+            std::printf("  key:");
+            for (const auto& [name, v] : e.front().params)
+              std::printf(" %s = %.8g", name.c_str(), v);
+            std::printf(" (%zu rows)\n", w.rows.size());
+          }
         }
       }
     }
