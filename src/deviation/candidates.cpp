@@ -57,6 +57,28 @@ std::vector<Candidate> TranspositionCandidates(const CellContext& c) {
     cand.likelihood = c.SlipLikelihood(share, 1.0 / copy.d.size(), *fit);
     out.push_back(std::move(cand));
   }
+  // Neighbouring digits of a whole part of three digits or more swapped
+  // (385 for 358, 4337 for 3437): a positional script's slip.
+  if (c.script->writing() == Writing::kPositional && !copy.d.empty() && copy.d[0] >= 100) {
+    const std::string digits = std::to_string(copy.d[0]);
+    std::vector<int> fractions(copy.d.begin() + 1, copy.d.end());
+    for (std::size_t i = 0; i + 1 < digits.size(); ++i) {
+      if (digits[i] == digits[i + 1] || (i == 0 && digits[1] == '0')) continue;
+      std::string swapped = digits;
+      std::swap(swapped[i], swapped[i + 1]);
+      const auto reading = Sexagesimal::FromParts(copy.negative, std::stoll(swapped), fractions);
+      const auto fit = c.Fit(reading);
+      if (!fit) continue;
+      Candidate cand;
+      cand.explanation.cls = SlipClass::kTransposition;
+      cand.explanation.emendation = reading;
+      cand.explanation.evidence = PlaceName(0, c.unit) + ": the digits " + swapped.substr(i, 2) +
+                                  " of " + swapped + " transposed to " + digits + "; " +
+                                  c.ModelClause(reading);
+      cand.likelihood = c.SlipLikelihood(kShareTransposition, 1.0 / copy.d.size(), *fit);
+      out.push_back(std::move(cand));
+    }
+  }
   // Two neighbouring places swapped (0;13,41 for 0;41,13), in any script.
   for (std::size_t p = 0; p + 1 < copy.d.size(); ++p) {
     if (copy.d[p] == copy.d[p + 1]) continue;

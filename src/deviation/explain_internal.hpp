@@ -51,8 +51,11 @@ struct CellContext {
   /// copy's and lies within the author's departure of the model: the
   /// original most likely had it.
   std::optional<Sexagesimal> tradition_reading;
-  double exact = NAN;             // NaN when not given
-  double diff = 0;                // tabulated - computed, units
+  double exact = NAN;  // NaN when not given
+  double diff = 0;     // tabulated - computed, units
+  /// The same in units of the last place the reading or the model uses (see
+  /// CoarseDiff): the size of the author's departure.
+  double author_diff = 0;
   double slip_rate = 0;           // the copy's share of entries beyond the author's departure
   int symbols = 1;                // symbols written in the copy's entry
   bool shared_neighbour = false;  // a neighbour departs the same way, within the author's departure
@@ -126,6 +129,12 @@ struct ColumnContext {
 };
 ColumnContext MeasureColumn(const Transcription& table, const ColumnValues& values,
                             const ExplainOptions& options, int places);
+/// `reading` - `computed` in units of the last place either uses (its last
+/// place that is not 0; the model's at all its places), when that is above
+/// `places`: a column written to one more place than it was computed to
+/// (a difference of entries to seconds written "0;14,54,0") departs by
+/// seconds, not by 60 thirds. Else in units of `places`.
+double CoarseDiff(const Sexagesimal& reading, const Sexagesimal& computed, int places);
 /// Units beyond the exact landing: 0 within the tolerance, 1 for one more unit...
 int UnitsOff(double diff, double tolerance);
 

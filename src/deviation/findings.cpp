@@ -50,7 +50,20 @@ AuthorProfile MeasureAuthor(const ColumnValues& values, const ExplainOptions& op
 
 std::string UnitsWord(double units) { return std::fabs(units) == 1 ? " unit" : " units"; }
 
+/// Fractional places up to the last that is not 0.
+int UsedPlaces(const Sexagesimal& v) {
+  const auto digits = v.FractionDigits();
+  int used = static_cast<int>(digits.size());
+  while (used > 0 && digits[static_cast<std::size_t>(used - 1)] == 0) --used;
+  return used;
+}
+
 }  // namespace
+
+double CoarseDiff(const Sexagesimal& reading, const Sexagesimal& computed, int places) {
+  const int used = std::max(UsedPlaces(AtPlaces(reading, places)), UsedPlaces(computed));
+  return DiffUnits(reading, computed, std::min(used, places));
+}
 
 std::string Signed(double units) {
   char buf[32];
@@ -88,16 +101,25 @@ ColumnContext MeasureColumn(const Transcription& table, const ColumnValues& valu
     // Shared: by every other witness but perhaps one in four (a corrector,
     // or a slip of its own there); judgement.
     out.shared[r] = t && t->same > 0 && 4 * t->same >= 3 * t->witnesses;
-    out.contradicted[r] =
-        t && t->consensus && t->witnesses >= 2 && t->agree == t->witnesses && t->same == 0;
+    // A modern edition may have recomputed the column: where every other
+    // witness reads otherwise, it may be the one that reads the model's value
+    // (the others sharing an ancestor's slip), so it is not "contradicted".
+    out.contradicted[r] = t && t->consensus && t->witnesses >= 2 && t->agree == t->witnesses &&
+                          t->same == 0 && table.witness.Kind() != WitnessKind::kModernEdition;
     const double d = out.diffs.diff[r];
     if (std::isfinite(d)) {
       ++compared;
       const int k = UnitsOff(d, options.tolerance);
       // A departure every other witness reads too stays the author's up to
-      // computational_units, whatever the column's habit.
+      // computational_units, whatever the column's habit (counted in the
+      // last place the reading or the model uses).
+      const Cell& read = CellAt(table, r, values.column);
+      const int coarse =
+          out.shared[r]
+              ? UnitsOff(CoarseDiff(*read.value, *values.computed[r], places), options.tolerance)
+              : k;
       out.deviant[r] = k > out.author.typical &&
-                       !(out.shared[r] && k <= std::floor(options.computational_units));
+                       !(out.shared[r] && coarse <= std::floor(options.computational_units));
       deviant += out.deviant[r];
     }
     if (!t || !t->consensus || r >= values.computed.size() || !values.computed[r]) continue;
@@ -144,6 +166,7 @@ CellContext MakeContext(const Transcription& table, const ColumnValues& values,
   c.tradition_reading = column.tradition_reading[row];
   if (row < values.exact.size()) c.exact = values.exact[row];
   c.diff = column.diffs.diff[row];
+  c.author_diff = CoarseDiff(c.tabulated, c.computed, places);
   c.slip_rate = column.slip_rate;
   c.deviant = &column.deviant;
   c.shared = column.shared[row];
@@ -203,7 +226,7 @@ std::string TraditionWords(const TraditionCell& t) {
 }  // namespace
 
 std::optional<Candidate> AuthorCandidate(const CellContext& c) {
-  const int k = UnitsOff(c.diff, c.options->tolerance);
+  const int k = UnitsOff(c.author_diff, c.options->tolerance);
   const bool size =
       k <= c.author->typical || (c.shared && k <= std::floor(c.options->computational_units));
   if (k < 1 || !size) return std::nullopt;
@@ -222,7 +245,7 @@ std::optional<Candidate> AuthorCandidate(const CellContext& c) {
   Candidate out;
   Explanation& e = out.explanation;
   e.cls = SlipClass::kComputational;
-  const std::string what = "a departure of " + SignedUnits(c.diff);
+  const std::string what = "a departure of " + SignedUnits(c.author_diff);
   const std::string model = "the model gives " + ModelText(c.computed, c.exact, c.places);
   if (shared) {
     e.evidence = what + ", read by " + TraditionWords(*t) +

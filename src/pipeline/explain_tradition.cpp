@@ -23,6 +23,7 @@ struct ColumnRun {
   std::size_t witness = 0;
   ColumnReference ref;  ///< column index moved to the witness
   int places = 0;
+  int written = 0;  ///< the places its column is written to
   deviation::ColumnValues values;
   std::map<std::string, std::size_t> rows;  ///< argument in use -> row
   std::vector<deviation::Finding> found;
@@ -45,6 +46,7 @@ ColumnRun MakeRun(const std::vector<const Transcription*>& ws, std::size_t w,
   run.places = ref.practice.places.value_or(t.columns[static_cast<std::size_t>(ref.column)].places);
   const auto re = ref.Recompute(t);
   run.values = {ref.column, re.computed, re.exact, {}};
+  run.written = t.columns[static_cast<std::size_t>(ref.column)].places;
   for (std::size_t r = 0; r < t.rows.size(); ++r) {
     if (auto a = t.ArgumentInUse(r)) run.rows.emplace(a->ToString(), r);
   }
@@ -86,17 +88,31 @@ void UseTraditionsModel(ColumnRun& run, const std::vector<ColumnRun>& all,
   }
 }
 
+/// Another witness's reading `v`, written to fewer places than this one's
+/// (`places`), as a reading at `places`: one that agrees at the places they
+/// share with this copy (or with the model) reads it; extended by zeros it
+/// would "contradict" every last place.
+Sexagesimal CommonReading(const Sexagesimal& v, const std::optional<Sexagesimal>& own,
+                          const std::optional<Sexagesimal>& model, bool same, bool as_model,
+                          int places) {
+  if (same) return *own;
+  if (as_model) return *model;
+  return AtPlaces(v, places);
+}
+
 /// What the runs of the same column in the other witnesses read at each row
 /// of `run`.
 void FillTradition(ColumnRun& run, const std::vector<ColumnRun>& all,
                    const std::vector<const Transcription*>& ws) {
   const Transcription& t = *ws[run.witness];
   run.values.tradition.assign(t.rows.size(), {});
+  // At the places this witness writes, as its column is explained.
+  const int places = run.written;
   for (const auto& [arg, r] : run.rows) {
-    const auto own = ReadValue(t, r, run.ref.column, run.places);
+    const auto own = ReadValue(t, r, run.ref.column, places);
     const auto& computed = run.values.computed[r];
     const std::optional<Sexagesimal> model =
-        computed ? std::optional(AtPlaces(*computed, run.places)) : std::nullopt;
+        computed ? std::optional(AtPlaces(*computed, places)) : std::nullopt;
     deviation::TraditionCell cell;
     std::map<std::string, std::pair<int, Sexagesimal>> tally;
     for (const auto& other : all) {
@@ -106,12 +122,21 @@ void FillTradition(ColumnRun& run, const std::vector<ColumnRun>& all,
       // A modern edition is no evidence of the author's text: it may have
       // recomputed the table (and not with the reference's model).
       if (ws[other.witness]->witness.Kind() == WitnessKind::kModernEdition) continue;
-      const auto v = ReadValue(*ws[other.witness], it->second, other.ref.column, run.places);
+      // Witnesses are compared at the places they share. One that writes
+      // fewer places says nothing of the places it lacks: where this copy
+      // and the model differ only there, it is left out.
+      const int common = std::min(places, other.written);
+      if (common < places && own && model && AtPlaces(*own, common) == AtPlaces(*model, common))
+        continue;
+      const auto v = ReadValue(*ws[other.witness], it->second, other.ref.column, common);
       if (!v) continue;
       ++cell.witnesses;
-      cell.same += own && *v == *own;
-      cell.model += model && *v == *model;
-      auto& entry = tally.try_emplace(v->ToString(), 0, *v).first->second;
+      const bool same = own && AtPlaces(*own, common) == *v;
+      const bool as_model = model && AtPlaces(*model, common) == *v;
+      cell.same += same;
+      cell.model += as_model;
+      const Sexagesimal reading = CommonReading(*v, own, model, same, as_model, places);
+      auto& entry = tally.try_emplace(reading.ToString(), 0, reading).first->second;
       ++entry.first;
     }
     for (const auto& [text, entry] : tally) {

@@ -151,3 +151,137 @@ TEST_CASE("a one-unit value every witness shares is the author's in every witnes
     CHECK(own_slip);
   }
 }
+
+namespace {
+
+/// `s` rewritten to `places` places (its readings extended with zeros, the
+/// model computed to those places): a column written to more places than it
+/// was computed to.
+Synthetic Widened(const Synthetic& s, int places) {
+  Synthetic out = s;
+  out.table.columns[0].places = places;
+  for (std::size_t r = 0; r < out.table.rows.size(); ++r) {
+    out.table.rows[r].cells[0].places = places;
+    out.Set(r, s.table.rows[r].cells[0].value->Extended(places).ToString());
+    out.values.computed[r] = Sexagesimal::FromDouble(s.values.exact[r], places);
+  }
+  return out;
+}
+
+std::vector<Transcription> Copies(const Synthetic& s, int count) {
+  std::vector<Transcription> out;
+  for (int w = 0; w < count; ++w) {
+    Synthetic copy = s;
+    copy.table.witness.siglum = std::string(1, static_cast<char>('A' + w));
+    copy.Set(100 + 10 * static_cast<std::size_t>(w), "_");  // a slip of its own
+    out.push_back(copy.table);
+  }
+  return out;
+}
+
+std::vector<pipeline::ColumnReference> SolarReference(const std::vector<Transcription>& ws) {
+  pipeline::ReferenceRequest given;
+  given.model = "solar-eccentric";
+  given.params = {{"e", 2.5}};
+  return pipeline::ResolveReferences(ws, given);
+}
+
+/// Rows of a witness's findings that propose a copying slip.
+std::vector<std::size_t> SlipRows(const pipeline::WitnessFindings& w) {
+  std::vector<std::size_t> out;
+  for (const auto& f : w.findings) {
+    if (!IsCopyingSlip(f.best().cls) || f.best().cls == SlipClass::kBlank) continue;
+    for (const auto& c : f.cells) out.push_back(c.row);
+  }
+  return out;
+}
+
+}  // namespace
+
+TEST_CASE("a column written to one more place than computed departs by its last used place") {
+  // A difference column computed to seconds from entries to seconds, written
+  // with thirds ("0;2,7,0"): a +1/-1 pair of seconds on neighbouring rows
+  // that every other witness reads too (the author differenced otherwise
+  // there) is one second off the model, the author's, not 60 thirds and a
+  // copyist's confusion.
+  const Synthetic base = MakeTable(testing::SolarEquation, 1, 1, 180, 2);
+  Synthetic s = Widened(base, 3);
+  for (std::size_t r = 0; r < s.table.rows.size(); ++r)
+    s.values.computed[r] = base.values.computed[r]->Extended(3);  // exact to seconds
+  const std::size_t row = 70;
+  s.Set(row, Moved(base, row, 1, 2).Extended(3).ToString());
+  s.Set(row + 1, Moved(base, row + 1, -1, 2).Extended(3).ToString());
+  s.values.tradition.assign(s.table.rows.size(), {});
+  for (std::size_t r = 0; r < s.table.rows.size(); ++r) {
+    TraditionCell& t = s.values.tradition[r];
+    t.witnesses = t.same = t.agree = 3;
+    t.consensus = s.table.rows[r].cells[0].value;
+    t.model = r == row || r == row + 1 ? 0 : 3;
+  }
+  // Another witness writes Roman numerals, whose I added or dropped reaches
+  // any one-unit change.
+  const NumeralScript own = FindNumeralScript("hindu-arabic", kDir);
+  const NumeralScript roman = FindNumeralScript("roman", kDir);
+  const auto findings = ExplainColumn(s.table, s.values, own, {}, {&roman});
+  std::string notes;
+  for (const auto& f : findings) notes += f.Note("A") + "\n";
+  INFO(notes);
+  for (std::size_t r : {row, row + 1}) {
+    const Finding* f = At(findings, r);
+    REQUIRE(f != nullptr);
+    CHECK(f->best().cls == SlipClass::kComputational);
+    CHECK_FALSE(f->cells.front().emendation.has_value());
+  }
+  CHECK(findings.size() <= 2);
+}
+
+TEST_CASE("a print with one more place than the other witnesses is compared at their places") {
+  // A print gives the equation to thirds, one third above the model over
+  // rows 30-69 (the reference is computed to thirds, the print's places);
+  // four manuscripts read it to seconds. They say nothing of thirds: extended
+  // by a zero place they would "contradict" each of the print's entries as
+  // one constant error.
+  const Synthetic base = MakeTable(testing::SolarEquation, 1, 1, 180, 2);
+  Synthetic print = Widened(base, 3);
+  print.table.witness.siglum = "P";
+  print.table.witness.kind = "print";
+  print.table.witness.script = "printed";
+  for (std::size_t r = 0; r < print.table.rows.size(); ++r) {
+    const Sexagesimal model = *print.values.computed[r];
+    // Not where one third more would change the reading to seconds.
+    const int up = r >= 30 && r < 70 && model.FractionDigits()[2] != 29 ? 1 : 0;
+    print.Set(r, (model + Sexagesimal::FromUnits(up, 3)).ToString());
+  }
+  std::vector<Transcription> witnesses = {print.table};
+  for (const auto& w : Copies(base, 4)) witnesses.push_back(w);
+  const auto found = pipeline::ExplainTradition(witnesses, SolarReference(witnesses), kDir);
+  REQUIRE(found.size() == 5);
+  const auto& p = found.front();
+  CHECK_FALSE(p.Refused("equation"));
+  std::string notes;
+  for (const auto& f : p.findings) notes += f.Note("P") + "\n";
+  INFO(notes);
+  CHECK(SlipRows(p).empty());
+}
+
+TEST_CASE("neighbouring digits of a whole part of three digits transposed") {
+  // A chord table to minutes: 1xx read with its last two digits swapped.
+  Synthetic s = MakeTable(testing::Chord, 1, 1, 180, 1);
+  std::size_t row = 0;
+  for (std::size_t r = 120; r < 180 && !row; ++r) {
+    const auto whole = s.values.computed[r]->IntegerPart();
+    if (whole >= 100 && whole % 10 != (whole / 10) % 10 && (whole / 10) % 10 != 0) row = r;
+  }
+  REQUIRE(row != 0);
+  const Sexagesimal original = *s.values.computed[row];
+  const std::string digits = std::to_string(original.IntegerPart());
+  const std::string swapped = std::string{digits[0], digits[2], digits[1]};
+  s.Set(row, swapped + ";" + std::to_string(original.FractionDigits()[0]));
+  const auto findings = ExplainColumn(s.table, s.values, FindNumeralScript("hindu-arabic", kDir));
+  const Finding* f = At(findings, row);
+  REQUIRE(f != nullptr);
+  INFO(f->Note("A"));
+  CHECK(f->best().cls == SlipClass::kTransposition);
+  REQUIRE(f->cells.front().emendation.has_value());
+  CHECK(f->cells.front().emendation->ToString() == original.ToString());
+}

@@ -324,6 +324,23 @@ inline long FalseEmendations(const Witness& w, const pipeline::WitnessFindings& 
   return n;
 }
 
+/// With debug: one line per emendation proposed against a wrong reference.
+inline void WrongNotes(const Witness& w, const pipeline::WitnessFindings& found,
+                       const synth::AuthorTable& author, const synth::ColumnKey& key, Grade& g) {
+  const int column = w.table.ColumnIndex(key.name);
+  for (const auto& [row, flag] : Flags(found, column)) {
+    const int origin = row < w.text->origin.size() ? w.text->origin[row] : -1;
+    if (origin < 0) continue;
+    const auto o = static_cast<std::size_t>(origin);
+    const Sexagesimal want = At(key.tabulated[o], key.places);
+    const bool ok = flag.emendation && At(*flag.emendation, key.places) == want;
+    g.notes.push_back(std::string(ok ? "WRONG-REF-OK " : "WRONG-REF-FALSE ") + author.key.id + " " +
+                      key.name + " " + w.node->name + " row " + std::to_string(row) + " want " +
+                      want.ToString() + " computed " + At(key.computed[o], key.places).ToString() +
+                      " (" + ScriptOf(w.table) + ") | " + NoteOf(found, column, row));
+  }
+}
+
 }  // namespace grade_internal
 
 /// Grades every table of `t` with references identified automatically.
@@ -365,6 +382,7 @@ inline Grade GradeTradition(const synth::Tradition& t, const std::string& script
           g.wrong_refused += refused;
           g.wrong_emendations += Emendations(found[i], column);
           g.wrong_false += FalseEmendations(ws[i], found[i], key);
+          if (debug) WrongNotes(ws[i], found[i], author, key, g);
           continue;
         }
         ++g.right_columns;
