@@ -10,6 +10,7 @@
 
 #include "estimate/catalog.hpp"
 #include "estimate/identify.hpp"
+#include "model_columns.hpp"
 #include "synthetic.hpp"
 
 namespace apograph::estimate {
@@ -17,25 +18,9 @@ namespace {
 
 double D(const char* text) { return Sexagesimal::ParseOrThrow(text).ToDouble(); }
 
-testing::SyntheticColumn FromModel(const std::string& name, std::vector<double> params, int places,
-                                   model::SignForm sign = model::SignForm::kConventional) {
-  const model::Model* m = model::FindBuiltinModel(name);
-  REQUIRE(m != nullptr);
-  testing::SyntheticColumn c;
-  c.places = places;
-  c.f = [m, params, sign](double a) {
-    model::RowContext ctx;
-    ctx.arg = a;
-    ctx.sign = sign;
-    return m->Evaluate(params, ctx);
-  };
-  return c;
-}
+using testing::FromModel;
 
-const std::vector<CatalogEntry>& Catalog() {
-  static const auto kCatalog = ReadCatalogFile(DefaultCatalogPath());
-  return kCatalog;
-}
+using testing::Catalog;
 
 Identification Run(const Transcription& t) {
   IdentifyOptions o;

@@ -5,25 +5,13 @@
 #include <cmath>
 
 #include "estimate/identify_internal.hpp"
+#include "model_columns.hpp"
 #include "synthetic.hpp"
 
 namespace apograph::estimate {
 namespace {
 
-/// A column made by a built-in model with given parameters.
-testing::SyntheticColumn FromModel(const std::string& name, std::vector<double> params,
-                                   int places) {
-  const model::Model* m = model::FindBuiltinModel(name);
-  REQUIRE(m != nullptr);
-  testing::SyntheticColumn c;
-  c.places = places;
-  c.f = [m, params](double a) {
-    model::RowContext ctx;
-    ctx.arg = a;
-    return m->Evaluate(params, ctx);
-  };
-  return c;
-}
+using testing::FromModel;
 
 bool Mentions(const Identification& id, const std::string& text) {
   for (const auto& n : id.notes) {

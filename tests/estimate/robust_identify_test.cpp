@@ -11,6 +11,7 @@
 #include "estimate/catalog.hpp"
 #include "estimate/identify.hpp"
 #include "estimate/report.hpp"
+#include "model_columns.hpp"
 #include "synthetic.hpp"
 
 namespace apograph::estimate {
@@ -18,26 +19,9 @@ namespace {
 
 double D(const char* text) { return Sexagesimal::ParseOrThrow(text).ToDouble(); }
 
-/// A column made by a built-in model (in its sign form) with given parameters.
-testing::SyntheticColumn FromModel(const std::string& name, std::vector<double> params, int places,
-                                   model::SignForm sign = model::SignForm::kConventional) {
-  const model::Model* m = model::FindBuiltinModel(name);
-  REQUIRE(m != nullptr);
-  testing::SyntheticColumn c;
-  c.places = places;
-  c.f = [m, params, sign](double a) {
-    model::RowContext ctx;
-    ctx.arg = a;
-    ctx.sign = sign;
-    return m->Evaluate(params, ctx);
-  };
-  return c;
-}
+using testing::FromModel;
 
-const std::vector<CatalogEntry>& Catalog() {
-  static const auto kCatalog = ReadCatalogFile(DefaultCatalogPath());
-  return kCatalog;
-}
+using testing::Catalog;
 
 Identification Run(const Transcription& t, IdentifyOptions o = {}) {
   o.catalog = &Catalog();
