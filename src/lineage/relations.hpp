@@ -106,12 +106,52 @@ inline constexpr int kMisfitsPerStretchError = 4;
 
 struct Contamination {
   std::string witness;
-  std::string primary, secondary;  ///< the relatives: followed for more, for less evidence
+  /// The relatives: followed for more, for less evidence (the one-line
+  /// criterion: followed for more rows, for fewer; empty for the line with
+  /// no surviving witness).
+  std::string primary, secondary;
   double primary_evidence = 0, secondary_evidence = 0;
   std::vector<ContaminationSegment> segments;
   std::vector<std::string> inherited_by;  ///< witnesses descending from it with its mixture
   std::string text;  ///< "C follows A in rows 10 to 200 and B in rows 210 to 360 (...)"
 };
+
+/// The one-line criterion (a second one, for a witness that takes one part
+/// from a line with no surviving witness, or the archetype's own, where it
+/// has no second relative): witness C is contaminated when there is a
+/// witness X (neither descending from the other) such that
+///  - C and X share at least kOneLineShared errors, and the longest stretch
+///    of their errors (those of either, both legible, in table order)
+///    without a shared one is so long that shared errors spread at random
+///    would leave it with chance (shared + 1) (1 - gap / all)^shared at
+///    most kOneLineChance;
+///  - in that stretch C has kMinSideSlips errors or more and at most one in
+///    kMisfitsPerStretchError of them is held by any witness other than X
+///    and the descendants of C and X (C has no relative there);
+///  - and X's line goes on there (two or more of X's errors in the stretch
+///    held by such a witness), or, outside it, C holds a larger share of
+///    X's errors than X of C's (C is below X there): otherwise X may be
+///    the one that changed exemplar.
+/// Copied along a tree, C would share its line's errors with X all along
+/// the table. Segments: X's stretch(es), and the stretch of the lost line
+/// with an empty relative; primary is the one covering more rows.
+/// Measured on the lineage benchmark, seeds 1-150 with and without
+/// contamination (DEVELOPERS.md, "Lineage accuracy"): at 0.001, 0.003 and
+/// 0.01 no false alarm on seeds 1-60, found 2, 4, 5 more contaminated
+/// witnesses there; on seeds 61-150 none more at 0.003, one false alarm
+/// more at 0.01.
+inline constexpr double kOneLineChance = 0.003;
+/// Shared errors the one-line criterion asks. Measured on the lineage
+/// benchmark, seeds 1-300: with three, false alarms on 2 more of 300
+/// uncontaminated draws (three or four shared errors in a few neighbouring
+/// rows, one event, against a stretch of 80-95 errors), none with five.
+inline constexpr int kOneLineShared = 5;
+/// A witness erring in the stretch more than this many times as often per
+/// row as elsewhere differs there by something systematic (a misread
+/// script, a recomputed column), not by its exemplar; it is not flagged.
+/// Judgement (seed 46 of the benchmark: a witness with 217 errors in one
+/// table and 5 elsewhere).
+inline constexpr double kOneLineRateRatio = 5;
 
 /// Weight (each side) from which two lines of errors in one witness are
 /// called contamination. Judgement, then checked on uncontaminated draws of

@@ -21,12 +21,12 @@ TEST_CASE("catalogue dates are read as ranges of years") {
   CHECK(ParseWitnessDate("before 1500") == R(0, 1499));
   CHECK(ParseWitnessDate("after 1450") == R(1451, 9999));
   CHECK(ParseWitnessDate("15th century") == R(1400, 1499));
-  CHECK(ParseWitnessDate("late 15th century") == R(1467, 1499));
+  CHECK(ParseWitnessDate("late 15th century") == R(1468, 1499));
   CHECK(ParseWitnessDate("early 14th century") == R(1300, 1333));
   CHECK(ParseWitnessDate("second half of the 15th century") == R(1450, 1499));
-  CHECK(ParseWitnessDate("mid 15th century") == R(1433, 1467));
-  CHECK(ParseWitnessDate("mid-15th century") == R(1433, 1467));
-  CHECK(ParseWitnessDate("s. XV ex.") == R(1467, 1499));
+  CHECK(ParseWitnessDate("mid 15th century") == R(1434, 1467));
+  CHECK(ParseWitnessDate("mid-15th century") == R(1434, 1467));
+  CHECK(ParseWitnessDate("s. XV ex.") == R(1468, 1499));
   CHECK(ParseWitnessDate("s. XIV 2") == R(1350, 1399));
   CHECK(ParseWitnessDate("1899") == R(1899, 1899));
 }

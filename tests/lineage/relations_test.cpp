@@ -1,6 +1,9 @@
 // Candidate copies read off a hand-made character matrix.
 #include "lineage/relations.hpp"
 
+#include <algorithm>
+#include <string>
+
 #include <doctest/doctest.h>
 
 namespace apograph::lineage {
@@ -31,6 +34,42 @@ TEST_CASE("a copy may fill in an entry its exemplar leaves blank") {
   // A reading error of A that B lacks (not a blank) refutes the copy.
   m.characters[2].omission = false;
   CHECK(FindCopies(m).empty());
+}
+
+Character At(int position, std::vector<signed char> states) {
+  Character c = Error(std::to_string(position), std::move(states));
+  c.position = position;
+  c.row_label = std::to_string(position);
+  return c;
+}
+
+// Witnesses C, X, Z, W. In rows 0-199 C has ten errors of its own and X and
+// Z share ten (X one more of its own); from row 200 on C, X and Z share
+// six, spread (`spread`: the six spread over the whole table instead).
+CharacterMatrix OneLineMatrix(bool spread) {
+  CharacterMatrix m;
+  m.taxa = {"C", "X", "Z", "W"};
+  m.characters.push_back(At(5, {0, 1, 0, 0}));
+  for (int k = 0; k < 10; ++k) {
+    m.characters.push_back(At(20 * k, {1, 0, 0, 0}));
+    m.characters.push_back(At(20 * k + 10, {0, 1, 1, 0}));
+  }
+  for (int k = 0; k < 6; ++k)
+    m.characters.push_back(At(spread ? 35 * k + 7 : 200 + 20 * k, {1, 1, 1, 0}));
+  for (int k = 0; k < 3; ++k) m.characters.push_back(At(210 + 20 * k, {0, 0, 0, 1}));
+  std::stable_sort(m.characters.begin(), m.characters.end(),
+                   [](const Character& a, const Character& b) { return a.position < b.position; });
+  return m;
+}
+
+TEST_CASE("one relative in one stretch only, no relative in the other: contaminated") {
+  const auto found = FindContamination(OneLineMatrix(false));
+  REQUIRE(found.size() == 1);
+  CHECK(found[0].witness == "C");
+  CHECK((found[0].primary.empty() || found[0].secondary.empty()));
+  CHECK(found[0].text.find("shares no error with any surviving witness") != std::string::npos);
+  // The same shared errors spread along the table: a line, no mixture.
+  CHECK(FindContamination(OneLineMatrix(true)).empty());
 }
 
 }  // namespace
