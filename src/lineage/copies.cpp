@@ -1,0 +1,163 @@
+// Direct copies: a witness holding all of another's errors (strong ones
+// more than a unit off), later than it by its dates and kind
+// (relations.hpp: FindCopies, CopiesRefusedByDates).
+#include "lineage/relations.hpp"
+
+#include <algorithm>
+#include <array>
+#include <cmath>
+#include <optional>
+#include <sstream>
+
+namespace apograph::lineage {
+
+namespace {
+
+bool Usable(const Character& ch) { return ch.Directed() && ch.weight > 0 && !ch.tie_break; }
+
+// Whether b cannot be a copy of a because of the dates or the kinds.
+bool Anachronism(const CharacterMatrix& m, int a, int b) {
+  if (m.witnesses.size() != m.taxa.size()) return false;
+  const WitnessInfo &wa = m.witnesses[a], &wb = m.witnesses[b];
+  const auto da = wa.Dates(), db = wb.Dates();
+  if (da && db && db->WhollyBefore(*da)) return true;
+  return wa.Kind() == WitnessKind::kModernEdition && wb.Kind() != WitnessKind::kModernEdition;
+}
+
+// Whether a's dates lie wholly before b's.
+bool Older(const CharacterMatrix& m, int a, int b) {
+  if (m.witnesses.size() != m.taxa.size()) return false;
+  const auto da = m.witnesses[a].Dates(), db = m.witnesses[b].Dates();
+  return da && db && da->WhollyBefore(*db);
+}
+
+std::string DateOf(const CharacterMatrix& m, int t) {
+  return m.witnesses.size() == m.taxa.size() ? m.witnesses[t].date : "";
+}
+
+// `strong`: the exemplar's errors found in the copy that are more than a
+// unit off (one-unit differences arise independently too often to show a copy).
+CopyCandidate Compare(const CharacterMatrix& m, int a, int b, bool corrector, bool& contained,
+                      int& strong) {
+  int weak = 0;
+  CopyCandidate c;
+  c.exemplar = m.taxa[a];
+  c.copy = m.taxa[b];
+  contained = true;
+  for (const auto& ch : m.characters) {
+    if (!Usable(ch)) continue;
+    const int sa = ch.states[a], sb = ch.states[b];
+    if (sa == 1) {
+      if (sb == 1)
+        ++c.exemplar_errors;
+      else if (sb == -1)
+        ++c.unreadable;
+      else if (ch.omission)
+        ++c.filled;
+      else if (corrector && ch.base_is_right)
+        ++c.corrected;
+      else
+        contained = false;
+    } else if (sa == 0 && sb == 1) {
+      ++c.own_errors;
+    }
+    if (sa == 1 && sb == 1 && ch.one_unit) ++weak;
+  }
+  strong = c.exemplar_errors - weak;
+  return c;
+}
+
+std::string CopyText(const CharacterMatrix& m, const CopyCandidate& c) {
+  std::ostringstream o;
+  if (c.twins) {
+    o << c.copy << " and " << c.exemplar << " carry the same " << c.exemplar_errors
+      << " errors: one may be a copy of the other, or both of a lost exemplar";
+  } else if (c.dated) {
+    o << c.copy << " may be a copy of " << c.exemplar << ": they carry the same "
+      << c.exemplar_errors << " errors and " << c.exemplar << " is the older";
+  } else {
+    o << c.copy << " may be a copy of " << c.exemplar << ": " << c.copy << " has all "
+      << c.exemplar_errors << " of " << c.exemplar << "'s errors and " << c.own_errors
+      << " of its own";
+  }
+  if (c.corrected) {
+    o << "; " << c.copy << " reads the recomputed value at " << c.corrected << " of them (it "
+      << "corrects against the model)";
+  }
+  if (c.filled) {
+    o << "; " << c.copy << " fills in " << c.filled << (c.filled == 1 ? " entry " : " entries ")
+      << c.exemplar << " leaves blank";
+  }
+  if (c.unreadable) {
+    o << " (at " << c.unreadable << " more of " << c.exemplar << "'s errors " << c.copy
+      << " cannot be compared: illegible there, or with an error of its own)";
+  }
+  const std::string da = DateOf(m, m.TaxonIndex(c.exemplar)), db = DateOf(m, m.TaxonIndex(c.copy));
+  if (!da.empty() && !db.empty())
+    o << " [dates: " << c.exemplar << " " << da << ", " << c.copy << " " << db << "]";
+  return o.str();
+}
+
+}  // namespace
+
+std::vector<CopyCandidate> FindCopies(const CharacterMatrix& m,
+                                      const std::vector<std::string>& correctors, int min_errors) {
+  std::vector<CopyCandidate> out;
+  const int n = static_cast<int>(m.taxa.size());
+  for (int b = 0; b < n; ++b) {
+    const bool corrector =
+        std::find(correctors.begin(), correctors.end(), m.taxa[b]) != correctors.end();
+    std::optional<CopyCandidate> best;
+    for (int a = 0; a < n; ++a) {
+      if (a == b || Anachronism(m, a, b)) continue;
+      bool contained = false;
+      int strong = 0;
+      CopyCandidate c = Compare(m, a, b, corrector, contained, strong);
+      if (!contained || strong < min_errors) continue;
+      if (c.own_errors == 0) {
+        bool back = false;  // does a hold all of b's errors too?
+        int ignored = 0;
+        Compare(m, b, a, false, back, ignored);
+        if (back && Older(m, a, b)) {
+          c.dated = true;
+        } else if (back && !Older(m, b, a)) {
+          c.twins = true;
+        }
+      }
+      if (!best || c.exemplar_errors > best->exemplar_errors) best = c;
+    }
+    // Twins are reported once, from the side of the first; a witness
+    // whose closest relative is its twin is no candidate copy of another.
+    if (best && best->twins && m.TaxonIndex(best->exemplar) < b) continue;
+    if (best) {
+      best->text = CopyText(m, *best);
+      out.push_back(*best);
+    }
+  }
+  std::stable_sort(out.begin(), out.end(), [](const CopyCandidate& x, const CopyCandidate& y) {
+    return x.exemplar_errors > y.exemplar_errors;
+  });
+  return out;
+}
+
+std::vector<std::string> CopiesRefusedByDates(const CharacterMatrix& m, int min_errors) {
+  std::vector<std::string> out;
+  const int n = static_cast<int>(m.taxa.size());
+  for (int b = 0; b < n; ++b) {
+    for (int a = 0; a < n; ++a) {
+      if (a == b || !Anachronism(m, a, b)) continue;
+      bool contained = false;
+      int strong = 0;
+      const CopyCandidate c = Compare(m, a, b, false, contained, strong);
+      if (!contained || strong < min_errors || c.own_errors == 0) continue;
+      out.push_back(m.taxa[b] + " holds all " + std::to_string(c.exemplar_errors) + " of " +
+                    m.taxa[a] + "'s errors, but cannot be its copy: " + m.taxa[b] + " (" +
+                    m.witnesses[b].date + ", " + m.witnesses[b].kind + ") is older than " +
+                    m.taxa[a] + " (" + m.witnesses[a].date + ", " + m.witnesses[a].kind +
+                    "); both may descend from a lost exemplar");
+    }
+  }
+  return out;
+}
+
+}  // namespace apograph::lineage
