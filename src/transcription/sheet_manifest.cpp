@@ -275,14 +275,4 @@ std::vector<SheetEntry> SheetsFromFiles(const std::vector<std::string>& files,
   return out;
 }
 
-TranscriptionFile ReadSheets(const std::vector<SheetEntry>& sheets) {
-  TranscriptionFile all;
-  for (const auto& s : sheets) {
-    TranscriptionFile one = ReadCsvFile(s.path, s.options);
-    for (auto& t : one.tables) all.tables.push_back(std::move(t));
-    for (auto& w : one.warnings) all.warnings.push_back(std::move(w));
-  }
-  return all;
-}
-
 }  // namespace apograph

@@ -46,8 +46,4 @@ std::vector<SheetEntry> ReadSheetManifest(const std::string& path, const CsvOpti
 std::vector<SheetEntry> SheetsFromFiles(const std::vector<std::string>& files,
                                         const CsvOptions& common);
 
-/// Reads every sheet (all of them, before anything is written anywhere):
-/// the tables in order and the warnings of all.
-TranscriptionFile ReadSheets(const std::vector<SheetEntry>& sheets);
-
 }  // namespace apograph
