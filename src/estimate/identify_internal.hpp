@@ -4,6 +4,7 @@
 
 #include <optional>
 #include <string>
+#include <utility>
 #include <vector>
 
 #include "estimate/identify.hpp"
@@ -19,6 +20,21 @@ struct ColumnFacts {
   std::optional<int> reduced;    ///< computed to one place fewer (see identify.hpp)
   double unit = 0;               ///< one unit of the last place computed
 };
+
+/// The entries of a column, a subsample of at most 60 spread over it, its
+/// signs and places (screen_forms.cpp).
+ColumnFacts Examine(const std::vector<Observation>& obs);
+
+/// The model gives a finite value for most rows at its defaults, and a
+/// quantity by date is not tried on an argument declared an angle.
+bool Applicable(const model::Model& m, const Transcription& table,
+                const std::vector<Observation>& obs);
+
+/// The (sign form, displacement) pairs worth screening for a model on this
+/// column (identify.hpp, step 1).
+std::vector<std::pair<model::SignForm, bool>> Forms(const model::Model& m, const Transcription& t,
+                                                    const ColumnFacts& f,
+                                                    const IdentifyOptions& options);
 
 /// A candidate with its score (a grid counts as one more parameter).
 Candidate MakeCandidate(const model::Model& m, FitResult fit, bool grid);
