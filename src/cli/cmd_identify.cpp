@@ -133,6 +133,64 @@ int RunBatch(store::Database& db, const BatchArgs& batch, const estimate::Identi
   return findings ? kFindings : kOk;
 }
 
+/// The table, witness and column (empty: every column) of a one-table run.
+struct OneTable {
+  std::string table, witness, column;
+};
+
+/// Prints one table's identifications (and the columns made from others).
+void PrintOne(const std::vector<Job>& jobs, const std::vector<estimate::DerivedColumn>& derived,
+              const std::vector<estimate::CatalogEntry>& catalog, const std::string& format,
+              Io& io) {
+  if (format == "json") {
+    nlohmann::json j = nlohmann::json::array();
+    for (const auto& job : jobs) {
+      auto one = estimate::IdentificationJson(job.result, job.table, catalog);
+      one["derived"] = nullptr;
+      for (const auto& d : derived) {
+        if (d.column != job.column) continue;
+        one["derived"] = {{"source", job.table.columns[static_cast<std::size_t>(d.source)].name},
+                          {"relation", d.relation},
+                          {"rows", d.rows},
+                          {"matched_tabulated", d.matched_tabulated},
+                          {"matched_precise", d.matched_precise},
+                          {"basis", d.basis},
+                          {"evidence", d.evidence}};
+      }
+      j.push_back(one);
+    }
+    io.out << nlohmann::json{{"identifications", j}}.dump(2) << "\n";  // one per column
+  } else {
+    for (const auto& job : jobs)
+      io.out << estimate::IdentificationText(job.result, job.table, catalog) << "\n";
+    for (const auto& d : derived) io.out << "derived column: " << d.evidence << "\n";
+  }
+}
+
+/// identify --table --witness: every asked column identified, saved, printed.
+int RunOne(store::Database& database, const OneTable& one, const estimate::IdentifyOptions& options,
+           const std::vector<estimate::CatalogEntry>& catalog, const std::string& format, Io& io) {
+  const std::string& table = one.table;
+  const std::string& witness = one.witness;
+  const std::string& column = one.column;
+  const Transcription t = store::Load(database, table, witness);
+  const int revision = store::CurrentRevision(database, table, witness);
+  std::vector<Job> jobs;
+  for (int c : estimate::ResolveColumns(
+           t, column.empty() ? std::vector<std::string>{} : std::vector<std::string>{column}))
+    jobs.push_back({t, revision, c, estimate::Identify(t, c, options)});
+  std::vector<store::IdentifyRecord> records;
+  for (const auto& j : jobs)
+    records.push_back(
+        {table, witness, revision, t.columns[static_cast<std::size_t>(j.column)].name, j.result});
+  store::SaveIdentifications(database, records);
+  // Columns made from other columns of the same table.
+  const auto derived = jobs.empty() ? std::vector<estimate::DerivedColumn>{}
+                                    : estimate::DetectDerivedColumns(jobs[0].table);
+  PrintOne(jobs, derived, catalog, format, io);
+  return HasFindings(jobs) ? kFindings : kOk;
+}
+
 }  // namespace
 
 int RunIdentify(const std::vector<std::string>& args, Io& io) {
@@ -166,44 +224,7 @@ int RunIdentify(const std::vector<std::string>& args, Io& io) {
   options.extra_models = library.FormulaPointers();
   options.catalog = &catalog;
   if (batch.Batch()) return RunBatch(database, batch, options, catalog, ParseFormat(format), io);
-  const Transcription t = store::Load(database, table, witness);
-  const int revision = store::CurrentRevision(database, table, witness);
-  std::vector<Job> jobs;
-  for (int c : estimate::ResolveColumns(
-           t, column.empty() ? std::vector<std::string>{} : std::vector<std::string>{column}))
-    jobs.push_back({t, revision, c, estimate::Identify(t, c, options)});
-  std::vector<store::IdentifyRecord> records;
-  for (const auto& j : jobs)
-    records.push_back(
-        {table, witness, revision, t.columns[static_cast<std::size_t>(j.column)].name, j.result});
-  store::SaveIdentifications(database, records);
-  // Columns made from other columns of the same table.
-  const auto derived = jobs.empty() ? std::vector<estimate::DerivedColumn>{}
-                                    : estimate::DetectDerivedColumns(jobs[0].table);
-  if (format == "json") {
-    nlohmann::json j = nlohmann::json::array();
-    for (const auto& job : jobs) {
-      auto one = estimate::IdentificationJson(job.result, job.table, catalog);
-      one["derived"] = nullptr;
-      for (const auto& d : derived) {
-        if (d.column != job.column) continue;
-        one["derived"] = {{"source", job.table.columns[static_cast<std::size_t>(d.source)].name},
-                          {"relation", d.relation},
-                          {"rows", d.rows},
-                          {"matched_tabulated", d.matched_tabulated},
-                          {"matched_precise", d.matched_precise},
-                          {"basis", d.basis},
-                          {"evidence", d.evidence}};
-      }
-      j.push_back(one);
-    }
-    io.out << nlohmann::json{{"identifications", j}}.dump(2) << "\n";  // one per column
-  } else {
-    for (const auto& job : jobs)
-      io.out << estimate::IdentificationText(job.result, job.table, catalog) << "\n";
-    for (const auto& d : derived) io.out << "derived column: " << d.evidence << "\n";
-  }
-  return HasFindings(jobs) ? kFindings : kOk;
+  return RunOne(database, {table, witness, column}, options, catalog, format, io);
 }
 
 }  // namespace apograph::cli
