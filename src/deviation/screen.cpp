@@ -116,18 +116,14 @@ std::string SecondDifferences(const std::vector<std::optional<double>>& y, std::
   return out;
 }
 
-}  // namespace
-
-std::vector<Suspect> ScreenColumn(const Transcription& table, int column,
-                                  const NumeralScript* script, const ScreenOptions& options) {
-  const auto col = static_cast<std::size_t>(column);
-  const int places = table.columns.at(col).places;
-  const double scale = std::pow(60.0, places), turn = 360 * scale;
-  const std::size_t n = table.rows.size();
-  // Values in units of the last place, unwrapped across a mean motion's 360.
-  std::vector<std::optional<double>> y(n);
+/// A column's readings in units of its last place, unwrapped across a mean
+/// motion's 360 (nullopt where nothing is read).
+std::vector<std::optional<double>> UnwrappedUnits(const Transcription& table, std::size_t col,
+                                                  double scale) {
+  const double turn = 360 * scale;
+  std::vector<std::optional<double>> y(table.rows.size());
   double offset = 0, last = NAN;
-  for (std::size_t r = 0; r < n; ++r) {
+  for (std::size_t r = 0; r < y.size(); ++r) {
     const Cell& c = table.rows[r].cells[col];
     if (c.state != CellState::kRead || !c.value) continue;
     double v = c.value->ToDouble() * scale;
@@ -136,6 +132,48 @@ std::vector<Suspect> ScreenColumn(const Transcription& table, int column,
     y[r] = v + offset;
     last = *y[r];
   }
+  return y;
+}
+
+/// A suspect at row r with what the witness shows there, nothing judged yet.
+Suspect SuspectAt(const Transcription& table, int column, std::size_t r) {
+  const auto col = static_cast<std::size_t>(column);
+  const Cell& c = table.rows[r].cells[col];
+  Suspect s;
+  s.column = column;
+  s.column_name = table.columns[col].name;
+  s.row = r;
+  s.arg = ArgText(table, r);
+  s.tabulated = c.raw.empty() && c.value ? c.value->ToString() : c.raw;
+  return s;
+}
+
+/// Each suspect the script's slips explain, explained against the curve
+/// (`against`: the curve where suspect, the reading elsewhere).
+void AttachExplanations(const Transcription& table, const ColumnValues& against,
+                        const NumeralScript& script, std::vector<Suspect>& out) {
+  ExplainOptions eo;
+  eo.tolerance = 1;  // the curve is only an estimate of the original
+  eo.max_shift = 0;  // runs need a model; the curve follows a slid run
+  for (const auto& f : ExplainColumn(table, against, script, eo)) {
+    // Only slips that reach the curve are worth showing without a model.
+    const SlipClass best = f.best().cls;
+    if (best == SlipClass::kUnexplained || best == SlipClass::kComputational) continue;
+    for (auto& s : out) {
+      if (s.row == f.cells.front().row) s.explanations = f.explanations;
+    }
+  }
+}
+
+}  // namespace
+
+std::vector<Suspect> ScreenColumn(const Transcription& table, int column,
+                                  const NumeralScript* script, const ScreenOptions& options) {
+  const auto col = static_cast<std::size_t>(column);
+  const int places = table.columns.at(col).places;
+  const double scale = std::pow(60.0, places);
+  const std::size_t n = table.rows.size();
+  const std::vector<std::optional<double>> y = UnwrappedUnits(table, col, scale);
   std::vector<std::optional<double>> fit(n);
   std::vector<double> abs;
   for (std::size_t r = 0; r < n; ++r) {
@@ -152,12 +190,7 @@ std::vector<Suspect> ScreenColumn(const Transcription& table, int column,
   against.computed.assign(n, std::nullopt);
   for (std::size_t r = 0; r < n; ++r) {
     const Cell& c = table.rows[r].cells[col];
-    Suspect s;
-    s.column = column;
-    s.column_name = table.columns[col].name;
-    s.row = r;
-    s.arg = ArgText(table, r);
-    s.tabulated = c.raw.empty() && c.value ? c.value->ToString() : c.raw;
+    Suspect s = SuspectAt(table, column, r);
     if (c.state != CellState::kRead) {
       s.diff_units = NAN;
       s.score = 1;
@@ -188,19 +221,7 @@ std::vector<Suspect> ScreenColumn(const Transcription& table, int column,
     against.computed[r] = s.expected;
     out.push_back(std::move(s));
   }
-  if (script) {
-    ExplainOptions eo;
-    eo.tolerance = 1;  // the curve is only an estimate of the original
-    eo.max_shift = 0;  // runs need a model; the curve follows a slid run
-    for (const auto& f : ExplainColumn(table, against, *script, eo)) {
-      // Only slips that reach the curve are worth showing without a model.
-      const SlipClass best = f.best().cls;
-      if (best == SlipClass::kUnexplained || best == SlipClass::kComputational) continue;
-      for (auto& s : out) {
-        if (s.row == f.cells.front().row) s.explanations = f.explanations;
-      }
-    }
-  }
+  if (script) AttachExplanations(table, against, *script, out);
   return out;
 }
 
