@@ -5,6 +5,7 @@
 
 #include "edition/names.hpp"
 #include "transcription/parser_internal.hpp"
+#include "transcription/witness_attributes.hpp"
 
 namespace apograph::transcription {
 
@@ -22,11 +23,6 @@ void Parser::RequireSafeId(const DirectiveAst& d, std::string_view line, const c
     Fail(line, d.id_offset,
          std::string("expected ") + what + " of " + kSafeIdRule + ", found " + QuotedText(d.id));
   }
-}
-
-void Parser::CheckScript(const AttributeAst& a, std::string_view line) {
-  const std::string problem = CheckScriptName(a.value, options_);
-  if (!problem.empty()) Fail(line, a.value_offset, problem);
 }
 
 void Parser::CheckAttributes(const DirectiveAst& d, std::string_view line,
@@ -89,21 +85,8 @@ void Parser::SetWitness(const DirectiveAst& d, std::string_view line) {
   witness_ = WitnessInfo{};
   witness_.siglum = d.id;
   for (const auto& a : d.attributes) {
-    if (a.name == "library") witness_.library = a.value;
-    if (a.name == "shelfmark") witness_.shelfmark = a.value;
-    if (a.name == "date") witness_.date = a.value;
-    if (a.name == "script") {
-      CheckScript(a, line);
-      witness_.script = a.value;
-    }
-    if (a.name == "note") witness_.note = a.value;
-    if (a.name == "kind") {
-      if (!WitnessKindFromString(a.value)) {
-        Fail(line, a.value_offset,
-             "expected kind=manuscript, print or modern-edition, found " + Quote(a.value));
-      }
-      witness_.kind = a.value;
-    }
+    if (std::string problem = ApplyWitnessAttribute(witness_, a, options_); !problem.empty())
+      Fail(line, a.value_offset, problem);
     if (a.name == "date" && !a.value.empty() && !ParseWitnessDate(a.value)) {
       out_.warnings.push_back(Make(Severity::kWarning, line_no_, line, a.value_offset,
                                    "expected a date such as 1461, c. 1420, 1450-1475 or late 15th "

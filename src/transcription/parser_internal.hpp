@@ -64,7 +64,6 @@ class Parser {
 
   void RequireId(const DirectiveAst& d, std::string_view line, const char* what);
   void RequireSafeId(const DirectiveAst& d, std::string_view line, const char* what);
-  void CheckScript(const AttributeAst& a, std::string_view line);
   void CheckAttributes(const DirectiveAst& d, std::string_view line,
                        std::initializer_list<std::string_view> allowed);
   int Places(const AttributeAst& a, std::string_view line);

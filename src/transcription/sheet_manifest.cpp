@@ -8,10 +8,12 @@
 #include "edition/names.hpp"
 #include "support/input_error.hpp"
 #include "transcription/syntax.hpp"
+#include "transcription/witness_attributes.hpp"
 
 namespace apograph {
 namespace {
 
+using transcription::ApplyWitnessAttribute;
 using transcription::AttributeAst;
 using transcription::DirectiveAst;
 using transcription::LineError;
@@ -99,22 +101,8 @@ void ManifestReader::Witness(const DirectiveAst& d) {
   witness_ = WitnessInfo{};
   witness_.siglum = d.id;
   for (const auto& a : d.attributes) {
-    if (a.name == "library") witness_.library = a.value;
-    if (a.name == "shelfmark") witness_.shelfmark = a.value;
-    if (a.name == "date") witness_.date = a.value;
-    if (a.name == "note") witness_.note = a.value;
-    if (a.name == "script") {
-      const std::string problem = CheckScriptName(a.value, common_.read);
-      if (!problem.empty()) Fail(a.value_offset, problem);
-      witness_.script = a.value;
-    }
-    if (a.name == "kind") {
-      if (!WitnessKindFromString(a.value)) {
-        Fail(a.value_offset,
-             "expected kind=manuscript, print or modern-edition, found " + QuotedText(a.value));
-      }
-      witness_.kind = a.value;
-    }
+    if (std::string problem = ApplyWitnessAttribute(witness_, a, common_.read); !problem.empty())
+      Fail(a.value_offset, problem);
   }
   have_witness_ = true;
 }
