@@ -54,6 +54,35 @@ void SetAsideImplausible(std::vector<Candidate>& all, std::vector<std::string>& 
 void FoldEquivalents(std::vector<Candidate>& ranked, const Transcription& table,
                      const std::vector<CatalogEntry>* catalog);
 
+/// A simple value of a parameter (round_equivalents.cpp).
+struct SimpleValue {
+  double value = 0;
+  std::string source;  ///< "attested: ...", "round, 0 places", or how it was computed
+  std::string text;    ///< the value as written ("43;10")
+};
+
+/// Two simple values of a model's parameters (by index) and the value of
+/// their combination.
+struct SimplePair {
+  std::size_t first_index = 0, second_index = 0;
+  SimpleValue first, second;
+  double combined = 0;
+};
+
+/// Values of `param` of model `m` that another model's combination
+/// (model::ParamCombination::same_as) computes from simple values of its
+/// own two parameters, within `many` standard errors `se` of `estimate`,
+/// nearest first, at most `most`.
+std::vector<SimpleValue> EquivalentValues(const model::Model& m, const std::string& param,
+                                          double estimate, double se, double many, int most,
+                                          const std::vector<CatalogEntry>* catalog);
+
+/// For a fit whose two parameters the entries fix only in a combination the
+/// model names: pairs of simple values whose combination lies within `many`
+/// standard errors of the fitted one, nearest first, at most `most`.
+std::vector<SimplePair> CombinationPairs(const Candidate& best, double many, int most,
+                                         const std::vector<CatalogEntry>* catalog);
+
 /// Round and attested values for `best` (see round_values.cpp); nullopt when
 /// nothing was adopted.
 std::optional<Adoption> AdoptRoundValues(const Candidate& best, const Transcription& table,

@@ -60,11 +60,18 @@ int PlacesOf(const Sexagesimal& v) {
   return p;
 }
 
+/// Round values are looked for this many standard errors from the
+/// estimate, at most kRidgeValues of them, nearest first. Judgement: the
+/// usual 3-sigma rule; an estimate on a ridge of two parameters may lie
+/// that far from the author's value.
+constexpr double kRidgeSigmas = 3;
+constexpr int kRidgeValues = 12;
+
 /// The values to try, simplest first: attested values (fewest places
 /// first), then roundings of the estimate (coarsest first), then a rounded
 /// rate the mean-motion analysis found.
 std::vector<Trial> Trials(const Candidate& best, const std::string& param, double estimate,
-                          const model::ParamSpec* spec, int column_places,
+                          double se, const model::ParamSpec* spec, int column_places,
                           const std::vector<CatalogEntry>* catalog,
                           const MeanMotionAnalysis* mean_motion) {
   std::vector<Trial> out;
@@ -97,6 +104,13 @@ std::vector<Trial> Trials(const Candidate& best, const std::string& param, doubl
     const std::string source = "round, " + std::to_string(p) + (p == 1 ? " place" : " places");
     for (double x : {v, estimate > v ? v + unit : v - unit}) {
       if (!seen(x)) out.push_back({x, p, source, 100 + p});
+    }
+    // As simple as a whole number: a combination of two of an equivalent
+    // model's simple values (round_equivalents.cpp).
+    if (p == 0 && spec && std::isfinite(se)) {
+      for (const auto& v :
+           EquivalentValues(*best.model, param, estimate, se, kRidgeSigmas, kRidgeValues, catalog))
+        if (!seen(v.value)) out.push_back({v.value, 0, v.source, 100});
     }
   }
   if (mean_motion && mean_motion->rounded_rate && spec && spec->role == model::ParamRole::kRate &&
@@ -160,8 +174,6 @@ std::optional<std::pair<Trial, FitResult>> FirstAcceptable(
 /// Judgement: an obliquity fitted at 23;57,52 together with a latitude a
 /// little off may come from an author's 23;30, which the roundings beside
 /// the estimate never reach.
-constexpr double kRidgeSigmas = 3;
-constexpr int kRidgeValues = 12;
 
 void AddRidge(std::vector<Trial>& out, double estimate, double se) {
   if (!(se > 0) || !std::isfinite(se)) return;
@@ -220,7 +232,7 @@ std::optional<Pair> AdoptJointly(const Candidate& best, const Transcription& tab
   const auto& a = best.fit.params[free[0]];
   const auto& b = best.fit.params[free[1]];
   std::vector<Trial> firsts =
-      Trials(best, a.name, a.value, &specs[free[0]], places, catalog, nullptr);
+      Trials(best, a.name, a.value, a.stderr_, &specs[free[0]], places, catalog, nullptr);
   AddRidge(firsts, a.value, a.stderr_);
   const int allowance =
       std::max(1, static_cast<int>(std::ceil(kExactAllowance * static_cast<double>(best.fit.n))));
@@ -229,7 +241,8 @@ std::optional<Pair> AdoptJointly(const Candidate& best, const Transcription& tab
     std::map<std::string, double> fixed = {{a.name, ta.value}};
     const FitResult refit = FitHolding(best, table, obs, best.fit, fixed, std::nullopt);
     const double bv = refit.Value(b.name);
-    for (const Trial& tb : Trials(best, b.name, bv, &specs[free[1]], places, catalog, nullptr)) {
+    for (const Trial& tb :
+         Trials(best, b.name, bv, b.stderr_, &specs[free[1]], places, catalog, nullptr)) {
       Pair pair{ta, tb, {}, free[0], free[1]};
       if (chosen && pair.Simplicity() > chosen->Simplicity()) continue;
       fixed[b.name] = tb.value;
@@ -239,6 +252,37 @@ std::optional<Pair> AdoptJointly(const Candidate& best, const Transcription& tab
       if (!chosen || pair.Simplicity() < chosen->Simplicity() || pair.fit.exact > chosen->fit.exact)
         chosen = std::move(pair);
     }
+  }
+  return chosen;
+}
+
+/// For a model whose two parameters the entries fix only in a combination
+/// (r and e at the greatest distance fix 60 r/(60 + e)): the pairs of
+/// simple values (attested, whole numbers) whose combination lies within
+/// kRidgeSigmas standard errors of the fitted one (CombinationPairs), each
+/// tried with both held; of those that keep the fit's entries (as
+/// FirstAcceptable), the one that reproduces most entries exactly, then the
+/// nearer. One at a time, an attested r was adopted first and e then
+/// fitted to no round value.
+std::optional<Pair> AdoptCombination(const Candidate& best, const Transcription& table,
+                                     const std::vector<Observation>& obs,
+                                     const std::vector<CatalogEntry>* catalog) {
+  const int allowance =
+      std::max(1, static_cast<int>(std::ceil(kExactAllowance * static_cast<double>(best.fit.n))));
+  std::optional<Pair> chosen;
+  for (const SimplePair& p : CombinationPairs(best, kRidgeSigmas, kRidgeValues, catalog)) {
+    const std::string& a = best.fit.params[p.first_index].name;
+    const std::string& b = best.fit.params[p.second_index].name;
+    Pair pair{{p.first.value, 0, p.first.source, 0},
+              {p.second.value, 0, p.second.source, 0},
+              {},
+              p.first_index,
+              p.second_index};
+    pair.fit = FitHolding(best, table, obs, best.fit, {{a, p.first.value}, {b, p.second.value}},
+                          std::nullopt);
+    if (pair.fit.flagged > best.fit.flagged || pair.fit.exact < best.fit.exact - allowance)
+      continue;
+    if (!chosen || pair.fit.exact > chosen->fit.exact) chosen = std::move(pair);
   }
   return chosen;
 }
@@ -274,7 +318,7 @@ std::optional<Adoption> AdoptRoundValues(const Candidate& best, const Transcript
   const auto& specs = best.model->params();
   auto consider = [&](const std::string& name, double estimate, double se,
                       const model::ParamSpec* spec) {
-    const auto trials = Trials(best, name, estimate, spec, places, catalog, mean_motion);
+    const auto trials = Trials(best, name, estimate, se, spec, places, catalog, mean_motion);
     auto found = FirstAcceptable(trials, best, table, obs, current, fixed, displacement, name);
     if (!found) return;
     if (name == "displacement")
@@ -284,7 +328,9 @@ std::optional<Adoption> AdoptRoundValues(const Candidate& best, const Transcript
     current = std::move(found->second);
     a.values.push_back({name, found->first.value, estimate, se, found->first.source});
   };
-  if (auto pair = AdoptJointly(best, table, obs, places, catalog)) {
+  std::optional<Pair> pair = AdoptJointly(best, table, obs, places, catalog);
+  if (!pair) pair = AdoptCombination(best, table, obs, catalog);
+  if (pair) {
     for (const auto& [t, j] :
          {std::pair{pair->first, pair->first_index}, std::pair{pair->second, pair->second_index}}) {
       const auto& p = best.fit.params[j];

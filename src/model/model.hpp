@@ -75,6 +75,11 @@ struct ParamCombination {
   std::string text;                                 ///< "60 r/(60 + e)"
   std::vector<std::string> params;                  ///< the parameters it combines, by name
   double (*value)(const double* params) = nullptr;  ///< in the model's parameter order
+  /// The parameter of a simpler model whose value the combination is, as
+  /// "model:param" (the greatest-distance form's 60 r/(60 + e) is the r of
+  /// epicycle-anomaly): round values of this model's own parameters then
+  /// give values to try for that one (estimate/round_values.cpp).
+  std::string same_as;
 };
 
 /// Fixed facts about a model that identification and naming use.

@@ -63,7 +63,7 @@ double RadiusAtLeast(const double* p) { return 60 * p[0] / (60 - p[1]); }
 ModelTraits AnomalyTraits(const char* combination = nullptr,
                           double (*value)(const double*) = nullptr) {
   ModelTraits t = FunctionTraits(true, SignForm::kMagnitude, {"anomaly", "planet", "epicycle"});
-  if (combination) t.combinations.push_back({combination, {"r", "e"}, value});
+  if (combination) t.combinations.push_back({combination, {"r", "e"}, value, "epicycle-anomaly:r"});
   return t;
 }
 ParamSpec Eccentricity(double def) {

@@ -2,7 +2,7 @@
 // (tests/synth), built with -DAPOGRAPH_BENCH=ON:
 //   ./build-bench/identify_accuracy_bench [draws=300] [first_seed=1] [max_rate=0.2]
 // (BENCH_VERBOSE=1: every column's reference, =2 with the generator's key
-// below; BENCH_SEEDS=a,b: those draws only)
+// below, =3 also each parameter missed; BENCH_SEEDS=a,b: those draws only)
 //
 // Each draw: an author's table of one family (synth::DrawTable, families in
 // turn, every other option at the generator's defaults: round, attested and
@@ -52,6 +52,7 @@ struct Tally {
   int unexplained = 0, unexplained_said = 0;
   int explained = 0, explained_said_none = 0;
   double seconds = 0;
+  bool print_misses = false;  ///< BENCH_VERBOSE=3: each parameter missed, with its key
 };
 
 std::string Pct(int a, int b) {
@@ -113,6 +114,8 @@ double Distance(const std::string& name, double a, double b) {
   return d;
 }
 
+std::string RowName(const synth::ColumnKey& c);
+
 void ScoreParams(const synth::ColumnKey& c, const synth::EquivalentModel& m,
                  const pipeline::ColumnReference& r, Tally& t) {
   for (const auto& [name, truth] : m.params) {
@@ -135,9 +138,17 @@ void ScoreParams(const synth::ColumnKey& c, const synth::EquivalentModel& m,
     t.params_ok += equal || within2;
     t.params_1se += equal || within1;
     const std::string basis = Basis(c, truth);
-    if (basis.rfind("round", 0) == 0 || basis.rfind("attested", 0) == 0) {
+    const bool round = basis.rfind("round", 0) == 0 || basis.rfind("attested", 0) == 0;
+    if (round) {
       ++t.round_used;
       t.round_adopted += adopted && equal;
+    }
+    if (t.print_misses && (!(equal || within2) || (round && !(adopted && equal)))) {
+      std::printf(
+          "  miss %s/%s %s: truth %.9g (%s), ours %.9g %s, fitted %.9g +- %.3g (%.1f s.e.)\n",
+          RowName(c).c_str(), c.name.c_str(), name.c_str(), truth, basis.c_str(), ours,
+          adopted ? ("adopted (" + adopted->source + ")").c_str() : "fitted", fitted, se,
+          Distance(name, fitted, truth) / se);
     }
   }
 }
@@ -250,12 +261,15 @@ int main(int argc, char** argv) {
                       static_cast<unsigned long long>(seed), RowName(col).c_str(), col.name.c_str(),
                       x.description.c_str(), x.how.c_str(), x.explains,
                       e.empty() ? "-" : e.front().model.c_str(), one.identified);
-          if (std::getenv("BENCH_VERBOSE")[0] == '2' && !e.empty()) {
+          if (std::getenv("BENCH_VERBOSE")[0] >= '2' && !e.empty()) {
             std::printf("  key:");
             for (const auto& [name, v] : e.front().params)
               std::printf(" %s = %.8g", name.c_str(), v);
             std::printf(" (%zu rows)\n", w.rows.size());
           }
+          Tally misses;  // printed under the key
+          misses.print_misses = std::getenv("BENCH_VERBOSE")[0] == '3';
+          ScoreColumn(col, &x, misses);
         }
       }
     }
