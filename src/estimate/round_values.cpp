@@ -7,10 +7,15 @@
 // sexagesimal roundings of its estimate (the two values beside it at each
 // number of places), simplest first; the first that leaves no more entries
 // beyond one unit than the fit, and loses at most a few entries reproduced
-// exactly (kExactAllowance), is adopted (of equally simple ones, the one
-// reproducing most entries exactly), the other parameters refitted under
-// it. Two parameters of a model's own that the entries determine together
-// (an obliquity and a latitude) are tried together (AdoptJointly).
+// exactly (kExactAllowance), or reproduces as many exactly and leaves at
+// most a few more beyond one unit (Keeps), is adopted (of equally simple
+// ones, the one reproducing most entries exactly), the other parameters
+// refitted under it. Two parameters of a model's own that the entries determine together
+// (an obliquity and a latitude) are tried together (AdoptJointly), and so
+// are two the entries fix only in a combination (AdoptCombination: r and e
+// at the epicycle's greatest distance); a combination of an equivalent
+// model's simple values is as simple as a whole number (an epicycle at mean
+// distance of radius 60 r/(60 + e), round_equivalents.cpp).
 #include <algorithm>
 #include <cmath>
 #include <map>
@@ -27,6 +32,17 @@ namespace {
 /// departures touch a few percent of the entries (realism.md), and a fitted
 /// value can only absorb some of them.
 constexpr double kExactAllowance = 0.03;
+
+/// A fit with adopted values keeps the fit's entries: no more entries
+/// beyond one unit, and at most `allowance` fewer reproduced exactly; or,
+/// reproducing at least as many exactly, at most `allowance` more beyond
+/// one unit (entries where the free fit bent towards a copyist's slip: a
+/// latitude of 41;50 truncated reproduced 85 of 90 entries, the fit 84,
+/// and missed one slip by two units that the fit missed by one).
+bool Keeps(const FitResult& f, const FitResult& fit, int allowance) {
+  if (f.exact < fit.exact - allowance) return false;
+  return f.flagged <= fit.flagged || (f.exact >= fit.exact && f.flagged <= fit.flagged + allowance);
+}
 
 /// One value to try for a parameter.
 struct Trial {
@@ -162,7 +178,7 @@ std::optional<std::pair<Trial, FitResult>> FirstAcceptable(
     else
       fixed[param] = t.value;
     FitResult f = FitHolding(best, table, obs, current, fixed, displacement);
-    if (f.flagged > fit.flagged || f.exact < fit.exact - allowance) continue;
+    if (!Keeps(f, fit, allowance)) continue;
     if (!chosen || f.exact > chosen->second.exact) chosen = std::make_pair(t, std::move(f));
   }
   return chosen;
@@ -247,8 +263,7 @@ std::optional<Pair> AdoptJointly(const Candidate& best, const Transcription& tab
       if (chosen && pair.Simplicity() > chosen->Simplicity()) continue;
       fixed[b.name] = tb.value;
       pair.fit = FitHolding(best, table, obs, refit, fixed, std::nullopt);
-      if (pair.fit.flagged > best.fit.flagged || pair.fit.exact < best.fit.exact - allowance)
-        continue;
+      if (!Keeps(pair.fit, best.fit, allowance)) continue;
       if (!chosen || pair.Simplicity() < chosen->Simplicity() || pair.fit.exact > chosen->fit.exact)
         chosen = std::move(pair);
     }
@@ -280,8 +295,7 @@ std::optional<Pair> AdoptCombination(const Candidate& best, const Transcription&
               p.second_index};
     pair.fit = FitHolding(best, table, obs, best.fit, {{a, p.first.value}, {b, p.second.value}},
                           std::nullopt);
-    if (pair.fit.flagged > best.fit.flagged || pair.fit.exact < best.fit.exact - allowance)
-      continue;
+    if (!Keeps(pair.fit, best.fit, allowance)) continue;
     if (!chosen || pair.fit.exact > chosen->fit.exact) chosen = std::move(pair);
   }
   return chosen;
