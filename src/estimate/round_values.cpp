@@ -10,8 +10,9 @@
 // exactly (kExactAllowance), or reproduces as many exactly and leaves at
 // most a few more beyond one unit (Keeps), is adopted (of equally simple
 // ones, the one reproducing most entries exactly), the other parameters
-// refitted under it. Two parameters of a model's own that the entries determine together
-// (an obliquity and a latitude) are tried together (AdoptJointly), and so
+// refitted under it. Two parameters of a model's own that the entries
+// determine together (an obliquity and a latitude) are tried together
+// (AdoptJointly), and so
 // are two the entries fix only in a combination (AdoptCombination: r and e
 // at the epicycle's greatest distance); a combination of an equivalent
 // model's simple values is as simple as a whole number (an epicycle at mean
