@@ -263,7 +263,20 @@ LineageReport AnalyseLineage(const CharacterMatrix& m, const LineageOptions& o) 
                  Number(c.secondary_evidence) + " on the weaker side, " +
                  Number(kMinContaminationEvidence) + " needed)");
   }
-  const CharacterMatrix unmixed = MaskSecondaryExemplar(m, r.contamination);
+  // A suspected mixture, too, is placed by the relative it follows first
+  // when it also shares more with that one (otherwise the order tells
+  // nothing): its readings where it follows the other are set aside for
+  // the tree, the correctors and the copies, as for a called one (nothing
+  // is called; the note above tells the editor). Two lines of errors in
+  // one witness pull it between them whether or not they are called.
+  // Measured on the lineage benchmark (cached characters): seeds 1-100
+  // groups 0.840 -> 0.871, RF 0.343 -> 0.322; seeds 101-174 groups 0.835
+  // -> 0.848, RF 0.348 -> 0.320.
+  std::vector<Contamination> mixtures = r.contamination;
+  for (const auto& c : suspected) {
+    if (c.primary_evidence >= c.secondary_evidence) mixtures.push_back(c);
+  }
+  const CharacterMatrix unmixed = MaskSecondaryExemplar(m, mixtures);
   // 3: correctors, once the contaminated witnesses follow one exemplar.
   r.corrections = FindCorrections(unmixed);
   const CharacterMatrix masked = MaskCorrections(unmixed, r.corrections);
