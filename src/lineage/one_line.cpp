@@ -144,10 +144,8 @@ Contamination DescribeOneLine(const CharacterMatrix& m, const OneLine& o) {
   const std::string lost = "";  // a line with no surviving witness
   ContaminationSegment in, before, after;
   in.relative = lost, in.first_position = o.first, in.last_position = o.last;
-  int min_at = o.first, max_at = o.last;
   for (const auto& ch : m.characters) {
     if (ch.states[o.c] != 1 || !Evidence(ch)) continue;
-    min_at = std::min(min_at, ch.position), max_at = std::max(max_at, ch.position);
     const bool inside = ch.position >= o.first && ch.position <= o.last;
     if (inside && in.first_row.empty()) in.first_row = ch.row_label;
     if (inside) in.last_row = ch.row_label;
@@ -162,8 +160,9 @@ Contamination DescribeOneLine(const CharacterMatrix& m, const OneLine& o) {
   for (auto* s : {&before, &in, &after}) {
     if (!s->first_row.empty()) out.segments.push_back(*s);
   }
-  const int inside_rows = o.last - o.first, outside_rows = max_at - min_at - inside_rows;
-  const bool x_first = outside_rows >= inside_rows;
+  // The relative followed where the text begins is the exemplar (as for
+  // two lines, relations.cpp Describe); X when nothing of C precedes.
+  const bool x_first = out.segments.empty() || out.segments.front().relative == m.taxa[o.x];
   out.primary = x_first ? m.taxa[o.x] : lost;
   out.secondary = x_first ? lost : m.taxa[o.x];
   out.primary_evidence = out.secondary_evidence = o.shared;

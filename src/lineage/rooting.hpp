@@ -26,8 +26,9 @@ struct RootEvidence {
 };
 RootEvidence CountRootEvidence(const CharacterMatrix& matrix);
 
-/// Directed weight below which the tree is taken as unrooted: the same
-/// threshold as for keeping a group (tree_checks.hpp), a judgement.
+/// Directed weight below which the tree is taken as unrooted: two common
+/// slips or one distinctive error, a judgement (the threshold for keeping a
+/// group was the same until it went down to one slip, tree_checks.hpp).
 inline constexpr double kMinRootEvidence = 1.5;
 
 /// Re-roots the stemma at the midpoint of its longest path between two

@@ -266,8 +266,12 @@ void ScoreMixtures(const synth::Tradition& t, const lineage::LineageReport& r, T
     s.correctors += corrector, s.correctors_flagged += said,
         s.correctors_right += corrector && said;
   }
-  if (verbose)
+  if (verbose) {
     for (const auto& c : r.contamination) std::printf("  said: %s\n", c.text.c_str());
+    for (const auto& c : r.corrections) std::printf("  corrector: %s\n", c.text.c_str());
+    if (!r.results.empty())
+      std::printf("  found: %s\n", lineage::ToNewick(r.results.front().stemma).c_str());
+  }
 }
 
 void Draw(std::uint64_t seed, bool verbose, Totals& all) {

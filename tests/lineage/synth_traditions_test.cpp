@@ -116,7 +116,8 @@ Score Run(const std::vector<std::uint64_t>& seeds, const synth::TraditionOptions
 TEST_CASE("lineage on shared-generator traditions copied along a tree: rates over seeds") {
   // Seeds 1-16, six witnesses, one table of up to 240 rows, no contamination
   // (correctors, prints and modern editions as the generator draws them).
-  // Measured: groups 15 of 20, copies 16 of 18 right, no false alarm. The
+  // Measured: groups 16 of 20 (15 before the fourth round of issue 11),
+  // copies 16 of 18 right, no false alarm. The
   // floors below are under the issue's goals (groups 0.9) where the stage
   // does not reach them yet; they fail if it gets worse.
   const Score s = Run({1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12, 13, 14, 15, 16}, Small(false));
@@ -127,7 +128,7 @@ TEST_CASE("lineage on shared-generator traditions copied along a tree: rates ove
   // No false alarm of contamination in at least 15 of the 16 draws.
   CHECK(s.draws_with_contamination_flagged <= 1);
   REQUIRE(s.marked > 0);
-  CHECK(s.recovered * 10 >= s.marked * 7);
+  CHECK(s.recovered * 10 >= s.marked * 8);
   REQUIRE(s.claims > 0);
   CHECK(s.claims_right * 10 >= s.claims * 8);
 }
