@@ -108,7 +108,7 @@ struct ColumnContext {
   DiffColumn diffs;
   /// The step the author writes the column's last place in, in units of it:
   /// 10 when he writes thirds in tens ("0;5,24,20"); 1 when no grid shows
-  /// (see MeasureGrid in findings.cpp).
+  /// (see MeasureGrid in grid.cpp).
   int grid = 1;
   /// Per row, tabulated - computed counted as the author departs: in steps
   /// of the grid when the reading lies on it, else in units (as `diffs`).
@@ -152,8 +152,8 @@ std::optional<double> GridSteps(const Sexagesimal& reading, const Sexagesimal& c
 /// The author's departure of `reading` from `computed`: in grid steps when
 /// the reading lies on the grid, else as CoarseDiff.
 double AuthorDiff(const Sexagesimal& reading, const Sexagesimal& computed, int places, int grid);
-/// The author's departure in units when the reading is off the grid (or no
-/// grid shows): as DiffUnits, else in grid steps.
+/// `reading` - `computed` in grid steps when the reading lies on the grid,
+/// else in units of `places` (as DiffUnits).
 double DepartureDiff(const Sexagesimal& reading, const Sexagesimal& computed, int places, int grid);
 /// The step the author writes a column's last place in (units of it): the
 /// coarsest divisor of 60 that nearly every reading lies on (the others'

@@ -135,11 +135,12 @@ ColumnContext MeasureColumn(const Transcription& table, const ColumnValues& valu
     out.consensus[r] = consensus;
     const Cell& cell = CellAt(table, r, values.column);
     if (cell.value && AtPlaces(*cell.value, places) == consensus) continue;
-    // Counted in units, not grid steps: a branch's constant error of one step
-    // (a degree where the column writes whole degrees as "9;0") would pass
-    // for the author's departure, and a copy keeping the author's reading
-    // against it be emended to the branch's (seeds 1-20 of deviation_bench:
-    // 30 false flags on one witness when counted in steps).
+    // Counted in units, not grid steps, as a systematic run's restored
+    // readings are: a branch's constant error of one step (a degree where the
+    // column writes whole degrees as "9;0") would pass for the author's
+    // departure, and a copy keeping the author's reading against it be
+    // emended to the branch's (seeds 1-20 of deviation_bench: 30 false flags
+    // on one witness with both counted in steps; DEVELOPERS.md, fifth round).
     const int k = UnitsOff(DiffUnits(consensus, *values.computed[r], places), options.tolerance);
     if (k <= out.author.typical) out.tradition_reading[r] = consensus;
   }
