@@ -36,8 +36,8 @@ struct RunScan {
   }
   /// Off the model; a small departure the others read too is the author's.
   bool Deviant(std::size_t r) const {
-    if (!std::isfinite(diffs.diff[r])) return false;
-    const int k = UnitsOff(diffs.diff[r], options.tolerance);
+    if (!std::isfinite(column.departure[r])) return false;
+    const int k = UnitsOff(column.departure[r], options.tolerance);
     return k > 0 && !(AsOthers(r) && k <= column.author.typical);
   }
   bool Match(std::size_t r, int k) const {
@@ -98,7 +98,7 @@ Finding RunFinding(const RunScan& s, const RunCandidate& run) {
       ++supplied;
     }
     if (s.Deviant(r)) {
-      const double d = s.diffs.diff[r];
+      const double d = s.column.departure[r];
       low = std::min(low, d);
       high = std::max(high, d);
       small = small && std::fabs(d) <= s.options.computational_units + 1e-9;

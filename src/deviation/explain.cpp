@@ -81,7 +81,7 @@ std::optional<double> CellContext::Fit(const Sexagesimal& reading) const {
     if (reading == *tradition_reading) return 1.0;
     against = std::pow(kCorrection, std::clamp(tradition ? tradition->agree : 1, 1, 3));
   }
-  const double dist = DiffUnits(reading, computed, places);
+  const double dist = DepartureDiff(reading, computed, places, grid);
   const int k = UnitsOff(dist, options->tolerance);
   if (k == 0) return against * (reading == model_reading ? 1.0 : kNearOnly);
   if (k > author->typical) return std::nullopt;
@@ -101,7 +101,7 @@ std::string CellContext::ModelClause(const Sexagesimal& reading) const {
            " (the author's departure from the model's " + model + ")";
   }
   std::string out = "the model gives " + model + ", the emended reading " + reading.ToString();
-  const int k = UnitsOff(DiffUnits(reading, computed, places), options->tolerance);
+  const int k = UnitsOff(DepartureDiff(reading, computed, places, grid), options->tolerance);
   if (k > 0) {
     return out + " is " + SignedUnits(DiffUnits(reading, model_reading, places)) +
            " from it, within the author's usual departure";
@@ -226,7 +226,7 @@ std::vector<Finding> ExplainColumn(const Transcription& table, const ColumnValue
       out.push_back(internal::MissingFinding(table, values, column, r, places));
       continue;
     }
-    const double d = column.diffs.diff[r];
+    const double d = column.departure[r];
     if (!std::isfinite(d)) continue;
     if (internal::UnitsOff(d, options.tolerance) == 0 &&
         !AgainstTradition(table, values, column, r))

@@ -53,9 +53,10 @@ struct CellContext {
   std::optional<Sexagesimal> tradition_reading;
   double exact = NAN;  // NaN when not given
   double diff = 0;     // tabulated - computed, units
-  /// The same in units of the last place the reading or the model uses (see
-  /// CoarseDiff): the size of the author's departure.
+  /// The same counted as the author departs (see AuthorDiff): in steps of
+  /// the column's grid, or in the last place the reading or the model uses.
   double author_diff = 0;
+  int grid = 1;                   // the step the author writes the last place in (units)
   double slip_rate = 0;           // the copy's share of entries beyond the author's departure
   int symbols = 1;                // symbols written in the copy's entry
   bool shared_neighbour = false;  // a neighbour departs the same way, within the author's departure
@@ -105,6 +106,13 @@ DiffColumn Diffs(const Transcription& table, const ColumnValues& values, int pla
 /// What the column tells about its author and its copyist.
 struct ColumnContext {
   DiffColumn diffs;
+  /// The step the author writes the column's last place in, in units of it:
+  /// 10 when he writes thirds in tens ("0;5,24,20"); 1 when no grid shows
+  /// (see MeasureGrid in grid.cpp).
+  int grid = 1;
+  /// Per row, tabulated - computed counted as the author departs: in steps
+  /// of the grid when the reading lies on it, else in units (as `diffs`).
+  std::vector<double> departure;
   AuthorProfile author;
   double slip_rate = kSlipRatePrior;
   /// Rows departing beyond the author's typical departure (and not read
@@ -135,6 +143,22 @@ ColumnContext MeasureColumn(const Transcription& table, const ColumnValues& valu
 /// (a difference of entries to seconds written "0;14,54,0") departs by
 /// seconds, not by 60 thirds. Else in units of `places`.
 double CoarseDiff(const Sexagesimal& reading, const Sexagesimal& computed, int places);
+/// `reading` - `computed` in steps of `grid` units of the last place when
+/// `grid` > 1 and the reading lies on the grid (its units a multiple of it):
+/// an author who writes his thirds in tens and misses the model by one step
+/// departs by one step, not by ten units. nullopt otherwise.
+std::optional<double> GridSteps(const Sexagesimal& reading, const Sexagesimal& computed, int places,
+                                int grid);
+/// The author's departure of `reading` from `computed`: in grid steps when
+/// the reading lies on the grid, else as CoarseDiff.
+double AuthorDiff(const Sexagesimal& reading, const Sexagesimal& computed, int places, int grid);
+/// `reading` - `computed` in grid steps when the reading lies on the grid,
+/// else in units of `places` (as DiffUnits).
+double DepartureDiff(const Sexagesimal& reading, const Sexagesimal& computed, int places, int grid);
+/// The step the author writes a column's last place in (units of it): the
+/// coarsest divisor of 60 that nearly every reading lies on (the others'
+/// consensus where there is one, else this copy's); 1 when none (grid.cpp).
+int MeasureGrid(const Transcription& table, const ColumnValues& values, int places);
 /// Units beyond the exact landing: 0 within the tolerance, 1 for one more unit...
 int UnitsOff(double diff, double tolerance);
 

@@ -140,7 +140,8 @@ std::string SourceWords(const Path& path, const NumeralScript& script) {
 /// The readings the original may have had.
 std::vector<Sexagesimal> Targets(const CellContext& c) {
   std::vector<Sexagesimal> out = {c.Expected(), c.model_reading};
-  const Sexagesimal unit = Sexagesimal::FromUnits(1, c.places);
+  // Within the author's departure: steps of his grid (one unit when none).
+  const Sexagesimal unit = Sexagesimal::FromUnits(c.grid, c.places);
   Sexagesimal up = c.model_reading, down = c.model_reading;
   for (int k = 1; k <= c.author->typical; ++k) {
     up = up + unit;

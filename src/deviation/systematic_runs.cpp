@@ -104,6 +104,8 @@ struct Scan {
     auto restored = Restore(t, *copy, Expected(r), places);
     if (!restored) return std::nullopt;
     if (column.tradition_reading[r] && *restored == *column.tradition_reading[r]) return restored;
+    // In units, not the column's grid steps (see MeasureColumn's tradition
+    // reading): a branch's one-step constant error is no author's departure.
     const int k = UnitsOff(DiffUnits(*restored, *values.computed[r], places), options.tolerance);
     if (k > column.author.typical) return std::nullopt;
     return restored;
