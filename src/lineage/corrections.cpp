@@ -26,17 +26,23 @@ std::vector<int> Carriers(const Character& ch, int except) {
 // `l` of W: another carrier of l carries k (l arose inside k's group; its
 // carriers that lack k descend from W, or corrected too), and so does a
 // witness that can be read at l and lacks it (k's group is the larger one).
-bool Encloses(const Character& l, const std::vector<int>& l_others,
-              const std::vector<int>& carriers) {
+// `own_group`: more of l's other carriers that can be read at k carry it
+// than lack it, so that k is above the group l places W in, not an error
+// of a subgroup that W's line never had (its right reading there is then
+// simply the archetype's, retained by its own line).
+bool Encloses(const Character& l, const std::vector<int>& l_others, const Character& k,
+              const std::vector<int>& carriers, bool own_group) {
   bool inside = false, larger = false;
   for (int x : carriers) {
     inside = inside || std::binary_search(l_others.begin(), l_others.end(), x);
     larger = larger || l.states[x] == 0;
   }
-  return inside && larger;
+  int with = 0, without = 0;
+  for (int x : l_others) with += k.states[x] == 1, without += k.states[x] == 0;
+  return inside && larger && (!own_group || with > without);
 }
 
-Correction Examine(const CharacterMatrix& m, int w) {
+Correction Examine(const CharacterMatrix& m, int w, bool own_group = false) {
   Correction c;
   c.witness = m.taxa[w];
   std::vector<const Character*> placing;  // W's shared errors
@@ -57,7 +63,7 @@ Correction Examine(const CharacterMatrix& m, int w) {
     int count = 0;
     bool before = false, after = false;
     for (std::size_t l = 0; l < placing.size(); ++l) {
-      if (!Encloses(*placing[l], others[l], carriers)) continue;
+      if (!Encloses(*placing[l], others[l], ch, carriers, own_group)) continue;
       inside += placing[l]->weight, ++count;
       before = before || placing[l]->position <= ch.position;
       after = after || placing[l]->position >= ch.position;
@@ -111,6 +117,12 @@ std::vector<Correction> FindCorrections(const CharacterMatrix& m) {
   // Recomputing witnesses first; then correctors one at a time, the
   // strongest first, each set aside before the next is looked for (a
   // corrector's right readings make its relatives look like correctors).
+  // A witness whose corrections are mostly against its own group (see
+  // kOwnGroupShare) goes before one whose are not: two incompatible sets
+  // of errors read right by two witnesses (seed 36 of the benchmark: E
+  // lacks D F K's errors, D and K lack E F's) are explained by one
+  // corrector, and it is the one whose other errors place it inside the
+  // group it reads right.
   CharacterMatrix current = m;
   for (int w = 0; w < static_cast<int>(m.taxa.size()); ++w) {
     Correction c;
@@ -126,12 +138,16 @@ std::vector<Correction> FindCorrections(const CharacterMatrix& m) {
   current = MaskCorrections(m, out);
   for (;;) {
     std::optional<Correction> best;
+    bool best_own = false;
     for (int w = 0; w < static_cast<int>(m.taxa.size()); ++w) {
       const bool done = std::any_of(out.begin(), out.end(),
                                     [&](const Correction& c) { return c.witness == m.taxa[w]; });
       if (done) continue;
       Correction c = Examine(current, w);
-      if (Corrects(c) && (!best || c.weight > best->weight)) best = std::move(c);
+      if (!Corrects(c)) continue;
+      const bool own = Examine(current, w, true).weight >= kOwnGroupShare * c.weight;
+      if (!best || (own && !best_own) || (own == best_own && c.weight > best->weight))
+        best = std::move(c), best_own = own;
     }
     if (!best) break;
     current = MaskCorrections(current, {*best});

@@ -265,6 +265,8 @@ void ScoreMixtures(const synth::Tradition& t, const lineage::LineageReport& r, T
     const bool said = corrected.count(n.name) > 0;
     s.correctors += corrector, s.correctors_flagged += said,
         s.correctors_right += corrector && said;
+    if (verbose && corrector != said)
+      std::printf("  corrector %s: %s\n", corrector ? "missed" : "false", n.name.c_str());
   }
   if (verbose) {
     for (const auto& c : r.contamination) std::printf("  said: %s\n", c.text.c_str());
