@@ -158,4 +158,42 @@ ReferenceVerdict GuardTrend(const std::vector<TrendRow>& rows, const GuardOption
   return v;
 }
 
+ReferenceVerdict GuardAgreedRun(const std::vector<TrendRow>& rows, const GuardOptions& options) {
+  ReferenceVerdict v;
+  v.consensus = true;
+  v.compared = static_cast<int>(rows.size());
+  std::size_t first = 0, best_first = 0;
+  int run = 0, best = 0;
+  for (std::size_t i = 0; i < rows.size(); ++i) {
+    const TrendRow& r = rows[i];
+    if (r.readers < 2 || 2 * r.unexplained <= r.readers) {
+      run = 0;
+      continue;
+    }
+    if (run++ == 0) first = i;
+    if (run > best) best = run, best_first = first;
+    if (run == options.agreed_rows)
+      v.flagged += run;
+    else if (run > options.agreed_rows)
+      ++v.flagged;
+  }
+  if (best < options.agreed_rows || v.flagged <= options.agreed_share * v.compared) {
+    v.flagged = 0;
+    return v;
+  }
+  v.explains = false;
+  char what[320];
+  std::snprintf(what, sizeof what,
+                "%d of %d rows (%.0f%%), in runs of %d or more (the longest %s to %s, %d rows), "
+                "where most witnesses read alike a value off it that no listed slip reaches",
+                v.flagged, v.compared, 100.0 * v.flagged / v.compared, options.agreed_rows,
+                rows[best_first].arg.c_str(),
+                rows[best_first + static_cast<std::size_t>(best) - 1].arg.c_str(), best);
+  v.why = std::string("the reference does not explain this column: ") + what +
+          ", which is the author's text departing from the reference there (the reference "
+          "misses those rows) rather than a copy's slips; no emendation is proposed (the "
+          "model-free screen is shown instead)";
+  return v;
+}
+
 }  // namespace apograph::deviation

@@ -157,13 +157,15 @@ int Compared(const ColumnRun& run, const Transcription& t) {
 }
 
 /// Rows of `run` that its findings flag (copying slips and unexplained
-/// deviations; blanks and illegible cells left out).
-std::vector<bool> FlaggedRows(const ColumnRun& run, std::size_t rows) {
+/// deviations; blanks and illegible cells left out), or with `unexplained`
+/// only those that no listed slip explains.
+std::vector<bool> FlaggedRows(const ColumnRun& run, std::size_t rows, bool unexplained = false) {
   std::vector<bool> out(rows, false);
   for (const auto& f : run.found) {
     const auto cls = f.best().cls;
     if (!deviation::IsCopyingSlip(cls) || cls == deviation::SlipClass::kBlank ||
-        cls == deviation::SlipClass::kIllegible)
+        cls == deviation::SlipClass::kIllegible ||
+        (unexplained && cls != deviation::SlipClass::kUnexplained))
       continue;
     for (const auto& c : f.cells) {
       if (c.row < rows) out[c.row] = true;
@@ -205,8 +207,9 @@ std::optional<deviation::ReferenceVerdict> ConsensusVerdict(
 }
 
 /// The trend test's rows: per argument (in its numeric order), the median
-/// over the witnesses of reading minus model and how many flag it. Modern
-/// editions are left out, as in the tradition's view.
+/// over the witnesses of reading minus model, how many flag it and how many
+/// of them with no listed slip. Modern editions are left out, as in the
+/// tradition's view. The trend test, then the agreed-run test.
 std::optional<deviation::ReferenceVerdict> TrendVerdict(const std::vector<ColumnRun>& runs,
                                                         const std::string& column,
                                                         const std::vector<const Transcription*>& ws,
@@ -215,6 +218,7 @@ std::optional<deviation::ReferenceVerdict> TrendVerdict(const std::vector<Column
     std::string arg;
     std::vector<double> diffs;
     int flaggers = 0;
+    int unexplained = 0;
   };
   std::map<double, Acc> by_arg;
   int witnesses = 0;
@@ -223,6 +227,7 @@ std::optional<deviation::ReferenceVerdict> TrendVerdict(const std::vector<Column
     if (run.ref.column_name != column || t.witness.Kind() == WitnessKind::kModernEdition) continue;
     ++witnesses;
     const auto flagged = FlaggedRows(run, t.rows.size());
+    const auto unexplained = FlaggedRows(run, t.rows.size(), true);
     for (const auto& [arg, r] : run.rows) {
       const auto v = ReadValue(t, r, run.ref.column, run.places);
       const auto& computed = run.values.computed[r];
@@ -232,6 +237,7 @@ std::optional<deviation::ReferenceVerdict> TrendVerdict(const std::vector<Column
       acc.arg = arg;
       acc.diffs.push_back(DiffUnits(*v, *computed, run.places));
       acc.flaggers += flagged[r];
+      acc.unexplained += flagged[r] && unexplained[r];
     }
   }
   if (witnesses < 2) return std::nullopt;
@@ -241,9 +247,11 @@ std::optional<deviation::ReferenceVerdict> TrendVerdict(const std::vector<Column
     std::sort(d.begin(), d.end());
     const std::size_t m = d.size() / 2;
     const double median = d.size() % 2 ? d[m] : (d[m - 1] + d[m]) / 2;
-    rows.push_back({acc.arg, median, static_cast<int>(d.size()), acc.flaggers, x});
+    rows.push_back({acc.arg, median, static_cast<int>(d.size()), acc.flaggers, x, acc.unexplained});
   }
-  return deviation::GuardTrend(rows, guard);
+  auto trend = deviation::GuardTrend(rows, guard);
+  if (!trend.explains) return trend;
+  return deviation::GuardAgreedRun(rows, guard);
 }
 
 std::vector<WitnessFindings> Explain(const std::vector<const Transcription*>& ws,

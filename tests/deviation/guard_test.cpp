@@ -1,6 +1,8 @@
 // The guard's trend test: rows most witnesses flag on a smooth hill of the
 // tradition's difference from the model refuse the reference; a copy's run
-// that jumps at once to its size, or rows few witnesses flag, do not.
+// that jumps at once to its size, or rows few witnesses flag, do not. The
+// agreed-run test: consecutive rows most witnesses read alike where no slip
+// reaches their reading refuse it.
 #include "deviation/guard.hpp"
 
 #include <doctest/doctest.h>
@@ -74,4 +76,37 @@ TEST_CASE("guard: a difference proportional to irregular arguments is a rate's e
   auto flat = Rows({0, 0, 0, 5, 5, 5, 5}, {3, 4, 5, 6});
   for (std::size_t i = 0; i < flat.size(); ++i) flat[i].x = xs[i];
   CHECK(GuardTrend(flat).explains);
+}
+
+TEST_CASE("guard: a run of rows most witnesses read alike, no slip reaching it, refuses") {
+  // A difference column whose reference misses a block of ten rows by about
+  // half a degree (the rest right): every witness reads the author's values
+  // there and no listed slip reaches them from the model's. It jumps at once
+  // to its size, so the trend test lets it through.
+  std::vector<double> units(40, 0);
+  for (int r = 15; r < 25; ++r) units[static_cast<std::size_t>(r)] = -93800 - 3500.0 * (r - 15);
+  auto rows = Rows(units, {});
+  for (int r = 15; r < 25; ++r) {
+    auto& row = rows[static_cast<std::size_t>(r)];
+    row.flaggers = 4;
+    row.unexplained = r == 17 ? 3 : 4;  // one row: one of them misread there
+  }
+  CHECK(GuardTrend(rows).explains);
+  auto v = GuardAgreedRun(rows);
+  CHECK_FALSE(v.explains);
+  CHECK(v.flagged == 10);
+  CHECK(v.why.find("15 to 24") != std::string::npos);
+}
+
+TEST_CASE("guard: unexplained readings of one witness, or of a few rows, are a copy's") {
+  auto rows = Rows(std::vector<double>(20, 0), {4, 5, 6, 7});
+  for (int r : {4, 5, 6, 7}) rows[static_cast<std::size_t>(r)].unexplained = 1;  // one of four
+  CHECK(GuardAgreedRun(rows).explains);
+  for (int r : {4, 5}) rows[static_cast<std::size_t>(r)].unexplained = 3;  // two rows only
+  CHECK(GuardAgreedRun(rows).explains);
+  rows[6].unexplained = 3;  // three consecutive rows
+  CHECK_FALSE(GuardAgreedRun(rows).explains);
+  // Rows explained as a slip (a run inherited from a lost ancestor) do not count.
+  auto slips = Rows(std::vector<double>(20, 0), {4, 5, 6, 7, 8});
+  CHECK(GuardAgreedRun(slips).explains);
 }

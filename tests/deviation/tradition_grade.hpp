@@ -387,6 +387,9 @@ inline Grade GradeTradition(const synth::Tradition& t, const std::string& script
         }
         ++g.right_columns;
         g.right_refused += refused;
+        if (debug && refused)
+          g.notes.push_back("RIGHT-REFUSED " + author.key.id + " " + key.name + " " +
+                            ws[i].node->name + " | " + found[i].VerdictOf(key.name)->verdict.why);
         GradeColumn(ws[i], found[i], author, key, index, g);
       }
     }
