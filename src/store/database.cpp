@@ -4,6 +4,7 @@
 
 #include <algorithm>
 #include <atomic>
+#include <unordered_map>
 
 #include "store/schema.hpp"
 
@@ -31,6 +32,43 @@ std::string Reason(sqlite3* db, int code) {
 
 }  // namespace
 
+/// The idle statements of one connection, keyed by their SQL.
+class StatementCache {
+ public:
+  /// Judgement: far more than the distinct queries of any one command
+  /// (a few dozen), small enough that the prepared programs stay a few MiB.
+  static constexpr std::size_t kMostIdle = 256;
+
+  ~StatementCache() { Clear(); }
+
+  sqlite3_stmt* Take(const std::string& sql) {
+    auto it = idle_.find(sql);
+    if (it == idle_.end()) return nullptr;
+    sqlite3_stmt* stmt = it->second;
+    idle_.erase(it);
+    return stmt;
+  }
+
+  /// Keeps `stmt` for the next Prepare of `sql`, reset and unbound.
+  void Give(std::string sql, sqlite3_stmt* stmt) {
+    sqlite3_reset(stmt);
+    sqlite3_clear_bindings(stmt);
+    if (idle_.size() >= kMostIdle) {
+      sqlite3_finalize(stmt);
+      return;
+    }
+    idle_.emplace(std::move(sql), stmt);
+  }
+
+  void Clear() {
+    for (auto& [sql, stmt] : idle_) sqlite3_finalize(stmt);
+    idle_.clear();
+  }
+
+ private:
+  std::unordered_multimap<std::string, sqlite3_stmt*> idle_;
+};
+
 void SetBusyTimeout(int milliseconds) { busy_timeout_ms.store(std::max(0, milliseconds)); }
 int BusyTimeout() { return busy_timeout_ms.load(); }
 
@@ -41,9 +79,20 @@ Statement::Statement(sqlite3* db, std::string_view sql) : db_(db) {
   }
 }
 
-Statement::~Statement() { sqlite3_finalize(stmt_); }
+Statement::~Statement() {
+  if (!stmt_) return;
+  if (auto cache = cache_.lock()) {
+    cache->Give(std::move(sql_), stmt_);
+    return;
+  }
+  sqlite3_finalize(stmt_);
+}
 
-Statement::Statement(Statement&& other) noexcept : db_(other.db_), stmt_(other.stmt_) {
+Statement::Statement(Statement&& other) noexcept
+    : db_(other.db_),
+      stmt_(other.stmt_),
+      cache_(std::move(other.cache_)),
+      sql_(std::move(other.sql_)) {
   other.stmt_ = nullptr;
 }
 
@@ -64,6 +113,11 @@ Statement& Statement::Bind(int index, std::string_view value) {
 
 Statement& Statement::BindStatic(int index, std::string_view value) {
   sqlite3_bind_text(stmt_, index, value.data(), static_cast<int>(value.size()), SQLITE_STATIC);
+  return *this;
+}
+
+Statement& Statement::BindStaticTerminated(int index, const std::string& value) {
+  sqlite3_bind_text(stmt_, index, value.c_str(), -1, SQLITE_STATIC);
   return *this;
 }
 
@@ -124,7 +178,8 @@ std::optional<std::string> Statement::OptionalText(int column) const {
   return Text(column);
 }
 
-Database::Database(const std::string& path) : path_(path) {
+Database::Database(const std::string& path)
+    : path_(path), cache_(std::make_shared<StatementCache>()) {
   if (sqlite3_open_v2(path.c_str(), &db_,
                       SQLITE_OPEN_READWRITE | SQLITE_OPEN_CREATE | SQLITE_OPEN_NOMUTEX,
                       nullptr) != SQLITE_OK) {
@@ -137,6 +192,7 @@ Database::Database(const std::string& path) : path_(path) {
   } catch (...) {
     // The destructor does not run for a half-built object: close here, or
     // a refused database (newer schema, not a database) leaks its handle.
+    cache_->Clear();
     sqlite3_close_v2(db_);
     throw;
   }
@@ -162,9 +218,19 @@ void Database::Configure() {
   Migrate();
 }
 
-Database::~Database() { sqlite3_close_v2(db_); }
+Database::~Database() {
+  cache_.reset();  // finalizes the idle statements; statements still out finalize themselves
+  sqlite3_close_v2(db_);
+}
 
-Statement Database::Prepare(std::string_view sql) { return Statement(db_, sql); }
+Statement Database::Prepare(std::string_view sql) {
+  std::string key(sql);
+  if (sqlite3_stmt* stmt = cache_->Take(key)) return {db_, stmt, cache_, std::move(key)};
+  Statement fresh(db_, sql);
+  fresh.cache_ = cache_;
+  fresh.sql_ = std::move(key);
+  return fresh;
+}
 
 void Database::Execute(std::string_view sql) {
   char* err = nullptr;

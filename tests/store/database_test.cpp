@@ -1,5 +1,7 @@
-// The database connection's transactions (store/database.hpp).
+// The database connection's transactions and its idle statements (store/database.hpp).
 #include <doctest/doctest.h>
+
+#include <optional>
 
 #include "cli_runner.hpp"
 #include "store/database.hpp"
@@ -37,4 +39,49 @@ TEST_CASE("a transaction inside another is a savepoint the outer one can undo") 
   auto again = db.Prepare("SELECT sum(x) FROM t");
   REQUIRE(again.Step());
   CHECK(again.Int(0) == 3);
+}
+
+TEST_CASE("a statement given back and prepared again starts afresh, and two at once are distinct") {
+  apograph::testing::ScratchDir dir("cache");
+  store::Database db((dir / "c.sqlite").string());
+  db.Execute("CREATE TABLE t (x INTEGER)");
+  db.Execute("INSERT INTO t VALUES (1), (2), (3)");
+  const char* const sql = "SELECT x FROM t WHERE x >= ?1 ORDER BY x";
+  {
+    auto first = db.Prepare(sql);
+    first.Bind(1, 2);
+    REQUIRE(first.Step());
+    CHECK(first.Int(0) == 2);
+    // The same SQL while the first is still stepping: its own statement.
+    auto second = db.Prepare(sql);
+    second.Bind(1, 1);
+    REQUIRE(second.Step());
+    CHECK(second.Int(0) == 1);
+    REQUIRE(first.Step());
+    CHECK(first.Int(0) == 3);
+  }  // both go back half-stepped and bound
+  auto again = db.Prepare(sql);
+  // Bindings cleared: NULL compares as unknown, so no row.
+  CHECK_FALSE(again.Step());
+  again.Reset();
+  again.Bind(1, 3);
+  REQUIRE(again.Step());
+  CHECK(again.Int(0) == 3);
+  CHECK_FALSE(again.Step());
+  // A write after statements went back idle is not blocked by them.
+  store::Transaction tx(db);
+  db.Execute("DELETE FROM t");
+  tx.Commit();
+}
+
+TEST_CASE("a statement outliving its database is finalized, not given back") {
+  apograph::testing::ScratchDir dir("outlive");
+  std::optional<store::Statement> kept;
+  {
+    store::Database db((dir / "o.sqlite").string());
+    db.Execute("CREATE TABLE t (x INTEGER)");
+    kept.emplace(db.Prepare("SELECT count(*) FROM t"));
+  }
+  kept.reset();  // must neither crash nor leak (the ASan build checks)
+  CHECK_FALSE(kept.has_value());
 }
