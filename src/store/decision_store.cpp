@@ -113,11 +113,18 @@ void MirrorEmendationStatus(Database& db, std::int64_t emendation_id, const std:
 
 void RecordRowArguments(Database& db, std::int64_t revision_id, const Transcription& t) {
   std::string json = "[";
+  json.reserve(t.rows.size() * 12);
   for (std::size_t r = 0; r < t.rows.size(); ++r) {
-    const auto arg = t.ArgumentInUse(r);
-    json += (r ? "," : "") + (arg ? "\"" + arg->ToString() + "\"" : std::string("null"));
+    if (r) json += ',';
+    if (const auto arg = t.ArgumentInUse(r)) {
+      json += '"';
+      json += arg->ToString();
+      json += '"';
+    } else {
+      json += "null";
+    }
   }
-  json += "]";
+  json += ']';
   auto s = db.Prepare(
       "INSERT OR REPLACE INTO revision_argument (revision_id, arguments) VALUES (?1, ?2)");
   s.Bind(1, revision_id).Bind(2, json).Run();
