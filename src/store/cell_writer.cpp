@@ -48,7 +48,7 @@ void CellWriter::Bind(Statement& s, int slot, int index) {
   const auto i = static_cast<std::size_t>(index);
   const int b = slot * kParams;
   s.Bind(b + 1, pending_[i].revision).Bind(b + 2, pending_[i].row).Bind(b + 3, pending_[i].line);
-  s.BindStatic(b + 4, cells_[i]);
+  s.BindStaticTerminated(b + 4, cells_[i]);  // JSON: a NUL is escaped
 }
 
 }  // namespace apograph::store
