@@ -31,6 +31,20 @@ std::vector<SimpleValue> SimpleValues(const model::Model& m, const model::ParamS
   return out;
 }
 
+/// The values of `scored` (distance, value) nearest first, at most `most`;
+/// equal distances keep their order.
+template <typename T>
+std::vector<T> NearestFirst(std::vector<std::pair<double, T>> scored, int most) {
+  std::stable_sort(scored.begin(), scored.end(),
+                   [](const auto& x, const auto& y) { return x.first < y.first; });
+  std::vector<T> out;
+  for (auto& [d, v] : scored) {
+    if (static_cast<int>(out.size()) >= most) break;
+    out.push_back(std::move(v));
+  }
+  return out;
+}
+
 /// Every pair of simple values of the combination's two parameters whose
 /// combination lies within `many` standard errors of `value`, nearest first
 /// (at most `most`). `full` holds the model's other parameters.
@@ -50,14 +64,7 @@ std::vector<SimplePair> PairsNear(const model::Model& m, const model::ParamCombi
       if (d <= many * se) near.push_back({d, {ui, uj, a, b, v}});
     }
   }
-  std::stable_sort(near.begin(), near.end(),
-                   [](const auto& x, const auto& y) { return x.first < y.first; });
-  std::vector<SimplePair> out;
-  for (auto& [d, p] : near) {
-    if (static_cast<int>(out.size()) >= most) break;
-    out.push_back(std::move(p));
-  }
-  return out;
+  return NearestFirst(std::move(near), most);
 }
 
 }  // namespace
@@ -81,14 +88,7 @@ std::vector<SimpleValue> EquivalentValues(const model::Model& m, const std::stri
       }
     }
   }
-  std::stable_sort(found.begin(), found.end(),
-                   [](const auto& x, const auto& y) { return x.first < y.first; });
-  std::vector<SimpleValue> out;
-  for (auto& [d, v] : found) {
-    if (static_cast<int>(out.size()) >= most) break;
-    out.push_back(std::move(v));
-  }
-  return out;
+  return NearestFirst(std::move(found), most);
 }
 
 std::vector<SimplePair> CombinationPairs(const Candidate& best, double many, int most,
