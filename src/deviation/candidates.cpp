@@ -186,19 +186,26 @@ std::vector<Candidate> RepetitionCandidates(const CellContext& c) {
   const Digits copy = ToDigits(c.tabulated, c.places);
   const Digits model = ToDigits(c.Expected(), c.places);
   for (std::ptrdiff_t off : {-1, 1}) {
-    auto n = RightNeighbour(c, off);
-    if (!n) continue;
     const std::string where = off < 0 ? "the entry above" : "the entry below";
-    if (AtPlaces(*n, c.places) == c.tabulated) {
+    // A whole entry written twice is a repetition even when the entry above
+    // it is itself miscopied: the copyist repeats the line he has just
+    // written. The entry below is not yet on his page, so a wrong one does
+    // not vouch, nor does a wrong neighbour for a single repeated place.
+    const auto written = c.Neighbour(off);
+    const bool itself_wrong = !RightNeighbour(c, off);
+    if (written && AtPlaces(*written, c.places) == c.tabulated && (off < 0 || !itself_wrong)) {
       Candidate cand;
       cand.explanation.cls = SlipClass::kRepetition;
       cand.explanation.emendation = c.Expected();
-      cand.explanation.evidence =
-          "repeats " + where + " (" + n->ToString() + "); " + c.ModelClause(c.Expected());
+      cand.explanation.evidence = "repeats " + where + " (" + written->ToString() +
+                                  (itself_wrong ? ", itself miscopied" : "") + "); " +
+                                  c.ModelClause(c.Expected());
       cand.likelihood = c.SlipLikelihood(kShareRepetition, 0.5, *c.Fit(c.Expected()));
       out.push_back(std::move(cand));
       continue;
     }
+    auto n = RightNeighbour(c, off);
+    if (!n) continue;
     const Digits nd = ToDigits(*n, c.places);
     for (std::size_t p = 0; p < copy.d.size() && p < nd.d.size() && p < model.d.size(); ++p) {
       if (copy.d[p] != nd.d[p] || copy.d[p] == model.d[p]) continue;

@@ -129,6 +129,26 @@ TEST_CASE("each kind of slip injected into a solar equation table is recovered")
         std::string::npos);
 }
 
+TEST_CASE("an entry repeating the miscopied entry above is a repetition, not unexplained") {
+  // Solar eccentric, e = 2;30, to seconds. Seconds transposed at one row
+  // (e.g. 50 copied 05), the next row a copy of that wrong line: the copyist
+  // repeats what he has just written. The entry below is not yet on his
+  // page, so the first slip stays a transposition.
+  Synthetic s = MakeTable(testing::SolarEquation, 1, 1, 180, 2);
+  const std::size_t trans = FindRow(s, 2, 20, [](int x) {
+    return x >= 10 && x % 10 != 0 && x / 10 != x % 10 && (x / 10 == 1 || x % 10 == 1) &&
+           x % 10 != 5 && x / 10 != 5 && x % 10 != 7 && x / 10 != 7 && x % 10 != 9 && x / 10 != 9 &&
+           x % 10 < 6;
+  });
+  const int tv = s.table.rows[trans].cells[0].value->FractionDigits()[1];
+  s.Set(trans, WithPlace(s, trans, 2, (tv % 10) * 10 + tv / 10));
+  s.Set(trans + 1, s.Get(trans));
+  const auto findings = Explain(s);
+  CheckSingle(findings, trans, SlipClass::kTransposition, Original(s, trans));
+  CheckSingle(findings, trans + 1, SlipClass::kRepetition, Original(s, trans + 1));
+  CHECK(At(findings, trans + 1)->best().evidence.find("itself miscopied") != std::string::npos);
+}
+
 TEST_CASE("places written with two digits: a leading zero transposed or confused") {
   // Fractional places are two-digit positions: 0;40,48 copied "0;04,48" is
   // read 0;4,48 (the digits of 40 transposed), and 2;4,01 copied "2;4,51"
