@@ -13,7 +13,26 @@ struct RunCandidate {
   std::size_t first = 0, last = 0;
   int shift = 0;
   int deviant = 0;
+  std::vector<bool> slipped;  // per row of the run: a slip of its own on top of the slide
 };
+
+/// Two numbers of one place written alike but for one slip of the pen: one
+/// decimal digit changed, or the two digits swapped ("03" for "30").
+bool OneDigitApart(std::int64_t a, std::int64_t b) {
+  if (a == b || a < 0 || b < 0 || a > 99 || b > 99) return false;
+  return a / 10 == b / 10 || a % 10 == b % 10 || (a / 10 == b % 10 && a % 10 == b / 10);
+}
+
+/// `a` and `b` agree at every place but one, where they are one digit apart.
+bool OneSlipApart(const Digits& a, const Digits& b) {
+  if (a.negative != b.negative || a.d.size() != b.d.size()) return false;
+  int differ = 0;
+  for (std::size_t p = 0; p < a.d.size(); ++p) {
+    if (a.d[p] == b.d[p]) continue;
+    if (++differ > 1 || !OneDigitApart(a.d[p], b.d[p])) return false;
+  }
+  return differ == 1;
+}
 
 struct RunScan {
   const Transcription& table;
@@ -57,25 +76,67 @@ struct RunScan {
     const double departure = std::floor(options.computational_units);
     return off <= options.tolerance + departure + 1e-9 && step >= 5 * (departure + 1);
   }
+  /// The reading row r + k should have: the other witnesses' or the model's.
+  std::optional<Sexagesimal> Target(std::size_t r, int k) const {
+    const std::ptrdiff_t j = static_cast<std::ptrdiff_t>(r) + k;
+    if (j < 0 || j >= static_cast<std::ptrdiff_t>(values.computed.size())) return std::nullopt;
+    if (const auto& others = column.consensus[static_cast<std::size_t>(j)]) return *others;
+    if (const auto& c = values.computed[static_cast<std::size_t>(j)]) return c->Rounded(places);
+    return std::nullopt;
+  }
+  /// A deviant entry one slip of the pen from the value of row r + k, and
+  /// not one slip from its own row's value: the slide and a slip of its own
+  /// (copied twice, slips compound).
+  bool NearMatch(std::size_t r, int k) const {
+    if (!Value(r) || !Deviant(r) || !values.computed[r]) return false;
+    const auto target = Target(r, k);
+    if (!target) return false;
+    const Digits copy = ToDigits(*Value(r), places);
+    const Sexagesimal own =
+        column.consensus[r] ? *column.consensus[r] : values.computed[r]->Rounded(places);
+    return OneSlipApart(copy, ToDigits(*target, places)) &&
+           !OneSlipApart(copy, ToDigits(own, places));
+  }
   void Collect(int k, std::vector<RunCandidate>& out) const {
     const std::size_t n = table.rows.size();
     for (std::size_t i = 0; i < n;) {
-      if (!Match(i, k)) {
+      if (!Match(i, k) && !NearMatch(i, k)) {
         ++i;
         continue;
       }
       std::size_t j = i;
-      while (j + 1 < n && Match(j + 1, k)) ++j;
+      while (j + 1 < n && (Match(j + 1, k) || NearMatch(j + 1, k))) ++j;
       std::size_t a = i, b = j;
       while (a < b && !Deviant(a)) ++a;
       while (b > a && !Deviant(b)) --b;
-      int deviant = 0;
-      for (std::size_t r = a; r <= b; ++r) deviant += Deviant(r);
-      if (b > a && deviant >= 2) out.push_back({a, b, k, deviant});
+      RunCandidate run{a, b, k, 0, {}};
+      int exact = 0;
+      for (std::size_t r = a; r <= b; ++r) {
+        run.deviant += Deviant(r);
+        run.slipped.push_back(!Match(r, k));
+        exact += !run.slipped.back();
+      }
+      // Judgement: a slide shows in rows that match exactly; rows with a slip
+      // of their own may join it, but a run needs at least one exact row and,
+      // when any row has its own slip, three rows, so that two chance
+      // near-misses never make a slide.
+      const bool any_slip = static_cast<std::size_t>(exact) < b - a + 1;
+      if (b > a && run.deviant >= 2 && exact >= 1 && (!any_slip || b - a >= 2))
+        out.push_back(std::move(run));
       i = j + 1;
     }
   }
 };
+
+std::string SlippedClause(const std::vector<std::string>& args) {
+  if (args.empty()) return "";
+  std::string list;
+  for (const auto& a : args) list += (list.empty() ? "" : ", ") + a;
+  return "; besides the slide, " + list +
+         (args.size() == 1 ? " has a slip of one digit of its own"
+                           : " have a slip of one digit of their own") +
+         " (restored from the other witnesses or the model)";
+}
 
 std::string RowsWord(int k) {
   return std::abs(k) == 1 ? "one row" : std::to_string(std::abs(k)) + " rows";
@@ -85,18 +146,21 @@ Finding RunFinding(const RunScan& s, const RunCandidate& run) {
   Finding f = NewFinding(s.table, s.values, s.places);
   bool small = true;
   int sign = 0, supplied = 0;
+  std::vector<std::string> slipped_rows;
   double low = 1e300, high = -1e300;
   for (std::size_t r = run.first; r <= run.last; ++r) {
     f.cells.push_back(MakeCell(s.table, s.values, r, s.places));
     const std::ptrdiff_t from = static_cast<std::ptrdiff_t>(r) - run.shift;
     auto& cell = f.cells.back();
-    if (from >= static_cast<std::ptrdiff_t>(run.first) &&
-        from <= static_cast<std::ptrdiff_t>(run.last)) {
+    const bool in_run = from >= static_cast<std::ptrdiff_t>(run.first) &&
+                        from <= static_cast<std::ptrdiff_t>(run.last);
+    if (in_run && !run.slipped[static_cast<std::size_t>(from) - run.first]) {
       cell.emendation = s.Value(static_cast<std::size_t>(from))->Rounded(s.places);
     } else if (auto original = s.column.Original(r, s.values, s.options, s.places)) {
       cell.emendation = original;
       ++supplied;
     }
+    if (run.slipped[r - run.first]) slipped_rows.push_back(cell.arg);
     if (s.Deviant(r)) {
       const double d = s.column.departure[r];
       low = std::min(low, d);
@@ -123,7 +187,11 @@ Finding RunFinding(const RunScan& s, const RunCandidate& run) {
                MakeCell(s.table, s.values, to_last, s.places).arg + ": the copyist's eye slid " +
                RowsWord(run.shift) + (run.shift > 0 ? " ahead" : " behind") +
                " (eye-skip); each entry is restored to its own row" +
-               (supplied ? " (" + std::to_string(supplied) + " supplied from the model)" : "");
+               (supplied ? " (" + std::to_string(supplied) + " supplied from the model)" : "") +
+               SlippedClause(slipped_rows);
+  // Judgement: each row that needs a slip of its own on top of the slide
+  // makes the slide a little less certain.
+  e.score -= 0.1 * static_cast<double>(slipped_rows.size());
   // A constant small offset is as well explained by the author's computation
   // as by a slide; offsets that vary row by row but match the neighbouring
   // rows exactly are the slide's signature.

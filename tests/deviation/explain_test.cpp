@@ -189,6 +189,29 @@ TEST_CASE("a run of entries displaced by one row is one finding") {
   CHECK(f.best().evidence.find("eye-skip") != std::string::npos);
 }
 
+TEST_CASE("a displaced run whose rows carry slips of their own is still one finding") {
+  // Copied twice, slips compound: a run slid one row ahead, and in two of its
+  // rows a seconds digit miswritten as well. Each row is restored to its own
+  // reading, not to the slipped neighbour.
+  Synthetic s = MakeTable(testing::SolarEquation, 1, 1, 180, 2);
+  for (std::size_t r = 60; r <= 64; ++r) s.Set(r, Original(s, r + 1));
+  for (std::size_t r : {61, 63}) {
+    const int sec = s.table.rows[r].cells[0].value->FractionDigits()[1];
+    s.Set(r, WithPlace(s, r, 2, sec / 10 * 10 + (sec % 10 + 5) % 10));
+  }
+  const auto findings = Explain(s);
+  REQUIRE(findings.size() == 1);
+  const Finding& f = findings.front();
+  INFO(f.Note("A"));
+  CHECK(f.best().cls == SlipClass::kDisplacedRun);
+  CHECK(f.cells.size() == 5);
+  for (const auto& c : f.cells) {
+    REQUIRE(c.emendation.has_value());
+    CHECK(c.emendation->ToString() == Original(s, c.row));
+  }
+  CHECK(f.best().evidence.find("have a slip of one digit of their own") != std::string::npos);
+}
+
 TEST_CASE("a run displaced by two rows, backwards, is one finding") {
   Synthetic s = MakeTable(testing::SolarEquation, 1, 1, 180, 2);
   for (std::size_t r = 100; r <= 103; ++r) s.Set(r, Original(s, r - 2));
