@@ -285,3 +285,34 @@ TEST_CASE("neighbouring digits of a whole part of three digits transposed") {
   REQUIRE(f->cells.front().emendation.has_value());
   CHECK(f->cells.front().emendation->ToString() == original.ToString());
 }
+
+TEST_CASE("a reading off the author's own value that the others share is this copy's slip") {
+  // The author wrote one second above the model at one row and every witness
+  // but D reads it; D reads one more second still. D's reading is within the
+  // author's departure of the model, but the others agree on another reading:
+  // D's is a copying slip, restored to theirs, not "perhaps the author's".
+  Synthetic s = MakeTable(testing::SolarEquation, 1, 1, 180, 2);
+  // Seconds ending in 4, 5 (the author), 6 (D): no listed confusion of
+  // Hindu-Arabic digits turns 5 into 6, nor 4 into 6.
+  const std::size_t row = RowEndingIn(s, 60, 4);
+  const std::string author = Moved(s, row, 1, 2).ToString();
+  s.Set(row, author);
+  auto witnesses = Copies(s, 4);
+  Synthetic d = s;
+  d.Set(row, Moved(s, row, 2, 2).ToString());
+  witnesses[3].rows[row] = d.table.rows[row];
+  const auto found = pipeline::ExplainTradition(witnesses, SolarReference(witnesses), kDir);
+  REQUIRE(found.size() == 4);
+  const Finding* f = At(found[3].findings, row);
+  REQUIRE(f != nullptr);
+  INFO(f->Note("D"));
+  CHECK(f->best().cls != SlipClass::kComputational);
+  REQUIRE(f->cells.front().emendation.has_value());
+  CHECK(f->cells.front().emendation->ToString() == author);
+  for (std::size_t w = 0; w < 3; ++w) {
+    const Finding* own = At(found[w].findings, row);
+    if (own == nullptr) continue;
+    CHECK_FALSE(IsCopyingSlip(own->best().cls));
+    CHECK_FALSE(own->cells.front().emendation.has_value());
+  }
+}
