@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 #include <random>
+#include <set>
 #include <sstream>
 
 #include "lineage/ancestral.hpp"
@@ -78,17 +79,42 @@ void Detach(Stemma& s, int n) {
   s.nodes[n].parent = -1;
 }
 
+// Whether every witness below `node` is `copy` or holds all its errors
+// (a copy of it, by `held`: pairs copy-exemplar of CopyCandidates).
+bool OnlyItsLine(const Stemma& s, int node, const std::string& copy,
+                 const std::set<std::pair<std::string, std::string>>& held) {
+  for (const auto& w : s.Below(node)) {
+    if (w != copy && !held.count({w, copy})) return false;
+  }
+  return true;
+}
+
 // A direct copy stands beside its exemplar in the stemma (or below it):
 // a lost copy between them, with readings the exemplar lacks, makes the
-// relation indirect.
-std::vector<CopyCandidate> Adjacent(const Stemma& s, std::vector<CopyCandidate> copies) {
-  std::erase_if(copies, [&](const CopyCandidate& c) {
-    const int a = NodeOf(s, c.exemplar), b = NodeOf(s, c.copy);
-    if (a < 0 || b < 0) return true;
-    const int pa = s.nodes[a].parent, pb = s.nodes[b].parent;
-    return !(pb == a || pa == pb || pa == b);
-  });
-  return copies;
+// relation indirect. The copy may stand at the head of a group of its own
+// copies (their node is its own, and the readings that mark it its own
+// errors): the exemplar then stands beside that group.
+bool Adjacent(const Stemma& s, const CopyCandidate& c,
+              const std::set<std::pair<std::string, std::string>>& held) {
+  const int a = NodeOf(s, c.exemplar), b = NodeOf(s, c.copy);
+  if (a < 0 || b < 0) return false;
+  const int pa = s.nodes[a].parent, pb = s.nodes[b].parent;
+  if (pb == a || pa == pb || pa == b) return true;
+  for (int n = pb; n >= 0 && n != s.root && OnlyItsLine(s, n, c.copy, held);
+       n = s.nodes[n].parent) {
+    if (s.nodes[n].parent == pa) return true;
+  }
+  return false;
+}
+
+std::vector<CopyCandidate> AdjacentCopies(const Stemma& s, const CharacterMatrix& oriented,
+                                          const std::vector<std::string>& correctors,
+                                          std::vector<std::string>& undecided) {
+  const std::vector<CopyCandidate> all = CopyCandidates(oriented, correctors);
+  std::set<std::pair<std::string, std::string>> held;
+  for (const auto& c : all) held.insert({c.copy, c.exemplar});
+  return ChooseCopies(
+      oriented, all, [&](const CopyCandidate& c) { return Adjacent(s, c, held); }, &undecided);
 }
 
 // A surviving exemplar is drawn above its copy: the copy, found beside it,
@@ -291,7 +317,9 @@ LineageReport AnalyseLineage(const CharacterMatrix& m, const LineageOptions& o) 
   for (const auto& c : r.corrections) correctors.push_back(c.witness);
   if (!r.results.empty()) {
     const CharacterMatrix final_oriented = Orient(unmixed, r.results.front().stemma);
-    r.copies = Adjacent(r.results.front().stemma, FindCopies(final_oriented, correctors));
+    std::vector<std::string> tied;
+    r.copies = AdjacentCopies(r.results.front().stemma, final_oriented, correctors, tied);
+    for (const auto& text : tied) Undecide(r, "copy", text);
     for (const auto& text : CopiesRefusedByDates(final_oriented)) Undecide(r, "copy", text);
   }
   for (auto& res : r.results) {
