@@ -93,7 +93,7 @@ bool OnlyItsLine(const Stemma& s, int node, const std::string& copy,
 // a lost copy between them, with readings the exemplar lacks, makes the
 // relation indirect. The copy may stand at the head of a group of its own
 // copies (their node is its own, and the readings that mark it its own
-// errors): the exemplar then stands beside that group.
+// errors): the exemplar then stands beside that group, or above it.
 bool Adjacent(const Stemma& s, const CopyCandidate& c,
               const std::set<std::pair<std::string, std::string>>& held) {
   const int a = NodeOf(s, c.exemplar), b = NodeOf(s, c.copy);
@@ -102,7 +102,7 @@ bool Adjacent(const Stemma& s, const CopyCandidate& c,
   if (pb == a || pa == pb || pa == b) return true;
   for (int n = pb; n >= 0 && n != s.root && OnlyItsLine(s, n, c.copy, held);
        n = s.nodes[n].parent) {
-    if (s.nodes[n].parent == pa) return true;
+    if (s.nodes[n].parent == pa || s.nodes[n].parent == a) return true;
   }
   return false;
 }
@@ -112,7 +112,9 @@ std::vector<CopyCandidate> AdjacentCopies(const Stemma& s, const CharacterMatrix
                                           std::vector<std::string>& undecided) {
   const std::vector<CopyCandidate> all = CopyCandidates(oriented, correctors);
   std::set<std::pair<std::string, std::string>> held;
-  for (const auto& c : all) held.insert({c.copy, c.exemplar});
+  // Any witness holding all the copy's errors may stand on its line, however
+  // few they are (judgement; measured in DEVELOPERS.md, "Lineage accuracy").
+  for (const auto& c : CopyCandidates(oriented, correctors, 0)) held.insert({c.copy, c.exemplar});
   return ChooseCopies(
       oriented, all, [&](const CopyCandidate& c) { return Adjacent(s, c, held); }, &undecided);
 }
