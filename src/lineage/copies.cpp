@@ -98,13 +98,11 @@ std::string CopyText(const CharacterMatrix& m, const CopyCandidate& c) {
   return o.str();
 }
 
-// Whether x is the closer exemplar: more of the copy's errors explained,
-// then fewer of the exemplar's errors read right by a corrector (a copyist
-// who checks mends some of them, but the exemplar it mends least is the
-// likelier one; two candidates alike on both are a tie).
+// Whether x is the closer exemplar: more of the copy's errors explained.
+// (Then fewer of them read right by a corrector was tried: as many false
+// claims as right ones more, DEVELOPERS.md "Lineage accuracy", sixth round.)
 bool Closer(const CopyCandidate* x, const CopyCandidate* y) {
-  if (x->exemplar_errors != y->exemplar_errors) return x->exemplar_errors > y->exemplar_errors;
-  return x->corrected < y->corrected;
+  return x->exemplar_errors > y->exemplar_errors;
 }
 
 std::string TiedText(const std::vector<const CopyCandidate*>& tied) {
@@ -131,7 +129,11 @@ std::vector<CopyCandidate> CopyCandidates(const CharacterMatrix& m,
       bool contained = false;
       int strong = 0;
       CopyCandidate c = Compare(m, a, b, corrector, contained, strong);
-      if (!contained || strong < min_errors) continue;
+      // min_errors of A's errors held, one of them more than a unit off;
+      // all of them so when B reads right more of A's errors than it holds
+      // (a corrector). Measured: DEVELOPERS.md, "Lineage accuracy", sixth round.
+      const int needed = c.corrected > c.exemplar_errors ? min_errors : std::min(min_errors, 1);
+      if (!contained || strong < needed || c.exemplar_errors < min_errors) continue;
       if (c.own_errors == 0) {
         bool back = false;  // does a hold all of b's errors too?
         int ignored = 0;

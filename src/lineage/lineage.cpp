@@ -115,8 +115,16 @@ std::vector<CopyCandidate> AdjacentCopies(const Stemma& s, const CharacterMatrix
   // Any witness holding all the copy's errors may stand on its line, however
   // few they are (judgement; measured in DEVELOPERS.md, "Lineage accuracy").
   for (const auto& c : CopyCandidates(oriented, correctors, 0)) held.insert({c.copy, c.exemplar});
-  return ChooseCopies(
-      oriented, all, [&](const CopyCandidate& c) { return Adjacent(s, c, held); }, &undecided);
+  // A copy that reads right more of an exemplar's errors than it holds (a
+  // corrector) is named for it only when it is the closest by the errors
+  // alone (judgement, measured in DEVELOPERS.md, "Lineage accuracy").
+  std::set<std::pair<std::string, std::string>> closest;
+  for (const auto& c : ChooseCopies(oriented, all)) closest.insert({c.copy, c.exemplar});
+  const auto admissible = [&](const CopyCandidate& c) {
+    return Adjacent(s, c, held) &&
+           (c.corrected <= c.exemplar_errors || closest.count({c.copy, c.exemplar}) > 0);
+  };
+  return ChooseCopies(oriented, all, admissible, &undecided);
 }
 
 // A surviving exemplar is drawn above its copy: the copy, found beside it,
