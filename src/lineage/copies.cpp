@@ -6,7 +6,7 @@
 #include <algorithm>
 #include <array>
 #include <cmath>
-#include <optional>
+#include <functional>
 #include <sstream>
 
 namespace apograph::lineage {
@@ -98,22 +98,42 @@ std::string CopyText(const CharacterMatrix& m, const CopyCandidate& c) {
   return o.str();
 }
 
+// Whether x is the closer exemplar: more of the copy's errors explained.
+// (Then fewer of them read right by a corrector was tried: as many false
+// claims as right ones more, DEVELOPERS.md "Lineage accuracy", sixth round.)
+bool Closer(const CopyCandidate* x, const CopyCandidate* y) {
+  return x->exemplar_errors > y->exemplar_errors;
+}
+
+std::string TiedText(const std::vector<const CopyCandidate*>& tied) {
+  std::string names = tied.front()->exemplar;
+  for (std::size_t k = 1; k < tied.size() && !Closer(tied.front(), tied[k]); ++k)
+    names += " or " + tied[k]->exemplar;
+  return tied.front()->copy + " holds all " + std::to_string(tied.front()->exemplar_errors) +
+         " errors of " + names + ", which the errors cannot tell apart: it may be a copy of " +
+         "one of them, or of a lost exemplar of theirs";
+}
+
 }  // namespace
 
-std::vector<CopyCandidate> FindCopies(const CharacterMatrix& m,
-                                      const std::vector<std::string>& correctors, int min_errors) {
+std::vector<CopyCandidate> CopyCandidates(const CharacterMatrix& m,
+                                          const std::vector<std::string>& correctors,
+                                          int min_errors) {
   std::vector<CopyCandidate> out;
   const int n = static_cast<int>(m.taxa.size());
   for (int b = 0; b < n; ++b) {
     const bool corrector =
         std::find(correctors.begin(), correctors.end(), m.taxa[b]) != correctors.end();
-    std::optional<CopyCandidate> best;
     for (int a = 0; a < n; ++a) {
       if (a == b || Anachronism(m, a, b)) continue;
       bool contained = false;
       int strong = 0;
       CopyCandidate c = Compare(m, a, b, corrector, contained, strong);
-      if (!contained || strong < min_errors) continue;
+      // min_errors of A's errors held, one of them more than a unit off;
+      // all of them so when B reads right more of A's errors than it holds
+      // (a corrector). Measured: DEVELOPERS.md, "Lineage accuracy", sixth round.
+      const int needed = c.corrected > c.exemplar_errors ? min_errors : std::min(min_errors, 1);
+      if (!contained || strong < needed || c.exemplar_errors < min_errors) continue;
       if (c.own_errors == 0) {
         bool back = false;  // does a hold all of b's errors too?
         int ignored = 0;
@@ -124,20 +144,44 @@ std::vector<CopyCandidate> FindCopies(const CharacterMatrix& m,
           c.twins = true;
         }
       }
-      if (!best || c.exemplar_errors > best->exemplar_errors) best = c;
+      c.text = CopyText(m, c);
+      out.push_back(c);
     }
+  }
+  return out;
+}
+
+std::vector<CopyCandidate> ChooseCopies(const CharacterMatrix& m,
+                                        const std::vector<CopyCandidate>& candidates,
+                                        const std::function<bool(const CopyCandidate&)>& admissible,
+                                        std::vector<std::string>* undecided) {
+  std::vector<CopyCandidate> out;
+  for (const auto& copy : m.taxa) {
+    std::vector<const CopyCandidate*> mine;
+    for (const auto& c : candidates) {
+      if (c.copy == copy && (!admissible || admissible(c))) mine.push_back(&c);
+    }
+    if (mine.empty()) continue;
+    std::stable_sort(mine.begin(), mine.end(), Closer);
+    const CopyCandidate& best = *mine.front();
     // Twins are reported once, from the side of the first; a witness
     // whose closest relative is its twin is no candidate copy of another.
-    if (best && best->twins && m.TaxonIndex(best->exemplar) < b) continue;
-    if (best) {
-      best->text = CopyText(m, *best);
-      out.push_back(*best);
+    if (best.twins && m.TaxonIndex(best.exemplar) < m.TaxonIndex(best.copy)) continue;
+    if (mine.size() > 1 && !Closer(mine.front(), mine[1])) {
+      if (undecided) undecided->push_back(TiedText(mine));
+      continue;
     }
+    out.push_back(best);
   }
   std::stable_sort(out.begin(), out.end(), [](const CopyCandidate& x, const CopyCandidate& y) {
     return x.exemplar_errors > y.exemplar_errors;
   });
   return out;
+}
+
+std::vector<CopyCandidate> FindCopies(const CharacterMatrix& m,
+                                      const std::vector<std::string>& correctors, int min_errors) {
+  return ChooseCopies(m, CopyCandidates(m, correctors, min_errors));
 }
 
 std::vector<std::string> CopiesRefusedByDates(const CharacterMatrix& m, int min_errors) {

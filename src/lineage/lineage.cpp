@@ -6,6 +6,7 @@
 #include <sstream>
 
 #include "lineage/ancestral.hpp"
+#include "lineage/copy_placement.hpp"
 #include "lineage/neighbour_joining.hpp"
 #include "lineage/tree_checks.hpp"
 
@@ -63,54 +64,6 @@ void AnnotateSupport(Stemma& s, const std::map<Group, double>& support) {
 }
 
 namespace {
-
-int NodeOf(const Stemma& s, const std::string& name) {
-  for (std::size_t n = 0; n < s.nodes.size(); ++n) {
-    if (s.nodes[n].witness && s.nodes[n].name == name && s.nodes[n].parent >= 0)
-      return static_cast<int>(n);
-  }
-  return -1;
-}
-
-void Detach(Stemma& s, int n) {
-  auto& siblings = s.nodes[s.nodes[n].parent].children;
-  siblings.erase(std::find(siblings.begin(), siblings.end(), n));
-  s.nodes[n].parent = -1;
-}
-
-// A direct copy stands beside its exemplar in the stemma (or below it):
-// a lost copy between them, with readings the exemplar lacks, makes the
-// relation indirect.
-std::vector<CopyCandidate> Adjacent(const Stemma& s, std::vector<CopyCandidate> copies) {
-  std::erase_if(copies, [&](const CopyCandidate& c) {
-    const int a = NodeOf(s, c.exemplar), b = NodeOf(s, c.copy);
-    if (a < 0 || b < 0) return true;
-    const int pa = s.nodes[a].parent, pb = s.nodes[b].parent;
-    return !(pb == a || pa == pb || pa == b);
-  });
-  return copies;
-}
-
-// A surviving exemplar is drawn above its copy: the copy, found beside it,
-// moves below it; a lost node left with the exemplar alone gives way to it.
-void PlaceExemplars(Stemma& s, const std::vector<CopyCandidate>& copies) {
-  for (const auto& c : copies) {
-    if (c.twins) continue;
-    const int a = NodeOf(s, c.exemplar), b = NodeOf(s, c.copy);
-    if (a < 0 || b < 0 || s.nodes[a].parent != s.nodes[b].parent) continue;
-    const int lost = s.nodes[a].parent;
-    Detach(s, b);
-    s.Attach(a, b);
-    if (lost != s.root && !s.nodes[lost].witness && s.nodes[lost].children.size() == 1) {
-      const int up = s.nodes[lost].parent;
-      s.nodes[a].length += s.nodes[lost].length;
-      Detach(s, a);
-      Detach(s, lost);
-      s.Attach(up, a);
-    }
-  }
-  s.Compact();
-}
 
 bool Informative(const Character& ch) {
   const auto ones = std::count(ch.states.begin(), ch.states.end(), 1);
@@ -291,7 +244,9 @@ LineageReport AnalyseLineage(const CharacterMatrix& m, const LineageOptions& o) 
   for (const auto& c : r.corrections) correctors.push_back(c.witness);
   if (!r.results.empty()) {
     const CharacterMatrix final_oriented = Orient(unmixed, r.results.front().stemma);
-    r.copies = Adjacent(r.results.front().stemma, FindCopies(final_oriented, correctors));
+    std::vector<std::string> tied;
+    r.copies = AdjacentCopies(r.results.front().stemma, final_oriented, correctors, tied);
+    for (const auto& text : tied) Undecide(r, "copy", text);
     for (const auto& text : CopiesRefusedByDates(final_oriented)) Undecide(r, "copy", text);
   }
   for (auto& res : r.results) {

@@ -5,6 +5,7 @@
 /// archetype, so they take a matrix oriented by a stemma (ancestral.hpp,
 /// Orient) and use only directed characters.
 
+#include <functional>
 #include <string>
 #include <vector>
 
@@ -40,8 +41,25 @@ struct CopyCandidate {
 /// copy lacks one to three of its exemplar's 8-13 errors).
 inline constexpr int kErrorsPerLackedError = 4;
 
+/// Every pair (A, B) where B may be a copy of A, by the criterion above
+/// (as FindCopies, but all exemplars of each copy, unranked).
+std::vector<CopyCandidate> CopyCandidates(const CharacterMatrix& oriented,
+                                          const std::vector<std::string>& correctors = {},
+                                          int min_errors = 2);
+
+/// One exemplar per copy from `candidates`, among those `admissible` (all
+/// when empty) accepts: the one whose errors the copy holds most. A copy
+/// with two such exemplars (as many errors held) is no claim: it goes to
+/// `undecided` as a note for the editor. Strongest first.
+std::vector<CopyCandidate> ChooseCopies(
+    const CharacterMatrix& oriented, const std::vector<CopyCandidate>& candidates,
+    const std::function<bool(const CopyCandidate&)>& admissible = {},
+    std::vector<std::string>* undecided = nullptr);
+
 /// Candidates, strongest first. A needs at least `min_errors` errors (fewer
-/// prove nothing: every witness "contains" a nearly faultless one).
+/// prove nothing: every witness "contains" a nearly faultless one), one of
+/// them more than a unit off (all of them when B reads right more of A's
+/// errors than it holds).
 /// `correctors` (sigla) may read right where their exemplar errs.
 std::vector<CopyCandidate> FindCopies(const CharacterMatrix& oriented,
                                       const std::vector<std::string>& correctors = {},

@@ -36,6 +36,26 @@ TEST_CASE("a copy may fill in an entry its exemplar leaves blank") {
   CHECK(FindCopies(m).empty());
 }
 
+TEST_CASE("a copy holding the errors of two exemplars alike is left undecided") {
+  CharacterMatrix m;
+  m.taxa = {"A", "B", "C"};
+  // A and C carry the same two errors; B holds them and one of its own.
+  m.characters = {Error("1", {1, 1, 1}), Error("2", {1, 1, 1}), Error("3", {0, 1, 0})};
+  std::vector<std::string> undecided;
+  const auto copies = ChooseCopies(m, CopyCandidates(m), {}, &undecided);
+  CHECK(std::none_of(copies.begin(), copies.end(),
+                     [](const CopyCandidate& c) { return c.copy == "B"; }));
+  REQUIRE(undecided.size() == 1);
+  CHECK(undecided[0].find("B holds all 2 errors of A or C") == 0);
+  // One more error of C's that B holds: C is the closer exemplar.
+  m.characters.push_back(Error("4", {0, 1, 1}));
+  undecided.clear();
+  const auto closer = ChooseCopies(m, CopyCandidates(m), {}, &undecided);
+  CHECK(undecided.empty());
+  CHECK(std::any_of(closer.begin(), closer.end(),
+                    [](const CopyCandidate& c) { return c.copy == "B" && c.exemplar == "C"; }));
+}
+
 Character At(int position, std::vector<signed char> states) {
   Character c = Error(std::to_string(position), std::move(states));
   c.position = position;
