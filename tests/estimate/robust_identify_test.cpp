@@ -123,30 +123,9 @@ TEST_CASE("a fifth of the entries corrupted: right model and value over ten seed
   for (const auto& k : cases) {
     int right = 0;
     for (unsigned seed = 1; seed <= 10; ++seed) {
-      Transcription t =
-          testing::MakeTable("t", k.first, k.step, k.rows, {FromModel(k.model, {k.value}, 2)});
-      std::mt19937 rng(seed);
-      std::uniform_int_distribution<int> row(1, k.rows - 4), kind(0, 3);
-      const int bad = k.rows / 5;
-      for (int n = 0; n < bad; ++n) {
-        const auto r = static_cast<std::size_t>(row(rng));
-        Cell& cell = t.rows[r].cells[0];
-        switch (kind(rng)) {
-          case 0:  // repetition of the row above
-            cell = t.rows[r - 1].cells[0];
-            break;
-          case 1:  // a run of three displaced by a row
-            for (std::size_t i = r + 2; i >= r + 1; --i)
-              t.rows[i].cells[0] = t.rows[i - 1].cells[0];
-            break;
-          case 2:  // a digit slip in the minutes
-            cell.value = *cell.value + Sexagesimal::FromUnits(600, 2);
-            break;
-          default:  // a blank
-            cell.state = CellState::kBlank;
-            cell.value.reset();
-        }
-      }
+      const Transcription t = testing::CorruptAFifth(
+          testing::MakeTable("t", k.first, k.step, k.rows, {FromModel(k.model, {k.value}, 2)}),
+          seed);
       const Identification id = Run(t);
       const bool ok = !id.ranked.empty() && id.ranked[0].model->name() == k.model &&
                       id.ranked[0].Final().params[0].value == k.value && id.explained;

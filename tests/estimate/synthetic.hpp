@@ -6,6 +6,7 @@
 #include <cmath>
 #include <functional>
 #include <map>
+#include <random>
 #include <string>
 
 #include "edition/transcription.hpp"
@@ -71,6 +72,34 @@ inline Transcription MakeTable(const std::string& id, double start, double step,
       row.cells.push_back(cell);
     }
     t.rows.push_back(row);
+  }
+  return t;
+}
+
+/// A fifth of the rows of column 0 corrupted as a copyist does, drawn with
+/// `seed`: repetitions of the row above, runs of three displaced by a row,
+/// digit slips in the minutes and blanks (rows 1 .. rows - 4).
+inline Transcription CorruptAFifth(Transcription t, unsigned seed) {
+  const int rows = static_cast<int>(t.rows.size());
+  std::mt19937 rng(seed);
+  std::uniform_int_distribution<int> row(1, rows - 4), kind(0, 3);
+  for (int n = 0; n < rows / 5; ++n) {
+    const auto r = static_cast<std::size_t>(row(rng));
+    Cell& cell = t.rows[r].cells[0];
+    switch (kind(rng)) {
+      case 0:  // repetition of the row above
+        cell = t.rows[r - 1].cells[0];
+        break;
+      case 1:  // a run of three displaced by a row
+        for (std::size_t i = r + 2; i >= r + 1; --i) t.rows[i].cells[0] = t.rows[i - 1].cells[0];
+        break;
+      case 2:  // a digit slip in the minutes
+        cell.value = *cell.value + Sexagesimal::FromUnits(600, 2);
+        break;
+      default:  // a blank
+        cell.state = CellState::kBlank;
+        cell.value.reset();
+    }
   }
   return t;
 }
