@@ -192,7 +192,8 @@ std::vector<Candidate> RepetitionCandidates(const CellContext& c) {
     // written. The entry below is not yet on his page, so a wrong one does
     // not vouch, nor does a wrong neighbour for a single repeated place.
     const auto written = c.Neighbour(off);
-    const bool itself_wrong = !RightNeighbour(c, off);
+    const auto n = RightNeighbour(c, off);
+    const bool itself_wrong = !n;
     if (written && AtPlaces(*written, c.places) == c.tabulated && (off < 0 || !itself_wrong)) {
       Candidate cand;
       cand.explanation.cls = SlipClass::kRepetition;
@@ -204,7 +205,6 @@ std::vector<Candidate> RepetitionCandidates(const CellContext& c) {
       out.push_back(std::move(cand));
       continue;
     }
-    auto n = RightNeighbour(c, off);
     if (!n) continue;
     const Digits nd = ToDigits(*n, c.places);
     for (std::size_t p = 0; p < copy.d.size() && p < nd.d.size() && p < model.d.size(); ++p) {

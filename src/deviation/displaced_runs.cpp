@@ -88,14 +88,12 @@ struct RunScan {
   /// not one slip from its own row's value: the slide and a slip of its own
   /// (copied twice, slips compound).
   bool NearMatch(std::size_t r, int k) const {
-    if (!Value(r) || !Deviant(r) || !values.computed[r]) return false;
+    if (!Value(r) || !Deviant(r) || !values.computed[r]) return false;  // Target(r, 0) exists
     const auto target = Target(r, k);
     if (!target) return false;
     const Digits copy = ToDigits(*Value(r), places);
-    const Sexagesimal own =
-        column.consensus[r] ? *column.consensus[r] : values.computed[r]->Rounded(places);
     return OneSlipApart(copy, ToDigits(*target, places)) &&
-           !OneSlipApart(copy, ToDigits(own, places));
+           !OneSlipApart(copy, ToDigits(*Target(r, 0), places));
   }
   void Collect(int k, std::vector<RunCandidate>& out) const {
     const std::size_t n = table.rows.size();
