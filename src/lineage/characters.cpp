@@ -99,6 +99,9 @@ void AddSlideCharacters(const collate::Collation& c, CharacterMatrix& m) {
     ch.weight = 3;
     ch.weight_reason = "a run of a column slid by a row";
     ch.direction = c.reference_description.empty() ? Direction::kMajority : Direction::kModel;
+    // Judged by a model, state 0 reads every row of the run as the model
+    // does: a right reading, which a corrector may have restored.
+    ch.base_is_right = ch.direction == Direction::kModel;
     for (const auto& w : c.witnesses) {
       const bool has = std::find(sigla.begin(), sigla.end(), w.siglum) != sigla.end();
       ch.states.push_back(has ? 1 : (ReadsRunRight(c, w.siglum, col, first, last) ? 0 : -1));

@@ -35,36 +35,57 @@ std::string DateOf(const CharacterMatrix& m, int t) {
   return m.witnesses.size() == m.taxa.size() ? m.witnesses[t].date : "";
 }
 
-// `strong`: the exemplar's errors found in the copy that are more than a
-// unit off (one-unit differences arise independently too often to show a copy).
-CopyCandidate Compare(const CharacterMatrix& m, int a, int b, bool corrector, bool& contained,
-                      int& strong) {
-  int weak = 0;
-  CopyCandidate c;
+// A's errors against B's readings. `strong`: those B holds that are more
+// than a unit off (one-unit differences arise independently too often to
+// show a copy); `weak_corrected`: A's one-unit errors a corrector B reads
+// right.
+struct Tally {
+  CopyCandidate candidate;
+  bool contained = true;
+  int strong = 0, weak_corrected = 0;
+};
+
+Tally Compare(const CharacterMatrix& m, int a, int b, bool corrector) {
+  Tally t;
+  CopyCandidate& c = t.candidate;
   c.exemplar = m.taxa[a];
   c.copy = m.taxa[b];
-  contained = true;
+  int weak = 0;
   for (const auto& ch : m.characters) {
     if (!Usable(ch)) continue;
     const int sa = ch.states[a], sb = ch.states[b];
     if (sa == 1) {
-      if (sb == 1)
+      if (sb == 1) {
         ++c.exemplar_errors;
-      else if (sb == -1)
+        weak += ch.one_unit;
+      } else if (sb == -1) {
         ++c.unreadable;
-      else if (ch.omission)
+      } else if (ch.omission) {
         ++c.filled;
-      else if (corrector && ch.base_is_right)
+      } else if (corrector && ch.base_is_right) {
         ++c.corrected;
-      else
-        contained = false;
+        t.weak_corrected += ch.one_unit;
+      } else {
+        t.contained = false;
+      }
     } else if (sa == 0 && sb == 1) {
       ++c.own_errors;
     }
-    if (sa == 1 && sb == 1 && ch.one_unit) ++weak;
   }
-  strong = c.exemplar_errors - weak;
-  return c;
+  t.strong = c.exemplar_errors - weak;
+  return t;
+}
+
+// A corrector checks entries against the model within a tolerance and
+// leaves one-unit differences as it finds them (judgement: a unit in the
+// last place is what recomputation by hand cannot settle), so a corrected
+// copy still holds its exemplar's one-unit errors. One that reads right at least as
+// many of A's one-unit errors as it holds most likely never had them: a
+// relative of A, not its copy. Measured: DEVELOPERS.md, "Lineage
+// accuracy", seventh round.
+bool NeverHadThem(const Tally& t) {
+  const int weak_held = t.candidate.exemplar_errors - t.strong;
+  return t.weak_corrected > 0 && t.weak_corrected >= weak_held;
 }
 
 std::string CopyText(const CharacterMatrix& m, const CopyCandidate& c) {
@@ -126,18 +147,16 @@ std::vector<CopyCandidate> CopyCandidates(const CharacterMatrix& m,
         std::find(correctors.begin(), correctors.end(), m.taxa[b]) != correctors.end();
     for (int a = 0; a < n; ++a) {
       if (a == b || Anachronism(m, a, b)) continue;
-      bool contained = false;
-      int strong = 0;
-      CopyCandidate c = Compare(m, a, b, corrector, contained, strong);
+      const Tally t = Compare(m, a, b, corrector);
+      CopyCandidate c = t.candidate;
       // min_errors of A's errors held, one of them more than a unit off;
       // all of them so when B reads right more of A's errors than it holds
       // (a corrector). Measured: DEVELOPERS.md, "Lineage accuracy", sixth round.
       const int needed = c.corrected > c.exemplar_errors ? min_errors : std::min(min_errors, 1);
-      if (!contained || strong < needed || c.exemplar_errors < min_errors) continue;
+      if (!t.contained || t.strong < needed || c.exemplar_errors < min_errors || NeverHadThem(t))
+        continue;
       if (c.own_errors == 0) {
-        bool back = false;  // does a hold all of b's errors too?
-        int ignored = 0;
-        Compare(m, b, a, false, back, ignored);
+        const bool back = Compare(m, b, a, false).contained;  // a holds all b's errors too
         if (back && Older(m, a, b)) {
           c.dated = true;
         } else if (back && !Older(m, b, a)) {
@@ -190,10 +209,9 @@ std::vector<std::string> CopiesRefusedByDates(const CharacterMatrix& m, int min_
   for (int b = 0; b < n; ++b) {
     for (int a = 0; a < n; ++a) {
       if (a == b || !Anachronism(m, a, b)) continue;
-      bool contained = false;
-      int strong = 0;
-      const CopyCandidate c = Compare(m, a, b, false, contained, strong);
-      if (!contained || strong < min_errors || c.own_errors == 0) continue;
+      const Tally t = Compare(m, a, b, false);
+      const CopyCandidate& c = t.candidate;
+      if (!t.contained || t.strong < min_errors || c.own_errors == 0) continue;
       out.push_back(m.taxa[b] + " holds all " + std::to_string(c.exemplar_errors) + " of " +
                     m.taxa[a] + "'s errors, but cannot be its copy: " + m.taxa[b] + " (" +
                     m.witnesses[b].date + ", " + m.witnesses[b].kind + ") is older than " +

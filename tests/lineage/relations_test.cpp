@@ -56,6 +56,34 @@ TEST_CASE("a copy holding the errors of two exemplars alike is left undecided") 
                     [](const CopyCandidate& c) { return c.copy == "B" && c.exemplar == "C"; }));
 }
 
+TEST_CASE("a corrector that reads right its exemplar's one-unit errors never had them") {
+  CharacterMatrix m;
+  m.taxa = {"A", "B", "C"};
+  const auto right = [](Character c, bool one_unit) {
+    c.base_is_right = true;
+    c.one_unit = one_unit;
+    return c;
+  };
+  // A's errors: four more than a unit off (B holds three, reads one right)
+  // and one a unit off, which B holds; B corrects against the model.
+  m.characters = {right(Error("1", {1, 1, 0}), false), right(Error("2", {1, 1, 0}), false),
+                  right(Error("3", {1, 1, 0}), false), right(Error("4", {1, 0, 0}), false),
+                  right(Error("5", {1, 1, 0}), true),  right(Error("6", {0, 1, 0}), false)};
+  const std::vector<std::string> correctors = {"B"};
+  auto copies = FindCopies(m, correctors);
+  REQUIRE(copies.size() == 1);
+  CHECK(copies[0].copy == "B");
+  CHECK(copies[0].corrected == 1);
+  // B reads A's one-unit error right: a checker leaves such differences as
+  // it finds them, so B never had it (a relative of A, not its copy).
+  m.characters[4].states = {1, 0, 0};
+  CHECK(FindCopies(m, correctors).empty());
+  // Two one-unit errors held against one read right: still a copy.
+  m.characters.push_back(right(Error("7", {1, 1, 0}), true));
+  m.characters.push_back(right(Error("8", {1, 1, 0}), true));
+  CHECK(FindCopies(m, correctors).size() == 1);
+}
+
 Character At(int position, std::vector<signed char> states) {
   Character c = Error(std::to_string(position), std::move(states));
   c.position = position;
