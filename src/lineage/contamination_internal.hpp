@@ -38,5 +38,10 @@ bool Holds(const CharacterMatrix& m, int c, int d);
 /// (one_line.cpp).
 void AddOneLine(const CharacterMatrix& m, const std::vector<Contamination>& found,
                 std::vector<Contamination>& kept);
+/// Adds to `kept` the witnesses the line-join criterion flags, none of
+/// them in `named` (flagged already, or inheriting a mixture) and none
+/// with a relative there (its mixture explains the stretch) (line_join.cpp).
+void AddLineJoin(const CharacterMatrix& m, const std::vector<std::string>& named,
+                 std::vector<Contamination>& kept);
 
 }  // namespace apograph::lineage::contamination

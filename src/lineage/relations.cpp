@@ -1,6 +1,7 @@
 // Contamination: a witness whose errors side with two lines in stretches of
-// their own, or with one relative in one stretch only (relations.hpp:
-// FindContamination, MaskSecondaryExemplar).
+// their own, or with one relative in one stretch only (one_line.cpp), or
+// that holds a line's common errors in one part only (line_join.cpp)
+// (relations.hpp: FindContamination, MaskSecondaryExemplar).
 #include "lineage/relations.hpp"
 
 #include <algorithm>
@@ -307,6 +308,13 @@ std::vector<Contamination> FindContamination(const CharacterMatrix& m, double mi
     }
   }
   AddOneLine(m, found, kept);
+  std::vector<std::string> named;
+  for (const auto& f : found) {
+    named.push_back(f.witness);
+    named.insert(named.end(), f.inherited_by.begin(), f.inherited_by.end());
+  }
+  for (const auto& k : kept) named.push_back(k.witness);
+  AddLineJoin(m, named, kept);
   return kept;
 }
 

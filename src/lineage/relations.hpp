@@ -172,6 +172,25 @@ inline constexpr int kOneLineShared = 5;
 /// table and 5 elsewhere).
 inline constexpr double kOneLineRateRatio = 5;
 
+/// The line-join criterion (a third one, for a witness whose own line
+/// shows too few errors for the two-line criterion): witness C is
+/// contaminated when there are two witnesses X and Z (neither descending
+/// from C, neither flagged by the criteria above) such that, along the
+/// errors X and Z share where C can be read (in table order; neighbours C
+/// reads alike counted once), C reads right at every one of a run of
+/// kMinSideSlips or more at one end of the table and holds kMinSideSlips
+/// or more of the others, and held errors spread at random would leave
+/// such a run with chance at most kJoinChance (hypergeometric, either end).
+/// Copied along one line, C would hold the errors of X and Z's common
+/// ancestors throughout or nowhere; C follows their line in one part only.
+/// Segments: X's stretch, and C's own line (an empty relative).
+/// Judgement on kOneLineChance's scale, checked on the lineage benchmark
+/// (seeds 1-100, cached characters; DEVELOPERS.md "Lineage accuracy",
+/// seventh round): the lowest chance of a witness of an uncontaminated
+/// draw was 0.0046 (a run of two, which kMinSideSlips refuses), then
+/// 0.014; of contaminated witnesses 4.5e-7, 0.0017, 0.0025, 0.0035, 0.0043.
+inline constexpr double kJoinChance = 0.003;
+
 /// Weight (each side) from which two lines of errors in one witness are
 /// called contamination. Judgement, then checked on uncontaminated draws of
 /// the lineage benchmark (tests/bench/lineage_accuracy_bench.cpp): one

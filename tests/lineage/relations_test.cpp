@@ -120,5 +120,37 @@ TEST_CASE("one relative in one stretch only, no relative in the other: contamina
   CHECK(FindContamination(OneLineMatrix(true)).empty());
 }
 
+// Witnesses C, X, Z, W. In rows 0-199 X and Z share eight errors that C
+// reads right, C has four errors of its own and two shared with W (its own
+// line: too few for two lines, and a relative where it leaves X); from row
+// 200 on C, X and Z share six (`spread`: the six spread over rows 0-199
+// among the eight instead).
+CharacterMatrix JoinMatrix(bool spread) {
+  CharacterMatrix m;
+  m.taxa = {"C", "X", "Z", "W"};
+  for (int k = 0; k < 8; ++k) m.characters.push_back(At(20 * k + 10, {0, 1, 1, 0}));
+  for (int k = 0; k < 4; ++k) m.characters.push_back(At(40 * k + 5, {1, 0, 0, 0}));
+  for (int k = 0; k < 2; ++k) m.characters.push_back(At(60 * k + 25, {1, 0, 0, 1}));
+  for (int k = 0; k < 6; ++k)
+    m.characters.push_back(At(spread ? 30 * k + 17 : 200 + 20 * k, {1, 1, 1, 0}));
+  std::stable_sort(m.characters.begin(), m.characters.end(),
+                   [](const Character& a, const Character& b) { return a.position < b.position; });
+  return m;
+}
+
+TEST_CASE("the common errors of a line held in one part only: contaminated") {
+  const auto found = FindContamination(JoinMatrix(false));
+  REQUIRE(found.size() == 1);
+  CHECK(found[0].witness == "C");
+  CHECK(found[0].primary.empty());  // its own line first, then X's
+  CHECK(found[0].secondary == "X");
+  // The evidence: the shared readings and the ones C reads right.
+  CHECK(found[0].text.find("C shares 6 errors of X and Z in rows 200 to 300 (200; 220; 240; "
+                           "260; ...) but reads right at all 8 of theirs in rows 10 to 150 (10; "
+                           "30; 50; 70; ...)") != std::string::npos);
+  // The same six spread among the eight: a line C belongs to, no mixture.
+  CHECK(FindContamination(JoinMatrix(true)).empty());
+}
+
 }  // namespace
 }  // namespace apograph::lineage
