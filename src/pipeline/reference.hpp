@@ -118,7 +118,7 @@ struct ColumnReference {
   double score = 0;
   int exact = 0, entries = 0;     ///< entries of that witness reproduced exactly / compared
   int within_one = 0;             ///< entries of that witness within one unit
-  std::vector<std::string> ties;  ///< identify's notes on near-ties and naming
+  std::vector<std::string> ties;  ///< identify's notes on near-ties and set-asides (not `naming`)
   /// The estimate before round values were adopted, with standard errors
   /// (identified only).
   std::vector<estimate::FittedParam> estimates;

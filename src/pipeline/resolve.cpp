@@ -199,7 +199,11 @@ void FillIdentified(ColumnReference& r, const WitnessBest& chosen) {
   r.source = ReferenceSource::kIdentified;
   r.witness = chosen.witness->witness.siglum;
   r.score = c.score;
-  r.ties = chosen.notes;
+  // identify's notes without the naming note, which has a field of its own
+  // (shown once by every report).
+  for (const auto& note : chosen.notes) {
+    if (note != c.naming) r.ties.push_back(note);
+  }
   r.entries = f.n;
   r.exact = f.exact;
   r.within_one = f.within1;

@@ -66,7 +66,8 @@ void Model(const pipeline::TableAnalysis& a, std::ostream& out) {
     out << "<div class=\"model\"><p><b>" << Html(r.column_name) << "</b>: " << Html(r.description)
         << "<br><small>" << Html(r.how) << "</small></p><ul>";
     for (std::size_t i = 0; i < r.ties.size() && i < 3; ++i)
-      out << "<li>near-tie: " << Html(r.ties[i]) << "</li>";
+      out << "<li>" << Html(r.ties[i]) << "</li>";
+    if (!r.naming.empty()) out << "<li>" << Html(r.naming) << "</li>";
     Estimates(r, out);
     if (r.mean_motion) out << "<li>" << Html(r.mean_motion->verdict) << "</li>";
     out << "</ul></div>";

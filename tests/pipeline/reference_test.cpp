@@ -1,6 +1,8 @@
 // Column references and judgements on synthetic tables (e = 2;30).
 #include "pipeline/reference.hpp"
 
+#include <algorithm>
+
 #include <doctest/doctest.h>
 
 #include "../deviation/synthetic.hpp"
@@ -42,6 +44,14 @@ TEST_CASE("an identified reference adopts the round value and keeps the exact en
   CHECK(Sexagesimal::FromDouble(b.params.at(0), 2).ToString() == "2;30,30");
   CHECK(std::fabs(b.params.at(0) - e) < 1e-12);
   CHECK(b.exact == 90);
+}
+
+TEST_CASE("the naming of equivalent models is told once, not again among the near-ties") {
+  ReferenceRequest automatic;
+  automatic.automatic = true;
+  const auto a = ResolveReferences({Table().table}, automatic).at(0);
+  REQUIRE(a.naming.find("rather than") != std::string::npos);  // eccentric or epicycle
+  CHECK(std::find(a.ties.begin(), a.ties.end(), a.naming) == a.ties.end());
 }
 
 TEST_CASE("a given reference and an identified one describe themselves") {
