@@ -2,6 +2,8 @@
 
 #include <doctest/doctest.h>
 
+#include "../value_cells.hpp"
+
 using apograph::Cell;
 using apograph::CellState;
 using apograph::Row;
@@ -11,15 +13,8 @@ namespace collate = apograph::collate;
 
 namespace {
 
-Sexagesimal S(const std::string& t) { return Sexagesimal::ParseOrThrow(t); }
-
-Cell ValueCell(const std::string& t) {
-  Cell c;
-  c.raw = t;
-  c.value = S(t);
-  c.places = c.value->places();
-  return c;
-}
+using apograph::testing::S;
+using apograph::testing::ValueCell;
 
 // A witness of a one-column table "eq" with argument start 10 step 10, rows
 // given as (argument, value) pairs; "?" makes an illegible cell.

@@ -3,6 +3,7 @@
 // no row between them, with or without the declaration step=list.
 #include <doctest/doctest.h>
 
+#include "../value_cells.hpp"
 #include "collate/collation.hpp"
 
 using apograph::Cell;
@@ -13,15 +14,8 @@ namespace collate = apograph::collate;
 
 namespace {
 
-Sexagesimal S(const std::string& t) { return Sexagesimal::ParseOrThrow(t); }
-
-Cell ValueCell(const std::string& t) {
-  Cell c;
-  c.raw = t;
-  c.value = S(t);
-  c.places = c.value->places();
-  return c;
-}
+using apograph::testing::S;
+using apograph::testing::ValueCell;
 
 std::vector<std::string> Days() {
   std::vector<std::string> days;

@@ -7,21 +7,15 @@
 
 #include <doctest/doctest.h>
 
+#include "../value_cells.hpp"
 #include "collate/collation.hpp"
 #include "lineage/characters.hpp"
 
 namespace apograph::lineage {
 namespace {
 
-Sexagesimal S(const std::string& t) { return Sexagesimal::ParseOrThrow(t); }
-
-Cell ValueCell(const std::string& t) {
-  Cell c;
-  c.raw = t;
-  c.value = S(t);
-  c.places = c.value->places();
-  return c;
-}
+using testing::S;
+using testing::ValueCell;
 
 // Nine rows of a one-column table, arguments 10 to 90.
 const std::vector<std::string> kRight = {"0;20", "0;40", "0;58", "1;15", "1;29",
