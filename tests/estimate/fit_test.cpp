@@ -249,4 +249,156 @@ TEST_CASE("a user formula compared modulo 360 is fitted by differences of the wr
   CHECK(J[row * 2 + 1] / -216000.0 == doctest::Approx(200).epsilon(1e-3));
 }
 
+TEST_CASE("an eccentricity fitted negative is shown positive with the apogee turned") {
+  // Every built-in model with an apogee and an e: (-e, A + 180) computes
+  // every value of (e, A) (what fit.cpp's PositiveEccentricity relies on).
+  int models = 0;
+  for (const model::Model* m : model::BuiltinModels()) {
+    const int a = m->ParamIndex(model::ParamRole::kApogee), e = m->ParamIndex("e");
+    if (a < 0 || e < 0) continue;
+    ++models;
+    std::vector<double> p = m->Defaults(), q = p;
+    q[static_cast<std::size_t>(e)] = -p[static_cast<std::size_t>(e)];
+    q[static_cast<std::size_t>(a)] = p[static_cast<std::size_t>(a)] + 180;
+    for (double t : {0.0, 17.0, 123.5, 400.0}) {
+      model::RowContext ctx;
+      ctx.arg = t;
+      CAPTURE(m->name());
+      CHECK(m->Evaluate(q, ctx) == doctest::Approx(m->Evaluate(p, ctx)).epsilon(1e-12));
+    }
+  }
+  CHECK(models == 2);  // true-sun, planet-position
+  // True suns fitted from the mirrored start converge there, and are
+  // reported with the author's e and apogee (each apogee's quadrant).
+  const model::Model& sun = *model::FindBuiltinModel("true-sun");
+  for (const auto& [e, apogee] : std::vector<std::pair<double, double>>{
+           {2.5, 65.5}, {2.0 + 4.0 / 60, 10}, {1.25, 170}, {3.5, 300}}) {
+    testing::SyntheticColumn c;
+    c.f = [&sun, e = e, apogee = apogee](double t) {
+      model::RowContext ctx;
+      ctx.arg = t;
+      return sun.Evaluate({10.5, 0.9856, apogee, e, 360}, ctx);
+    };
+    const Transcription table = testing::MakeTable("sun", 0, 10, 60, {c});
+    FitOptions o;
+    o.start = {{"radix", 10.5}, {"rate", 0.9856}, {"apogee", apogee}, {"e", e}};
+    const FitResult own = Fit(sun, table, std::vector<int>{}, o);
+    o.start = {{"radix", 10.5}, {"rate", 0.9856}, {"apogee", apogee + 180}, {"e", -e}};
+    const FitResult r = Fit(sun, table, std::vector<int>{}, o);
+    CAPTURE(apogee);
+    CHECK(r.exact == own.exact);  // the same entries reproduced
+    CHECK(r.exact >= 57);
+    CHECK(r.Value("e") == doctest::Approx(e).epsilon(1e-4));
+    CHECK(r.Value("apogee") == doctest::Approx(apogee).epsilon(1e-4));
+    CHECK(r.params[2].stderr_ > 0);
+  }
+}
+
+}  // namespace apograph::estimate
+
+namespace apograph::estimate {
+
+TEST_CASE("the summary's quick rounding gives exactly Sexagesimal::FromDouble's units") {
+  int compared = 0;
+  for (Rounding r : {Rounding::kNearest, Rounding::kTruncate}) {
+    for (int places = 0; places <= 5; ++places) {
+      // Ties (x.5 units exactly: dyadic values), negatives, and a spread of others.
+      std::vector<double> values = {0.03125, -0.03125, 2.5,          -2.5, 0.5,
+                                    1.0 / 3, -7.0 / 3, 59.999999999, 0};
+      for (int k = 1; k < 400; ++k) values.push_back(std::sin(k * 0.7) * 90 + k * 1e-7);
+      for (double v : values) {
+        CAPTURE(v);
+        CAPTURE(places);
+        const auto q = internal::BroughtUnits(v, places, r);
+        REQUIRE(q.has_value());
+        CHECK(*q == static_cast<std::int64_t>(Sexagesimal::FromDouble(v, places, r).units()));
+        ++compared;
+      }
+    }
+  }
+  CHECK(compared > 4000);
+  CHECK_FALSE(
+      internal::BroughtUnits(1e11, 5, Rounding::kNearest).has_value());  // beyond 2^52 units
+}
+
+}  // namespace apograph::estimate
+
+namespace apograph::estimate {
+
+TEST_CASE("a user formula compared modulo 360 is fitted by differences of the wrapped residuals") {
+  // A mean motion written as a formula: its value jumps by 360 at each wrap,
+  // which forward differences of the value would take for a slope.
+  const auto f = model::CompileFormula(
+      "param radix = 10 range 0 .. 360 \"radix\"\n"
+      "param rate = 1 range 0.5 .. 1.5 \"rate\"\n"
+      "param modulus = 360 range 0 .. 360 \"modulus\"\n"
+      "mod(radix + rate * arg, modulus)");
+  REQUIRE(!f->ExactGradient());
+  // The entry at 200 days stands 0;0,0,2 below a whole turn: a forward
+  // difference of the value there crosses the wrap.
+  const double rate = 0.98564736, radix = 720 - 1e-5 - rate * 200 - 360;
+  testing::SyntheticColumn c;
+  c.places = 3;
+  c.modulo_360 = true;
+  c.f = [&](double t) { return radix + rate * t; };
+  const Transcription t = testing::MakeTable("mm", 1, 1, 300, {c});
+  FitOptions o;
+  o.start = {{"radix", radix}, {"rate", rate}};
+  const FitResult r = Fit(*f, t, std::vector<int>{}, o);
+  CHECK(std::fabs(r.Value("rate") - rate) < 1e-7);
+  CHECK(std::fabs(r.Value("radix") - radix) < 1e-4);
+  CHECK(r.exact >= 290);
+  // The Jacobian's row at 200 days is the slope of the wrapped residual
+  // (-60^3 (1, 200)), not a jump of a whole turn over the step.
+  FitOptions mo = o;
+  mo.modulo_360 = true;
+  const auto obs = CollectObservations(t, {});
+  internal::FitProblem problem(*f, t, obs, mo);
+  const std::vector<double> x = problem.Start(mo);
+  std::vector<double> res(obs.size()), J(obs.size() * 2), v(obs.size());
+  problem.Linearise(x.data(), res.data(), J.data(), v.data());
+  const std::size_t row = 199;
+  REQUIRE(obs[row].arg == 200);
+  CHECK(J[row * 2] / -216000.0 == doctest::Approx(1).epsilon(1e-3));
+  CHECK(J[row * 2 + 1] / -216000.0 == doctest::Approx(200).epsilon(1e-3));
+}
+
+TEST_CASE("an eccentricity fitted negative is shown positive with the apogee turned") {
+  // Every built-in model with an apogee and an e: (-e, A + 180) computes
+  // every value of (e, A) (what fit.cpp's PositiveEccentricity relies on).
+  int models = 0;
+  for (const model::Model* m : model::BuiltinModels()) {
+    const int a = m->ParamIndex(model::ParamRole::kApogee), e = m->ParamIndex("e");
+    if (a < 0 || e < 0) continue;
+    ++models;
+    std::vector<double> p = m->Defaults(), q = p;
+    q[static_cast<std::size_t>(e)] = -p[static_cast<std::size_t>(e)];
+    q[static_cast<std::size_t>(a)] = p[static_cast<std::size_t>(a)] + 180;
+    for (double t : {0.0, 17.0, 123.5, 400.0}) {
+      model::RowContext ctx;
+      ctx.arg = t;
+      CAPTURE(m->name());
+      CHECK(m->Evaluate(q, ctx) == doctest::Approx(m->Evaluate(p, ctx)).epsilon(1e-12));
+    }
+  }
+  CHECK(models == 2);  // true-sun, planet-position
+  // A true sun (e = 2;30, apogee 65;30) fitted from the mirrored start
+  // converges there, and is reported as the author's e and apogee.
+  const model::Model& sun = *model::FindBuiltinModel("true-sun");
+  testing::SyntheticColumn c;
+  c.f = [&sun](double t) {
+    model::RowContext ctx;
+    ctx.arg = t;
+    return sun.Evaluate({10.5, 0.9856, 65.5, 2.5, 360}, ctx);
+  };
+  const Transcription table = testing::MakeTable("sun", 0, 10, 60, {c});
+  FitOptions o;
+  o.start = {{"radix", 10.5}, {"rate", 0.9856}, {"apogee", 245.5}, {"e", -2.5}};
+  const FitResult r = Fit(sun, table, std::vector<int>{}, o);
+  CHECK(r.exact == 60);
+  CHECK(r.Value("e") == doctest::Approx(2.5).epsilon(1e-4));
+  CHECK(r.Value("apogee") == doctest::Approx(65.5).epsilon(1e-4));
+  CHECK(r.params[2].stderr_ > 0);
+}
+
 }  // namespace apograph::estimate
