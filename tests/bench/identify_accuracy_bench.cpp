@@ -2,7 +2,9 @@
 // (tests/synth), built with -DAPOGRAPH_BENCH=ON:
 //   ./build-bench/identify_accuracy_bench [draws=300] [first_seed=1] [max_rate=0.2]
 // (BENCH_VERBOSE=1: every column's reference, =2 with the generator's key
-// below, =3 also each parameter missed; BENCH_SEEDS=a,b: those draws only)
+// below, =3 also each parameter missed; BENCH_SEEDS=a,b: those draws only;
+// BENCH_DUMP=DIR: each witness written to DIR/SEED.apo, to run the command
+// line on it)
 //
 // Each draw: an author's table of one family (synth::DrawTable, families in
 // turn, every other option at the generator's defaults: round, attested and
@@ -31,6 +33,7 @@
 #include <cmath>
 #include <cstdio>
 #include <ctime>
+#include <fstream>
 #include <map>
 #include <string>
 
@@ -40,6 +43,7 @@
 #include "support/input_error.hpp"
 #include "synth/copying.hpp"
 #include "synth/tables.hpp"
+#include "transcription/writer.hpp"
 
 using namespace apograph;
 
@@ -54,6 +58,23 @@ struct Tally {
   double seconds = 0;
   bool print_misses = false;  ///< BENCH_VERBOSE=3: each parameter missed, with its key
 };
+
+/// BENCH_DUMP: `w` written to `path`; false, with the reason on stderr,
+/// when the file cannot be opened or written.
+bool Dump(const std::string& path, const Transcription& w) {
+  std::ofstream out(path, std::ios::binary | std::ios::trunc);
+  if (!out) {
+    std::fprintf(stderr, "BENCH_DUMP: cannot open %s for writing\n", path.c_str());
+    return false;
+  }
+  out << WriteTranscription(w);
+  out.close();
+  if (!out) {
+    std::fprintf(stderr, "BENCH_DUMP: could not write %s\n", path.c_str());
+    return false;
+  }
+  return true;
+}
 
 std::string Pct(int a, int b) {
   if (b == 0) return "-";
@@ -231,6 +252,9 @@ int main(int argc, char** argv) {
     const synth::AuthorTable author = synth::DrawTable(rng, options);
     const double rate = kRates[i % 4] * max_rate / 0.2;
     const Transcription w = Witness(author, rate, rng);
+    if (const char* dir = std::getenv("BENCH_DUMP")) {
+      if (!Dump(std::string(dir) + "/" + std::to_string(seed) + ".apo", w)) return 1;
+    }
     pipeline::ReferenceRequest request;
     request.automatic = true;
     std::vector<pipeline::ColumnReference> refs;
@@ -261,6 +285,8 @@ int main(int argc, char** argv) {
                       static_cast<unsigned long long>(seed), RowName(col).c_str(), col.name.c_str(),
                       x.description.c_str(), x.how.c_str(), x.explains,
                       e.empty() ? "-" : e.front().model.c_str(), one.identified);
+          if (std::getenv("BENCH_VERBOSE")[0] >= '2' && e.empty())
+            std::printf("  key: %s (%zu rows)\n", col.function.variant.c_str(), w.rows.size());
           if (std::getenv("BENCH_VERBOSE")[0] >= '2' && !e.empty()) {
             std::printf("  key:");
             for (const auto& [name, v] : e.front().params)

@@ -249,4 +249,49 @@ TEST_CASE("a user formula compared modulo 360 is fitted by differences of the wr
   CHECK(J[row * 2 + 1] / -216000.0 == doctest::Approx(200).epsilon(1e-3));
 }
 
+TEST_CASE("an eccentricity fitted negative is shown positive with the apogee turned") {
+  // Every built-in model with an apogee and an e: (-e, A + 180) computes
+  // every value of (e, A) (what fit.cpp's PositiveEccentricity relies on).
+  int models = 0;
+  for (const model::Model* m : model::BuiltinModels()) {
+    const int a = m->ParamIndex(model::ParamRole::kApogee), e = m->ParamIndex("e");
+    if (a < 0 || e < 0) continue;
+    ++models;
+    std::vector<double> p = m->Defaults(), q = p;
+    q[static_cast<std::size_t>(e)] = -p[static_cast<std::size_t>(e)];
+    q[static_cast<std::size_t>(a)] = p[static_cast<std::size_t>(a)] + 180;
+    for (double t : {0.0, 17.0, 123.5, 400.0}) {
+      model::RowContext ctx;
+      ctx.arg = t;
+      CAPTURE(m->name());
+      CHECK(m->Evaluate(q, ctx) == doctest::Approx(m->Evaluate(p, ctx)).epsilon(1e-12));
+    }
+  }
+  CHECK(models == 2);  // true-sun, planet-position
+  // True suns fitted from the mirrored start converge there, and are
+  // reported with the author's e and apogee (each apogee's quadrant).
+  const model::Model& sun = *model::FindBuiltinModel("true-sun");
+  for (const auto& [e, apogee] : std::vector<std::pair<double, double>>{
+           {2.5, 65.5}, {2.0 + 4.0 / 60, 10}, {1.25, 170}, {3.5, 300}}) {
+    testing::SyntheticColumn c;
+    c.f = [&sun, e = e, apogee = apogee](double t) {
+      model::RowContext ctx;
+      ctx.arg = t;
+      return sun.Evaluate({10.5, 0.9856, apogee, e, 360}, ctx);
+    };
+    const Transcription table = testing::MakeTable("sun", 0, 10, 60, {c});
+    FitOptions o;
+    o.start = {{"radix", 10.5}, {"rate", 0.9856}, {"apogee", apogee}, {"e", e}};
+    const FitResult own = Fit(sun, table, std::vector<int>{}, o);
+    o.start = {{"radix", 10.5}, {"rate", 0.9856}, {"apogee", apogee + 180}, {"e", -e}};
+    const FitResult r = Fit(sun, table, std::vector<int>{}, o);
+    CAPTURE(apogee);
+    CHECK(r.exact == own.exact);  // the same entries reproduced
+    CHECK(r.exact >= 57);
+    CHECK(r.Value("e") == doctest::Approx(e).epsilon(1e-4));
+    CHECK(r.Value("apogee") == doctest::Approx(apogee).epsilon(1e-4));
+    CHECK(r.params[2].stderr_ > 0);
+  }
+}
+
 }  // namespace apograph::estimate
