@@ -135,6 +135,31 @@ std::string TiedText(const std::vector<const CopyCandidate*>& tied) {
          "one of them, or of a lost exemplar of theirs";
 }
 
+// Two witnesses each named a copy of the other (correctors, each reading
+// right the errors of the other it does not hold): at most one claim can be
+// right and the errors do not say which, so neither is made; the editor is
+// told.
+void DropMutual(std::vector<CopyCandidate>& copies, std::vector<std::string>* undecided) {
+  std::vector<bool> drop(copies.size(), false);
+  for (std::size_t i = 0; i < copies.size(); ++i) {
+    for (std::size_t j = i + 1; j < copies.size(); ++j) {
+      if (copies[i].copy != copies[j].exemplar || copies[i].exemplar != copies[j].copy) continue;
+      drop[i] = drop[j] = true;
+      if (undecided) {
+        undecided->push_back(copies[i].copy + " and " + copies[i].exemplar +
+                             " each hold all the other's errors that they do not read right: "
+                             "either may be a copy of the other, or both of a lost exemplar (" +
+                             copies[i].text + "; " + copies[j].text + ")");
+      }
+    }
+  }
+  std::vector<CopyCandidate> kept;
+  for (std::size_t i = 0; i < copies.size(); ++i) {
+    if (!drop[i]) kept.push_back(std::move(copies[i]));
+  }
+  copies = std::move(kept);
+}
+
 }  // namespace
 
 std::vector<CopyCandidate> CopyCandidates(const CharacterMatrix& m,
@@ -192,6 +217,7 @@ std::vector<CopyCandidate> ChooseCopies(const CharacterMatrix& m,
     }
     out.push_back(best);
   }
+  DropMutual(out, undecided);
   std::stable_sort(out.begin(), out.end(), [](const CopyCandidate& x, const CopyCandidate& y) {
     return x.exemplar_errors > y.exemplar_errors;
   });

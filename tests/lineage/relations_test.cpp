@@ -84,6 +84,26 @@ TEST_CASE("a corrector that reads right its exemplar's one-unit errors never had
   CHECK(FindCopies(m, correctors).size() == 1);
 }
 
+TEST_CASE("two correctors each holding the other's errors: neither is named a copy") {
+  CharacterMatrix m;
+  m.taxa = {"A", "B", "C"};
+  const auto right = [](Character c) {
+    c.base_is_right = true;
+    return c;
+  };
+  // A and B share two errors; each has one more, which the other reads right.
+  m.characters = {right(Error("1", {1, 1, 0})), right(Error("2", {1, 1, 0})),
+                  right(Error("3", {1, 0, 0})), right(Error("4", {0, 1, 0})),
+                  right(Error("5", {0, 0, 1}))};
+  const std::vector<std::string> correctors = {"A", "B"};
+  std::vector<std::string> undecided;
+  CHECK(ChooseCopies(m, CopyCandidates(m, correctors), {}, &undecided).empty());
+  REQUIRE(undecided.size() == 1);
+  CHECK(undecided[0].find("either may be a copy of the other") != std::string::npos);
+  // Only B corrects: B may be a copy of A (A, no corrector, cannot be B's).
+  CHECK(FindCopies(m, {"B"}).size() == 1);
+}
+
 Character At(int position, std::vector<signed char> states) {
   Character c = Error(std::to_string(position), std::move(states));
   c.position = position;
