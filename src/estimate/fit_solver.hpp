@@ -63,4 +63,17 @@ SolveOutcome SolveReference(FitProblem& problem, std::vector<double> x, double l
 /// singular.
 std::vector<double> Inverse(const std::vector<double>& A, int k);
 
+/// With rounded nodes: a pattern search on the cost itself, each free
+/// parameter in turn, after the solver (fit_finish.cpp).
+void Polish(FitProblem& problem, double loss_scale, SolveOutcome& best);
+
+/// An eccentricity toward the apogee fitted negative, shown positive with
+/// the apogee turned half a circle: the same geometry (fit_finish.cpp).
+void PositiveEccentricity(const model::Model& model, const FitProblem& problem, SolveOutcome& s);
+
+/// Angles the values depend on only modulo 360 brought into [0, 360)
+/// (fit_finish.cpp).
+void CanonicalAngles(const model::Model& model, const FitProblem& problem,
+                     const FitOptions& options, std::vector<double>& x);
+
 }  // namespace apograph::estimate::internal

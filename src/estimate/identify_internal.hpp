@@ -1,7 +1,8 @@
 #pragma once
-/// Internal to the estimate stage: what identify.cpp, naming.cpp and
-/// round_values.cpp share.
+/// Internal to the estimate stage: what identify.cpp, naming.cpp,
+/// round_values.cpp and round_pairs.cpp share.
 
+#include <map>
 #include <optional>
 #include <string>
 #include <utility>
@@ -82,6 +83,92 @@ std::vector<SimpleValue> EquivalentValues(const model::Model& m, const std::stri
 /// standard errors of the fitted one, nearest first, at most `most`.
 std::vector<SimplePair> CombinationPairs(const Candidate& best, double many, int most,
                                          const std::vector<CatalogEntry>* catalog);
+
+// Round values (round_values.cpp, round_pairs.cpp).
+
+/// Entries reproduced exactly that an adopted value may lose against the
+/// fit, as a share of the entries (at least one). Judgement: the author's
+/// departures touch a few percent of the entries (realism.md), and a fitted
+/// value can only absorb some of them.
+inline constexpr double kExactAllowance = 0.03;
+
+/// A fit with adopted values keeps the fit's entries: no more entries
+/// beyond one unit, and at most `allowance` fewer reproduced exactly; or,
+/// reproducing at least as many exactly, at most `allowance` more beyond
+/// one unit (entries where the free fit bent towards a copyist's slip: a
+/// latitude of 41;50 truncated reproduced 85 of 90 entries, the fit 84,
+/// and missed one slip by two units that the fit missed by one).
+bool Keeps(const FitResult& f, const FitResult& fit, int allowance);
+
+/// The group of whole values (roundings to 0 places and the combinations
+/// as simple, see Trials): attested values have groups below it (their
+/// places), finer roundings above.
+inline constexpr int kWholeGroup = 100;
+
+/// One value to try for a parameter.
+struct Trial {
+  double value = 0;
+  int places = 0;
+  std::string source;
+  int group = 0;  ///< trials of one group are equally simple (see FirstAcceptable)
+};
+
+/// Round values are looked for this many standard errors from the
+/// estimate, at most kRidgeValues of them, nearest first. Judgement: the
+/// usual 3-sigma rule; an estimate on a ridge of two parameters may lie
+/// that far from the author's value.
+inline constexpr double kRidgeSigmas = 3;
+inline constexpr int kRidgeValues = 12;
+
+/// The values to try, simplest first: attested values (fewest places
+/// first), then roundings of the estimate (coarsest first), then a rounded
+/// rate the mean-motion analysis found.
+std::vector<Trial> Trials(const Candidate& best, const std::string& param, double estimate,
+                          double se, const model::ParamSpec* spec, int column_places,
+                          const std::vector<CatalogEntry>* catalog,
+                          const MeanMotionAnalysis* mean_motion);
+
+/// The fit with `fixed` held and the other free parameters refitted from
+/// `from`'s values.
+FitResult FitHolding(const Candidate& best, const Transcription& table,
+                     const std::vector<Observation>& obs, const FitResult& from,
+                     const std::map<std::string, double>& fixed,
+                     const std::optional<double>& displacement);
+
+/// The first trial that keeps the fit's entries (see round_values.cpp);
+/// among acceptable trials of the same group (equally simple: attested
+/// values of as many places, or the two roundings beside the estimate) the
+/// one that reproduces most entries exactly, then the earlier.
+std::optional<std::pair<Trial, FitResult>> FirstAcceptable(
+    const std::vector<Trial>& trials, const Candidate& best, const Transcription& table,
+    const std::vector<Observation>& obs, const FitResult& current,
+    std::map<std::string, double> fixed, std::optional<double> displacement,
+    const std::string& param);
+
+/// Two parameters adopted together (see AdoptJointly).
+struct Pair {
+  Trial first, second;
+  FitResult fit;
+  std::size_t first_index = 0, second_index = 0;  ///< in the model's parameters
+  /// The less simple of the two first, then both (attested before round,
+  /// fewer places first).
+  std::pair<int, int> Simplicity() const {
+    return {std::max(first.group, second.group), first.group + second.group};
+  }
+};
+
+/// For a model of two free parameters of its own (an obliquity and a
+/// latitude): the two adopted together (round_pairs.cpp); nullopt when the
+/// model has not two such parameters or no pair keeps the fit's entries.
+std::optional<Pair> AdoptJointly(const Candidate& best, const Transcription& table,
+                                 const std::vector<Observation>& obs, int places,
+                                 const std::vector<CatalogEntry>* catalog);
+
+/// For a model whose two parameters the entries fix only in a combination:
+/// a pair of simple values held together (round_pairs.cpp).
+std::optional<Pair> AdoptCombination(const Candidate& best, const Transcription& table,
+                                     const std::vector<Observation>& obs,
+                                     const std::vector<CatalogEntry>* catalog);
 
 /// Round and attested values for `best` (see round_values.cpp); nullopt when
 /// nothing was adopted.
