@@ -56,6 +56,7 @@ int main(int argc, char** argv) {
     const auto t = synth::DrawTradition(seed, {});
     witnesses += static_cast<long>(t.Surviving().size());
     tables += static_cast<long>(t.tables.size());
+    if (std::getenv("BENCH_DEBUG")) g.notes.push_back("SEED " + std::to_string(seed));
     g.Add(testing::GradeTradition(t, dir, std::getenv("BENCH_DEBUG") != nullptr));
     for (int how : {0, 1}) wrong.Add(testing::GradeWrongReference(t, dir, how));
     if (std::getenv("BENCH_PROGRESS")) std::fprintf(stderr, "draw %d\n", i + 1);

@@ -316,3 +316,41 @@ TEST_CASE("a reading off the author's own value that the others share is this co
     CHECK_FALSE(own->cells.front().emendation.has_value());
   }
 }
+
+TEST_CASE("a constant error a branch shares is one run in each copy that reads it") {
+  // Two of five copies (a branch: B and C) read one minute more than the
+  // model over rows 40-45, an ancestor's constant error; the other three
+  // read the model. One minute is within the author's usual departure and
+  // not every other witness contradicts B (C reads as B does), yet the
+  // others agree on the model's value: in B and in C the six rows are one
+  // constant error with one reading per row, not six confusions of a digit
+  // (seeds 1-40 of deviation_bench: such runs were the largest share of
+  // constant runs named otherwise; DEVELOPERS.md, tenth round).
+  Synthetic s = MakeTable(testing::SolarEquation, 1, 1, 180, 1);
+  auto witnesses = Copies(s, 5);
+  for (std::size_t w : {1u, 2u}) {
+    for (std::size_t r = 40; r <= 45; ++r) {
+      Synthetic copy = s;
+      copy.Set(r, Moved(s, r, 1, 1).ToString());
+      witnesses[w].rows[r] = copy.table.rows[r];
+    }
+  }
+  const auto found = pipeline::ExplainTradition(witnesses, SolarReference(witnesses), kDir);
+  REQUIRE(found.size() == 5);
+  for (std::size_t w : {1u, 2u}) {
+    std::string notes;
+    for (const auto& f : found[w].findings) notes += f.Note(found[w].siglum) + "\n";
+    INFO(notes);
+    const Finding* f = At(found[w].findings, 40);
+    REQUIRE(f != nullptr);
+    CHECK(f->best().cls == SlipClass::kSystematic);
+    REQUIRE(f->cells.size() == 6);
+    for (const auto& c : f->cells) {
+      REQUIRE(c.emendation.has_value());
+      CHECK(c.emendation->ToString() == s.values.computed[c.row]->ToString());
+    }
+  }
+  for (std::size_t w : {0u, 3u, 4u}) {
+    for (std::size_t r : SlipRows(found[w])) CHECK((r < 40 || r > 45));
+  }
+}

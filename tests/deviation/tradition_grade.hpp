@@ -296,7 +296,10 @@ inline void GradeColumn(const Witness& w, const pipeline::WitnessFindings& found
                                                        : "EMEND ") +
                         ClassName(*slip) + " [" + slip->detail + "] " + slip->pair + " " +
                         slip->before + " -> " + slip->after + " want " + want.ToString() + " (" +
-                        ScriptOf(w.table) + ") | " + NoteOf(found, column, r));
+                        ScriptOf(w.table) + ") {vis " + std::to_string(visible[slip->run]) +
+                        " run " + std::to_string(slip->run) + " row " + std::to_string(r) +
+                        " wit " + w.node->name + " col " + key.name + "} | " +
+                        NoteOf(found, column, r));
     }
     g.all.Add(one);
     script.Add(one);
