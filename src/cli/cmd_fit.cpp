@@ -26,13 +26,16 @@ extern const char kFitUsage[] =
     "                    [--fix NAME=VALUE]... [--rounding nearest|truncate] [--places N]\n"
     "                    [--grid G [--grid-origin X] [--round-nodes]] [--displacement VALUE|fit]\n"
     "                    [--sign signed|negated|magnitude|conventional]\n"
-    "                    [--tolerance UNITS] [--all-entries]\n"
+    "                    [--tolerance UNITS] [--all-entries] [--cauchy-only]\n"
     "                    [--format text|json] [--db FILE]\n"
     "       apograph fit (--all | --work WORK) --model NAME [the options above] [--threads N]\n"
     "                    [--format text|csv|json]\n\n"
     "Estimates the model's free parameters by robust least squares (Cauchy loss, scale one\n"
-    "unit of the last place), so that a few miscopied entries do not pull the estimate;\n"
-    "standard errors from the covariance at the optimum. Several --column options fit the\n"
+    "unit of the last place), so that a few miscopied entries do not pull the estimate,\n"
+    "then by least squares on the entries within 2.5 units (or three robust scales) of that\n"
+    "estimate; standard errors from the covariance at the optimum, scaled by the robust\n"
+    "scale of the entries used. --cauchy-only stops at the Cauchy estimate (the loss another\n"
+    "program would minimise, for comparisons). Several --column options fit the\n"
     "columns jointly with the same parameters. A mean-motion model also gets the analysis\n"
     "of how the table was built. Exit code 1 when entries are flagged.\n\n"
     "--all (or --work) fits the model to every transcription (or every one of the work's\n"
@@ -54,7 +57,7 @@ struct FitArgs {
   std::vector<std::string> columns, fixes;
   int places = -1;
   double grid = 0, grid_origin = 0, tolerance = 1.0;
-  bool round_nodes = false, all_entries = false;
+  bool round_nodes = false, all_entries = false, cauchy_only = false;
 };
 
 estimate::FitOptions Options(const FitArgs& a, const model::Model& m) {
@@ -75,6 +78,7 @@ estimate::FitOptions Options(const FitArgs& a, const model::Model& m) {
   else if (!a.displacement.empty())
     o.practice.displacement = ParseNumber("--displacement", a.displacement);
   o.tolerance = a.tolerance;
+  o.refit_inliers = !a.cauchy_only;
   for (const auto& f : a.fixes) {
     const auto eq = f.find('=');
     if (eq == std::string::npos || eq == 0)
@@ -188,7 +192,10 @@ int RunFit(const std::vector<std::string>& args, Io& io) {
       "tolerance", po::value(&a.tolerance)->default_value(1.0),
       "flag entries more than this many units away")(
       "all-entries", po::bool_switch(&a.all_entries),
-      "text: list every entry, not only flagged ones");
+      "text: list every entry, not only flagged ones")(
+      "cauchy-only", po::bool_switch(&a.cauchy_only),
+      "the Cauchy estimate alone, without the least-squares refit on the inliers (the loss "
+      "another program would fit: for comparisons)");
   AddBatchOptions(opts, batch);
   AddDbOption(opts, a.db);
   AddFormatOption(opts, a.format, {"text", "csv", "json"});

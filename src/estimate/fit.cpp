@@ -293,7 +293,7 @@ bool RefitInliers(const model::Model& model, const Transcription& table,
   const double robust = internal::RobustScale(r);
   scale = robust;
   inliers = static_cast<int>(n);
-  if (best.hopeless || best.x.empty()) return false;
+  if (best.hopeless || best.x.empty() || !options.refit_inliers) return false;
   const double limit = std::max(kInlierUnits, kInlierScales * robust);
   std::vector<Observation> kept;
   kept.reserve(n);

@@ -83,6 +83,11 @@ struct FitOptions {
   std::map<std::string, double> start;
   /// Entries farther than this from the model (units) are flagged.
   double tolerance = 1.0;
+  /// Step 3 below (the least-squares refit on the inliers). Off: the Cauchy
+  /// estimate alone, the loss another program would fit (`fit
+  /// --cauchy-only`, for comparisons); standard errors then from the Cauchy
+  /// optimum, scaled by the robust scale of every entry.
+  bool refit_inliers = true;
 };
 
 /// One estimated (or fixed) parameter.

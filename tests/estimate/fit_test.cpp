@@ -71,6 +71,22 @@ TEST_CASE(
   CHECK(flagged_rows == 5);
 }
 
+TEST_CASE("--cauchy-only: the Cauchy estimate alone, without the refit on the inliers") {
+  const double e = 2.0 + 4.0 / 60 + 48.0 / 3600;
+  const Transcription bad =
+      SolarTable(e, {{10, 600}, {44, -37}, {90, 3600}, {200, 20}, {301, -1200}});
+  FitOptions cauchy;
+  cauchy.refit_inliers = false;
+  const FitResult robust = Fit(Eccentric(), bad, std::vector<int>{}, FitOptions{});
+  const FitResult alone = Fit(Eccentric(), bad, std::vector<int>{}, cauchy);
+  CHECK(robust.inliers == 355);  // the five slips left out of the refit
+  CHECK(alone.inliers == 360);
+  CHECK(alone.params[0].value != robust.params[0].value);
+  // Both near the author's value, and the slips flagged by both.
+  CHECK(std::fabs(alone.params[0].value - e) < 3 * alone.params[0].stderr_);
+  CHECK(alone.flagged == 5);
+}
+
 TEST_CASE(
     "standard errors are calibrated: over 40 tables the error in standard errors has rms near 1") {
   double sum2 = 0;
