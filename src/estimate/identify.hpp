@@ -160,6 +160,20 @@ std::optional<Adoption> AdoptRoundValues(const model::Model& model, const FitRes
                                          const Transcription& table, int column,
                                          const std::vector<CatalogEntry>* catalog);
 
+/// A column of a table and its best explanation (ShareAdoptedValues).
+struct ColumnBest {
+  const Transcription* table = nullptr;
+  int column = 0;
+  Candidate* best = nullptr;
+};
+
+/// One value for the table (shared_values.cpp): in a table of several
+/// latitudes, the obliquity adopted by most columns is tried in each column
+/// that adopted another, the latitude then adopted again; the column's
+/// adoption is replaced when its entries keep the fit's.
+void ShareAdoptedValues(const std::vector<ColumnBest>& columns,
+                        const std::vector<CatalogEntry>* catalog);
+
 /// Interpolation grids worth trying for a table's argument step and range.
 std::vector<double> CandidateGrids(const Transcription& table);
 

@@ -170,6 +170,16 @@ std::optional<Pair> AdoptCombination(const Candidate& best, const Transcription&
                                      const std::vector<Observation>& obs,
                                      const std::vector<CatalogEntry>* catalog);
 
+/// The value written in the column's heading for the parameter the
+/// table's second argument names (a latitude above a column of ascensional
+/// differences), as a trial; nullopt when none is written (round_pairs.cpp).
+std::optional<Trial> AsWritten(const Transcription& table, const std::vector<Observation>& obs,
+                               const std::string& param);
+
+/// Which values were adopted and why, in words (round_values.cpp).
+std::string AdoptionText(const std::vector<AdoptedValue>& values, const FitResult& fit,
+                         const FitResult& adopted);
+
 /// Round and attested values for `best` (see round_values.cpp); nullopt when
 /// nothing was adopted.
 std::optional<Adoption> AdoptRoundValues(const Candidate& best, const Transcription& table,

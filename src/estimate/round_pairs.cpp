@@ -42,22 +42,6 @@ void AddRidge(std::vector<Trial>& out, double estimate, double se) {
   }
 }
 
-/// The value written in the column's heading for the parameter the table's
-/// second argument names (a latitude of 23;51 above a column of
-/// ascensional differences): what the author computed the column for, the
-/// simplest value there is. Measured: identify_accuracy_bench seed 348, six
-/// columns of 36 rows computed with an obliquity of 23;33; with the
-/// latitude free each column adopted the obliquity nearest along its ridge
-/// (23;35, 23;33,30 or 23;33), with the latitude as written the fitted
-/// obliquity lies within 2 standard errors of 23;33 in every column.
-std::optional<Trial> AsWritten(const Transcription& table, const std::vector<Observation>& obs,
-                               const std::string& param) {
-  if (obs.empty() || !table.argument2 || table.argument2->name != param) return std::nullopt;
-  const auto& spec = table.columns.at(static_cast<std::size_t>(obs.front().column));
-  if (!spec.arg2) return std::nullopt;
-  return Trial{spec.arg2->ToDouble(), 0, "as written in the column's heading", 0};
-}
-
 /// The second of two parameters held at the value written in the column's
 /// heading (AsWritten) and the first then adopted at its own round or
 /// attested value near its refitted estimate, when both keep the fit's
@@ -93,6 +77,22 @@ std::optional<Pair> WithWritten(const Candidate& best, const Transcription& tabl
 }
 
 }  // namespace
+
+/// The value written in the column's heading for the parameter the table's
+/// second argument names (a latitude of 23;51 above a column of
+/// ascensional differences): what the author computed the column for, the
+/// simplest value there is. Measured: identify_accuracy_bench seed 348, six
+/// columns of 36 rows computed with an obliquity of 23;33; with the
+/// latitude free each column adopted the obliquity nearest along its ridge
+/// (23;35, 23;33,30 or 23;33), with the latitude as written the fitted
+/// obliquity lies within 2 standard errors of 23;33 in every column.
+std::optional<Trial> AsWritten(const Transcription& table, const std::vector<Observation>& obs,
+                               const std::string& param) {
+  if (obs.empty() || !table.argument2 || table.argument2->name != param) return std::nullopt;
+  const auto& spec = table.columns.at(static_cast<std::size_t>(obs.front().column));
+  if (!spec.arg2) return std::nullopt;
+  return Trial{spec.arg2->ToDouble(), 0, "as written in the column's heading", 0};
+}
 
 /// For a model of two free parameters of its own (an obliquity and a
 /// latitude), which the entries determine together more than apart: each

@@ -53,6 +53,8 @@ int PlacesOf(const Sexagesimal& v) {
   return p;
 }
 
+}  // namespace
+
 std::string AdoptionText(const std::vector<AdoptedValue>& values, const FitResult& fit,
                          const FitResult& adopted) {
   std::string s;
@@ -68,8 +70,6 @@ std::string AdoptionText(const std::vector<AdoptedValue>& values, const FitResul
          "); a round or attested value is what an author computed with, and the entries it "
          "misses by a unit are his own departures";
 }
-
-}  // namespace
 
 /// A fit with adopted values keeps the fit's entries: no more entries
 /// beyond one unit, and at most `allowance` fewer reproduced exactly; or,

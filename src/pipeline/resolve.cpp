@@ -227,26 +227,55 @@ void FillIdentified(ColumnReference& r, const WitnessBest& chosen) {
   r.verdict = chosen.verdict;
 }
 
-ColumnReference Identified(const std::vector<const Transcription*>& from, int column,
-                           const std::shared_ptr<const model::Model>& requested,
-                           const ReferenceRequest& request, const ModelLibrary& library) {
+/// The witness whose best explanation of `column` is the best evidence.
+WitnessBest Chosen(const std::vector<const Transcription*>& from, int column,
+                   const std::shared_ptr<const model::Model>& requested,
+                   const ReferenceRequest& request, const ModelLibrary& library) {
   std::optional<WitnessBest> chosen;
   for (const Transcription* t : from) {
     auto b = BestOf(*t, column, requested, request, library);
     if (b && (!chosen || Better(*b, *chosen))) chosen = std::move(b);
   }
-  const Transcription& layout = *from.front();
   if (!chosen) {
+    const Transcription& layout = *from.front();
     throw InputError::ForOption(
         "--auto", "no model could be identified for column " +
                       layout.columns.at(static_cast<std::size_t>(column)).name + " of table " +
                       layout.table_id + " (too few readable entries)");
   }
-  ColumnReference r = Base(layout, column, chosen->model);
-  FillIdentified(r, *chosen);
+  return std::move(*chosen);
+}
+
+ColumnReference Identified(const Transcription& layout, int column, const WitnessBest& chosen,
+                           const std::shared_ptr<const model::Model>& requested,
+                           const ReferenceRequest& request) {
+  ColumnReference r = Base(layout, column, chosen.model);
+  FillIdentified(r, chosen);
   r.how = HowText(r, requested && request.practice_given);
   Finish(r, layout);
   return r;
+}
+
+/// Every column's best explanation, then one value for the table where
+/// most columns adopted it (estimate::ShareAdoptedValues), when identify
+/// chose the models.
+std::vector<ColumnReference> IdentifiedAll(const std::vector<const Transcription*>& from,
+                                           const std::vector<int>& columns,
+                                           const std::shared_ptr<const model::Model>& requested,
+                                           const ReferenceRequest& request,
+                                           const ModelLibrary& library) {
+  std::vector<WitnessBest> chosen;
+  for (int c : columns) chosen.push_back(Chosen(from, c, requested, request, library));
+  if (!requested) {
+    std::vector<estimate::ColumnBest> bests;
+    for (std::size_t i = 0; i < columns.size(); ++i)
+      bests.push_back({chosen[i].witness, columns[i], &chosen[i].best});
+    estimate::ShareAdoptedValues(bests, &library.catalog);
+  }
+  std::vector<ColumnReference> out;
+  for (std::size_t i = 0; i < columns.size(); ++i)
+    out.push_back(Identified(*from.front(), columns[i], chosen[i], requested, request));
+  return out;
 }
 
 std::vector<const Transcription*> Sources(const std::vector<Transcription>& ws,
@@ -291,9 +320,10 @@ std::vector<ColumnReference> ResolveReferences(const std::vector<Transcription>&
   const std::vector<int> columns = estimate::ResolveColumns(layout, request.columns);
   const auto from = Sources(witnesses, request.witness);
   std::vector<ColumnReference> out;
-  for (int c : columns) {
-    out.push_back(request.automatic ? Identified(from, c, requested, request, library)
-                                    : Given(layout, c, requested, request));
+  if (request.automatic) {
+    out = IdentifiedAll(from, columns, requested, request, library);
+  } else {
+    for (int c : columns) out.push_back(Given(layout, c, requested, request));
   }
   // Columns computed from other columns, when the model is identified.
   if (request.automatic && !requested) internal::AddDerivedReferences(from, out);
