@@ -3,7 +3,10 @@
 #include "cli/command.hpp"
 
 #include <algorithm>
+#include <cstddef>
 #include <ostream>
+#include <utility>
+#include <vector>
 
 #include "cli/batch_output.hpp"
 #include "cli/estimate_options.hpp"
@@ -34,7 +37,8 @@ extern const char kIdentifyUsage[] =
     "Estimates far outside a parameter's historical range are ranked last, with a note.\n"
     "Mean-motion columns also get the analysis of how the table was built, and columns\n"
     "computed from another column (differences, sums, 1/k of the difference) are named.\n"
-    "Results are\n"
+    "In a table of several latitudes the obliquity most columns adopted is tried in the\n"
+    "others, as check and errors --auto do. Results are\n"
     "stored in the database (view latest_identification). --all (or --work) goes through\n"
     "every transcription in one process on every core, prints each table as it is done\n"
     "(memory holds only the tables in hand) and shows a progress bar on a terminal.\n\n"
@@ -78,6 +82,19 @@ std::vector<std::string> SummaryRow(const Transcription& t, int column,
           std::to_string(r.notes.size())};
 }
 
+/// One value for the table, as the reports adopt it: each column's best
+/// explanation handed to estimate::ShareAdoptedValues, as
+/// pipeline::ResolveReferences does (`results[k]` is column `columns[k]`).
+void ShareInTable(const Transcription& t, const std::vector<int>& columns,
+                  std::vector<estimate::Identification>& results,
+                  const std::vector<estimate::CatalogEntry>* catalog) {
+  std::vector<estimate::ColumnBest> bests;
+  for (std::size_t k = 0; k < results.size(); ++k) {
+    if (!results[k].ranked.empty()) bests.push_back({&t, columns[k], &results[k].ranked.front()});
+  }
+  estimate::ShareAdoptedValues(bests, catalog);
+}
+
 /// identify --all (or --work): one transcription at a time on the threads,
 /// each stored (one transaction per window of tables) and printed as it is
 /// done; memory holds only the tables in hand and the lines printed.
@@ -98,8 +115,9 @@ int RunBatch(store::Database& db, const BatchArgs& batch, const estimate::Identi
       [&](std::size_t i) { return store::Load(db, scope[i].table_id, scope[i].siglum); },
       [&](const Transcription& t) {
         Done out;
-        for (int c : estimate::ResolveColumns(t, {}))
-          out.push_back(estimate::Identify(t, c, options));
+        const auto cols = estimate::ResolveColumns(t, {});
+        for (int c : cols) out.push_back(estimate::Identify(t, c, options));
+        ShareInTable(t, cols, out, options.catalog);
         return out;
       },
       [&](std::size_t i, Transcription&& t, Done&& results) {
@@ -175,10 +193,14 @@ int RunOne(store::Database& database, const OneTable& one, const estimate::Ident
   const std::string& column = one.column;
   const Transcription t = store::Load(database, table, witness);
   const int revision = store::CurrentRevision(database, table, witness);
+  const auto cols = estimate::ResolveColumns(
+      t, column.empty() ? std::vector<std::string>{} : std::vector<std::string>{column});
+  std::vector<estimate::Identification> results;
+  for (int c : cols) results.push_back(estimate::Identify(t, c, options));
+  ShareInTable(t, cols, results, options.catalog);
   std::vector<Job> jobs;
-  for (int c : estimate::ResolveColumns(
-           t, column.empty() ? std::vector<std::string>{} : std::vector<std::string>{column}))
-    jobs.push_back({t, revision, c, estimate::Identify(t, c, options)});
+  for (std::size_t k = 0; k < cols.size(); ++k)
+    jobs.push_back({t, revision, cols[k], std::move(results[k])});
   std::vector<store::IdentifyRecord> records;
   for (const auto& j : jobs)
     records.push_back(

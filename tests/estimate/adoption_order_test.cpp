@@ -11,6 +11,7 @@
 #include "estimate/fit.hpp"
 #include "estimate/identify.hpp"
 #include "model_columns.hpp"
+#include "several_latitudes.hpp"
 #include "synthetic.hpp"
 
 namespace apograph::estimate {
@@ -100,17 +101,10 @@ TEST_CASE("the obliquity most columns of a table adopted is tried in the others"
   // with the author's obliquity and written latitude alone (the others
   // took another obliquity along the ridge, or truncation for rounding),
   // 24 of 24 with the value most columns adopted tried in the others.
-  const std::vector<const char*> lats = {"23;51", "30;22", "36", "40;56", "45;1", "48;32"};
+  const std::vector<const char*>& lats = testing::SeveralLatitudes();
   int alone = 0, shared = 0;
   for (unsigned seed = 1; seed <= 4; ++seed) {
-    std::vector<testing::SyntheticColumn> cols;
-    for (const char* lat : lats)
-      cols.push_back(testing::FromModel("ascensional-difference", {D("23;50"), D(lat)}, 1));
-    Transcription t = testing::MakeTable("asc", 10, 10, 36, cols);
-    t.argument2 = ArgumentSpec{"latitude", "deg", 1};
-    for (std::size_t i = 0; i < lats.size(); ++i)
-      t.columns[i].arg2 = Sexagesimal::ParseOrThrow(lats[i]);
-    const Transcription c = testing::CorruptAFifth(t, seed);
+    const Transcription c = testing::SeveralLatitudesTable(seed);
     IdentifyOptions o;
     o.catalog = &testing::Catalog();
     std::vector<Candidate> bests;
