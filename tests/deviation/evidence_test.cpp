@@ -354,3 +354,30 @@ TEST_CASE("a constant error a branch shares is one run in each copy that reads i
     for (std::size_t r : SlipRows(found[w])) CHECK((r < 40 || r > 45));
   }
 }
+
+TEST_CASE("a constant error that a slide fits only nearly is named a constant error") {
+  // Chords near 35 degrees grow by about one degree a row, so a copy one
+  // degree short over rows 31-38 also reads nearly the entries one row
+  // behind. The constant error restores every row exactly; the slide's
+  // values miss the neighbouring entries by a minute in some rows, and a
+  // slide copies the column's own entries (seeds 1-40 of deviation_bench:
+  // such runs were named eye-skips; DEVELOPERS.md, eleventh round).
+  Synthetic s = MakeTable(testing::Chord, 1, 1, 180, 1);
+  int near = 0;
+  for (int a = 31; a <= 38; ++a) {
+    const std::size_t r = s.Row(a);
+    s.Set(r, Moved(s, r, -60, 1).ToString());
+    near += s.values.computed[r - 1]->ToString() != s.Get(r);
+  }
+  REQUIRE(near > 0);  // the slide is not exact in every row
+  const auto findings = ExplainColumn(s.table, s.values, FindNumeralScript("hindu-arabic", kDir));
+  const Finding* f = At(findings, s.Row(31));
+  REQUIRE(f != nullptr);
+  INFO(f->Note("A"));
+  CHECK(f->best().cls == SlipClass::kSystematic);
+  REQUIRE(f->cells.size() == 8);
+  for (const auto& c : f->cells) {
+    REQUIRE(c.emendation.has_value());
+    CHECK(c.emendation->ToString() == s.values.computed[c.row]->ToString());
+  }
+}
