@@ -62,7 +62,8 @@ TEST_CASE("a slid run judged by a model: the witnesses without it read it right"
   CHECK(slide->base_is_right);
   CHECK(slide->states == std::vector<signed char>{0, 0, 0, 1});
   // By the majority alone nothing is called right.
-  const Character* by_majority = Slide(BuildCharacters(collate::Collate(ws)));
+  const CharacterMatrix unjudged = BuildCharacters(collate::Collate(ws));
+  const Character* by_majority = Slide(unjudged);
   REQUIRE(by_majority != nullptr);
   CHECK(by_majority->direction == Direction::kMajority);
   CHECK_FALSE(by_majority->base_is_right);
