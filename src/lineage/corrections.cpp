@@ -192,6 +192,15 @@ CharacterMatrix MaskCorrections(const CharacterMatrix& m, const std::vector<Corr
     std::vector<Character> ties;
     for (auto& ch : out.characters) {
       if (!RightReading(ch, t)) continue;
+      if (ch.tie_break) {
+        // Another corrector's tie-break: this one's right reading is set
+        // aside there too, not copied again (a copy of a copy weighs
+        // kCorrectorTieBreak squared, and copying them doubled the matrix
+        // with every corrector: 2^n characters for n correctors).
+        ch.weight *= 1 - kCorrectorTieBreak;
+        ch.states[t] = -1;
+        continue;
+      }
       ties.push_back(ch);
       ties.back().weight = ch.weight * kCorrectorTieBreak;
       ties.back().tie_break = true;
