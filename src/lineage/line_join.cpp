@@ -17,11 +17,39 @@ struct LineErrors {
   std::vector<bool> held;
 };
 
-LineErrors Common(const CharacterMatrix& m, int c, int x, int z) {
-  LineErrors out;
+// Each witness's evidence errors (indices of characters, in table order).
+using ErrorLists = std::vector<std::vector<std::size_t>>;
+
+ErrorLists EvidenceErrors(const CharacterMatrix& m) {
+  ErrorLists out(m.taxa.size());
   for (std::size_t k = 0; k < m.characters.size(); ++k) {
     const Character& ch = m.characters[k];
-    if (!Evidence(ch) || ch.states[c] < 0 || ch.states[x] != 1 || ch.states[z] != 1) continue;
+    if (!Evidence(ch)) continue;
+    for (std::size_t t = 0; t < m.taxa.size(); ++t)
+      if (ch.states[t] == 1) out[t].push_back(k);
+  }
+  return out;
+}
+
+// The errors x and z have in common (both lists in table order), where c
+// can be read.
+LineErrors Common(const CharacterMatrix& m, int c, const std::vector<std::size_t>& ex,
+                  const std::vector<std::size_t>& ez) {
+  LineErrors out;
+  auto i = ex.begin(), j = ez.begin();
+  while (i != ex.end() && j != ez.end()) {
+    if (*i < *j) {
+      ++i;
+      continue;
+    }
+    if (*j < *i) {
+      ++j;
+      continue;
+    }
+    const std::size_t k = *i;
+    ++i, ++j;
+    const Character& ch = m.characters[k];
+    if (ch.states[c] < 0) continue;
     const bool held = ch.states[c] == 1;
     if (!out.characters.empty() && out.held.back() == held &&
         ch.position - m.characters[out.characters.back()].position <= kSameSlipRows)
@@ -49,10 +77,10 @@ double EndChance(int all, int lacked, int held) {
   return p;
 }
 
-Join Measure(const CharacterMatrix& m, int c, int x, int z) {
+Join Measure(const CharacterMatrix& m, const ErrorLists& errors, int c, int x, int z) {
   Join j;
   j.c = c, j.x = x, j.z = z;
-  j.line = Common(m, c, x, z);
+  j.line = Common(m, c, errors[x], errors[z]);
   const auto& h = j.line.held;
   const auto lead = std::find(h.begin(), h.end(), true) - h.begin();
   const auto trail = std::find(h.rbegin(), h.rend(), true) - h.rbegin();
@@ -64,15 +92,27 @@ Join Measure(const CharacterMatrix& m, int c, int x, int z) {
   return j;
 }
 
-std::optional<Join> JoinOf(const CharacterMatrix& m, int c, const std::vector<bool>& skip) {
+// Only relatives sharing kMinSideSlips of c's errors can make a line c
+// holds in part (its held errors are common to all three): the pairs are
+// drawn from those, which keeps the search near linear in the witnesses
+// when most are unrelated to c.
+std::optional<Join> JoinOf(const CharacterMatrix& m, const ErrorLists& errors, int c,
+                           const std::vector<bool>& skip) {
   const auto below = Descendants(m, c, ErrorsOf(m, c));
-  const int n = static_cast<int>(m.taxa.size());
+  std::vector<bool> mine(m.characters.size(), false);
+  for (std::size_t k : errors[static_cast<std::size_t>(c)]) mine[k] = true;
+  std::vector<int> near;
+  for (int x = 0; x < static_cast<int>(m.taxa.size()); ++x) {
+    const auto ux = static_cast<std::size_t>(x);
+    if (x == c || below[ux] || skip[ux]) continue;
+    const auto shared =
+        std::count_if(errors[ux].begin(), errors[ux].end(), [&](std::size_t k) { return mine[k]; });
+    if (shared >= kMinSideSlips) near.push_back(x);
+  }
   std::optional<Join> best;
-  for (int x = 0; x < n; ++x) {
-    if (x == c || below[x] || skip[x]) continue;
-    for (int z = x + 1; z < n; ++z) {
-      if (z == c || below[z] || skip[z]) continue;
-      Join j = Measure(m, c, x, z);
+  for (std::size_t a = 0; a < near.size(); ++a) {
+    for (std::size_t b = a + 1; b < near.size(); ++b) {
+      Join j = Measure(m, errors, c, near[a], near[b]);
       if (j.chance <= kJoinChance && (!best || j.chance < best->chance)) best = std::move(j);
     }
   }
@@ -160,10 +200,11 @@ void AddLineJoin(const CharacterMatrix& m, const std::vector<std::string>& named
   std::vector<bool> skip(m.taxa.size(), false);
   for (std::size_t w = 0; w < m.taxa.size(); ++w)
     skip[w] = std::find(named.begin(), named.end(), m.taxa[w]) != named.end();
+  const ErrorLists errors = EvidenceErrors(m);
   std::vector<Join> joins;
   for (int c = 0; c < static_cast<int>(m.taxa.size()); ++c) {
     if (skip[static_cast<std::size_t>(c)]) continue;
-    if (auto j = JoinOf(m, c, skip)) joins.push_back(std::move(*j));
+    if (auto j = JoinOf(m, errors, c, skip)) joins.push_back(std::move(*j));
   }
   std::sort(joins.begin(), joins.end(),
             [](const Join& a, const Join& b) { return a.chance < b.chance; });
