@@ -170,9 +170,19 @@ struct ColumnBest {
 /// One value for the table (shared_values.cpp): in a table of several
 /// latitudes, the obliquity adopted by most columns is tried in each column
 /// that adopted another, the latitude then adopted again; the column's
-/// adoption is replaced when its entries keep the fit's.
+/// adoption is replaced when its entries keep the fit's. Then ShareMotions.
 void ShareAdoptedValues(const std::vector<ColumnBest>& columns,
                         const std::vector<CatalogEntry>* catalog);
+
+/// One motion, one rate (shared_motions.cpp): a rate or radix of a column
+/// is held at the value another column of the table adopted for a rate
+/// (or radix) when that column determines it better (a smaller standard
+/// error) and the value lies near this column's estimate (within
+/// kRidgeSigmas standard errors, 2% of a rate, 2 degrees of a radix: the
+/// mean sun's rate in the column of the solar equation by date); the
+/// column's other parameters are adopted afresh, and its adoption replaced
+/// when its entries keep the fit's.
+void ShareMotions(const std::vector<ColumnBest>& columns, const std::vector<CatalogEntry>* catalog);
 
 /// Interpolation grids worth trying for a table's argument step and range.
 std::vector<double> CandidateGrids(const Transcription& table);

@@ -157,10 +157,10 @@ std::optional<Adoption> Holding(const ColumnBest& c, const std::vector<ColumnBes
   return a;
 }
 
-}  // namespace
-
-void ShareAdoptedValues(const std::vector<ColumnBest>& columns,
-                        const std::vector<CatalogEntry>* catalog) {
+/// The obliquity (or another parameter of the model's own) adopted by most
+/// columns, tried in the others (see the file comment).
+void ShareMostAdopted(const std::vector<ColumnBest>& columns,
+                      const std::vector<CatalogEntry>* catalog) {
   const auto most = MostAdopted(columns);
   if (!most) return;
   const auto& [param, value] = most->first;
@@ -176,6 +176,14 @@ void ShareAdoptedValues(const std::vector<ColumnBest>& columns,
     if (auto a = Holding(c, agreeing, param, value, source, catalog))
       c.best->adoption = std::move(*a);
   }
+}
+
+}  // namespace
+
+void ShareAdoptedValues(const std::vector<ColumnBest>& columns,
+                        const std::vector<CatalogEntry>* catalog) {
+  ShareMostAdopted(columns, catalog);
+  ShareMotions(columns, catalog);
 }
 
 }  // namespace apograph::estimate
