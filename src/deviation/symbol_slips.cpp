@@ -8,6 +8,7 @@
 // from it.
 #include <algorithm>
 #include <cmath>
+#include <limits>
 #include <set>
 
 #include "deviation/explain_internal.hpp"
@@ -66,10 +67,17 @@ double StepChance(const NumeralScript& script, const ConfusionStep& step) {
   return std::min(1.0, step.weight / script.MeanConfusionWeight());
 }
 
+/// Whether `script` writes both values (a positional script's whole parts
+/// beyond 999 digit by digit, see NumeralScript::MaxWritten).
+bool Writes(const NumeralScript& script, int from, int to) {
+  return from >= 0 && to >= 0 && from <= script.MaxWritten() && to <= script.MaxWritten();
+}
+
 /// The likeliest path of at most `max_steps` listed confusions.
 std::optional<Path> ListedPath(const NumeralScript& script, int from, int to, int place,
                                int max_steps) {
   std::optional<Path> best;
+  if (!Writes(script, from, to)) return best;
   auto consider = [&](const std::vector<std::string>& w, const std::vector<ConfusionStep>& steps) {
     if (!ReadsAs(script, w, to)) return;
     double chance = 1;
@@ -91,6 +99,7 @@ std::optional<Path> ListedPath(const NumeralScript& script, int from, int to, in
 
 /// One symbol changed, dropped or added outside the lists.
 std::optional<Path> UnlistedPath(const NumeralScript& script, int from, int to, int place) {
+  if (!Writes(script, from, to)) return std::nullopt;
   const auto glyphs = script.Glyphs();
   const double chance = 1.0 / std::max(1, script.SlotSize() - 1);
   for (const auto& start : StartWritings(script, from, place)) {
@@ -204,9 +213,12 @@ std::vector<Candidate> ConfusionCandidates(const CellContext& c) {
     for (std::size_t p = 0; p < copy.d.size(); ++p) {
       if (copy.d[p] != want.d[p]) differ.push_back(p);
     }
+    // Each path checks that its script writes the place (Writes: a
+    // positional script writes a whole part of 3141 digit by digit).
+    constexpr std::int64_t kInt = std::numeric_limits<int>::max();
     if (differ.empty() || differ.size() > 2 ||
         std::any_of(differ.begin(), differ.end(),
-                    [&](std::size_t p) { return copy.d[p] >= 1000 || want.d[p] >= 1000; }))
+                    [&](std::size_t p) { return copy.d[p] > kInt || want.d[p] > kInt; }))
       continue;
     auto from = [&](std::size_t p) { return static_cast<int>(want.d[p]); };
     auto to = [&](std::size_t p) { return static_cast<int>(copy.d[p]); };
