@@ -18,7 +18,7 @@ bool TwoDigitPlace(const CellContext& c, std::size_t place) {
 }  // namespace
 
 std::vector<std::string> PlaceSymbols(const NumeralScript& script, std::int64_t value, int place) {
-  if (value < 0 || value >= 1000) return {};
+  if (value < 0 || value > script.MaxWritten()) return {};
   auto symbols = script.Write(static_cast<int>(value));
   if (script.writing() == Writing::kPositional && place >= 1 && value < 10)
     symbols.insert(symbols.begin(), script.Write(0).front());
@@ -128,8 +128,10 @@ std::vector<Candidate> PlaceCandidates(const CellContext& c) {
   const Digits copy = ToDigits(c.tabulated, c.places);
   const Digits model = ToDigits(c.Expected(), c.places);
   const std::size_t n = copy.d.size();
-  if (n < 2 || model.d.size() != n) return out;
-  for (std::size_t p = 0; p < n; ++p) {  // a place left empty (written as zero)
+  if (n == 0 || model.d.size() != n) return out;
+  // A place left empty (written as zero); an entry of one place (a sine in
+  // whole units, 3141) is then written 0.
+  for (std::size_t p = 0; p < n; ++p) {
     if (copy.d[p] != 0 || model.d[p] == 0) continue;
     Digits d = copy;
     d.d[p] = model.d[p];
@@ -137,7 +139,7 @@ std::vector<Candidate> PlaceCandidates(const CellContext& c) {
              PlaceName(static_cast<int>(p), c.unit) + " omitted (written as 0); " +
                  Supplied(c, p, model.d[p]));
   }
-  for (std::size_t p = 0; p + 1 < n; ++p) {
+  for (std::size_t p = 0; p + 1 < n; ++p) {  // stories of two places or more
     // Place p dropped and the places after it moved up one: restore it.
     Digits up = copy;
     up.d.insert(up.d.begin() + static_cast<std::ptrdiff_t>(p), model.d[p]);

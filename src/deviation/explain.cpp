@@ -55,7 +55,7 @@ Digits ToDigits(const Sexagesimal& value, int places) {
 }
 
 std::optional<Sexagesimal> FromDigits(const Digits& digits) {
-  if (digits.d.empty() || digits.d[0] < 0 || digits.d[0] > 999) return std::nullopt;
+  if (digits.d.empty() || digits.d[0] < 0) return std::nullopt;
   std::vector<int> fractions;
   for (std::size_t i = 1; i < digits.d.size(); ++i) {
     if (digits.d[i] < 0 || digits.d[i] > 59) return std::nullopt;

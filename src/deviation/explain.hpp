@@ -132,7 +132,8 @@ struct Finding {
 /// Explains the deviations of one column, in row order. `tradition_scripts`:
 /// the numeral scripts other witnesses of the tradition write; a slip may have
 /// been made by an ancestor writing one of them and inherited (their listed
-/// confusions are tried too, weighed down).
+/// confusions are tried too, weighed down, and, where no path of any list
+/// reaches the place, one symbol changed outside their lists).
 std::vector<Finding> ExplainColumn(const Transcription& table, const ColumnValues& values,
                                    const NumeralScript& script, const ExplainOptions& options = {},
                                    const std::vector<const NumeralScript*>& tradition_scripts = {});

@@ -21,7 +21,8 @@ struct Digits {
   std::vector<std::int64_t> d;
 };
 Digits ToDigits(const Sexagesimal& value, int places);
-/// nullopt when a place is out of range (fractions 0..59, integer 0..999).
+/// nullopt when a place is out of range (fractions 0..59, a whole part below
+/// 0). A whole part may exceed 999: a sine to a radius of 3438 reads 3141.
 std::optional<Sexagesimal> FromDigits(const Digits& digits);
 /// `value` at exactly `places` places (extended, or rounded).
 Sexagesimal AtPlaces(const Sexagesimal& value, int places);

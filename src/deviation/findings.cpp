@@ -189,8 +189,7 @@ CellContext MakeContext(const Transcription& table, const ColumnValues& values,
   const Digits digits = ToDigits(c.tabulated, places);
   c.symbols = 0;
   for (std::size_t p = 0; p < digits.d.size(); ++p) {
-    if (digits.d[p] < 1000)
-      c.symbols += static_cast<int>(PlaceSymbols(script, digits.d[p], static_cast<int>(p)).size());
+    c.symbols += static_cast<int>(PlaceSymbols(script, digits.d[p], static_cast<int>(p)).size());
   }
   c.symbols = std::max(1, c.symbols);
   for (std::ptrdiff_t off : {-1, 1}) {

@@ -66,9 +66,14 @@ class NumeralScript {
   const std::vector<Confusion>& confusions() const { return confusions_; }
   const std::string& file() const { return file_; }
 
-  /// The symbols that write `value` (0..999), most significant first; a zero
-  /// is the script's zero sign. Example (greek-alphabetic): 43 -> {"μ", "γ"}.
+  /// The symbols that write `value` (0..MaxWritten()), most significant
+  /// first; a zero is the script's zero sign. Example (greek-alphabetic):
+  /// 43 -> {"μ", "γ"}; (hindu-arabic) 3141 -> {"3", "1", "4", "1"}.
   std::vector<std::string> Write(int value) const;
+  /// The largest value Write takes: 999 (how the script writes thousands is
+  /// not in its file), but a positional script writes any whole part digit by
+  /// digit (a sine to a radius of 3438 reads "3141"), up to 99,999.
+  int MaxWritten() const;
   /// The symbols joined: 43 -> "μγ".
   std::string WriteText(int value) const;
   /// The value of a written place, when it is a regular writing of one.

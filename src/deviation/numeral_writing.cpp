@@ -6,11 +6,15 @@
 #include <algorithm>
 #include <map>
 #include <stdexcept>
+#include <string>
 
 namespace apograph::deviation {
 namespace {
 
 constexpr int kMaxWritten = 1000;  // integer parts up to 999
+// A positional script's whole parts beyond 999, digit by digit: as far as
+// ValueOf reads (judgement: sines to radii of 3438 or 60,000 stay below it).
+constexpr int kMaxPositional = 99999;
 
 struct RomanStep {
   int value;
@@ -19,11 +23,21 @@ struct RomanStep {
 
 }  // namespace
 
+int NumeralScript::MaxWritten() const {
+  return writing_ == Writing::kPositional ? kMaxPositional : kMaxWritten - 1;
+}
+
 std::vector<std::string> NumeralScript::Write(int value) const {
-  if (value < 0 || value >= kMaxWritten) throw std::out_of_range("place value outside 0..999");
-  if (writings_.size() == static_cast<std::size_t>(kMaxWritten))
-    return writings_[static_cast<std::size_t>(value)];
-  return {};
+  if (value < 0 || value > MaxWritten())
+    throw std::out_of_range("place value outside 0.." + std::to_string(MaxWritten()));
+  if (writings_.size() != static_cast<std::size_t>(kMaxWritten)) return {};
+  if (value < kMaxWritten) return writings_[static_cast<std::size_t>(value)];
+  std::vector<std::string> out;  // positional: the digits' own writings
+  for (char c : std::to_string(value)) {
+    const auto& digit = writings_[static_cast<std::size_t>(c - '0')];
+    out.insert(out.end(), digit.begin(), digit.end());
+  }
+  return out;
 }
 
 std::string NumeralScript::WriteText(int value) const {

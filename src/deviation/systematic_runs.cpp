@@ -45,7 +45,10 @@ std::optional<Sexagesimal> Restore(const Transform& t, const Sexagesimal& c, con
   Digits d = ToDigits(c, places);
   const Digits want = ToDigits(e, places);
   const std::size_t n = d.d.size(), p = t.place;
-  if (n < 2 || want.d.size() != n || p >= n) return std::nullopt;
+  // An entry of one place (a sine in whole units) may be left empty (written
+  // as 0) row after row; the other patterns move or repeat a place among two.
+  const bool one_place = t.pattern == Pattern::kLeading || t.pattern == Pattern::kEmpty;
+  if (n < (one_place ? 1U : 2U) || want.d.size() != n || p >= n) return std::nullopt;
   switch (t.pattern) {
     case Pattern::kLeading: {  // the first place that is not 0 left empty
       const auto lead = std::find_if(want.d.begin(), want.d.end(), [](auto v) { return v != 0; });

@@ -3,6 +3,7 @@
 #include "deviation/explain_internal.hpp"
 
 #include <cstdio>
+#include <iterator>
 
 namespace apograph::deviation {
 
@@ -99,7 +100,8 @@ std::string DigitPlaceWords(const NumeralScript& script, int from, int to, int p
     }
   }
   if (count != 1) return name;
-  static const char* kDigit[] = {"units", "tens", "hundreds"};
+  static const char* kDigit[] = {"units", "tens", "hundreds", "thousands", "ten thousands"};
+  if (differing >= static_cast<int>(std::size(kDigit))) return name;
   return std::string(kDigit[differing]) + " of " + name;
 }
 
