@@ -322,6 +322,7 @@ Identification Identify(const Transcription& table, int column, const IdentifyOp
     out.verdict = "no model gives a value on most rows of this column";
     return out;
   }
+  internal::PreferNonNegativeRates(all, table, facts.obs);
   internal::SetAsideImplausible(all, out.notes);
   internal::FoldEquivalents(all, table, options.catalog);
   if (static_cast<int>(all.size()) > options.top) all.resize(static_cast<std::size_t>(options.top));

@@ -40,6 +40,13 @@ std::vector<std::pair<model::SignForm, bool>> Forms(const model::Model& m, const
 /// A candidate with its score (a grid counts as one more parameter).
 Candidate MakeCandidate(const model::Model& m, FitResult fit, bool grid);
 
+/// Candidates with a rate fitted negative (below a range that starts at 0)
+/// whose mirror, every angle negated and the sign form kept or turned,
+/// computes the same entries: shown with the mirror, rates non-negative
+/// (mirrored_rate.cpp). `obs` are the entries the candidates were fitted on.
+void PreferNonNegativeRates(std::vector<Candidate>& all, const Transcription& table,
+                            const std::vector<Observation>& obs);
+
 /// Why a candidate's estimate is no historical value (a free parameter
 /// more than its range's width outside ParamSpec low..high); empty when
 /// plausible.
