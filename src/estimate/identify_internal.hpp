@@ -1,4 +1,7 @@
 #pragma once
+
+#include <algorithm>
+#include <cmath>
 /// Internal to the estimate stage: what identify.cpp, naming.cpp,
 /// round_values.cpp and round_pairs.cpp share.
 
@@ -98,6 +101,10 @@ std::vector<SimplePair> CombinationPairs(const Candidate& best, double many, int
 /// departures touch a few percent of the entries (realism.md), and a fitted
 /// value can only absorb some of them.
 inline constexpr double kExactAllowance = 0.03;
+/// kExactAllowance of `entries`, at least one.
+inline int ExactAllowance(int entries) {
+  return std::max(1, static_cast<int>(std::ceil(kExactAllowance * static_cast<double>(entries))));
+}
 
 /// A fit with adopted values keeps the fit's entries: no more entries
 /// beyond one unit, and at most `allowance` fewer reproduced exactly; or,

@@ -55,8 +55,7 @@ std::optional<Pair> WithWritten(const Candidate& best, const Transcription& tabl
   const std::string& b = best.fit.params[free[1]].name;
   const std::optional<Trial> written = AsWritten(table, obs, b);
   if (!written) return std::nullopt;
-  const int allowance =
-      std::max(1, static_cast<int>(std::ceil(kExactAllowance * static_cast<double>(best.fit.n))));
+  const int allowance = ExactAllowance(best.fit.n);
   const std::map<std::string, double> fixed = {{b, written->value}};
   // Searched afresh over the first's range, not from the free estimate: on
   // the ridge that lies far from where the written value puts it.
@@ -120,8 +119,7 @@ std::optional<Pair> AdoptJointly(const Candidate& best, const Transcription& tab
   std::vector<Trial> firsts =
       Trials(best, a.name, a.value, a.stderr_, &specs[free[0]], places, catalog, nullptr);
   AddRidge(firsts, a.value, a.stderr_);
-  const int allowance =
-      std::max(1, static_cast<int>(std::ceil(kExactAllowance * static_cast<double>(best.fit.n))));
+  const int allowance = ExactAllowance(best.fit.n);
   std::optional<Pair> chosen;
   for (const Trial& ta : firsts) {
     std::map<std::string, double> fixed = {{a.name, ta.value}};
@@ -152,8 +150,7 @@ std::optional<Pair> AdoptJointly(const Candidate& best, const Transcription& tab
 std::optional<Pair> AdoptCombination(const Candidate& best, const Transcription& table,
                                      const std::vector<Observation>& obs,
                                      const std::vector<CatalogEntry>* catalog) {
-  const int allowance =
-      std::max(1, static_cast<int>(std::ceil(kExactAllowance * static_cast<double>(best.fit.n))));
+  const int allowance = ExactAllowance(best.fit.n);
   std::optional<Pair> chosen;
   for (const SimplePair& p : CombinationPairs(best, kRidgeSigmas, kRidgeValues, catalog)) {
     const std::string& a = best.fit.params[p.first_index].name;

@@ -167,8 +167,7 @@ std::optional<std::pair<Trial, FitResult>> FirstAcceptable(
     std::map<std::string, double> fixed, std::optional<double> displacement,
     const std::string& param) {
   const FitResult& fit = best.fit;
-  const int allowance =
-      std::max(1, static_cast<int>(std::ceil(kExactAllowance * static_cast<double>(fit.n))));
+  const int allowance = ExactAllowance(fit.n);
   std::optional<std::pair<Trial, FitResult>> chosen;
   for (const auto& t : trials) {
     if (chosen && t.group != chosen->first.group) break;

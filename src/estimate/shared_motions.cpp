@@ -116,8 +116,7 @@ std::optional<Adoption> Holding(const ColumnBest& c, const std::map<std::string,
   const Candidate& best = *c.best;
   const std::vector<Observation> obs = CollectObservations(*c.table, {c.column});
   if (obs.empty() || best.fit.n == 0) return std::nullopt;
-  const int allowance = std::max(
-      1, static_cast<int>(std::ceil(internal::kExactAllowance * static_cast<double>(best.fit.n))));
+  const int allowance = internal::ExactAllowance(best.fit.n);
   FitResult fit = internal::FitHolding(best, *c.table, obs, best.fit, held, std::nullopt);
   if (!internal::Keeps(fit, best.fit, allowance)) return std::nullopt;
   // The column's free fit with the held values marked fixed: its other

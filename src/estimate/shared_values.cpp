@@ -107,8 +107,7 @@ std::optional<Adoption> Holding(const ColumnBest& c, const std::vector<ColumnBes
   const Candidate& best = *c.best;
   const std::vector<Observation> obs = CollectObservations(*c.table, {c.column});
   if (obs.empty() || best.fit.n == 0) return std::nullopt;
-  const int allowance = std::max(
-      1, static_cast<int>(std::ceil(internal::kExactAllowance * static_cast<double>(best.fit.n))));
+  const int allowance = internal::ExactAllowance(best.fit.n);
   std::optional<double> displacement;
   for (const auto& v : best.adoption->values) {
     if (v.param == "displacement") displacement = v.value;
