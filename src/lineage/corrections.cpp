@@ -1,6 +1,7 @@
 #include "lineage/corrections.hpp"
 
 #include <algorithm>
+#include <cstdint>
 #include <optional>
 #include <sstream>
 
@@ -42,7 +43,68 @@ bool Encloses(const Character& l, const std::vector<int>& l_others, const Charac
   return inside && larger && (!own_group || with > without);
 }
 
-Correction Examine(const CharacterMatrix& m, int w, bool own_group = false) {
+// Witnesses as bits, to test two characters for compatibility quickly.
+using Bits = std::vector<std::uint64_t>;
+
+void Set(Bits& b, std::size_t t) { b[t / 64] |= std::uint64_t{1} << (t % 64); }
+void Clear(Bits& b, std::size_t t) { b[t / 64] &= ~(std::uint64_t{1} << (t % 64)); }
+bool Meet(const Bits& a, const Bits& b) {
+  for (std::size_t i = 0; i < a.size(); ++i) {
+    if ((a[i] & b[i]) != 0) return true;
+  }
+  return false;
+}
+
+// A placing character as the witnesses that carry it and those that read
+// its base.
+struct Split {
+  const Character* character;
+  Bits ones, zeros;
+};
+
+Split MakeSplit(const Character& ch, std::size_t taxa) {
+  Split s{&ch, Bits((taxa + 63) / 64, 0), Bits((taxa + 63) / 64, 0)};
+  for (std::size_t t = 0; t < ch.states.size(); ++t) {
+    if (ch.states[t] == 1) Set(s.ones, t);
+    if (ch.states[t] == 0) Set(s.zeros, t);
+  }
+  return s;
+}
+
+std::vector<Split> Splits(const CharacterMatrix& m) {
+  std::vector<Split> out;
+  for (const auto& ch : m.characters) {
+    if (Placing(ch)) out.push_back(MakeSplit(ch, m.taxa.size()));
+  }
+  return out;
+}
+
+// Two errors directed by the model (the archetype reads neither) cannot
+// both have arisen once on one tree when each has a carrier the other
+// lacks and they share one (the three-gamete test).
+bool Conflict(const Split& a, const Split& b) {
+  return Meet(a.ones, b.ones) && Meet(a.ones, b.zeros) && Meet(a.zeros, b.ones);
+}
+
+// The weight of the placing errors that conflict with error `k` once
+// witness w is counted among its carriers: a correction explains k only if
+// k and w together make a group of the tree (k arose above w, which read it
+// right again); when they do not, k's carriers made the same slip
+// independently, and w's right reading is the archetype's.
+double ConflictsWith(const Character& k, int w, const std::vector<Split>& splits,
+                     std::size_t taxa) {
+  Split joined = MakeSplit(k, taxa);
+  Set(joined.ones, static_cast<std::size_t>(w));
+  Clear(joined.zeros, static_cast<std::size_t>(w));
+  double weight = 0;
+  for (const auto& s : splits) {
+    if (s.character != &k && Conflict(joined, s)) weight += s.character->weight;
+  }
+  return weight;
+}
+
+Correction Examine(const CharacterMatrix& m, int w, const std::vector<Split>& splits,
+                   bool own_group = false) {
   Correction c;
   c.witness = m.taxa[w];
   std::vector<const Character*> placing;  // W's shared errors
@@ -69,6 +131,7 @@ Correction Examine(const CharacterMatrix& m, int w, bool own_group = false) {
       after = after || placing[l]->position >= ch.position;
     }
     if (inside < kMinPlacingWeight || count < 2 || !before || !after) continue;
+    if (ConflictsWith(ch, w, splits, m.taxa.size()) > kMaxConflictShare * inside) continue;
     ++c.corrected, c.weight += ch.weight;
     for (int t : carriers) relative[t] = true;
   }
@@ -84,6 +147,11 @@ bool Corrects(const Correction& c) {
 
 bool Recomputes(const Correction& c) {
   return c.recomputed >= kMinRecomputed && 4 * c.recomputed >= 3 * c.departures;
+}
+
+std::string SetAside() {
+  return ". Later correction is not descent: its right readings are set aside and it is placed by "
+         "its errors";
 }
 
 std::string Text(const Correction& c) {
@@ -104,12 +172,46 @@ std::string Text(const Correction& c) {
       << "agreement with the model is taken as theirs";
     if (c.corrected) o << " (it reads right " << c.corrected << " errors of its group)";
   }
-  o << ". Later correction is not descent: its right readings are set aside and it is placed by "
-       "its errors";
+  o << SetAside();
   return o.str();
 }
 
 }  // namespace
+
+bool ShowsCorrection(const Correction& c) { return Corrects(c) || Recomputes(c); }
+
+void ReviseByExemplars(std::vector<Correction>& corrections,
+                       const std::vector<CopyCandidate>& copies) {
+  std::vector<std::string> set_aside;
+  for (const auto& c : corrections) set_aside.push_back(c.witness);
+  std::vector<Correction> kept;
+  for (auto& c : corrections) {
+    const auto copy = std::find_if(copies.begin(), copies.end(), [&](const CopyCandidate& x) {
+      return !x.twins && x.copy == c.witness;
+    });
+    const bool own = ShowsCorrection(c);
+    if (copy == copies.end() || (own && copy->corrected >= kMinCorrections)) {
+      kept.push_back(std::move(c));
+      continue;
+    }
+    // It keeps its exemplar's errors but for fewer than kMinCorrections
+    // (the slips of a transcription or of text recognition, which no copy
+    // inherits, make a few).
+    const bool faithful = copy->corrected < kMinCorrections;
+    const bool from_corrector =
+        std::find(set_aside.begin(), set_aside.end(), copy->exemplar) != set_aside.end();
+    if (faithful && (!own || from_corrector)) continue;  // its right readings are its exemplar's
+    if (!own) {  // a modern edition that reads right its exemplar's errors: the evidence, said
+      c.corrected = copy->corrected;
+      c.relatives = {copy->exemplar};
+      c.text = c.witness + " is a modern edition and reads the model's value at " +
+               std::to_string(copy->corrected) + " of the errors of " + copy->exemplar +
+               ", its exemplar: it corrects against the model" + SetAside();
+    }
+    kept.push_back(std::move(c));
+  }
+  corrections = std::move(kept);
+}
 
 std::vector<Correction> FindCorrections(const CharacterMatrix& m) {
   std::vector<Correction> out;
@@ -137,15 +239,16 @@ std::vector<Correction> FindCorrections(const CharacterMatrix& m) {
   }
   current = MaskCorrections(m, out);
   for (;;) {
+    const std::vector<Split> splits = Splits(current);
     std::optional<Correction> best;
     bool best_own = false;
     for (int w = 0; w < static_cast<int>(m.taxa.size()); ++w) {
       const bool done = std::any_of(out.begin(), out.end(),
                                     [&](const Correction& c) { return c.witness == m.taxa[w]; });
       if (done) continue;
-      Correction c = Examine(current, w);
+      Correction c = Examine(current, w, splits);
       if (!Corrects(c)) continue;
-      const bool own = Examine(current, w, true).weight >= kOwnGroupShare * c.weight;
+      const bool own = Examine(current, w, splits, true).weight >= kOwnGroupShare * c.weight;
       if (!best || (own && !best_own) || (own == best_own && c.weight > best->weight))
         best = std::move(c), best_own = own;
     }
@@ -156,7 +259,7 @@ std::vector<Correction> FindCorrections(const CharacterMatrix& m) {
   for (auto& c : out) {
     const int w = m.TaxonIndex(c.witness);
     if (!Corrects(c)) {  // a recomputing witness: its corrections counted for the report
-      const Correction e = Examine(current, w);
+      const Correction e = Examine(current, w, Splits(current));
       c.corrected = e.corrected, c.weight = e.weight, c.kept = e.kept, c.relatives = e.relatives;
     }
     if (static_cast<std::size_t>(w) < m.recomputed.size()) {

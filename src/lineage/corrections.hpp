@@ -37,6 +37,7 @@
 #include <vector>
 
 #include "lineage/characters.hpp"
+#include "lineage/relations.hpp"
 
 namespace apograph::lineage {
 
@@ -74,9 +75,42 @@ inline constexpr double kOwnGroupShare = 0.5;
 /// independently).
 inline constexpr double kMinPlacingWeight = 2;
 
+/// Weight of the placing errors that may conflict with an error read right,
+/// once the witness is counted among its carriers, as a share of the weight
+/// of the witness's errors that the correction explains (Examine). A
+/// correction makes the error's carriers and the witness one group of the
+/// tree; where they make none, the carriers made the same slip
+/// independently and the witness never had it. Judgement (the conflicts
+/// fewer than the evidence), checked on the lineage benchmark (cached
+/// characters): seeds 1-53 correctors precision 0.540 -> 0.582, recall
+/// 0.415 -> 0.390, groups 152 -> 151 of 170; held-out seeds 101-130
+/// precision 0.625 -> 0.714, recall unchanged, groups 82 -> 83 of 99; a
+/// tradition of 100 witnesses with 30-60 slips a copy and no corrector
+/// (lineage_bench): 81 named -> 2. Shares of 0, 1/4, 1/2 and 2 were
+/// measured too (DEVELOPERS.md, "Lineage accuracy", twelfth round).
+inline constexpr double kMaxConflictShare = 1.0;
+
 /// Witnesses that correct against the model (only characters whose base
 /// reading the model calls right count).
 std::vector<Correction> FindCorrections(const CharacterMatrix& matrix);
+
+/// Whether a correction rests on the witness's own readings (errors of its
+/// group read right, or recomputed values), not only on its being a modern
+/// edition.
+bool ShowsCorrection(const Correction& correction);
+
+/// Once the copies are known, a witness set aside that is a copy of a
+/// surviving witness is judged by that exemplar. One that keeps its
+/// exemplar's errors (it reads fewer than kMinCorrections of them right:
+/// slips of a transcription or of text recognition in the exemplar, which
+/// no copy inherits, make a few) is no longer named a corrector when it was
+/// set aside only as a modern edition (a faithful edition) or when its
+/// exemplar is set aside too (a copy or reprint of a corrected or
+/// recomputed text: its right readings are its exemplar's). A modern
+/// edition set aside only for its kind that reads more of them right has
+/// that as its evidence, now said.
+void ReviseByExemplars(std::vector<Correction>& corrections,
+                       const std::vector<CopyCandidate>& copies);
 
 /// What is left of a corrector's right reading as evidence: enough to
 /// choose, among the places its errors allow equally, the one its right

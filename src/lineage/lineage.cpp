@@ -249,6 +249,7 @@ LineageReport AnalyseLineage(const CharacterMatrix& m, const LineageOptions& o) 
     for (const auto& text : tied) Undecide(r, "copy", text);
     for (const auto& text : CopiesRefusedByDates(final_oriented)) Undecide(r, "copy", text);
   }
+  ReviseByExemplars(r.corrections, r.copies);
   for (auto& res : r.results) {
     PlaceExemplars(res.stemma, r.copies);
     DescribeGroups(for_tree, o, res);

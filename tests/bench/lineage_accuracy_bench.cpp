@@ -266,7 +266,11 @@ void ScoreMixtures(const synth::Tradition& t, const lineage::LineageReport& r, T
     s.correctors += corrector, s.correctors_flagged += said,
         s.correctors_right += corrector && said;
     if (verbose && corrector != said)
-      std::printf("  corrector %s: %s\n", corrector ? "missed" : "false", n.name.c_str());
+      std::printf("  corrector %s: %s (%s, %s %.2f, %zu corrections, exemplar %s %s)\n",
+                  corrector ? "missed" : "false", n.name.c_str(), synth::WitnessKindName(n.kind),
+                  synth::CorrectorModeName(n.corrector), n.correction_share, n.corrections.size(),
+                  t.nodes[static_cast<std::size_t>(n.parent)].name.c_str(),
+                  synth::WitnessKindName(t.nodes[static_cast<std::size_t>(n.parent)].kind));
   }
   if (verbose) {
     for (const auto& c : r.contamination) std::printf("  said: %s\n", c.text.c_str());
