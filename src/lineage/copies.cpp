@@ -9,6 +9,8 @@
 #include <functional>
 #include <sstream>
 
+#include "lineage/corrections.hpp"
+
 namespace apograph::lineage {
 
 namespace {
@@ -101,9 +103,12 @@ std::string CopyText(const CharacterMatrix& m, const CopyCandidate& c) {
       << c.exemplar_errors << " of " << c.exemplar << "'s errors and " << c.own_errors
       << " of its own";
   }
-  if (c.corrected) {
+  if (c.corrected >= kMinCorrections) {
     o << "; " << c.copy << " reads the recomputed value at " << c.corrected << " of them (it "
       << "corrects against the model)";
+  } else if (c.corrected) {  // too few to call it a corrector (ReviseByExemplars)
+    o << "; " << c.copy << " reads the recomputed value at " << c.corrected << " of them (a "
+      << "correction, or a slip of " << c.exemplar << "'s transcription that no copy inherits)";
   }
   if (c.filled) {
     o << "; " << c.copy << " fills in " << c.filled << (c.filled == 1 ? " entry " : " entries ")

@@ -251,7 +251,8 @@ void ScoreMixtures(const synth::Tradition& t, const lineage::LineageReport& r, T
     s.contaminated += mixed, s.flagged += is_flagged, s.flagged_right += mixed && is_flagged;
     if (mixed && MarkedMixture(t, w)) ++s.marked_mixed, s.marked_mixed_found += is_flagged;
     if (verbose && mixed != is_flagged) {
-      std::printf("  contamination %s: %s", mixed ? "missed" : "false", n.name.c_str());
+      std::printf("  contamination %s%s: %s", mixed ? "missed" : "false",
+                  mixed && MarkedMixture(t, w) ? " (marked)" : "", n.name.c_str());
       if (n.contamination) {
         const auto& x = *n.contamination;
         std::printf(" (from %s, then %s %s table %d row %d)",
@@ -274,6 +275,8 @@ void ScoreMixtures(const synth::Tradition& t, const lineage::LineageReport& r, T
   }
   if (verbose) {
     for (const auto& c : r.contamination) std::printf("  said: %s\n", c.text.c_str());
+    for (const auto& u : r.undecided)
+      if (u.text.rfind("contamination?", 0) == 0) std::printf("  suspected: %s\n", u.text.c_str());
     for (const auto& c : r.corrections) std::printf("  corrector: %s\n", c.text.c_str());
     if (!r.results.empty())
       std::printf("  found: %s\n", lineage::ToNewick(r.results.front().stemma).c_str());
