@@ -510,3 +510,34 @@ TEST_CASE("an ancestor's slip outside his lists is tried only from the expected 
     s.Set(r, faithful);
   }
 }
+
+TEST_CASE("a line repeated as the exemplar had it is a repetition where the copy miscopied it") {
+  // Chords to seconds: at eight places a copy writes for one row the entry of
+  // the row below (or above) as the exemplar had it, while its own entry of
+  // that neighbouring row is left blank, illegible or miscopied (ten degrees
+  // more). The copyist repeated the line he saw, not the one on his page
+  // (seeds 1-40 of deviation_bench: such repetitions were "unexplained" or a
+  // confusion; DEVELOPERS.md, fourteenth round).
+  Synthetic s = MakeTable(testing::Chord, 1, 1, 180, 2);
+  const auto model = [&](std::size_t r) { return s.values.computed[r]->ToString(); };
+  const auto ten_more = [&](std::size_t r) {
+    return (*s.values.computed[r] + Sexagesimal::FromParts(false, 10, {})).ToString();
+  };
+  std::vector<std::size_t> rows;
+  for (int k = 0; k < 8; ++k) {
+    const std::size_t r = 12 + 20 * static_cast<std::size_t>(k);
+    const std::size_t n = k % 2 == 0 ? r + 1 : r - 1;  // the neighbour repeated
+    s.Set(r, model(n));
+    s.Set(n, k % 4 < 2 ? (k % 2 == 0 ? "_" : "?") : ten_more(n));
+    rows.push_back(r);
+  }
+  const auto findings = ExplainColumn(s.table, s.values, FindNumeralScript("hindu-arabic", kDir));
+  for (std::size_t r : rows) {
+    const Finding* f = At(findings, r);
+    REQUIRE(f != nullptr);
+    INFO(f->Note("A"));
+    CHECK(f->best().cls == SlipClass::kRepetition);
+    REQUIRE(f->cells.front().emendation.has_value());
+    CHECK(f->cells.front().emendation->ToString() == model(r));
+  }
+}
