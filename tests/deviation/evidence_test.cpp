@@ -541,3 +541,44 @@ TEST_CASE("a line repeated as the exemplar had it is a repetition where the copy
     CHECK(f->cells.front().emendation->ToString() == model(r));
   }
 }
+
+namespace {
+
+/// Minutes growing by one a row, by two every fifth row (10;0, 10;1, ...).
+double OneUnitSteps(double a) { return 10 + (a + std::floor(a / 5)) / 60; }
+
+}  // namespace
+
+TEST_CASE("a constant error that fits beyond a slide's rows is one constant error") {
+  // Where the column grows by one minute a row, a copy one minute short over
+  // six rows reads the entries one row behind in the middle four, not at the
+  // ends (where the column grows by two). The four other witnesses read the
+  // model. The constant error fits all six rows, the slide four: one story
+  // for six rows, with each row's reading (seeds 1-40 of deviation_bench:
+  // such runs were an eye-skip and two slips; DEVELOPERS.md, fourteenth round).
+  Synthetic s = MakeTable(OneUnitSteps, 0, 1, 180, 1);
+  s.values.tradition.resize(s.table.rows.size());
+  for (std::size_t r = 0; r < s.table.rows.size(); ++r) {
+    s.values.tradition[r] = {4, 4, 4, s.values.computed[r], 4};
+  }
+  const std::vector<std::size_t> starts = {40, 90, 140};
+  for (std::size_t first : starts) {
+    for (std::size_t r = first; r < first + 6; ++r) {
+      s.Set(r, Moved(s, r, -1, 1).ToString());
+      s.values.tradition[r].same = 0;
+    }
+  }
+  const auto findings = ExplainColumn(s.table, s.values, FindNumeralScript("hindu-arabic", kDir));
+  for (std::size_t first : starts) {
+    const Finding* f = At(findings, first + 2);
+    REQUIRE(f != nullptr);
+    INFO(f->Note("A"));
+    CHECK(f->best().cls == SlipClass::kSystematic);
+    REQUIRE(f->cells.size() == 6);
+    CHECK(f->cells.front().row == first);
+    for (const auto& c : f->cells) {
+      REQUIRE(c.emendation.has_value());
+      CHECK(c.emendation->ToString() == s.values.computed[c.row]->ToString());
+    }
+  }
+}
