@@ -207,6 +207,24 @@ std::vector<Candidate> RepetitionCandidates(const CellContext& c) {
       out.push_back(std::move(cand));
       continue;
     }
+    // The neighbouring line as the exemplar had it, where this copy wrote
+    // something else there (miscopied, left blank, illegible): the copyist
+    // repeated what he saw, not what he or a later hand put on the page.
+    const auto& exemplar = off < 0 ? c.exemplar_above : c.exemplar_below;
+    if (exemplar && *exemplar == c.tabulated && !(*exemplar == c.Expected()) &&
+        !(written && AtPlaces(*written, c.places) == c.tabulated)) {
+      Candidate cand;
+      cand.explanation.cls = SlipClass::kRepetition;
+      cand.explanation.emendation = c.Expected();
+      cand.explanation.evidence = "repeats " + where + " as the exemplar had it (" +
+                                  exemplar->ToString() +
+                                  (written ? "; this copy reads " + written->ToString() + " there"
+                                           : "; unread in this copy") +
+                                  "); " + c.ModelClause(c.Expected());
+      cand.likelihood = c.SlipLikelihood(kShareRepetition, 0.5, *c.Fit(c.Expected()));
+      out.push_back(std::move(cand));
+      continue;
+    }
     if (!n) continue;
     const Digits nd = ToDigits(*n, c.places);
     for (std::size_t p = 0; p < copy.d.size() && p < nd.d.size() && p < model.d.size(); ++p) {

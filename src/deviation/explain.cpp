@@ -43,6 +43,26 @@ std::optional<SlipClass> SlipClassFromString(const std::string& text) {
 
 bool IsCopyingSlip(SlipClass cls) { return cls != SlipClass::kComputational; }
 
+std::vector<SlipClass> Finding::Undecided() const {
+  // Judgement: the class shares that rank two stories of one reading
+  // (scoring.hpp) are not known to better than a factor of two, and the
+  // reading fits both alike, so within that factor the evidence does not
+  // decide between them.
+  constexpr double kUndecided = 2;
+  std::vector<SlipClass> out;
+  const Explanation& b = best();
+  if (!IsCopyingSlip(b.cls) || !b.emendation) return out;
+  for (std::size_t i = 1; i < explanations.size(); ++i) {
+    const Explanation& e = explanations[i];
+    const bool same = e.emendation && e.emendation->Identical(*b.emendation);
+    if (!same || !IsCopyingSlip(e.cls) || e.cls == b.cls || e.score * kUndecided < b.score ||
+        std::find(out.begin(), out.end(), e.cls) != out.end())
+      continue;
+    out.push_back(e.cls);
+  }
+  return out;
+}
+
 namespace internal {
 
 Digits ToDigits(const Sexagesimal& value, int places) {
@@ -176,6 +196,22 @@ bool AgainstTradition(const Transcription& table, const ColumnValues& values,
          table.witness.Kind() != WitnessKind::kModernEdition;
 }
 
+/// "a transposition", "a place left out or moved", ...
+std::string AlsoWords(SlipClass cls) {
+  switch (cls) {
+    case SlipClass::kConfusion:
+      return "a confusion of symbols";
+    case SlipClass::kTransposition:
+      return "a transposition";
+    case SlipClass::kPlace:
+      return "a place left out, added or moved";
+    case SlipClass::kRepetition:
+      return "a repetition";
+    default:
+      return std::string("a slip of class ") + ToString(cls);
+  }
+}
+
 }  // namespace
 
 namespace internal {
@@ -196,6 +232,12 @@ Finding SingleFinding(const CellContext& c, const ColumnValues& values) {
   if (!slip_found) all.push_back(unexplained);
   Finding f = NewFinding(*c.table, values, c.places);
   f.explanations = Ranked(std::move(all), total);
+  // Name the other class where the evidence cannot tell it from the best.
+  for (SlipClass other : f.Undecided()) {
+    f.explanations.front().evidence += "; " + AlsoWords(other) +
+                                       " gives the same reading as well (the evidence does not "
+                                       "tell the two apart)";
+  }
   f.cells.push_back(MakeCell(*c.table, values, c.row, c.places));
   if (IsCopyingSlip(f.best().cls)) f.cells.back().emendation = f.best().emendation;
   return f;

@@ -124,6 +124,11 @@ struct Finding {
   std::vector<Explanation> explanations;  ///< best first; never empty
 
   const Explanation& best() const { return explanations.front(); }
+  /// The other classes the evidence cannot tell from the best's: copying
+  /// slips proposing the same reading with a score within a factor of two of
+  /// the best's (0;44 read 44;0: the places swapped, or the degrees' 0 left
+  /// out and the minutes moved up). Empty when the best stands alone.
+  std::vector<SlipClass> Undecided() const;
   /// One line reading like a critical note, e.g.
   /// "12 equation: 0;14 A] read 0;44 - tens of minutes: ... [confusion 0.54]".
   std::string Note(const std::string& siglum) const;

@@ -63,6 +63,10 @@ struct CellContext {
   bool shared_neighbour = false;  // a neighbour departs the same way, within the author's departure
   bool shared = false;            // every other witness reads this copy's value
   const std::vector<bool>* deviant = nullptr;  // rows beyond the author's departure
+  /// The readings the exemplar most likely had at the rows above and below
+  /// (ColumnContext::Original: the tradition's, else the model's): what a
+  /// copyist repeating a neighbouring line saw, whatever this copy wrote there.
+  std::optional<Sexagesimal> exemplar_above, exemplar_below;
   /// Other scripts of the tradition, whose listed confusions an ancestor may
   /// have made (may be null).
   const std::vector<const NumeralScript*>* other_scripts = nullptr;

@@ -186,6 +186,8 @@ CellContext MakeContext(const Transcription& table, const ColumnValues& values,
   c.slip_rate = column.slip_rate;
   c.deviant = &column.deviant;
   c.shared = column.shared[row];
+  if (row > 0) c.exemplar_above = column.Original(row - 1, values, options, places);
+  c.exemplar_below = column.Original(row + 1, values, options, places);
   const Digits digits = ToDigits(c.tabulated, places);
   c.symbols = 0;
   for (std::size_t p = 0; p < digits.d.size(); ++p) {

@@ -31,15 +31,17 @@ void PrintRow(const std::string& name, const testing::GradeCounts& c, bool preci
     std::printf(" %8.1f%%", Share(c.caught, c.flagged));
   else
     std::printf(" %9s", "-");
-  std::printf(" %8.1f%% %8.1f%%\n", Share(c.right_class, c.caught), Share(c.restored, c.caught));
+  std::printf(" %8.1f%% %8.1f%% %8.1f%%\n", Share(c.right_class, c.caught),
+              Share(c.restored, c.caught), Share(c.right_either, c.caught));
   if (std::getenv("BENCH_RAW"))  // counts, to sum runs over several seed ranges
-    std::printf("raw|%s|%ld|%ld|%ld|%ld|%ld\n", name.c_str(), c.erroneous, c.caught, c.flagged,
-                c.right_class, c.restored);
+    std::printf("raw|%s|%ld|%ld|%ld|%ld|%ld|%ld\n", name.c_str(), c.erroneous, c.caught, c.flagged,
+                c.right_class, c.restored, c.right_either);
 }
 
 void Header(const char* what) {
-  std::printf("  %-28s %7s %9s %9s %9s %9s\n", what, "slips", "recall", "precision", "class",
-              "restored");
+  // "either": the class right as the best's or as one named undecided beside it.
+  std::printf("  %-28s %7s %9s %9s %9s %9s %9s\n", what, "slips", "recall", "precision", "class",
+              "restored", "either");
 }
 
 }  // namespace

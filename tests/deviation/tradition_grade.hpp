@@ -31,6 +31,9 @@ struct GradeCounts {
   long right_class = 0;  ///< of those, with the class the slip calls for
   long restored = 0;     ///< of those, with the author's reading as the emendation
   long flagged = 0;      ///< every flagged cell (precision = caught / flagged)
+  /// Of the caught, with the class the slip calls for as the best's or as one
+  /// the finding names undecided beside it (Finding::Undecided).
+  long right_either = 0;
 
   void Add(const GradeCounts& o) {
     erroneous += o.erroneous;
@@ -38,6 +41,7 @@ struct GradeCounts {
     right_class += o.right_class;
     restored += o.restored;
     flagged += o.flagged;
+    right_either += o.right_either;
   }
 };
 
@@ -165,6 +169,7 @@ inline const synth::Slip* SlipFor(const SlipIndex& index, const std::string& tab
 struct Flag {
   std::string cls;
   std::optional<Sexagesimal> emendation;
+  std::set<std::string> undecided;  ///< classes named undecided beside `cls`
 };
 
 inline std::string NoteOf(const pipeline::WitnessFindings& w, int column, std::size_t row) {
@@ -183,7 +188,9 @@ inline std::map<std::size_t, Flag> Flags(const pipeline::WitnessFindings& w, int
     if (f.column != column || !deviation::IsCopyingSlip(f.best().cls)) continue;
     for (const auto& c : f.cells) {
       if (c.value && c.emendation && c.emendation->Identical(At(*c.value, f.places))) continue;
-      out[c.row] = {deviation::ToString(f.best().cls), c.emendation};
+      std::set<std::string> undecided;
+      for (auto u : f.Undecided()) undecided.insert(deviation::ToString(u));
+      out[c.row] = {deviation::ToString(f.best().cls), c.emendation, undecided};
     }
   }
   return out;
@@ -287,7 +294,10 @@ inline void GradeColumn(const Witness& w, const pipeline::WitnessFindings& found
     one.flagged = flagged;
     one.caught = flagged;
     if (flagged) {
-      one.right_class = Expected(*slip, visible[slip->run]).count(flag->second.cls) > 0;
+      const auto expected = Expected(*slip, visible[slip->run]);
+      one.right_class = expected.count(flag->second.cls) > 0;
+      one.right_either = one.right_class;
+      for (const auto& u : flag->second.undecided) one.right_either |= expected.count(u) > 0;
       one.restored = flag->second.emendation && At(*flag->second.emendation, key.places) == want;
     }
     if (g.debug && (!one.caught || !one.right_class || !one.restored)) {
