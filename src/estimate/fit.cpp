@@ -367,8 +367,8 @@ bool WithEpicycle(const model::Model& model, const internal::FitProblem& problem
 /// apogee turns freely and the free fit's steps wander along the ridge of
 /// the two rates over a short arc into another basin (identify_accuracy_bench
 /// seed 94, a planet with e = 0 over 117 days: the free fit ended at e =
-/// 0;49 with its rates 4% off, 58 of 117 entries exact; from the circular
-/// start, 101, the author's rates within 0.3%). Empty for other models,
+/// 0;49 with its rates 4 and 6% off, 58 of 117 entries exact; from the circular
+/// start, 101, the author's rates within about 1%). Empty for other models,
 /// when e or the apogee is held, for a column of equations (a planet's
 /// seven parameters mimic an equation by date, and the circular fit made
 /// one rank first: tests/estimate/robust_identify_test.cpp), or when the
