@@ -26,6 +26,11 @@ std::vector<std::vector<double>> GridStarts(FitProblem& problem, const std::vect
 std::vector<double> MeanMotionStart(const model::Model& model, const FitProblem& problem,
                                     const std::vector<Observation>& obs, std::vector<double> x);
 
+/// The entries read as longitudes: none negative and some beyond the
+/// largest equation by date (a column that stays near 0 is an equation
+/// by date, which a planet's seven parameters mimic).
+bool Longitudes(const std::vector<Observation>& obs);
+
 /// A table of positions' starts (see fit_starts.cpp): the entries unwrapped,
 /// a straight line for the mean motion, and the periodic part read as
 /// harmonics (the solar equation at the mean motion's own rate; the

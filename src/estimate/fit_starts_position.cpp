@@ -312,6 +312,13 @@ std::vector<std::vector<double>> TiedStarts(const model::Model& model, const Fit
 
 }  // namespace
 
+bool Longitudes(const std::vector<Observation>& obs) {
+  return std::none_of(obs.begin(), obs.end(),
+                      [](const Observation& o) { return o.value.negative(); }) &&
+         std::any_of(obs.begin(), obs.end(),
+                     [](const Observation& o) { return o.value.ToDouble() > kLargestEquation; });
+}
+
 std::vector<std::vector<double>> PositionStarts(const model::Model& model,
                                                 const FitProblem& problem,
                                                 const std::vector<Observation>& obs,
@@ -378,12 +385,8 @@ std::vector<std::vector<double>> PositionStarts(const model::Model& model,
   // Longitudes are never negative, and a column that stays within
   // kLargestEquation of 0 is an equation by date (a planet's seven
   // parameters, its rates tied, mimic one): no tied starts there.
-  const bool longitudes = std::none_of(obs.begin(), obs.end(),
-                                       [](const Observation& o) { return o.value.negative(); }) &&
-                          std::any_of(obs.begin(), obs.end(), [](const Observation& o) {
-                            return o.value.ToDouble() > kLargestEquation;
-                          });
-  if (shape.trend && !magnitude && longitudes) out = TiedStarts(model, problem, t, u, shape, x);
+  if (shape.trend && !magnitude && Longitudes(obs))
+    out = TiedStarts(model, problem, t, u, shape, x);
   for (const auto& [r, g0] : AnomalyStarts(c[j], c[j + 1], magnitude)) {
     std::vector<double> y = x;
     SetNamed(model, problem, y, shape.trend ? "r" : "e", std::max(r, 1.0));

@@ -193,11 +193,30 @@ std::optional<Adoption> AdoptRoundValues(const Candidate& best, const Transcript
   FitResult current = best.fit;
   Adoption a;
   const auto& specs = best.model->params();
+  Candidate under = best;  // its rounding may turn for a whole radix (below)
   auto consider = [&](const std::string& name, double estimate, double se,
                       const model::ParamSpec* spec, bool whole_only) {
     auto trials = Trials(best, name, estimate, se, spec, places, catalog, mean_motion);
     if (whole_only) std::erase_if(trials, [](const Trial& t) { return t.group != kWholeGroup; });
-    auto found = FirstAcceptable(trials, best, table, obs, current, fixed, displacement, name);
+    auto found = FirstAcceptable(trials, under, table, obs, current, fixed, displacement, name);
+    // A radix half a unit below a whole value under rounding computes
+    // what the whole value computes under truncation (and the reverse):
+    // the entries cannot tell the two practices apart, the whole radix
+    // can (identify_accuracy_bench seeds 187 and 263: mean motions by
+    // months from 0, named rounded with a radix of 359;59,59,59,59).
+    if (!found && whole_only && fixed.empty() && spec && spec->role == model::ParamRole::kRadix) {
+      Candidate turned = under;
+      turned.fit.practice.rounding = under.fit.practice.rounding == Rounding::kTruncate
+                                         ? Rounding::kNearest
+                                         : Rounding::kTruncate;
+      found = FirstAcceptable(trials, turned, table, obs, current, fixed, displacement, name);
+      if (found) {
+        found->first.source += turned.fit.practice.rounding == Rounding::kTruncate
+                                   ? "; the entries truncated, as it computes them"
+                                   : "; the entries rounded, as it computes them";
+        under = std::move(turned);
+      }
+    }
     if (!found) return;
     if (name == "displacement")
       displacement = found->first.value;
