@@ -135,6 +135,7 @@ struct Totals {
   long claims = 0, claims_right = 0, copies = 0, copies_named = 0, against_dates = 0;
   long contaminated = 0, flagged = 0, flagged_right = 0, marked_mixed = 0, marked_mixed_found = 0;
   long correctors = 0, correctors_flagged = 0, correctors_right = 0;
+  long marked_correctors = 0, marked_found = 0;
   int clean_draws = 0, clean_false_alarms = 0;
 };
 
@@ -240,6 +241,32 @@ bool MarkedMixture(const synth::Tradition& t, int node) {
   return n >= 3;
 }
 
+// The corrections of node `c` that show: the reading it corrected survives
+// in another witness's transcription (the same cell), so that a criterion
+// can see the corrector read right what its relatives have wrong.
+int VisibleCorrections(const synth::Tradition& t, int c) {
+  int n = 0;
+  for (const auto& fix : t.nodes[static_cast<std::size_t>(c)].corrections) {
+    bool seen = false;
+    for (int w : t.Surviving()) {
+      if (w == c || seen) continue;
+      for (const auto& table : t.nodes[static_cast<std::size_t>(w)].transcribed) {
+        if (table.text.table_id != fix.table) continue;
+        const auto& cols = table.text.columns;
+        std::size_t col = 0;
+        while (col < cols.size() && cols[col].name != fix.column) ++col;
+        for (std::size_t r = 0; r < table.text.rows.size() && col < cols.size(); ++r) {
+          if (table.origin[r] != fix.origin_row) continue;
+          const auto& cells = table.text.rows[r].cells;
+          seen = seen || (col < cells.size() && cells[col].raw == fix.before);
+        }
+      }
+    }
+    n += seen ? 1 : 0;
+  }
+  return n;
+}
+
 void ScoreMixtures(const synth::Tradition& t, const lineage::LineageReport& r, Totals& s,
                    bool verbose) {
   std::set<std::string> flagged, corrected;
@@ -266,6 +293,8 @@ void ScoreMixtures(const synth::Tradition& t, const lineage::LineageReport& r, T
     const bool said = corrected.count(n.name) > 0;
     s.correctors += corrector, s.correctors_flagged += said,
         s.correctors_right += corrector && said;
+    // Marked: three corrections that show (the least the criteria ask).
+    if (corrector && VisibleCorrections(t, w) >= 3) ++s.marked_correctors, s.marked_found += said;
     if (verbose && corrector != said)
       std::printf("  corrector %s: %s (%s, %s %.2f, %zu corrections, exemplar %s %s)\n",
                   corrector ? "missed" : "false", n.name.c_str(), synth::WitnessKindName(n.kind),
@@ -332,6 +361,8 @@ void Print(const Totals& a, unsigned first) {
       "  correctors                   precision %.3f (%ld of %ld), recall %.3f (%ld of %ld)\n",
       Share(a.correctors_right, a.correctors_flagged), a.correctors_right, a.correctors_flagged,
       Share(a.correctors_right, a.correctors), a.correctors_right, a.correctors);
+  std::printf("  marked correctors found       %.3f (%ld of %ld: three corrections or more show)\n",
+              Share(a.marked_found, a.marked_correctors), a.marked_found, a.marked_correctors);
 }
 
 }  // namespace
