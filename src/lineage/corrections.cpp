@@ -204,6 +204,7 @@ void ReviseByExemplars(std::vector<Correction>& corrections,
     if (!own) {  // a modern edition that reads right its exemplar's errors: the evidence, said
       c.corrected = copy->corrected;
       c.relatives = {copy->exemplar};
+      c.basis = "exemplar";
       c.text = c.witness + " is a modern edition and reads the model's value at " +
                std::to_string(copy->corrected) + " of the errors of " + copy->exemplar +
                ", its exemplar: it corrects against the model" + SetAside();
@@ -266,6 +267,7 @@ std::vector<Correction> FindCorrections(const CharacterMatrix& m) {
       c.recomputed = m.recomputed[w];
       c.departures = m.departure_cells[w];
     }
+    c.basis = Corrects(c) ? "corrections" : (Recomputes(c) ? "recomputed" : "kind");
     c.text = Text(c);
   }
   return out;

@@ -48,7 +48,12 @@ struct Correction {
   int kept = 0;        ///< errors it shares with its group
   int recomputed = 0;  ///< entries where it reads the recomputed value, most another right one
   int departures = 0;  ///< entries of that kind where it can be read
-  bool modern_edition = false;         ///< set aside as a modern edition
+  bool modern_edition = false;  ///< set aside as a modern edition
+  /// What it rests on: "corrections" (errors of its group read right),
+  /// "recomputed" (recomputed values where the others keep the author's),
+  /// "exemplar" (a modern edition reading right its surviving exemplar's
+  /// errors) or "kind" (a modern edition, set aside for its kind alone).
+  std::string basis;
   std::vector<std::string> relatives;  ///< the witnesses that share those errors
   std::string text;  ///< "D corrects 14 entries that its group (A B C) has wrong ..."
 };

@@ -333,6 +333,7 @@ nlohmann::json ToJson(const LineageReport& r) {
                                   {"corrected", c.corrected},
                                   {"kept", c.kept},
                                   {"relatives", c.relatives},
+                                  {"basis", c.basis},
                                   {"text", c.text}});
   }
   return out;

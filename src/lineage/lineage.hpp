@@ -110,7 +110,8 @@ LineageReport AnalyseLineage(const CharacterMatrix& matrix, const LineageOptions
 /// exemplar, exemplar_errors, own_errors, unreadable, filled, corrected,
 /// twins, dated, text}], contamination: [{witness, primary, secondary, text,
 /// segments: [{relative, first_row, last_row, shared, against}],
-/// inherited_by}], corrections: [{witness, corrected, kept, relatives, text}]}.
+/// inherited_by}], corrections: [{witness, corrected, kept, relatives, basis,
+/// text}]}.
 nlohmann::json ToJson(const LineageReport& report);
 
 }  // namespace apograph::lineage

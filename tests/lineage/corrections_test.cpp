@@ -122,6 +122,7 @@ TEST_CASE("a witness set aside is judged by its exemplar once the copies are kno
   for (const auto& c : cs) kept.push_back(c.witness);
   CHECK(kept == std::vector<std::string>{"F", "G", "R", "C"});
   CHECK(cs[0].corrected == 6);
+  CHECK(cs[0].basis == "exemplar");
   CHECK(cs[0].relatives == std::vector<std::string>{"M"});
   CHECK(cs[0].text.find("reads the model's value at 6 of the errors of M, its exemplar") !=
         std::string::npos);
