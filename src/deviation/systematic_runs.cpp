@@ -88,6 +88,8 @@ struct Run {
   std::size_t first = 0, last = 0;
   std::vector<std::size_t> changed;  // rows the slip changed
   int deviant = 0;                   // of them, beyond the author's departure
+  std::vector<std::size_t> gaps;     // rows within the run it does not explain
+  bool Gap(std::size_t r) const { return std::find(gaps.begin(), gaps.end(), r) != gaps.end(); }
 };
 
 struct Scan {
@@ -169,13 +171,54 @@ struct Scan {
       out.push_back({Pattern::kOffset, 0, units});
     return out;
   }
-  Run Grow(const Transform& t, std::size_t seed, const std::vector<bool>& claimed) const {
-    Run run{t, seed, seed, {}, 0};
-    while (run.first > 0 && !claimed[run.first - 1] && Fits(t, run.first - 1)) --run.first;
-    while (run.last + 1 < table.rows.size() && !claimed[run.last + 1] && Fits(t, run.last + 1))
-      ++run.last;
+  /// Row r is a slip the transform explains: it fits, changes the copy and
+  /// is beyond the author's departure or off the other witnesses' reading.
+  bool Deviant(const Transform& t, std::size_t r) const {
+    const auto fit = Fits(t, r);
+    return fit && *fit != *Copy(r) &&
+           (column.deviant[r] || column.contradicted[r] || OffTradition(r));
+  }
+  /// Grows [first, last] over the rows the transform fits, then over one row
+  /// it does not fit (left blank, illegible or miscopied besides) when the
+  /// row beyond it is a slip of the run. Judgement: a copyist carrying a
+  /// constant error goes on carrying it past an entry he spoiled otherwise;
+  /// two separate slips of the same kind two rows apart are far rarer. Only
+  /// past two changed rows, so two isolated slips never make a run.
+  void Extend(Run& run, const std::vector<bool>& claimed) const {
+    const auto& t = run.transform;
+    const std::size_t n = table.rows.size();
+    const auto free_fit = [&](std::size_t r) { return !claimed[r] && Fits(t, r).has_value(); };
+    for (bool jumped = true; jumped;) {
+      while (run.first > 0 && free_fit(run.first - 1)) --run.first;
+      while (run.last + 1 < n && free_fit(run.last + 1)) ++run.last;
+      jumped = false;
+      if (ChangedIn(run) < kMinRows) break;
+      if (run.first >= 2 && !claimed[run.first - 2] && Deviant(t, run.first - 2)) {
+        run.first -= 2;
+        run.gaps.push_back(run.first + 1);
+        jumped = true;
+      }
+      if (run.last + 2 < n && !claimed[run.last + 2] && Deviant(t, run.last + 2)) {
+        run.last += 2;
+        run.gaps.push_back(run.last - 1);
+        jumped = true;
+      }
+    }
+  }
+  int ChangedIn(const Run& run) const {
+    int k = 0;
     for (std::size_t r = run.first; r <= run.last; ++r) {
-      if (*Fits(t, r) == *Copy(r)) continue;
+      const auto fit = Fits(run.transform, r);
+      k += fit && *fit != *Copy(r);
+    }
+    return k;
+  }
+  Run Grow(const Transform& t, std::size_t seed, const std::vector<bool>& claimed) const {
+    Run run{t, seed, seed, {}, 0, {}};
+    Extend(run, claimed);
+    for (std::size_t r = run.first; r <= run.last; ++r) {
+      const auto fit = Fits(t, r);
+      if (!fit || *fit == *Copy(r)) continue;
       run.changed.push_back(r);
       // A row counts when beyond the author's departure, or off the reading
       // the other witnesses agree on.
@@ -214,7 +257,11 @@ struct Scan {
   }
 };
 
-std::string Span(const Finding& f) {
+std::string Span(const Finding& f, const Run& run) {
+  if (!run.gaps.empty())
+    return std::to_string(f.cells.size()) + " entries (" + f.cells.front().arg + " to " +
+           f.cells.back().arg + ", " + std::to_string(run.gaps.size()) +
+           (run.gaps.size() == 1 ? " entry" : " entries") + " between them miscopied otherwise)";
   return std::to_string(f.cells.size()) + " consecutive entries (" + f.cells.front().arg + " to " +
          f.cells.back().arg + ")";
 }
@@ -226,35 +273,35 @@ std::string Describe(const Run& run, const Finding& f, const std::string& unit, 
   const std::string from = tradition ? "the other witnesses" : "the model";
   switch (t.pattern) {
     case Pattern::kLeading:
-      return "the leading place left empty (written as 0) in " + Span(f) +
+      return "the leading place left empty (written as 0) in " + Span(f, run) +
              ": one slip repeated row after row; each entry's leading place supplied from " + from;
     case Pattern::kEmpty:
-      return "the " + place + " left empty (written as 0) in " + Span(f) +
+      return "the " + place + " left empty (written as 0) in " + Span(f, run) +
              ": one slip repeated row after row; each entry's " + place + " supplied from " + from;
     case Pattern::kHeld:
-      return "the " + place + " written as " + std::to_string(t.value) + " throughout " + Span(f) +
-             ", where " + from +
+      return "the " + place + " written as " + std::to_string(t.value) + " throughout " +
+             Span(f, run) + ", where " + from +
              " changes them: a place carried over from row to row; each entry's " + place +
              " restored from " + from;
     case Pattern::kUp:
-      return "the " + place + " omitted in " + Span(f) + " and the " + next +
+      return "the " + place + " omitted in " + Span(f, run) + " and the " + next +
              " moved up into their place: one slip repeated row after row; the " + place +
              " restored from " + from;
     case Pattern::kDown:
-      return "the places from the " + place + " moved down one in " + Span(f) + " (" + place +
+      return "the places from the " + place + " moved down one in " + Span(f, run) + " (" + place +
              " written as " + next +
              "): one slip repeated row after row; the lost last place "
              "supplied from " +
              from;
     case Pattern::kDoubled:
-      return "the " + place + " written twice in " + Span(f) +
+      return "the " + place + " written twice in " + Span(f, run) +
              ", pushing the following places down: one slip repeated row after row; the lost "
              "last place supplied from " +
              from;
     case Pattern::kOffset:
       break;
   }
-  return "every entry of " + Span(f) + " departs from " + from + " by " +
+  return "every entry of " + Span(f, run) + " departs from " + from + " by " +
          SignedUnits(static_cast<double>(t.value)) +
          ": one constant error over the run; each entry restored by removing it";
 }
@@ -310,7 +357,7 @@ std::vector<Finding> SystematicRuns(const Transcription& table, const ColumnValu
   std::vector<Finding> out;
   for (const auto& run : runs) {
     bool free = true;
-    for (std::size_t r = run.first; r <= run.last; ++r) free = free && !claimed[r];
+    for (std::size_t r = run.first; r <= run.last; ++r) free = free && (!claimed[r] || run.Gap(r));
     if (!free) continue;
     if (const auto keep = scan.SharedShift(run); !keep.empty()) {
       // Not this copy's slip: its readings of the model's value are kept
@@ -319,7 +366,7 @@ std::vector<Finding> SystematicRuns(const Transcription& table, const ColumnValu
       for (std::size_t r : keep) claimed[r] = true;
       continue;
     }
-    for (std::size_t r = run.first; r <= run.last; ++r) claimed[r] = true;
+    for (std::size_t r = run.first; r <= run.last; ++r) claimed[r] = claimed[r] || !run.Gap(r);
     out.push_back(RunFinding(scan, run));
   }
   return out;
