@@ -257,10 +257,11 @@ std::vector<Correction> FindCorrections(const CharacterMatrix& m) {
     current = MaskCorrections(current, {*best});
     out.push_back(std::move(*best));
   }
+  const std::vector<Split> splits = Splits(current);
   for (auto& c : out) {
     const int w = m.TaxonIndex(c.witness);
     if (!Corrects(c)) {  // a recomputing witness: its corrections counted for the report
-      const Correction e = Examine(current, w, Splits(current));
+      const Correction e = Examine(current, w, splits);
       c.corrected = e.corrected, c.weight = e.weight, c.kept = e.kept, c.relatives = e.relatives;
     }
     if (static_cast<std::size_t>(w) < m.recomputed.size()) {
