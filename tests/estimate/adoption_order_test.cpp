@@ -17,7 +17,7 @@
 namespace apograph::estimate {
 namespace {
 
-double D(const char* text) { return Sexagesimal::ParseOrThrow(text).ToDouble(); }
+using testing::D;
 
 }  // namespace
 

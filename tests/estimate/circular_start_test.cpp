@@ -13,7 +13,7 @@
 namespace apograph::estimate {
 namespace {
 
-double D(const char* text) { return Sexagesimal::ParseOrThrow(text).ToDouble(); }
+using testing::D;
 
 }  // namespace
 

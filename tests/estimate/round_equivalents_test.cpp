@@ -17,7 +17,7 @@
 namespace apograph::estimate {
 namespace {
 
-double D(const char* text) { return Sexagesimal::ParseOrThrow(text).ToDouble(); }
+using testing::D;
 
 /// Three slips of up to 40 units at rows drawn by `seed`.
 void Slips(testing::SyntheticColumn& c, unsigned seed, int rows) {

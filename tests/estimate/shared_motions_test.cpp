@@ -15,7 +15,7 @@
 namespace apograph::estimate {
 namespace {
 
-double D(const char* text) { return Sexagesimal::ParseOrThrow(text).ToDouble(); }
+using testing::D;
 
 /// A true sun's table by day (days 1..`days`): the solar equation (column
 /// 0, slips drawn with `seed` in a tenth of its rows) and the mean sun

@@ -14,6 +14,9 @@
 
 namespace apograph::estimate::testing {
 
+/// A sexagesimal written as text, as a number ("0;59,8" -> 0.9856).
+inline double D(const char* text) { return Sexagesimal::ParseOrThrow(text).ToDouble(); }
+
 struct SyntheticColumn {
   std::string name = "value";
   int places = 2;
