@@ -212,9 +212,7 @@ LineageReport AnalyseLineage(const CharacterMatrix& m, const LineageOptions& o) 
   r.contamination = FindContamination(oriented, kMinContaminationEvidence, &suspected);
   for (const auto& c : suspected) {
     Undecide(r, "witness",
-             "contamination? " + c.text + "; too little to call it (weight " +
-                 Number(c.secondary_evidence) + " on the weaker side, " +
-                 Number(kMinContaminationEvidence) + " needed)");
+             "contamination? " + c.text + "; too little to call it (" + c.shortfall + ")");
   }
   // A suspected mixture, too, is placed by the relative it follows first
   // when it also shares more with that one (otherwise the order tells

@@ -7,8 +7,10 @@
 #include <algorithm>
 #include <array>
 #include <cmath>
+#include <limits>
 #include <optional>
 #include <sstream>
+#include <string>
 
 #include "lineage/contamination_internal.hpp"
 
@@ -82,12 +84,43 @@ struct PairEvidence {
   Side with_x, with_y;        // inside stretches of their own side
   Side misfits;               // errors inside a stretch of the other side
   Side raw_x, raw_y;          // every error siding with x, with y, wherever it lies
+  bool local_copy = false;    // a relative copied C where C seems to follow it (LocalCopy)
+  // Changes of side between neighbouring errors in the labelling.
+  int Changes() const {
+    int changes = 0;
+    for (std::size_t i = 1; i < errors.size(); ++i)
+      changes += errors[i].stretch != errors[i - 1].stretch ? 1 : 0;
+    return changes;
+  }
+  // One change of exemplar and no error against it (relations.hpp,
+  // kCleanSwitchSlips): the weaker side may show one slip fewer.
+  bool CleanSwitch() const {
+    return Changes() == 1 && misfits.count == 0 && !local_copy &&
+           std::max(with_x.count, with_y.count) >= kMinSideSlips + 1;
+  }
+  int SlipsNeeded() const { return CleanSwitch() ? kCleanSwitchSlips : kMinSideSlips; }
+  bool Separated() const {
+    return misfits.count <= std::min(with_x.count, with_y.count) / kMisfitsPerStretchError;
+  }
   // Weight of the weaker side, when the criterion holds (relations.hpp).
   double Score() const {
-    if (with_x.count < kMinSideSlips || with_y.count < kMinSideSlips) return 0;
-    const int minority = std::min(with_x.count, with_y.count);
-    if (misfits.count > minority / kMisfitsPerStretchError) return 0;
+    const int need = SlipsNeeded();
+    if (with_x.count < need || with_y.count < need || !Separated()) return 0;
     return std::min(with_x.weight, with_y.weight);
+  }
+  // Why a pair falls short of the criterion, for the editor.
+  std::string Shortfall(double min_evidence) const {
+    std::ostringstream out;
+    if (!Separated()) {
+      out << "the two sets are mixed along the table";
+    } else if (std::min(with_x.count, with_y.count) < SlipsNeeded()) {
+      out << std::min(with_x.count, with_y.count) << " slips on the weaker side, " << SlipsNeeded()
+          << " needed";
+    } else {
+      out << "weight " << std::min(with_x.weight, with_y.weight) << " on the weaker side, "
+          << min_evidence << " needed";
+    }
+    return out.str();
   }
   // Two lines without the stretches: worth telling the editor as a
   // question (kSuspectedContaminationEvidence), never called.
@@ -137,7 +170,41 @@ void Stretches(PairEvidence& p) {
   }
 }
 
-PairEvidence Sides(const CharacterMatrix& m, int x, int y, const std::vector<std::size_t>& e) {
+// Whether, in the part of the table from `from` to `to` (positions), r
+// holds every one of c's errors it can be read at (two or more) while c
+// lacks some of r's: r was copied from c there (c's exemplar, or a witness
+// that turned to c), which also makes c share r's errors there.
+bool CopiedFrom(const CharacterMatrix& m, int c, int r, int from, int to) {
+  int c_errors = 0;
+  bool r_holds = true, c_holds = true;
+  for (const Character& ch : m.characters) {
+    if (ch.position < from || ch.position > to || !Evidence(ch)) continue;
+    const signed char sc = ch.states[c], sr = ch.states[r];
+    if (sc == 1 && sr >= 0) ++c_errors, r_holds = r_holds && sr == 1;
+    if (sr == 1 && sc == 0) c_holds = false;
+  }
+  return c_errors >= 2 && r_holds && !c_holds;
+}
+
+// A clean switch (one change) whose relative on either side was copied
+// from c in its part of the table: the errors c "shares" there are c's
+// own, handed down, not a second exemplar's (relations.hpp,
+// kCleanSwitchSlips). The rows between the two stretches belong to
+// neither.
+bool LocalCopy(const CharacterMatrix& m, int c, const PairEvidence& p) {
+  std::size_t cut = 1;
+  while (cut < p.errors.size() && p.errors[cut].stretch == p.errors[cut - 1].stretch) ++cut;
+  if (cut >= p.errors.size()) return false;
+  const int last_first = m.characters[p.errors[cut - 1].character].position;
+  const int first_second = m.characters[p.errors[cut].character].position;
+  const int before = p.errors.front().stretch == 0 ? p.x : p.y;
+  const int after = before == p.x ? p.y : p.x;
+  return CopiedFrom(m, c, before, std::numeric_limits<int>::min(), last_first) ||
+         CopiedFrom(m, c, after, first_second, std::numeric_limits<int>::max());
+}
+
+PairEvidence Sides(const CharacterMatrix& m, int c, int x, int y,
+                   const std::vector<std::size_t>& e) {
   PairEvidence p;
   p.x = x, p.y = y;
   for (std::size_t k : e) {
@@ -154,6 +221,7 @@ PairEvidence Sides(const CharacterMatrix& m, int x, int y, const std::vector<std
     p.errors.push_back({k, side, w, 0});
   }
   Stretches(p);
+  if (p.Changes() == 1 && p.misfits.count == 0) p.local_copy = LocalCopy(m, c, p);
   return p;
 }
 
@@ -166,7 +234,7 @@ PairEvidence BestPair(const CharacterMatrix& m, int c, const std::vector<std::si
     if (x == c || below[x]) continue;
     for (int y = x + 1; y < n; ++y) {
       if (y == c || below[y]) continue;
-      PairEvidence p = Sides(m, x, y, e);
+      PairEvidence p = Sides(m, c, x, y, e);
       const bool better = loose ? p.Loose() > best.Loose() : p.Score() > best.Score();
       if (better) best = std::move(p);
     }
@@ -215,7 +283,7 @@ void Describe(const CharacterMatrix& m, int c, const PairEvidence& p, Contaminat
   text << " (" << out.witness << " shares " << p.raw_x.count << " errors with " << m.taxa[p.x]
        << " that " << m.taxa[p.y] << " lacks, and " << p.raw_y.count << " with " << m.taxa[p.y]
        << " that " << m.taxa[p.x] << " lacks";
-  if (p.Score() <= 0)
+  if (!p.Separated())
     text << ", the two sets mixed along the table";
   else
     text << ", each set in stretches of its own";
@@ -256,6 +324,7 @@ std::vector<Contamination> FindContamination(const CharacterMatrix& m, double mi
         Contamination weak;
         Describe(m, c, q, weak);
         weak.secondary_evidence = std::min(q.raw_x.weight, q.raw_y.weight);
+        weak.shortfall = q.Shortfall(min_evidence);
         suspected->push_back(std::move(weak));
       }
       continue;

@@ -85,7 +85,8 @@ struct ContaminationSegment {
 /// such that
 ///  - C shares with X errors that Y can be read at and lacks, and shares
 ///    with Y errors that X can be read at and lacks: at least three such
-///    slips and `min_evidence` weight on each side. Copied along a tree,
+///    slips (two on the weaker side of a clean switch, kCleanSwitchSlips)
+///    and `min_evidence` weight on each side. Copied along a tree,
 ///    C could share errors with both only through errors made twice
 ///    independently or mended by one of X, Y, since every group
 ///    containing C and X and every group containing C and Y are nested;
@@ -121,6 +122,22 @@ inline constexpr int kMaxStretchChanges = 2;
 /// one): judgement, then measured on the lineage benchmark (see
 /// DEVELOPERS.md, "Lineage accuracy").
 inline constexpr int kMisfitsPerStretchError = 4;
+/// Slips enough on the weaker side when the errors make exactly two
+/// stretches (one change of exemplar, within a table or between tables)
+/// with no error siding against its stretch, and the stronger side shows
+/// kMinSideSlips + 1 or more: a single clean switch is what a copyist who
+/// turned to a second exemplar leaves, and chance agreements rarely line
+/// up so (two coincidences and four line errors fall into two clean blocks
+/// with chance 2 / C(6, 2) = 0.13 even before the two-line condition).
+/// Not when a relative, in its part of the table, holds every error of C's
+/// there while C lacks some of its: that relative copied C (seed 89 of the
+/// benchmark: A, the second exemplar of E, looked like a switch to E).
+/// Measured on the lineage benchmark (cached characters; DEVELOPERS.md,
+/// "Lineage accuracy", thirteenth round): contaminated witnesses found
+/// 10 -> 13 (seeds 1-53), 1 -> 2 (101-130), 7 -> 14 (131-200), precision up
+/// on all three; false alarms on uncontaminated draws 1 -> 2 of 53, 0 of 30
+/// and 1 of 70 unchanged. A stronger side of 3 or of 5 did worse.
+inline constexpr int kCleanSwitchSlips = 2;
 
 struct Contamination {
   std::string witness;
@@ -133,6 +150,9 @@ struct Contamination {
   std::vector<ContaminationSegment> segments;
   std::vector<std::string> inherited_by;  ///< witnesses descending from it with its mixture
   std::string text;  ///< "C follows A in rows 10 to 200 and B in rows 210 to 360 (...)"
+  /// For a suspected mixture only: what it lacks to be called ("2 slips on
+  /// the weaker side, 3 needed", "the two sets are mixed along the table").
+  std::string shortfall;
 };
 
 /// The one-line criterion (a second one, for a witness that takes one part

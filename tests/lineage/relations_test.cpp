@@ -172,5 +172,57 @@ TEST_CASE("the common errors of a line held in one part only: contaminated") {
   CHECK(FindContamination(JoinMatrix(true)).empty());
 }
 
+// Witnesses C, X, Y, W. C shares two errors with X in rows 10 and 40 (one
+// distinctive, weight 2) and `with_y` errors with Y from row 110 on; each of
+// C, X, Y and W has errors of its own. `x_late` moves the second X error to
+// row 150, among Y's. `c_own` = false: C has none of its own, so that X
+// holds every error of C's where C follows it, as a copy of C would.
+CharacterMatrix SwitchMatrix(int with_y, bool x_late, bool c_own = true) {
+  CharacterMatrix m;
+  m.taxa = {"C", "X", "Y", "W"};
+  Character distinctive = At(10, {1, 1, 0, 0});
+  distinctive.weight = 2;
+  m.characters.push_back(distinctive);
+  m.characters.push_back(At(x_late ? 150 : 40, {1, 1, 0, 0}));
+  for (int k = 0; k < with_y; ++k) m.characters.push_back(At(110 + 30 * k + 5, {1, 0, 1, 0}));
+  if (c_own) {
+    m.characters.push_back(At(35, {1, 0, 0, 0}));
+    m.characters.push_back(At(190, {1, 0, 0, 0}));
+  }
+  for (int k = 0; k < 4; ++k) {
+    m.characters.push_back(At(20 + 60 * k, {0, 1, 0, 0}));
+    m.characters.push_back(At(25 + 60 * k, {0, 0, 1, 0}));
+    m.characters.push_back(At(30 + 60 * k, {0, 0, 0, 1}));
+  }
+  std::stable_sort(m.characters.begin(), m.characters.end(),
+                   [](const Character& a, const Character& b) { return a.position < b.position; });
+  return m;
+}
+
+TEST_CASE("a clean switch of exemplar is called on two slips of the weaker side") {
+  const auto found = FindContamination(SwitchMatrix(4, false));
+  REQUIRE(found.size() == 1);
+  CHECK(found[0].witness == "C");
+  CHECK(found[0].primary == "X");
+  CHECK(found[0].secondary == "Y");
+  CHECK(found[0].text.find("C follows X in rows 10 to 40 and Y in rows 115 to 205") !=
+        std::string::npos);
+  // Three on the stronger side only: a question for the editor, with what
+  // it lacks.
+  std::vector<Contamination> suspected;
+  CHECK(FindContamination(SwitchMatrix(3, false), kMinContaminationEvidence, &suspected).empty());
+  REQUIRE(suspected.size() == 1);
+  CHECK(suspected[0].shortfall == "2 slips on the weaker side, 3 needed");
+  CHECK(suspected[0].text.find("each set in stretches of its own") != std::string::npos);
+  // X's second error among Y's: no clean switch, mixed along the table.
+  suspected.clear();
+  CHECK(FindContamination(SwitchMatrix(4, true), kMinContaminationEvidence, &suspected).empty());
+  REQUIRE(suspected.size() == 1);
+  CHECK(suspected[0].shortfall == "the two sets are mixed along the table");
+  // X holds all of C's errors where C seems to follow it and C lacks X's:
+  // X copied C there (C's "shared" errors are its own), no switch.
+  CHECK(FindContamination(SwitchMatrix(4, false, false)).empty());
+}
+
 }  // namespace
 }  // namespace apograph::lineage
