@@ -224,7 +224,20 @@ Finding SingleFinding(const CellContext& c, const ColumnValues& values) {
     all.insert(all.end(), found.begin(), found.end());
   }
   const bool slip_found = !all.empty();
-  if (auto author = AuthorCandidate(c)) all.push_back(*author);
+  auto author = AuthorCandidate(c);
+  if (author) {
+    all.push_back(*author);
+  } else if (!slip_found) {
+    // Beyond the author's departure and out of every slip's reach: where the
+    // whole tradition reads it, the reading is kept (TraditionKeptCandidate).
+    if (auto kept = TraditionKeptCandidate(c)) {
+      Finding f = NewFinding(*c.table, values, c.places);
+      f.explanations.push_back(kept->explanation);
+      f.kept_against_model = true;
+      f.cells.push_back(MakeCell(*c.table, values, c.row, c.places));
+      return f;
+    }
+  }
   const Candidate unexplained = UnexplainedCandidate(c);
   double total = unexplained.likelihood + c.slip_rate * kOtherStories;
   for (const auto& a : all) total += a.likelihood;

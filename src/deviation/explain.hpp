@@ -122,6 +122,11 @@ struct Finding {
   int places = 0;
   std::vector<FindingCell> cells;         ///< in row order
   std::vector<Explanation> explanations;  ///< best first; never empty
+  /// A reading every other witness shares, beyond the author's departure and
+  /// out of every slip's reach, kept against the model (class computational,
+  /// no emendation): evidence against the reference at this row, which the
+  /// guard counts as a flagged row (guard.hpp), though nothing is emended.
+  bool kept_against_model = false;
 
   const Explanation& best() const { return explanations.front(); }
   /// The other classes the evidence cannot tell from the best's: copying

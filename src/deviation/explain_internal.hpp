@@ -14,6 +14,10 @@ namespace apograph::deviation::internal {
 
 // Fixed scores of findings that are not ranked against alternatives.
 constexpr double kScoreBlank = 0.95;  // judgement: a blank or illegible cell is what it is
+// Judgement: a reading the whole tradition shares that no slip joins to the
+// model is kept, one story of two (the reference misses the row, or an
+// archetype's slip outside every list): undecided between them.
+constexpr double kScoreTraditionKept = 0.5;
 
 /// A value as its places: d[0] the integer part, d[1..] the fractions.
 struct Digits {
@@ -98,6 +102,16 @@ std::vector<Candidate> PlaceCandidates(const CellContext& c);
 std::vector<Candidate> RepetitionCandidates(const CellContext& c);
 /// The author's own departure (nullopt beyond the author's typical departure).
 std::optional<Candidate> AuthorCandidate(const CellContext& c);
+/// The tradition's reading kept against the model: every other witness (two
+/// or more) reads this copy's value, and no copying slip reaches the model's
+/// reading from it (the caller has found none). Then the model, not the
+/// whole tradition, is the suspect at this row: a derived column's model
+/// computed from source entries that carry an archetype's slip, a fitted
+/// reference that misses a row, or the author computing otherwise. An
+/// editor does not emend every witness on the model's word alone: the
+/// reading is kept (class computational, no emendation), the evidence
+/// saying why. nullopt when the tradition does not share the reading.
+std::optional<Candidate> TraditionKeptCandidate(const CellContext& c);
 /// No listed slip: the expected reading proposed, the change described by its
 /// places and size.
 Candidate UnexplainedCandidate(const CellContext& c);

@@ -301,6 +301,27 @@ std::optional<Candidate> AuthorCandidate(const CellContext& c) {
   return out;
 }
 
+std::optional<Candidate> TraditionKeptCandidate(const CellContext& c) {
+  // Judgement: two other witnesses at least, so that one copy agreeing by
+  // chance (or copied from this one) is not "the tradition".
+  constexpr int kLeastWitnesses = 2;
+  const TraditionCell* t = c.tradition;
+  if (!t || t->witnesses < kLeastWitnesses || !c.shared) return std::nullopt;
+  Candidate out;
+  Explanation& e = out.explanation;
+  e.cls = SlipClass::kComputational;
+  // Judgement: the story is one of two (the reference misses the row, or an
+  // archetype's slip outside every list), so the score says undecided.
+  e.score = kScoreTraditionKept;
+  e.evidence = "read by " + TraditionWords(*t) + " too, " + SignedUnits(c.diff) +
+               " from the model (" + ModelText(c.computed, c.exact, c.places) +
+               "), beyond the author's usual departure, and no copying slip reaches the model's " +
+               "reading from it: the tradition's reading, which the reference misses here (or "
+               "the author computed otherwise); no emendation on the model's word alone; keep "
+               "the reading";
+  return out;
+}
+
 Candidate UnexplainedCandidate(const CellContext& c) {
   Candidate out;
   Explanation& e = out.explanation;
@@ -354,10 +375,13 @@ void MergeComputationalRuns(std::vector<Finding>& findings) {
   });
   std::vector<Finding> out;
   for (auto& f : findings) {
-    const bool comp = f.best().cls == SlipClass::kComputational && f.cells.size() == 1;
+    // A reading kept against the model is no smooth departure of the author's.
+    const bool comp =
+        f.best().cls == SlipClass::kComputational && f.cells.size() == 1 && !f.kept_against_model;
     if (comp && !out.empty()) {
       Finding& last = out.back();
-      const bool last_comp = last.best().cls == SlipClass::kComputational;
+      const bool last_comp =
+          last.best().cls == SlipClass::kComputational && !last.kept_against_model;
       const bool next_row = last.cells.back().row + 1 == f.cells.front().row;
       const bool same_sign = (last.cells.back().diff_units > 0) == (f.cells.front().diff_units > 0);
       if (last_comp && next_row && same_sign) {

@@ -11,8 +11,8 @@ int FlaggedCells(const std::vector<Finding>& findings, int column) {
   int n = 0;
   for (const auto& f : findings) {
     const SlipClass cls = f.best().cls;
-    if (f.column != column || !IsCopyingSlip(cls) || cls == SlipClass::kBlank ||
-        cls == SlipClass::kIllegible)
+    const bool flagged = IsCopyingSlip(cls) || f.kept_against_model;
+    if (f.column != column || !flagged || cls == SlipClass::kBlank || cls == SlipClass::kIllegible)
       continue;
     n += static_cast<int>(f.cells.size());
   }

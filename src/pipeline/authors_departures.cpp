@@ -26,7 +26,9 @@ std::vector<DeparturePattern> AuthorsDepartures(const std::vector<WitnessFinding
   std::vector<DeparturePattern> out;
   for (const auto& w : findings) {
     for (const auto& f : w.findings) {
-      if (f.best().cls != deviation::SlipClass::kComputational) continue;
+      // A reading kept against the model (the tradition's, out of every
+      // slip's reach) is kept, but is no departure of the author's habit.
+      if (f.best().cls != deviation::SlipClass::kComputational || f.kept_against_model) continue;
       auto pattern = std::find_if(out.begin(), out.end(), [&](const DeparturePattern& p) {
         return p.column_name == f.column_name;
       });

@@ -162,9 +162,12 @@ std::vector<bool> FlaggedRows(const ColumnRun& run, std::size_t rows, bool unexp
   std::vector<bool> out(rows, false);
   for (const auto& f : run.found) {
     const auto cls = f.best().cls;
-    if (!deviation::IsCopyingSlip(cls) || cls == deviation::SlipClass::kBlank ||
+    // A reading kept against the model counts as a row the model does not
+    // explain, as it did when it was flagged unexplained.
+    const bool kept = f.kept_against_model;
+    if ((!deviation::IsCopyingSlip(cls) && !kept) || cls == deviation::SlipClass::kBlank ||
         cls == deviation::SlipClass::kIllegible ||
-        (unexplained && cls != deviation::SlipClass::kUnexplained))
+        (unexplained && cls != deviation::SlipClass::kUnexplained && !kept))
       continue;
     for (const auto& c : f.cells) {
       if (c.row < rows) out[c.row] = true;

@@ -660,3 +660,36 @@ TEST_CASE("a constant error goes on past an entry miscopied otherwise") {
     CHECK(spoiled != f);
   }
 }
+
+TEST_CASE("a reading the whole tradition shares out of every slip's reach is kept, not emended") {
+  // Four witnesses read, at three rows apart, a value 2;37 above the model:
+  // beyond the author's departure, and no copying slip joins it to the
+  // model's reading. The model, not the whole tradition, is the suspect
+  // there (a derived column's model computed from a source entry the
+  // archetype miscopied, a fitted reference missing a row): before, every
+  // witness was emended to the model's reading as a slip "outside the
+  // lists". Each copy's own slip is still found.
+  Synthetic s = MakeTable(testing::SolarEquation, 1, 1, 180, 2);
+  const std::vector<std::size_t> rows = {40, 70, 150};
+  for (std::size_t r : rows) s.Set(r, Moved(s, r, 157, 2).ToString());
+  const auto witnesses = Copies(s, 4);
+  const auto found = pipeline::ExplainTradition(witnesses, SolarReference(witnesses), kDir);
+  REQUIRE(found.size() == 4);
+  for (const auto& w : found) {
+    CHECK_FALSE(w.Refused("equation"));
+    for (std::size_t r : rows) {
+      const Finding* f = At(w.findings, r);
+      REQUIRE(f != nullptr);
+      INFO(f->Note(w.siglum));
+      CHECK_FALSE(IsCopyingSlip(f->best().cls));
+      CHECK(f->kept_against_model);
+      CHECK_FALSE(f->cells.front().emendation.has_value());
+      CHECK(f->best().evidence.find("read by every other witness (3) too") != std::string::npos);
+    }
+    const auto slips = SlipRows(w);
+    CHECK(slips.empty());  // the blank is not counted by SlipRows
+    const Finding* own = At(w.findings, 100 + 10 * static_cast<std::size_t>(w.siglum[0] - 'A'));
+    REQUIRE(own != nullptr);
+    CHECK(own->best().cls == SlipClass::kBlank);
+  }
+}

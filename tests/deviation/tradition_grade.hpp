@@ -55,7 +55,15 @@ struct Grade {
   long right_columns = 0, right_refused = 0;  ///< witness columns with a right reference
   long wrong_columns = 0, wrong_refused = 0;  ///< witness columns with a wrong reference
   long wrong_emendations = 0;                 ///< emendations proposed against a wrong reference
-  long wrong_false = 0;   ///< of them, not the author's reading (false findings)
+  long wrong_false = 0;  ///< of them, not the author's reading (false findings)
+  /// Of the false ones, on an entry that reads the author's value (a right
+  /// entry changed); the rest are slips given another reading or none.
+  long wrong_false_right = 0;
+  /// Of those restoring the author's reading, the ones the other witnesses
+  /// (modern editions left out) read too, more than half of those reading
+  /// the row: evidence that does not hang on the reference. The rest restore
+  /// it on the model's word alone.
+  long wrong_by_witnesses = 0;
   long unreferenced = 0;  ///< table columns without a reference
   /// With `debug` set before grading: one line per slip missed, misnamed or
   /// wrongly emended, and per false flag.
@@ -77,6 +85,8 @@ struct Grade {
     wrong_refused += o.wrong_refused;
     wrong_emendations += o.wrong_emendations;
     wrong_false += o.wrong_false;
+    wrong_false_right += o.wrong_false_right;
+    wrong_by_witnesses += o.wrong_by_witnesses;
     unreferenced += o.unreferenced;
   }
 };
@@ -318,39 +328,82 @@ inline void GradeColumn(const Witness& w, const pipeline::WitnessFindings& found
   }
 }
 
-/// Emendations proposed on a witness column (against a wrong reference).
-inline long Emendations(const pipeline::WitnessFindings& found, int column) {
-  return static_cast<long>(Flags(found, column).size());
-}
+/// What an emendation against a wrong reference did.
+enum class WrongKind {
+  kByWitnesses,   ///< the author's reading, read by most other witnesses
+  kByModel,       ///< the author's reading, the other witnesses not agreeing on it
+  kRightChanged,  ///< not the author's reading, on an entry that read it
+  kSlipMissed,    ///< not the author's reading (or none), on an entry off it
+};
 
-/// Of them, those that do not give the author's reading (a right cell
-/// changed, or a slip emended to another value).
-inline long FalseEmendations(const Witness& w, const pipeline::WitnessFindings& found,
-                             const synth::ColumnKey& key) {
-  long n = 0;
-  for (const auto& [row, flag] : Flags(found, w.table.ColumnIndex(key.name))) {
-    const int origin = row < w.text->origin.size() ? w.text->origin[row] : -1;
-    n += origin < 0 || !flag.emendation ||
-         !(At(*flag.emendation, key.places) ==
-           At(key.tabulated[static_cast<std::size_t>(origin)], key.places));
+/// The reading most of the other witnesses (modern editions left out) have
+/// at archetype row `origin`, at `places`, when more than half agree.
+inline std::optional<Sexagesimal> OthersReading(const std::vector<Witness>& ws, std::size_t self,
+                                                const synth::ColumnKey& key, int origin) {
+  std::map<std::string, std::pair<int, Sexagesimal>> tally;
+  int readers = 0;
+  for (std::size_t j = 0; j < ws.size(); ++j) {
+    if (j == self || ws[j].node->kind == synth::WitnessKind::kModernEdition) continue;
+    const int column = ws[j].table.ColumnIndex(key.name);
+    const auto& origins = ws[j].text->origin;
+    const auto it = std::find(origins.begin(), origins.end(), origin);
+    if (column < 0 || it == origins.end()) continue;
+    const auto row = static_cast<std::size_t>(it - origins.begin());
+    if (row >= ws[j].table.rows.size()) continue;
+    const Cell& cell = ws[j].table.rows[row].cells[static_cast<std::size_t>(column)];
+    if (cell.state != CellState::kRead || !cell.value) continue;
+    ++readers;
+    const Sexagesimal v = At(*cell.value, key.places);
+    ++tally.try_emplace(v.ToString(), 0, v).first->second.first;
   }
-  return n;
+  for (const auto& [text, entry] : tally) {
+    if (2 * entry.first > readers) return entry.second;
+  }
+  return std::nullopt;
 }
 
-/// With debug: one line per emendation proposed against a wrong reference.
-inline void WrongNotes(const Witness& w, const pipeline::WitnessFindings& found,
-                       const synth::AuthorTable& author, const synth::ColumnKey& key, Grade& g) {
+/// Sorts one emendation proposed against a wrong reference.
+inline WrongKind KindOf(const std::vector<Witness>& ws, std::size_t i, const synth::ColumnKey& key,
+                        std::size_t row, const Flag& flag) {
+  const Witness& w = ws[i];
+  const int origin = row < w.text->origin.size() ? w.text->origin[row] : -1;
+  if (origin < 0) return WrongKind::kSlipMissed;
+  const Sexagesimal want = At(key.tabulated[static_cast<std::size_t>(origin)], key.places);
+  if (flag.emendation && At(*flag.emendation, key.places) == want) {
+    const auto others = OthersReading(ws, i, key, origin);
+    return others && *others == want ? WrongKind::kByWitnesses : WrongKind::kByModel;
+  }
+  const Cell& cell =
+      w.table.rows[row].cells[static_cast<std::size_t>(w.table.ColumnIndex(key.name))];
+  const bool right =
+      cell.state == CellState::kRead && cell.value && At(*cell.value, key.places) == want;
+  return right ? WrongKind::kRightChanged : WrongKind::kSlipMissed;
+}
+
+/// Counts the emendations of witness `i` on a column with a wrong reference
+/// into `g`; with debug, one line per emendation.
+inline void GradeWrongColumn(const std::vector<Witness>& ws, std::size_t i,
+                             const pipeline::WitnessFindings& found, const std::string& table,
+                             const synth::ColumnKey& key, Grade& g) {
+  const Witness& w = ws[i];
   const int column = w.table.ColumnIndex(key.name);
   for (const auto& [row, flag] : Flags(found, column)) {
+    const WrongKind kind = KindOf(ws, i, key, row, flag);
+    ++g.wrong_emendations;
+    g.wrong_by_witnesses += kind == WrongKind::kByWitnesses;
+    g.wrong_false += kind == WrongKind::kRightChanged || kind == WrongKind::kSlipMissed;
+    g.wrong_false_right += kind == WrongKind::kRightChanged;
     const int origin = row < w.text->origin.size() ? w.text->origin[row] : -1;
-    if (origin < 0) continue;
+    if (!g.debug || origin < 0) continue;
     const auto o = static_cast<std::size_t>(origin);
-    const Sexagesimal want = At(key.tabulated[o], key.places);
-    const bool ok = flag.emendation && At(*flag.emendation, key.places) == want;
-    g.notes.push_back(std::string(ok ? "WRONG-REF-OK " : "WRONG-REF-FALSE ") + author.key.id + " " +
-                      key.name + " " + w.node->name + " row " + std::to_string(row) + " want " +
-                      want.ToString() + " computed " + At(key.computed[o], key.places).ToString() +
-                      " (" + ScriptOf(w.table) + ") | " + NoteOf(found, column, row));
+    static const char* const kTag[] = {"WRONG-REF-OK witnesses ", "WRONG-REF-OK model ",
+                                       "WRONG-REF-FALSE right-changed ",
+                                       "WRONG-REF-FALSE slip-missed "};
+    g.notes.push_back(std::string(kTag[static_cast<int>(kind)]) + table + " " + key.name + " " +
+                      w.node->name + " row " + std::to_string(row) + " want " +
+                      At(key.tabulated[o], key.places).ToString() + " computed " +
+                      At(key.computed[o], key.places).ToString() + " (" + ScriptOf(w.table) +
+                      ") | " + NoteOf(found, column, row));
   }
 }
 
@@ -393,9 +446,7 @@ inline Grade GradeTradition(const synth::Tradition& t, const std::string& script
         if (wrong) {
           ++g.wrong_columns;
           g.wrong_refused += refused;
-          g.wrong_emendations += Emendations(found[i], column);
-          g.wrong_false += FalseEmendations(ws[i], found[i], key);
-          if (debug) WrongNotes(ws[i], found[i], author, key, g);
+          GradeWrongColumn(ws, i, found[i], author.key.id, key, g);
           continue;
         }
         ++g.right_columns;
@@ -450,8 +501,7 @@ inline Grade GradeWrongReference(const synth::Tradition& t, const std::string& s
     if (column < 0) continue;
     ++g.wrong_columns;
     g.wrong_refused += found[i].Refused(key.name);
-    g.wrong_emendations += Emendations(found[i], column);
-    g.wrong_false += FalseEmendations(ws[i], found[i], key);
+    GradeWrongColumn(ws, i, found[i], t.tables[0].key.id, key, g);
   }
   return g;
 }
