@@ -38,8 +38,10 @@ bool Longitudes(const std::vector<Observation>& obs);
 /// eccentricity at the rate in longitude); for a planet, first the starts
 /// with its rates tied as the models tie them to the mean sun (inner:
 /// longitude with the sun; outer: longitude + anomaly = the sun), the rate
-/// in anomaly scanned. Empty when the model is not a table of positions or
-/// there are too few entries.
+/// in anomaly scanned; for an equation by date (no mean motion), also the
+/// harmonic alone, no line, at the rates in anomaly that leave the smallest
+/// median distance (over a short arc its curvature fixes the rate). Empty
+/// when the model is not a table of positions or there are too few entries.
 std::vector<std::vector<double>> PositionStarts(const model::Model& model,
                                                 const FitProblem& problem,
                                                 const std::vector<Observation>& obs,

@@ -136,6 +136,43 @@ Counts Count(const model::Model& m, const model::Practice& p, const Transcriptio
   return c;
 }
 
+/// The identification score (estimate::Score) of the model identified and
+/// of a derived computation, on the rows where both give a value (a
+/// difference has none at the table's end). The model pays for the
+/// parameters identify counted, the relation for kDerivedPenalised.
+struct Scores {
+  double model = 0, derived = 0;
+};
+
+void AddEntry(estimate::FitResult& f, const Sexagesimal& tabulated, const Sexagesimal& computed,
+              int places) {
+  estimate::FitEntry e;
+  e.tabulated = tabulated;
+  e.computed = computed;
+  e.diff_units = DiffUnits(tabulated, computed, std::max(places, tabulated.places()));
+  f.entries.push_back(e);
+}
+
+Scores Compare(const ColumnReference& identified, const model::Model& derived,
+               const model::Practice& p, const Transcription& w, const std::string& column) {
+  Scores s;
+  const int col = w.ColumnIndex(column);
+  if (col < 0) return s;
+  const auto a =
+      model::Recompute(*identified.model, identified.params, w, col, identified.practice);
+  const auto b = model::Recompute(derived, {}, w, col, p);
+  estimate::FitResult fa, fb;
+  for (std::size_t r = 0; r < w.rows.size(); ++r) {
+    const Cell& cell = w.rows[r].cells[static_cast<std::size_t>(col)];
+    if (cell.state != CellState::kRead || !cell.value || !a.computed[r] || !b.computed[r]) continue;
+    AddEntry(fa, *cell.value, *a.computed[r], identified.practice.places.value_or(0));
+    AddEntry(fb, *cell.value, *b.computed[r], p.places.value_or(0));
+  }
+  s.model = estimate::Score(fa, identified.penalised_parameters);
+  s.derived = estimate::Score(fb, kDerivedPenalised);
+  return s;
+}
+
 /// One computation of the derived column.
 struct Computation {
   DerivedBasis basis;
@@ -215,7 +252,8 @@ std::size_t Follows(const std::vector<Computation>& all, std::size_t i) {
 
 /// The derived reference for `f` (the computation most witnesses follow),
 /// with a variant for each other computation some witness follows; nullopt
-/// when the model identified explains more.
+/// when the model identified explains the column and scores higher on its
+/// witness (Compare).
 std::optional<ColumnReference> Derived(const Found& f, const std::vector<ColumnReference>& refs,
                                        const ColumnReference& identified,
                                        const std::vector<const Transcription*>& ws) {
@@ -226,13 +264,20 @@ std::optional<ColumnReference> Derived(const Found& f, const std::vector<ColumnR
   for (std::size_t i = 0; i < ws.size(); ++i) ++votes[follows[i] = Follows(all, i)];
   const std::size_t main = static_cast<std::size_t>(std::max_element(votes.begin(), votes.end()) -
                                                     votes.begin());  // ties: the preferred
-  // Compared with the model on the witness the model was identified from.
+  // Compared with the model on the witness the model was identified from
+  // (a column nothing else explains takes the relation as it is).
   std::size_t at = 0;
   for (std::size_t i = 0; i < ws.size(); ++i) {
     if (ws[i]->witness.siglum == identified.witness) at = i;
   }
   const Counts& here = all[main].per_witness[at];
-  if (identified.explains && here.within1 < identified.within_one) return std::nullopt;
+  if (identified.explains) {
+    model::Practice p;
+    p.rounding = f.d.rounding;
+    p.places = identified.practice.places;
+    const Scores s = Compare(identified, *all[main].model, p, *ws[at], f.target);
+    if (s.derived < s.model) return std::nullopt;
+  }
   ColumnReference r = Reference(identified, all[main], f, here, ws[at]->witness.siglum);
   for (std::size_t k = 0; k < all.size(); ++k) {
     if (k == main || votes[k] == 0) continue;

@@ -116,6 +116,9 @@ struct ColumnReference {
   /// evidence of its best candidate.
   std::string witness;
   double score = 0;
+  /// The free parameters that score counted (the model's, a displacement,
+  /// one for a grid): what the column's own fit spent to reach its entries.
+  int penalised_parameters = 0;
   int exact = 0, entries = 0;     ///< entries of that witness reproduced exactly / compared
   int within_one = 0;             ///< entries of that witness within one unit
   std::vector<std::string> ties;  ///< identify's notes on near-ties and set-asides (not `naming`)

@@ -108,7 +108,8 @@ std::optional<WitnessBest> FitOnly(const Transcription& t, int column,
                                      t.columns.at(static_cast<std::size_t>(column)).name,
                                  "'" + requested->name() + "', undefined on every row"));
   }
-  b.best.score = estimate::Score(b.best.fit, b.best.fit.free_parameters);
+  b.best.penalised_parameters = b.best.fit.free_parameters;
+  b.best.score = estimate::Score(b.best.fit, b.best.penalised_parameters);
   b.best.adoption = estimate::AdoptRoundValues(*requested, b.best.fit, t, column, &library.catalog);
   const auto& f = b.best.Final();
   b.explains = f.n > 0 && f.within1 >= estimate::kExplainedShare * f.n;
@@ -199,6 +200,7 @@ void FillIdentified(ColumnReference& r, const WitnessBest& chosen) {
   r.source = ReferenceSource::kIdentified;
   r.witness = chosen.witness->witness.siglum;
   r.score = c.score;
+  r.penalised_parameters = c.penalised_parameters;
   // identify's notes without the naming note, which has a field of its own
   // (shown once by every report).
   for (const auto& note : chosen.notes) {

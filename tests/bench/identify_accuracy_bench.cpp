@@ -183,6 +183,20 @@ bool DerivedRight(const synth::ColumnKey& c, const pipeline::ColumnReference& r)
   return exact == c.derived->from_exact;
 }
 
+/// A derived column's relation as the key gives it ("" for other columns).
+std::string DerivedKey(const synth::ColumnKey& c) {
+  if (!c.derived) return "";
+  const synth::DerivedSpec& d = *c.derived;
+  std::string out = d.kind == synth::DerivedSpec::Kind::kSum ? "sum of" : "difference of";
+  for (const auto& f : d.from) out += " " + f;
+  char buf[128];
+  std::snprintf(buf, sizeof buf, ", from %s, span %d %s, divisor %lld%s, %d places",
+                d.from_exact ? "exact values" : "tabulated entries", d.span_rows,
+                d.forward ? "forward" : "backward", static_cast<long long>(d.divisor),
+                d.wrap_360 ? ", wrapped" : "", c.places);
+  return out + buf;
+}
+
 std::string RowName(const synth::ColumnKey& c) {
   if (c.role == synth::ColumnKey::Role::kUnexplained ||
       c.function.family == synth::Family::kUnexplained)
@@ -286,7 +300,8 @@ int main(int argc, char** argv) {
                       x.description.c_str(), x.how.c_str(), x.explains,
                       e.empty() ? "-" : e.front().model.c_str(), one.identified);
           if (std::getenv("BENCH_VERBOSE")[0] >= '2' && e.empty())
-            std::printf("  key: %s (%zu rows)\n", col.function.variant.c_str(), w.rows.size());
+            std::printf("  key: %s%s (%zu rows)\n", col.function.variant.c_str(),
+                        DerivedKey(col).c_str(), w.rows.size());
           if (std::getenv("BENCH_VERBOSE")[0] >= '2' && !e.empty()) {
             std::printf("  key:");
             for (const auto& [name, v] : e.front().params)
