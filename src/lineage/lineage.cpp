@@ -212,7 +212,8 @@ LineageReport AnalyseLineage(const CharacterMatrix& m, const LineageOptions& o) 
   r.contamination = FindContamination(oriented, kMinContaminationEvidence, &suspected);
   for (const auto& c : suspected) {
     Undecide(r, "witness",
-             "contamination? " + c.text + "; too little to call it (" + c.shortfall + ")");
+             "contamination? " + c.text + "; too little to call it" +
+                 (c.shortfall.empty() ? "" : " (" + c.shortfall + ")"));
   }
   // A suspected mixture, too, is placed by the relative it follows first
   // when it also shares more with that one (otherwise the order tells

@@ -108,12 +108,12 @@ struct PairEvidence {
     if (with_x.count < need || with_y.count < need || !Separated()) return 0;
     return std::min(with_x.weight, with_y.weight);
   }
-  // Why a pair falls short of the criterion, for the editor.
+  // Why a pair falls short of the criterion, for the editor ("" when the
+  // two sets are mixed along the table, which the text says).
   std::string Shortfall(double min_evidence) const {
+    if (!Separated()) return "";
     std::ostringstream out;
-    if (!Separated()) {
-      out << "the two sets are mixed along the table";
-    } else if (std::min(with_x.count, with_y.count) < SlipsNeeded()) {
+    if (std::min(with_x.count, with_y.count) < SlipsNeeded()) {
       out << std::min(with_x.count, with_y.count) << " slips on the weaker side, " << SlipsNeeded()
           << " needed";
     } else {

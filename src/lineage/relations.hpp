@@ -151,7 +151,8 @@ struct Contamination {
   std::vector<std::string> inherited_by;  ///< witnesses descending from it with its mixture
   std::string text;  ///< "C follows A in rows 10 to 200 and B in rows 210 to 360 (...)"
   /// For a suspected mixture only: what it lacks to be called ("2 slips on
-  /// the weaker side, 3 needed", "the two sets are mixed along the table").
+  /// the weaker side, 3 needed", "weight 2 on the weaker side, 3 needed");
+  /// empty when the two sets are mixed along the table (the text says so).
   std::string shortfall;
 };
 
