@@ -161,7 +161,6 @@ struct EquationGuess {
 /// to the entries, then refitted on those within three robust scales of it
 /// (the usual rejection rule: up to a fifth of the entries may be a
 /// copyist's slips).
-
 EquationGuess FitEquation(const std::vector<double>& t, const std::vector<double>& u, double f) {
   EquationGuess q{f};
   const auto basis = [f](double v, double* r) {

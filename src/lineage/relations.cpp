@@ -221,7 +221,14 @@ PairEvidence Sides(const CharacterMatrix& m, int c, int x, int y,
     p.errors.push_back({k, side, w, 0});
   }
   Stretches(p);
-  if (p.Changes() == 1 && p.misfits.count == 0) p.local_copy = LocalCopy(m, c, p);
+  // LocalCopy reads every character: only where the clean switch can
+  // matter (the weaker side short of kMinSideSlips, the stronger side long
+  // enough); elsewhere CleanSwitch changes nothing.
+  const int weaker = std::min(p.with_x.count, p.with_y.count);
+  const int stronger = std::max(p.with_x.count, p.with_y.count);
+  if (p.Changes() == 1 && p.misfits.count == 0 && weaker < kMinSideSlips &&
+      stronger >= kMinSideSlips + 1)
+    p.local_copy = LocalCopy(m, c, p);
   return p;
 }
 
