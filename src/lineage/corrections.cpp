@@ -1,6 +1,7 @@
 #include "lineage/corrections.hpp"
 
 #include <algorithm>
+#include <bit>
 #include <cstdint>
 #include <optional>
 #include <sstream>
@@ -21,26 +22,6 @@ std::vector<int> Carriers(const Character& ch, int except) {
     if (ch.states[t] == 1 && static_cast<int>(t) != except) out.push_back(static_cast<int>(t));
   }
   return out;
-}
-
-// Whether the error `k` (carriers `carriers`) arose above the shared error
-// `l` of W: another carrier of l carries k (l arose inside k's group; its
-// carriers that lack k descend from W, or corrected too), and so does a
-// witness that can be read at l and lacks it (k's group is the larger one).
-// `own_group`: more of l's other carriers that can be read at k carry it
-// than lack it, so that k is above the group l places W in, not an error
-// of a subgroup that W's line never had (its right reading there is then
-// simply the archetype's, retained by its own line).
-bool Encloses(const Character& l, const std::vector<int>& l_others, const Character& k,
-              const std::vector<int>& carriers, bool own_group) {
-  bool inside = false, larger = false;
-  for (int x : carriers) {
-    inside = inside || std::binary_search(l_others.begin(), l_others.end(), x);
-    larger = larger || l.states[x] == 0;
-  }
-  int with = 0, without = 0;
-  for (int x : l_others) with += k.states[x] == 1, without += k.states[x] == 0;
-  return inside && larger && (!own_group || with > without);
 }
 
 // Witnesses as bits, to test two characters for compatibility quickly.
@@ -79,6 +60,27 @@ std::vector<Split> Splits(const CharacterMatrix& m) {
   return out;
 }
 
+// Witnesses in both sets.
+int Common(const Bits& a, const Bits& b) {
+  int n = 0;
+  for (std::size_t i = 0; i < a.size(); ++i) n += std::popcount(a[i] & b[i]);
+  return n;
+}
+
+// Whether the error `k` arose above the shared error `l` of W (W carries
+// l and reads k right): another carrier of l carries k (l arose inside k's
+// group; its carriers that lack k descend from W, or corrected too), and so
+// does a witness that can be read at l and lacks it (k's group is the
+// larger one). `own_group`: more of l's other carriers that can be read at
+// k carry it than lack it, so that k is above the group l places W in, not
+// an error of a subgroup that W's line never had (its right reading there
+// is then simply the archetype's, retained by its own line). As sets of
+// witnesses, W being among l's carriers and k's right readers.
+bool Encloses(const Split& l, const Split& k, bool own_group) {
+  if (!Meet(k.ones, l.ones) || !Meet(k.ones, l.zeros)) return false;
+  return !own_group || Common(l.ones, k.ones) > Common(l.ones, k.zeros) - 1;
+}
+
 // Two errors directed by the model (the archetype reads neither) cannot
 // both have arisen once on one tree when each has a carrier the other
 // lacks and they share one (the three-gamete test).
@@ -107,33 +109,34 @@ Correction Examine(const CharacterMatrix& m, int w, const std::vector<Split>& sp
                    bool own_group = false) {
   Correction c;
   c.witness = m.taxa[w];
-  std::vector<const Character*> placing;  // W's shared errors
-  std::vector<std::vector<int>> others;   // their other carriers
-  std::vector<bool> relative(m.taxa.size(), false);
-  for (const auto& ch : m.characters) {
-    if (!Placing(ch) || ch.states[w] != 1) continue;
-    auto o = Carriers(ch, w);
-    if (o.empty()) continue;
+  const auto uw = static_cast<std::size_t>(w);
+  std::vector<const Split*> placing;  // W's shared errors (`splits` are m's placing characters)
+  for (const auto& l : splits) {
+    if (l.character->states[uw] != 1) continue;
+    Bits others = l.ones;
+    Clear(others, uw);
+    if (std::none_of(others.begin(), others.end(), [](std::uint64_t x) { return x != 0; }))
+      continue;
     ++c.kept;
-    placing.push_back(&ch);
-    others.push_back(std::move(o));
+    placing.push_back(&l);
   }
-  for (const auto& ch : m.characters) {
-    if (!Placing(ch) || !RightReading(ch, w)) continue;
-    const auto carriers = Carriers(ch, w);
+  std::vector<bool> relative(m.taxa.size(), false);
+  for (const auto& k : splits) {
+    const Character& ch = *k.character;
+    if (!RightReading(ch, w)) continue;
     double inside = 0;
     int count = 0;
     bool before = false, after = false;
-    for (std::size_t l = 0; l < placing.size(); ++l) {
-      if (!Encloses(*placing[l], others[l], ch, carriers, own_group)) continue;
-      inside += placing[l]->weight, ++count;
-      before = before || placing[l]->position <= ch.position;
-      after = after || placing[l]->position >= ch.position;
+    for (const Split* l : placing) {
+      if (!Encloses(*l, k, own_group)) continue;
+      inside += l->character->weight, ++count;
+      before = before || l->character->position <= ch.position;
+      after = after || l->character->position >= ch.position;
     }
     if (inside < kMinPlacingWeight || count < 2 || !before || !after) continue;
     if (ConflictsWith(ch, w, splits, m.taxa.size()) > kMaxConflictShare * inside) continue;
     ++c.corrected, c.weight += ch.weight;
-    for (int t : carriers) relative[t] = true;
+    for (int t : Carriers(ch, w)) relative[t] = true;
   }
   for (std::size_t t = 0; t < m.taxa.size(); ++t) {
     if (relative[t]) c.relatives.push_back(m.taxa[t]);

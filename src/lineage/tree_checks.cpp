@@ -1,6 +1,8 @@
 #include "lineage/tree_checks.hpp"
 
 #include <algorithm>
+#include <deque>
+#include <initializer_list>
 #include <map>
 
 namespace apograph::lineage {
@@ -35,65 +37,141 @@ PatternSet Patterns(const CharacterMatrix& m, const std::vector<double>& weights
   return p;
 }
 
-double Free(const std::vector<std::vector<unsigned char>>& kids, std::size_t k,
-            unsigned char& out) {
-  int zero = 0, one = 0;
-  for (const auto& kid : kids) zero += kid[k] & 1, one += (kid[k] >> 1) & 1;
-  const int best = std::max(zero, one);
-  out = static_cast<unsigned char>((zero == best ? 1 : 0) | (one == best ? 2 : 0));
-  return static_cast<int>(kids.size()) - best;
-}
+// Fitch's sets of every node of one stemma, kept so that a trial change
+// (a group contracted, a node moved, a witness promoted) recomputes only the
+// nodes above the change: the length of a trial costs the depth of the
+// tree, not its size. Computing every node for every trial made the checks
+// of a 100-witness tree of 5,586 characters take minutes (lineage_bench;
+// DEVELOPERS.md). Sets are masks per pattern (1 = state 0 possible, 2 =
+// state 1 possible); a node with any number of children takes the states
+// held by the most children, at a cost of children - that count; a witness
+// standing at an inner node keeps its own readings, and every child that
+// cannot have them costs a change; the archetype counts as a child of the
+// root (the base reading where it is known).
+class FitchCache {
+ public:
+  explicit FitchCache(const PatternSet& p) : p_(p) {}
 
-// A witness standing at an inner node: its own readings are the node's
-// states; every child that cannot have them costs a change.
-double FixedNode(const std::vector<std::vector<unsigned char>>& kids,
-                 const std::vector<unsigned char>& own, const PatternSet& p,
-                 std::vector<unsigned char>& out) {
-  out.assign(p.weight.size(), 3);
-  double cost = 0;
-  for (std::size_t k = 0; k < p.weight.size(); ++k) {
-    if (own[k] == 3) {
-      cost += p.weight[k] * Free(kids, k, out[k]);
-      continue;
+  /// The length of `s`, every node computed and kept.
+  double Build(const Stemma& s) {
+    sets_.assign(s.nodes.size(), {});
+    set_of_.assign(s.nodes.size(), nullptr);
+    subtree_.assign(s.nodes.size(), 0);
+    own_.assign(s.nodes.size(), 0);
+    dirty_.assign(s.nodes.size(), 0);
+    building_ = true;
+    const double len = Eval(s, s.root).cost;
+    building_ = false;
+    return len;
+  }
+
+  /// The length of `trial`: the stemma last built with the children (or
+  /// the kind) of the nodes `changed` altered, no node added.
+  double Trial(const Stemma& trial, std::initializer_list<int> changed) {
+    std::vector<int> marked;
+    for (int c : changed) {
+      if (c >= 0 && dirty_[c] != kChanged) dirty_[c] = kChanged, marked.push_back(c);
+      for (int x = c >= 0 ? trial.nodes[c].parent : -1; x >= 0 && !dirty_[x];
+           x = trial.nodes[x].parent)
+        dirty_[x] = kAbove, marked.push_back(x);
     }
-    out[k] = own[k];
-    for (const auto& kid : kids) cost += (kid[k] & own[k]) ? 0 : p.weight[k];
+    used_ = 0;
+    const double len = Eval(trial, trial.root).cost;
+    for (int x : marked) dirty_[x] = 0;
+    return len;
   }
-  return cost;
-}
 
-// Fitch's sets for a node with any number of children: the states held by
-// the most children; cost = children - that count.
-double Node(const Stemma& s, int n, const PatternSet& p, std::vector<unsigned char>& out) {
-  std::vector<std::vector<unsigned char>> kids;
-  double cost = 0;
-  for (int c : s.nodes[n].children) {
-    kids.emplace_back();
-    cost += Node(s, c, p, kids.back());
-  }
-  const auto& node = s.nodes[n];
-  if (node.witness) {
-    auto it = p.taxon.find(node.name);
-    if (it == p.taxon.end()) {
-    } else if (kids.empty()) {
-      out = p.by_taxon[it->second];
-      return cost;
+ private:
+  using Set = std::vector<unsigned char>;
+  struct Result {
+    const Set* set;
+    double cost;  // of the subtree
+    bool same;    // the set is the one last built
+  };
+  // A node whose children or kind the trial altered, and one above it.
+  static constexpr char kChanged = 2, kAbove = 1;
+
+  Result Eval(const Stemma& s, int n) {
+    if (!building_ && !dirty_[n]) return {set_of_[n], subtree_[n], true};
+    const auto& node = s.nodes[n];
+    std::vector<const Set*> kids;
+    kids.reserve(node.children.size() + 1);
+    double cost = 0;
+    bool same = true;
+    for (int c : node.children) {
+      const Result r = Eval(s, c);
+      kids.push_back(r.set);
+      cost += r.cost;
+      same = same && r.same;
+    }
+    // Above the change, a node whose children kept their sets keeps its own.
+    if (!building_ && dirty_[n] == kAbove && same) return {set_of_[n], cost + own_[n], true};
+    const Set* own = nullptr;
+    if (node.witness) {
+      auto it = p_.taxon.find(node.name);
+      if (it != p_.taxon.end()) own = &p_.by_taxon[it->second];
+    } else if (n == s.root) {
+      kids.push_back(&p_.root);
+    }
+    const Set* out = nullptr;
+    double changes = 0;
+    if (own && kids.empty()) {
+      out = own;
     } else {
-      return cost + FixedNode(kids, p.by_taxon[it->second], p, out);
+      Set& buffer = Buffer(n);
+      changes = Combine(kids, own, buffer);
+      out = &buffer;
     }
-  } else if (n == s.root) {
-    kids.push_back(p.root);  // the archetype: the base reading where it is known
+    cost += changes;
+    if (building_) set_of_[n] = out, subtree_[n] = cost, own_[n] = changes;
+    return {out, cost, !building_ && *out == *set_of_[n]};
   }
-  out.assign(p.weight.size(), 3);
-  if (kids.empty()) return cost;
-  for (std::size_t k = 0; k < p.weight.size(); ++k) cost += p.weight[k] * Free(kids, k, out[k]);
-  return cost;
-}
 
-double Length(const Stemma& s, const PatternSet& p) {
-  std::vector<unsigned char> root;
-  return Node(s, s.root, p, root);
-}
+  Set& Buffer(int n) {
+    if (building_) return sets_[n];
+    if (used_ == scratch_.size()) scratch_.emplace_back();
+    return scratch_[used_++];
+  }
+
+  // The node's set into `out`; returns the changes at the node.
+  double Combine(const std::vector<const Set*>& kids, const Set* own, Set& out) {
+    const std::size_t patterns = p_.weight.size();
+    out.assign(patterns, 3);
+    if (kids.empty()) return 0;
+    zero_.assign(patterns, 0);
+    one_.assign(patterns, 0);
+    for (const Set* kid : kids) {
+      const unsigned char* k = kid->data();
+      for (std::size_t i = 0; i < patterns; ++i) zero_[i] += k[i] & 1, one_[i] += k[i] >> 1;
+    }
+    const int n = static_cast<int>(kids.size());
+    double cost = 0;
+    for (std::size_t i = 0; i < patterns; ++i) {
+      const int z = zero_[i], o = one_[i];
+      const unsigned char fixed = own ? (*own)[i] : 3;
+      if (fixed == 3) {
+        const int best = std::max(z, o);
+        out[i] = static_cast<unsigned char>((z == best ? 1 : 0) | (o == best ? 2 : 0));
+        cost += p_.weight[i] * (n - best);
+      } else {
+        out[i] = fixed;
+        cost += p_.weight[i] * (n - (fixed == 1 ? z : o));
+      }
+    }
+    return cost;
+  }
+
+  const PatternSet& p_;
+  std::vector<Set> sets_;
+  std::vector<const Set*> set_of_;
+  std::vector<double> subtree_;
+  std::vector<double> own_;  // the changes at each node
+  std::vector<char> dirty_;
+  std::deque<Set> scratch_;  // trial sets: a deque keeps them in place as it grows
+  std::size_t used_ = 0;
+  std::vector<int> zero_, one_;
+  bool building_ = false;
+};
 
 void Contract(Stemma& s, int n) {
   const int parent = s.nodes[n].parent;
@@ -173,7 +251,7 @@ void Move(Stemma& s, int n, int target) {
 // shortest, until nothing improves. Trying every node instead made the
 // step cost nodes squared times the tree's length (over an hour at 100
 // witnesses with many slips, lineage_bench).
-void Regraft(Stemma& s, const PatternSet& p, double& base, const std::vector<int>& moved) {
+void Regraft(Stemma& s, FitchCache& fitch, double& base, const std::vector<int>& moved) {
   const double eps = 1e-9;
   for (int round = 0; round < 4 && !moved.empty(); ++round) {
     double best = base;
@@ -185,28 +263,31 @@ void Regraft(Stemma& s, const PatternSet& p, double& base, const std::vector<int
         if (!lost || (s.nodes[t].parent < 0 && t != s.root)) continue;
         if (t == s.nodes[n].parent || InSubtree(s, n, t)) continue;
         Stemma trial = s;
+        const int from = s.nodes[n].parent;
         Move(trial, n, t);
-        const double len = Length(trial, p);
+        const double len = fitch.Trial(trial, {from, s.nodes[from].parent, t});
         if (len < best - eps) best = len, best_n = n, best_target = t;
       }
     }
     if (best_n < 0) return;
     Move(s, best_n, best_target);
-    base = best;
+    base = fitch.Build(s);
   }
 }
 
 }  // namespace
 
 double FitchLength(const Stemma& s, const CharacterMatrix& m, const std::vector<double>& weights) {
-  return Length(s, Patterns(m, weights));
+  const PatternSet p = Patterns(m, weights);
+  return FitchCache(p).Build(s);
 }
 
 void KeepSupported(Stemma& s, const CharacterMatrix& m, const std::vector<double>& weights,
                    double min_evidence) {
   const PatternSet p = Patterns(m, weights);
   const double eps = 1e-9;
-  double base = Length(s, p);
+  FitchCache fitch(p);
+  double base = fitch.Build(s);
   std::vector<int> moved;  // the members of the groups contracted
   // The least supported group goes first, one at a time: contracting a
   // group inside another first would make the outer one look weaker than
@@ -220,16 +301,16 @@ void KeepSupported(Stemma& s, const CharacterMatrix& m, const std::vector<double
       if (n == s.root || node.witness || node.parent < 0 || node.children.empty()) continue;
       Stemma trial = s;
       Contract(trial, n);
-      const double len = Length(trial, p);
+      const double len = fitch.Trial(trial, {node.parent});
       if (len < base + min_evidence - eps && (best < 0 || len < best_len))
         best = n, best_len = len, best_trial = std::move(trial);
     }
     if (best < 0) break;
     for (int k : s.nodes[best].children) moved.push_back(k);
     s = std::move(best_trial);
-    base = best_len;
+    base = fitch.Build(s);
   }
-  Regraft(s, p, base, moved);
+  Regraft(s, fitch, base, moved);
   for (int n = 0; n < static_cast<int>(s.nodes.size()); ++n) {
     const auto& node = s.nodes[n];
     if (n == s.root || node.witness || node.parent < 0 || !node.name.empty()) continue;
@@ -237,9 +318,10 @@ void KeepSupported(Stemma& s, const CharacterMatrix& m, const std::vector<double
       if (!s.nodes[k].witness || !s.nodes[k].children.empty() || !MayStandAbove(s, m, k)) continue;
       Stemma trial = s;
       Promote(trial, k);
-      const double len = Length(trial, p);
+      const double len = fitch.Trial(trial, {n});
       if (len <= base + eps) {
         s = std::move(trial);
+        fitch.Build(s);  // `base` stays: each promotion is weighed against the tree regrafted
         break;
       }
     }

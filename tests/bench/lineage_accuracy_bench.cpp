@@ -5,6 +5,11 @@
 // With LINEAGE_BENCH_CACHE=folder each draw's characters are written there
 // as the pipeline built them and read back on later runs (work on the
 // lineage stage alone; stale once anything up to the characters changes).
+// With LINEAGE_BENCH_GROUPS=1 every group of the first stemma is printed as
+// "GROUP true size length characters conflict_weight conflicting" (to see
+// whether the evidence of false groups differs from that of true ones); the
+// verbose output names what a false group holds (contaminated witnesses,
+// correctors).
 // Each draw is synth::DrawTradition(seed, default options): 4 to 15
 // witnesses, one to three tables, lost intermediates, copies of surviving
 // witnesses, contamination, correctors, early prints, modern editions (see
@@ -147,6 +152,36 @@ double Rf(const std::set<Sigla>& truth, const std::set<Sigla>& found) {
   return all ? static_cast<double>(miss + extra) / static_cast<double>(all) : 0;
 }
 
+bool Mixed(const synth::Tradition& t, int node);
+
+// Why a found group is not a true one, for the verbose output: a member is
+// contaminated (and the group without the contaminated members is true or
+// a single witness), or a member corrects against the model.
+std::string FalseGroupCause(const synth::Tradition& t, const std::set<Sigla>& truth,
+                            const Sigla& g) {
+  Sigla rest;
+  std::string mixed, correctors;
+  for (const auto& x : g) {
+    int node = -1;
+    for (int w : t.Surviving())
+      if (t.nodes[static_cast<std::size_t>(w)].name == x) node = w;
+    const bool m = node >= 0 && Mixed(t, node);
+    if (m)
+      mixed += " " + x;
+    else
+      rest.push_back(x);
+    if (node >= 0 &&
+        t.nodes[static_cast<std::size_t>(node)].corrector != synth::CorrectorMode::kNone)
+      correctors += " " + x;
+  }
+  std::string out;
+  if (!mixed.empty())
+    out +=
+        " mixed:" + mixed + (rest.size() <= 1 || truth.count(rest) ? " (group true without)" : "");
+  if (!correctors.empty()) out += " corrector:" + correctors;
+  return out;
+}
+
 void ScoreGroups(const synth::Tradition& t, const lineage::LineageReport& r, Totals& s,
                  bool verbose) {
   std::set<Sigla> found, truth, marked;
@@ -164,12 +199,16 @@ void ScoreGroups(const synth::Tradition& t, const lineage::LineageReport& r, Tot
       std::printf(" } (%s, %d exact, %d some)\n", g.node.c_str(), g.errors_exact, g.errors_some);
     }
   }
+  if (std::getenv("LINEAGE_BENCH_GROUPS") && !r.results.empty())
+    for (const auto& g : r.results.front().groups)
+      std::printf("GROUP %d %zu %.3f %d %.3f %d\n", truth.count(Sorted(g.witnesses)) ? 1 : 0,
+                  g.witnesses.size(), g.length, g.characters, g.conflict_weight, g.conflicting);
   if (verbose)
     for (const auto& g : found)
       if (!truth.count(g)) {
         std::printf("  false {");
         for (const auto& x : g) std::printf(" %s", x.c_str());
-        std::printf(" }\n");
+        std::printf(" }%s\n", FalseGroupCause(t, truth, g).c_str());
       }
   s.true_groups += static_cast<long>(truth.size());
   s.rf_found += Rf(truth, found);
