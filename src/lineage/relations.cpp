@@ -312,6 +312,13 @@ bool Holds(const CharacterMatrix& m, int c, int d) {
   return held >= 2 && lacking * kErrorsPerLackedError <= held;
 }
 
+// d's evidence errors that c reads right (where c can be read).
+int Lacked(const CharacterMatrix& m, int c, int d) {
+  int lacking = 0;
+  for (std::size_t k : ErrorsOf(m, d)) lacking += m.characters[k].states[c] == 0 ? 1 : 0;
+  return lacking;
+}
+
 }  // namespace contamination
 
 using namespace contamination;
@@ -372,7 +379,10 @@ std::vector<Contamination> FindContamination(const CharacterMatrix& m, double mi
     for (std::size_t j = 0; j < found.size(); ++j) {
       if (i != j && Holds(m, who[i], who[j])) from = static_cast<int>(j);
     }
-    if (from >= 0 && !Holds(m, who[from], who[i])) {
+    // Each may hold the other's errors but for a few (a copy may lack one
+    // in kErrorsPerLackedError): the copy is the one lacking fewer.
+    if (from >= 0 && (!Holds(m, who[from], who[i]) ||
+                      Lacked(m, who[i], who[from]) < Lacked(m, who[from], who[i]))) {
       found[from].inherited_by.push_back(found[i].witness);
       continue;
     }
@@ -394,22 +404,36 @@ std::vector<Contamination> FindContamination(const CharacterMatrix& m, double mi
   return kept;
 }
 
+namespace {
+
+// The witness and those it handed its mixture down to (they follow the same
+// exemplars in the same stretches).
+std::vector<std::string> Witnesses(const Contamination& c) {
+  std::vector<std::string> out{c.witness};
+  out.insert(out.end(), c.inherited_by.begin(), c.inherited_by.end());
+  return out;
+}
+
+}  // namespace
+
 CharacterMatrix MaskSecondaryExemplar(const CharacterMatrix& m,
                                       const std::vector<Contamination>& cs) {
   CharacterMatrix out = m;
   for (const auto& c : cs) {
-    const int t = m.TaxonIndex(c.witness);
-    if (t < 0 || c.segments.empty()) continue;
-    for (auto& ch : out.characters) {
-      const ContaminationSegment* nearest = nullptr;
-      int gap = 0;
-      for (const auto& seg : c.segments) {
-        const int d = ch.position < seg.first_position  ? seg.first_position - ch.position
-                      : ch.position > seg.last_position ? ch.position - seg.last_position
-                                                        : 0;
-        if (!nearest || d < gap) nearest = &seg, gap = d;
+    for (const auto& w : Witnesses(c)) {
+      const int t = m.TaxonIndex(w);
+      if (t < 0 || c.segments.empty()) continue;
+      for (auto& ch : out.characters) {
+        const ContaminationSegment* nearest = nullptr;
+        int gap = 0;
+        for (const auto& seg : c.segments) {
+          const int d = ch.position < seg.first_position  ? seg.first_position - ch.position
+                        : ch.position > seg.last_position ? ch.position - seg.last_position
+                                                          : 0;
+          if (!nearest || d < gap) nearest = &seg, gap = d;
+        }
+        if (nearest->relative == c.secondary) ch.states[t] = -1;
       }
-      if (nearest->relative == c.secondary) ch.states[t] = -1;
     }
   }
   return out;

@@ -105,7 +105,8 @@ struct ContaminationSegment {
 /// must not descend from C (hold all its errors). A witness whose
 /// conflicting errors all come from a contaminated witness it descends
 /// from (it holds all that witness's errors) inherits the contamination and
-/// is not flagged again (it may lack one in kErrorsPerLackedError of them),
+/// is not flagged again (it may lack one in kErrorsPerLackedError of them;
+/// when each holds the other's so, the one lacking fewer is the copy),
 /// and neither is a witness that names a contaminated one, with a stronger
 /// mixture, as one of its two relatives (an exemplar of it, or a witness
 /// of the line it changed to). Errors siding with the same relative in
@@ -232,9 +233,10 @@ std::vector<Contamination> FindContamination(const CharacterMatrix& oriented,
                                              double min_evidence = kMinContaminationEvidence,
                                              std::vector<Contamination>* suspected = nullptr);
 
-/// The matrix with each contaminated witness made unknown where it follows
-/// its secondary relative (each character goes with the nearest stretch),
-/// so that the stemma places it by its primary exemplar.
+/// The matrix with each contaminated witness, and each it handed its
+/// mixture down to (Contamination::inherited_by), made unknown where it
+/// follows its secondary relative (each character goes with the nearest
+/// stretch), so that the stemma places it by its primary exemplar.
 CharacterMatrix MaskSecondaryExemplar(const CharacterMatrix& matrix,
                                       const std::vector<Contamination>& contamination);
 

@@ -29,7 +29,9 @@
 //    exemplar is the copy's exemplar or second exemplar; the true copies
 //    are the surviving witnesses whose exemplar survives;
 //  - contaminated witnesses: surviving witnesses with a second exemplar,
-//    or whose lost ancestors up to the first surviving one have one;
+//    or whose ancestors up to the first surviving one (included) have one;
+//    a witness is found when the report calls it contaminated or names it
+//    as one the mixture was handed down to;
 //    *marked* when it still shows three or more slips of the second
 //    exemplar's own line (MarkedMixture);
 //  - correctors: surviving witnesses that check or recompute.
@@ -309,7 +311,11 @@ int VisibleCorrections(const synth::Tradition& t, int c) {
 void ScoreMixtures(const synth::Tradition& t, const lineage::LineageReport& r, Totals& s,
                    bool verbose) {
   std::set<std::string> flagged, corrected;
-  for (const auto& c : r.contamination) flagged.insert(c.witness);
+  for (const auto& c : r.contamination) {
+    flagged.insert(c.witness);
+    // "handed down to": the report tells the mixture of these too.
+    flagged.insert(c.inherited_by.begin(), c.inherited_by.end());
+  }
   for (const auto& c : r.corrections) corrected.insert(c.witness);
   for (int w : t.Surviving()) {
     const auto& n = t.nodes[static_cast<std::size_t>(w)];

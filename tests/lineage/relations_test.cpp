@@ -225,5 +225,46 @@ TEST_CASE("a clean switch of exemplar is called on two slips of the weaker side"
   CHECK(FindContamination(SwitchMatrix(4, false, false)).empty());
 }
 
+// Witnesses C, J, A, D, W. A follows C in rows 10-90 (five errors of C's
+// line) and J in rows 115-195 (five of J's); C and J have five errors of
+// their own each in the other part; D holds all of A's errors and two of
+// its own, so that A, too, holds D's errors but for two (one in five: the
+// tolerance for a copy's lacked errors).
+CharacterMatrix HandedDownMatrix() {
+  CharacterMatrix m;
+  m.taxa = {"C", "J", "A", "D", "W"};
+  for (int k = 0; k < 5; ++k) {
+    m.characters.push_back(At(10 + 20 * k, {1, 0, 1, 1, 0}));
+    m.characters.push_back(At(15 + 20 * k, {0, 1, 0, 0, 0}));
+    m.characters.push_back(At(110 + 20 * k, {1, 0, 0, 0, 0}));
+    m.characters.push_back(At(115 + 20 * k, {0, 1, 1, 1, 0}));
+  }
+  for (int p : {62, 162}) m.characters.push_back(At(p, {0, 0, 0, 1, 0}));
+  for (int p : {42, 102, 182}) m.characters.push_back(At(p, {0, 0, 0, 0, 1}));
+  std::stable_sort(m.characters.begin(), m.characters.end(),
+                   [](const Character& a, const Character& b) { return a.position < b.position; });
+  return m;
+}
+
+TEST_CASE("a mixture handed down to a copy is told once, and the copy follows its exemplar") {
+  const CharacterMatrix m = HandedDownMatrix();
+  const auto found = FindContamination(m);
+  // Each holds the other's errors within the tolerance; D lacks none of
+  // A's, A two of D's: D is the copy, and inherits the mixture.
+  REQUIRE(found.size() == 1);
+  CHECK(found[0].witness == "A");
+  CHECK(found[0].primary == "C");
+  CHECK(found[0].secondary == "J");
+  CHECK(found[0].inherited_by == std::vector<std::string>{"D"});
+  // The copy's readings where the mixture follows J are set aside as its
+  // exemplar's are, not left to pull it towards J.
+  const CharacterMatrix masked = MaskSecondaryExemplar(m, found);
+  for (const auto& ch : masked.characters) {
+    if (ch.position < 110) continue;
+    CHECK(ch.states[2] == -1);
+    CHECK(ch.states[3] == -1);
+  }
+}
+
 }  // namespace
 }  // namespace apograph::lineage

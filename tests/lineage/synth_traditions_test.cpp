@@ -63,7 +63,11 @@ bool Mixed(const synth::Tradition& t, int node) {
 
 void ScoreMixtures(const synth::Tradition& t, const lineage::LineageReport& r, Score& s) {
   std::set<std::string> flagged;
-  for (const auto& c : r.contamination) flagged.insert(c.witness);
+  for (const auto& c : r.contamination) {
+    flagged.insert(c.witness);
+    // "handed down to": the report tells the mixture of these too.
+    flagged.insert(c.inherited_by.begin(), c.inherited_by.end());
+  }
   for (int w : t.Surviving()) {
     const bool mixed = Mixed(t, w), said = flagged.count(t.nodes[w].name) > 0;
     s.mixed += mixed ? 1 : 0;
