@@ -423,7 +423,20 @@ CharacterMatrix MaskSecondaryExemplar(const CharacterMatrix& m,
     for (const auto& w : Witnesses(c)) {
       const int t = m.TaxonIndex(w);
       if (t < 0 || c.segments.empty()) continue;
-      for (auto& ch : out.characters) {
+      // The witness and those that hold its errors (its copies): a reading
+      // only they carry did not come from the second exemplar.
+      std::vector<bool> family(m.taxa.size(), false);
+      for (int x = 0; x < static_cast<int>(m.taxa.size()); ++x)
+        family[static_cast<std::size_t>(x)] = x == t || Holds(m, x, t);
+      for (std::size_t k = 0; k < out.characters.size(); ++k) {
+        auto& ch = out.characters[k];
+        bool own = false;
+        for (std::size_t x = 0; x < m.taxa.size(); ++x) {
+          if (m.characters[k].states[x] != 1) continue;
+          own = family[x];
+          if (!own) break;
+        }
+        if (own) continue;
         const ContaminationSegment* nearest = nullptr;
         int gap = 0;
         for (const auto& seg : c.segments) {

@@ -236,7 +236,13 @@ std::vector<Contamination> FindContamination(const CharacterMatrix& oriented,
 /// The matrix with each contaminated witness, and each it handed its
 /// mixture down to (Contamination::inherited_by), made unknown where it
 /// follows its secondary relative (each character goes with the nearest
-/// stretch), so that the stemma places it by its primary exemplar.
+/// stretch), so that the stemma places it by its primary exemplar. Kept
+/// there: the readings of characters whose every carrier is the witness or
+/// one holding its errors (its own errors and its copies'), which did not
+/// come from the second exemplar and tell a copy from a twin. Measured on
+/// the lineage benchmark (cached characters, fifteenth round): copies
+/// right 90 -> 91 of 123 (1-53), 42 -> 44 of 60 (101-130), wrong claims 14
+/// -> 13 (131-200).
 CharacterMatrix MaskSecondaryExemplar(const CharacterMatrix& matrix,
                                       const std::vector<Contamination>& contamination);
 

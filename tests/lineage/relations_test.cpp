@@ -257,10 +257,17 @@ TEST_CASE("a mixture handed down to a copy is told once, and the copy follows it
   CHECK(found[0].secondary == "J");
   CHECK(found[0].inherited_by == std::vector<std::string>{"D"});
   // The copy's readings where the mixture follows J are set aside as its
-  // exemplar's are, not left to pull it towards J.
+  // exemplar's are, not left to pull it towards J; but not D's own error
+  // in that part (row 162), which says that D is A's copy and not its twin.
   const CharacterMatrix masked = MaskSecondaryExemplar(m, found);
   for (const auto& ch : masked.characters) {
+    CAPTURE(ch.position);
     if (ch.position < 110) continue;
+    if (ch.position == 162) {
+      CHECK(ch.states[2] == 0);
+      CHECK(ch.states[3] == 1);
+      continue;
+    }
     CHECK(ch.states[2] == -1);
     CHECK(ch.states[3] == -1);
   }
