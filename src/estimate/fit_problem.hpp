@@ -47,6 +47,9 @@ class FitProblem {
   static bool IsStructural(const model::ParamSpec& spec) {
     return spec.role == model::ParamRole::kModulus;
   }
+  /// The value of a model parameter the options hold (for a free one, the
+  /// value of the last vector expanded).
+  double Held(std::size_t model_index) const { return full_[model_index]; }
   /// Full model parameter vector for a free vector.
   const std::vector<double>& Expand(const double* x);
   double Displacement(const double* x) const;

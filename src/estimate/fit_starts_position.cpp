@@ -257,13 +257,14 @@ constexpr double kScanRadii[] = {3, 6, 9, 12, 16, 20, 25, 30, 35, 40, 45};
 /// score (steps from half the scan's down to 1/128 of them).
 void RefineGuess(const std::vector<double>& t, const std::vector<double>& u,
                  const std::vector<std::size_t>& rows, double low, double high, double step,
-                 const std::function<double(double)>& rate_of, EpicycleGuess& q) {
+                 const std::function<double(double)>& rate_of, bool held_r, EpicycleGuess& q) {
   std::vector<double> y(rows.size());
   double df = step / 2, dr = 2, dg = 5;
   for (int round = 0; round < 7; ++round, df /= 2, dr /= 2, dg /= 2) {
     for (int pass = 0; pass < 3; ++pass) {
       bool moved = false;
       for (int j = 0; j < 3; ++j) {
+        if (j == 1 && held_r) continue;
         for (double dir : {1.0, -1.0}) {
           EpicycleGuess x = q;
           (j == 0 ? x.f : j == 1 ? x.r : x.g) += dir * (j == 0 ? df : j == 1 ? dr : dg);
@@ -282,10 +283,14 @@ void RefineGuess(const std::vector<double>& t, const std::vector<double>& u,
 /// (steps of 10 degrees), each refined: the planet itself computed (no
 /// eccentricity), not a harmonic, since a large epicycle's equation is far
 /// from one harmonic, and over a span shorter than its period a harmonic
-/// of almost any rate follows the entries.
+/// of almost any rate follows the entries. A radius the fit holds (`held_r`,
+/// NaN when free) is the only one tried: the rates and the anomaly that go
+/// with it lie elsewhere on the ridge than those of the nearest radius of
+/// the scan.
 std::vector<EpicycleGuess> ScanEpicycle(const std::vector<double>& t, const std::vector<double>& u,
                                         double low, double high,
-                                        const std::function<double(double)>& rate_of) {
+                                        const std::function<double(double)>& rate_of,
+                                        double held_r) {
   const double span = std::max(t.back() - t.front(), 1.0);
   const double step = std::max(5.0 / span, (high - low) / 150);
   const std::vector<std::size_t> rows = Spread(t.size(), 40);
@@ -293,7 +298,9 @@ std::vector<EpicycleGuess> ScanEpicycle(const std::vector<double>& t, const std:
   std::vector<EpicycleGuess> best;  // the best at each rate
   for (double f = std::max(low, step / 2); f <= high; f += step) {
     EpicycleGuess b;
-    for (double r : kScanRadii) {
+    const bool held = std::isfinite(held_r);
+    for (double r : held ? std::vector<double>{held_r}
+                         : std::vector<double>(std::begin(kScanRadii), std::end(kScanRadii))) {
       for (double g = 0; g < 360; g += 10) {
         EpicycleGuess q{f, r, g};
         if (ScoreEpicycle(t, u, rows, rate_of(f), q, y) < b.score) b = q;
@@ -306,7 +313,8 @@ std::vector<EpicycleGuess> ScanEpicycle(const std::vector<double>& t, const std:
   };
   std::sort(best.begin(), best.end(), by_score);
   if (best.size() > 3) best.resize(3);
-  for (EpicycleGuess& b : best) RefineGuess(t, u, rows, low, high, step, rate_of, b);
+  for (EpicycleGuess& b : best)
+    RefineGuess(t, u, rows, low, high, step, rate_of, std::isfinite(held_r), b);
   std::sort(best.begin(), best.end(), by_score);
   return best;
 }
@@ -323,6 +331,16 @@ std::vector<double> GuessStart(const model::Model& model, const FitProblem& prob
   SetRole(model, problem, x, model::ParamRole::kAnomalyRate, q.f);
   SetRole(model, problem, x, model::ParamRole::kAnomalyRadix, Wrap360(q.g - q.f * t0));
   return x;
+}
+
+/// The epicycle's radius when the fit holds it, else NaN.
+double HeldRadius(const model::Model& m, const FitProblem& p) {
+  const int i = m.ParamIndex("r");
+  if (i < 0) return NAN;
+  for (int j = 0; j < p.num_free(); ++j) {
+    if (p.ModelIndex(j) == i) return NAN;
+  }
+  return p.Held(static_cast<std::size_t>(i));
 }
 
 /// Starts for a planet with its rates tied as the planetary models tie them
@@ -373,7 +391,8 @@ std::vector<std::vector<double>> TiedStarts(const model::Model& model, const Fit
     SetRole(model, problem, y, model::ParamRole::kAnomalyRadix, g0);
     out.push_back(std::move(y));
     // The two best of the scan computing the planet (see ScanEpicycle).
-    const auto guesses = ScanEpicycle(t, u, shape.low, inner ? shape.high : kMeanSun, rate_of);
+    const auto guesses = ScanEpicycle(t, u, shape.low, inner ? shape.high : kMeanSun, rate_of,
+                                      HeldRadius(model, problem));
     for (std::size_t k = 0; k < guesses.size() && k < 2; ++k)
       out.push_back(GuessStart(model, problem, shape, x, t0, rate_of(guesses[k].f), guesses[k]));
   }

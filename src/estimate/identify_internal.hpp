@@ -184,6 +184,17 @@ std::optional<Pair> AdoptCombination(const Candidate& best, const Transcription&
                                      const std::vector<Observation>& obs,
                                      const std::vector<CatalogEntry>* catalog);
 
+/// For a table of positions whose parameters the entries leave on a ridge
+/// (some not separable): the attested values one tradition gives for two of
+/// the model's own parameters (a planet's epicycle and eccentricity; also
+/// with the eccentricity at 0), held together with the motions searched
+/// afresh; of the sets that keep the fit's entries, those with a value
+/// held at 0 first (the simpler geometry), then the one that reproduces
+/// most entries exactly (round_sets.cpp).
+std::optional<Pair> AdoptAttestedSet(const Candidate& best, const Transcription& table,
+                                     const std::vector<Observation>& obs,
+                                     const std::vector<CatalogEntry>* catalog);
+
 /// The value written in the column's heading for the parameter the
 /// table's second argument names (a latitude above a column of ascensional
 /// differences), as a trial; nullopt when none is written (round_pairs.cpp).

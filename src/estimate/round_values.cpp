@@ -17,7 +17,11 @@
 // are two the entries fix only in a combination (AdoptCombination: r and e
 // at the epicycle's greatest distance); a combination of an equivalent
 // model's simple values is as simple as a whole number (an epicycle at mean
-// distance of radius 60 r/(60 + e), round_equivalents.cpp).
+// distance of radius 60 r/(60 + e), round_equivalents.cpp). A table of
+// positions left on a ridge takes one tradition's attested geometry as a
+// set (a planet's epicycle and eccentricity, AdoptAttestedSet,
+// round_sets.cpp), its motions searched afresh under it, before the others
+// are adopted one at a time from there.
 #include <algorithm>
 #include <cmath>
 #include <map>
@@ -227,6 +231,8 @@ std::optional<Adoption> AdoptRoundValues(const Candidate& best, const Transcript
   };
   std::optional<Pair> pair = AdoptJointly(best, table, obs, places, catalog);
   if (!pair) pair = AdoptCombination(best, table, obs, catalog);
+  bool set = false;
+  if (!pair) set = (pair = AdoptAttestedSet(best, table, obs, catalog)).has_value();
   if (pair) {
     for (const auto& [t, j] :
          {std::pair{pair->first, pair->first_index}, std::pair{pair->second, pair->second_index}}) {
@@ -235,7 +241,8 @@ std::optional<Adoption> AdoptRoundValues(const Candidate& best, const Transcript
       a.values.push_back({p.name, t.value, p.value, p.stderr_, t.source});
     }
     current = std::move(pair->fit);
-  } else {
+  }
+  if (!pair || set) {
     // Whole values of every parameter first, then each parameter's trials
     // in turn: a rate held at a rounding of three places the entries cannot
     // tell from the author's four made the others make up the difference,
@@ -247,8 +254,12 @@ std::optional<Adoption> AdoptRoundValues(const Candidate& best, const Transcript
     // 0;59,8,17).
     for (const bool whole_only : {true, false}) {
       for (std::size_t j = 0; j < specs.size() && j < best.fit.params.size(); ++j) {
-        const auto& p = best.fit.params[j];
-        if (!p.fixed && !fixed.count(p.name))
+        // Under a set of values held together (AdoptAttestedSet) the
+        // others are rounded from where they were refitted under it: the
+        // free estimate lies elsewhere along the ridge.
+        const FittedParam p =
+            set ? current.params[j] : best.fit.params[j];  // a copy: consider moves current
+        if (!best.fit.params[j].fixed && !fixed.count(p.name))
           consider(p.name, p.value, p.stderr_, &specs[j], whole_only);
       }
     }
