@@ -1,8 +1,9 @@
 -- 014: the cells of a revision in one database row (revision_cells), not
 -- one row per table row (cell_row, which this migration empties into it and
--- drops). The views `cell`, `cell_mark`, `current_cell` and `row_argument`
--- keep their columns and results; only `cell` is made anew, to unpack the
--- new table.
+-- drops), beside the arguments its rows stand for (revision_argument of
+-- 013, likewise moved in and dropped). The views `cell`, `cell_mark`,
+-- `current_cell` and `row_argument` keep their columns and results; `cell`
+-- and `row_argument` are made anew to read the new table.
 --
 -- revision_cells.rows is a JSON array with one element per table row in
 -- reading order (the element's index is the row_index of the view `cell`).
@@ -13,36 +14,48 @@
 --   Example of a revision of two rows of two columns:
 --     [[12,["7",1],["0;4,10",5],["0 4 10",14,{"value":"0;4,10"}]],
 --      [13,["8",1],["0;4,20",5],["?",14,{"state":"illegible","doubtful":1}]]]
--- Every revision has its row here, '[]' when it has no rows.
+-- Every revision has its row here, rows '[]' when it has no rows.
+-- revision_cells.arguments: the argument each row stands for
+-- (Transcription::ArgumentInUse: the written one when it fits its
+-- neighbours, repaired when miscopied), a JSON array with one element per
+-- row, in trade notation or null: `["7","8"]`. NULL for a revision imported
+-- before 013, which recorded none (apograph fills it in when it needs it;
+-- meanwhile the view row_argument gives the written argument).
 --
 -- Why one row per revision: an import of 1,000 sheets of 360 rows spent
--- about 40% of its time in SQLite inserting one B-tree entry per table row
--- (perf; DEVELOPERS.md, issue 15). A revision's text now goes into a single
--- entry and its overflow pages, and is read back the same way. The database
--- checks the key, the revision and that `rows` opens an array; the program
--- validates every cell before writing it and refuses malformed text when
--- reading it, as the view does.
+-- about 40% of its time in SQLite inserting one B-tree entry per table row,
+-- and another 15% inserting each revision's arguments apart (perf;
+-- DEVELOPERS.md, issue 15). A revision's text now goes into a single entry
+-- and its overflow pages, and is read back the same way. The database checks
+-- the key, the revision and that `rows` and `arguments` open an array; the
+-- program validates every cell before writing it and refuses malformed text
+-- when reading it, as the view does.
 CREATE TABLE revision_cells (
   revision_id  INTEGER PRIMARY KEY REFERENCES revision(id),
-  rows         TEXT NOT NULL CHECK (substr(rows, 1, 1) = '[')
+  rows         TEXT NOT NULL CHECK (substr(rows, 1, 1) = '['),
+  arguments    TEXT CHECK (arguments IS NULL OR substr(arguments, 1, 1) = '[')
 );
 
 -- Existing revisions move in, their rows in row_index order (the scan of
 -- cell_row's primary key (revision_id, row_index) gives that order).
-INSERT INTO revision_cells (revision_id, rows)
-  SELECT revision_id, '[' || group_concat(packed, ',') || ']'
+INSERT INTO revision_cells (revision_id, rows, arguments)
+  SELECT revision_id, '[' || group_concat(packed, ',') || ']',
+         (SELECT a.arguments FROM revision_argument a WHERE a.revision_id = p.revision_id)
   FROM (SELECT revision_id, row_index,
                '[' || line ||
                CASE WHEN ltrim(substr(cells, 2), char(32, 9, 10, 13)) LIKE ']%' THEN ']'
                     ELSE ',' || substr(cells, 2) END AS packed
         FROM cell_row
-        ORDER BY revision_id, row_index)
+        ORDER BY revision_id, row_index) p
   GROUP BY revision_id;
-INSERT INTO revision_cells (revision_id, rows)
-  SELECT id, '[]' FROM revision WHERE id NOT IN (SELECT revision_id FROM revision_cells);
+INSERT INTO revision_cells (revision_id, rows, arguments)
+  SELECT id, '[]', (SELECT a.arguments FROM revision_argument a WHERE a.revision_id = r.id)
+  FROM revision r WHERE id NOT IN (SELECT revision_id FROM revision_cells);
 
+DROP VIEW row_argument;
 DROP VIEW cell;
 DROP TABLE cell_row;
+DROP TABLE revision_argument;
 
 -- Every cell of every revision, one line per cell, unpacked from
 -- revision_cells: the same columns and values as 001 made it (see there).
@@ -82,3 +95,16 @@ CREATE VIEW cell AS
     -- SQLite may unpack the rows once per column)
     CROSS JOIN layout_column lc ON lc.revision_id = rc.revision_id AND lc.position = j.key - 2
   ) u;
+
+-- One row per row of every revision with its argument in trade notation
+-- (as 013 made it). Revisions imported before 013 have no stored arguments:
+-- their written argument stands in.
+CREATE VIEW row_argument AS
+  SELECT rc.revision_id, j.key AS row_index, j.value AS argument
+  FROM revision_cells rc
+  JOIN json_each(rc.arguments) j
+  UNION ALL
+  SELECT c.revision_id, c.row_index, c.raw AS argument
+  FROM cell c
+  WHERE c.col = -1
+    AND c.revision_id IN (SELECT revision_id FROM revision_cells WHERE arguments IS NULL);

@@ -140,6 +140,23 @@ void AppendRowJson(std::string& out, const Transcription& t, const Row& row) {
   out += ']';
 }
 
+void EncodeRowArguments(std::string& out, const Transcription& t) {
+  out.clear();
+  out += '[';
+  char text[kValueTextSize];
+  for (std::size_t r = 0; r < t.rows.size(); ++r) {
+    if (r) out += ',';
+    if (const auto argument = t.ArgumentInUse(r)) {
+      out += '"';
+      out += FormatValue(*argument, text);  // canonical notation: nothing to escape
+      out += '"';
+    } else {
+      out += "null";
+    }
+  }
+  out += ']';
+}
+
 void EncodeRevisionRows(std::string& out, const Transcription& t) {
   out.clear();
   out += '[';

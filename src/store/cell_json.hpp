@@ -29,6 +29,11 @@ void AppendRowJson(std::string& out, const Transcription& t, const Row& row);
 /// of `revision_cells.rows`.
 void EncodeRevisionRows(std::string& out, const Transcription& t);
 
+/// Replaces `out` with the JSON array of the argument each row of `t`
+/// stands for (Transcription::ArgumentInUse), in trade notation or null:
+/// the text of `revision_cells.arguments`.
+void EncodeRowArguments(std::string& out, const Transcription& t);
+
 /// The reverse of EncodeRevisionRows (in cell_decode.cpp): appends the rows
 /// of `json` to `t.rows`, with the places of the columns of `t` and each
 /// row's line as defaults. Also reads what the view `cell` accepts (any

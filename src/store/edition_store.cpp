@@ -5,7 +5,6 @@
 
 #include "edition/names.hpp"
 #include "store/cell_writer.hpp"
-#include "store/decision_store.hpp"
 #include "store/import_session.hpp"
 
 namespace apograph::store {
@@ -313,8 +312,8 @@ TableImport Writer::Write(const Transcription& t, ImportResult& result) {
 
   const std::int64_t revision = InsertRevision(t, d, transcription, current + 1);
   InsertLayout(t, revision);
+  // The cells, and what the views call a row's argument.
   const std::int64_t written = cells_.Write(revision, t);
-  RecordRowArguments(db_, revision, t);  // what the views call a row's argument
   result.cells_written += static_cast<std::size_t>(written);
   out.revision = current + 1;
   out.changed = true;

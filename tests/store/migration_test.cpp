@@ -8,6 +8,7 @@
 #include <string>
 #include <vector>
 
+#include "store/decision_store.hpp"
 #include "store/edition_store.hpp"
 #include "store/schema.hpp"
 #include "store_test_util.hpp"
@@ -88,8 +89,9 @@ std::vector<std::vector<Transcription>> Imports() {
 }
 
 /// A database at schema `version` as an older apograph left it, holding
-/// what `source` holds (written by this apograph), its cells one row of
-/// `cell_row` per table row as schema 001 stored them.
+/// what `source` holds (written by this apograph): its cells one row of
+/// `cell_row` per table row as schema 001 stored them, its row arguments in
+/// `revision_argument` as 013 did, except revision 2's.
 void WriteOldDatabase(const std::string& path, int version, const std::string& source) {
   RawDb old(path);
   for (const auto& m : store::Migrations()) {
@@ -97,14 +99,18 @@ void WriteOldDatabase(const std::string& path, int version, const std::string& s
   }
   old.Execute("PRAGMA user_version = " + std::to_string(version));
   old.Execute("ATTACH '" + source + "' AS src");
-  for (const char* table : {"work", "edition_table", "witness", "transcription", "revision",
-                            "layout_column", "revision_argument"}) {
+  for (const char* table :
+       {"work", "edition_table", "witness", "transcription", "revision", "layout_column"}) {
     old.Execute(std::string("INSERT INTO ") + table + " SELECT * FROM src." + table);
   }
   old.Execute(
       "INSERT INTO cell_row(revision_id, row_index, line, cells) "
       "SELECT c.revision_id, r.key, r.value ->> 0, json_remove(r.value, '$[0]') "
       "FROM src.revision_cells c JOIN json_each(c.rows) r");
+  // Revision 2 as imported before schema 013 kept row arguments: none.
+  old.Execute(
+      "INSERT INTO revision_argument(revision_id, arguments) "
+      "SELECT revision_id, arguments FROM src.revision_cells WHERE revision_id <> 2");
   old.Execute("DETACH src");
 }
 
@@ -155,10 +161,25 @@ TEST_CASE(
       CHECK(got.SameContent(want));
     }
   }
+  {
+    RawDb migrated(old_file.path());
+    CHECK(Views(migrated) == before);
+    CHECK(migrated.Rows("SELECT revision_id FROM revision_cells WHERE arguments IS NULL") ==
+          std::vector<std::string>{"2"});
+  }
+  {
+    // Revision 2's arguments, filled in when needed, are those an import writes.
+    Database db(old_file.path());
+    store::FillRowArguments(db, "sun-eq");
+  }
   RawDb migrated(old_file.path());
-  CHECK(Views(migrated) == before);
-  CHECK(migrated.Rows("SELECT count(*) FROM sqlite_schema WHERE name = 'cell_row'") ==
-        std::vector<std::string>{"0"});
+  migrated.Execute("ATTACH '" + source_file.path() + "' AS src");
+  CHECK(migrated.Rows("SELECT count(*) FROM revision_cells a JOIN src.revision_cells b "
+                      "USING (revision_id) WHERE a.arguments IS b.arguments") ==
+        migrated.Rows("SELECT count(*) FROM src.revision_cells"));
+  migrated.Execute("DETACH src");
+  CHECK(migrated.Rows("SELECT count(*) FROM sqlite_schema WHERE name = 'cell_row' "
+                      "OR name = 'revision_argument'") == std::vector<std::string>{"0"});
   // One row per revision, the revision without rows included.
   CHECK(migrated.Rows("SELECT count(*) = (SELECT count(*) FROM revision) FROM revision_cells") ==
         std::vector<std::string>{"1"});
@@ -176,6 +197,8 @@ TEST_CASE("an import writes one database row of cells per revision, whatever its
   const auto revisions = db.Rows("SELECT count(*) FROM revision");
   CHECK(db.Rows("SELECT count(*) FROM revision_cells") == revisions);
   CHECK(db.Rows("SELECT count(*) FROM revision r JOIN revision_cells c ON c.revision_id = r.id "
-                "WHERE json_array_length(c.rows) <> r.row_count") == std::vector<std::string>{"0"});
+                "WHERE json_array_length(c.rows) <> r.row_count "
+                "OR json_array_length(c.arguments) <> r.row_count") ==
+        std::vector<std::string>{"0"});
   CHECK(db.Rows("SELECT sum(row_count) > 1000 FROM revision") == std::vector<std::string>{"1"});
 }
