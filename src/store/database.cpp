@@ -301,4 +301,24 @@ void Transaction::Commit() {
   done_ = true;
 }
 
+ReadTransaction::ReadTransaction(Database& db) : db_(db) {
+  if (db_.InTransaction()) return;
+  db_.Prepare("BEGIN").Run();
+  open_ = true;
+}
+
+ReadTransaction::~ReadTransaction() {
+  if (!open_) return;
+  try {
+    db_.Prepare("ROLLBACK").Run();  // nothing was written: ROLLBACK and COMMIT both just unlock
+  } catch (const StoreError&) {     // a destructor must not throw; the outer step reports
+  }
+}
+
+void ReadTransaction::End() {
+  if (!open_) return;
+  open_ = false;
+  db_.Prepare("COMMIT").Run();
+}
+
 }  // namespace apograph::store

@@ -125,17 +125,21 @@ RevisionSummary ReadRevisionSummary(const Statement& s) {
 
 Transcription Load(Database& db, const std::string& table_id, const std::string& siglum,
                    std::optional<int> revision) {
+  ReadTransaction read(db);  // one lock for the four statements, one consistent revision
   const RevisionKey key = FindRevision(db, table_id, siglum, revision);
   Transcription t;
   const std::int64_t rows = LoadMetadata(db, key.id, t);
   LoadLayout(db, key.id, t);
   LoadCells(db, key.id, rows, t);
+  read.End();
   return t;
 }
 
 std::vector<Transcription> LoadTable(Database& db, const std::string& table_id) {
+  ReadTransaction read(db);
   std::vector<Transcription> out;
   for (const auto& siglum : Sigla(db, table_id)) out.push_back(Load(db, table_id, siglum));
+  read.End();
   return out;
 }
 
