@@ -148,3 +148,11 @@ TEST_CASE("a read transaction holds one view across statements until it ends") {
   REQUIRE(total.Step());
   CHECK(total.Int(0) == 1 + 9 + 9 + 2);
 }
+
+TEST_CASE("a connection keeps at most 4 MiB of page cache (an import reuses its buffers)") {
+  apograph::testing::ScratchDir dir("cache-size");
+  store::Database db((dir / "c.sqlite").string());
+  auto s = db.Prepare("PRAGMA cache_size");
+  REQUIRE(s.Step());
+  CHECK(s.Int(0) == -4096);  // negative: KiB (database.cpp says why this size)
+}
