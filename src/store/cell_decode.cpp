@@ -1,10 +1,12 @@
-// Reading `cell_row.cells` back (DecodeRowCells in cell_json.hpp): a small
-// strict JSON reader for the encoding documented in schema/001_edition.sql.
+// Reading `revision_cells.rows` back (DecodeRevisionRows in cell_json.hpp): a small
+// strict JSON reader for the encoding documented in schema/014_revision_cells.sql
+// and 001_edition.sql.
 // Bytes inside strings are copied as they are (only escapes are decoded),
 // so a reading comes back byte for byte as it was imported.
 #include "store/cell_json.hpp"
 
 #include <charconv>
+#include <limits>
 
 #include "store/database.hpp"
 
@@ -16,9 +18,11 @@ class Reader {
   explicit Reader(std::string_view text) : text_(text) {}
 
   [[noreturn]] void Fail(const char* expected) const {
-    throw StoreError("the database holds a row of cells it cannot read (expected " +
-                     std::string(expected) + " at byte " + std::to_string(pos_) + " of '" +
-                     std::string(text_.substr(0, 200)) + "')");
+    // A revision's text runs to many kilobytes: quote what surrounds the fault.
+    const std::size_t from = pos_ > 80 ? pos_ - 80 : 0;
+    throw StoreError("the database holds rows of cells it cannot read (expected " +
+                     std::string(expected) + " at byte " + std::to_string(pos_) + ", near '" +
+                     std::string(text_.substr(from, 160)) + "')");
   }
   void SkipSpace() {
     while (pos_ < text_.size() && (text_[pos_] == ' ' || text_[pos_] == '\n' ||
@@ -200,21 +204,36 @@ Cell ReadCell(Reader& in, int column_places, int row_line) {
   return c;
 }
 
-}  // namespace
-
-void DecodeRowCells(std::string_view json, const Transcription& t, int row_line, Row& row) {
-  Reader in(json);
-  in.Expect('[', "an array of cells");
-  row.line = row_line;
-  row.argument = ReadCell(in, t.argument.places, row_line);
-  row.cells.clear();
+/// One row, `[line,argument,cell,...]`, appended to `t.rows`.
+void ReadRow(Reader& in, Transcription& t) {
+  in.Expect('[', "a row");
+  const auto line = in.Integer();
+  if (line < 0 || line > std::numeric_limits<int>::max()) in.Fail("a line of 0 or more");
+  Row& row = t.rows.emplace_back();
+  row.line = static_cast<int>(line);
+  in.Expect(',', "a comma");
+  row.argument = ReadCell(in, t.argument.places, row.line);
   row.cells.reserve(t.columns.size());
   while (in.Take(',')) {
     if (row.cells.size() == t.columns.size()) in.Fail("one cell per column");
-    row.cells.push_back(ReadCell(in, t.columns[row.cells.size()].places, row_line));
+    row.cells.push_back(ReadCell(in, t.columns[row.cells.size()].places, row.line));
   }
   in.Expect(']', "the end of the row");
-  if (!in.AtEnd() || row.cells.size() != t.columns.size()) in.Fail("one cell per column");
+  if (row.cells.size() != t.columns.size()) in.Fail("one cell per column");
+}
+
+}  // namespace
+
+void DecodeRevisionRows(std::string_view json, Transcription& t) {
+  Reader in(json);
+  in.Expect('[', "an array of rows");
+  if (!in.Take(']')) {
+    do {
+      ReadRow(in, t);
+    } while (in.Take(','));
+    in.Expect(']', "the end of the rows");
+  }
+  if (!in.AtEnd()) in.Fail("the end of the text");
 }
 
 }  // namespace apograph::store

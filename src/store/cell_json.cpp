@@ -127,14 +127,42 @@ void AppendCellJson(std::string& out, const Cell& c, int column_places, int row_
   out += ']';
 }
 
-void EncodeRowCells(std::string& out, const Transcription& t, const Row& row) {
-  out.clear();
+void AppendRowJson(std::string& out, const Transcription& t, const Row& row) {
   const int line = row.argument.line;
   out += '[';
+  AppendInt(out, line);
+  out += ',';
   AppendCellJson(out, row.argument, t.argument.places, line);
   for (std::size_t k = 0; k < row.cells.size(); ++k) {
     out += ',';
     AppendCellJson(out, row.cells[k], t.columns[k].places, line);
+  }
+  out += ']';
+}
+
+void EncodeRowArguments(std::string& out, const Transcription& t) {
+  out.clear();
+  out += '[';
+  char text[kValueTextSize];
+  for (std::size_t r = 0; r < t.rows.size(); ++r) {
+    if (r) out += ',';
+    if (const auto argument = t.ArgumentInUse(r)) {
+      out += '"';
+      out += FormatValue(*argument, text);  // canonical notation: nothing to escape
+      out += '"';
+    } else {
+      out += "null";
+    }
+  }
+  out += ']';
+}
+
+void EncodeRevisionRows(std::string& out, const Transcription& t) {
+  out.clear();
+  out += '[';
+  for (std::size_t r = 0; r < t.rows.size(); ++r) {
+    if (r) out += ',';
+    AppendRowJson(out, t, t.rows[r]);
   }
   out += ']';
 }

@@ -1,8 +1,9 @@
 #pragma once
-/// Internal to the store: the JSON encoding of one table row's cells in the
-/// column `cell_row.cells` (documented in schema/001_edition.sql, unpacked by
-/// the view `cell`). Written without allocating once the buffer has grown:
-/// the import encodes a million cells a second.
+/// Internal to the store: the JSON encoding of a revision's cells in the
+/// column `revision_cells.rows` (documented in schema/014_revision_cells.sql
+/// and 001_edition.sql, unpacked by the view `cell`). Written without
+/// allocating once the buffer has grown: the import encodes a million cells
+/// a second.
 
 #include <string>
 #include <string_view>
@@ -20,14 +21,23 @@ void AppendJsonString(std::string& out, std::string_view text);
 /// `row_line` and has no marks; otherwise `[raw,col,{...}]` with what differs.
 void AppendCellJson(std::string& out, const Cell& cell, int column_places, int row_line);
 
-/// Replaces `out` with the JSON array of a row of `t`: its argument, then its
-/// cells in column order. The row's line is its argument's line.
-void EncodeRowCells(std::string& out, const Transcription& t, const Row& row);
+/// Appends one row of `t`: `[line,argument,cell,...]`, its line (its
+/// argument's line), its argument, then its cells in column order.
+void AppendRowJson(std::string& out, const Transcription& t, const Row& row);
 
-/// The reverse of EncodeRowCells (in cell_decode.cpp): fills `row` from the
-/// JSON of one cell_row, with the places of the columns of `t` and the row's
-/// line as defaults. Also reads what the view `cell` accepts (any JSON
-/// spacing and escapes). Throws StoreError on anything else.
-void DecodeRowCells(std::string_view json, const Transcription& t, int row_line, Row& row);
+/// Replaces `out` with the JSON array of every row of `t` in order: the text
+/// of `revision_cells.rows`.
+void EncodeRevisionRows(std::string& out, const Transcription& t);
+
+/// Replaces `out` with the JSON array of the argument each row of `t`
+/// stands for (Transcription::ArgumentInUse), in trade notation or null:
+/// the text of `revision_cells.arguments`.
+void EncodeRowArguments(std::string& out, const Transcription& t);
+
+/// The reverse of EncodeRevisionRows (in cell_decode.cpp): appends the rows
+/// of `json` to `t.rows`, with the places of the columns of `t` and each
+/// row's line as defaults. Also reads what the view `cell` accepts (any
+/// JSON spacing and escapes). Throws StoreError on anything else.
+void DecodeRevisionRows(std::string_view json, Transcription& t);
 
 }  // namespace apograph::store

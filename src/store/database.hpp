@@ -141,4 +141,26 @@ class Transaction {
   std::string savepoint_;  ///< empty for the outermost transaction
 };
 
+/// Several reads as one consistent view of the database: BEGIN (deferred:
+/// the first read takes the shared lock) unless a transaction is open
+/// already, in which case it does nothing. End() or the destructor ends it.
+/// Why: outside a transaction every statement takes and drops the file lock
+/// and revalidates the page cache; loading a transcription runs four
+/// statements, and a batch over thousands of tables spent about 7% of its
+/// time doing that (perf of `fit --all`, DEVELOPERS.md issue 15).
+class ReadTransaction {
+ public:
+  explicit ReadTransaction(Database& db);
+  ~ReadTransaction();
+  ReadTransaction(const ReadTransaction&) = delete;
+  ReadTransaction& operator=(const ReadTransaction&) = delete;
+  /// Ends the read transaction (if this object opened it): the lock is
+  /// dropped and later reads see what others have committed since.
+  void End();
+
+ private:
+  Database& db_;
+  bool open_ = false;
+};
+
 }  // namespace apograph::store

@@ -2,6 +2,7 @@
 
 #include <map>
 
+#include "store/cell_json.hpp"
 #include "store/edition_store.hpp"
 
 namespace apograph::store {
@@ -112,29 +113,17 @@ void MirrorEmendationStatus(Database& db, std::int64_t emendation_id, const std:
 }
 
 void RecordRowArguments(Database& db, std::int64_t revision_id, const Transcription& t) {
-  std::string json = "[";
-  json.reserve(t.rows.size() * 12);
-  for (std::size_t r = 0; r < t.rows.size(); ++r) {
-    if (r) json += ',';
-    if (const auto arg = t.ArgumentInUse(r)) {
-      json += '"';
-      json += arg->ToString();
-      json += '"';
-    } else {
-      json += "null";
-    }
-  }
-  json += ']';
-  auto s = db.Prepare(
-      "INSERT OR REPLACE INTO revision_argument (revision_id, arguments) VALUES (?1, ?2)");
+  std::string json;
+  EncodeRowArguments(json, t);
+  auto s = db.Prepare("UPDATE revision_cells SET arguments = ?2 WHERE revision_id = ?1");
   s.Bind(1, revision_id).Bind(2, json).Run();
 }
 
 void FillRowArguments(Database& db, const std::string& table_id) {
   auto s = db.Prepare(
       "SELECT r.id, t.siglum, r.number FROM revision r JOIN transcription t ON t.id = "
-      "r.transcription_id WHERE t.table_id = ?1 AND r.id NOT IN (SELECT revision_id FROM "
-      "revision_argument)");
+      "r.transcription_id WHERE t.table_id = ?1 AND r.id IN (SELECT revision_id FROM "
+      "revision_cells WHERE arguments IS NULL)");
   s.Bind(1, table_id);
   struct Missing {
     std::int64_t id;

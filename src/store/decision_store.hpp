@@ -60,11 +60,12 @@ void MirrorEmendationStatus(Database& db, std::int64_t emendation_id, const std:
                             const std::optional<std::string>& decided_at, const std::string& note);
 
 /// Stores the argument each row of a revision stands for
-/// (Transcription::ArgumentInUse), for the view row_argument.
+/// (Transcription::ArgumentInUse), for the view row_argument, in place of
+/// what it holds (the import writes them with the cells: see CellWriter).
 void RecordRowArguments(Database& db, std::int64_t revision_id, const Transcription& t);
 
 /// Stores the row arguments of every revision of a table imported before
-/// they were kept (schema 010), so its views see repaired arguments too.
+/// they were kept (schema 013), so its views see repaired arguments too.
 void FillRowArguments(Database& db, const std::string& table_id);
 
 }  // namespace apograph::store

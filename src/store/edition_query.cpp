@@ -40,7 +40,8 @@ RevisionKey FindRevision(Database& db, const std::string& table_id, const std::s
   return {s.Int(0), static_cast<int>(s.Int(1))};
 }
 
-void LoadMetadata(Database& db, std::int64_t revision, Transcription& t) {
+/// Fills the metadata of `t`; returns the revision's number of rows.
+std::int64_t LoadMetadata(Database& db, std::int64_t revision, Transcription& t) {
   auto s = db.Prepare(
       "SELECT t.table_id, t.siglum, r.source_file, r.source_text, r.work_id, r.work_title, "
       "r.work_author, r.table_title, r.table_kind, r.library, r.shelfmark, r.witness_date, "
@@ -62,8 +63,10 @@ void LoadMetadata(Database& db, std::int64_t revision, Transcription& t) {
   t.witness.note = s.Text(13);
   t.folios = s.Text(14);
   t.hand = s.Text(15);
-  t.rows.reserve(static_cast<std::size_t>(s.Int(16)));
   t.witness.kind = s.Text(17);
+  const std::int64_t rows = s.Int(16);
+  t.rows.reserve(static_cast<std::size_t>(rows));
+  return rows;
 }
 
 void LoadLayout(Database& db, std::int64_t revision, Transcription& t) {
@@ -88,18 +91,16 @@ void LoadLayout(Database& db, std::int64_t revision, Transcription& t) {
   }
 }
 
-/// Rows in order, each decoded from its JSON (cell_json.hpp); the same
+/// Rows in order, decoded from the revision's JSON (cell_json.hpp); the same
 /// decoding as the view `cell`, which the tests compare with it.
-void LoadCells(Database& db, std::int64_t revision, Transcription& t) {
-  auto s = db.Prepare(
-      "SELECT row_index, line, cells FROM cell_row WHERE revision_id = ?1 ORDER BY row_index");
+void LoadCells(Database& db, std::int64_t revision, std::int64_t row_count, Transcription& t) {
+  auto s = db.Prepare("SELECT rows FROM revision_cells WHERE revision_id = ?1");
   s.Bind(1, revision);
-  while (s.Step()) {
-    const auto row = static_cast<std::size_t>(s.Int(0));
-    if (row != t.rows.size())
-      throw StoreError("revision " + std::to_string(revision) + " lacks row " +
-                       std::to_string(t.rows.size()));
-    DecodeRowCells(s.TextView(2), t, static_cast<int>(s.Int(1)), t.rows.emplace_back());
+  if (s.Step()) DecodeRevisionRows(s.TextView(0), t);
+  if (static_cast<std::int64_t>(t.rows.size()) != row_count) {
+    throw StoreError("revision " + std::to_string(revision) + " holds " +
+                     std::to_string(t.rows.size()) + " rows of cells, not its " +
+                     std::to_string(row_count) + " rows");
   }
 }
 
@@ -124,17 +125,21 @@ RevisionSummary ReadRevisionSummary(const Statement& s) {
 
 Transcription Load(Database& db, const std::string& table_id, const std::string& siglum,
                    std::optional<int> revision) {
+  ReadTransaction read(db);  // one lock for the four statements, one consistent revision
   const RevisionKey key = FindRevision(db, table_id, siglum, revision);
   Transcription t;
-  LoadMetadata(db, key.id, t);
+  const std::int64_t rows = LoadMetadata(db, key.id, t);
   LoadLayout(db, key.id, t);
-  LoadCells(db, key.id, t);
+  LoadCells(db, key.id, rows, t);
+  read.End();
   return t;
 }
 
 std::vector<Transcription> LoadTable(Database& db, const std::string& table_id) {
+  ReadTransaction read(db);
   std::vector<Transcription> out;
   for (const auto& siglum : Sigla(db, table_id)) out.push_back(Load(db, table_id, siglum));
+  read.End();
   return out;
 }
 

@@ -5,7 +5,6 @@
 
 #include "edition/names.hpp"
 #include "store/cell_writer.hpp"
-#include "store/decision_store.hpp"
 #include "store/import_session.hpp"
 
 namespace apograph::store {
@@ -313,11 +312,9 @@ TableImport Writer::Write(const Transcription& t, ImportResult& result) {
 
   const std::int64_t revision = InsertRevision(t, d, transcription, current + 1);
   InsertLayout(t, revision);
-  const std::int64_t before = cells_.written();
-  for (std::size_t r = 0; r < t.rows.size(); ++r) cells_.Add(revision, t, r);
-  cells_.Flush();
-  RecordRowArguments(db_, revision, t);  // what the views call a row's argument
-  result.cells_written += static_cast<std::size_t>(cells_.written() - before);
+  // The cells, and what the views call a row's argument.
+  const std::int64_t written = cells_.Write(revision, t);
+  result.cells_written += static_cast<std::size_t>(written);
   out.revision = current + 1;
   out.changed = true;
   return out;

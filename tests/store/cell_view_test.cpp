@@ -1,4 +1,4 @@
-// The cells of a revision are stored packed (cell_row) and read back by two
+// The cells of a revision are stored packed (revision_cells) and read back by two
 // decoders: Load() in C++ and the view `cell` for the sqlite3 shell. They
 // must agree on every cell of every project transcription.
 #include "store/edition_store.hpp"
@@ -82,31 +82,39 @@ TEST_CASE("Load() and the view cell read the same cells") {
   CHECK(cells > 1000);
 }
 
-TEST_CASE("a row of cells the program cannot read is a store error, not a crash") {
+TEST_CASE("rows of cells the program cannot read are a store error, not a crash") {
   TempDb file("badrow");
   Database db(file.path());
   store::Import(db, {MakeTranscription("sun-eq", "K", 1)});
-  for (const char* cells : {R"([["1",1],["0;1,2",6]])",                       // a cell short
-                            R"([["1",1],["0;1,2",6],["0;1,2",18],["1",2]])",  // a cell too many
-                            R"([["1",1],["0;x",6],["0;1,2",18]])",            // not a value
-                            R"([["1",1],["?",6,{"state":"smudged"}],["0;1,2",18]])",
-                            R"([["1",1],["?",6,{"colour":"red"}],["0;1,2",18]])",
-                            R"([["1",1],["?",6,{"state":"illegible","value":"1"}],["0;1,2",18]])",
-                            R"([["1",1],["0;1,2",6],["0;1,2","18"]])",
-                            R"([["1",1],["0;1,2",6,{"places":13}],["0;1,2",18]])",
-                            R"([["1",-1],["0;1,2",6],["0;1,2",18]])",
-                            R"([["1",1],["0;1,2",6,{"line":-3}],["0;1,2",18]])",
-                            R"([["1",1],["0;1,2",6],["0;1,2\u00"]])",  // not JSON
-                            R"([["1",1],["0;1,2",6],["0;1,2",18]] ])"}) {
-    const std::string text = cells;
+  for (const char* rows :
+       {R"([[1,["1",1],["0;1,2",6]]])",                       // a cell short
+        R"([[1,["1",1],["0;1,2",6],["0;1,2",18],["1",2]]])",  // a cell too many
+        R"([[1,["1",1],["0;x",6],["0;1,2",18]]])",            // not a value
+        R"([[1,["1",1],["?",6,{"state":"smudged"}],["0;1,2",18]]])",
+        R"([[1,["1",1],["?",6,{"colour":"red"}],["0;1,2",18]]])",
+        R"([[1,["1",1],["?",6,{"state":"illegible","value":"1"}],["0;1,2",18]]])",
+        R"([[1,["1",1],["0;1,2",6],["0;1,2","18"]]])",
+        R"([[1,["1",1],["0;1,2",6,{"places":13}],["0;1,2",18]]])",
+        R"([[1,["1",-1],["0;1,2",6],["0;1,2",18]]])",
+        R"([[1,["1",1],["0;1,2",6,{"line":-3}],["0;1,2",18]]])",
+        R"([[1,["1",1],["0;1,2",6],["0;1,2\u00"]]])",  // not JSON
+        R"([[1,["1",1],["0;1,2",6],["0;1,2",18]]] ])",
+        R"([[["1",1],["0;1,2",6],["0;1,2",18]]])",     // no line
+        R"([[-1,["1",1],["0;1,2",6],["0;1,2",18]]])",  // a negative line
+        R"([])",                                       // a row short
+        R"([[1,["1",1],["0;1,2",6],["0;1,2",18]],)"
+        R"([2,["2",1],["0;1,2",6],["0;1,2",18]]])"}) {  // a row too many
+    const std::string text = rows;
     CAPTURE(text);
-    db.Execute(std::string("UPDATE cell_row SET cells = '") + cells + "'");
+    db.Execute(std::string("UPDATE revision_cells SET rows = '") + rows + "'");
     CHECK_THROWS_AS(store::Load(db, "sun-eq", "K"), store::StoreError);
   }
   // Not an array: the database refuses it.
-  CHECK_THROWS_AS(db.Execute(R"(UPDATE cell_row SET cells = '{"raw":"1"}')"), store::StoreError);
+  CHECK_THROWS_AS(db.Execute(R"(UPDATE revision_cells SET rows = '{"raw":"1"}')"),
+                  store::StoreError);
   db.Execute(
-      R"(UPDATE cell_row SET cells = '[ ["1" , 1] , ["0;1,2",6,{ }], ["\u0030;1,2",18] ] ')");
+      R"(UPDATE revision_cells SET rows = '[[ 4, ["1" , 1] , ["0;1,2",6,{ }], ["\u0030;1,2",18] ]] ')");
   const auto back = store::Load(db, "sun-eq", "K");
   CHECK(back.rows[0].cells[1].raw == "0;1,2");
+  CHECK(back.rows[0].line == 4);
 }

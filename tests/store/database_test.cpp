@@ -85,3 +85,74 @@ TEST_CASE("a statement outliving its database is finalized, not given back") {
   kept.reset();  // must neither crash nor leak (the ASan build checks)
   CHECK_FALSE(kept.has_value());
 }
+
+namespace {
+
+/// Whether a second connection to `path` can commit a write now (it gives up
+/// at once when the file is locked).
+bool OtherCanWrite(const std::string& path) {
+  const int saved = store::BusyTimeout();
+  store::SetBusyTimeout(0);
+  bool wrote = true;
+  try {
+    store::Database other(path);
+    other.Execute("INSERT INTO t VALUES (9)");
+  } catch (const store::StoreError&) {
+    wrote = false;
+  }
+  store::SetBusyTimeout(saved);
+  return wrote;
+}
+
+}  // namespace
+
+TEST_CASE("a read transaction holds one view across statements until it ends") {
+  apograph::testing::ScratchDir dir("read");
+  const std::string path = (dir / "r.sqlite").string();
+  store::Database db(path);
+  db.Execute("CREATE TABLE t (x INTEGER)");
+  db.Execute("INSERT INTO t VALUES (1)");
+  {
+    store::ReadTransaction read(db);
+    CHECK(db.InTransaction());
+    auto first = db.Prepare("SELECT count(*) FROM t");
+    REQUIRE(first.Step());
+    CHECK(first.Int(0) == 1);
+    first.Reset();
+    // The shared lock stays between statements: no writer commits meanwhile.
+    CHECK_FALSE(OtherCanWrite(path));
+    read.End();
+    CHECK_FALSE(db.InTransaction());
+    CHECK(OtherCanWrite(path));
+  }
+  {
+    store::ReadTransaction dropped(db);  // ended by its destructor
+    auto s = db.Prepare("SELECT count(*) FROM t");
+    REQUIRE(s.Step());
+  }
+  CHECK_FALSE(db.InTransaction());
+  CHECK(OtherCanWrite(path));
+  {
+    // Inside a write transaction it does nothing: the writer's changes stay
+    // the writer's to commit.
+    store::Transaction write(db);
+    db.Execute("INSERT INTO t VALUES (2)");
+    {
+      store::ReadTransaction read(db);
+      read.End();
+    }
+    CHECK(db.InTransaction());
+    write.Commit();
+  }
+  auto total = db.Prepare("SELECT sum(x) FROM t");
+  REQUIRE(total.Step());
+  CHECK(total.Int(0) == 1 + 9 + 9 + 2);
+}
+
+TEST_CASE("a connection keeps at most 4 MiB of page cache (an import reuses its buffers)") {
+  apograph::testing::ScratchDir dir("cache-size");
+  store::Database db((dir / "c.sqlite").string());
+  auto s = db.Prepare("PRAGMA cache_size");
+  REQUIRE(s.Step());
+  CHECK(s.Int(0) == -4096);  // negative: KiB (database.cpp says why this size)
+}

@@ -72,7 +72,7 @@ int WaitFor(pid_t pid) {
   return status;
 }
 
-/// integrity_check's verdict and the number of revisions and cell rows.
+/// integrity_check's verdict and the number of revisions and table rows.
 struct State {
   std::string integrity;
   std::int64_t revisions = 0;
@@ -85,8 +85,9 @@ State Inspect(const std::string& path) {
   store::Database db(path);  // rolls back a hot journal left by the kill
   auto check = db.Prepare("PRAGMA integrity_check");
   while (check.Step()) s.integrity += check.Text(0);
-  auto count =
-      db.Prepare("SELECT (SELECT count(*) FROM revision), (SELECT count(*) FROM cell_row)");
+  auto count = db.Prepare(
+      "SELECT (SELECT count(*) FROM revision), "
+      "(SELECT coalesce(sum(json_array_length(rows)), 0) FROM revision_cells)");
   count.Step();
   s.revisions = count.Int(0);
   s.rows = count.Int(1);
