@@ -271,7 +271,21 @@ std::vector<Finding> ExplainColumn(const Transcription& table, const ColumnValue
   const int places = table.columns.at(col).places;
   const internal::ColumnContext column = internal::MeasureColumn(table, values, options, places);
   std::vector<bool> claimed(table.rows.size(), false);
+  // Rows the tradition reads alike where the model misses a compensating
+  // window: kept first, so that no run of slips is fitted to the model there.
+  std::vector<Finding> kept;
+  for (std::size_t r = 0; r < table.rows.size() && r < values.computed.size(); ++r) {
+    const Cell& cell = table.rows[r].cells[col];
+    if (!column.compensating[r] || column.deviant[r] || cell.state != CellState::kRead ||
+        !std::isfinite(column.departure[r]) ||
+        internal::UnitsOff(column.departure[r], options.tolerance) == 0 ||
+        !(internal::AtPlaces(*cell.value, places) == *column.consensus[r]))
+      continue;
+    kept.push_back(internal::CompensatedFinding(table, values, column, r, places));
+    claimed[r] = true;
+  }
   std::vector<Finding> out = internal::DisplacedRuns(table, values, options, column, claimed);
+  out.insert(out.end(), kept.begin(), kept.end());
   auto runs = internal::SystematicRuns(table, values, options, column, claimed);
   out.insert(out.end(), runs.begin(), runs.end());
   for (std::size_t r = 0; r < table.rows.size() && r < values.computed.size(); ++r) {

@@ -5,6 +5,7 @@
 #include <cstdint>
 #include <optional>
 #include <string>
+#include <utility>
 #include <vector>
 
 #include "deviation/explain.hpp"
@@ -149,6 +150,11 @@ struct ColumnContext {
   /// Per row, that reading when it differs from this copy's and lies within
   /// the author's departure of the model: the original most likely had it.
   std::vector<std::optional<Sexagesimal>> tradition_reading;
+  /// Per row, the rows [first, last] (two or three, this one among them)
+  /// over which the tradition's firm reading departs from the model beyond
+  /// the author's departure in both directions and the departures cancel
+  /// (CompensatingRows): the model, not the tradition, misses those rows.
+  std::vector<std::optional<std::pair<std::size_t, std::size_t>>> compensating;
   /// The original's most likely reading of a row: the tradition's when it
   /// lies within the author's departure of the model, else the model's.
   std::optional<Sexagesimal> Original(std::size_t row, const ColumnValues& values,
@@ -156,6 +162,27 @@ struct ColumnContext {
 };
 ColumnContext MeasureColumn(const Transcription& table, const ColumnValues& values,
                             const ExplainOptions& options, int places);
+/// Per row, the window of two or three consecutive rows in which the
+/// reading every other witness but perhaps one in four agrees on (two
+/// witnesses at least) departs from the model beyond the author's typical
+/// departure at this row and, the other way, at another row of the window,
+/// the departures over the window summing to within the author's departure:
+/// one entry of a source the model is computed from (a difference column's
+/// base) that the author had otherwise, or a fitted reference off over two
+/// rows. Two slips of an archetype on neighbouring rows that cancel are far
+/// rarer. A window where an entry beyond the author's departure reads its
+/// neighbour's value while the model is smoother there than the tradition
+/// (a line repeated into both neighbours, two lines exchanged) is a slip
+/// and is left out; a column constant by nature (a mean motion's step)
+/// repeats its neighbour wherever the model spikes, and is not.
+std::vector<std::optional<std::pair<std::size_t, std::size_t>>> CompensatingRows(
+    const ColumnValues& values, const ExplainOptions& options, const AuthorProfile& author,
+    int places);
+/// The finding of a row this copy reads as the tradition does where the
+/// model misses it in a compensating window (ColumnContext::compensating):
+/// kept against the model, no emendation.
+Finding CompensatedFinding(const Transcription& table, const ColumnValues& values,
+                           const ColumnContext& column, std::size_t row, int places);
 /// `reading` - `computed` in units of the last place either uses (its last
 /// place that is not 0; the model's at all its places), when that is above
 /// `places`: a column written to one more place than it was computed to

@@ -85,6 +85,118 @@ DiffColumn Diffs(const Transcription& table, const ColumnValues& values, int pla
   return out;
 }
 
+namespace {
+
+/// The tradition's firm reading of row r (every other witness but perhaps one
+/// in four, two at least); nullopt without one.
+std::optional<Sexagesimal> FirmReading(const ColumnValues& values, std::size_t r, int places) {
+  // Judgement, as ColumnContext::shared and TraditionKeptCandidate: two
+  // other witnesses at least, all but perhaps one in four agreeing.
+  constexpr int kLeastWitnesses = 2;
+  const TraditionCell* t = TraditionAt(values, r);
+  if (!t || !t->consensus || t->witnesses < kLeastWitnesses || 4 * t->agree < 3 * t->witnesses ||
+      r >= values.computed.size() || !values.computed[r])
+    return std::nullopt;
+  return AtPlaces(*t->consensus, places);
+}
+
+/// The tradition's value of row r (its firm reading, else the model's).
+std::optional<Sexagesimal> TraditionValue(const ColumnValues& values, std::size_t r, int places) {
+  if (auto firm = FirmReading(values, r, places)) return firm;
+  if (r < values.computed.size() && values.computed[r])
+    return AtPlaces(*values.computed[r], places);
+  return std::nullopt;
+}
+
+/// The model's second difference at row r is smaller than the tradition's:
+/// the roughness is the tradition's (a line repeated), not the model's (a
+/// derived model spiking where its source misses a row).
+bool ModelSmoother(const ColumnValues& values, std::size_t r, int places) {
+  if (r == 0 || r + 1 >= values.computed.size()) return true;
+  const auto m0 = values.computed[r - 1], m1 = values.computed[r], m2 = values.computed[r + 1];
+  const auto t0 = TraditionValue(values, r - 1, places), t1 = TraditionValue(values, r, places),
+             t2 = TraditionValue(values, r + 1, places);
+  if (!m0 || !m1 || !m2 || !t0 || !t1 || !t2) return true;
+  const double model = DiffUnits(*m2, *m1, places) - DiffUnits(*m1, *m0, places);
+  const double tradition = DiffUnits(*t2, *t1, places) - DiffUnits(*t1, *t0, places);
+  return std::fabs(model) < std::fabs(tradition);
+}
+
+/// The firm reading of row r is the reading (firm, else the model's) of the
+/// row above or below where the model is smoother than the tradition there:
+/// a line repeated, whose departure a repetition of the same line on the
+/// other side can cancel (the middle entry of a smooth column written into
+/// both its neighbours: -14, 0, +15). A column constant over the rows (a
+/// mean motion's step) repeats by nature; there the model spikes.
+bool RepeatsNeighbour(const ColumnValues& values, std::size_t r, int places) {
+  const auto firm = FirmReading(values, r, places);
+  if (!firm || !ModelSmoother(values, r, places)) return false;
+  for (std::ptrdiff_t off : {-1, 1}) {
+    const std::ptrdiff_t j = static_cast<std::ptrdiff_t>(r) + off;
+    if (j < 0 || j >= static_cast<std::ptrdiff_t>(values.computed.size())) continue;
+    const auto at = static_cast<std::size_t>(j);
+    const auto other = FirmReading(values, at, places);
+    if (other && *other == *firm) return true;
+    if (values.computed[at] && AtPlaces(*values.computed[at], places) == *firm) return true;
+  }
+  return false;
+}
+
+}  // namespace
+
+std::vector<std::optional<std::pair<std::size_t, std::size_t>>> CompensatingRows(
+    const ColumnValues& values, const ExplainOptions& options, const AuthorProfile& author,
+    int places) {
+  // Judgement: a source entry enters two differences (three rows cover one
+  // row's neighbours both sides); wider windows would pair unrelated slips.
+  constexpr std::size_t kWindow = 3;
+  const std::size_t n = values.computed.size();
+  // Each row's departure in units of the column's last place, and the last
+  // place its reading or the model uses (the window's sum is counted as the
+  // author departs, in the finest of them: CoarseDiff).
+  std::vector<double> units(n, NAN);
+  std::vector<int> used(n, 0);
+  for (std::size_t r = 0; r < n; ++r) {
+    const auto firm = FirmReading(values, r, places);
+    if (!firm) continue;
+    used[r] = std::min(places, std::max(UsedPlaces(*firm), UsedPlaces(*values.computed[r])));
+    units[r] = DiffUnits(*firm, *values.computed[r], places);
+  }
+  // Beyond the author's departure in units of the column's last place, as
+  // MeasureColumn counts the tradition's reading (a +1/-1 pair of seconds in
+  // a column written to thirds is beyond it there).
+  const auto beyond = [&](std::size_t r) {
+    return std::isfinite(units[r]) && UnitsOff(units[r], options.tolerance) > author.typical;
+  };
+  std::vector<std::optional<std::pair<std::size_t, std::size_t>>> out(n);
+  for (std::size_t r = 0; r < n; ++r) {
+    if (!beyond(r)) continue;
+    const std::size_t lo = r + 1 >= kWindow ? r + 1 - kWindow : 0;
+    for (std::size_t a = lo; a <= r && !out[r]; ++a) {
+      for (std::size_t b = std::max(a + 1, r); b < a + kWindow && b < n && !out[r]; ++b) {
+        double sum = 0;
+        int finest = 0;
+        bool finite = true, opposite = false;
+        for (std::size_t j = a; j <= b; ++j) {
+          finite = finite && std::isfinite(units[j]);
+          sum += std::isfinite(units[j]) ? units[j] : 0;
+          finest = std::max(finest, used[j]);
+          opposite = opposite || (j != r && beyond(j) && (units[j] > 0) != (units[r] > 0));
+        }
+        sum /= std::pow(60.0, places - finest);
+        if (!finite || !opposite || UnitsOff(sum, options.tolerance) > author.typical) continue;
+        // Lines repeated or exchanged (each the other's value): a slip.
+        bool copied = false;
+        for (std::size_t j = a; j <= b; ++j)
+          copied = copied || (beyond(j) && RepeatsNeighbour(values, j, places));
+        if (copied) continue;
+        out[r] = std::make_pair(a, b);
+      }
+    }
+  }
+  return out;
+}
+
 ColumnContext MeasureColumn(const Transcription& table, const ColumnValues& values,
                             const ExplainOptions& options, int places) {
   ColumnContext out;
@@ -103,6 +215,8 @@ ColumnContext MeasureColumn(const Transcription& table, const ColumnValues& valu
   out.contradicted.assign(n, false);
   out.tradition_reading.assign(n, std::nullopt);
   out.consensus.assign(n, std::nullopt);
+  out.compensating = CompensatingRows(values, options, out.author, places);
+  out.compensating.resize(n);
   int compared = 0, deviant = 0;
   for (std::size_t r = 0; r < n; ++r) {
     const TraditionCell* t = TraditionAt(values, r);
@@ -126,8 +240,15 @@ ColumnContext MeasureColumn(const Transcription& table, const ColumnValues& valu
           out.shared[r] ? UnitsOff(AuthorDiff(*read.value, *values.computed[r], places, out.grid),
                                    options.tolerance)
                         : k;
-      out.deviant[r] = k > out.author.typical &&
-                       !(out.shared[r] && coarse <= std::floor(options.computational_units));
+      const bool authors = k <= out.author.typical ||
+                           (out.shared[r] && coarse <= std::floor(options.computational_units));
+      // A reading the tradition keeps where the model misses a compensating
+      // window is not this copy's departure; where it is within the author's
+      // departure already (on his grid, or shared), that story stands.
+      const bool as_tradition = out.compensating[r] && t && t->consensus &&
+                                AtPlaces(*read.value, places) == AtPlaces(*t->consensus, places);
+      if (as_tradition && authors) out.compensating[r].reset();
+      out.deviant[r] = !authors && !as_tradition;
       deviant += out.deviant[r];
     }
     if (!t || !t->consensus || r >= values.computed.size() || !values.computed[r]) continue;
@@ -142,7 +263,7 @@ ColumnContext MeasureColumn(const Transcription& table, const ColumnValues& valu
     // emended to the branch's (seeds 1-20 of deviation_bench: 30 false flags
     // on one witness with both counted in steps; DEVELOPERS.md, fifth round).
     const int k = UnitsOff(DiffUnits(consensus, *values.computed[r], places), options.tolerance);
-    if (k <= out.author.typical) out.tradition_reading[r] = consensus;
+    if (k <= out.author.typical || out.compensating[r]) out.tradition_reading[r] = consensus;
   }
   out.slip_rate = std::min(kSlipRateCeiling, Shrunk(deviant, compared, kSlipRatePrior));
   return out;
@@ -152,6 +273,7 @@ std::optional<Sexagesimal> ColumnContext::Original(std::size_t row, const Column
                                                    const ExplainOptions& options,
                                                    int places) const {
   if (row >= values.computed.size() || !values.computed[row]) return std::nullopt;
+  if (consensus[row] && row < compensating.size() && compensating[row]) return consensus[row];
   if (consensus[row]) {
     // In units, as the tradition's reading (see MeasureColumn).
     const int k =
@@ -320,6 +442,34 @@ std::optional<Candidate> TraditionKeptCandidate(const CellContext& c) {
                "the author computed otherwise); no emendation on the model's word alone; keep "
                "the reading";
   return out;
+}
+
+Finding CompensatedFinding(const Transcription& table, const ColumnValues& values,
+                           const ColumnContext& column, std::size_t row, int places) {
+  const auto [first, last] = *column.compensating[row];
+  const TraditionCell& t = values.tradition[row];
+  std::string departures;
+  for (std::size_t j = first; j <= last; ++j) {
+    const double d = DiffUnits(*column.consensus[j], *values.computed[j], places);
+    departures += (departures.empty() ? "" : ", ") + Signed(d);
+  }
+  const double exact = row < values.exact.size() ? values.exact[row] : NAN;
+  Finding f = NewFinding(table, values, places);
+  Explanation e;
+  e.cls = SlipClass::kComputational;
+  e.score = kScoreTraditionKept;
+  e.evidence = "read by " + std::to_string(t.agree) + " of the " + std::to_string(t.witnesses) +
+               " other witnesses too, " + SignedUnits(column.diffs.diff[row]) +
+               " from the model (" + ModelText(*values.computed[row], exact, places) +
+               "); over rows " + std::to_string(first + 1) + "-" + std::to_string(last + 1) +
+               " the tradition departs from the model by " + departures +
+               " units, which cancel: the model misses these rows (computed from a source "
+               "entry the author had otherwise, or fitted off there), not the tradition; no "
+               "emendation on the model's word alone; keep the reading";
+  f.explanations.push_back(std::move(e));
+  f.kept_against_model = true;
+  f.cells.push_back(MakeCell(table, values, row, places));
+  return f;
 }
 
 Candidate UnexplainedCandidate(const CellContext& c) {

@@ -9,7 +9,9 @@
 //   cmake -S . -B build-bench -DAPOGRAPH_BENCH=ON -DAPOGRAPH_TESTS=OFF \
 //         -DCMAKE_BUILD_TYPE=Release && cmake --build build-bench -j2
 //   ./build-bench/deviation_bench [draws] [first-seed]   (default 300 draws from seed 1;
-//   BENCH_DEBUG=1 lists every slip missed, misnamed or wrongly emended and every false flag)
+//   BENCH_DEBUG=1 lists every slip missed, misnamed or wrongly emended and every false flag;
+//   with BENCH_DUMP=1 too, each false emendation on a wrong reference is followed by its
+//   rows, the reference's values and every witness's readings)
 #include <chrono>
 #include <cstdio>
 #include <cstdlib>

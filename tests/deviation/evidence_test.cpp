@@ -693,3 +693,83 @@ TEST_CASE("a reading the whole tradition shares out of every slip's reach is kep
     CHECK(own->best().cls == SlipClass::kBlank);
   }
 }
+
+TEST_CASE("neighbouring rows the tradition reads off the model both ways, cancelling, are kept") {
+  // Every witness reads, over two rows, the model's value +10 and -10 units
+  // (one digit of the tens of seconds each, a slip within every script's
+  // reach), and over three rows +10, 0, -10: the departures cancel, the
+  // signature of a model computed from a source entry the author had
+  // otherwise (a difference column's base), not of two slips of an
+  // archetype. With the change stashed every such row is emended to the
+  // model's reading as a confusion. One copy's own slip at a kept row is
+  // emended to the tradition's reading, not the model's; two neighbouring
+  // entries exchanged in every witness (each the other's model value), and
+  // an entry written into both its neighbours (departures that cancel
+  // nearly), stay slips.
+  Synthetic s = MakeTable(testing::SolarEquation, 1, 1, 180, 2);
+  const auto seconds = [&](std::size_t r) { return s.values.computed[r]->FractionDigits()[1]; };
+  const auto minutes = [&](std::size_t r) { return s.values.computed[r]->FractionDigits()[0]; };
+  const auto first_from = [&](std::size_t from, std::size_t span) {
+    for (std::size_t r = from; r + span < s.table.rows.size(); ++r) {
+      if (seconds(r) < 50 && seconds(r + span) >= 10 && minutes(r) < 59) return r;
+    }
+    FAIL("no row fits");
+    return std::size_t{0};
+  };
+  std::vector<std::size_t> kept;
+  for (std::size_t from : {30, 60, 150}) {
+    const std::size_t r = first_from(from, 1);
+    s.Set(r, Moved(s, r, 10, 2).ToString());
+    s.Set(r + 1, Moved(s, r + 1, -10, 2).ToString());
+    kept.insert(kept.end(), {r, r + 1});
+  }
+  const std::size_t three = first_from(80, 2);
+  s.Set(three, Moved(s, three, 10, 2).ToString());
+  s.Set(three + 2, Moved(s, three + 2, -10, 2).ToString());
+  kept.insert(kept.end(), {three, three + 2});
+  const std::size_t swap = 170;
+  const Sexagesimal above = *s.table.rows[swap].cells[0].value;
+  s.Set(swap, s.table.rows[swap + 1].cells[0].value->ToString());
+  s.Set(swap + 1, above.ToString());
+  const std::size_t middle = 176;  // written into both its neighbours
+  const std::string repeated = s.table.rows[middle].cells[0].value->ToString();
+  s.Set(middle - 1, repeated);
+  s.Set(middle + 1, repeated);
+
+  auto witnesses = Copies(s, 5);
+  const std::size_t own = kept.front();
+  const Sexagesimal tradition = Moved(s, own, 10, 2);
+  Synthetic d = s;
+  d.table = witnesses[3];
+  d.Set(own, (tradition + Sexagesimal::FromUnits(60, 2)).ToString());  // a minute more
+  witnesses[3] = d.table;
+  const auto found = pipeline::ExplainTradition(witnesses, SolarReference(witnesses), kDir);
+  REQUIRE(found.size() == 5);
+  int kept_rows = 0;
+  for (const auto& w : found) {
+    CHECK_FALSE(w.Refused("equation"));
+    for (std::size_t r : kept) {
+      const Finding* f = At(w.findings, r);
+      REQUIRE(f != nullptr);
+      INFO(f->Note(w.siglum));
+      if (w.siglum == "D" && r == own) {
+        CHECK(IsCopyingSlip(f->best().cls));
+        REQUIRE(f->cells.front().emendation.has_value());
+        CHECK(*f->cells.front().emendation == tradition);
+        continue;
+      }
+      CHECK(f->kept_against_model);
+      CHECK_FALSE(f->cells.front().emendation.has_value());
+      CHECK(f->best().evidence.find("which cancel") != std::string::npos);
+      kept_rows += f->kept_against_model;
+    }
+    for (std::size_t r : {swap, swap + 1, middle - 1, middle + 1}) {
+      const Finding* f = At(w.findings, r);
+      REQUIRE(f != nullptr);
+      INFO(f->Note(w.siglum));
+      CHECK_FALSE(f->kept_against_model);
+      CHECK(IsCopyingSlip(f->best().cls));
+    }
+  }
+  CHECK(kept_rows == 5 * 8 - 1);
+}

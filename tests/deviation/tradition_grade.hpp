@@ -10,6 +10,7 @@
 // the tests that assert rates over a few seeds.
 #include <algorithm>
 #include <cmath>
+#include <cstdlib>
 #include <map>
 #include <optional>
 #include <set>
@@ -380,11 +381,49 @@ inline WrongKind KindOf(const std::vector<Witness>& ws, std::size_t i, const syn
   return right ? WrongKind::kRightChanged : WrongKind::kSlipMissed;
 }
 
+/// With BENCH_DUMP: rows row-3..row+3 of witness `i`, each with the author's
+/// tabulated and computed values, the reference's value for this witness
+/// and every witness's reading of the same archetype row.
+inline std::vector<std::string> ContextLines(const std::vector<Witness>& ws, std::size_t i,
+                                             const synth::ColumnKey& key, std::size_t row,
+                                             const pipeline::ColumnReference& ref) {
+  const Witness& w = ws[i];
+  auto r = ref;
+  r.column = w.table.ColumnIndex(key.name);
+  const auto re = r.Recompute(w.table);
+  std::vector<std::string> out;
+  for (std::size_t j = row >= 3 ? row - 3 : 0; j <= row + 3 && j < w.table.rows.size(); ++j) {
+    const int oj = j < w.text->origin.size() ? w.text->origin[j] : -1;
+    std::string line = "    ctx row " + std::to_string(j) + (j == row ? "*" : " ");
+    if (oj >= 0) {
+      const auto o = static_cast<std::size_t>(oj);
+      line += " author " + At(key.tabulated[o], key.places).ToString() + " comp " +
+              At(key.computed[o], key.places).ToString();
+    }
+    if (j < re.computed.size() && re.computed[j])
+      line += " model " + At(*re.computed[j], key.places).ToString();
+    line += " |";
+    for (const auto& other : ws) {
+      const int column = other.table.ColumnIndex(key.name);
+      const auto& origins = other.text->origin;
+      const auto it = std::find(origins.begin(), origins.end(), oj);
+      if (column < 0 || oj < 0 || it == origins.end()) continue;
+      const auto at = static_cast<std::size_t>(it - origins.begin());
+      const Cell& cell = other.table.rows[at].cells[static_cast<std::size_t>(column)];
+      line += " " + other.node->name + "=" +
+              (cell.value ? At(*cell.value, key.places).ToString() : cell.raw);
+    }
+    out.push_back(std::move(line));
+  }
+  return out;
+}
+
 /// Counts the emendations of witness `i` on a column with a wrong reference
 /// into `g`; with debug, one line per emendation.
 inline void GradeWrongColumn(const std::vector<Witness>& ws, std::size_t i,
                              const pipeline::WitnessFindings& found, const std::string& table,
-                             const synth::ColumnKey& key, Grade& g) {
+                             const synth::ColumnKey& key, Grade& g,
+                             const pipeline::ColumnReference* ref = nullptr) {
   const Witness& w = ws[i];
   const int column = w.table.ColumnIndex(key.name);
   for (const auto& [row, flag] : Flags(found, column)) {
@@ -404,6 +443,10 @@ inline void GradeWrongColumn(const std::vector<Witness>& ws, std::size_t i,
                       At(key.tabulated[o], key.places).ToString() + " computed " +
                       At(key.computed[o], key.places).ToString() + " (" + ScriptOf(w.table) +
                       ") | " + NoteOf(found, column, row));
+    if (ref && (kind == WrongKind::kRightChanged || kind == WrongKind::kSlipMissed) &&
+        std::getenv("BENCH_DUMP")) {
+      for (auto& line : ContextLines(ws, i, key, row, *ref)) g.notes.push_back(std::move(line));
+    }
   }
 }
 
@@ -446,7 +489,7 @@ inline Grade GradeTradition(const synth::Tradition& t, const std::string& script
         if (wrong) {
           ++g.wrong_columns;
           g.wrong_refused += refused;
-          GradeWrongColumn(ws, i, found[i], author.key.id, key, g);
+          GradeWrongColumn(ws, i, found[i], author.key.id, key, g, &*ref);
           continue;
         }
         ++g.right_columns;
