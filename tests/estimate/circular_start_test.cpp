@@ -11,11 +11,6 @@
 #include "synthetic.hpp"
 
 namespace apograph::estimate {
-namespace {
-
-using testing::D;
-
-}  // namespace
 
 TEST_CASE("a planet on a circular deferent is fitted in the author's basin") {
   // Three planets with e = 0 (radii and daily rates from memory: an outer
@@ -29,15 +24,11 @@ TEST_CASE("a planet on a circular deferent is fitted in the author's basin") {
   // inner planet, open, still ends at e = 3;33 with
   // its anomaly's rate 0;58,45 for 0;36,59).
   const model::Model& m = *model::FindBuiltinModel("planet-position");
-  const std::vector<std::vector<double>> planets = {
-      {D("197;2"), D("0;31,26,36,54"), D("97;49"), D("0;27,41,40,19"), 0, 0, D("39;30"), 360},
-      {D("111;6"), D("0;59,8,17,13"), D("56;50"), D("0;36,59,25,53"), 0, 0, D("43;10"), 360},
-      {D("318;43"), D("0;4,59,14,27"), D("218;8"), D("0;54,9,2,46"), 0, 0, D("11;30"), 360}};
+  const auto& planets = testing::CircularPlanets();
   int right = 0;
   for (const auto& p : planets) {
     for (unsigned seed = 1; seed <= 4; ++seed) {
-      const Transcription t = testing::CorruptAFifth(
-          testing::MakeTable("p", 1, 1, 110, {testing::FromModel("planet-position", p, 2)}), seed);
+      const Transcription t = testing::ShortArc(p, seed);
       const FitResult fit = Fit(m, t, std::vector<int>{}, FitOptions{});
       const bool rates = std::fabs(fit.Value("rate") - p[1]) <= 0.02 * p[1] &&
                          std::fabs(fit.Value("anomaly-rate") - p[3]) <= 0.02 * p[3];
