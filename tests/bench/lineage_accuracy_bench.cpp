@@ -49,6 +49,7 @@
 
 #include <nlohmann/json.hpp>
 
+#include "lineage/ancestral.hpp"
 #include "pipeline/analysis.hpp"
 #include "synth/tradition.hpp"
 
@@ -118,15 +119,24 @@ lineage::CharacterMatrix FromJson(const nlohmann::json& j) {
   return m;
 }
 
+// The characters of the draw analysed last (for the verbose output's
+// diagnosis of missed copies).
+lineage::CharacterMatrix last_matrix;
+
 lineage::LineageReport Analyse(const synth::Tradition& t, std::uint64_t seed, bool clean) {
   const char* cache = std::getenv("LINEAGE_BENCH_CACHE");
-  if (!cache) return lineage::AnalyseLineage(Characters(t));
-  const std::string path =
-      std::string(cache) + "/" + std::to_string(seed) + (clean ? "-clean" : "") + ".json";
+  lineage::CharacterMatrix m;
+  const std::string path = cache ? std::string(cache) + "/" + std::to_string(seed) +
+                                       (clean ? "-clean" : "") + ".json"
+                                 : "";
   std::ifstream in(path);
-  if (in) return lineage::AnalyseLineage(FromJson(nlohmann::json::parse(in)));
-  const auto m = Characters(t);
-  std::ofstream(path) << ToJson(m);
+  if (cache && in) {
+    m = FromJson(nlohmann::json::parse(in));
+  } else {
+    m = Characters(t);
+    if (cache) std::ofstream(path) << ToJson(m);
+  }
+  last_matrix = m;
   return lineage::AnalyseLineage(m);
 }
 
@@ -140,6 +150,7 @@ struct Totals {
   long true_groups = 0, marked = 0, recovered = 0, twice = 0, twice_recovered = 0;
   double rf_found = 0, rf_best = 0;
   long claims = 0, claims_right = 0, copies = 0, copies_named = 0, against_dates = 0;
+  long marked_copies = 0, marked_copies_named = 0;
   long contaminated = 0, flagged = 0, flagged_right = 0, marked_mixed = 0, marked_mixed_found = 0;
   long correctors = 0, correctors_flagged = 0, correctors_right = 0;
   long marked_correctors = 0, marked_found = 0;
@@ -217,6 +228,69 @@ void ScoreGroups(const synth::Tradition& t, const lineage::LineageReport& r, Tot
   s.rf_best += Rf(truth, marked);
 }
 
+// What the oriented characters say of a missed copy: the exemplar's
+// errors the copy holds (of them more than a unit off), reads right,
+// cannot be compared; its own; whether the copy or exemplar corrects,
+// is contaminated; what the report claims for the copy instead.
+std::string WhyMissed(const synth::Tradition& t, const lineage::LineageReport& r, int copy,
+                      int exemplar) {
+  if (r.results.empty()) return "";
+  const auto o = lineage::Orient(last_matrix, r.results.front().stemma);
+  const auto& cn = t.nodes[static_cast<std::size_t>(copy)];
+  const auto& en = t.nodes[static_cast<std::size_t>(exemplar)];
+  const int a = o.TaxonIndex(en.name), b = o.TaxonIndex(cn.name);
+  if (a < 0 || b < 0) return "";
+  int held = 0, strong = 0, right = 0, right_strong = 0, unreadable = 0, own = 0;
+  for (const auto& ch : o.characters) {
+    if (!ch.Directed() || ch.weight <= 0 || ch.tie_break) continue;
+    const int sa = ch.states[static_cast<std::size_t>(a)],
+              sb = ch.states[static_cast<std::size_t>(b)];
+    if (sa == 1 && sb == 1) ++held, strong += !ch.one_unit;
+    if (sa == 1 && sb == 0) ++right, right_strong += !ch.one_unit;
+    if (sa == 1 && sb == -1) ++unreadable;
+    if (sa == 0 && sb == 1) ++own;
+  }
+  std::string out = ": held " + std::to_string(held) + " (" + std::to_string(strong) +
+                    " strong), read right " + std::to_string(right) + " (" +
+                    std::to_string(right_strong) + " strong), unreadable " +
+                    std::to_string(unreadable) + ", own " + std::to_string(own);
+  if (cn.corrector != synth::CorrectorMode::kNone) out += "; copy corrects";
+  if (en.corrector != synth::CorrectorMode::kNone) out += "; exemplar corrects";
+  if (cn.contamination) out += "; copy contaminated";
+  for (const auto& c : r.corrections) {
+    if (c.witness == cn.name) out += "; copy called corrector";
+    if (c.witness == en.name) out += "; exemplar called corrector";
+  }
+  for (const auto& c : r.copies) {
+    if (c.copy == cn.name) out += "; claimed " + c.copy + " < " + c.exemplar;
+    if (c.exemplar == cn.name && c.copy == en.name) out += "; reversed";
+  }
+  for (const auto& u : r.undecided) {
+    if (u.what == "copy" && u.text.find(cn.name + " ") != std::string::npos &&
+        u.text.find(en.name) != std::string::npos)
+      out += "; undecided: " + u.text.substr(0, 90);
+  }
+  return out;
+}
+
+// A copy is *marked* when it still shows two or more slips its exemplar
+// made (a run counted once: it descends from the exemplar, not from the
+// exemplar's ancestor), and something orients the two: a slip of its own
+// still visible, or the exemplar's dates wholly before its own. Otherwise
+// no reading tells the copy from a sibling or from its exemplar.
+bool MarkedCopy(const synth::Tradition& t, int w) {
+  const auto& n = t.nodes[static_cast<std::size_t>(w)];
+  const auto& e = t.nodes[static_cast<std::size_t>(n.parent)];
+  std::set<std::pair<std::string, int>> runs;
+  int from_exemplar = 0, own = 0;
+  for (const auto& v : synth::VisibleSlips(t, w)) {
+    if (v.slip.run >= 0 && !runs.insert({v.by, v.slip.run}).second) continue;
+    from_exemplar += v.by == e.name ? 1 : 0;
+    own += v.by == n.name ? 1 : 0;
+  }
+  return from_exemplar >= 2 && (own >= 1 || e.date.to < n.date.from);
+}
+
 void ScoreCopies(const synth::Tradition& t, const lineage::LineageReport& r, Totals& s,
                  bool verbose) {
   std::set<std::pair<int, int>> named;
@@ -241,9 +315,13 @@ void ScoreCopies(const synth::Tradition& t, const lineage::LineageReport& r, Tot
     ++s.copies;
     const bool hit = named.count({w, n.parent}) > 0;
     s.copies_named += hit;
-    if (verbose && !hit)
-      std::printf("  missed copy %s < %s\n", n.name.c_str(),
-                  t.nodes[static_cast<std::size_t>(n.parent)].name.c_str());
+    if (MarkedCopy(t, w)) ++s.marked_copies, s.marked_copies_named += hit;
+    if (verbose && !hit) {
+      const auto& e = t.nodes[static_cast<std::size_t>(n.parent)];
+      std::printf("  missed copy%s %s < %s%s\n", MarkedCopy(t, w) ? " (marked)" : "",
+                  n.name.c_str(), e.name.c_str(),
+                  WhyMissed(t, r, w, n.parent).c_str());
+    }
   }
 }
 
@@ -393,6 +471,10 @@ void Print(const Totals& a, unsigned first) {
       "  direct copies                precision %.3f (%ld of %ld), recall %.3f (%ld of %ld)\n",
       Share(a.claims_right, a.claims), a.claims_right, a.claims, Share(a.copies_named, a.copies),
       a.copies_named, a.copies);
+  std::printf("  marked copies named          %.3f (%ld of %ld: two slips of the exemplar and "
+              "one of the copy, or the dates, show)\n",
+              Share(a.marked_copies_named, a.marked_copies), a.marked_copies_named,
+              a.marked_copies);
   std::printf(
       "  contaminated witnesses       precision %.3f (%ld of %ld), recall %.3f (%ld of %ld)\n",
       Share(a.flagged_right, a.flagged), a.flagged_right, a.flagged,
