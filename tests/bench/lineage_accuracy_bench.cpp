@@ -5,13 +5,12 @@
 // With LINEAGE_BENCH_CACHE=folder each draw's characters are written there
 // as the pipeline built them and read back on later runs (work on the
 // lineage stage alone; stale once anything up to the characters changes).
-// With LINEAGE_BENCH_GROUPS=1 every group of the first stemma is printed as
-// "GROUP true size length characters conflict_weight conflicting" (to see
-// whether the evidence of false groups differs from that of true ones); the
-// verbose output names what a false group holds (contaminated witnesses,
-// correctors).
-// Each draw is synth::DrawTradition(seed, default options): 4 to 15
-// witnesses, one to three tables, lost intermediates, copies of surviving
+// With LINEAGE_BENCH_CLAIMS=1 each copy claim is printed with the evidence
+// it rests on (ClaimFeatures). With LINEAGE_BENCH_GROUPS=1 every group of the first stemma is
+// printed as "GROUP true size length characters conflict_weight conflicting" (to see whether the
+// evidence of false groups differs from that of true ones); the verbose output names what a false
+// group holds (contaminated witnesses, correctors). Each draw is synth::DrawTradition(seed, default
+// options): 4 to 15 witnesses, one to three tables, lost intermediates, copies of surviving
 // witnesses, contamination, correctors, early prints, modern editions (see
 // tests/synth/README.md). The whole pipeline runs on each draw with the
 // model *estimated* from the witnesses (pipeline::AnalyseTranscriptions,
@@ -126,9 +125,9 @@ lineage::CharacterMatrix last_matrix;
 lineage::LineageReport Analyse(const synth::Tradition& t, std::uint64_t seed, bool clean) {
   const char* cache = std::getenv("LINEAGE_BENCH_CACHE");
   lineage::CharacterMatrix m;
-  const std::string path = cache ? std::string(cache) + "/" + std::to_string(seed) +
-                                       (clean ? "-clean" : "") + ".json"
-                                 : "";
+  const std::string path =
+      cache ? std::string(cache) + "/" + std::to_string(seed) + (clean ? "-clean" : "") + ".json"
+            : "";
   std::ifstream in(path);
   if (cache && in) {
     m = FromJson(nlohmann::json::parse(in));
@@ -291,6 +290,44 @@ bool MarkedCopy(const synth::Tradition& t, int w) {
   return from_exemplar >= 2 && (own >= 1 || e.date.to < n.date.from);
 }
 
+// With LINEAGE_BENCH_CLAIMS=1, one line per copy claim: right or wrong,
+// and what the oriented characters say of the exemplar (its errors, of
+// them more than a unit off; witnesses holding all of them or some) and of
+// the claim (errors held, read right, unreadable, filled; claims naming
+// the same exemplar). Used to look for what tells wrong claims from right
+// ones (DEVELOPERS.md, "Lineage accuracy", sixteenth round).
+void ClaimFeatures(const lineage::LineageReport& r, const lineage::CopyCandidate& c, bool right) {
+  const auto o = lineage::Orient(last_matrix, r.results.front().stemma);
+  const int a = o.TaxonIndex(c.exemplar), b = o.TaxonIndex(c.copy);
+  const int n = static_cast<int>(o.taxa.size());
+  std::vector<int> holdall(n, 1), holdsome(n, 0);
+  int errs = 0, strong = 0;
+  for (const auto& ch : o.characters) {
+    if (!ch.Directed() || ch.weight <= 0 || ch.tie_break) continue;
+    if (ch.states[a] != 1) continue;
+    ++errs, strong += !ch.one_unit;
+    for (int x = 0; x < n; ++x) {
+      if (ch.states[x] == 0) holdall[x] = 0;
+      if (ch.states[x] == 1) holdsome[x] = 1;
+    }
+  }
+  int all = 0, partial = 0;
+  for (int x = 0; x < n; ++x) {
+    if (x == a) continue;
+    if (holdall[x] && holdsome[x])
+      ++all;
+    else if (holdsome[x])
+      ++partial;
+  }
+  int claims_same = 0;
+  for (const auto& d : r.copies) claims_same += !d.twins && d.exemplar == c.exemplar;
+  std::printf(
+      "CLAIM %d errs %d strong %d own %d holdall %d partial %d claims_same %d corrected %d "
+      "held %d unreadable %d filled %d\n",
+      right, errs, strong, c.own_errors, all, partial, claims_same, c.corrected, c.exemplar_errors,
+      c.unreadable, c.filled);
+}
+
 void ScoreCopies(const synth::Tradition& t, const lineage::LineageReport& r, Totals& s,
                  bool verbose) {
   std::set<std::pair<int, int>> named;
@@ -306,6 +343,7 @@ void ScoreCopies(const synth::Tradition& t, const lineage::LineageReport& r, Tot
     if (right) named.insert({copy, exemplar});
     const bool against = n.date.to < t.nodes[static_cast<std::size_t>(exemplar)].date.from;
     s.against_dates += against;
+    if (std::getenv("LINEAGE_BENCH_CLAIMS")) ClaimFeatures(r, c, right);
     if (verbose && against) std::printf("  against the dates: %s\n", c.text.c_str());
     if (verbose && !right) std::printf("  wrong copy: %s\n", c.text.c_str());
   }
@@ -319,8 +357,7 @@ void ScoreCopies(const synth::Tradition& t, const lineage::LineageReport& r, Tot
     if (verbose && !hit) {
       const auto& e = t.nodes[static_cast<std::size_t>(n.parent)];
       std::printf("  missed copy%s %s < %s%s\n", MarkedCopy(t, w) ? " (marked)" : "",
-                  n.name.c_str(), e.name.c_str(),
-                  WhyMissed(t, r, w, n.parent).c_str());
+                  n.name.c_str(), e.name.c_str(), WhyMissed(t, r, w, n.parent).c_str());
     }
   }
 }
@@ -471,10 +508,10 @@ void Print(const Totals& a, unsigned first) {
       "  direct copies                precision %.3f (%ld of %ld), recall %.3f (%ld of %ld)\n",
       Share(a.claims_right, a.claims), a.claims_right, a.claims, Share(a.copies_named, a.copies),
       a.copies_named, a.copies);
-  std::printf("  marked copies named          %.3f (%ld of %ld: two slips of the exemplar and "
-              "one of the copy, or the dates, show)\n",
-              Share(a.marked_copies_named, a.marked_copies), a.marked_copies_named,
-              a.marked_copies);
+  std::printf(
+      "  marked copies named          %.3f (%ld of %ld: two slips of the exemplar and "
+      "one of the copy, or the dates, show)\n",
+      Share(a.marked_copies_named, a.marked_copies), a.marked_copies_named, a.marked_copies);
   std::printf(
       "  contaminated witnesses       precision %.3f (%ld of %ld), recall %.3f (%ld of %ld)\n",
       Share(a.flagged_right, a.flagged), a.flagged_right, a.flagged,
