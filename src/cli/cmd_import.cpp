@@ -161,7 +161,9 @@ Sources ListSources(ImportOptions& o) {
   if (!o.csv.empty()) {
     if (o.sheet.head.witness.siglum.empty())
       throw InputError::ForOption("--witness", "expected the siglum of the CSV sheets, found none");
-    for (auto& s : SheetsFromFiles(o.csv, o.sheet)) sources.sheets.push_back(std::move(s));
+    auto sheets = SheetsFromFiles(o.csv, o.sheet);
+    sources.sheets.reserve(sources.sheets.size() + sheets.size());
+    for (auto& s : sheets) sources.sheets.push_back(std::move(s));
   } else if (o.manifest.empty() && GivesAttributes(o)) {
     throw InputError::ForOption(
         "--csv", "expected CSV sheets for the table and witness options, found none");

@@ -14,6 +14,16 @@ namespace {
 
 using Units = Sexagesimal::Units;
 
+/// The fractional places read so far, accumulated as they come: no
+/// allocation per number (the store decodes a million cells with Parse).
+struct Fractions {
+  Units units = 0;  ///< the first kMaxPlaces places as units of the last of them
+  int count = 0;    ///< every place read, also beyond kMaxPlaces (an error later)
+  void Add(int place) {
+    if (count++ < Sexagesimal::kMaxPlaces) units = units * 60 + place;
+  }
+};
+
 /// A small hand-written reader for one number in the trade's notation.
 class NumberReader {
  public:
@@ -31,8 +41,8 @@ class NumberReader {
   }
   std::optional<std::int64_t> Digits(int max_digits);
   bool Fail(NumberSyntaxError* error, std::string expected);
-  bool ReadTradeFractions(std::vector<int>& fractions, NumberSyntaxError* error);
-  bool ReadDegreeForm(std::int64_t integer, std::vector<int>& fractions, NumberSyntaxError* error);
+  bool ReadTradeFractions(Fractions& fractions, NumberSyntaxError* error);
+  bool ReadDegreeForm(Fractions& fractions, NumberSyntaxError* error);
   bool AcceptMinuteMark() { return Accept("'") || Accept("\u2032"); }
   bool AcceptSecondMark() { return Accept("\"") || Accept("\u2033") || Accept("''"); }
 
@@ -74,7 +84,7 @@ bool NumberReader::Fail(NumberSyntaxError* error, std::string expected) {
   return false;
 }
 
-bool NumberReader::ReadTradeFractions(std::vector<int>& fractions, NumberSyntaxError* error) {
+bool NumberReader::ReadTradeFractions(Fractions& fractions, NumberSyntaxError* error) {
   do {
     std::size_t start = pos_;
     auto d = Digits(3);
@@ -83,14 +93,12 @@ bool NumberReader::ReadTradeFractions(std::vector<int>& fractions, NumberSyntaxE
       pos_ = start;
       return Fail(error, "a place from 0 to 59");
     }
-    fractions.push_back(static_cast<int>(*d));
+    fractions.Add(static_cast<int>(*d));
   } while (Accept(","));
   return true;
 }
 
-bool NumberReader::ReadDegreeForm(std::int64_t integer, std::vector<int>& fractions,
-                                  NumberSyntaxError* error) {
-  (void)integer;
+bool NumberReader::ReadDegreeForm(Fractions& fractions, NumberSyntaxError* error) {
   // After the degree sign: minutes with their mark, then optional seconds.
   for (int k = 0; k < 2 && !AtEnd(); ++k) {
     std::size_t start = pos_;
@@ -100,7 +108,7 @@ bool NumberReader::ReadDegreeForm(std::int64_t integer, std::vector<int>& fracti
       pos_ = start;
       return Fail(error, "a place from 0 to 59");
     }
-    fractions.push_back(static_cast<int>(*d));
+    fractions.Add(static_cast<int>(*d));
     if (k == 0 && !AcceptMinuteMark()) return Fail(error, "a minute mark (')");
     if (k == 1 && !AcceptSecondMark()) return Fail(error, "a second mark (\")");
   }
@@ -110,14 +118,16 @@ bool NumberReader::ReadDegreeForm(std::int64_t integer, std::vector<int>& fracti
 std::optional<Sexagesimal> NumberReader::Read(NumberSyntaxError* error) {
   bool negative = Accept("-") || (Accept("\u2212"));
   if (!negative) Accept("+");
-  std::vector<std::int64_t> integer_places;
-  std::vector<int> fractions;
+  Fractions fractions;
   std::size_t first = pos_;
   auto d = Digits(13);
   if (!d) return Fail(error, "a digit"), std::nullopt;
-  integer_places.push_back(*d);
+  // The integer part: one run of digits, or sexagesimal places after commas
+  // (1,30 = 90), accumulated as read; its limit is reported after the syntax.
+  Units integer = *d;
+  bool too_large = integer >= Sexagesimal::kIntegerLimit;
   if (Accept("\u00b0")) {
-    if (!ReadDegreeForm(*d, fractions, error)) return std::nullopt;
+    if (!ReadDegreeForm(fractions, error)) return std::nullopt;
   } else {
     while (Accept(",")) {
       std::size_t start = pos_;
@@ -127,25 +137,25 @@ std::optional<Sexagesimal> NumberReader::Read(NumberSyntaxError* error) {
         pos_ = start;
         return Fail(error, "a place from 0 to 59"), std::nullopt;
       }
-      integer_places.push_back(*p);
+      if (!too_large) {
+        integer = integer * 60 + *p;
+        too_large = integer >= Sexagesimal::kIntegerLimit;
+      }
     }
     if (Accept(";") && !ReadTradeFractions(fractions, error)) return std::nullopt;
   }
   if (!AtEnd())
-    return Fail(error, fractions.empty() ? "';' or ','" : "',' or end of number"), std::nullopt;
-  if (fractions.size() > static_cast<std::size_t>(Sexagesimal::kMaxPlaces)) {
+    return Fail(error, fractions.count == 0 ? "';' or ','" : "',' or end of number"), std::nullopt;
+  if (fractions.count > Sexagesimal::kMaxPlaces) {
     pos_ = first;
     return Fail(error, "at most 12 fractional places"), std::nullopt;
   }
-  Units integer = 0;
-  for (auto p : integer_places) {
-    integer = integer * (integer_places.size() > 1 ? 60 : 1) + p;
-    if (integer >= Sexagesimal::kIntegerLimit) {
-      pos_ = first;
-      return Fail(error, "an integer part below 10^12"), std::nullopt;
-    }
+  if (too_large) {
+    pos_ = first;
+    return Fail(error, "an integer part below 10^12"), std::nullopt;
   }
-  return Sexagesimal::FromParts(negative, static_cast<std::int64_t>(integer), fractions);
+  const Units units = integer * PowerOf60(fractions.count) + fractions.units;
+  return Sexagesimal::FromUnits(negative ? -units : units, fractions.count);
 }
 
 }  // namespace

@@ -63,13 +63,20 @@ class Reader {
 
   std::string String() {
     std::string out;
+    StringInto(out);
+    return out;
+  }
+  /// Reads a string into `out` (replacing what it held): a cell's reading
+  /// goes straight into its place, no string built in between.
+  void StringInto(std::string& out) {
+    out.clear();
     Expect('"', "a string");
     for (;;) {
       const std::size_t start = pos_;
       while (pos_ < text_.size() && text_[pos_] != '"' && text_[pos_] != '\\') ++pos_;
       out.append(text_.data() + start, pos_ - start);
       if (pos_ >= text_.size()) Fail("the end of a string");
-      if (text_[pos_++] == '"') return out;
+      if (text_[pos_++] == '"') return;
       Escape(out);
     }
   }
@@ -172,12 +179,12 @@ void ReadDetail(Reader& in, const std::string& key, Cell& c, std::optional<std::
   }
 }
 
-Cell ReadCell(Reader& in, int column_places, int row_line) {
-  Cell c;
+/// One cell into `c`, a fresh Cell in its place in the row.
+void ReadCell(Reader& in, int column_places, int row_line, Cell& c) {
   c.places = column_places;
   c.line = row_line;
   in.Expect('[', "a cell");
-  c.raw = in.String();
+  in.StringInto(c.raw);
   in.Expect(',', "a comma");
   c.column = static_cast<int>(in.Integer());
   std::optional<std::string> value;
@@ -201,7 +208,6 @@ Cell ReadCell(Reader& in, int column_places, int row_line) {
   } else if (value) {
     in.Fail("no value for a cell not read");
   }
-  return c;
 }
 
 /// One row, `[line,argument,cell,...]`, appended to `t.rows`.
@@ -212,11 +218,12 @@ void ReadRow(Reader& in, Transcription& t) {
   Row& row = t.rows.emplace_back();
   row.line = static_cast<int>(line);
   in.Expect(',', "a comma");
-  row.argument = ReadCell(in, t.argument.places, row.line);
+  ReadCell(in, t.argument.places, row.line, row.argument);
   row.cells.reserve(t.columns.size());
   while (in.Take(',')) {
     if (row.cells.size() == t.columns.size()) in.Fail("one cell per column");
-    row.cells.push_back(ReadCell(in, t.columns[row.cells.size()].places, row.line));
+    const int places = t.columns[row.cells.size()].places;
+    ReadCell(in, places, row.line, row.cells.emplace_back());
   }
   in.Expect(']', "the end of the row");
   if (row.cells.size() != t.columns.size()) in.Fail("one cell per column");

@@ -13,60 +13,54 @@ std::optional<Sexagesimal> ValueFromText(const std::optional<std::string>& text)
   return v;
 }
 
-struct RevisionKey {
-  std::int64_t id = 0;
-  int number = 0;
-};
+/// The error for a transcription or revision that is not there.
+[[noreturn]] void NoRevision(Database& db, const std::string& table_id, const std::string& siglum,
+                             std::optional<int> revision) {
+  std::string what = "table '" + table_id + "' of witness '" + siglum + "'";
+  if (revision && HasTranscription(db, table_id, siglum)) {
+    throw InputError::ForFile(db.path(), ExpectedFound("a revision of " + what,
+                                                       "no revision " + std::to_string(*revision) +
+                                                           " (see apograph list revisions)"));
+  }
+  throw InputError::ForFile(db.path(), ExpectedFound("a transcription of " + what,
+                                                     "none (see apograph list transcriptions)"));
+}
 
-/// Finds the revision id of a transcription's current or given revision.
-RevisionKey FindRevision(Database& db, const std::string& table_id, const std::string& siglum,
-                         std::optional<int> revision) {
+/// A transcription's current or given revision: its id, number and
+/// metadata, and the text of its cells (`revision_cells.rows`, column 20),
+/// in ONE statement, which `fit --all` runs once per table (it was three).
+Statement FindRevision(Database& db, const std::string& table_id, const std::string& siglum,
+                       std::optional<int> revision) {
   auto s = db.Prepare(
-      "SELECT r.id, r.number FROM revision r JOIN transcription t ON t.id = r.transcription_id "
+      "SELECT r.id, r.number, t.table_id, t.siglum, r.source_file, r.source_text, r.work_id, "
+      "r.work_title, r.work_author, r.table_title, r.table_kind, r.library, r.shelfmark, "
+      "r.witness_date, r.script, r.witness_note, r.folios, r.hand, r.row_count, r.witness_kind, "
+      "rc.rows FROM revision r JOIN transcription t ON t.id = r.transcription_id "
+      "LEFT JOIN revision_cells rc ON rc.revision_id = r.id "
       "WHERE t.table_id = ?1 AND t.siglum = ?2 AND (?3 IS NULL OR r.number = ?3) "
       "ORDER BY r.number DESC LIMIT 1");
   s.Bind(1, table_id).Bind(2, siglum).Bind(3, revision);
-  if (!s.Step()) {
-    std::string what = "table '" + table_id + "' of witness '" + siglum + "'";
-    if (revision && HasTranscription(db, table_id, siglum)) {
-      throw InputError::ForFile(
-          db.path(),
-          ExpectedFound("a revision of " + what, "no revision " + std::to_string(*revision) +
-                                                     " (see apograph list revisions)"));
-    }
-    throw InputError::ForFile(db.path(), ExpectedFound("a transcription of " + what,
-                                                       "none (see apograph list transcriptions)"));
-  }
-  return {s.Int(0), static_cast<int>(s.Int(1))};
+  if (!s.Step()) NoRevision(db, table_id, siglum, revision);
+  return s;
 }
 
-/// Fills the metadata of `t`; returns the revision's number of rows.
-std::int64_t LoadMetadata(Database& db, std::int64_t revision, Transcription& t) {
-  auto s = db.Prepare(
-      "SELECT t.table_id, t.siglum, r.source_file, r.source_text, r.work_id, r.work_title, "
-      "r.work_author, r.table_title, r.table_kind, r.library, r.shelfmark, r.witness_date, "
-      "r.script, r.witness_note, r.folios, r.hand, r.row_count, r.witness_kind "
-      "FROM revision r JOIN transcription t ON t.id = r.transcription_id WHERE r.id = ?1");
-  s.Bind(1, revision);
-  if (!s.Step()) throw StoreError("revision " + std::to_string(revision) + " vanished");
-  t.table_id = s.Text(0);
-  t.witness.siglum = s.Text(1);
-  t.source_file = s.Text(2);
-  t.source_text = s.Text(3);
-  t.work = {s.Text(4), s.Text(5), s.Text(6)};
-  t.table_title = s.Text(7);
-  t.kind = s.Text(8);
-  t.witness.library = s.Text(9);
-  t.witness.shelfmark = s.Text(10);
-  t.witness.date = s.Text(11);
-  t.witness.script = s.Text(12);
-  t.witness.note = s.Text(13);
-  t.folios = s.Text(14);
-  t.hand = s.Text(15);
-  t.witness.kind = s.Text(17);
-  const std::int64_t rows = s.Int(16);
-  t.rows.reserve(static_cast<std::size_t>(rows));
-  return rows;
+/// Fills the metadata of `t` from the row of FindRevision.
+void ReadMetadata(const Statement& s, Transcription& t) {
+  t.table_id = s.Text(2);
+  t.witness.siglum = s.Text(3);
+  t.source_file = s.Text(4);
+  t.source_text = s.Text(5);
+  t.work = {s.Text(6), s.Text(7), s.Text(8)};
+  t.table_title = s.Text(9);
+  t.kind = s.Text(10);
+  t.witness.library = s.Text(11);
+  t.witness.shelfmark = s.Text(12);
+  t.witness.date = s.Text(13);
+  t.witness.script = s.Text(14);
+  t.witness.note = s.Text(15);
+  t.folios = s.Text(16);
+  t.hand = s.Text(17);
+  t.witness.kind = s.Text(19);
 }
 
 void LoadLayout(Database& db, std::int64_t revision, Transcription& t) {
@@ -91,12 +85,13 @@ void LoadLayout(Database& db, std::int64_t revision, Transcription& t) {
   }
 }
 
-/// Rows in order, decoded from the revision's JSON (cell_json.hpp); the same
-/// decoding as the view `cell`, which the tests compare with it.
-void LoadCells(Database& db, std::int64_t revision, std::int64_t row_count, Transcription& t) {
-  auto s = db.Prepare("SELECT rows FROM revision_cells WHERE revision_id = ?1");
-  s.Bind(1, revision);
-  if (s.Step()) DecodeRevisionRows(s.TextView(0), t);
+/// Rows in order, decoded from the revision's JSON (cell_json.hpp), after
+/// its layout (which gives the places); the same decoding as the view
+/// `cell`, which the tests compare with it.
+void ReadCells(const Statement& s, Transcription& t) {
+  const std::int64_t revision = s.Int(0), row_count = s.Int(18);
+  t.rows.reserve(static_cast<std::size_t>(row_count));
+  if (!s.IsNull(20)) DecodeRevisionRows(s.TextView(20), t);
   if (static_cast<std::int64_t>(t.rows.size()) != row_count) {
     throw StoreError("revision " + std::to_string(revision) + " holds " +
                      std::to_string(t.rows.size()) + " rows of cells, not its " +
@@ -125,12 +120,12 @@ RevisionSummary ReadRevisionSummary(const Statement& s) {
 
 Transcription Load(Database& db, const std::string& table_id, const std::string& siglum,
                    std::optional<int> revision) {
-  ReadTransaction read(db);  // one lock for the four statements, one consistent revision
-  const RevisionKey key = FindRevision(db, table_id, siglum, revision);
+  ReadTransaction read(db);  // one lock for the two statements, one consistent revision
+  const Statement found = FindRevision(db, table_id, siglum, revision);
   Transcription t;
-  const std::int64_t rows = LoadMetadata(db, key.id, t);
-  LoadLayout(db, key.id, t);
-  LoadCells(db, key.id, rows, t);
+  ReadMetadata(found, t);
+  LoadLayout(db, found.Int(0), t);
+  ReadCells(found, t);
   read.End();
   return t;
 }

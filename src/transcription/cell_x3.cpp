@@ -204,9 +204,56 @@ ReadingInfo Evaluate(const NumberScan& scan, std::string_view text, std::size_t 
   return info;
 }
 
+/// The common reading, `[-+]D(,D)*(;D(,D)*)?` with every place written in
+/// digits, read without the grammar: a sheet of 360 rows holds 720 of them,
+/// and the grammar's general machinery was a third of reading one (perf,
+/// 1,000 sheets). Anything else, and anything the grammar would refuse
+/// (a place above 59, too many places or digits, too large a value), is
+/// left to it: nullopt. Equal to the grammar's result wherever it answers
+/// (tests/transcription/reading_fast_test.cpp compares them).
+std::optional<ReadingInfo> ScanPlainTrade(std::string_view text) {
+  std::size_t i = 0;
+  const bool negative = !text.empty() && text[0] == '-';
+  if (!text.empty() && (text[0] == '-' || text[0] == '+')) i = 1;
+  Sexagesimal::Units units = 0;
+  int integer_places = 0, fraction_places = 0;
+  bool in_fraction = false;
+  for (;;) {
+    const std::size_t start = i;
+    std::uint64_t value = 0;
+    while (i < text.size() && text[i] >= '0' && text[i] <= '9' && i - start < kMaxIntegerDigits)
+      value = value * 10 + static_cast<std::uint64_t>(text[i++] - '0');
+    if (i == start || (i < text.size() && text[i] >= '0' && text[i] <= '9')) return std::nullopt;
+    const bool leading = !in_fraction && integer_places == 0;
+    if (leading ? value >= static_cast<std::uint64_t>(Sexagesimal::kIntegerLimit) : value > 59)
+      return std::nullopt;
+    (in_fraction ? fraction_places : integer_places) += 1;
+    if (fraction_places > Sexagesimal::kMaxPlaces || integer_places + fraction_places > kMaxTokens)
+      return std::nullopt;
+    units = units * 60 + static_cast<Sexagesimal::Units>(value);  // 0 before the first place
+    if (!in_fraction && units >= Sexagesimal::kIntegerLimit) return std::nullopt;
+    if (i == text.size()) break;
+    if (text[i] == ';' && !in_fraction) {
+      in_fraction = true;
+    } else if (text[i] != ',') {
+      return std::nullopt;
+    }
+    ++i;
+  }
+  ReadingInfo info;
+  info.fraction_places = fraction_places;
+  info.value = Sexagesimal::FromUnits(negative ? -units : units, fraction_places);
+  return info;
+}
+
 }  // namespace
 
 ReadingInfo ParseReading(std::string_view text, int places, std::size_t base) {
+  if (auto plain = ScanPlainTrade(text)) return *plain;
+  return ParseReadingByGrammar(text, places, base);
+}
+
+ReadingInfo ParseReadingByGrammar(std::string_view text, int places, std::size_t base) {
   ReadingInfo info;
   if (text == "_") {
     info.state = CellState::kBlank;

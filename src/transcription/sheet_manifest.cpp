@@ -247,6 +247,7 @@ std::vector<SheetEntry> SheetsFromFiles(const std::vector<std::string>& files,
                                     std::to_string(files.size()));
   }
   std::vector<SheetEntry> out;
+  out.reserve(files.size());  // an entry holds a table's head: grown, they were all copied
   for (const auto& f : files) {
     SheetEntry& e = out.emplace_back();
     e.path = f;

@@ -92,6 +92,10 @@ struct ReadingInfo {
 /// line, for error positions. Throws LineError.
 ReadingInfo ParseReading(std::string_view text, int places, std::size_t base);
 
+/// ParseReading by the grammar alone, without its fast path for the plain
+/// trade form (which must agree with it; for the tests that check so).
+ReadingInfo ParseReadingByGrammar(std::string_view text, int places, std::size_t base);
+
 /// Parses the reading of an argument cell. Besides ParseReading's forms it
 /// takes a decimal (`88.5` is 88;30: every decimal fraction is an exact
 /// sexagesimal one) and fewer places than the argument's (`1` in an argument

@@ -92,6 +92,33 @@ TEST_CASE("limits: 12 places, integer part below 10^12, no silent wrap") {
   CHECK(Str(S("1000000;1,2,3,4,5,6,7,8") * 59) == "59000001;1,1,1,1,1,1,0,52");
 }
 
+TEST_CASE("the limits are reported after the syntax, at the number's first digit") {
+  NumberSyntaxError e;
+  // Sexagesimal integer places: 1,0,0,0,0,0,0,0 is 60^7 (about 2.8 * 10^12).
+  CHECK(Str(S("21,26,0,29,37,46,39;0")) == "999999999999;0");
+  CHECK_FALSE(Sexagesimal::Parse("21,26,0,29,37,46,40;0"));
+  CHECK_FALSE(Sexagesimal::Parse("-1,0,0,0,0,0,0,0;5", &e));
+  CHECK(e.column == 1);
+  CHECK(e.expected == "an integer part below 10^12");
+  // Too many places is said before too large a value, a bad character before both.
+  CHECK_FALSE(Sexagesimal::Parse("1,0,0,0,0,0,0,0;1,1,1,1,1,1,1,1,1,1,1,1,1", &e));
+  CHECK(e.column == 0);
+  CHECK(e.expected == "at most 12 fractional places");
+  CHECK_FALSE(Sexagesimal::Parse("1,0,0,0,0,0,0,0,0,0,0,0,0,0,0,0,0,0,0,0,0,0,0,0,0;1x", &e));
+  CHECK(e.column == 51);
+  CHECK(e.expected == "',' or end of number");
+  CHECK_FALSE(Sexagesimal::Parse("10000000000000", &e));
+  CHECK(e.expected == "';' or ','");  // 13 digits at most, then the 14th is unexpected
+  CHECK(Str(S("2\u00b023'10\"")) == "2;23,10");
+  CHECK(Str(S("-12\u00b05'")) == "-12;5");
+  // Every value of two places from -2;0,0 to 2;0,0 reads back as written.
+  for (int units = -2 * 3600; units <= 2 * 3600; ++units) {
+    const auto v = Sexagesimal::FromUnits(units, 2);
+    REQUIRE(Sexagesimal::Parse(v.ToString()));
+    CHECK(Sexagesimal::Parse(v.ToString())->Identical(v));
+  }
+}
+
 TEST_CASE("exact addition, subtraction, multiplication and comparison") {
   CHECK(Str(S("0;59,8") + S("0;0,52")) == "1;0,0");
   CHECK(Str(S("1;0") - S("0;0,1")) == "0;59,59");

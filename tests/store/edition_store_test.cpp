@@ -79,6 +79,20 @@ TEST_CASE("an imported transcription loads back with the same content and proven
   CHECK(back.rows[5].cells[0].note == "ink faded");
 }
 
+TEST_CASE("a revision whose cells are missing is reported as such, not as no transcription") {
+  TempDb file("lost-cells");
+  Database db(file.path());
+  store::Import(db, {MakeTranscription("sun-eq", "K")});
+  db.Execute("DELETE FROM revision_cells");  // damage that Load's one statement must still see
+  try {
+    store::Load(db, "sun-eq", "K");
+    FAIL("loaded a revision without its cells");
+  } catch (const StoreError& e) {
+    CHECK(std::string(e.what()).find("holds 0 rows of cells, not its 12 rows") !=
+          std::string::npos);
+  }
+}
+
 TEST_CASE("a double-argument table keeps its column argument and arg2 values") {
   TempDb file("grid");
   Database db(file.path());
