@@ -26,7 +26,11 @@
 //    groups;
 //  - direct copies: a claim (not twins left open) is right when its
 //    exemplar is the copy's exemplar or second exemplar; the true copies
-//    are the surviving witnesses whose exemplar survives;
+//    are the surviving witnesses whose exemplar survives; a true copy is
+//    *marked* when it still shows two slips its exemplar made and one of
+//    its own, or its exemplar's dates lie wholly before its own
+//    (MarkedCopy): otherwise no reading tells it from a sibling or from
+//    its exemplar;
 //  - contaminated witnesses: surviving witnesses with a second exemplar,
 //    or whose ancestors up to the first surviving one (included) have one;
 //    a witness is found when the report calls it contaminated or names it
