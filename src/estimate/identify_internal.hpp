@@ -152,12 +152,15 @@ FitResult FitHolding(const Candidate& best, const Transcription& table,
 /// The first trial that keeps the fit's entries (see round_values.cpp);
 /// among acceptable trials of the same group (equally simple: attested
 /// values of as many places, or the two roundings beside the estimate) the
-/// one that reproduces most entries exactly, then the earlier.
+/// one that reproduces most entries exactly, then the earlier. For a `rate`
+/// a rounding that reproduces fewer than kRoundingMargin (round_values.cpp)
+/// entries exactly more than the other acceptable value of its group is not
+/// adopted (none is returned).
 std::optional<std::pair<Trial, FitResult>> FirstAcceptable(
     const std::vector<Trial>& trials, const Candidate& best, const Transcription& table,
     const std::vector<Observation>& obs, const FitResult& current,
     std::map<std::string, double> fixed, std::optional<double> displacement,
-    const std::string& param);
+    const std::string& param, bool rate = false);
 
 /// Two parameters adopted together (see AdoptJointly).
 struct Pair {
