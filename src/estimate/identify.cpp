@@ -338,6 +338,7 @@ Identification Identify(const Transcription& table, int column, const IdentifyOp
   Verdict(out, table);
   out.mean_motion = MeanMotionOf(table, column, out);
   if (options.adopt_round_values && out.explained) {
+    internal::RestartFromAttestedSet(out.ranked.front(), table, obs, options.catalog);
     out.ranked.front().adoption =
         internal::AdoptRoundValues(out.ranked.front(), table, obs, options.catalog,
                                    out.mean_motion ? &*out.mean_motion : nullptr);

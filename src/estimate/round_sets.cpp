@@ -1,7 +1,9 @@
 // A table of positions' geometry adopted as one set (see round_values.cpp):
 // where the entries leave the parameters on a ridge, the attested values of
 // one tradition held together (a planet's epicycle and eccentricity), the
-// motions searched afresh under them.
+// motions searched afresh under them; and the free fit started again from
+// there (RestartFromAttestedSet), which on a ridge often reaches a lower
+// cost than from the fit's own starts.
 #include <algorithm>
 #include <map>
 #include <string>
@@ -100,6 +102,30 @@ std::optional<Pair> AdoptAttestedSet(const Candidate& best, const Transcription&
     chosen = std::move(pair);
   }
   return chosen;
+}
+
+bool RestartFromAttestedSet(Candidate& best, const Transcription& table,
+                            const std::vector<Observation>& obs,
+                            const std::vector<CatalogEntry>* catalog) {
+  const std::optional<Pair> set = AdoptAttestedSet(best, table, obs, catalog);
+  if (!set) return false;
+  FitOptions fo;
+  fo.practice = best.fit.practice;
+  fo.fit_displacement = best.fit.practice.displacement != 0;
+  for (const auto& p : best.fit.params) {
+    if (p.fixed)
+      fo.fixed[p.name] = p.value;
+    else
+      fo.start[p.name] = set->fit.Value(p.name);
+  }
+  // As many steps as the screen gives a planet (identify.cpp, Screen):
+  // the valley from the set's values to the free optimum is as long.
+  fo.max_iterations = 150;
+  FitResult freed = Fit(*best.model, table, obs, fo);
+  if (!(freed.cost < best.fit.cost)) return false;
+  best.score = Score(freed, best.penalised_parameters, &best.log_likelihood);
+  best.fit = std::move(freed);
+  return true;
 }
 
 }  // namespace apograph::estimate::internal
