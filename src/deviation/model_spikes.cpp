@@ -18,6 +18,9 @@ constexpr double kSpikeRatio = 4;
 // Judgement: neighbours within two rows each side; farther, the line through
 // them misses a curving column by more than a slip would.
 constexpr std::size_t kAnchorReach = 2;
+// Judgement: the author's largest usual departure (AuthorProfile::typical
+// is at most 2), in units of the last place.
+constexpr double kOnLine = 2;
 
 /// The nearest row within kAnchorReach on one side (`step` -1 or +1) whose
 /// reading departs from the model within the author's departure.
@@ -84,6 +87,12 @@ std::vector<std::optional<OffCurve>> ModelOffCurve(const Transcription& table,
     const double bend = std::max(*lo >= 1 ? Curvature(values, *lo - 1, places) : 0.0,
                                  Curvature(values, *hi + 1, places)) *
                         static_cast<double>((r - *lo) * (*hi - r)) / 2;
+    // The entry itself lies on the line, within the line's own error there
+    // and the author's largest usual departure (two units; judgement): an
+    // entry off the line is a slip whatever the model does (seeds 281-310 of
+    // deviation_bench: a transposition 374 units off a line the model missed
+    // by 2,340 was kept without this; DEVELOPERS.md, eighteenth round).
+    if (reading_off > bend + kOnLine) continue;
     if (model_off < kSpikeRatio * std::max({reading_off, bend, 1.0})) continue;
     out[r] = OffCurve{*lo, *hi, reading_off, model_off};
   }
