@@ -123,6 +123,14 @@ struct DiffColumn {
 };
 DiffColumn Diffs(const Transcription& table, const ColumnValues& values, int places);
 
+/// A row whose entry lies near the line through its nearest neighbours
+/// that read the model (rows `lo` and `hi`) while the model lies far off it.
+struct OffCurve {
+  std::size_t lo = 0, hi = 0;
+  double reading_off = 0;  ///< units from the line to the entry
+  double model_off = 0;    ///< units from the line to the model
+};
+
 /// What the column tells about its author and its copyist.
 struct ColumnContext {
   DiffColumn diffs;
@@ -155,6 +163,9 @@ struct ColumnContext {
   /// the author's departure in both directions and the departures cancel
   /// (CompensatingRows): the model, not the tradition, misses those rows.
   std::vector<std::optional<std::pair<std::size_t, std::size_t>>> compensating;
+  /// Per row beyond the author's departure, where the model, not the entry,
+  /// leaves the column's curve (ModelOffCurve).
+  std::vector<std::optional<OffCurve>> off_curve;
   /// The original's most likely reading of a row: the tradition's when it
   /// lies within the author's departure of the model, else the model's.
   std::optional<Sexagesimal> Original(std::size_t row, const ColumnValues& values,
@@ -178,6 +189,20 @@ ColumnContext MeasureColumn(const Transcription& table, const ColumnValues& valu
 std::vector<std::optional<std::pair<std::size_t, std::size_t>>> CompensatingRows(
     const ColumnValues& values, const ExplainOptions& options, const AuthorProfile& author,
     int places);
+/// Per row beyond the author's departure and not contradicted by the other
+/// witnesses' consensus, the line through the nearest rows (two at most each
+/// side) whose readings lie within the author's departure of the model: set
+/// where the model lies kSpikeRatio times farther from it than the entry
+/// does. A copy's slip leaves that line, the model staying on it; here the
+/// model leaves it (a derived model computed from a miscopied source entry or
+/// argument, a fitted reference off at the row), so the entry is not emended
+/// on the model's word.
+std::vector<std::optional<OffCurve>> ModelOffCurve(const Transcription& table,
+                                                   const ColumnValues& values,
+                                                   const ColumnContext& column, int places);
+/// The finding of such a row: kept against the model, no emendation.
+Finding OffCurveFinding(const Transcription& table, const ColumnValues& values,
+                        const ColumnContext& column, std::size_t row, int places);
 /// The finding of a row this copy reads as the tradition does where the
 /// model misses it in a compensating window (ColumnContext::compensating):
 /// kept against the model, no emendation.

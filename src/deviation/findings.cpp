@@ -266,6 +266,7 @@ ColumnContext MeasureColumn(const Transcription& table, const ColumnValues& valu
     if (k <= out.author.typical || out.compensating[r]) out.tradition_reading[r] = consensus;
   }
   out.slip_rate = std::min(kSlipRateCeiling, Shrunk(deviant, compared, kSlipRatePrior));
+  out.off_curve = ModelOffCurve(table, values, out, places);
   return out;
 }
 

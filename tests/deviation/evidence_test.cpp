@@ -773,3 +773,52 @@ TEST_CASE("neighbouring rows the tradition reads off the model both ways, cancel
   }
   CHECK(kept_rows == 5 * 8 - 1);
 }
+
+TEST_CASE("an entry on its neighbours' line where the model leaves it is kept, not emended") {
+  // A derived model computed from a miscopied source entry or argument
+  // leaves the column's curve at one row while the copy reads the author's
+  // value there: the model is computed at another argument, or from nothing
+  // (0). Two columns, five such rows each, at different slopes and bends;
+  // with the change switched off every one is emended to the model's
+  // reading. A copy's own slips (a digit, a repeated line) at rows where the
+  // model is right stay slips with the original's reading.
+  int kept = 0, spoiled = 0, slips = 0, restored = 0;
+  for (const auto& f : {testing::SolarEquation, testing::Chord}) {
+    Synthetic s = MakeTable(f, 1, 1, 180, 2);
+    const std::vector<std::size_t> rows = {20, 50, 90, 130, 160};
+    for (std::size_t i = 0; i < rows.size(); ++i) {
+      const std::size_t r = rows[i];
+      const double elsewhere = i % 2 == 0 ? f(static_cast<double>(r) + 38) : 0.0;
+      s.values.computed[r] = Sexagesimal::FromDouble(elsewhere, 2);
+      s.values.exact[r] = elsewhere;
+    }
+    const std::size_t digit = 40, repeated = 110;
+    const Sexagesimal original_digit = *s.table.rows[digit].cells[0].value;
+    const Sexagesimal original_repeated = *s.table.rows[repeated].cells[0].value;
+    s.Set(digit, (original_digit + Sexagesimal::FromUnits(10, 2)).ToString());
+    s.Set(repeated, s.table.rows[repeated - 1].cells[0].value->ToString());
+    const auto findings = ExplainColumn(s.table, s.values, FindNumeralScript("hindu-arabic", kDir));
+    for (std::size_t r : rows) {
+      const Finding* found = At(findings, r);
+      REQUIRE(found != nullptr);
+      INFO(found->Note("A"));
+      ++spoiled;
+      const bool kept_here =
+          found->kept_against_model && !found->cells.front().emendation &&
+          found->best().evidence.find("leaves the column's curve") != std::string::npos;
+      kept += kept_here;
+      CHECK(kept_here);
+    }
+    for (const auto& [r, original] :
+         {std::pair{digit, original_digit}, std::pair{repeated, original_repeated}}) {
+      const Finding* found = At(findings, r);
+      REQUIRE(found != nullptr);
+      INFO(found->Note("A"));
+      slips += IsCopyingSlip(found->best().cls) && !found->kept_against_model;
+      restored += found->cells.front().emendation && *found->cells.front().emendation == original;
+    }
+  }
+  CHECK(kept == spoiled);
+  CHECK(slips == 4);
+  CHECK(restored == 4);
+}
