@@ -239,6 +239,10 @@ CellContext MakeContext(const Transcription& table, const ColumnValues& values,
 FindingCell MakeCell(const Transcription& table, const ColumnValues& values, std::size_t row,
                      int places);
 Finding NewFinding(const Transcription& table, const ColumnValues& values, int places);
+/// A finding for one row whose reading is kept against the model (no
+/// emendation), with the evidence said.
+Finding KeptAgainstModel(const Transcription& table, const ColumnValues& values, std::size_t row,
+                         int places, std::string evidence);
 
 Finding SingleFinding(const CellContext& c, const ColumnValues& values);
 /// A blank, illegible or partly read cell.

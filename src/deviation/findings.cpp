@@ -455,18 +455,25 @@ Finding CompensatedFinding(const Transcription& table, const ColumnValues& value
     departures += (departures.empty() ? "" : ", ") + Signed(d);
   }
   const double exact = row < values.exact.size() ? values.exact[row] : NAN;
+  return KeptAgainstModel(
+      table, values, row, places,
+      "read by " + std::to_string(t.agree) + " of the " + std::to_string(t.witnesses) +
+          " other witnesses too, " + SignedUnits(column.diffs.diff[row]) + " from the model (" +
+          ModelText(*values.computed[row], exact, places) + "); over rows " +
+          std::to_string(first + 1) + "-" + std::to_string(last + 1) +
+          " the tradition departs from the model by " + departures +
+          " units, which cancel: the model misses these rows (computed from a source entry the "
+          "author had otherwise, or fitted off there), not the tradition; no emendation on the "
+          "model's word alone; keep the reading");
+}
+
+Finding KeptAgainstModel(const Transcription& table, const ColumnValues& values, std::size_t row,
+                         int places, std::string evidence) {
   Finding f = NewFinding(table, values, places);
   Explanation e;
   e.cls = SlipClass::kComputational;
   e.score = kScoreTraditionKept;
-  e.evidence = "read by " + std::to_string(t.agree) + " of the " + std::to_string(t.witnesses) +
-               " other witnesses too, " + SignedUnits(column.diffs.diff[row]) +
-               " from the model (" + ModelText(*values.computed[row], exact, places) +
-               "); over rows " + std::to_string(first + 1) + "-" + std::to_string(last + 1) +
-               " the tradition departs from the model by " + departures +
-               " units, which cancel: the model misses these rows (computed from a source "
-               "entry the author had otherwise, or fitted off there), not the tradition; no "
-               "emendation on the model's word alone; keep the reading";
+  e.evidence = std::move(evidence);
   f.explanations.push_back(std::move(e));
   f.kept_against_model = true;
   f.cells.push_back(MakeCell(table, values, row, places));

@@ -109,19 +109,13 @@ Finding OffCurveFinding(const Transcription& table, const ColumnValues& values,
                 "the entry and %g units from the model",
                 off.lo + 1, off.hi + 1, std::round(off.reading_off * 100) / 100,
                 std::round(off.model_off * 100) / 100);
-  Finding f = NewFinding(table, values, places);
-  Explanation e;
-  e.cls = SlipClass::kComputational;
-  e.score = kScoreTraditionKept;
-  e.evidence = SignedUnits(column.diffs.diff[row]) + " from the model (" +
-               ModelText(*values.computed[row], exact, places) + "), but " + buf +
-               ": the model leaves the column's curve here, not the copy (a model derived from "
-               "a miscopied source entry or argument, or a reference off at this row); no "
-               "emendation on the model's word alone; keep the reading (undecided)";
-  f.explanations.push_back(std::move(e));
-  f.kept_against_model = true;
-  f.cells.push_back(MakeCell(table, values, row, places));
-  return f;
+  return KeptAgainstModel(
+      table, values, row, places,
+      SignedUnits(column.diffs.diff[row]) + " from the model (" +
+          ModelText(*values.computed[row], exact, places) + "), but " + buf +
+          ": the model leaves the column's curve here, not the copy (a model derived from a "
+          "miscopied source entry or argument, or a reference off at this row); no emendation "
+          "on the model's word alone; keep the reading (undecided)");
 }
 
 }  // namespace apograph::deviation::internal
