@@ -1,7 +1,6 @@
 #pragma once
-// What the contamination criteria share (relations.cpp: two lines;
-// one_line.cpp: one relative in one stretch; line_join.cpp; table_switch.cpp).
-// Not for other files.
+// What the two contamination criteria share (relations.cpp: two lines;
+// one_line.cpp: one relative in one stretch). Not for other files.
 
 #include <cstddef>
 #include <string>
@@ -44,9 +43,5 @@ void AddOneLine(const CharacterMatrix& m, const std::vector<Contamination>& foun
 /// with a relative there (its mixture explains the stretch) (line_join.cpp).
 void AddLineJoin(const CharacterMatrix& m, const std::vector<std::string>& named,
                  std::vector<Contamination>& kept);
-/// Adds to `kept` the witnesses the table-switch criterion flags, none of
-/// them in `named` and none with a relative there (table_switch.cpp).
-void AddTableSwitch(const CharacterMatrix& m, const std::vector<std::string>& named,
-                    std::vector<Contamination>& kept);
 
 }  // namespace apograph::lineage::contamination

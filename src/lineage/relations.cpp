@@ -401,11 +401,6 @@ std::vector<Contamination> FindContamination(const CharacterMatrix& m, double mi
   }
   for (const auto& k : kept) named.push_back(k.witness);
   AddLineJoin(m, named, kept);
-  for (const auto& k : kept) {
-    named.push_back(k.witness);
-    named.insert(named.end(), k.inherited_by.begin(), k.inherited_by.end());
-  }
-  AddTableSwitch(m, named, kept);
   return kept;
 }
 

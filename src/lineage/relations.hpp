@@ -213,25 +213,6 @@ inline constexpr double kOneLineRateRatio = 5;
 /// 0.014; of contaminated witnesses 4.5e-7, 0.0017, 0.0025, 0.0035, 0.0043.
 inline constexpr double kJoinChance = 0.003;
 
-/// The table-switch criterion (a fourth one, for a copyist who took whole
-/// tables from a second exemplar, where the two-line criterion sees too
-/// few slips on one side): witness C is contaminated when there are two
-/// witnesses X and Y (neither descending from C, neither flagged by the
-/// criteria above) and a boundary between tables such that, of X's errors
-/// that Y can be read at and lacks (and C can be read at), C holds
-/// kTableSwitchFirstSlips or more, all in the tables before the boundary,
-/// and of Y's errors that X lacks C holds kMinSideSlips or more, all from
-/// the boundary on; and held errors spread at random over each relative's
-/// errors would fall so with chance (the two hypergeometric chances,
-/// combined as Fisher's method does for two tests) at most
-/// kTableSwitchChance. Copied along a tree, C's ancestry is the same in
-/// every table: the share of a relative's errors it holds would not change
-/// at a table boundary from all to none (the errors C lacks after the
-/// switch are the evidence the stretch criteria do not read).
-/// Segments: X's tables and Y's.
-inline constexpr int kTableSwitchFirstSlips = 1;
-inline constexpr double kTableSwitchChance = 0.01;
-
 /// Weight (each side) from which two lines of errors in one witness are
 /// called contamination. Judgement, then checked on uncontaminated draws of
 /// the lineage benchmark (tests/bench/lineage_accuracy_bench.cpp): one
