@@ -212,37 +212,26 @@ ReadingInfo Evaluate(const NumberScan& scan, std::string_view text, std::size_t 
 /// left to it: nullopt. Equal to the grammar's result wherever it answers
 /// (tests/transcription/reading_fast_test.cpp compares them).
 std::optional<ReadingInfo> ScanPlainTrade(std::string_view text) {
-  std::size_t i = 0;
-  const bool negative = !text.empty() && text[0] == '-';
-  if (!text.empty() && (text[0] == '-' || text[0] == '+')) i = 1;
-  Sexagesimal::Units units = 0;
-  int integer_places = 0, fraction_places = 0;
-  bool in_fraction = false;
-  for (;;) {
-    const std::size_t start = i;
-    std::uint64_t value = 0;
-    while (i < text.size() && text[i] >= '0' && text[i] <= '9' && i - start < kMaxIntegerDigits)
-      value = value * 10 + static_cast<std::uint64_t>(text[i++] - '0');
-    if (i == start || (i < text.size() && text[i] >= '0' && text[i] <= '9')) return std::nullopt;
-    const bool leading = !in_fraction && integer_places == 0;
-    if (leading ? value >= static_cast<std::uint64_t>(Sexagesimal::kIntegerLimit) : value > 59)
-      return std::nullopt;
-    (in_fraction ? fraction_places : integer_places) += 1;
-    if (fraction_places > Sexagesimal::kMaxPlaces || integer_places + fraction_places > kMaxTokens)
-      return std::nullopt;
-    units = units * 60 + static_cast<Sexagesimal::Units>(value);  // 0 before the first place
-    if (!in_fraction && units >= Sexagesimal::kIntegerLimit) return std::nullopt;
-    if (i == text.size()) break;
-    if (text[i] == ';' && !in_fraction) {
-      in_fraction = true;
-    } else if (text[i] != ',') {
+  const std::size_t first = !text.empty() && (text[0] == '-' || text[0] == '+') ? 1 : 0;
+  int places = 1, semicolons = 0;
+  for (std::size_t i = first; i < text.size(); ++i) {
+    const char c = text[i];
+    if (c == ',' || c == ';') {
+      ++places;
+      semicolons += c == ';' ? 1 : 0;
+    } else if (c < '0' || c > '9') {
       return std::nullopt;
     }
-    ++i;
   }
+  if (semicolons > 1 || places > kMaxTokens) return std::nullopt;
+  // The number reader of the number stage (allocation-free), which reads
+  // this form as the grammar does; where it refuses, the grammar answers
+  // with its own error.
+  const auto value = Sexagesimal::Parse(text);
+  if (!value) return std::nullopt;
   ReadingInfo info;
-  info.fraction_places = fraction_places;
-  info.value = Sexagesimal::FromUnits(negative ? -units : units, fraction_places);
+  info.fraction_places = value->places();
+  info.value = *value;
   return info;
 }
 
