@@ -19,7 +19,8 @@ struct DescribeOptions {
 /// then copies, contamination, corrections and what is undecided.
 std::string DescribeLineage(const LineageReport& report, const DescribeOptions& options = {});
 
-/// "The Lantern Tables: stemma by maximum parsimony".
+/// "<the report's title>: stemma by maximum parsimony" ("Stemma by ..." when
+/// it has none).
 std::string StemmaTitle(const LineageReport& report, std::size_t result = 0);
 
 /// Graphviz DOT of one method's stemma, contamination drawn dashed.
