@@ -155,6 +155,9 @@ Character MakeCharacter(const collate::Collation& c, int j, const collate::Colla
   ch.block = c.table_id + " " + ch.row_label;
   ch.position = j;
   ch.omission = carrier.kind == collate::ReadingKind::kBlank;
+  ch.cause = carrier.error ? carrier.cause : "";
+  ch.row = j;
+  ch.column = c.columns[cell.column].name;
   for (const auto& w : c.witnesses) {
     const collate::Reading* mine = nullptr;
     for (const auto& r : carrier.sigla) mine = r == w.siglum ? &carrier : mine;
@@ -322,6 +325,45 @@ int CharacterMatrix::TaxonIndex(const std::string& siglum) const {
   return it == taxa.end() ? -1 : static_cast<int>(it - taxa.begin());
 }
 
+void JoinRepeatedSlips(CharacterMatrix& m) {
+  std::vector<Character> out;
+  out.reserve(m.characters.size());
+  // The run each joined character extends, by table, column and carriers.
+  std::map<std::tuple<std::string, std::string, std::vector<bool>>, std::size_t> open;
+  for (auto& ch : m.characters) {
+    if (ch.cause != "systematic" || ch.tie_break) {
+      out.push_back(std::move(ch));
+      continue;
+    }
+    std::vector<bool> carriers(ch.states.size());
+    for (std::size_t t = 0; t < ch.states.size(); ++t) carriers[t] = ch.states[t] == 1;
+    const auto key = std::make_tuple(ch.block.substr(0, ch.block.find(' ')), ch.column, carriers);
+    const auto it = open.find(key);
+    if (it == open.end() || out[it->second].row + out[it->second].rows != ch.row) {
+      open[key] = out.size();
+      out.push_back(std::move(ch));
+      continue;
+    }
+    Character& run = out[it->second];
+    ++run.rows;
+    run.label = run.block + "-" + ch.block.substr(ch.block.find(' ') + 1) + " " + ch.column +
+                ": one slip repeated over " + std::to_string(run.rows) + " rows";
+    // A witness reads the run's base only where it reads every row's.
+    for (std::size_t t = 0; t < ch.states.size(); ++t) {
+      if (run.states[t] != ch.states[t]) run.states[t] = -1;
+    }
+    run.one_unit = run.one_unit && ch.one_unit;
+    const bool head = run.row < kHeadRows;
+    // One event: as distinctive as its most distinctive row, no more than a
+    // slid run; at a column's head, a habit.
+    run.weight = head ? std::min(run.weight, kRepeatedSlipAtHead)
+                      : std::min(std::max(run.weight, ch.weight), kRepeatedSlipWeight);
+    run.weight_reason = head ? "one slip repeated over the head of a column: a habit copyists share"
+                             : "one slip repeated over a run of rows (one event)";
+  }
+  m.characters = std::move(out);
+}
+
 CharacterMatrix BuildCharacters(const collate::Collation& c) {
   CharacterMatrix m;
   for (const auto& w : c.witnesses) m.taxa.push_back(w.siglum);
@@ -337,6 +379,7 @@ CharacterMatrix BuildCharacters(const collate::Collation& c) {
   }
   std::stable_sort(m.characters.begin(), m.characters.end(),
                    [](const Character& a, const Character& b) { return a.position < b.position; });
+  JoinRepeatedSlips(m);
   return m;
 }
 

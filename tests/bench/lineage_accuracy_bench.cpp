@@ -5,17 +5,24 @@
 // With LINEAGE_BENCH_CACHE=folder each draw's characters are written there
 // as the pipeline built them and read back on later runs (work on the
 // lineage stage alone; stale once anything up to the characters changes).
-// With LINEAGE_BENCH_CLAIMS=1 each copy claim is printed with the evidence
-// it rests on (ClaimFeatures). With LINEAGE_BENCH_GROUPS=1 every group of the first stemma is
-// printed as "GROUP true size length characters conflict_weight conflicting" (to see whether the
-// evidence of false groups differs from that of true ones); the verbose output names what a false
-// group holds (contaminated witnesses, correctors). Each draw is synth::DrawTradition(seed, default
-// options): 4 to 15 witnesses, one to three tables, lost intermediates, copies of surviving
-// witnesses, contamination, correctors, early prints, modern editions (see
-// tests/synth/README.md). The whole pipeline runs on each draw with the
-// model *estimated* from the witnesses (pipeline::AnalyseTranscriptions,
-// then pipeline::WorkLineage). The same seed is drawn a second time with no
-// contamination (share_contaminated = 0) to count false alarms.
+// With LINEAGE_BENCH_CLAIMS=1 each copy claim is printed with the evidence it
+// rests on (ClaimFeatures). With LINEAGE_BENCH_FALSE_CHARS=1 (and verbose) each
+// false group is followed by the characters that change above it, with the slip
+// class the explainer gave them. BENCH_JOIN=1 joins the repeated slips of
+// characters cached before lineage::JoinRepeatedSlips existed (or built with it
+// switched off), to compare the two on one cache. With LINEAGE_BENCH_GROUPS=1
+// every group of the first stemma is printed as "GROUP true size length
+// characters conflict_weight conflicting true_groups found_groups heaviest
+// strong marked" (to see whether the evidence of false
+// groups differs from that of true ones); the verbose output names what a false
+// group holds (contaminated witnesses, correctors). Each draw is
+// synth::DrawTradition(seed, default options): 4 to 15 witnesses, one to three
+// tables, lost intermediates, copies of surviving witnesses, contamination,
+// correctors, early prints, modern editions (see tests/synth/README.md). The
+// whole pipeline runs on each draw with the model *estimated* from the
+// witnesses (pipeline::AnalyseTranscriptions, then pipeline::WorkLineage). The
+// same seed is drawn a second time with no contamination (share_contaminated =
+// 0) to count false alarms.
 // Scoring against the draw's key:
 //  - groups: synth::Groups; a group is *marked* when some slip of its node
 //    is still read by exactly its members (errors_exact >= 1), *twice
@@ -46,6 +53,7 @@
 #include <cstdio>
 #include <cstdlib>
 #include <fstream>
+#include <iterator>
 #include <set>
 #include <string>
 #include <vector>
@@ -93,7 +101,8 @@ nlohmann::json ToJson(const lineage::CharacterMatrix& m) {
     std::vector<int> states(c.states.begin(), c.states.end());
     j["characters"].push_back({c.label, c.block, c.row_label, c.position, states, c.weight,
                                c.weight_reason, c.omission, static_cast<int>(c.direction),
-                               c.base_is_right, c.one_unit, c.carrier_is_right, c.tie_break});
+                               c.base_is_right, c.one_unit, c.carrier_is_right, c.tie_break,
+                               c.cause, c.column, c.row, c.rows});
   }
   return j;
 }
@@ -117,6 +126,7 @@ lineage::CharacterMatrix FromJson(const nlohmann::json& j) {
     ch.weight = c[5], ch.weight_reason = c[6], ch.omission = c[7];
     ch.direction = static_cast<lineage::Direction>(c[8].get<int>());
     ch.base_is_right = c[9], ch.one_unit = c[10], ch.carrier_is_right = c[11], ch.tie_break = c[12];
+    if (c.size() > 16) ch.cause = c[13], ch.column = c[14], ch.row = c[15], ch.rows = c[16];
     m.characters.push_back(std::move(ch));
   }
   return m;
@@ -139,6 +149,7 @@ lineage::LineageReport Analyse(const synth::Tradition& t, std::uint64_t seed, bo
     m = Characters(t);
     if (cache) std::ofstream(path) << ToJson(m);
   }
+  if (std::getenv("BENCH_JOIN")) lineage::JoinRepeatedSlips(m);
   last_matrix = m;
   return lineage::AnalyseLineage(m);
 }
@@ -195,7 +206,54 @@ std::string FalseGroupCause(const synth::Tradition& t, const std::set<Sigla>& tr
     out +=
         " mixed:" + mixed + (rest.size() <= 1 || truth.count(rest) ? " (group true without)" : "");
   if (!correctors.empty()) out += " corrector:" + correctors;
+  // The witnesses by which the group differs from the nearest true group,
+  // each with what it is (+ in the found group only, - in the true only):
+  // the cause is often a witness left out (a corrector placed elsewhere).
+  const Sigla* nearest = nullptr;
+  std::size_t best = g.size();
+  Sigla diff;
+  for (const auto& tg : truth) {
+    Sigla d;
+    std::set_symmetric_difference(g.begin(), g.end(), tg.begin(), tg.end(), std::back_inserter(d));
+    if (d.size() < best) best = d.size(), nearest = &tg, diff = d;
+  }
+  if (nearest) {
+    out += " near:";
+    for (const auto& x : diff) {
+      int node = -1;
+      for (int w : t.Surviving())
+        if (t.nodes[static_cast<std::size_t>(w)].name == x) node = w;
+      const auto& n = t.nodes[static_cast<std::size_t>(node)];
+      const bool in = std::binary_search(g.begin(), g.end(), x);
+      std::string what = Mixed(t, node) ? "mixed" : "";
+      if (n.corrector != synth::CorrectorMode::kNone) what += what.empty() ? "corr" : ",corr";
+      if (n.kind != synth::WitnessKind::kManuscript) what += what.empty() ? "print" : ",print";
+      out += std::string(" ") + (in ? "+" : "-") + x + (what.empty() ? "" : "(" + what + ")");
+    }
+  } else {
+    out += " near: none";
+  }
   return out;
+}
+
+// With LINEAGE_BENCH_FALSE_CHARS=1 (and verbose), the characters that
+// change on the branch above a false group: what the group rests on.
+void FalseGroupCharacters(const lineage::LineageReport& r, const Sigla& g) {
+  const auto& s = r.results.front().stemma;
+  for (const auto& [group, node] : s.Groups()) {
+    if (Sorted(group) != g) continue;
+    const auto o = lineage::Orient(last_matrix, s);
+    const auto a = lineage::Reconstruct(s, o);
+    for (std::size_t k = 0; k < o.characters.size(); ++k) {
+      const auto& ch = o.characters[k];
+      if (ch.tie_break || !a.Changes(node, static_cast<int>(k))) continue;
+      int carriers = 0;
+      for (auto x : ch.states) carriers += x == 1;
+      std::printf("      %s w%.1f %s %s carriers %d%s [%s]\n", ch.label.c_str(), ch.weight,
+                  ch.weight_reason.c_str(), lineage::ToString(ch.direction), carriers,
+                  ch.one_unit ? " one-unit" : "", ch.cause.c_str());
+    }
+  }
 }
 
 void ScoreGroups(const synth::Tradition& t, const lineage::LineageReport& r, Totals& s,
@@ -215,16 +273,37 @@ void ScoreGroups(const synth::Tradition& t, const lineage::LineageReport& r, Tot
       std::printf(" } (%s, %d exact, %d some)\n", g.node.c_str(), g.errors_exact, g.errors_some);
     }
   }
-  if (std::getenv("LINEAGE_BENCH_GROUPS") && !r.results.empty())
-    for (const auto& g : r.results.front().groups)
-      std::printf("GROUP %d %zu %.3f %d %.3f %d\n", truth.count(Sorted(g.witnesses)) ? 1 : 0,
-                  g.witnesses.size(), g.length, g.characters, g.conflict_weight, g.conflicting);
+  if (std::getenv("LINEAGE_BENCH_GROUPS") && !r.results.empty()) {
+    // Also: the draw's true and found groups, and of the characters that
+    // change above the group the heaviest weight and the weight of those
+    // of weight 2 or more.
+    const auto& st = r.results.front().stemma;
+    const auto o = lineage::Orient(last_matrix, st);
+    const auto a = lineage::Reconstruct(st, o);
+    for (const auto& g : r.results.front().groups) {
+      double heaviest = 0, strong = 0;
+      for (const auto& [group, node] : st.Groups()) {
+        if (Sorted(group) != Sorted(g.witnesses)) continue;
+        for (std::size_t k = 0; k < o.characters.size(); ++k) {
+          const auto& ch = o.characters[k];
+          if (ch.tie_break || !a.Changes(node, static_cast<int>(k))) continue;
+          heaviest = std::max(heaviest, ch.weight);
+          strong += ch.weight >= 2 ? ch.weight : 0;
+        }
+      }
+      std::printf("GROUP %d %zu %.3f %d %.3f %d %zu %zu %.1f %.1f %d\n",
+                  truth.count(Sorted(g.witnesses)) ? 1 : 0, g.witnesses.size(), g.length,
+                  g.characters, g.conflict_weight, g.conflicting, truth.size(), found.size(),
+                  heaviest, strong, marked.count(Sorted(g.witnesses)) ? 1 : 0);
+    }
+  }
   if (verbose)
     for (const auto& g : found)
       if (!truth.count(g)) {
         std::printf("  false {");
         for (const auto& x : g) std::printf(" %s", x.c_str());
         std::printf(" }%s\n", FalseGroupCause(t, truth, g).c_str());
+        if (std::getenv("LINEAGE_BENCH_FALSE_CHARS")) FalseGroupCharacters(r, g);
       }
   s.true_groups += static_cast<long>(truth.size());
   s.rf_found += Rf(truth, found);
@@ -325,11 +404,55 @@ void ClaimFeatures(const lineage::LineageReport& r, const lineage::CopyCandidate
   }
   int claims_same = 0;
   for (const auto& d : r.copies) claims_same += !d.twins && d.exemplar == c.exemplar;
+  // Singular errors (state 1 in one witness only) of every witness: what a
+  // witness's own slips number in this tradition.
+  std::vector<int> singular(n, 0);
+  for (const auto& ch : o.characters) {
+    if (!ch.Directed() || ch.weight <= 0 || ch.tie_break) continue;
+    int carriers = 0, who = -1;
+    for (int x = 0; x < n; ++x)
+      if (ch.states[x] == 1) ++carriers, who = x;
+    if (carriers == 1) ++singular[who];
+  }
+  std::vector<int> others;
+  for (int x = 0; x < n; ++x)
+    if (x != a && x != b) others.push_back(singular[x]);
+  std::sort(others.begin(), others.end());
+  const int median = others.empty() ? -1 : others[others.size() / 2];
+  const int least = others.empty() ? -1 : others.front();
   std::printf(
       "CLAIM %d errs %d strong %d own %d holdall %d partial %d claims_same %d corrected %d "
-      "held %d unreadable %d filled %d\n",
+      "held %d unreadable %d filled %d median_singular %d least_singular %d copy_singular %d "
+      "kind %s\n",
       right, errs, strong, c.own_errors, all, partial, claims_same, c.corrected, c.exemplar_errors,
-      c.unreadable, c.filled);
+      c.unreadable, c.filled, median, least, singular[b],
+      o.witnesses.size() > static_cast<std::size_t>(a) ? o.witnesses[a].kind.c_str() : "?");
+}
+
+// How a wrongly claimed copy truly stands to its claimed exemplar: "below"
+// (the exemplar is a farther ancestor, through lost copies), "reversed",
+// "siblings" (one exemplar, lost or surviving), "cousins" (the nearest
+// common ancestor further up), each with the lost copies between.
+std::string Relation(const synth::Tradition& t, int copy, int exemplar) {
+  auto ancestors = [&](int x) {
+    std::vector<int> out;
+    for (int i = t.nodes[static_cast<std::size_t>(x)].parent; i >= 0;
+         i = t.nodes[static_cast<std::size_t>(i)].parent)
+      out.push_back(i);
+    return out;
+  };
+  const auto up_c = ancestors(copy), up_e = ancestors(exemplar);
+  for (std::size_t k = 0; k < up_c.size(); ++k)
+    if (up_c[k] == exemplar) return "below, " + std::to_string(k) + " between";
+  for (std::size_t k = 0; k < up_e.size(); ++k)
+    if (up_e[k] == copy) return "reversed, " + std::to_string(k) + " between";
+  for (std::size_t a = 0; a < up_c.size(); ++a)
+    for (std::size_t b = 0; b < up_e.size(); ++b)
+      if (up_c[a] == up_e[b])
+        return (a == 0 && b == 0 ? std::string("siblings")
+                                 : "cousins " + std::to_string(a) + "/" + std::to_string(b)) +
+               (t.nodes[static_cast<std::size_t>(up_c[a])].surviving ? " under a witness" : "");
+  return "unrelated";
 }
 
 void ScoreCopies(const synth::Tradition& t, const lineage::LineageReport& r, Totals& s,
@@ -349,7 +472,8 @@ void ScoreCopies(const synth::Tradition& t, const lineage::LineageReport& r, Tot
     s.against_dates += against;
     if (std::getenv("LINEAGE_BENCH_CLAIMS")) ClaimFeatures(r, c, right);
     if (verbose && against) std::printf("  against the dates: %s\n", c.text.c_str());
-    if (verbose && !right) std::printf("  wrong copy: %s\n", c.text.c_str());
+    if (verbose && !right)
+      std::printf("  wrong copy (%s): %s\n", Relation(t, copy, exemplar).c_str(), c.text.c_str());
   }
   for (int w : t.Surviving()) {
     const auto& n = t.nodes[static_cast<std::size_t>(w)];
@@ -450,6 +574,25 @@ void ScoreMixtures(const synth::Tradition& t, const lineage::LineageReport& r, T
                     t.nodes[static_cast<std::size_t>(n.parent)].name.c_str(),
                     t.nodes[static_cast<std::size_t>(x.second)].name.c_str(),
                     x.between_tables ? "from" : "in", x.table, x.row);
+      }
+      if (!mixed) {  // what a false flag is: a source of a mixture, a relative of one, a corrector
+        for (int v : t.Surviving()) {
+          const auto& m = t.nodes[static_cast<std::size_t>(v)];
+          if (!m.contamination) continue;
+          const int second = m.contamination->second;
+          for (int i = second; i >= 0; i = t.nodes[static_cast<std::size_t>(i)].parent) {
+            if (i == w) std::printf(" [source of %s's mixture]", m.name.c_str());
+          }
+          for (int i = w; i >= 0; i = t.nodes[static_cast<std::size_t>(i)].parent) {
+            if (i == second && i != w)
+              std::printf(" [below the source of %s's mixture]", m.name.c_str());
+          }
+          if (m.parent == n.parent) std::printf(" [sibling of mixed %s]", m.name.c_str());
+          if (m.parent == w) std::printf(" [exemplar of mixed %s]", m.name.c_str());
+        }
+        if (n.corrector != synth::CorrectorMode::kNone) std::printf(" [corrector]");
+        for (const auto& c : r.contamination)
+          if (c.witness == n.name) std::printf(" said: %s", c.text.substr(0, 160).c_str());
       }
       std::printf("\n");
     }
