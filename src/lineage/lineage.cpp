@@ -7,6 +7,7 @@
 
 #include "lineage/ancestral.hpp"
 #include "lineage/copy_placement.hpp"
+#include "lineage/mixture_direction.hpp"
 #include "lineage/neighbour_joining.hpp"
 #include "lineage/tree_checks.hpp"
 
@@ -210,6 +211,11 @@ LineageReport AnalyseLineage(const CharacterMatrix& m, const LineageOptions& o) 
   }
   std::vector<Contamination> suspected;
   r.contamination = FindContamination(oriented, kMinContaminationEvidence, &suspected);
+  // Of a witness and its two relatives, the one whose division at the
+  // stretches shortens the stemma most changed exemplar (mixture_direction.hpp).
+  std::vector<Contamination> refused;
+  r.contamination = KeepDividingWitnesses(ForTree(corrected), r.contamination, &refused);
+  for (const auto& c : refused) Undecide(r, "witness", "contamination? " + c.text);
   for (const auto& c : suspected) {
     Undecide(r, "witness",
              "contamination? " + c.text + "; too little to call it" +
@@ -228,6 +234,12 @@ LineageReport AnalyseLineage(const CharacterMatrix& m, const LineageOptions& o) 
   for (const auto& c : suspected) {
     if (c.primary_evidence >= c.secondary_evidence) mixtures.push_back(c);
   }
+  // One refused because a relative's division explains more is set aside
+  // alike: its two sets of errors still pull it between two lines.
+  // Measured (DEVELOPERS.md, "Lineage accuracy", seventeenth round): not
+  // set aside, groups 0.884 -> 0.871 on seeds 1-100, 0.841 -> 0.832 on
+  // 201-300.
+  mixtures.insert(mixtures.end(), refused.begin(), refused.end());
   const CharacterMatrix unmixed = MaskSecondaryExemplar(m, mixtures);
   // 3: correctors, once the contaminated witnesses follow one exemplar.
   r.corrections = FindCorrections(unmixed);

@@ -170,10 +170,16 @@ TEST_CASE("witnesses whose own line shows too few errors: contamination over see
   // Seeds 89 and 184 of the generator's defaults (as the lineage benchmark
   // draws them): contaminated witnesses whose first line shows fewer than
   // three errors of its own beside the second exemplar's, the case the
-  // line-join criterion (relations.hpp) is for. Measured: 5 of the 8
-  // contaminated witnesses found, 6 flagged; no false alarm in the same
-  // seeds without contamination. Without the line-join criterion: 3 of 8
-  // found, 4 flagged.
+  // line-join criterion (relations.hpp) was written for. Measured: 5 of
+  // the 8 contaminated witnesses found, 6 flagged (without the line-join
+  // criterion 3 of 8, 4 flagged); since a slip repeated over a run of rows
+  // counts once (characters.hpp, JoinRepeatedSlips), 3 of 8 found and 3
+  // flagged, all by the two-line criterion: the flags lost rested on runs
+  // of a place left out at the head of the column (one of them, I of seed
+  // 89, right by chance: its stretches were not where the draw changed
+  // exemplar). The lineage benchmark over 300 draws measures the change
+  // (DEVELOPERS.md, "Lineage accuracy", seventeenth round); this test keeps
+  // what it still shows: no false alarm, and no wrong flag.
   synth::TraditionOptions o;
   const std::vector<std::uint64_t> seeds{89, 184};
   const Score s = Run(seeds, o);
@@ -183,7 +189,7 @@ TEST_CASE("witnesses whose own line shows too few errors: contamination over see
                                             << " right, of " << s.mixed << "; false alarms "
                                             << clean.draws_with_contamination_flagged << " of 2");
   CHECK(clean.draws_with_contamination_flagged == 0);
-  CHECK(s.flagged_right >= 5);
+  CHECK(s.flagged_right >= 3);
   CHECK(s.flagged_right * 10 >= s.flagged * 8);
 }
 

@@ -1,0 +1,95 @@
+#include "lineage/mixture_direction.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <sstream>
+
+#include "lineage/contamination_internal.hpp"
+
+namespace apograph::lineage {
+namespace {
+
+// Whether the character at `position` lies nearest to a stretch of `c`
+// that follows its second relative (as MaskSecondaryExemplar assigns it).
+bool InSecondPart(const Contamination& c, int position) {
+  const ContaminationSegment* nearest = nullptr;
+  int gap = 0;
+  for (const auto& seg : c.segments) {
+    const int d = position < seg.first_position  ? seg.first_position - position
+                  : position > seg.last_position ? position - seg.last_position
+                                                 : 0;
+    if (!nearest || d < gap) nearest = &seg, gap = d;
+  }
+  return nearest && nearest->relative == c.secondary;
+}
+
+double Length(const CharacterMatrix& m, const ParsimonyOptions& o) {
+  return Parsimony(m, o).length;
+}
+
+std::string Number(double x) {
+  std::ostringstream o;
+  o << std::round(x * 10) / 10;
+  return o.str();
+}
+
+}  // namespace
+
+double DivisionGain(const CharacterMatrix& m, const Contamination& c, const std::string& siglum,
+                    const ParsimonyOptions& options) {
+  const int t = m.TaxonIndex(siglum);
+  if (t < 0 || c.segments.empty()) return 0;
+  // The witness and those that hold its errors (its copies, which inherit
+  // a change of exemplar it made) are divided alike.
+  std::vector<int> family;
+  for (int x = 0; x < static_cast<int>(m.taxa.size()); ++x)
+    if (x == t || contamination::Holds(m, x, t)) family.push_back(x);
+  CharacterMatrix divided = m;
+  for (int x : family) {
+    divided.taxa.push_back(m.taxa[static_cast<std::size_t>(x)] + "'");
+    if (divided.witnesses.size() + 1 == divided.taxa.size())
+      divided.witnesses.push_back(m.witnesses[static_cast<std::size_t>(x)]);
+  }
+  for (auto& ch : divided.characters) {
+    const bool second = InSecondPart(c, ch.position);
+    for (int x : family) {
+      const auto ux = static_cast<std::size_t>(x);
+      ch.states.push_back(second ? ch.states[ux] : static_cast<signed char>(-1));
+      if (second) ch.states[ux] = -1;
+    }
+  }
+  return Length(m, options) - Length(divided, options);
+}
+
+std::vector<Contamination> KeepDividingWitnesses(const CharacterMatrix& m,
+                                                 std::vector<Contamination> called,
+                                                 std::vector<Contamination>* refused) {
+  ParsimonyOptions fast;
+  fast.exact_limit = 0;  // the same heuristic for every division
+  std::vector<Contamination> kept;
+  for (auto& c : called) {
+    if (c.primary.empty() || c.secondary.empty()) {  // one line: no relative to divide
+      kept.push_back(std::move(c));
+      continue;
+    }
+    const double own = DivisionGain(m, c, c.witness, fast);
+    std::string better;
+    double gain = own;
+    for (const auto& relative : {c.primary, c.secondary}) {
+      const double g = DivisionGain(m, c, relative, fast);
+      if (g > gain) gain = g, better = relative;
+    }
+    if (!better.empty() && gain > own + kDivisionMargin) {
+      c.text += "; but dividing " + better + " at the same rows shortens the stemma more (by " +
+                Number(gain) + ", against " + Number(own) + " for " + c.witness + "): " + better +
+                " may be the one that changed exemplar, and " + c.witness +
+                " is not called contaminated";
+      if (refused) refused->push_back(std::move(c));
+      continue;
+    }
+    kept.push_back(std::move(c));
+  }
+  return kept;
+}
+
+}  // namespace apograph::lineage
