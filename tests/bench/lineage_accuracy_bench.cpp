@@ -551,8 +551,40 @@ int VisibleCorrections(const synth::Tradition& t, int c) {
   return n;
 }
 
+// With LINEAGE_BENCH_CORRECTORS=1, one line per witness called a corrector
+// for its corrections: right or not, and at the errors of a unit that two
+// or more of its relatives carry, how many it reads right and how many it
+// holds (a checker corrects what lies beyond rounding, and keeps those).
+void CorrectorFeatures(const synth::Tradition& t, const lineage::LineageReport& r) {
+  const auto& m = last_matrix;
+  for (const auto& c : r.corrections) {
+    if (c.basis != "corrections") continue;
+    const int w = m.TaxonIndex(c.witness);
+    const int node = t.Find(c.witness);
+    if (w < 0 || node < 0) continue;
+    std::vector<int> rel;
+    for (const auto& x : c.relatives)
+      if (m.TaxonIndex(x) >= 0) rel.push_back(m.TaxonIndex(x));
+    int one_right = 0, one_held = 0, big_right = 0, big_held = 0;
+    for (const auto& ch : m.characters) {
+      if (ch.tie_break || !ch.base_is_right || ch.carrier_is_right) continue;
+      int carriers = 0;
+      for (int x : rel) carriers += ch.states[static_cast<std::size_t>(x)] == 1;
+      if (carriers < 2) continue;
+      const int st = ch.states[static_cast<std::size_t>(w)];
+      if (st < 0) continue;
+      (ch.one_unit ? (st ? one_held : one_right) : (st ? big_held : big_right)) += 1;
+    }
+    const bool right =
+        t.nodes[static_cast<std::size_t>(node)].corrector != synth::CorrectorMode::kNone;
+    std::printf("CORR %d one_right %d one_held %d big_right %d big_held %d corrected %d kept %d\n",
+                right, one_right, one_held, big_right, big_held, c.corrected, c.kept);
+  }
+}
+
 void ScoreMixtures(const synth::Tradition& t, const lineage::LineageReport& r, Totals& s,
                    bool verbose) {
+  if (std::getenv("LINEAGE_BENCH_CORRECTORS")) CorrectorFeatures(t, r);
   std::set<std::string> flagged, corrected;
   for (const auto& c : r.contamination) {
     flagged.insert(c.witness);
