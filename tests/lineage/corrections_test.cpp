@@ -131,3 +131,62 @@ TEST_CASE("a witness set aside is judged by its exemplar once the copies are kno
 
 }  // namespace
 }  // namespace apograph::lineage
+
+namespace apograph::lineage {
+namespace {
+
+// F copied by B, B by G, which corrects half of what it inherits; A and D
+// outside. Rows: F's errors (G keeps some, corrects the others), B's (G
+// keeps most), each witness's own.
+CharacterMatrix ExemplarAndCorrectingCopy() {
+  CharacterMatrix m;
+  m.taxa = {"A", "D", "F", "B", "G"};
+  for (const auto& [siglum, date] : std::vector<std::pair<std::string, std::string>>{
+           {"A", "1320"}, {"D", "1330"}, {"F", "1300"}, {"B", "1350"}, {"G", "1400"}}) {
+    WitnessInfo w;
+    w.siglum = siglum, w.date = date, w.kind = "manuscript";
+    m.witnesses.push_back(w);
+  }
+  auto add = [&](int row, std::vector<signed char> states) {
+    Character ch;
+    ch.position = ch.row = row;
+    ch.label = std::to_string(row);
+    ch.weight = 2;
+    ch.base_is_right = true;
+    ch.states = std::move(states);
+    m.characters.push_back(ch);
+  };
+  for (int row : {3, 10, 20, 33}) add(row, {0, 0, 1, 1, 1});  // F's, kept by G
+  for (int row : {5, 15, 25, 35}) add(row, {0, 0, 1, 1, 0});  // F's, corrected by G
+  for (int row : {4, 12, 22, 32}) add(row, {0, 0, 0, 1, 1});  // B's, kept by G
+  for (int row : {6, 26}) add(row, {0, 0, 0, 1, 0});          // B's, corrected by G
+  for (int row : {7, 27}) add(row, {0, 0, 0, 0, 1});          // G's own
+  for (int row : {1, 30}) add(row, {1, 0, 0, 0, 0});          // A's own
+  for (int row : {2, 31}) add(row, {0, 1, 0, 0, 0});          // D's own
+  std::stable_sort(m.characters.begin(), m.characters.end(),
+                   [](const Character& a, const Character& b) { return a.position < b.position; });
+  return m;
+}
+
+TEST_CASE("an exemplar does not correct the errors its copies made after it") {
+  // F reads right B's errors that G shares: as many as the errors of F's
+  // that G reads right. But B holds every error of F's (it descends from
+  // F), so B's errors arose after F was written: F had the right reading.
+  const std::vector<Correction> found = FindCorrections(ExemplarAndCorrectingCopy());
+  REQUIRE(found.size() == 1);
+  CHECK(found.front().witness == "G");
+  CHECK(found.front().basis == "corrections");
+  CHECK(found.front().corrected == 3);
+}
+
+TEST_CASE("a witness the dates make older is not taken for a descendant") {
+  // B holds G's errors but for G's own two (a copy may lack one in four):
+  // by the errors alone B could be G's copy, and G's corrections B's
+  // slips. Without dates neither F nor G is called; with them, G is.
+  CharacterMatrix undated = ExemplarAndCorrectingCopy();
+  undated.witnesses.clear();
+  CHECK(FindCorrections(undated).empty());
+}
+
+}  // namespace
+}  // namespace apograph::lineage
