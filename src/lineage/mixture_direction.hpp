@@ -36,7 +36,9 @@ double DivisionGain(const CharacterMatrix& matrix, const Contamination& c,
 
 /// Called mixtures whose division gains less than dividing one of their two
 /// relatives at the same stretches (by more than kDivisionMargin): not
-/// called; each is returned in `refused`, its text saying why.
+/// called; each is returned in `refused`, its text saying why. One whose
+/// relative's division gains more, but within the margin, stays called and
+/// its text names that relative as the other possible reading.
 std::vector<Contamination> KeepDividingWitnesses(const CharacterMatrix& matrix,
                                                  std::vector<Contamination> called,
                                                  std::vector<Contamination>* refused);

@@ -69,6 +69,7 @@ TEST_CASE("the witness that changed exemplar gains most from its division") {
   const auto kept = KeepDividingWitnesses(m, {x}, &refused);
   REQUIRE(kept.size() == 1);
   CHECK(kept.front().witness == "X");
+  CHECK(kept.front().text == "X follows A1 and B1");  // no other reading to tell of
   CHECK(refused.empty());
 }
 
