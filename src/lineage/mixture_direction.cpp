@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <optional>
 #include <sstream>
 
 #include "lineage/contamination_internal.hpp"
@@ -35,10 +36,14 @@ std::string Number(double x) {
 
 }  // namespace
 
-double DivisionGain(const CharacterMatrix& m, const Contamination& c, const std::string& siglum,
-                    const ParsimonyOptions& options) {
+namespace {
+
+// The length of the stemma with `siglum` (and its copies) divided; nullopt
+// when there is nothing to divide.
+std::optional<double> DividedLength(const CharacterMatrix& m, const Contamination& c,
+                                    const std::string& siglum, const ParsimonyOptions& options) {
   const int t = m.TaxonIndex(siglum);
-  if (t < 0 || c.segments.empty()) return 0;
+  if (t < 0 || c.segments.empty()) return std::nullopt;
   // The witness and those that hold its errors (its copies, which inherit
   // a change of exemplar it made) are divided alike.
   std::vector<int> family;
@@ -58,7 +63,15 @@ double DivisionGain(const CharacterMatrix& m, const Contamination& c, const std:
       if (second) ch.states[ux] = -1;
     }
   }
-  return Length(m, options) - Length(divided, options);
+  return Length(divided, options);
+}
+
+}  // namespace
+
+double DivisionGain(const CharacterMatrix& m, const Contamination& c, const std::string& siglum,
+                    const ParsimonyOptions& options) {
+  const auto divided = DividedLength(m, c, siglum, options);
+  return divided ? Length(m, options) - *divided : 0;
 }
 
 std::vector<Contamination> KeepDividingWitnesses(const CharacterMatrix& m,
@@ -67,16 +80,22 @@ std::vector<Contamination> KeepDividingWitnesses(const CharacterMatrix& m,
   ParsimonyOptions fast;
   fast.exact_limit = 0;  // the same heuristic for every division
   std::vector<Contamination> kept;
+  std::optional<double> whole;  // the undivided stemma's length, once
   for (auto& c : called) {
     if (c.primary.empty() || c.secondary.empty()) {  // one line: no relative to divide
       kept.push_back(std::move(c));
       continue;
     }
-    const double own = DivisionGain(m, c, c.witness, fast);
+    if (!whole) whole = Length(m, fast);
+    auto gain_of = [&](const std::string& siglum) {
+      const auto divided = DividedLength(m, c, siglum, fast);
+      return divided ? *whole - *divided : 0.0;
+    };
+    const double own = gain_of(c.witness);
     std::string better;
     double gain = own;
     for (const auto& relative : {c.primary, c.secondary}) {
-      const double g = DivisionGain(m, c, relative, fast);
+      const double g = gain_of(relative);
       if (g > gain) gain = g, better = relative;
     }
     if (!better.empty() && gain > own + kDivisionMargin) {
