@@ -246,6 +246,38 @@ void ReviseByExemplars(std::vector<Correction>& corrections,
   corrections = std::move(kept);
 }
 
+void ReviseByGroups(std::vector<Correction>& corrections, const Stemma& stemma,
+                    const CharacterMatrix& m) {
+  std::vector<Correction> kept;
+  for (auto& c : corrections) {
+    const int t = m.TaxonIndex(c.witness);
+    const int node = FindWitness(stemma, c.witness);
+    if (c.basis != "kind" || t < 0 || node < 0 || stemma.nodes[node].parent < 0) {
+      kept.push_back(std::move(c));
+      continue;
+    }
+    std::vector<int> group;
+    for (const auto& s : stemma.Below(stemma.nodes[node].parent)) {
+      const int x = m.TaxonIndex(s);
+      if (x >= 0 && x != t) group.push_back(x);
+    }
+    int corrected = 0, held = 0;
+    for (const auto& ch : m.characters) {
+      if (!Placing(ch) || !ch.base_is_right || ch.states[t] < 0) continue;
+      int carriers = 0, legible = 0;
+      for (int x : group) {
+        const auto st = ch.states[static_cast<std::size_t>(x)];
+        legible += st >= 0, carriers += st == 1;
+      }
+      if (legible == 0 || carriers < legible) continue;
+      (ch.states[t] == 1 ? held : corrected) += 1;
+    }
+    if (corrected < kMinCorrections && held >= kMinCorrections) continue;  // a faithful edition
+    kept.push_back(std::move(c));
+  }
+  corrections = std::move(kept);
+}
+
 std::vector<Correction> FindCorrections(const CharacterMatrix& m) {
   std::vector<Correction> out;
   if (m.taxa.size() < 3) return out;

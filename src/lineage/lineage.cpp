@@ -261,6 +261,9 @@ LineageReport AnalyseLineage(const CharacterMatrix& m, const LineageOptions& o) 
     for (const auto& text : CopiesRefusedByDates(final_oriented)) Undecide(r, "copy", text);
   }
   ReviseByExemplars(r.corrections, r.copies);
+  if (!r.results.empty())
+    ReviseByGroups(r.corrections, r.results.front().stemma,
+                   Orient(unmixed, r.results.front().stemma));
   for (auto& res : r.results) {
     PlaceExemplars(res.stemma, r.copies);
     DescribeGroups(for_tree, o, res);

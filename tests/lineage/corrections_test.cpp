@@ -190,3 +190,62 @@ TEST_CASE("a witness the dates make older is not taken for a descendant") {
 
 }  // namespace
 }  // namespace apograph::lineage
+
+namespace apograph::lineage {
+namespace {
+
+// archetype -> (A, lost (X, E)); E a modern edition set aside for its kind.
+// X's errors at rows 1-4; E keeps `kept` of them and reads the others right.
+struct Edition {
+  CharacterMatrix matrix;
+  Stemma stemma;
+};
+
+Edition EditionBeside(int kept) {
+  Edition e;
+  e.matrix.taxa = {"A", "X", "E"};
+  for (int row = 1; row <= 4; ++row) {
+    Character ch;
+    ch.position = ch.row = row;
+    ch.weight = 2;
+    ch.base_is_right = true;
+    ch.states = {0, 1, static_cast<signed char>(row <= kept ? 1 : 0)};
+    e.matrix.characters.push_back(ch);
+  }
+  Stemma& s = e.stemma;
+  s.root = s.Add({kArchetype, false});
+  const int lost = s.Add({"", false});
+  s.Attach(s.root, s.Add({"A", true}));
+  s.Attach(s.root, lost);
+  s.Attach(lost, s.Add({"X", true}));
+  s.Attach(lost, s.Add({"E", true}));
+  return e;
+}
+
+std::vector<Correction> SetAsideForKind() {
+  Correction c;
+  c.witness = "E";
+  c.modern_edition = true;
+  c.basis = "kind";
+  return {c};
+}
+
+TEST_CASE("a modern edition that keeps its group's errors is a faithful one, not a corrector") {
+  const Edition faithful = EditionBeside(4);
+  std::vector<Correction> cs = SetAsideForKind();
+  ReviseByGroups(cs, faithful.stemma, faithful.matrix);
+  CHECK(cs.empty());
+  // Reading three of them right, it corrects: still set aside.
+  const Edition correcting = EditionBeside(1);
+  cs = SetAsideForKind();
+  ReviseByGroups(cs, correcting.stemma, correcting.matrix);
+  CHECK(cs.size() == 1);
+  // One set aside for its own readings is not judged again.
+  cs = SetAsideForKind();
+  cs.front().basis = "corrections";
+  ReviseByGroups(cs, faithful.stemma, faithful.matrix);
+  CHECK(cs.size() == 1);
+}
+
+}  // namespace
+}  // namespace apograph::lineage
