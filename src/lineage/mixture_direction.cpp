@@ -10,20 +10,6 @@
 namespace apograph::lineage {
 namespace {
 
-// Whether the character at `position` lies nearest to a stretch of `c`
-// that follows its second relative (as MaskSecondaryExemplar assigns it).
-bool InSecondPart(const Contamination& c, int position) {
-  const ContaminationSegment* nearest = nullptr;
-  int gap = 0;
-  for (const auto& seg : c.segments) {
-    const int d = position < seg.first_position  ? seg.first_position - position
-                  : position > seg.last_position ? position - seg.last_position
-                                                 : 0;
-    if (!nearest || d < gap) nearest = &seg, gap = d;
-  }
-  return nearest && nearest->relative == c.secondary;
-}
-
 double Length(const CharacterMatrix& m, const ParsimonyOptions& o) {
   return Parsimony(m, o).length;
 }
@@ -33,10 +19,6 @@ std::string Number(double x) {
   o << std::round(x * 10) / 10;
   return o.str();
 }
-
-}  // namespace
-
-namespace {
 
 // The length of the stemma with `siglum` (and its copies) divided; nullopt
 // when there is nothing to divide.
@@ -56,7 +38,9 @@ std::optional<double> DividedLength(const CharacterMatrix& m, const Contaminatio
       divided.witnesses.push_back(m.witnesses[static_cast<std::size_t>(x)]);
   }
   for (auto& ch : divided.characters) {
-    const bool second = InSecondPart(c, ch.position);
+    // The second part: nearest to a stretch that follows the second
+    // relative (as MaskSecondaryExemplar assigns it).
+    const bool second = NearestSegment(c, ch.position)->relative == c.secondary;
     for (int x : family) {
       const auto ux = static_cast<std::size_t>(x);
       ch.states.push_back(second ? ch.states[ux] : static_cast<signed char>(-1));

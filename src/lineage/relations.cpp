@@ -416,6 +416,18 @@ std::vector<std::string> Witnesses(const Contamination& c) {
 
 }  // namespace
 
+const ContaminationSegment* NearestSegment(const Contamination& c, int position) {
+  const ContaminationSegment* nearest = nullptr;
+  int gap = 0;
+  for (const auto& seg : c.segments) {
+    const int d = position < seg.first_position  ? seg.first_position - position
+                  : position > seg.last_position ? position - seg.last_position
+                                                 : 0;
+    if (!nearest || d < gap) nearest = &seg, gap = d;
+  }
+  return nearest;
+}
+
 CharacterMatrix MaskSecondaryExemplar(const CharacterMatrix& m,
                                       const std::vector<Contamination>& cs) {
   CharacterMatrix out = m;
@@ -437,15 +449,7 @@ CharacterMatrix MaskSecondaryExemplar(const CharacterMatrix& m,
           if (!own) break;
         }
         if (own) continue;
-        const ContaminationSegment* nearest = nullptr;
-        int gap = 0;
-        for (const auto& seg : c.segments) {
-          const int d = ch.position < seg.first_position  ? seg.first_position - ch.position
-                        : ch.position > seg.last_position ? ch.position - seg.last_position
-                                                          : 0;
-          if (!nearest || d < gap) nearest = &seg, gap = d;
-        }
-        if (nearest->relative == c.secondary) ch.states[t] = -1;
+        if (NearestSegment(c, ch.position)->relative == c.secondary) ch.states[t] = -1;
       }
     }
   }

@@ -157,6 +157,11 @@ struct Contamination {
   std::string shortfall;
 };
 
+/// The stretch of `c` nearest to the character at `position` (the one it
+/// lies in, else the closest): where the witness follows which relative
+/// there. Null when `c` has no stretches.
+const ContaminationSegment* NearestSegment(const Contamination& c, int position);
+
 /// The one-line criterion (a second one, for a witness that takes one part
 /// from a line with no surviving witness, or the archetype's own, where it
 /// has no second relative): witness C is contaminated when there is a
