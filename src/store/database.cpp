@@ -273,12 +273,28 @@ void Database::Migrate() {
   // one per migration (perf: the commits were half of creating a database,
   // which every import into a new file pays).
   Transaction t(*this);
-  for (const auto& m : all) {
-    if (m.version <= current) continue;
-    Execute(m.sql);
+  const Migration& fresh = FreshSchema();
+  if (current == 0 && fresh.version == all.back().version && IsEmpty()) {
+    // A new database from one script: running the 14 migrations took 12 ms
+    // of CPU (`perf stat -r 30`, the sqlite3 shell), this script 5 ms, of
+    // the 13 ms the shell itself takes; about 7 ms saved on every import
+    // into a new file (0.21 s for 1,000 sheets). The same schema
+    // (tests/store/migration_test.cpp).
+    Execute(fresh.sql);
+  } else {
+    for (const auto& m : all) {
+      if (m.version <= current) continue;
+      Execute(m.sql);
+    }
   }
   Execute("PRAGMA user_version = " + std::to_string(all.back().version));
   t.Commit();
+}
+
+bool Database::IsEmpty() {
+  auto s = Prepare("SELECT count(*) FROM sqlite_master");
+  s.Step();
+  return s.Int(0) == 0;
 }
 
 bool Database::InTransaction() const { return sqlite3_get_autocommit(db_) == 0; }

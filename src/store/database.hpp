@@ -114,6 +114,8 @@ class Database {
  private:
   void Configure();
   void Migrate();
+  /// True when the file holds no table, view, index or trigger yet.
+  bool IsEmpty();
   sqlite3* db_ = nullptr;
   std::string path_;
   /// Idle prepared statements by SQL: a batch job loads a thousand tables

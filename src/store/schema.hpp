@@ -16,4 +16,9 @@ struct Migration {
 /// All migrations in ascending version order.
 const std::vector<Migration>& Migrations();
 
+/// The schema every migration leaves, in one script (schema/fresh.sql,
+/// made by schema/make_fresh.sh); `version` is the last migration it holds.
+/// A new database is created from it.
+const Migration& FreshSchema();
+
 }  // namespace apograph::store
