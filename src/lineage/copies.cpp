@@ -18,13 +18,7 @@ namespace {
 bool Usable(const Character& ch) { return ch.Directed() && ch.weight > 0 && !ch.tie_break; }
 
 // Whether b cannot be a copy of a because of the dates or the kinds.
-bool Anachronism(const CharacterMatrix& m, int a, int b) {
-  if (m.witnesses.size() != m.taxa.size()) return false;
-  const WitnessInfo &wa = m.witnesses[a], &wb = m.witnesses[b];
-  const auto da = wa.Dates(), db = wb.Dates();
-  if (da && db && db->WhollyBefore(*da)) return true;
-  return wa.Kind() == WitnessKind::kModernEdition && wb.Kind() != WitnessKind::kModernEdition;
-}
+bool Anachronism(const CharacterMatrix& m, int a, int b) { return CannotDescend(m, b, a); }
 
 // Whether a's dates lie wholly before b's.
 bool Older(const CharacterMatrix& m, int a, int b) {
@@ -251,6 +245,15 @@ std::vector<std::string> CopiesRefusedByDates(const CharacterMatrix& m, int min_
     }
   }
   return out;
+}
+
+bool CannotDescend(const CharacterMatrix& m, int copy, int exemplar) {
+  if (m.witnesses.size() != m.taxa.size()) return false;
+  const WitnessInfo &we = m.witnesses[static_cast<std::size_t>(exemplar)],
+                    &wc = m.witnesses[static_cast<std::size_t>(copy)];
+  const auto de = we.Dates(), dc = wc.Dates();
+  if (de && dc && dc->WhollyBefore(*de)) return true;
+  return we.Kind() == WitnessKind::kModernEdition && wc.Kind() != WitnessKind::kModernEdition;
 }
 
 }  // namespace apograph::lineage

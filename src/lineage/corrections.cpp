@@ -107,17 +107,6 @@ double ConflictsWith(const Character& k, int w, const std::vector<Split>& splits
   return weight;
 }
 
-// Whether the dates or kinds forbid x to descend from w (x older, or w a
-// modern edition and x not).
-bool CannotDescend(const CharacterMatrix& m, int x, int w) {
-  if (m.witnesses.size() != m.taxa.size()) return false;
-  const WitnessInfo &wx = m.witnesses[static_cast<std::size_t>(x)],
-                    &ww = m.witnesses[static_cast<std::size_t>(w)];
-  const auto dx = wx.Dates(), dw = ww.Dates();
-  if (dx && dw && dx->WhollyBefore(*dw)) return true;
-  return ww.Kind() == WitnessKind::kModernEdition && wx.Kind() != WitnessKind::kModernEdition;
-}
-
 Correction Examine(const CharacterMatrix& m, int w, const std::vector<Split>& splits,
                    bool own_group = false) {
   Correction c;

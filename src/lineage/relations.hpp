@@ -71,6 +71,11 @@ std::vector<CopyCandidate> FindCopies(const CharacterMatrix& oriented,
 /// "D holds all of C's errors, but D (1420) is older than C (1461)".
 std::vector<std::string> CopiesRefusedByDates(const CharacterMatrix& oriented, int min_errors = 2);
 
+/// Whether witness `copy` cannot descend from witness `exemplar` by their
+/// catalogue dates (the copy wholly older) or kinds (a manuscript or print
+/// from a modern edition); false when the matrix carries no witness data.
+bool CannotDescend(const CharacterMatrix& matrix, int copy, int exemplar);
+
 /// One stretch of a contaminated witness and the relative it follows there.
 struct ContaminationSegment {
   std::string relative;
