@@ -190,19 +190,23 @@ void GroupNotes(LineageReport& r) {
 
 }  // namespace
 
-LineageReport AnalyseLineage(const CharacterMatrix& m, const LineageOptions& o) {
+LineageReport AnalyseLineage(const CharacterMatrix& raw, const LineageOptions& o) {
   LineageReport r;
-  r.title = m.title;
-  r.witnesses = m.taxa;
-  r.witness_info = m.witnesses;
-  r.characters = static_cast<int>(m.characters.size());
-  r.undetermined_cells = m.undetermined_cells;
-  r.root = CountRootEvidence(m);
+  r.title = raw.title;
+  r.witnesses = raw.taxa;
+  r.witness_info = raw.witnesses;
+  r.characters = static_cast<int>(raw.characters.size());
+  r.undetermined_cells = raw.undetermined_cells;
+  r.root = CountRootEvidence(raw);
   r.bootstrap = o.bootstrap;
   const Method first = o.methods.empty() ? Method::kParsimony : o.methods.front();
   // 1-2: correctors set aside, a first stemma; contamination read off it.
+  const CharacterMatrix first_corrected = MaskCorrections(raw, FindCorrections(raw));
+  const Stemma s0 = BuildStemma(ForTree(first_corrected), first, {}, o.parsimony);
+  // The majorities the first stemma contradicts left undirected; the
+  // correctors found again on what is left.
+  const CharacterMatrix m = CheckMajorities(raw, s0, ForTree(first_corrected));
   const CharacterMatrix corrected = MaskCorrections(m, FindCorrections(m));
-  const Stemma s0 = BuildStemma(ForTree(corrected), first, {}, o.parsimony);
   CharacterMatrix oriented = Orient(corrected, s0);
   if (!r.root.Directed()) {  // a midpoint root orients nothing reliably
     for (auto& ch : oriented.characters) {

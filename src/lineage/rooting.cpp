@@ -4,6 +4,8 @@
 #include <functional>
 #include <vector>
 
+#include "lineage/ancestral.hpp"
+
 namespace apograph::lineage {
 
 bool RootEvidence::Directed() const { return model + majority >= kMinRootEvidence; }
@@ -25,6 +27,26 @@ RootEvidence CountRootEvidence(const CharacterMatrix& m) {
       e.undirected += ch.weight;
   }
   return e;
+}
+
+CharacterMatrix CheckMajorities(const CharacterMatrix& m, const Stemma& first,
+                                const CharacterMatrix& tree_matrix) {
+  if (CountRootEvidence(m).model < kMinRootEvidence || first.root < 0) return m;
+  CharacterMatrix out = m;
+  const AncestralStates a = Reconstruct(first, tree_matrix);
+  const auto& lines = first.nodes[static_cast<std::size_t>(first.root)].children;
+  for (std::size_t k = 0; k < out.characters.size(); ++k) {
+    Character& ch = out.characters[k];
+    if (ch.direction != Direction::kMajority) continue;
+    int against = 0, with = 0;  // lines reading only the other reading, only the majority's
+    for (int c : lines) {
+      const unsigned char set = a.sets[static_cast<std::size_t>(c)][k];
+      against += set == 2 ? 1 : 0;
+      with += set == 1 ? 1 : 0;
+    }
+    if (against >= kLinesAgainstMajority && with <= 1) ch.direction = Direction::kNone;
+  }
+  return out;
 }
 
 namespace {

@@ -247,10 +247,11 @@ void FalseGroupCharacters(const lineage::LineageReport& r, const Sigla& g) {
     for (std::size_t k = 0; k < o.characters.size(); ++k) {
       const auto& ch = o.characters[k];
       if (ch.tie_break || !a.Changes(node, static_cast<int>(k))) continue;
-      int carriers = 0;
-      for (auto x : ch.states) carriers += x == 1;
-      std::printf("      %s w%.1f %s %s carriers %d%s [%s]\n", ch.label.c_str(), ch.weight,
-                  ch.weight_reason.c_str(), lineage::ToString(ch.direction), carriers,
+      std::string carriers;
+      for (std::size_t x = 0; x < ch.states.size(); ++x)
+        if (ch.states[x] == 1) carriers += (carriers.empty() ? "" : " ") + o.taxa[x];
+      std::printf("      %s w%.1f %s %s carriers (%s)%s [%s]\n", ch.label.c_str(), ch.weight,
+                  ch.weight_reason.c_str(), lineage::ToString(ch.direction), carriers.c_str(),
                   ch.one_unit ? " one-unit" : "", ch.cause.c_str());
     }
   }

@@ -275,3 +275,37 @@ TEST_CASE("a mixture handed down to a copy is told once, and the copy follows it
 
 }  // namespace
 }  // namespace apograph::lineage
+
+namespace apograph::lineage {
+namespace {
+
+// C follows X in rows 0-99 (three errors shared with X) and, from row 100,
+// the line of Y and F (sixteen errors all three share): the larger part.
+// D is C's copy (it holds every error of C's and one of its own).
+TEST_CASE("the second exemplar's line is set aside even where it holds most of the mixture") {
+  CharacterMatrix m;
+  m.taxa = {"C", "X", "Y", "F", "D", "W"};
+  for (int p : {10, 30, 50}) m.characters.push_back(At(p, {1, 1, 0, 0, 1, 0}));
+  for (int k = 0; k < 16; ++k) m.characters.push_back(At(110 + 20 * k, {1, 0, 1, 1, 1, 0}));
+  m.characters.push_back(At(430, {1, 0, 0, 0, 1, 0}));  // C's own, handed to D
+  m.characters.push_back(At(431, {0, 0, 0, 0, 1, 0}));  // D's own
+  Contamination c;
+  c.witness = "C";
+  c.primary = "X";
+  c.secondary = "Y";
+  c.segments = {{"X", "10", "50", 10, 50, 3, 3}, {"Y", "110", "410", 110, 410, 16, 16}};
+  const CharacterMatrix masked = MaskSecondaryExemplar(m, {c});
+  for (const auto& ch : masked.characters) {
+    CAPTURE(ch.position);
+    // Y and F hold 16 of C's 20 errors (within a copy's tolerance) but
+    // none where C follows X: not C's copies, so the readings C shares
+    // with them there came from the second exemplar.
+    if (ch.position >= 110 && ch.position <= 410) CHECK(ch.states[0] == -1);
+    if (ch.position < 100) CHECK(ch.states[0] == 1);
+  }
+  // A reading only C and its copy D carry did not come from Y.
+  CHECK(masked.characters[19].states[0] == 1);
+}
+
+}  // namespace
+}  // namespace apograph::lineage
