@@ -69,5 +69,34 @@ TEST_CASE("a slid run judged by a model: the witnesses without it read it right"
   CHECK_FALSE(by_majority->base_is_right);
 }
 
+TEST_CASE("a slide most witnesses inherited: the few that read the model are not slid") {
+  auto slid = kRight;
+  for (int i = 3; i <= 6; ++i) slid[i] = kRight[i + 1];  // one lost copy's eye slid a row
+  const std::vector<Transcription> ws = {Witness("A", slid), Witness("B", slid), Witness("C", slid),
+                                         Witness("D", kRight), Witness("E", kRight)};
+  collate::CollateOptions options;
+  options.reference = collate::Reference{
+      "the right values", [](const Sexagesimal& argument, int) -> std::optional<Sexagesimal> {
+        const auto row = static_cast<std::size_t>(argument.ToDouble() / 10) - 1;
+        return row < kRight.size() ? std::optional(S(kRight[row])) : std::nullopt;
+      }};
+  const collate::Collation c = collate::Collate(ws, options);
+  // Against the others, D and E carry the previous row's values; against
+  // the model they read right: no slide is theirs.
+  for (const auto& s : c.slides) CHECK((s.siglum != "D" && s.siglum != "E"));
+  // The slide is A, B and C's, one character against the model, which D
+  // and E read right (before, D and E each seemed slid the other way: a
+  // character of weight 3 shared by the few right witnesses).
+  const CharacterMatrix m = BuildCharacters(c);
+  const Character* slide = Slide(m);
+  REQUIRE(slide != nullptr);
+  CHECK(slide->direction == Direction::kModel);
+  CHECK(slide->states == std::vector<signed char>{1, 1, 1, 0, 0});
+  int slides = 0;
+  for (const auto& ch : m.characters)
+    slides += ch.label.find("column slid by a row") != std::string::npos ? 1 : 0;
+  CHECK(slides == 1);
+}
+
 }  // namespace
 }  // namespace apograph::lineage
