@@ -100,6 +100,10 @@ struct FittedParam {
   /// False when the entries do not fix this parameter apart from another
   /// (only a combination of them): stderr_ is then NaN.
   bool separable = true;
+  /// Why a parameter the model frees was held (fixed is then true): the
+  /// entries do not determine it, and it stands at the value named here
+  /// ("attested: TRADITION", "round, 0 places"); empty otherwise.
+  std::string held;
 };
 
 /// A combination of parameters that the entries determine although the

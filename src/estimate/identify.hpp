@@ -94,6 +94,12 @@ struct Adoption {
   std::vector<AdoptedValue> values;
   FitResult fit;     ///< the adopted values (other parameters refitted), every entry
   std::string text;  ///< which were adopted and why, in words
+  /// The estimate to report with its standard errors when the free fit
+  /// leaves parameters not separable and some were held for that (a
+  /// planet's epicycle and eccentricity over a short arc): the fit with
+  /// those held (FittedParam::held says at what), every other parameter
+  /// free. Empty: the candidate's free fit is the estimate.
+  std::vector<FittedParam> estimates;
 };
 
 struct Candidate {

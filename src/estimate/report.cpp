@@ -167,6 +167,7 @@ std::string AttestedText(const FitResult& fit, const std::vector<CatalogEntry>& 
 }
 
 std::string ParamWithError(const FittedParam& p) {
+  if (!p.held.empty()) return p.name + " = " + NumberText(p.value) + " (held: " + p.held + ")";
   if (!p.separable)
     return p.name + " = " + NumberText(p.value) + " (not separable from the other parameters)";
   return ParamText(p, " = ") + " (" + Num(p.value, 6) + " \u00b1 " + Num(p.stderr_, 2) + ")";

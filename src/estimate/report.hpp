@@ -36,7 +36,9 @@ namespace apograph::estimate {
 std::string TradeValue(double value, double stderr_);
 
 /// "e = 2;4,48 ± 0;0,0,2 (2.08 ± 1.1e-05)", or "r = 3;9,2 (not separable
-/// from the other parameters)".
+/// from the other parameters)", or for a parameter held because the entries
+/// do not determine it "r = 39;30 (held: attested: ...; the entries do not
+/// determine it)".
 std::string ParamWithError(const FittedParam& p);
 
 /// The attested values nearest to each free parameter of a fit, one line

@@ -139,6 +139,7 @@ std::optional<Adoption> Holding(const ColumnBest& c, const std::map<std::string,
   }
   if (auto rest = internal::AdoptRoundValues(holding, *c.table, obs, catalog, nullptr)) {
     a.values.insert(a.values.end(), rest->values.begin(), rest->values.end());
+    a.estimates = std::move(rest->estimates);
     fit = std::move(rest->fit);
   }
   if (!internal::Keeps(fit, best.fit, allowance)) return std::nullopt;

@@ -209,7 +209,7 @@ void FillIdentified(ColumnReference& r, const WitnessBest& chosen) {
   r.entries = f.n;
   r.exact = f.exact;
   r.within_one = f.within1;
-  r.estimates = c.fit.params;
+  r.estimates = c.adoption && !c.adoption->estimates.empty() ? c.adoption->estimates : c.fit.params;
   r.mean_motion = chosen.mean_motion;
   r.params = f.Values();
   ReduceRadix(*r.model, r.params);

@@ -47,6 +47,11 @@ void Overview(const pipeline::TableAnalysis& a, std::ostream& out) {
 
 void Estimates(const pipeline::ColumnReference& r, std::ostream& out) {
   for (const auto& p : r.estimates) {
+    if (!p.held.empty()) {
+      out << "<li>estimate from witness " << Html(r.witness) << ": "
+          << Html(estimate::ParamWithError(p)) << "</li>";
+      continue;
+    }
     if (p.fixed) continue;
     char buf[64];
     std::snprintf(buf, sizeof buf, " (%.6g &plusmn; %.2g)", p.value, p.stderr_);

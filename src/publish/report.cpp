@@ -43,7 +43,7 @@ void Witnesses(const pipeline::TableAnalysis& a, std::ostream& out) {
 void Estimates(const pipeline::ColumnReference& r, std::ostream& out) {
   std::vector<std::string> parts;
   for (const auto& p : r.estimates) {
-    if (!p.fixed) parts.push_back(estimate::ParamWithError(p));
+    if (!p.fixed || !p.held.empty()) parts.push_back(estimate::ParamWithError(p));
   }
   if (!parts.empty())
     out << "  estimate from witness " << r.witness << ": " << Join(parts, ", ") << "\n";
