@@ -85,13 +85,6 @@ struct ColumnValues {
   /// explained alone. With them, a departure the others share is the
   /// author's, and one they do not share is a copyist's.
   std::vector<TraditionCell> tradition;
-  /// For a column derived as a difference of another column's entries k
-  /// rows apart (k >= 2), k: one source entry enters the derived entries of
-  /// rows r and r + k, with opposite signs, so a model computed from a
-  /// source entry the author had otherwise misses those two rows both ways.
-  /// 0 otherwise (differences of neighbouring rows are covered by the
-  /// window of consecutive rows).
-  int source_span = 0;
 };
 
 struct ExplainOptions {

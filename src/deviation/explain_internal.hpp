@@ -132,16 +132,6 @@ struct OffCurve {
 };
 
 /// What the column tells about its author and its copyist.
-/// Rows first, first + step, ..., last over which the tradition departs
-/// from the model both ways, cancelling (CompensatingRows): consecutive rows
-/// (step 1) or the two rows a source entry enters in a difference of
-/// entries `step` rows apart.
-struct Compensation {
-  std::size_t first = 0;
-  std::size_t last = 0;
-  std::size_t step = 1;
-};
-
 struct ColumnContext {
   DiffColumn diffs;
   /// The step the author writes the column's last place in, in units of it:
@@ -168,12 +158,11 @@ struct ColumnContext {
   /// Per row, that reading when it differs from this copy's and lies within
   /// the author's departure of the model: the original most likely had it.
   std::vector<std::optional<Sexagesimal>> tradition_reading;
-  /// Per row, the rows (two or three consecutive ones, or the two rows of a
-  /// difference k rows apart: ColumnValues::source_span; this one among
-  /// them) over which the tradition's firm reading departs from the model beyond
+  /// Per row, the rows [first, last] (two or three, this one among them)
+  /// over which the tradition's firm reading departs from the model beyond
   /// the author's departure in both directions and the departures cancel
   /// (CompensatingRows): the model, not the tradition, misses those rows.
-  std::vector<std::optional<Compensation>> compensating;
+  std::vector<std::optional<std::pair<std::size_t, std::size_t>>> compensating;
   /// Per row beyond the author's departure, where the model, not the entry,
   /// leaves the column's curve (ModelOffCurve).
   std::vector<std::optional<OffCurve>> off_curve;
@@ -196,12 +185,10 @@ ColumnContext MeasureColumn(const Transcription& table, const ColumnValues& valu
 /// neighbour's value while the model is smoother there than the tradition
 /// (a line repeated into both neighbours, two lines exchanged) is a slip
 /// and is left out; a column constant by nature (a mean motion's step)
-/// repeats its neighbour wherever the model spikes, and is not. For a
-/// difference of entries k rows apart (`values.source_span`), rows r and
-/// r + k are paired the same way.
-std::vector<std::optional<Compensation>> CompensatingRows(const ColumnValues& values,
-                                                          const ExplainOptions& options,
-                                                          const AuthorProfile& author, int places);
+/// repeats its neighbour wherever the model spikes, and is not.
+std::vector<std::optional<std::pair<std::size_t, std::size_t>>> CompensatingRows(
+    const ColumnValues& values, const ExplainOptions& options, const AuthorProfile& author,
+    int places);
 /// Per row beyond the author's departure and not contradicted by the other
 /// witnesses' consensus, the line through the nearest rows (two at most each
 /// side) whose readings lie within the author's departure of the model: set

@@ -144,9 +144,9 @@ bool RepeatsNeighbour(const ColumnValues& values, std::size_t r, int places) {
 
 }  // namespace
 
-std::vector<std::optional<Compensation>> CompensatingRows(const ColumnValues& values,
-                                                          const ExplainOptions& options,
-                                                          const AuthorProfile& author, int places) {
+std::vector<std::optional<std::pair<std::size_t, std::size_t>>> CompensatingRows(
+    const ColumnValues& values, const ExplainOptions& options, const AuthorProfile& author,
+    int places) {
   // Judgement: a source entry enters two differences (three rows cover one
   // row's neighbours both sides); wider windows would pair unrelated slips.
   constexpr std::size_t kWindow = 3;
@@ -154,69 +154,45 @@ std::vector<std::optional<Compensation>> CompensatingRows(const ColumnValues& va
   // Each row's departure in units of the column's last place, and the last
   // place its reading or the model uses (the window's sum is counted as the
   // author departs, in the finest of them: CoarseDiff).
-  // For the two rows of a difference k rows apart, the majority's reading
-  // will do (more than half the others, two at least): rows exactly k apart
-  // cancelling are evidence enough, and a branch's own slip at one of them
-  // (a quarter of the witnesses or more reading otherwise) is common in a
-  // large tradition (judgement; seed 31 of deviation_bench, DEVELOPERS.md,
-  // nineteenth round of issue 10).
-  const std::size_t span =
-      values.source_span >= 2 ? static_cast<std::size_t>(values.source_span) : 0;
-  std::vector<double> units(n, NAN), major(n, NAN);
+  std::vector<double> units(n, NAN);
   std::vector<int> used(n, 0);
   for (std::size_t r = 0; r < n; ++r) {
-    const TraditionCell* t = TraditionAt(values, r);
-    if (span && t && t->consensus && t->witnesses >= 2 && values.computed[r])
-      major[r] = DiffUnits(AtPlaces(*t->consensus, places), *values.computed[r], places);
     const auto firm = FirmReading(values, r, places);
-    const auto reading = firm ? firm : (std::isfinite(major[r]) ? t->consensus : std::nullopt);
-    if (reading)
-      used[r] = std::min(places, std::max(UsedPlaces(AtPlaces(*reading, places)),
-                                          UsedPlaces(*values.computed[r])));
-    if (firm) units[r] = DiffUnits(*firm, *values.computed[r], places);
+    if (!firm) continue;
+    used[r] = std::min(places, std::max(UsedPlaces(*firm), UsedPlaces(*values.computed[r])));
+    units[r] = DiffUnits(*firm, *values.computed[r], places);
   }
   // Beyond the author's departure in units of the column's last place, as
   // MeasureColumn counts the tradition's reading (a +1/-1 pair of seconds in
   // a column written to thirds is beyond it there).
-  const auto beyond = [&](const std::vector<double>& u, std::size_t r) {
-    return std::isfinite(u[r]) && UnitsOff(u[r], options.tolerance) > author.typical;
+  const auto beyond = [&](std::size_t r) {
+    return std::isfinite(units[r]) && UnitsOff(units[r], options.tolerance) > author.typical;
   };
-  // Rows w.first, w.first + w.step, ..., w.last, row r among them: every
-  // departure known, another beyond the author's the other way, the sum
-  // within his departure, and no line repeated or exchanged (a slip).
-  const auto cancels = [&](const std::vector<double>& u, std::size_t r, const Compensation& w) {
-    double sum = 0;
-    int finest = 0;
-    bool opposite = false;
-    for (std::size_t j = w.first; j <= w.last; j += w.step) {
-      if (!std::isfinite(u[j])) return false;
-      sum += u[j];
-      finest = std::max(finest, used[j]);
-      opposite = opposite || (j != r && beyond(u, j) && (u[j] > 0) != (u[r] > 0));
-    }
-    sum /= std::pow(60.0, places - finest);
-    if (!opposite || UnitsOff(sum, options.tolerance) > author.typical) return false;
-    for (std::size_t j = w.first; j <= w.last; j += w.step) {
-      if (beyond(u, j) && RepeatsNeighbour(values, j, places)) return false;
-    }
-    return true;
-  };
-  std::vector<std::optional<Compensation>> out(n);
+  std::vector<std::optional<std::pair<std::size_t, std::size_t>>> out(n);
   for (std::size_t r = 0; r < n; ++r) {
-    if (beyond(units, r)) {
-      const std::size_t lo = r + 1 >= kWindow ? r + 1 - kWindow : 0;
-      for (std::size_t a = lo; a <= r && !out[r]; ++a) {
-        for (std::size_t b = std::max(a + 1, r); b < a + kWindow && b < n && !out[r]; ++b) {
-          if (cancels(units, r, {a, b, 1})) out[r] = Compensation{a, b, 1};
+    if (!beyond(r)) continue;
+    const std::size_t lo = r + 1 >= kWindow ? r + 1 - kWindow : 0;
+    for (std::size_t a = lo; a <= r && !out[r]; ++a) {
+      for (std::size_t b = std::max(a + 1, r); b < a + kWindow && b < n && !out[r]; ++b) {
+        double sum = 0;
+        int finest = 0;
+        bool finite = true, opposite = false;
+        for (std::size_t j = a; j <= b; ++j) {
+          finite = finite && std::isfinite(units[j]);
+          sum += std::isfinite(units[j]) ? units[j] : 0;
+          finest = std::max(finest, used[j]);
+          opposite = opposite || (j != r && beyond(j) && (units[j] > 0) != (units[r] > 0));
         }
+        sum /= std::pow(60.0, places - finest);
+        if (!finite || !opposite || UnitsOff(sum, options.tolerance) > author.typical) continue;
+        // Lines repeated or exchanged (each the other's value): a slip.
+        bool copied = false;
+        for (std::size_t j = a; j <= b; ++j)
+          copied = copied || (beyond(j) && RepeatsNeighbour(values, j, places));
+        if (copied) continue;
+        out[r] = std::make_pair(a, b);
       }
     }
-    // The two rows one source entry enters in a difference k rows apart.
-    if (!span || out[r] || !beyond(major, r)) continue;
-    if (r >= span && cancels(major, r, {r - span, r, span}))
-      out[r] = Compensation{r - span, r, span};
-    if (!out[r] && r + span < n && cancels(major, r, {r, r + span, span}))
-      out[r] = Compensation{r, r + span, span};
   }
   return out;
 }
@@ -471,24 +447,20 @@ std::optional<Candidate> TraditionKeptCandidate(const CellContext& c) {
 
 Finding CompensatedFinding(const Transcription& table, const ColumnValues& values,
                            const ColumnContext& column, std::size_t row, int places) {
-  const auto [first, last, step] = *column.compensating[row];
+  const auto [first, last] = *column.compensating[row];
   const TraditionCell& t = values.tradition[row];
   std::string departures;
-  for (std::size_t j = first; j <= last; j += step) {
+  for (std::size_t j = first; j <= last; ++j) {
     const double d = DiffUnits(*column.consensus[j], *values.computed[j], places);
     departures += (departures.empty() ? "" : ", ") + Signed(d);
   }
   const double exact = row < values.exact.size() ? values.exact[row] : NAN;
-  const std::string rows =
-      step == 1 ? "over rows " + std::to_string(first + 1) + "-" + std::to_string(last + 1)
-                : "at rows " + std::to_string(first + 1) + " and " + std::to_string(last + 1) +
-                      " (differences " + std::to_string(step) +
-                      " rows apart: one source entry enters both)";
   return KeptAgainstModel(
       table, values, row, places,
       "read by " + std::to_string(t.agree) + " of the " + std::to_string(t.witnesses) +
           " other witnesses too, " + SignedUnits(column.diffs.diff[row]) + " from the model (" +
-          ModelText(*values.computed[row], exact, places) + "); " + rows +
+          ModelText(*values.computed[row], exact, places) + "); over rows " +
+          std::to_string(first + 1) + "-" + std::to_string(last + 1) +
           " the tradition departs from the model by " + departures +
           " units, which cancel: the model misses these rows (computed from a source entry the "
           "author had otherwise, or fitted off there), not the tradition; no emendation on the "

@@ -5,7 +5,6 @@
 #include <cmath>
 #include <map>
 
-#include "estimate/derived_model.hpp"
 #include "pipeline/witness_findings.hpp"
 #include "pipeline/witness_internal.hpp"
 
@@ -37,16 +36,6 @@ std::optional<Sexagesimal> ReadValue(const Transcription& w, std::size_t row, in
   return AtPlaces(*cell.value, places);
 }
 
-/// For a difference of a column's entries k rows apart (k >= 2), k: the
-/// rows a source entry enters are k apart (deviation::ColumnValues); else 0.
-int SourceSpan(const ColumnReference& ref) {
-  const auto* derived = dynamic_cast<const estimate::DerivedModel*>(ref.model.get());
-  if (!derived || derived->relation().kind != estimate::DerivedRelation::Kind::kDifference)
-    return 0;
-  const int k = std::abs(derived->relation().rows);
-  return k >= 2 ? k : 0;
-}
-
 ColumnRun MakeRun(const std::vector<const Transcription*>& ws, std::size_t w,
                   const ColumnReference& ref) {
   ColumnRun run;
@@ -56,7 +45,6 @@ ColumnRun MakeRun(const std::vector<const Transcription*>& ws, std::size_t w,
   run.places = ref.practice.places.value_or(t.columns[static_cast<std::size_t>(ref.column)].places);
   const auto re = ref.Recompute(t);
   run.values = {ref.column, re.computed, re.exact, {}};
-  run.values.source_span = SourceSpan(ref);
   run.written = t.columns[static_cast<std::size_t>(ref.column)].places;
   for (std::size_t r = 0; r < t.rows.size(); ++r) {
     if (auto a = t.ArgumentInUse(r)) run.rows.emplace(a->ToString(), r);
