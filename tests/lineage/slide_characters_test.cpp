@@ -37,6 +37,17 @@ Transcription Witness(const std::string& siglum, const std::vector<std::string>&
   return t;
 }
 
+// Collation judged by a model that computes kRight.
+collate::CollateOptions ByTheRightValues() {
+  collate::CollateOptions options;
+  options.reference = collate::Reference{
+      "the right values", [](const Sexagesimal& argument, int) -> std::optional<Sexagesimal> {
+        const auto row = static_cast<std::size_t>(argument.ToDouble() / 10) - 1;
+        return row < kRight.size() ? std::optional(S(kRight[row])) : std::nullopt;
+      }};
+  return options;
+}
+
 const Character* Slide(const CharacterMatrix& m) {
   for (const auto& ch : m.characters) {
     if (ch.label.find("column slid by a row") != std::string::npos) return &ch;
@@ -49,12 +60,7 @@ TEST_CASE("a slid run judged by a model: the witnesses without it read it right"
   for (int i = 3; i <= 6; ++i) d[i] = kRight[i + 1];  // D's eye slid a row ahead
   const std::vector<Transcription> ws = {Witness("A", kRight), Witness("B", kRight),
                                          Witness("C", kRight), Witness("D", d)};
-  collate::CollateOptions options;
-  options.reference = collate::Reference{
-      "the right values", [](const Sexagesimal& argument, int) -> std::optional<Sexagesimal> {
-        const auto row = static_cast<std::size_t>(argument.ToDouble() / 10) - 1;
-        return row < kRight.size() ? std::optional(S(kRight[row])) : std::nullopt;
-      }};
+  const collate::CollateOptions options = ByTheRightValues();
   const CharacterMatrix judged = BuildCharacters(collate::Collate(ws, options));
   const Character* slide = Slide(judged);
   REQUIRE(slide != nullptr);
@@ -74,12 +80,7 @@ TEST_CASE("a slide most witnesses inherited: the few that read the model are not
   for (int i = 3; i <= 6; ++i) slid[i] = kRight[i + 1];  // one lost copy's eye slid a row
   const std::vector<Transcription> ws = {Witness("A", slid), Witness("B", slid), Witness("C", slid),
                                          Witness("D", kRight), Witness("E", kRight)};
-  collate::CollateOptions options;
-  options.reference = collate::Reference{
-      "the right values", [](const Sexagesimal& argument, int) -> std::optional<Sexagesimal> {
-        const auto row = static_cast<std::size_t>(argument.ToDouble() / 10) - 1;
-        return row < kRight.size() ? std::optional(S(kRight[row])) : std::nullopt;
-      }};
+  const collate::CollateOptions options = ByTheRightValues();
   const collate::Collation c = collate::Collate(ws, options);
   // Against the others, D and E carry the previous row's values; against
   // the model they read right: no slide is theirs.
