@@ -356,7 +356,21 @@ std::vector<Contamination> FindContamination(const CharacterMatrix& m, double mi
   // Strongest mixtures first.
   std::vector<std::size_t> order(found.size());
   for (std::size_t i = 0; i < order.size(); ++i) order[i] = i;
+  // Of two witnesses that name each other, one that cannot descend from the
+  // other (wholly older by its dates, or a manuscript beside a modern
+  // edition) cannot have turned to the other's readings: the later one
+  // changed exemplar (a copyist turns to a book that exists), so the older
+  // one's mixture goes after it, whatever their weights.
+  std::vector<bool> older_of_pair(found.size(), false);
+  for (std::size_t i = 0; i < found.size(); ++i) {
+    for (std::size_t j = 0; j < found.size(); ++j) {
+      const bool mutual = (pairs[i].x == who[j] || pairs[i].y == who[j]) &&
+                          (pairs[j].x == who[i] || pairs[j].y == who[i]);
+      if (i != j && mutual && CannotDescend(m, who[i], who[j])) older_of_pair[i] = true;
+    }
+  }
   std::stable_sort(order.begin(), order.end(), [&](std::size_t a, std::size_t b) {
+    if (older_of_pair[a] != older_of_pair[b]) return static_cast<bool>(older_of_pair[b]);
     return pairs[a].Score() > pairs[b].Score();
   });
   std::vector<bool> drop(found.size(), false);

@@ -114,7 +114,10 @@ struct ContaminationSegment {
 /// when each holds the other's so, the one lacking fewer is the copy),
 /// and neither is a witness that names a contaminated one, with a stronger
 /// mixture, as one of its two relatives (an exemplar of it, or a witness
-/// of the line it changed to). Errors siding with the same relative in
+/// of the line it changed to); of two witnesses that name each other, the
+/// one that cannot descend from the other (wholly older by its dates, or a
+/// manuscript beside a modern edition) gives way whatever the weights: a
+/// copyist turns to a book that exists. Errors siding with the same relative in
 /// neighbouring rows count as one slip. The stretches say where C follows
 /// which.
 

@@ -225,6 +225,57 @@ TEST_CASE("a clean switch of exemplar is called on two slips of the weaker side"
   CHECK(FindContamination(SwitchMatrix(4, false, false)).empty());
 }
 
+// Witnesses M, S, X, Y, W. M follows X in rows 0-99 (four common slips of
+// their line) and S in rows 100-199, where it holds five distinctive errors
+// of S's own; S shares five distinctive errors with Y, its line, in rows
+// 0-99 only. Read without dates, each names the other: S seems to follow Y
+// and then M, with the heavier evidence (weight 10 against M's 4).
+CharacterMatrix MirrorMatrix() {
+  CharacterMatrix m;
+  m.taxa = {"M", "S", "X", "Y", "W"};
+  const auto distinctive = [](int position, std::vector<signed char> states) {
+    Character c = At(position, std::move(states));
+    c.weight = 2;
+    return c;
+  };
+  for (int k = 0; k < 4; ++k) m.characters.push_back(At(10 + 20 * k, {1, 0, 1, 0, 0}));
+  for (int k = 0; k < 5; ++k) {
+    m.characters.push_back(distinctive(15 + 20 * k, {0, 1, 0, 1, 0}));
+    m.characters.push_back(distinctive(110 + 20 * k, {1, 1, 0, 0, 0}));
+  }
+  for (int k = 0; k < 3; ++k) {
+    m.characters.push_back(At(105 + 30 * k, {0, 0, 1, 0, 0}));
+    m.characters.push_back(At(108 + 30 * k, {0, 0, 0, 1, 0}));
+    m.characters.push_back(At(12 + 60 * k, {0, 0, 0, 0, 1}));
+  }
+  std::stable_sort(m.characters.begin(), m.characters.end(),
+                   [](const Character& a, const Character& b) { return a.position < b.position; });
+  return m;
+}
+
+TEST_CASE("of two witnesses naming each other, the older did not take the later one's readings") {
+  CharacterMatrix m = MirrorMatrix();
+  const auto undated = FindContamination(m);
+  REQUIRE(undated.size() == 1);
+  CHECK(undated[0].witness == "S");  // the heavier evidence, with no dates to say otherwise
+  // S written about 1320, M in 1410: S cannot have turned to M's readings;
+  // M changed exemplar, taking S's own errors in its second part.
+  m.witnesses.resize(m.taxa.size());
+  for (std::size_t k = 0; k < m.taxa.size(); ++k) m.witnesses[k].siglum = m.taxa[k];
+  m.witnesses[0].date = "1410";
+  m.witnesses[1].date = "c. 1320";
+  const auto dated = FindContamination(m);
+  REQUIRE(dated.size() == 1);
+  CHECK(dated[0].witness == "M");
+  CHECK(dated[0].primary == "X");
+  CHECK(dated[0].secondary == "S");
+  // Dates that overlap decide nothing: the heavier evidence again.
+  m.witnesses[1].date = "15th century";
+  const auto overlapping = FindContamination(m);
+  REQUIRE(overlapping.size() == 1);
+  CHECK(overlapping[0].witness == "S");
+}
+
 // Witnesses C, J, A, D, W. A follows C in rows 10-90 (five errors of C's
 // line) and J in rows 115-195 (five of J's); C and J have five errors of
 // their own each in the other part; D holds all of A's errors and two of
