@@ -17,9 +17,6 @@ namespace {
 // to agree (slips touch a few percent of the entries, one kind of place slip
 // a tenth of those).
 constexpr int kMinRows = 2;
-// Judgement: rows a run passes over that its slip does not explain (entries
-// spoiled otherwise), at most this many in a row.
-constexpr std::size_t kMaxGap = 2;
 // A constant error within the author's departure that the other witnesses
 // agree on and this copy does not, this copy reading the model's value: an
 // ancestor's error the others inherited. Judgement: over at least three rows
@@ -181,39 +178,30 @@ struct Scan {
     return fit && *fit != *Copy(r) &&
            (column.deviant[r] || column.contradicted[r] || OffTradition(r));
   }
-  /// Grows [first, last] over the rows the transform fits, then over one or
-  /// two rows it does not fit (left blank, illegible or miscopied besides)
-  /// when the row beyond them is a slip of the run. Judgement: a copyist
-  /// carrying a constant error goes on carrying it past entries he spoiled
-  /// otherwise; two separate slips of the same kind a few rows apart are far
-  /// rarer. Only past two changed rows, so two isolated slips never make a
-  /// run (a script's common confusion, 1 read as 7 in the degrees, adds the
-  /// very same amount to two entries two rows apart: seed 16 of
-  /// deviation_bench; DEVELOPERS.md, twentieth round of issue 10).
+  /// Grows [first, last] over the rows the transform fits, then over one row
+  /// it does not fit (left blank, illegible or miscopied besides) when the
+  /// row beyond it is a slip of the run. Judgement: a copyist carrying a
+  /// constant error goes on carrying it past an entry he spoiled otherwise;
+  /// two separate slips of the same kind two rows apart are far rarer. Only
+  /// past two changed rows, so two isolated slips never make a run.
   void Extend(Run& run, const std::vector<bool>& claimed) const {
     const auto& t = run.transform;
     const std::size_t n = table.rows.size();
     const auto free_fit = [&](std::size_t r) { return !claimed[r] && Fits(t, r).has_value(); };
-    const auto jump_to = [&](std::size_t r) { return !claimed[r] && Deviant(t, r); };
     for (bool jumped = true; jumped;) {
       while (run.first > 0 && free_fit(run.first - 1)) --run.first;
       while (run.last + 1 < n && free_fit(run.last + 1)) ++run.last;
       jumped = false;
       if (ChangedIn(run) < kMinRows) break;
-      for (std::size_t g = 1; g <= kMaxGap && !jumped; ++g) {
-        if (run.first >= g + 1 && jump_to(run.first - g - 1)) {
-          for (std::size_t k = 1; k <= g; ++k) run.gaps.push_back(run.first - k);
-          run.first -= g + 1;
-          jumped = true;
-        }
+      if (run.first >= 2 && !claimed[run.first - 2] && Deviant(t, run.first - 2)) {
+        run.first -= 2;
+        run.gaps.push_back(run.first + 1);
+        jumped = true;
       }
-      for (std::size_t g = 1; g <= kMaxGap; ++g) {
-        if (run.last + g + 1 < n && jump_to(run.last + g + 1)) {
-          for (std::size_t k = 1; k <= g; ++k) run.gaps.push_back(run.last + k);
-          run.last += g + 1;
-          jumped = true;
-          break;
-        }
+      if (run.last + 2 < n && !claimed[run.last + 2] && Deviant(t, run.last + 2)) {
+        run.last += 2;
+        run.gaps.push_back(run.last - 1);
+        jumped = true;
       }
     }
   }

@@ -661,45 +661,6 @@ TEST_CASE("a constant error goes on past an entry miscopied otherwise") {
   }
 }
 
-TEST_CASE("a constant error goes on past two entries miscopied otherwise") {
-  // A copy one degree short over six rows of a solar equation, its fourth
-  // and fifth rows spoiled besides (blank, illegible or another slip): the
-  // sixth row is the same constant error, one story with the first three
-  // (seeds 1-40 of deviation_bench: such rows were a confusion; DEVELOPERS.md,
-  // twentieth round of issue 10). The spoiled rows keep their own findings.
-  Synthetic s = MakeTable(testing::SolarEquation, 1, 1, 180, 1);
-  const std::vector<std::size_t> starts = {30, 80, 130};
-  const std::vector<std::pair<std::string, std::string>> gaps = {{"_", "?"}, {"?", ""}, {"", "_"}};
-  for (std::size_t i = 0; i < starts.size(); ++i) {
-    for (std::size_t r = starts[i]; r < starts[i] + 6; ++r)
-      s.Set(r, Moved(s, r, -60, 1).ToString());
-    const std::size_t gap = starts[i] + 3;
-    s.Set(gap, gaps[i].first.empty() ? Moved(s, gap, 7 * 60 + 13, 1).ToString() : gaps[i].first);
-    s.Set(gap + 1,
-          gaps[i].second.empty() ? Moved(s, gap + 1, 7 * 60 + 13, 1).ToString() : gaps[i].second);
-  }
-  const auto findings = ExplainColumn(s.table, s.values, FindNumeralScript("hindu-arabic", kDir));
-  for (std::size_t first : starts) {
-    const Finding* f = At(findings, first);
-    REQUIRE(f != nullptr);
-    INFO(f->Note("A"));
-    CHECK(f->best().cls == SlipClass::kSystematic);
-    REQUIRE(f->cells.size() == 4);
-    CHECK(f->cells.back().row == first + 5);
-    for (const auto& c : f->cells) {
-      REQUIRE(c.emendation.has_value());
-      CHECK(c.emendation->ToString() == s.values.computed[c.row]->ToString());
-    }
-    CHECK(f->best().evidence.find("2 entries between them miscopied otherwise") !=
-          std::string::npos);
-    for (std::size_t spoiled_row : {first + 3, first + 4}) {
-      const Finding* spoiled = At(findings, spoiled_row);
-      REQUIRE(spoiled != nullptr);
-      CHECK(spoiled != f);
-    }
-  }
-}
-
 TEST_CASE("a reading the whole tradition shares out of every slip's reach is kept, not emended") {
   // Four witnesses read, at three rows apart, a value 2;37 above the model:
   // beyond the author's departure, and no copying slip joins it to the
