@@ -107,7 +107,8 @@ inline std::string ClassName(const synth::Slip& s) {
 }
 
 /// `visible`: cells of the slip's run this witness shows (an eye-skip seen in
-/// one cell only is one entry taken from its neighbour: a repetition too).
+/// one cell only is one entry taken from its neighbour: a repetition too; a
+/// constant error seen in one cell only, a confusion too).
 inline std::set<std::string> Expected(const synth::Slip& s, int visible) {
   using K = synth::SlipClass;
   const bool run = s.detail.rfind("systematic:", 0) == 0;
@@ -128,6 +129,10 @@ inline std::set<std::string> Expected(const synth::Slip& s, int visible) {
       if (visible == 1) return {"displaced-run", "repetition"};
       return {"displaced-run"};
     case K::kConstantRun:
+      // Seen in one cell only, a constant error is one entry a unit off in
+      // one place: a slip of one symbol too (as an eye-skip seen once is a
+      // repetition); nothing in the copy shows the run.
+      if (visible == 1) return {"systematic", "confusion"};
       return {"systematic"};
     case K::kBlank:
       return {"blank"};
@@ -139,15 +144,24 @@ inline std::set<std::string> Expected(const synth::Slip& s, int visible) {
   }
 }
 
-/// Slips by (table, archetype row, column), in the order they were made.
-using SlipIndex =
-    std::map<std::tuple<std::string, int, std::string>, std::vector<const synth::Slip*>>;
+/// Slips by (table, archetype row, column), in the order they were made,
+/// and the node (copy) that made each: run ids are numbered per copy, so a
+/// run is one copy's run id.
+struct SlipIndex {
+  std::map<std::tuple<std::string, int, std::string>, std::vector<const synth::Slip*>> cells;
+  std::map<const synth::Slip*, std::size_t> node;
+  /// The run a slip belongs to: (the copy that made it, its run id).
+  std::pair<std::size_t, int> Run(const synth::Slip& s) const { return {node.at(&s), s.run}; }
+};
 
 inline SlipIndex IndexSlips(const synth::Tradition& t) {
   SlipIndex out;
-  for (const auto& n : t.nodes) {
-    for (const auto* list : {&n.slips, &n.recognition}) {
-      for (const auto& s : *list) out[{s.table, s.origin_row, s.column}].push_back(&s);
+  for (std::size_t i = 0; i < t.nodes.size(); ++i) {
+    for (const auto* list : {&t.nodes[i].slips, &t.nodes[i].recognition}) {
+      for (const auto& s : *list) {
+        out.cells[{s.table, s.origin_row, s.column}].push_back(&s);
+        out.node[&s] = i;
+      }
     }
   }
   return out;
@@ -157,8 +171,8 @@ inline SlipIndex IndexSlips(const synth::Tradition& t) {
 /// whose reading after it is the witness's.
 inline const synth::Slip* SlipFor(const SlipIndex& index, const std::string& table, int origin,
                                   const std::string& column, const Cell& cell) {
-  auto it = index.find({table, origin, column});
-  if (it == index.end()) return nullptr;
+  auto it = index.cells.find({table, origin, column});
+  if (it == index.cells.end()) return nullptr;
   const synth::Slip* found = nullptr;
   for (const auto* s : it->second) {
     bool same = s->after == cell.raw;
@@ -252,11 +266,13 @@ inline void GradeColumn(const Witness& w, const pipeline::WitnessFindings& found
                         const SlipIndex& index, Grade& g) {
   const int column = w.table.ColumnIndex(key.name);
   const auto flags = Flags(found, column);
-  std::map<int, int> visible;  // run id -> cells of this column that show it
+  // A run (one copy's run id; ids are per copy, so an ancestor's run 0 and
+  // this copy's are two runs) -> cells of this column that show it.
+  std::map<std::pair<std::size_t, int>, int> visible;
   for (std::size_t r = 0; r < w.table.rows.size() && r < w.text->origin.size(); ++r) {
     const Cell& cell = w.table.rows[r].cells[static_cast<std::size_t>(column)];
     if (const auto* s = SlipFor(index, author.key.id, w.text->origin[r], key.name, cell))
-      ++visible[s->run];
+      ++visible[index.Run(*s)];
   }
   std::set<int> seen;
   GradeCounts& script = g.by_script[ScriptOf(w.table)];
@@ -305,7 +321,7 @@ inline void GradeColumn(const Witness& w, const pipeline::WitnessFindings& found
     one.flagged = flagged;
     one.caught = flagged;
     if (flagged) {
-      const auto expected = Expected(*slip, visible[slip->run]);
+      const auto expected = Expected(*slip, visible[index.Run(*slip)]);
       one.right_class = expected.count(flag->second.cls) > 0;
       one.right_either = one.right_class;
       for (const auto& u : flag->second.undecided) one.right_either |= expected.count(u) > 0;
@@ -317,7 +333,7 @@ inline void GradeColumn(const Witness& w, const pipeline::WitnessFindings& found
                                                        : "EMEND ") +
                         ClassName(*slip) + " [" + slip->detail + "] " + slip->pair + " " +
                         slip->before + " -> " + slip->after + " want " + want.ToString() + " (" +
-                        ScriptOf(w.table) + ") {vis " + std::to_string(visible[slip->run]) +
+                        ScriptOf(w.table) + ") {vis " + std::to_string(visible[index.Run(*slip)]) +
                         " run " + std::to_string(slip->run) + " row " + std::to_string(r) +
                         " wit " + w.node->name + " col " + key.name + "} | " +
                         NoteOf(found, column, r));
