@@ -175,7 +175,7 @@ struct ColumnBest {
 
 /// One value for the table (shared_values.cpp): in a table of several
 /// latitudes, the obliquity adopted by most columns is tried in each column
-/// that adopted another, the latitude then adopted again; the column's
+/// that adopted another or nothing, the latitude then adopted again; the column's
 /// adoption is replaced when its entries keep the fit's. Then ShareMotions.
 void ShareAdoptedValues(const std::vector<ColumnBest>& columns,
                         const std::vector<CatalogEntry>* catalog);

@@ -84,6 +84,21 @@ bool IsRate(const model::ParamSpec* spec) {
          (spec->role == model::ParamRole::kRate || spec->role == model::ParamRole::kAnomalyRate);
 }
 
+/// A rounding (not an attested or equivalent value) finer than one place
+/// of a parameter other than a rate, whose unit is smaller than
+/// kUndeterminedPlace standard errors of the free estimate: the entries
+/// cannot tell it from the roundings beside it, and adopting it would
+/// claim a place they do not fix (a solar eccentricity fitted at
+/// 2;14,57,56 +- 0;0,1,50 adopted at 2;14,58 for an author's 2;15). Whole and
+/// one-place values are still tried (what authors chose); rates have
+/// their own test (kRoundingMargin); the two parameters of a spherical
+/// table adopted together (AdoptJointly) are judged by their pair.
+/// Measured on identify_accuracy_bench, see DEVELOPERS.md, issue 9,
+/// fourteenth round.
+bool UndeterminedPlace(const Trial& t, double se, const model::ParamSpec* spec) {
+  return t.places >= 2 && !IsRate(spec) && FinerThanError(t, se);
+}
+
 int PlacesOf(const Sexagesimal& v) {
   int p = v.places();
   while (p > 0 && v.Rounded(p - 1).Extended(p) == v) --p;
@@ -249,7 +264,9 @@ std::optional<Adoption> AdoptRoundValues(const Candidate& best, const Transcript
                       const model::ParamSpec* spec, bool whole_only) {
     auto trials = Trials(best, name, estimate, se, spec, places, catalog, mean_motion);
     if (whole_only) std::erase_if(trials, [](const Trial& t) { return t.group != kWholeGroup; });
-    if (set) std::erase_if(trials, [se](const Trial& t) { return FinerThanError(t, se); });
+    std::erase_if(trials, [set, se, spec](const Trial& t) {
+      return set ? FinerThanError(t, se) : UndeterminedPlace(t, se, spec);
+    });
     auto found = FirstAcceptable(trials, under, table, obs, current, fixed, displacement, name,
                                  IsRate(spec));
     // A radix half a unit below a whole value under rounding computes

@@ -6,7 +6,10 @@
 // a little off (23;59,47 with 35;0,17 beside five columns adopting 24).
 // After every column is adopted, the value adopted by most columns (at
 // least two, and more than adopted any other value) is tried in each
-// column that adopted another: held there, the column's other parameters
+// column that adopted another or adopted nothing (its estimates left
+// fitted on the ridge: identify_accuracy_bench seed 10, a column at 35
+// whose roundings finer than their errors are no longer tried, was never
+// offered the table's 24): held there, the column's other parameters
 // refitted and its latitude adopted (as written in the heading, else at
 // its round or attested value), kept when it keeps the column's entries
 // as any adoption must (Keeps, round_values.cpp).
@@ -37,6 +40,17 @@ const AdoptedValue* SharedOf(const Candidate& c, const Transcription& t) {
     if (c.model->params()[static_cast<std::size_t>(j)].role == model::ParamRole::kOther) return &v;
   }
   return nullptr;
+}
+
+/// Whether a column that adopted no shared value can be offered `param`:
+/// its model has that parameter and the table's second argument, and
+/// the column adopted nothing of its own (an estimate left fitted on the
+/// ridge is what the table's value is for).
+bool Unadopted(const Candidate& c, const Transcription& t, const std::string& param) {
+  if (!c.model || !t.argument2 || c.model->ParamIndex(t.argument2->name) < 0 ||
+      c.model->ParamIndex(param) < 0)
+    return false;
+  return !c.adoption;
 }
 
 /// The (parameter, value) adopted by most columns, with how many; nullopt
@@ -109,8 +123,10 @@ std::optional<Adoption> Holding(const ColumnBest& c, const std::vector<ColumnBes
   if (obs.empty() || best.fit.n == 0) return std::nullopt;
   const int allowance = internal::ExactAllowance(best.fit.n);
   std::optional<double> displacement;
-  for (const auto& v : best.adoption->values) {
-    if (v.param == "displacement") displacement = v.value;
+  if (best.adoption) {
+    for (const auto& v : best.adoption->values) {
+      if (v.param == "displacement") displacement = v.value;
+    }
   }
   const std::string& lat = c.table->argument2->name;
   const int j = best.model->ParamIndex(lat);
@@ -169,7 +185,10 @@ void ShareMostAdopted(const std::vector<ColumnBest>& columns,
   std::vector<ColumnBest> agreeing, others;
   for (const auto& c : columns) {
     const AdoptedValue* v = SharedOf(*c.best, *c.table);
-    if (v && v->param == param) (v->value == value ? agreeing : others).push_back(c);
+    if (v && v->param == param)
+      (v->value == value ? agreeing : others).push_back(c);
+    else if (!v && Unadopted(*c.best, *c.table, param))
+      others.push_back(c);
   }
   for (const auto& c : others) {
     if (auto a = Holding(c, agreeing, param, value, source, catalog))
