@@ -33,6 +33,9 @@ class CsvReader {
  public:
   CsvReader(std::string_view text, const std::string& file, const CsvOptions& options)
       : text_(text), file_(file), options_(options) {}
+  /// Reads `text` and keeps it as the table's source text without a copy.
+  CsvReader(std::string&& text, const std::string& file, const CsvOptions& options)
+      : owned_(std::move(text)), owns_(true), text_(owned_), file_(file), options_(options) {}
   TranscriptionFile Run();
 
  private:
@@ -40,7 +43,8 @@ class CsvReader {
   void ReadQuoted(Field& field);
   void CheckFieldCount(const std::vector<Field>& record) const;
   Transcription MakeHead(const std::vector<Field>& header) const;
-  Cell ReadCell(const std::vector<Field>& record, std::size_t column);
+  /// Reads the field(s) of `column` into `cell` (a fresh Cell).
+  void ReadCell(const std::vector<Field>& record, std::size_t column, Cell& cell);
   Cell JoinedCell(const std::vector<Field>& record, std::size_t column);
   int ColumnOf(const Field& f, std::size_t lead);
   void FixPlaces(std::size_t column, const Field& f, const std::string& raw,
@@ -56,6 +60,8 @@ class CsvReader {
   }
   [[noreturn]] void FailEmpty(std::string message) const;
 
+  std::string owned_;  ///< the text, when the reader was given it to keep
+  bool owns_ = false;
   std::string_view text_;
   const std::string& file_;
   const CsvOptions& options_;
