@@ -39,6 +39,9 @@ class CsvReader {
   TranscriptionFile Run();
 
  private:
+  /// A blank that is not the delimiter: in a tab-separated sheet the tab
+  /// around a quoted field ends it (skipped as a blank, it joined two fields).
+  bool IsBlankHere(char c) const { return c != delimiter_ && IsBlank(c); }
   bool NextRecord(std::vector<Field>& record);
   void ReadQuoted(Field& field);
   void CheckFieldCount(const std::vector<Field>& record) const;
