@@ -174,7 +174,12 @@ TranscriptionFile CsvReader::Run() {
   t.rows.reserve(static_cast<std::size_t>(std::count(text_.begin() + pos_, text_.end(), '\n')) + 1);
   while (NextRecord(record)) {
     CheckFieldCount(record);
-    Row& row = t.rows.emplace_back();
+    // A spare row keeps its cells' memory: a fresh vector per row was a
+    // malloc and a free per row, 7% of importing 1,000 sheets.
+    Row& row = next_spare_ < spare_.size() ? t.rows.emplace_back(std::move(spare_[next_spare_++]))
+                                           : t.rows.emplace_back();
+    row.argument = Cell();
+    row.cells.clear();
     row.line = record[0].line;
     ReadCell(record, 0, row.argument);
     row.cells.resize(plan_.columns.size() - 1);  // each read in its place
@@ -216,6 +221,15 @@ TranscriptionFile ReadCsv(std::string_view text, const std::string& file,
 TranscriptionFile ReadCsvFile(const std::string& path, const CsvOptions& options) {
   std::string text = ReadTextFile(path, options.read.max_file_bytes, "a CSV sheet");
   return transcription::csv::CsvReader(std::move(text), path, options).Run();
+}
+
+TranscriptionFile ReadCsvFile(const std::string& path, const CsvOptions& options,
+                              Transcription& spare) {
+  std::string text = ReadTextFile(path, options.read.max_file_bytes, "a CSV sheet");
+  transcription::csv::CsvReader reader(std::move(text), path, options);
+  reader.ReuseRows(std::move(spare.rows));
+  spare.rows.clear();
+  return reader.Run();
 }
 
 std::string WriteCsv(const Transcription& table) {

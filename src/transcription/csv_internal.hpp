@@ -37,6 +37,8 @@ class CsvReader {
   CsvReader(std::string&& text, const std::string& file, const CsvOptions& options)
       : owned_(std::move(text)), owns_(true), text_(owned_), file_(file), options_(options) {}
   TranscriptionFile Run();
+  /// Rows to reuse (their cells' memory) before allocating new ones.
+  void ReuseRows(std::vector<Row>&& rows) { spare_ = std::move(rows); }
 
  private:
   /// A blank that is not the delimiter: in a tab-separated sheet the tab
@@ -75,6 +77,8 @@ class CsvReader {
   std::deque<std::string> unquoted_;  ///< fields of this record that needed unescaping
   std::deque<std::string> unquoted_header_;
   SheetPlan plan_;
+  std::vector<Row> spare_;
+  std::size_t next_spare_ = 0;
   std::vector<int> first_line_;  ///< per planned column: line of the reading that fixed its places
   int argument_places_ = 0;      ///< the most places an argument reading had
   std::size_t counter_start_ = std::string_view::npos;

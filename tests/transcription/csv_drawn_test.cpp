@@ -9,6 +9,7 @@
 #include <fstream>
 #include <random>
 #include <string>
+#include <utility>
 #include <vector>
 
 #include "transcription/csv.hpp"
@@ -139,6 +140,17 @@ TEST_CASE("drawn CSV sheets: readings, values and positions as written, from tex
   CsvOptions options;
   options.head.table_id = "sun-eq";
   options.head.witness.siglum = "K";
+  // The rows a batch import hands on from sheet to sheet; the first from a
+  // transcription with marks, notes and corrections, which must not leak.
+  apograph::Transcription spare;
+  apograph::Cell marked;
+  marked.raw = "1;2", marked.damaged = true, marked.doubtful = true, marked.note = "ink";
+  marked.corrected_from = "1;3", marked.addition = apograph::Addition::kMargin;
+  for (int r = 0; r < 20; ++r) {
+    apograph::Row& row = spare.rows.emplace_back();
+    row.argument = marked;
+    row.cells.assign(static_cast<std::size_t>(1 + r % 4), marked);
+  }
   int cells = 0;
   for (int n = 0; n < 400; ++n) {
     const DrawnSheet sheet = DrawSheet(draw);
@@ -154,6 +166,12 @@ TEST_CASE("drawn CSV sheets: readings, values and positions as written, from tex
     CHECK(t.source_text == sheet.text);
     CHECK(f.source_text == sheet.text);
     CHECK(t.rows == f.rows);
+    auto reused = apograph::ReadCsvFile(path, options, spare);
+    REQUIRE(reused.tables.size() == 1);
+    CHECK(reused.tables[0].rows == t.rows);
+    CHECK(reused.tables[0].source_text == sheet.text);
+    CHECK(spare.rows.empty());
+    spare.rows = std::move(reused.tables[0].rows);  // as the import hands them on
     REQUIRE(t.rows.size() == sheet.rows.size());
     for (std::size_t r = 0; r < t.rows.size(); ++r) {
       const auto& expected = sheet.rows[r];
