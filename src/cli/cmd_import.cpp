@@ -185,7 +185,12 @@ store::ImportResult ReadAndWrite(const Sources& sources, const CsvOptions& optio
     for (const auto& w : f.warnings) warnings.push_back(w);
   };
   for (const auto& f : sources.files) take(ReadTranscriptionFile(f, options.read));
-  for (const auto& s : sources.sheets) take(ReadCsvFile(s.path, s.options));
+  Transcription spare;  // the table before, whose rows the next sheet reuses
+  for (const auto& s : sources.sheets) {
+    TranscriptionFile f = ReadCsvFile(s.path, s.options, spare);
+    take(f);
+    if (!f.tables.empty()) spare.rows = std::move(f.tables.front().rows);
+  }
   if (tables == 0) throw NothingToImport();
   return session.Commit();
 }

@@ -174,11 +174,16 @@ TranscriptionFile CsvReader::Run() {
   t.rows.reserve(static_cast<std::size_t>(std::count(text_.begin() + pos_, text_.end(), '\n')) + 1);
   while (NextRecord(record)) {
     CheckFieldCount(record);
-    Row& row = t.rows.emplace_back();
+    // A spare row keeps its cells' memory: a fresh vector per row was a
+    // malloc and a free per row, 7% of importing 1,000 sheets.
+    Row& row = next_spare_ < spare_.size() ? t.rows.emplace_back(std::move(spare_[next_spare_++]))
+                                           : t.rows.emplace_back();
+    row.argument = Cell();
+    row.cells.clear();
     row.line = record[0].line;
-    row.argument = ReadCell(record, 0);
-    row.cells.reserve(plan_.columns.size() - 1);
-    for (std::size_t c = 1; c < plan_.columns.size(); ++c) row.cells.push_back(ReadCell(record, c));
+    ReadCell(record, 0, row.argument);
+    row.cells.resize(plan_.columns.size() - 1);  // each read in its place
+    for (std::size_t c = 1; c < plan_.columns.size(); ++c) ReadCell(record, c, row.cells[c - 1]);
   }
   if (t.rows.empty()) {
     Fail(header[0], 0, "expected at least one row after the header, found none");
@@ -191,7 +196,9 @@ TranscriptionFile CsvReader::Run() {
     for (std::size_t c = 0; c < row.cells.size(); ++c) row.cells[c].places = t.columns[c].places;
   }
   if (plan_.columns.size() == plan_.fields) CheckPartColumns(header, t);
-  t.source_text = std::string(text_);
+  // The file's text itself when the reader holds it (a copy of every sheet
+  // otherwise); text_ is not used after this.
+  t.source_text = owns_ ? std::move(owned_) : std::string(text_);
   TranscriptionFile out;
   out.tables.push_back(std::move(t));
   return out;
@@ -212,8 +219,17 @@ TranscriptionFile ReadCsv(std::string_view text, const std::string& file,
 }
 
 TranscriptionFile ReadCsvFile(const std::string& path, const CsvOptions& options) {
-  const std::string text = ReadTextFile(path, options.read.max_file_bytes, "a CSV sheet");
-  return ReadCsv(text, path, options);
+  std::string text = ReadTextFile(path, options.read.max_file_bytes, "a CSV sheet");
+  return transcription::csv::CsvReader(std::move(text), path, options).Run();
+}
+
+TranscriptionFile ReadCsvFile(const std::string& path, const CsvOptions& options,
+                              Transcription& spare) {
+  std::string text = ReadTextFile(path, options.read.max_file_bytes, "a CSV sheet");
+  transcription::csv::CsvReader reader(std::move(text), path, options);
+  reader.ReuseRows(std::move(spare.rows));
+  spare.rows.clear();
+  return reader.Run();
 }
 
 std::string WriteCsv(const Transcription& table) {

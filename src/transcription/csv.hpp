@@ -77,6 +77,12 @@ TranscriptionFile ReadCsv(std::string_view text, const std::string& file,
 /// InputErrors).
 TranscriptionFile ReadCsvFile(const std::string& path, const CsvOptions& options);
 
+/// ReadCsvFile reusing the memory of `spare`'s rows (a table read before,
+/// whose rows are taken and reset): a batch of sheets then allocates no
+/// row's cells after its first sheets. The result is the same.
+TranscriptionFile ReadCsvFile(const std::string& path, const CsvOptions& options,
+                              Transcription& spare);
+
 /// The table as CSV: header, then argument and cells by their raw reading
 /// (blank as an empty field). Marks and metadata are not written.
 std::string WriteCsv(const Transcription& table);

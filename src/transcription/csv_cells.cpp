@@ -27,14 +27,19 @@ void CsvReader::FixPlaces(std::size_t column, const Field& f, const std::string&
   }
 }
 
-Cell CsvReader::ReadCell(const std::vector<Field>& record, std::size_t column) {
+void CsvReader::ReadCell(const std::vector<Field>& record, std::size_t column, Cell& cell) {
   const PlannedColumn& c = plan_.columns[column];
-  if (c.sources.size() > 1) return JoinedCell(record, column);
+  if (c.sources.size() > 1) {
+    cell = JoinedCell(record, column);
+    return;
+  }
   const Field& f = record[c.sources[0]];
   std::size_t lead = 0;
   const std::string_view text = Trimmed(f.text, &lead);
-  Cell cell;
-  cell.raw = text.empty() ? std::string("_") : std::string(text);
+  if (text.empty())
+    cell.raw = "_";
+  else
+    cell.raw.assign(text.data(), text.size());
   cell.line = f.line;
   cell.column = ColumnOf(f, lead);
   const bool argument = column == 0;
@@ -43,8 +48,13 @@ Cell CsvReader::ReadCell(const std::vector<Field>& record, std::size_t column) {
   // reading is parsed with the 0 restored; the cell keeps what the sheet shows.
   const std::size_t sign = !text.empty() && (text[0] == '-' || text[0] == '+') ? 1 : 0;
   const bool dropped = text.size() > sign && text[sign] == ';';
-  std::string reading = cell.raw;
-  if (dropped) reading.insert(sign, "0");
+  std::string restored;
+  std::string_view reading = cell.raw;
+  if (dropped) {
+    restored = cell.raw;
+    restored.insert(sign, "0");
+    reading = restored;
+  }
   ReadingInfo info;
   try {
     info = argument ? transcription::ParseArgumentReading(reading, places, 0)
@@ -73,7 +83,6 @@ Cell CsvReader::ReadCell(const std::vector<Field>& record, std::size_t column) {
   cell.places = c.places.value_or(info.fraction_places);
   cell.state = info.state;
   cell.value = info.value;
-  return cell;
 }
 
 /// The parts of a joined column as one reading in the blank-separated form
@@ -146,8 +155,11 @@ Cell CsvReader::JoinedCell(const std::vector<Field>& record, std::size_t column)
 
 int CsvReader::ColumnOf(const Field& f, std::size_t lead) {
   if (f.line_start != counter_start_) {
+    // The text from the line's start, not the line cut at its end: a
+    // field's reading starts on its first line (blanks are not line
+    // breaks), and the counter reads no further than the offset asked for.
     counter_start_ = f.line_start;
-    counter_ = ColumnCounter(LineAt(f.line_start));
+    counter_ = ColumnCounter(text_.substr(f.line_start));
   }
   return counter_.At(f.offset + lead);
 }

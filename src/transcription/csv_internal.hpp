@@ -33,14 +33,23 @@ class CsvReader {
  public:
   CsvReader(std::string_view text, const std::string& file, const CsvOptions& options)
       : text_(text), file_(file), options_(options) {}
+  /// Reads `text` and keeps it as the table's source text without a copy.
+  CsvReader(std::string&& text, const std::string& file, const CsvOptions& options)
+      : owned_(std::move(text)), owns_(true), text_(owned_), file_(file), options_(options) {}
   TranscriptionFile Run();
+  /// Rows to reuse (their cells' memory) before allocating new ones.
+  void ReuseRows(std::vector<Row>&& rows) { spare_ = std::move(rows); }
 
  private:
+  /// A blank that is not the delimiter: in a tab-separated sheet the tab
+  /// around a quoted field ends it (skipped as a blank, it joined two fields).
+  bool IsBlankHere(char c) const { return c != delimiter_ && IsBlank(c); }
   bool NextRecord(std::vector<Field>& record);
   void ReadQuoted(Field& field);
   void CheckFieldCount(const std::vector<Field>& record) const;
   Transcription MakeHead(const std::vector<Field>& header) const;
-  Cell ReadCell(const std::vector<Field>& record, std::size_t column);
+  /// Reads the field(s) of `column` into `cell` (a fresh Cell).
+  void ReadCell(const std::vector<Field>& record, std::size_t column, Cell& cell);
   Cell JoinedCell(const std::vector<Field>& record, std::size_t column);
   int ColumnOf(const Field& f, std::size_t lead);
   void FixPlaces(std::size_t column, const Field& f, const std::string& raw,
@@ -56,6 +65,8 @@ class CsvReader {
   }
   [[noreturn]] void FailEmpty(std::string message) const;
 
+  std::string owned_;  ///< the text, when the reader was given it to keep
+  bool owns_ = false;
   std::string_view text_;
   const std::string& file_;
   const CsvOptions& options_;
@@ -66,6 +77,8 @@ class CsvReader {
   std::deque<std::string> unquoted_;  ///< fields of this record that needed unescaping
   std::deque<std::string> unquoted_header_;
   SheetPlan plan_;
+  std::vector<Row> spare_;
+  std::size_t next_spare_ = 0;
   std::vector<int> first_line_;  ///< per planned column: line of the reading that fixed its places
   int argument_places_ = 0;      ///< the most places an argument reading had
   std::size_t counter_start_ = std::string_view::npos;

@@ -63,7 +63,7 @@ void CsvReader::ReadQuoted(Field& field) {
     field.text = s;
   }
   ++pos_;  // the closing quote
-  while (pos_ < text_.size() && IsBlank(text_[pos_])) ++pos_;
+  while (pos_ < text_.size() && IsBlankHere(text_[pos_])) ++pos_;
   if (pos_ < text_.size() && text_[pos_] != delimiter_ && text_[pos_] != '\n' &&
       text_[pos_] != '\r') {
     Fail(line_, line_start_, pos_ - line_start_,
@@ -84,7 +84,7 @@ bool CsvReader::NextRecord(std::vector<Field>& record) {
     field.line = line_;
     field.line_start = line_start_;
     std::size_t quote = pos_;  // blanks around a quoted field are forgiven
-    while (quote < text_.size() && IsBlank(text_[quote])) ++quote;
+    while (quote < text_.size() && IsBlankHere(text_[quote])) ++quote;
     if (quote < text_.size() && text_[quote] == '"') {
       pos_ = quote;
       field.offset = pos_ + 1 - line_start_;
