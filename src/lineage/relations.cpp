@@ -361,12 +361,15 @@ std::vector<Contamination> FindContamination(const CharacterMatrix& m, double mi
   // edition) cannot have turned to the other's readings: the later one
   // changed exemplar (a copyist turns to a book that exists), so the older
   // one's mixture goes after it, whatever their weights.
+  // Whether found[i] names found[j] as one of its two relatives.
+  const auto names = [&](std::size_t i, std::size_t j) {
+    return pairs[i].x == who[j] || pairs[i].y == who[j];
+  };
   std::vector<bool> older_of_pair(found.size(), false);
   for (std::size_t i = 0; i < found.size(); ++i) {
     for (std::size_t j = 0; j < found.size(); ++j) {
-      const bool mutual = (pairs[i].x == who[j] || pairs[i].y == who[j]) &&
-                          (pairs[j].x == who[i] || pairs[j].y == who[i]);
-      if (i != j && mutual && CannotDescend(m, who[i], who[j])) older_of_pair[i] = true;
+      if (i != j && names(i, j) && names(j, i) && CannotDescend(m, who[i], who[j]))
+        older_of_pair[i] = true;
     }
   }
   std::stable_sort(order.begin(), order.end(), [&](std::size_t a, std::size_t b) {
@@ -378,7 +381,7 @@ std::vector<Contamination> FindContamination(const CharacterMatrix& m, double mi
     const std::size_t i = order[k];
     for (std::size_t l = 0; l < k; ++l) {
       const std::size_t j = order[l];
-      if (!drop[j] && (pairs[i].x == who[j] || pairs[i].y == who[j])) drop[i] = true;
+      if (!drop[j] && names(i, j)) drop[i] = true;
     }
   }
   for (std::size_t i = found.size(); i-- > 0;) {
