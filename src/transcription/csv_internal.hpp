@@ -78,7 +78,6 @@ class CsvReader {
   std::deque<std::string> unquoted_header_;
   SheetPlan plan_;
   std::vector<Row> spare_;
-  std::size_t next_spare_ = 0;
   std::vector<int> first_line_;  ///< per planned column: line of the reading that fixed its places
   int argument_places_ = 0;      ///< the most places an argument reading had
   std::size_t counter_start_ = std::string_view::npos;

@@ -40,9 +40,11 @@ std::string FoundToken(std::string_view line, std::size_t offset);
 /// Checks that `text` is UTF-8 without NUL or control characters other than
 /// TAB, LF and the CR of CR LF, and that no line is longer than
 /// `max_line_bytes`. Throws InputError at the first bad byte (line and
-/// column in code points), or at the line that is too long.
-void CheckText(std::string_view text, const std::string& file,
-               std::size_t max_line_bytes = std::size_t{1} << 20);
+/// column in code points), or at the line that is too long. Returns the
+/// number of line ends (LF) it passed: a reader sizes its rows by it
+/// without a second pass over the text.
+std::size_t CheckText(std::string_view text, const std::string& file,
+                      std::size_t max_line_bytes = std::size_t{1} << 20);
 
 /// Converts byte offsets of one line into 1-based columns in code points,
 /// cheaply when asked in increasing order.

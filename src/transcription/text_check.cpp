@@ -91,7 +91,7 @@ int ColumnCounter::At(std::size_t offset) {
   return column_;
 }
 
-void CheckText(std::string_view text, const std::string& file, std::size_t max_line_bytes) {
+std::size_t CheckText(std::string_view text, const std::string& file, std::size_t max_line_bytes) {
   int line = 1;
   std::size_t line_start = 0;
   const std::size_t n = text.size();
@@ -116,6 +116,7 @@ void CheckText(std::string_view text, const std::string& file, std::size_t max_l
     i += len;
   }
   if (n - line_start > max_line_bytes) TooLong(text, line_start, line, file, max_line_bytes);
+  return static_cast<std::size_t>(line - 1);
 }
 
 }  // namespace apograph::transcription

@@ -4,6 +4,7 @@
 
 #include "support/input_error.hpp"
 #include "transcription/parser.hpp"
+#include "transcription/syntax.hpp"
 
 using apograph::Diagnostic;
 using apograph::InputError;
@@ -96,4 +97,15 @@ TEST_CASE("arguments declared step=list are taken as written, without sequence w
   CHECK_FALSE(t.argument.step.has_value());
   CHECK(file.warnings.empty());
   CHECK(t.ArgumentInUse(2) == Sexagesimal::ParseOrThrow("10"));
+}
+
+TEST_CASE("the text check counts the line ends it passes (a reader sizes its rows by them)") {
+  using apograph::transcription::CheckText;
+  CHECK(CheckText("", "k.csv") == 0);
+  CHECK(CheckText("a,b", "k.csv") == 0);
+  CHECK(CheckText("a,b\n", "k.csv") == 1);
+  CHECK(CheckText("a,b\r\n1,2\r\n3,4", "k.csv") == 2);
+  CHECK(CheckText("\xEF\xBB\xBF"
+                  "a\n\n\n\xC3\xA9\n",
+                  "k.csv") == 4);
 }
