@@ -59,6 +59,44 @@ TEST_CASE("an attribute not given keeps the stored one: a bare sheet imported ag
   CHECK(store::Load(db, "decl", "K").witness.library == "Nordhafen, Town Library");
 }
 
+TEST_CASE("one import of many tables of a witness: its row read and written as each table says") {
+  // The session writes a witness's row once for a run of tables that give
+  // it alike; a table that gives it otherwise is still reconciled with the
+  // row as the tables before left it, in order.
+  TempDb tmp("attributes-batch");
+  store::Database db(tmp.path());
+  Transcription first = MakeTranscription("t1", "K");
+  store::Import(db, {first});
+  std::vector<Transcription> batch;
+  for (const char* id : {"t2", "t3", "t4", "t5", "t6"}) batch.push_back(MakeTranscription(id, "K"));
+  for (auto& t : batch) t.witness.library = "Harbour Hall";
+  batch[2].witness = {};  // t4 gives the siglum alone: it takes what t2 and t3 left
+  batch[2].witness.siglum = "K";
+  batch[3].witness.library = "Bay Abbey";  // t5 changes it again, t6 back
+  const auto result = store::Import(db, batch);
+  REQUIRE(result.warnings.size() == 3);
+  CHECK(result.warnings[0].Render() ==
+        "t2-K.apo: warning: witness 'K': library changed from 'Nordhafen, Town Library' to "
+        "'Harbour Hall' (earlier revisions keep the earlier value)");
+  CHECK(result.warnings[1].Render() ==
+        "t5-K.apo: warning: witness 'K': library changed from 'Harbour Hall' to 'Bay Abbey' "
+        "(earlier revisions keep the earlier value)");
+  CHECK(result.warnings[2].Render() ==
+        "t6-K.apo: warning: witness 'K': library changed from 'Bay Abbey' to 'Harbour Hall' "
+        "(earlier revisions keep the earlier value)");
+  CHECK(store::Load(db, "t1", "K").witness.library == "Nordhafen, Town Library");
+  CHECK(store::Load(db, "t3", "K").witness.library == "Harbour Hall");
+  const Transcription t4 = store::Load(db, "t4", "K");
+  CHECK(t4.witness.library == "Harbour Hall");
+  CHECK(t4.witness.date == "c. 1420");  // kept from the row, not given by t4
+  CHECK(store::Load(db, "t5", "K").witness.library == "Bay Abbey");
+  CHECK(store::Load(db, "t6", "K").witness.library == "Harbour Hall");
+  auto row = db.Prepare("SELECT library, date FROM witness WHERE siglum = 'K'");
+  REQUIRE(row.Step());
+  CHECK(row.Text(0) == "Harbour Hall");
+  CHECK(row.Text(1) == "c. 1420");
+}
+
 TEST_CASE("the store refuses ids that could reach outside a folder, whoever built them") {
   TempDb tmp("ids");
   store::Database db(tmp.path());
