@@ -162,8 +162,12 @@ Sources ListSources(ImportOptions& o) {
     if (o.sheet.head.witness.siglum.empty())
       throw InputError::ForOption("--witness", "expected the siglum of the CSV sheets, found none");
     auto sheets = SheetsFromFiles(o.csv, o.sheet);
-    sources.sheets.reserve(sources.sheets.size() + sheets.size());
-    for (auto& s : sheets) sources.sheets.push_back(std::move(s));
+    if (sources.sheets.empty()) {
+      sources.sheets = std::move(sheets);  // each entry holds a table head: not moved one by one
+    } else {
+      sources.sheets.reserve(sources.sheets.size() + sheets.size());
+      for (auto& s : sheets) sources.sheets.push_back(std::move(s));
+    }
   } else if (o.manifest.empty() && GivesAttributes(o)) {
     throw InputError::ForOption(
         "--csv", "expected CSV sheets for the table and witness options, found none");
