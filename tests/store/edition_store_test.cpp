@@ -2,6 +2,7 @@
 
 #include <doctest/doctest.h>
 
+#include "store/import_session.hpp"
 #include "store/schema.hpp"
 #include "store/value_text.hpp"
 #include "store_test_util.hpp"
@@ -340,4 +341,28 @@ TEST_CASE("value_real follows the sign and every place of the exact value") {
   CHECK(s.Real(1) == doctest::Approx(-90.0 - 1.0 / 2176782336000000000000.0));
   REQUIRE(s.Step());
   CHECK(s.Real(1) == doctest::Approx(12.0 + 59.0 / 60 + 59.0 / 3600).epsilon(1e-15));
+}
+
+TEST_CASE("an import writes with a small page cache and gives the connection its own back") {
+  TempDb tmp("import-cache");
+  Database db(tmp.path());
+  auto cache_size = [&db] {
+    auto s = db.Prepare("PRAGMA cache_size");
+    REQUIRE(s.Step());
+    return s.Int(0);
+  };
+  REQUIRE(cache_size() == -4096);  // Database::Configure
+  {
+    store::ImportSession session(db);
+    CHECK(cache_size() == -1024);
+    session.Add(MakeTranscription("sun-eq", "K"));
+    session.Commit();
+  }
+  CHECK(cache_size() == -4096);
+  {
+    store::ImportSession dropped(db);  // rolled back: the cache is given back all the same
+    dropped.Add(MakeTranscription("moon", "K"));
+  }
+  CHECK(cache_size() == -4096);
+  CHECK(store::Load(db, "sun-eq", "K").rows.size() == MakeTranscription("sun-eq", "K").rows.size());
 }
