@@ -186,6 +186,34 @@ bool CopiedFrom(const CharacterMatrix& m, int c, int r, int from, int to) {
   return c_errors >= 2 && r_holds && !c_holds;
 }
 
+// The first stretch of `out` following its second relative where that
+// relative holds every one of c's errors (two or more) while c lacks some
+// of its (CopiedFrom): the relative copied c in that part, and c is its
+// source, not its copy (relations.hpp, FindContamination).
+// `relative` is -1 when there is none; `lacked` counts the relative's
+// errors there that c reads right.
+struct Source {
+  int relative = -1, lacked = 0;
+  std::string first_row, last_row;
+};
+Source CopiedInStretch(const CharacterMatrix& m, int c, const Contamination& out) {
+  Source s;
+  for (const auto& seg : out.segments) {
+    const int r = m.TaxonIndex(seg.relative);
+    if (r < 0 || seg.relative != out.secondary ||
+        !CopiedFrom(m, c, r, seg.first_position, seg.last_position))
+      continue;
+    s.relative = r, s.first_row = seg.first_row, s.last_row = seg.last_row;
+    for (const Character& ch : m.characters) {
+      if (ch.position < seg.first_position || ch.position > seg.last_position || !Evidence(ch))
+        continue;
+      s.lacked += ch.states[r] == 1 && ch.states[c] == 0 ? 1 : 0;
+    }
+    return s;
+  }
+  return s;
+}
+
 // A clean switch (one change) whose relative on either side was copied
 // from c in its part of the table: the errors c "shares" there are c's
 // own, handed down, not a second exemplar's (relations.hpp,
@@ -345,6 +373,20 @@ std::vector<Contamination> FindContamination(const CharacterMatrix& m, double mi
     }
     Contamination out;
     Describe(m, c, p, out);
+    // The second relative holding every one of C's errors in its stretch,
+    // and more, copied C there: C is its source, not its copy.
+    const Source src = CopiedInStretch(m, c, out);
+    if (src.relative >= 0) {
+      if (suspected) {
+        const std::string& r = m.taxa[static_cast<std::size_t>(src.relative)];
+        out.text += "; but in rows " + src.first_row + " to " + src.last_row + " " + r +
+                    " holds every error of " + out.witness + "'s there and " +
+                    std::to_string(src.lacked) + " more of its own: " + r + " more likely copied " +
+                    out.witness + " there, and " + out.witness + " is not called contaminated";
+        suspected->push_back(std::move(out));
+      }
+      continue;
+    }
     found.push_back(std::move(out));
     who.push_back(c);
     pairs.push_back(p);

@@ -10,7 +10,10 @@
 // false group is followed by the characters that change above it, with the slip
 // class the explainer gave them. BENCH_JOIN=1 joins the repeated slips of
 // characters cached before lineage::JoinRepeatedSlips existed (or built with it
-// switched off), to compare the two on one cache. With LINEAGE_BENCH_GROUPS=1
+// switched off), to compare the two on one cache. With LINEAGE_BENCH_MIX=1
+// (and verbose) each missed marked mixture is followed by the slips of its
+// exemplars' own lines that it shows and how many stand as characters the
+// contamination criteria read (MixtureFeatures). With LINEAGE_BENCH_GROUPS=1
 // every group of the first stemma is printed as "GROUP true size length
 // characters conflict_weight conflicting true_groups found_groups heaviest
 // strong marked" (to see whether the evidence of false
@@ -50,6 +53,7 @@
 // 0.8, recall >= 0.7; false contamination <= 5% of uncontaminated draws;
 // no copy claim against the dates.
 #include <algorithm>
+#include <cmath>
 #include <cstdio>
 #include <cstdlib>
 #include <fstream>
@@ -583,6 +587,69 @@ void CorrectorFeatures(const synth::Tradition& t, const lineage::LineageReport& 
   }
 }
 
+// With LINEAGE_BENCH_MIX=1, for a missed marked mixture: the slips of the
+// second exemplar's line and of the first exemplar's own line (below the
+// two lines' common ancestor) that the witness shows, how many stand as
+// characters it carries, and how many of those pass the contamination
+// criteria's evidence filter (oriented, weight class 1 or more, not one
+// unit), with why the others do not.
+void MixtureFeatures(const synth::Tradition& t, int w) {
+  const auto& m = last_matrix;
+  int mixed = -1;
+  for (int i = w; i > 0 && mixed < 0; i = t.nodes[static_cast<std::size_t>(i)].parent)
+    if (t.nodes[static_cast<std::size_t>(i)].contamination) mixed = i;
+  if (mixed < 0) return;
+  std::set<std::string> first, second;
+  for (int i = t.nodes[static_cast<std::size_t>(mixed)].parent; i >= 0;
+       i = t.nodes[static_cast<std::size_t>(i)].parent)
+    first.insert(t.nodes[static_cast<std::size_t>(i)].name);
+  std::set<std::string> common;
+  for (int i = t.nodes[static_cast<std::size_t>(mixed)].contamination->second; i >= 0;
+       i = t.nodes[static_cast<std::size_t>(i)].parent) {
+    const auto& nm = t.nodes[static_cast<std::size_t>(i)].name;
+    (first.count(nm) ? common : second).insert(nm);
+  }
+  for (const auto& c : common) first.erase(c);
+  const int wi = m.TaxonIndex(t.nodes[static_cast<std::size_t>(w)].name);
+  if (wi < 0) return;
+  for (int line = 0; line < 2; ++line) {
+    const auto& set = line == 0 ? first : second;
+    int shown = 0, carried = 0, evidence = 0, tree = 0, light = 0, unit = 0, none = 0;
+    std::string where;
+    for (const auto& v : synth::VisibleSlips(t, w)) {
+      if (!set.count(v.by)) continue;
+      ++shown;
+      const std::string block = v.slip.table + " " + v.slip.arg;
+      const lineage::Character* hit = nullptr;
+      for (const auto& ch : m.characters)
+        if (ch.block == block && ch.column == v.slip.column &&
+            ch.states[static_cast<std::size_t>(wi)] == 1)
+          hit = &ch;
+      if (!hit) {
+        ++none;
+        continue;
+      }
+      ++carried;
+      const bool oriented = hit->direction == lineage::Direction::kModel ||
+                            hit->direction == lineage::Direction::kMajority;
+      const double cls = std::round(hit->weight * 2) / 2;
+      if (!oriented)
+        ++tree;
+      else if (cls < 1)
+        ++light;
+      else if (hit->one_unit)
+        ++unit;
+      else
+        ++evidence, where += " " + std::to_string(hit->position);
+    }
+    std::printf(
+        "    MIX %s line: shown %d carried %d evidence %d (not oriented %d, light %d, one unit %d, "
+        "no character %d) at%s\n",
+        line == 0 ? "first" : "second", shown, carried, evidence, tree, light, unit, none,
+        where.c_str());
+  }
+}
+
 void ScoreMixtures(const synth::Tradition& t, const lineage::LineageReport& r, Totals& s,
                    bool verbose) {
   if (std::getenv("LINEAGE_BENCH_CORRECTORS")) CorrectorFeatures(t, r);
@@ -628,6 +695,7 @@ void ScoreMixtures(const synth::Tradition& t, const lineage::LineageReport& r, T
           if (c.witness == n.name) std::printf(" said: %s", c.text.substr(0, 160).c_str());
       }
       std::printf("\n");
+      if (mixed && MarkedMixture(t, w) && std::getenv("LINEAGE_BENCH_MIX")) MixtureFeatures(t, w);
     }
     const bool corrector = n.corrector != synth::CorrectorMode::kNone;
     const bool said = corrected.count(n.name) > 0;

@@ -276,6 +276,29 @@ TEST_CASE("of two witnesses naming each other, the older did not take the later 
   CHECK(overlapping[0].witness == "S");
 }
 
+TEST_CASE(
+    "a relative holding all of a witness's errors in its stretch, and more, copied it there") {
+  // As MirrorMatrix, but M makes two slips of its own in rows 100-199, the
+  // part it took from S. S seems to follow Y and then M (the heavier
+  // evidence, and no dates), yet there M holds every one of S's errors and
+  // two more: M copied S there, S did not copy M.
+  CharacterMatrix m = MirrorMatrix();
+  for (int p : {150, 170}) m.characters.push_back(At(p, {1, 0, 0, 0, 0}));
+  std::stable_sort(m.characters.begin(), m.characters.end(),
+                   [](const Character& a, const Character& b) { return a.position < b.position; });
+  std::vector<Contamination> suspected;
+  const auto found = FindContamination(m, kMinContaminationEvidence, &suspected);
+  REQUIRE(found.size() == 1);
+  CHECK(found[0].witness == "M");
+  CHECK(found[0].primary == "X");
+  CHECK(found[0].secondary == "S");
+  const auto s = std::find_if(suspected.begin(), suspected.end(),
+                              [](const Contamination& c) { return c.witness == "S"; });
+  REQUIRE(s != suspected.end());
+  CHECK(s->text.find("M holds every error of S's there and 2 more of its own: M more likely "
+                     "copied S there, and S is not called contaminated") != std::string::npos);
+}
+
 // Witnesses C, J, A, D, W. A follows C in rows 10-90 (five errors of C's
 // line) and J in rows 115-195 (five of J's); C and J have five errors of
 // their own each in the other part; D holds all of A's errors and two of
