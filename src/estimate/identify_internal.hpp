@@ -134,6 +134,12 @@ struct Trial {
 inline constexpr double kRidgeSigmas = 3;
 inline constexpr int kRidgeValues = 12;
 
+/// A rounding of two places or more (not an attested or equivalent value)
+/// of a parameter other than a rate whose unit is smaller than 2 standard
+/// errors `se` of its estimate: the entries cannot tell it from the
+/// roundings beside it (round_values.cpp).
+bool UndeterminedPlace(const Trial& t, double se, const model::ParamSpec* spec);
+
 /// The values to try, simplest first: attested values (fewest places
 /// first), then roundings of the estimate (coarsest first), then a rounded
 /// rate the mean-motion analysis found.
@@ -214,6 +220,15 @@ bool RestartFromAttestedSet(Candidate& best, const Transcription& table,
 /// differences), as a trial; nullopt when none is written (round_pairs.cpp).
 std::optional<Trial> AsWritten(const Transcription& table, const std::vector<Observation>& obs,
                                const std::string& param);
+
+/// One estimate for a table of several latitudes whose columns adopted
+/// no common value of the parameter they share (an obliquity) by a
+/// majority: the columns' estimates with their latitudes held, combined;
+/// a round or attested value near it that every column keeps adopted for
+/// the table, else the joint estimate held with its error
+/// (shared_joint.cpp).
+void ShareJointEstimate(const std::vector<ColumnBest>& columns,
+                        const std::vector<CatalogEntry>* catalog);
 
 /// Which values were adopted and why, in words (round_values.cpp).
 std::string AdoptionText(const std::vector<AdoptedValue>& values, const FitResult& fit,

@@ -84,6 +84,14 @@ bool IsRate(const model::ParamSpec* spec) {
          (spec->role == model::ParamRole::kRate || spec->role == model::ParamRole::kAnomalyRate);
 }
 
+int PlacesOf(const Sexagesimal& v) {
+  int p = v.places();
+  while (p > 0 && v.Rounded(p - 1).Extended(p) == v) --p;
+  return p;
+}
+
+}  // namespace
+
 /// A rounding (not an attested or equivalent value) finer than one place
 /// of a parameter other than a rate, whose unit is smaller than
 /// kUndeterminedPlace standard errors of the free estimate: the entries
@@ -98,14 +106,6 @@ bool IsRate(const model::ParamSpec* spec) {
 bool UndeterminedPlace(const Trial& t, double se, const model::ParamSpec* spec) {
   return t.places >= 2 && !IsRate(spec) && FinerThanError(t, se);
 }
-
-int PlacesOf(const Sexagesimal& v) {
-  int p = v.places();
-  while (p > 0 && v.Rounded(p - 1).Extended(p) == v) --p;
-  return p;
-}
-
-}  // namespace
 
 std::string AdoptionText(const std::vector<AdoptedValue>& values, const FitResult& fit,
                          const FitResult& adopted) {

@@ -12,7 +12,9 @@
 // offered the table's 24): held there, the column's other parameters
 // refitted and its latitude adopted (as written in the heading, else at
 // its round or attested value), kept when it keeps the column's entries
-// as any adoption must (Keeps, round_values.cpp).
+// as any adoption must (Keeps, round_values.cpp). Where no value is
+// adopted by a majority of the columns, the table's one value is
+// estimated from all of them (shared_joint.cpp).
 #include <algorithm>
 #include <cmath>
 #include <cstddef>
@@ -201,6 +203,7 @@ void ShareMostAdopted(const std::vector<ColumnBest>& columns,
 void ShareAdoptedValues(const std::vector<ColumnBest>& columns,
                         const std::vector<CatalogEntry>* catalog) {
   ShareMostAdopted(columns, catalog);
+  internal::ShareJointEstimate(columns, catalog);
   ShareMotions(columns, catalog);
 }
 
