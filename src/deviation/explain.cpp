@@ -284,6 +284,17 @@ std::vector<Finding> ExplainColumn(const Transcription& table, const ColumnValue
     kept.push_back(internal::CompensatedFinding(table, values, column, r, places));
     claimed[r] = true;
   }
+  // Deviant rows whose model rests on a doubtful argument: kept before a
+  // run of slips is fitted to a model computed at another argument.
+  for (std::size_t r = 0; r < values.argument_doubt.size() && r < values.computed.size(); ++r) {
+    const Cell& cell = table.rows[r].cells[col];
+    if (claimed[r] || values.argument_doubt[r].empty() || !values.computed[r] ||
+        !column.deviant[r] || cell.state != CellState::kRead ||
+        !std::isfinite(column.diffs.diff[r]))
+      continue;
+    kept.push_back(internal::ArgumentDoubtFinding(table, values, column, r, places));
+    claimed[r] = true;
+  }
   std::vector<Finding> out = internal::DisplacedRuns(table, values, options, column, claimed);
   out.insert(out.end(), kept.begin(), kept.end());
   // Rows where the model leaves the column's curve and the entry does not:

@@ -85,6 +85,14 @@ struct ColumnValues {
   /// explained alone. With them, a departure the others share is the
   /// author's, and one they do not share is a copyist's.
   std::vector<TraditionCell> tradition;
+  /// Per row, why the model's value there rests on a doubtful argument (the
+  /// row's argument in use, or that of a row the model is computed from,
+  /// out of step with its neighbour's: a miscopied argument), in words;
+  /// empty where it does not, or when not known (then the vector may be
+  /// empty). The model and the other witnesses (aligned by argument) are
+  /// compared there at an argument the row may not stand for: a deviation
+  /// is kept, not emended on their word.
+  std::vector<std::string> argument_doubt;
 };
 
 struct ExplainOptions {
@@ -127,6 +135,10 @@ struct Finding {
   /// no emendation): evidence against the reference at this row, which the
   /// guard counts as a flagged row (guard.hpp), though nothing is emended.
   bool kept_against_model = false;
+  /// Kept against the model because the model there rests on a doubtful
+  /// argument (ColumnValues::argument_doubt): evidence against the row's
+  /// argument, not against the reference, so the guard does not count it.
+  bool argument_doubted = false;
 
   const Explanation& best() const { return explanations.front(); }
   /// The other classes the evidence cannot tell from the best's: copying

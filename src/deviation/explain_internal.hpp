@@ -203,6 +203,10 @@ std::vector<std::optional<OffCurve>> ModelOffCurve(const Transcription& table,
 /// The finding of such a row: kept against the model, no emendation.
 Finding OffCurveFinding(const Transcription& table, const ColumnValues& values,
                         const ColumnContext& column, std::size_t row, int places);
+/// The finding of a deviant row whose model rests on a doubtful argument
+/// (ColumnValues::argument_doubt): kept against the model, no emendation.
+Finding ArgumentDoubtFinding(const Transcription& table, const ColumnValues& values,
+                             const ColumnContext& column, std::size_t row, int places);
 /// The finding of a row this copy reads as the tradition does where the
 /// model misses it in a compensating window (ColumnContext::compensating):
 /// kept against the model, no emendation.

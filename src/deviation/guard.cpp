@@ -11,7 +11,7 @@ int FlaggedCells(const std::vector<Finding>& findings, int column) {
   int n = 0;
   for (const auto& f : findings) {
     const SlipClass cls = f.best().cls;
-    const bool flagged = IsCopyingSlip(cls) || f.kept_against_model;
+    const bool flagged = IsCopyingSlip(cls) || (f.kept_against_model && !f.argument_doubted);
     if (f.column != column || !flagged || cls == SlipClass::kBlank || cls == SlipClass::kIllegible)
       continue;
     n += static_cast<int>(f.cells.size());

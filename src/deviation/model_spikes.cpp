@@ -118,4 +118,18 @@ Finding OffCurveFinding(const Transcription& table, const ColumnValues& values,
           "on the model's word alone; keep the reading (undecided)");
 }
 
+Finding ArgumentDoubtFinding(const Transcription& table, const ColumnValues& values,
+                             const ColumnContext& column, std::size_t row, int places) {
+  const double exact = row < values.exact.size() ? values.exact[row] : NAN;
+  Finding f = KeptAgainstModel(
+      table, values, row, places,
+      SignedUnits(column.diffs.diff[row]) + " from the model (" +
+          ModelText(*values.computed[row], exact, places) + "), but " + values.argument_doubt[row] +
+          ": the model and the other witnesses are compared here at an argument the row may not "
+          "stand for (a miscopied argument); no emendation on their word; keep the reading "
+          "(undecided)");
+  f.argument_doubted = true;
+  return f;
+}
+
 }  // namespace apograph::deviation::internal

@@ -5,6 +5,7 @@
 #include <cmath>
 #include <map>
 
+#include "estimate/derived_model.hpp"
 #include "pipeline/witness_findings.hpp"
 #include "pipeline/witness_internal.hpp"
 
@@ -36,6 +37,99 @@ std::optional<Sexagesimal> ReadValue(const Transcription& w, std::size_t row, in
   return AtPlaces(*cell.value, places);
 }
 
+/// Arguments in use of a table with a declared step, and that step; empty
+/// without one (or with arguments listed).
+struct ArgumentSteps {
+  std::vector<std::optional<Sexagesimal>> in_use;
+  std::optional<Sexagesimal> step;
+  /// (a[j] - a[i]) in steps; NaN when either is unknown.
+  double Steps(std::size_t i, std::size_t j) const {
+    if (!in_use[i] || !in_use[j]) return NAN;
+    return (*in_use[j] - *in_use[i]).ToDouble() / step->ToDouble();
+  }
+  std::string Text(std::size_t r) const {
+    return in_use[r] ? in_use[r]->ToString() : std::string("none");
+  }
+};
+
+ArgumentSteps StepsOf(const Transcription& t) {
+  ArgumentSteps out;
+  if (!t.argument.step || t.argument.step->is_zero() || t.argument.listed) return out;
+  out.step = t.argument.step;
+  for (std::size_t r = 0; r < t.rows.size(); ++r) out.in_use.push_back(t.ArgumentInUse(r));
+  return out;
+}
+
+/// Per row, why its own argument in use is doubtful (empty: it is not): the
+/// row lies in a short run of rows in step with each other between two
+/// breaks of the table's step that cancel (+1 and -1 step, +600 and -600:
+/// 256, 258, 259, 259 or 191, 192, 793, 194), so the run stands for other
+/// arguments than it reads. A single break (a row omitted or repeated) says
+/// nothing of which rows are right.
+std::vector<std::string> ShiftedRows(const ArgumentSteps& a) {
+  // Judgement: a miscopied argument, or one taken from a miscopied
+  // neighbour, spoils a row or two; longer runs between cancelling breaks
+  // are rows omitted and added, whose arguments are right.
+  constexpr std::size_t kMaxShifted = 4;
+  const std::size_t n = a.in_use.size();
+  std::vector<std::string> out(n);
+  std::vector<std::size_t> breaks;  // r: rows r and r + 1 not one step apart
+  for (std::size_t r = 0; r + 1 < n; ++r) {
+    if (!(std::fabs(a.Steps(r, r + 1) - 1) < 1e-9)) breaks.push_back(r);
+  }
+  for (std::size_t i = 0; i + 1 < breaks.size(); ++i) {
+    const std::size_t first = breaks[i] + 1, last = breaks[i + 1];
+    const double jump = a.Steps(breaks[i], first) + a.Steps(last, last + 1) - 2;
+    if (last - first + 1 > kMaxShifted || !(std::fabs(jump) < 1e-9)) continue;
+    const std::string why = "the arguments in use of rows " + std::to_string(first) + " to " +
+                            std::to_string(last + 2) + " (" + a.Text(first - 1) + ", ..., " +
+                            a.Text(last + 1) + ") leave the table's step at row " +
+                            std::to_string(first + 1) + " and come back to it at row " +
+                            std::to_string(last + 2) + ", so row " + std::to_string(first + 1) +
+                            (last > first ? " to " + std::to_string(last + 1) : "") +
+                            " (argument " + a.Text(first) + (last > first ? ", ..." : "") +
+                            ") stands for another argument than it reads";
+    for (std::size_t r = first; r <= last; ++r) out[r] = why;
+  }
+  return out;
+}
+
+/// For a difference of entries k rows apart, k; else 0 (the model at a row
+/// reads that row's argument alone).
+int DifferenceSpan(const ColumnReference& ref) {
+  const auto* derived = dynamic_cast<const estimate::DerivedModel*>(ref.model.get());
+  if (!derived || derived->relation().kind != estimate::DerivedRelation::Kind::kDifference)
+    return 0;
+  return derived->relation().rows;
+}
+
+/// Per row, why the model's value there rests on a doubtful argument (see
+/// deviation::ColumnValues::argument_doubt); empty where it does not: the
+/// row's own argument (ShiftedRows), or, for a difference of entries k
+/// rows apart, the row k away whose argument is doubtful or not k steps
+/// from this one's.
+std::vector<std::string> ArgumentDoubt(const Transcription& t, const ColumnReference& ref) {
+  const ArgumentSteps a = StepsOf(t);
+  if (!a.step) return {};
+  auto out = ShiftedRows(a);
+  const int k = DifferenceSpan(ref);
+  if (k == 0) return out;
+  const auto own = out;
+  for (std::size_t r = 0; r < out.size(); ++r) {
+    const auto j = static_cast<std::ptrdiff_t>(r) + k;
+    if (!out[r].empty() || j < 0 || j >= static_cast<std::ptrdiff_t>(out.size())) continue;
+    const auto o = static_cast<std::size_t>(j);
+    const std::string from = "the model here is a difference with row " + std::to_string(o + 1);
+    if (!own[o].empty())
+      out[r] = from + ", and " + own[o];
+    else if (!(std::fabs(a.Steps(r, o) - k) < 1e-9))
+      out[r] = from + ", whose argument in use (" + a.Text(o) + ") is not " +
+               std::to_string(std::abs(k)) + " step(s) of " + a.step->ToString() +
+               " from this row's (" + a.Text(r) + ")";
+  }
+  return out;
+}
+
 ColumnRun MakeRun(const std::vector<const Transcription*>& ws, std::size_t w,
                   const ColumnReference& ref) {
   ColumnRun run;
@@ -44,7 +138,7 @@ ColumnRun MakeRun(const std::vector<const Transcription*>& ws, std::size_t w,
   const Transcription& t = *ws[w];
   run.places = ref.practice.places.value_or(t.columns[static_cast<std::size_t>(ref.column)].places);
   const auto re = ref.Recompute(t);
-  run.values = {ref.column, re.computed, re.exact, {}};
+  run.values = {ref.column, re.computed, re.exact, {}, ArgumentDoubt(t, ref)};
   run.written = t.columns[static_cast<std::size_t>(ref.column)].places;
   for (std::size_t r = 0; r < t.rows.size(); ++r) {
     if (auto a = t.ArgumentInUse(r)) run.rows.emplace(a->ToString(), r);
@@ -163,8 +257,9 @@ std::vector<bool> FlaggedRows(const ColumnRun& run, std::size_t rows, bool unexp
   for (const auto& f : run.found) {
     const auto cls = f.best().cls;
     // A reading kept against the model counts as a row the model does not
-    // explain, as it did when it was flagged unexplained.
-    const bool kept = f.kept_against_model;
+    // explain, as it did when it was flagged unexplained; not one kept for
+    // a doubtful argument (the argument, not the reference, is the suspect).
+    const bool kept = f.kept_against_model && !f.argument_doubted;
     if ((!deviation::IsCopyingSlip(cls) && !kept) || cls == deviation::SlipClass::kBlank ||
         cls == deviation::SlipClass::kIllegible ||
         (unexplained && cls != deviation::SlipClass::kUnexplained && !kept))

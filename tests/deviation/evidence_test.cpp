@@ -822,3 +822,59 @@ TEST_CASE("an entry on its neighbours' line where the model leaves it is kept, n
   CHECK(slips == 4);
   CHECK(restored == 4);
 }
+
+TEST_CASE("an entry whose argument in use is out of step is kept, not emended") {
+  // Copy A miscopies arguments where its entries are right: rows 60-63 read
+  // the arguments 61, 63, 63, 64 (in use 61, 63, 64, 64: rows 61 and 62
+  // stand for 62 and 63, the model is computed a row ahead), and row 120
+  // reads 721 for 121 (in use 121, and row 121's 122 taken from the
+  // miscopied 721: 722). The model and the other witnesses, aligned by
+  // argument, are a row off there; before, the shifted rows were emended to
+  // their neighbours' values. A digit slip of A at a row whose arguments
+  // stand in step is still a slip with its reading; the other copies, whose
+  // arguments are right, have nothing at those rows.
+  Synthetic s = MakeTable(testing::SolarEquation, 1, 1, 180, 2);
+  const auto witnesses_of = [&](const Synthetic& a) {
+    std::vector<Transcription> out = Copies(s, 4);
+    out.front() = a.table;
+    return out;
+  };
+  Synthetic a = s;
+  a.Set(100, "_");  // as Copies does for A
+  const auto argue = [&](std::size_t row, int arg) {
+    a.table.rows[row].argument.raw = std::to_string(arg);
+    a.table.rows[row].argument.value = Sexagesimal::FromParts(false, arg, {});
+  };
+  argue(61, 63);
+  argue(120, 721);
+  const std::size_t digit = 150;
+  const Sexagesimal original = *s.table.rows[digit].cells[0].value;
+  a.Set(digit, (original + Sexagesimal::FromUnits(10, 2)).ToString());
+  const auto witnesses = witnesses_of(a);
+  const auto found = pipeline::ExplainTradition(witnesses, SolarReference(witnesses), kDir);
+  REQUIRE(found.size() == 4);
+  const auto& w = found.front();
+  CHECK_FALSE(w.Refused("equation"));
+  std::string notes;
+  for (const auto& f : w.findings) notes += f.Note("A") + "\n";
+  INFO(notes);
+  for (std::size_t r : {std::size_t{61}, std::size_t{62}, std::size_t{121}}) {
+    const Finding* f = At(w.findings, r);
+    REQUIRE(f != nullptr);
+    CHECK(f->kept_against_model);
+    CHECK_FALSE(IsCopyingSlip(f->best().cls));
+    for (const auto& c : f->cells) CHECK_FALSE(c.emendation.has_value());
+    CHECK(f->best().evidence.find("stands for another argument than it reads") !=
+          std::string::npos);
+  }
+  for (std::size_t r : SlipRows(w)) CHECK(r == digit);
+  const Finding* slip = At(w.findings, digit);
+  REQUIRE(slip != nullptr);
+  CHECK(IsCopyingSlip(slip->best().cls));
+  REQUIRE(slip->cells.front().emendation.has_value());
+  CHECK(*slip->cells.front().emendation == original);
+  for (std::size_t i = 1; i < found.size(); ++i) {
+    for (std::size_t r : {std::size_t{61}, std::size_t{62}, std::size_t{121}})
+      CHECK(At(found[i].findings, r) == nullptr);
+  }
+}
