@@ -222,8 +222,10 @@ LineageReport AnalyseLineage(const CharacterMatrix& raw, const LineageOptions& o
   for (const auto& c : refused) Undecide(r, "witness", "contamination? " + c.text);
   for (const auto& c : suspected) {
     Undecide(r, "witness",
-             "contamination? " + c.text + "; too little to call it" +
-                 (c.shortfall.empty() ? "" : " (" + c.shortfall + ")"));
+             "contamination? " + c.text +
+                 (c.direction_refused ? ""
+                                      : "; too little to call it" +
+                                            (c.shortfall.empty() ? "" : " (" + c.shortfall + ")")));
   }
   // A suspected mixture, too, is placed by the relative it follows first
   // when it also shares more with that one (otherwise the order tells

@@ -383,6 +383,7 @@ std::vector<Contamination> FindContamination(const CharacterMatrix& m, double mi
                     " holds every error of " + out.witness + "'s there and " +
                     std::to_string(src.lacked) + " more of its own: " + r + " more likely copied " +
                     out.witness + " there, and " + out.witness + " is not called contaminated";
+        out.direction_refused = true;
         suspected->push_back(std::move(out));
       }
       continue;

@@ -173,6 +173,10 @@ struct Contamination {
   /// the weaker side, 3 needed", "weight 2 on the weaker side, 3 needed");
   /// empty when the two sets are mixed along the table (the text says so).
   std::string shortfall;
+  /// For a suspected mixture only: the criterion holds, but the text says
+  /// why the witness is not called (its second relative copied it); the
+  /// note then does not say "too little".
+  bool direction_refused = false;
 };
 
 /// The stretch of `c` nearest to the character at `position` (the one it

@@ -295,6 +295,7 @@ TEST_CASE(
   const auto s = std::find_if(suspected.begin(), suspected.end(),
                               [](const Contamination& c) { return c.witness == "S"; });
   REQUIRE(s != suspected.end());
+  CHECK(s->direction_refused);
   CHECK(s->text.find("M holds every error of S's there and 2 more of its own: M more likely "
                      "copied S there, and S is not called contaminated") != std::string::npos);
 }
