@@ -140,6 +140,11 @@ inline constexpr int kRidgeValues = 12;
 /// roundings beside it (round_values.cpp).
 bool UndeterminedPlace(const Trial& t, double se, const model::ParamSpec* spec);
 
+/// Adds `p` to `out` unless a practice of the same rounding, places, grid
+/// and nodes is there already (the columns of a table tried under each
+/// other's practices: shared_values.cpp, shared_joint.cpp).
+void AddPracticeOnce(std::vector<model::Practice>& out, const model::Practice& p);
+
 /// The values to try, simplest first: attested values (fewest places
 /// first), then roundings of the estimate (coarsest first), then a rounded
 /// rate the mean-motion analysis found.

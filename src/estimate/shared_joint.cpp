@@ -128,15 +128,7 @@ std::optional<FitResult> Holding(const Member& m, const std::vector<model::Pract
 /// The members' practices, each once (rounding, places, grid and nodes).
 std::vector<model::Practice> PracticesOf(const std::vector<Member>& members) {
   std::vector<model::Practice> out;
-  for (const auto& m : members) {
-    const model::Practice& p = m.column->best->fit.practice;
-    bool seen = false;
-    for (const auto& q : out) {
-      seen = seen || (q.rounding == p.rounding && q.places == p.places && q.grid == p.grid &&
-                      q.round_nodes == p.round_nodes && q.grid_origin == p.grid_origin);
-    }
-    if (!seen) out.push_back(p);
-  }
+  for (const auto& m : members) AddPracticeOnce(out, m.column->best->fit.practice);
   return out;
 }
 

@@ -26,6 +26,15 @@
 
 namespace apograph::estimate {
 
+void internal::AddPracticeOnce(std::vector<model::Practice>& out, const model::Practice& p) {
+  for (const auto& q : out) {
+    if (q.rounding == p.rounding && q.places == p.places && q.grid == p.grid &&
+        q.round_nodes == p.round_nodes && q.grid_origin == p.grid_origin)
+      return;
+  }
+  out.push_back(p);
+}
+
 namespace {
 
 /// The adopted value of a parameter the table's columns share: a
@@ -86,12 +95,7 @@ std::vector<model::Practice> Practices(const ColumnBest& c,
     model::Practice p = o.best->Final().practice;
     p.sign = c.best->fit.practice.sign;
     p.displacement = c.best->fit.practice.displacement;
-    bool seen = false;
-    for (const auto& q : out) {
-      seen = seen || (q.rounding == p.rounding && q.places == p.places && q.grid == p.grid &&
-                      q.round_nodes == p.round_nodes && q.grid_origin == p.grid_origin);
-    }
-    if (!seen) out.push_back(p);
+    internal::AddPracticeOnce(out, p);
   }
   return out;
 }
