@@ -173,17 +173,18 @@ void Stretches(PairEvidence& p) {
 // Whether, in the part of the table from `from` to `to` (positions), r
 // holds every one of c's errors it can be read at (two or more) while c
 // lacks some of r's: r was copied from c there (c's exemplar, or a witness
-// that turned to c), which also makes c share r's errors there.
-bool CopiedFrom(const CharacterMatrix& m, int c, int r, int from, int to) {
-  int c_errors = 0;
-  bool r_holds = true, c_holds = true;
+// that turned to c), which also makes c share r's errors there. Returns
+// the number of r's errors there that c lacks (0: not copied so).
+int CopiedFrom(const CharacterMatrix& m, int c, int r, int from, int to) {
+  int c_errors = 0, lacked = 0;
+  bool r_holds = true;
   for (const Character& ch : m.characters) {
     if (ch.position < from || ch.position > to || !Evidence(ch)) continue;
     const signed char sc = ch.states[c], sr = ch.states[r];
     if (sc == 1 && sr >= 0) ++c_errors, r_holds = r_holds && sr == 1;
-    if (sr == 1 && sc == 0) c_holds = false;
+    if (sr == 1 && sc == 0) ++lacked;
   }
-  return c_errors >= 2 && r_holds && !c_holds;
+  return c_errors >= 2 && r_holds ? lacked : 0;
 }
 
 // The first stretch of `out` following its second relative where that
@@ -200,18 +201,13 @@ Source CopiedInStretch(const CharacterMatrix& m, int c, const Contamination& out
   Source s;
   for (const auto& seg : out.segments) {
     const int r = m.TaxonIndex(seg.relative);
-    if (r < 0 || seg.relative != out.secondary ||
-        !CopiedFrom(m, c, r, seg.first_position, seg.last_position))
-      continue;
+    if (r < 0 || seg.relative != out.secondary) continue;
+    s.lacked = CopiedFrom(m, c, r, seg.first_position, seg.last_position);
+    if (s.lacked == 0) continue;
     s.relative = r, s.first_row = seg.first_row, s.last_row = seg.last_row;
-    for (const Character& ch : m.characters) {
-      if (ch.position < seg.first_position || ch.position > seg.last_position || !Evidence(ch))
-        continue;
-      s.lacked += ch.states[r] == 1 && ch.states[c] == 0 ? 1 : 0;
-    }
     return s;
   }
-  return s;
+  return Source{};
 }
 
 // A clean switch (one change) whose relative on either side was copied
@@ -227,8 +223,8 @@ bool LocalCopy(const CharacterMatrix& m, int c, const PairEvidence& p) {
   const int first_second = m.characters[p.errors[cut].character].position;
   const int before = p.errors.front().stretch == 0 ? p.x : p.y;
   const int after = before == p.x ? p.y : p.x;
-  return CopiedFrom(m, c, before, std::numeric_limits<int>::min(), last_first) ||
-         CopiedFrom(m, c, after, first_second, std::numeric_limits<int>::max());
+  return CopiedFrom(m, c, before, std::numeric_limits<int>::min(), last_first) > 0 ||
+         CopiedFrom(m, c, after, first_second, std::numeric_limits<int>::max()) > 0;
 }
 
 PairEvidence Sides(const CharacterMatrix& m, int c, int x, int y,
